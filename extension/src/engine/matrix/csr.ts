@@ -1,0 +1,24 @@
+/**
+ * A sparse matrix in compressed sparse row form: row r holds the entries
+ * indices[indptr[r] .. indptr[r+1]) with values data[...]; column ids are ascending within a row.
+ * Rows are documents, columns are terms.
+ */
+export interface Csr {
+  readonly rows: number;
+  readonly cols: number;
+  readonly indptr: Uint32Array; // length rows + 1
+  readonly indices: Uint32Array; // length nnz
+  readonly data: Float64Array; // length nnz
+}
+
+/** Raw term counts with the vocabulary they index. */
+export interface CountMatrix extends Csr {
+  /** Column j's term. */
+  readonly terms: readonly string[];
+  /** Tokens per document before pruning (for meanDocLength and the Report). */
+  readonly tokensPerDoc: Uint32Array;
+}
+
+export function nnz(m: Csr): number {
+  return m.indptr[m.rows] ?? 0;
+}

@@ -1,0 +1,148 @@
+// The Report (design.md "Report contract") and every message between the extension host and
+// the Distance Review webview. Imported by both sides: keep it free of Node and DOM types.
+// Each message type carries a literal `type`; the comment says which way it travels.
+
+/** Distance-health measures of one setting (baseline or with suggestions). */
+export interface Measures {
+  /** The seeded document sample the quadratic measures were computed on. */
+  sample: { documents: number; k: number; seed: number };
+  /** Mean pairwise cosine over all pairs, exact (methods §3). */
+  backgroundSimilarity: number;
+  /** Median z-score of the nearest neighbour's similarity against the query's similarities. */
+  neighborStandout: number | null;
+  /** Relative contrast (Dmax − Dmin)/Dmin per query, Beyer et al. 1999 (methods §4). */
+  contrast: { median: number; p10: number; p90: number } | null;
+  /** E[D_mean]/E[D_min] over the sample queries, He, Kumar & Chang 2012 (methods §4). */
+  meanToNearest: number | null;
+  /** 1/(2·CV²) of the sampled pair distances (methods §4). */
+  iidEquivalentDimension: number | null;
+  /** k-occurrence statistics, Radovanović et al. 2010 (methods §5). */
+  hubness: { skewness: number; hubs: number; orphans: number } | null;
+  /** TwoNN (Facco et al. 2017) and MLE (Levina & Bickel 2005) on the sample (methods §6). */
+  intrinsicDimension: { twoNN: number | null; mle: number | null };
+  /** Relative growth of the radius past the k-th neighbour before hits grow 10×. */
+  radiusSlack: { median: number } | null;
+  /** Share of the all-pairs similarity mass carried by the 10 / 100 heaviest terms. */
+  topTermsMassShare: { top10: number; top100: number };
+  /** Leave-one-out k-NN precision@k against the label column; null without labels. */
+  labelPrecisionAtK: number | null;
+  /** 1 − mean Jaccard overlap of k-NN sets against the baseline; null for the baseline itself. */
+  neighborTurnover: number | null;
+  /** Chart data for the panel; a pure function of the same sample. */
+  distributions: Distributions;
+}
+
+/** Histograms for the panel's charts. Bin edges are implied by `binWidth` from `start`. */
+export interface Distributions {
+  /** Cosine similarity of sampled document pairs and of each query's nearest neighbour. */
+  similarity: { start: number; binWidth: number; pairs: number[]; nearest: number[] };
+  /** Histogram of k-occurrence N_k: counts[i] documents have N_k = i (last bin: ≥). */
+  kOccurrence: number[];
+  /** Cumulative share of all-pairs similarity mass of the top 1..m terms. */
+  cumulativeMass: number[];
+}
+
+export type TermStatus = 'suggested' | 'stopped' | 'protected' | 'kept';
+
+export interface TermRow {
+  term: string;
+  df: number;
+  idf: number;
+  /** Share of the all-pairs similarity mass (methods §3). */
+  pullShare: number;
+  /** Share of the similarity inside k-NN pairs ÷ pull share; null where no k-NN mass exists. */
+  neighborLift: number | null;
+  /** Normalised entropy of the term's weight over documents (1 = evenly everywhere). */
+  spread: number;
+  /** Combined score used to rank loud terms (higher = louder). */
+  loudness: number;
+  status: TermStatus;
+  /** One line a person can read: why this term is or is not suggested. */
+  why: string;
+}
+
+export interface HubRow {
+  /** 0-based document index in the corpus. */
+  doc: number;
+  /** 1-based line in the source file where the document starts. */
+  line: number;
+  kOccurrence: number;
+  preview: string;
+}
+
+export interface Report {
+  tool: { name: 'loudword'; version: string };
+  input: {
+    file: string;
+    format: CorpusFormatName;
+    textField: string | null;
+    labelField: string | null;
+    documents: number;
+    skipped: number;
+    /** Set when the input was cut at a size limit: what was read and why. */
+    truncated?: { bytesRead: number; limitBytes: number } | undefined;
+    /** A few of the skipped rows, with their line and reason. */
+    skippedExamples?: Array<{ line: number; reason: string }> | undefined;
+  };
+  settings: EffectiveSettings;
+  vocabulary: { terms: number; tokens: number; nonzeros: number; meanDocLength: number };
+  baseline: Measures;
+  suggested: Measures;
+  terms: TermRow[];
+  suggestions: string[];
+  hubs: HubRow[];
+  /** The stop list in force for the baseline (from the project's stop list file). */
+  stopList: { file: string | null; terms: number; unused: string[] };
+  timings?: Record<string, number> | undefined;
+}
+
+export type CorpusFormatName = 'csv' | 'tsv' | 'jsonl' | 'text';
+export type TokenKind = 'word' | 'number' | 'url' | 'email' | 'hashtag' | 'mention' | 'emoji' | 'emoticon' | 'symbol' | 'punctuation' | 'currency' | 'ordinal' | 'time' | 'shortForm';
+
+/** The settings after defaults are applied: what the review actually used. */
+export interface EffectiveSettings {
+  format: CorpusFormatName | 'auto';
+  text: string | null;
+  label: string | null;
+  stopList: string | null;
+  tokens: { lowercase: boolean; minLength: number; kinds: TokenKind[]; stem: boolean; ngrams: 1 | 2 };
+  weighting: { tf: 'raw' | 'sublinear' | 'binary'; idf: 'smooth' | 'plain' | 'plainPlusOne' | 'none'; norm: 'l2' | 'l1' | 'none' };
+  prune: { minDf: number; maxDf: number };
+  sample: { documents: number; k: number; seed: number };
+  suggest: { max: number; protect: string[]; functionWordPrior: boolean };
+  limits: { maxBytes: number };
+}
+
+// ---- Messages: extension host → webview ----
+export interface ShowReportMessage { type: 'showReport'; report: Report }
+export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number }
+export interface BusyMessage { type: 'busy'; stage: string | null }
+export interface ErrorMessage { type: 'error'; message: string }
+export type HostToWebview = ShowReportMessage | WhatIfResultMessage | BusyMessage | ErrorMessage;
+
+// ---- Messages: webview → extension host ----
+export interface ReadyMessage { type: 'ready' }
+export interface WhatIfRequestMessage { type: 'whatIf'; removed: string[]; requestId: number }
+export interface RevealLineMessage { type: 'revealLine'; line: number }
+export interface AddTermsMessage { type: 'addTerms'; terms: string[] }
+export interface ExportHtmlMessage { type: 'exportHtml' }
+export type WebviewToHost = ReadyMessage | WhatIfRequestMessage | RevealLineMessage | AddTermsMessage | ExportHtmlMessage;
+
+const webviewToHostTypes: ReadonlySet<string> = new Set(['ready', 'whatIf', 'revealLine', 'addTerms', 'exportHtml']);
+
+/** Checks a message from the webview before the host acts on it (the page is not trusted). */
+export function isWebviewToHost(value: unknown): value is WebviewToHost {
+  if (typeof value !== 'object' || value === null) return false;
+  const m = value as Record<string, unknown>;
+  if (typeof m.type !== 'string' || !webviewToHostTypes.has(m.type)) return false;
+  switch (m.type) {
+    case 'whatIf':
+      return Array.isArray(m.removed) && m.removed.every((t) => typeof t === 'string') && typeof m.requestId === 'number';
+    case 'revealLine':
+      return typeof m.line === 'number' && Number.isInteger(m.line) && m.line >= 1;
+    case 'addTerms':
+      return Array.isArray(m.terms) && m.terms.every((t) => typeof t === 'string');
+    default:
+      return true;
+  }
+}
