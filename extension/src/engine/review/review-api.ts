@@ -1,0 +1,40 @@
+import type { EffectiveSettings, Measures, Report } from '../../protocol';
+
+/** Settings given on the command line or by the editor; they win over loudword.json. */
+export type SettingsOverrides = Partial<Pick<EffectiveSettings, 'format' | 'text' | 'label' | 'stopList'>> & {
+  sample?: Partial<EffectiveSettings['sample']>;
+};
+
+export interface ReviewInput {
+  /** Path of the corpus file (used for reading unless `text` is given, and for messages). */
+  file: string;
+  /** The corpus's text when it comes from an editor buffer rather than the disk. */
+  text?: string;
+  /** loudword.json to read; null = none (defaults). */
+  configPath?: string | null;
+  /**
+   * Stop-list text to use instead of reading the stop list file (the editor passes its
+   * unsaved buffer here).
+   */
+  stopListText?: string;
+  overrides?: SettingsOverrides;
+}
+
+/** Named stages, in order, for progress reporting. */
+export type ReviewStage = 'reading' | 'tokenizing' | 'weighting' | 'measuring' | 'reviewing terms' | 'what-if';
+
+export interface ReviewHooks {
+  onStage?(stage: ReviewStage, fraction: number): void;
+  /** Aborting stops the review between batches; startReview then rejects with an AbortError. */
+  signal?: AbortSignal;
+}
+
+/**
+ * A finished review that keeps its matrix in memory so the panel's toggles can ask
+ * "what if these terms were stopped too?" without re-reading or re-tokenising.
+ */
+export interface ReviewSession {
+  readonly report: Report;
+  /** Measures with the baseline stop list plus `removed`; O(nnz) plus the sampled measures. */
+  whatIf(removed: readonly string[]): Measures;
+}
