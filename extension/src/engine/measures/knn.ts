@@ -1,0 +1,74 @@
+import { validRowsFromGram } from './gram-distances';
+
+/** Marks an unused slot of a k-NN list (the sample holds fewer than k other valid rows). */
+export const NO_NEIGHBOR = 0xffffffff;
+
+export interface KnnLists {
+  /** m×k sample positions, best first; NO_NEIGHBOR where there is none. */
+  neighbors: Uint32Array;
+  /** m×k similarities (or distances) matching `neighbors`; NaN where there is none. */
+  sims: Float64Array;
+}
+
+/**
+ * k nearest neighbours from a dense m×m similarity matrix, self excluded, similarities
+ * descending, ties to the lower position so results never depend on scan order.
+ *
+ * Rows not in `valid` get no neighbours and are nobody's neighbour. By default `valid` is read
+ * from the diagonal (a zero squared norm = an all-zero row, see validRowsFromGram).
+ */
+export function knnFromSimilarities(sims: Float64Array, m: number, k: number, valid?: Uint8Array): KnnLists {
+  return selectNearest(sims, m, k, valid ?? validRowsFromGram(sims, m), 1);
+}
+
+/** k nearest neighbours from a dense m×m distance matrix, distances ascending (see above). */
+export function knnFromDistances(dist: Float64Array, m: number, k: number, valid: Uint8Array): { neighbors: Uint32Array; distances: Float64Array } {
+  const { neighbors, sims } = selectNearest(dist, m, k, valid, -1);
+  return { neighbors, distances: sims };
+}
+
+/** The distance matrix's entries at each row's neighbour positions (NaN where none). */
+export function neighborDistances(dist: Float64Array, m: number, neighbors: Uint32Array, k: number): Float64Array {
+  const out = new Float64Array(m * k).fill(NaN);
+  for (let i = 0; i < m; i++) {
+    for (let r = 0; r < k; r++) {
+      const j = neighbors[i * k + r];
+      if (j !== NO_NEIGHBOR) out[i * k + r] = dist[i * m + j];
+    }
+  }
+  return out;
+}
+
+/** Top-k per row by sign·value; an insertion list is enough for the small k in use. */
+function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8Array, sign: 1 | -1): KnnLists {
+  if (!Number.isInteger(k) || k < 1) throw new RangeError(`k must be a positive integer, got ${k}`);
+  if (values.length !== m * m) throw new RangeError(`expected an ${m}×${m} matrix, got ${values.length} entries`);
+  const neighbors = new Uint32Array(m * k).fill(NO_NEIGHBOR);
+  const out = new Float64Array(m * k).fill(NaN);
+  const bestScore = new Float64Array(k);
+  const bestPos = new Uint32Array(k);
+  for (let i = 0; i < m; i++) {
+    if (!valid[i]) continue;
+    let filled = 0;
+    const base = i * m;
+    for (let j = 0; j < m; j++) {
+      if (j === i || !valid[j]) continue;
+      const s = sign * values[base + j];
+      if (filled === k && !(s > bestScore[k - 1])) continue;
+      // Shift strictly worse entries down; equal scores stay ahead (lower position wins).
+      let slot = filled < k ? filled++ : k - 1;
+      while (slot > 0 && s > bestScore[slot - 1]) {
+        bestScore[slot] = bestScore[slot - 1];
+        bestPos[slot] = bestPos[slot - 1];
+        slot--;
+      }
+      bestScore[slot] = s;
+      bestPos[slot] = j;
+    }
+    for (let r = 0; r < filled; r++) {
+      neighbors[i * k + r] = bestPos[r];
+      out[i * k + r] = sign * bestScore[r];
+    }
+  }
+  return { neighbors, sims: out };
+}

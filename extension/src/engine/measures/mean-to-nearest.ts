@@ -1,0 +1,34 @@
+/**
+ * Relative contrast in the sense of He, Kumar & Chang (2012), "On the difficulty of nearest
+ * neighbor search", ICML: C_r = E[D_mean]/E[D_min], the expectations taken over queries
+ * (methods §4). Near 1, the nearest neighbour is hardly nearer than an average document.
+ *
+ * Unlike the per-query ratio, a ratio of means stays finite when some queries have an exact
+ * duplicate (D_min = 0), so those queries are kept: they are part of what a search would meet.
+ * null when fewer than one valid query with a valid partner exists or every D_min is 0.
+ */
+export function meanToNearest(dist: Float64Array, m: number, valid: Uint8Array): number | null {
+  let sumMean = 0;
+  let sumMin = 0;
+  let queries = 0;
+  for (let i = 0; i < m; i++) {
+    if (!valid[i]) continue;
+    let dMin = Infinity;
+    let sum = 0;
+    let count = 0;
+    const base = i * m;
+    for (let j = 0; j < m; j++) {
+      if (j === i || !valid[j]) continue;
+      const d = dist[base + j];
+      sum += d;
+      count++;
+      if (d < dMin) dMin = d;
+    }
+    if (count === 0) continue;
+    sumMean += sum / count;
+    sumMin += dMin;
+    queries++;
+  }
+  if (queries === 0 || !(sumMin > 0)) return null;
+  return sumMean / sumMin;
+}

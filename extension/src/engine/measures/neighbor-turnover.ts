@@ -1,0 +1,36 @@
+import { NO_NEIGHBOR } from './knn';
+
+/**
+ * Neighbour turnover between two settings on the same sample positions (methods §7):
+ * 1 − mean Jaccard |A ∩ B| / |A ∪ B| of each row's k-NN sets. Rows with no neighbours in either
+ * setting are skipped (nothing to compare); a row with neighbours in only one has Jaccard 0.
+ * null when no row has neighbours in either.
+ */
+export function neighborTurnover(a: Uint32Array, b: Uint32Array, m: number, k: number): number | null {
+  if (a.length !== m * k || b.length !== m * k) throw new RangeError(`neighborTurnover: expected two ${m}×${k} neighbour lists`);
+  let sum = 0;
+  let rows = 0;
+  for (let i = 0; i < m; i++) {
+    const base = i * k;
+    let sizeA = 0;
+    let sizeB = 0;
+    let common = 0;
+    for (let r = 0; r < k; r++) {
+      if (b[base + r] !== NO_NEIGHBOR) sizeB++;
+      const x = a[base + r];
+      if (x === NO_NEIGHBOR) continue;
+      sizeA++;
+      for (let s = 0; s < k; s++) {
+        if (b[base + s] === x) {
+          common++;
+          break;
+        }
+      }
+    }
+    const union = sizeA + sizeB - common;
+    if (union === 0) continue;
+    sum += common / union;
+    rows++;
+  }
+  return rows === 0 ? null : 1 - sum / rows;
+}

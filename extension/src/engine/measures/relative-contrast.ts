@@ -1,0 +1,42 @@
+import { quantileSorted } from './quantile';
+
+export interface ContrastSummary {
+  median: number;
+  p10: number;
+  p90: number;
+}
+
+/**
+ * Relative contrast per query, RC(q) = (Dmax − Dmin)/Dmin over the other valid sample rows
+ * (Beyer, Goldstein, Ramakrishnan & Shaft 1999, "When is 'nearest neighbor' meaningful?",
+ * ICDT; methods §4). As dimensionality concentrates distances, RC falls towards 0.
+ *
+ * Queries with Dmin = 0 have an exact duplicate in the sample: their RC is infinite and says
+ * nothing about concentration, so they are left out (text corpora often hold many duplicates).
+ * Returns the per-query values (NaN where left out).
+ */
+export function relativeContrastPerQuery(dist: Float64Array, m: number, valid: Uint8Array): Float64Array {
+  const rc = new Float64Array(m).fill(NaN);
+  for (let i = 0; i < m; i++) {
+    if (!valid[i]) continue;
+    let dMin = Infinity;
+    let dMax = -Infinity;
+    const base = i * m;
+    for (let j = 0; j < m; j++) {
+      if (j === i || !valid[j]) continue;
+      const d = dist[base + j];
+      if (d < dMin) dMin = d;
+      if (d > dMax) dMax = d;
+    }
+    if (dMin > 0 && dMin < Infinity) rc[i] = (dMax - dMin) / dMin;
+  }
+  return rc;
+}
+
+/** Median, 10th and 90th percentile of RC over the queries that have one; null if none. */
+export function relativeContrast(dist: Float64Array, m: number, valid: Uint8Array): ContrastSummary | null {
+  const perQuery = relativeContrastPerQuery(dist, m, valid);
+  const kept = perQuery.filter((v) => !Number.isNaN(v)).sort();
+  if (kept.length === 0) return null;
+  return { median: quantileSorted(kept, 0.5), p10: quantileSorted(kept, 0.1), p90: quantileSorted(kept, 0.9) };
+}

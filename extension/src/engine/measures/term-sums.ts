@@ -1,0 +1,115 @@
+import type { Csr } from '../matrix/csr';
+
+/**
+ * Per-term sums over documents, exact in one O(nnz) pass (methods §3). Every field is a plain
+ * sum over documents, so shards of a corpus merge by adding them.
+ */
+export interface TermSums {
+  /** S1(t) = Σ_d x_dt */
+  s1: Float64Array;
+  /** S2(t) = Σ_d x_dt² */
+  s2: Float64Array;
+  /** Documents with a non-zero weight for t. */
+  df: Uint32Array;
+  /** Σ_d x_dt·ln x_dt (0·ln 0 = 0), for the spread without a second pass. */
+  sxlogx: Float64Array;
+}
+
+export function termSums(X: Csr): TermSums {
+  const s1 = new Float64Array(X.cols);
+  const s2 = new Float64Array(X.cols);
+  const df = new Uint32Array(X.cols);
+  const sxlogx = new Float64Array(X.cols);
+  const { indices, data } = X;
+  const end = X.indptr[X.rows] ?? 0;
+  for (let p = 0; p < end; p++) {
+    const x = data[p];
+    if (x === 0) continue;
+    const t = indices[p];
+    s1[t] += x;
+    s2[t] += x * x;
+    df[t]++;
+    if (x > 0) sxlogx[t] += x * Math.log(x);
+  }
+  return { s1, s2, df, sxlogx };
+}
+
+export interface PairMass {
+  /** P(t) = (S1² − S2)/2: term t's share of Σ_{a<b} cos(a, b). */
+  perTerm: Float64Array;
+  /** Σ_t P(t) = Σ_{a<b} cos(a, b). */
+  total: number;
+  /** total / (n(n−1)/2) with n the non-empty rows: the mean pairwise cosine. */
+  backgroundSimilarity: number;
+}
+
+/**
+ * The all-pairs similarity mass per term without a pair loop (methods §3): on unit rows
+ * cos(a, b) = Σ_t x_at·x_bt, and Σ_{a<b} x_at·x_bt = (S1(t)² − S2(t))/2.
+ * Empty rows add nothing to the mass, and they are left out of the pair count so that
+ * documents emptied by a stop list do not make the corpus look artificially quiet.
+ */
+export function pairMass(sums: TermSums, nonEmptyRows: number): PairMass {
+  const { s1, s2 } = sums;
+  const perTerm = new Float64Array(s1.length);
+  let total = 0;
+  for (let t = 0; t < s1.length; t++) {
+    const a = s1[t];
+    const p = (a * a - s2[t]) / 2;
+    perTerm[t] = p;
+    total += p;
+  }
+  const pairs = (nonEmptyRows * (nonEmptyRows - 1)) / 2;
+  return { perTerm, total, backgroundSimilarity: pairs > 0 ? total / pairs : 0 };
+}
+
+/**
+ * Normalised entropy of each term's weight over the n documents: 1 = spread evenly over all of
+ * them, 0 = in one document. With p_d = x_dt/S1(t),
+ *   H = −Σ p_d ln p_d = −Σ (x/S1)(ln x − ln S1) = ln S1 − (Σ x ln x)/S1,
+ * so the per-term Σ x ln x gathered in termSums gives H in O(1) per term, no second pass.
+ */
+export function termSpread(sums: TermSums, n: number): Float64Array {
+  const { s1, sxlogx } = sums;
+  const spread = new Float64Array(s1.length);
+  if (n < 2) return spread;
+  const lnN = Math.log(n);
+  for (let t = 0; t < s1.length; t++) {
+    const a = s1[t];
+    if (!(a > 0)) continue;
+    const h = Math.log(a) - sxlogx[t] / a;
+    // Rounding can push H a hair outside [0, ln n].
+    spread[t] = Math.min(1, Math.max(0, h / lnN));
+  }
+  return spread;
+}
+
+/** The `count` largest values of perTerm, largest first (a sorted copy; the input is untouched). */
+function largestFirst(perTerm: Float64Array, count: number): Float64Array {
+  const sorted = Float64Array.from(perTerm).sort();
+  const take = Math.min(count, sorted.length);
+  const out = new Float64Array(take);
+  for (let i = 0; i < take; i++) out[i] = sorted[sorted.length - 1 - i];
+  return out;
+}
+
+/** Share of the total mass carried by the `count` heaviest terms; 0 when there is no mass. */
+export function topMassShare(perTerm: Float64Array, total: number, count: number): number {
+  if (!(total > 0)) return 0;
+  const top = largestFirst(perTerm, count);
+  let sum = 0;
+  for (let i = 0; i < top.length; i++) sum += top[i];
+  return sum / total;
+}
+
+/** Cumulative share of the total mass of the heaviest 1, 2, …, maxTerms terms. */
+export function cumulativeMassShare(perTerm: Float64Array, total: number, maxTerms: number): number[] {
+  const top = largestFirst(perTerm, maxTerms);
+  const out: number[] = new Array(top.length);
+  let sum = 0;
+  for (let i = 0; i < top.length; i++) {
+    sum += top[i];
+    out[i] = total > 0 ? sum / total : 0;
+  }
+  return out;
+}
