@@ -40,4 +40,8 @@ export interface CorpusSource {
   readonly skipped: { count: number; examples: SkippedRow[] };
   /** Set after streaming when maxBytes cut the input. */
   readonly truncated: { bytesRead: number; limitBytes: number } | null;
+  /** The CSV/TSV field delimiter in use; absent for JSON Lines and plain text. */
+  readonly delimiter?: string;
+  /** Things the user should know about how the file was read (encoding fallback, ignored options). */
+  readonly notes?: readonly string[];
 }

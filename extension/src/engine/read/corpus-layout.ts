@@ -1,0 +1,160 @@
+import type { CorpusFormatName } from '../../protocol';
+import { UserError } from '../user-error';
+import type { ReadOptions } from './corpus-source';
+import { CsvRecordSplitter } from './csv-record-splitter';
+import { sniffDelimiter, formatFromExtension, sniffFormat } from './detect-format';
+import { DETECT_ROWS, detectTextField } from './detect-text-field';
+import { parseJsonlLine } from './jsonl-value';
+import { LineSplitter } from './line-splitter';
+
+/** What the first part of a file says about how to read all of it. */
+export interface CorpusLayout {
+  format: CorpusFormatName;
+  delimiter: string | null;
+  /** Header names (CSV/TSV; empty ones named "column N") or keys seen (JSON Lines). */
+  fields: string[];
+  textField: string | null;
+  labelField: string | null;
+  /** Column positions for CSV/TSV; -1 where there is none. */
+  textIndex: number;
+  labelIndex: number;
+  notes: string[];
+}
+
+/**
+ * Decides format, delimiter and fields from the head of the input (the first ~1 MiB, already
+ * decoded and LF-normalised). `headComplete` says the head is the whole input, so its last
+ * record is not cut.
+ */
+export function detectLayout(file: string, head: string, headComplete: boolean, options: ReadOptions): CorpusLayout {
+  if (head.trim() === '') throw new UserError('no documents: the file holds only blank lines', file, null);
+  let format: CorpusFormatName;
+  let delimiter: string | null = null;
+  if (options.format !== undefined && options.format !== 'auto') format = options.format;
+  else {
+    const byName = formatFromExtension(file);
+    if (byName !== null) format = byName;
+    else ({ format, delimiter } = sniffFormat(head, headComplete));
+  }
+  const notes: string[] = [];
+  switch (format) {
+    case 'csv':
+    case 'tsv': {
+      if (format === 'tsv') delimiter = '\t';
+      else delimiter ??= sniffDelimiter(head, headComplete)?.delimiter ?? ',';
+      return tableLayout(file, head, headComplete, format, delimiter, options);
+    }
+    case 'jsonl':
+      return jsonlLayout(file, head, headComplete, options);
+    case 'text':
+      if (options.textField != null || options.labelField != null) {
+        notes.push('plain text has one document per line and no fields: the text and label settings were ignored');
+      }
+      return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, notes };
+  }
+}
+
+function tableLayout(file: string, head: string, headComplete: boolean, format: 'csv' | 'tsv', delimiter: string, options: ReadOptions): CorpusLayout {
+  const splitter = new CsvRecordSplitter(delimiter, file);
+  let header: string[] | null = null;
+  let headerLine = 1;
+  const sample: Array<Map<string, unknown>> = [];
+  let dataRecords = 0;
+  const take = (fields: string[], line: number): void => {
+    if (fields.length === 1 && (fields[0] as string).trim() === '') return;
+    if (header === null) {
+      header = fields.map((name, i) => (name.trim() === '' ? `column ${i + 1}` : name));
+      headerLine = line;
+      return;
+    }
+    dataRecords++;
+    if (fields.length !== header.length || sample.length >= DETECT_ROWS) return;
+    const row = new Map<string, unknown>();
+    for (let i = header.length - 1; i >= 0; i--) row.set(header[i] as string, fields[i]);
+    sample.push(row);
+  };
+  splitter.push(head, take);
+  splitter.end(take, !headComplete);
+  if (header === null) throw new UserError('no documents: no header row found', file, null);
+  const fields: string[] = header;
+  if (dataRecords === 0 && headComplete) throw new UserError('no documents: the file has a header row and nothing else', file, headerLine);
+
+  const labelField = pickField(file, fields, options.labelField ?? null, 'label', headerLine);
+  let textField = pickField(file, fields, options.textField ?? null, 'text', headerLine);
+  textField ??= detectTextField(fields, sample, labelField) ?? firstFieldWithoutSample(fields, sample.length, labelField);
+  if (textField === null) {
+    throw new UserError(`found no column with text; name one with the text setting (columns: ${list(fields)})`, file, headerLine);
+  }
+  return {
+    format,
+    delimiter,
+    fields,
+    textField,
+    labelField,
+    textIndex: fields.indexOf(textField),
+    labelIndex: labelField === null ? -1 : fields.indexOf(labelField),
+    notes: [],
+  };
+}
+
+function jsonlLayout(file: string, head: string, headComplete: boolean, options: ReadOptions): CorpusLayout {
+  const lines = new LineSplitter();
+  const keys = new Set<string>();
+  const sample: Array<Map<string, unknown>> = [];
+  let nonBlank = 0;
+  let broken = 0;
+  let firstBad: { line: number; reason: string } | null = null;
+  const take = (text: string, line: number): void => {
+    if (nonBlank >= DETECT_ROWS || text.trim() === '') return;
+    nonBlank++;
+    const parsed = parseJsonlLine(text);
+    if (!parsed.ok) {
+      if (parsed.brokenJson) broken++;
+      firstBad ??= { line, reason: parsed.reason };
+      return;
+    }
+    const row = new Map<string, unknown>();
+    for (const [k, v] of Object.entries(parsed.object)) {
+      keys.add(k);
+      row.set(k, v);
+    }
+    sample.push(row);
+  };
+  lines.push(head, take);
+  lines.end(take, !headComplete);
+  const bad = firstBad as { line: number; reason: string } | null;
+  if (bad !== null && (broken * 2 > nonBlank || sample.length === 0)) {
+    // Source: jsonlines.org — every line must be a valid JSON value; most lines failing means this is not JSON Lines.
+    throw new UserError(
+      `${broken} of the first ${nonBlank} lines are not JSON Lines documents; first bad line ${bad.line}: ${bad.reason}`,
+      file,
+      bad.line,
+    );
+  }
+  const fields = [...keys];
+  const labelField = pickField(file, fields, options.labelField ?? null, 'label', null);
+  let textField = pickField(file, fields, options.textField ?? null, 'text', null);
+  textField ??= detectTextField(fields, sample, labelField);
+  if (textField === null) {
+    throw new UserError(`found no key with text; name one with the text setting (keys: ${list(fields)})`, file, null);
+  }
+  return { format: 'jsonl', delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, notes: [] };
+}
+
+/** A head holding one record longer than itself has no sample: take the first candidate field rather than fail. */
+function firstFieldWithoutSample(fields: readonly string[], sampled: number, exclude: string | null): string | null {
+  if (sampled > 0) return null;
+  return fields.find((f) => f !== exclude) ?? null;
+}
+
+function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null): string | null {
+  if (wanted === null) return null;
+  if (fields.includes(wanted)) return wanted;
+  const alt = fields.find((f) => f.toLowerCase() === wanted.toLowerCase());
+  const hint = alt === undefined ? '' : ` (did you mean "${alt}"?)`;
+  throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}`, file, line);
+}
+
+function list(fields: readonly string[]): string {
+  return fields.length === 0 ? '(none)' : fields.map((f) => `"${f}"`).join(', ');
+}

@@ -1,0 +1,62 @@
+import { isUtf8 } from 'node:buffer';
+import { UserError } from '../user-error';
+import { completeUtf8Length } from './utf8-boundary';
+
+export type CorpusEncoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252';
+
+export interface DetectedEncoding {
+  encoding: CorpusEncoding;
+  /** Bytes of byte-order mark to skip. */
+  bomLength: number;
+  /** Something the user should know about how the bytes were read. */
+  note: string | null;
+}
+
+/** How far a NUL byte marks a file as binary (common practice, no source: git and grep look at a similar prefix). */
+export const BINARY_PROBE_BYTES = 64 * 1024;
+
+/**
+ * Decides how to decode a file from its first bytes. BOMs per the Unicode standard: EF BB BF
+ * (UTF-8), FF FE (UTF-16 LE), FE FF (UTF-16 BE). Without a BOM, a NUL byte means binary (or
+ * UTF-16 without a BOM, which we cannot read reliably), and bytes that are not valid UTF-8 are
+ * read as windows-1252, the usual source of such files.
+ */
+export function detectEncoding(head: Uint8Array, file: string, headIsWholeFile: boolean): DetectedEncoding {
+  if (head.length >= 3 && head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf) {
+    return { encoding: 'utf-8', bomLength: 3, note: null };
+  }
+  if (head.length >= 2 && head[0] === 0xff && head[1] === 0xfe) return { encoding: 'utf-16le', bomLength: 2, note: null };
+  if (head.length >= 2 && head[0] === 0xfe && head[1] === 0xff) return { encoding: 'utf-16be', bomLength: 2, note: null };
+
+  const probe = head.subarray(0, BINARY_PROBE_BYTES);
+  const nul = probe.indexOf(0);
+  if (nul >= 0) {
+    throw new UserError(
+      `looks like a binary file (a NUL byte at offset ${nul}); a corpus must be text (UTF-8, or UTF-16 with a byte-order mark)`,
+      file,
+      null,
+    );
+  }
+  const checked = headIsWholeFile ? head : head.subarray(0, completeUtf8Length(head));
+  if (isUtf8(checked)) return { encoding: 'utf-8', bomLength: 0, note: null };
+  const bad = firstInvalidUtf8Offset(checked);
+  return {
+    encoding: 'windows-1252',
+    bomLength: 0,
+    note: `not valid UTF-8 (first bad byte at offset ${bad}); read as windows-1252 (Latin-1)`,
+  };
+}
+
+/** Offset of the first byte that breaks UTF-8, for the note; a plain scan is fine on a head sample. */
+export function firstInvalidUtf8Offset(bytes: Uint8Array): number {
+  let lo = 0;
+  let hi = bytes.length;
+  // Binary search on prefix validity: a prefix cut inside a sequence is invalid too, so trim it.
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >>> 1;
+    const prefix = bytes.subarray(0, mid);
+    if (isUtf8(prefix.subarray(0, completeUtf8Length(prefix)))) lo = mid;
+    else hi = mid;
+  }
+  return completeUtf8Length(bytes.subarray(0, lo));
+}

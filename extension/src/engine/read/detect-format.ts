@@ -1,0 +1,77 @@
+import Papa from 'papaparse';
+import type { CorpusFormatName } from '../../protocol';
+
+const EXTENSIONS: Readonly<Record<string, CorpusFormatName>> = {
+  '.csv': 'csv',
+  '.tsv': 'tsv',
+  '.tab': 'tsv',
+  '.jsonl': 'jsonl',
+  '.ndjson': 'jsonl',
+  '.txt': 'text',
+  '.text': 'text',
+};
+
+export function formatFromExtension(file: string): CorpusFormatName | null {
+  const dot = file.lastIndexOf('.');
+  if (dot < 0 || dot < Math.max(file.lastIndexOf('/'), file.lastIndexOf('\\'))) return null;
+  return EXTENSIONS[file.slice(dot).toLowerCase()] ?? null;
+}
+
+/** Delimiters tried for a .csv, in order of preference on a tie. */
+export const CSV_DELIMITERS: readonly string[] = [',', ';', '\t', '|'];
+
+export interface DelimiterGuess {
+  delimiter: string;
+  /** Fields in the first record (the header). */
+  fields: number;
+  /** Share of the sampled records with exactly the header's field count. */
+  consistency: number;
+  records: number;
+}
+
+/**
+ * Picks the delimiter that splits the header into at least two fields and gives the most
+ * records the header's field count (ties: more fields, then the listed order). A wrong
+ * delimiter gives a one-field header or ragged records.
+ */
+export function sniffDelimiter(head: string, headComplete: boolean, candidates: readonly string[] = CSV_DELIMITERS): DelimiterGuess | null {
+  let best: DelimiterGuess | null = null;
+  for (const delimiter of candidates) {
+    const parsed = new Papa.Parser({ delimiter, newline: '\n', quoteChar: '"', escapeChar: '"', preview: 60 }).parse(head, 0, !headComplete) as Papa.ParseResult<string[]>;
+    const rows = parsed.data.filter((r) => !(r.length === 1 && (r[0] as string).trim() === ''));
+    if (rows.length === 0) continue;
+    const fields = (rows[0] as string[]).length;
+    if (fields < 2) continue;
+    let same = 0;
+    for (const r of rows) if (r.length === fields) same++;
+    const guess: DelimiterGuess = { delimiter, fields, consistency: same / rows.length, records: rows.length };
+    if (best === null || guess.consistency > best.consistency || (guess.consistency === best.consistency && guess.fields > best.fields)) {
+      best = guess;
+    }
+  }
+  return best;
+}
+
+/** Content sniffing for files whose extension says nothing. */
+export function sniffFormat(head: string, headComplete: boolean): { format: CorpusFormatName; delimiter: string | null } {
+  const firstLine = firstNonBlankLine(head);
+  if (firstLine !== null && firstLine.trimStart().startsWith('{')) return { format: 'jsonl', delimiter: null };
+  const guess = sniffDelimiter(head, headComplete);
+  // A table needs a header and rows that agree with it; prose with a comma here and there does not.
+  if (guess !== null && guess.records >= 2 && guess.consistency >= 0.9) {
+    return { format: guess.delimiter === '\t' ? 'tsv' : 'csv', delimiter: guess.delimiter };
+  }
+  return { format: 'text', delimiter: null };
+}
+
+function firstNonBlankLine(text: string): string | null {
+  let start = 0;
+  while (start < text.length) {
+    let end = text.indexOf('\n', start);
+    if (end < 0) end = text.length;
+    const line = text.slice(start, end);
+    if (line.trim() !== '') return line;
+    start = end + 1;
+  }
+  return null;
+}

@@ -1,0 +1,126 @@
+import type { CorpusRow, SkippedRow } from './corpus-source';
+import type { CorpusLayout } from './corpus-layout';
+import { CsvRecordSplitter } from './csv-record-splitter';
+import { parseJsonlLine, scalarText } from './jsonl-value';
+import { LineSplitter } from './line-splitter';
+import { UserError } from '../user-error';
+
+/** How many skipped rows are kept with their reason; the rest are only counted. */
+export const MAX_SKIPPED_EXAMPLES = 20;
+
+export interface PassState {
+  skipped: { count: number; examples: SkippedRow[] };
+  documents: number;
+  /** Lines that were not valid JSON (JSON Lines only). */
+  brokenJson: number;
+}
+
+type Emit = (row: CorpusRow) => void;
+
+/** A format-specific consumer of LF-normalised text chunks that emits documents. */
+export interface RowSink {
+  push(chunk: string): void;
+  /** `cut`: the input stopped at a size limit, so an unfinished last record is dropped. */
+  end(cut: boolean): void;
+}
+
+export function createRowSink(file: string, layout: CorpusLayout, state: PassState, emit: Emit): RowSink {
+  const skip = (line: number, reason: string): void => {
+    state.skipped.count++;
+    if (state.skipped.examples.length < MAX_SKIPPED_EXAMPLES) state.skipped.examples.push({ line, reason });
+  };
+  const accept = (row: CorpusRow): void => {
+    state.documents++;
+    emit(row);
+  };
+  switch (layout.format) {
+    case 'csv':
+    case 'tsv':
+      return tableSink(file, layout, skip, accept);
+    case 'jsonl':
+      return lineSink((text, line) => jsonlRow(layout, text, line, skip, accept, state));
+    case 'text':
+      return lineSink((text, line) => {
+        if (text.trim() !== '') accept({ text, label: null, line });
+      });
+  }
+}
+
+function tableSink(file: string, layout: CorpusLayout, skip: (line: number, reason: string) => void, accept: Emit): RowSink {
+  const splitter = new CsvRecordSplitter(layout.delimiter ?? ',', file);
+  const width = layout.fields.length;
+  const { textIndex, labelIndex } = layout;
+  let headerSeen = false;
+  const take = (fields: string[], line: number, malformedQuote: boolean): void => {
+    if (fields.length === 1 && (fields[0] as string).trim() === '') return;
+    if (!headerSeen) {
+      headerSeen = true;
+      return;
+    }
+    if (malformedQuote) return skip(line, 'malformed quotes (RFC 4180 §2: a quoted field ends with a quote followed by a delimiter or line end)');
+    if (fields.length !== width) return skip(line, `${fields.length} ${fields.length === 1 ? 'field' : 'fields'} where the header has ${width}`);
+    const text = fields[textIndex] as string;
+    if (text.trim() === '') return skip(line, `empty text in "${layout.textField}"`);
+    const label = labelIndex < 0 ? null : (fields[labelIndex] as string);
+    accept({ text, label: label === '' ? null : label, line });
+  };
+  return {
+    push: (chunk) => splitter.push(chunk, take),
+    end: (cut) => splitter.end(take, cut),
+  };
+}
+
+function jsonlRow(
+  layout: CorpusLayout,
+  text: string,
+  line: number,
+  skip: (line: number, reason: string) => void,
+  accept: Emit,
+  state: PassState,
+): void {
+  if (text.trim() === '') return;
+  const parsed = parseJsonlLine(text);
+  if (!parsed.ok) {
+    if (parsed.brokenJson) state.brokenJson++;
+    return skip(line, parsed.reason);
+  }
+  const key = layout.textField as string;
+  const value = scalarText(parsed.object[key]);
+  if ('reason' in value) return skip(line, `"${key}" ${value.reason}`);
+  if (value.text.trim() === '') return skip(line, `empty text in "${key}"`);
+  let label: string | null = null;
+  if (layout.labelField !== null) {
+    const raw = parsed.object[layout.labelField];
+    if (raw !== undefined && raw !== null) {
+      const l = scalarText(raw);
+      if ('reason' in l) return skip(line, `"${layout.labelField}" ${l.reason}`);
+      label = l.text === '' ? null : l.text;
+    }
+  }
+  accept({ text: value.text, label, line });
+}
+
+function lineSink(onLine: (text: string, line: number) => void): RowSink {
+  const splitter = new LineSplitter();
+  return {
+    push: (chunk) => splitter.push(chunk, onLine),
+    end: (cut) => splitter.end(onLine, cut),
+  };
+}
+
+/** After a full pass: a pass with no documents, or mostly broken JSON, is the user's to fix. */
+export function checkPass(file: string, state: PassState): void {
+  const first = state.skipped.examples[0];
+  if (state.documents === 0) {
+    const why = first === undefined ? '' : `; ${state.skipped.count} skipped, first on line ${first.line}: ${first.reason}`;
+    throw new UserError(`no documents${why}`, file, first?.line ?? null);
+  }
+  if (state.brokenJson > state.documents && first !== undefined) {
+    // Source: jsonlines.org — each line is one valid JSON value.
+    throw new UserError(
+      `${state.brokenJson} lines are not valid JSON against ${state.documents} documents; first bad line ${first.line}: ${first.reason}`,
+      file,
+      first.line,
+    );
+  }
+}

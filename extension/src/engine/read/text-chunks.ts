@@ -1,0 +1,38 @@
+import { createReadStream } from 'node:fs';
+import { ChunkDecoder } from './chunk-decoder';
+import type { DetectedEncoding } from './detect-encoding';
+import { NewlineNormalizer } from './newline-normalizer';
+
+/** Bytes per read: large enough that per-chunk overhead vanishes, small enough to stay flat in memory. */
+export const CHUNK_BYTES = 1024 * 1024;
+
+/** LF-normalised text of bytes [bom, end) of a file, decoded chunk by chunk. */
+export async function* fileTextChunks(file: string, encoding: DetectedEncoding, end: number, notes: string[]): AsyncGenerator<string> {
+  const decoder = new ChunkDecoder(encoding.encoding, encoding.bomLength);
+  const newlines = new NewlineNormalizer();
+  if (end > encoding.bomLength) {
+    const stream = createReadStream(file, { start: encoding.bomLength, end: end - 1, highWaterMark: CHUNK_BYTES });
+    try {
+      for await (const chunk of stream as AsyncIterable<Buffer>) {
+        const text = newlines.push(decoder.decode(chunk, false), false);
+        if (text.length > 0) yield text;
+      }
+    } finally {
+      stream.destroy();
+    }
+  }
+  const tail = newlines.push(decoder.decode(new Uint8Array(0), true), true);
+  if (tail.length > 0) yield tail;
+  notes.push(...decoder.notes);
+}
+
+/** The same for text already in memory (an editor buffer); the BOM character is dropped. */
+export function* memoryTextChunks(text: string, chunkChars = CHUNK_BYTES): Generator<string> {
+  const start = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  const newlines = new NewlineNormalizer();
+  for (let i = start; i < text.length; i += chunkChars) {
+    const end = Math.min(text.length, i + chunkChars);
+    const out = newlines.push(text.slice(i, end), end === text.length);
+    if (out.length > 0) yield out;
+  }
+}
