@@ -1,0 +1,21 @@
+/**
+ * Orders strings by Unicode code point, as Python's sorted() does, so that column j of our
+ * matrix is column j of scikit-learn's vocabulary_. JavaScript's default sort compares UTF-16
+ * code units, which puts astral characters (emoji, U+10000 and up, stored as surrogates
+ * D800–DFFF) before U+E000–U+FFFF (e.g. full-width forms); the fix-up below moves surrogates
+ * above that range, the usual way to get code point order from UTF-16.
+ */
+export function compareCodePoints(a: string, b: string): number {
+  const n = Math.min(a.length, b.length);
+  for (let i = 0; i < n; i++) {
+    let x = a.charCodeAt(i);
+    let y = b.charCodeAt(i);
+    if (x === y) continue;
+    if (x >= 0xd800 && y >= 0xd800) {
+      x = x >= 0xe000 ? x - 0x800 : x + 0x2000;
+      y = y >= 0xe000 ? y - 0x800 : y + 0x2000;
+    }
+    return x - y;
+  }
+  return a.length - b.length;
+}

@@ -1,0 +1,54 @@
+import type { EffectiveSettings } from '../../protocol';
+import type { CountMatrix, Csr } from './csr';
+import { normalizeRows } from './normalize-rows';
+
+export type WeightingSettings = EffectiveSettings['weighting'];
+
+export interface Weighted {
+  /** tf·idf, each row normalised; shares indptr and indices with the counts (do not mutate). */
+  weights: Csr;
+  /** idf of each column (1 for idf 'none'). */
+  idf: Float64Array;
+}
+
+/**
+ * tf·idf weights, following Salton & Buckley (1988) and IIR ch. 6, with scikit-learn's
+ * TfidfTransformer variants (methods §1):
+ *   tf:  raw c | sublinear 1 + ln c | binary [c > 0]
+ *   idf: smooth ln((1+n)/(1+df)) + 1 | plain ln(n/df) | plainPlusOne ln(n/df) + 1 | none 1
+ *   norm: l2 | l1 | none.
+ * A column with df 0 gets idf 0 under plain/plainPlusOne (ln(n/0) is infinite, and no entry
+ * uses it anyway). Rows with no terms, or whose weights are all 0, stay zero.
+ */
+export function weigh(counts: CountMatrix, weighting: WeightingSettings): Weighted {
+  const { rows: n, cols } = counts;
+  const total = counts.indptr[n];
+  const df = new Float64Array(cols);
+  for (let k = 0; k < total; k++) if (counts.data[k] !== 0) df[counts.indices[k]]++;
+  const idf = new Float64Array(cols);
+  for (let j = 0; j < cols; j++) idf[j] = idfOf(weighting.idf, n, df[j]);
+
+  const data = new Float64Array(total);
+  const tf = weighting.tf;
+  for (let k = 0; k < total; k++) {
+    const c = counts.data[k];
+    const t = c === 0 ? 0 : tf === 'raw' ? c : tf === 'sublinear' ? 1 + Math.log(c) : 1;
+    data[k] = t * idf[counts.indices[k]];
+  }
+  const weights: Csr = { rows: n, cols, indptr: counts.indptr, indices: counts.indices, data };
+  normalizeRows(weights.indptr, data, n, weighting.norm);
+  return { weights, idf };
+}
+
+function idfOf(kind: WeightingSettings['idf'], n: number, df: number): number {
+  switch (kind) {
+    case 'smooth':
+      return Math.log((1 + n) / (1 + df)) + 1;
+    case 'plain':
+      return df === 0 ? 0 : Math.log(n / df);
+    case 'plainPlusOne':
+      return df === 0 ? 0 : Math.log(n / df) + 1;
+    case 'none':
+      return 1;
+  }
+}

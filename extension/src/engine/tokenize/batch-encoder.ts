@@ -1,0 +1,76 @@
+import { existsSync } from 'node:fs';
+import { Worker } from 'node:worker_threads';
+import { createTokenizer, type TokenSettings } from './create-tokenizer';
+import { encodeBatch, type EncodedBatch } from './encode-batch';
+import type { TokenizeReply, TokenizeRequest } from './tokenize-messages';
+
+/** Tokenises batches of texts, in this thread or in a pool of worker threads. */
+export interface BatchEncoder {
+  /** How many batches may usefully be in flight at once. */
+  readonly parallelism: number;
+  encode(texts: string[]): Promise<EncodedBatch>;
+  close(): Promise<void>;
+}
+
+export function inProcessEncoder(tokens: TokenSettings): BatchEncoder {
+  const tokenize = createTokenizer(tokens);
+  return {
+    parallelism: 1,
+    encode: (texts) => Promise.resolve().then(() => encodeBatch(tokenize, texts)),
+    close: () => Promise.resolve(),
+  };
+}
+
+/**
+ * A pool of `workers` threads running `script` (dist/tokenize-worker.js), or null when the
+ * script is not there (e.g. tests run from source under tsx) so the caller falls back to
+ * in-process. Batches go round-robin; each worker answers in the order it was asked.
+ */
+export function workerEncoder(tokens: TokenSettings, workers: number, script: string): BatchEncoder | null {
+  if (workers < 1 || !existsSync(script)) return null;
+  const pending = new Map<number, { resolve(b: EncodedBatch): void; reject(e: Error): void; worker: number }>();
+  const pool: Worker[] = [];
+  let seq = 0;
+  let failure: Error | null = null;
+
+  const failAll = (worker: number, e: Error): void => {
+    failure ??= e;
+    for (const [s, p] of pending) {
+      if (p.worker !== worker) continue;
+      pending.delete(s);
+      p.reject(e);
+    }
+  };
+
+  for (let w = 0; w < workers; w++) {
+    const worker = new Worker(script, { workerData: { tokens } });
+    worker.on('message', (reply: TokenizeReply) => {
+      const p = pending.get(reply.seq);
+      if (p === undefined) return;
+      pending.delete(reply.seq);
+      if (reply.batch !== null) p.resolve(reply.batch);
+      else p.reject(new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
+    });
+    worker.on('error', (e) => failAll(w, e));
+    worker.on('exit', (code) => failAll(w, new Error(`tokenize worker exited with code ${code}`)));
+    pool.push(worker);
+  }
+
+  return {
+    parallelism: workers * 2,
+    encode(texts) {
+      if (failure !== null) return Promise.reject(failure);
+      const s = seq++;
+      const w = s % pool.length;
+      return new Promise<EncodedBatch>((resolve, reject) => {
+        pending.set(s, { resolve, reject, worker: w });
+        const request: TokenizeRequest = { seq: s, texts };
+        pool[w].postMessage(request);
+      });
+    },
+    async close() {
+      failure ??= new Error('tokenize pool closed');
+      await Promise.all(pool.map((w) => w.terminate()));
+    },
+  };
+}

@@ -1,0 +1,98 @@
+import type { EffectiveSettings, TokenKind } from '../../protocol';
+import { tokenKindOf } from './token-kind';
+import { winkInstance, winkStemmer } from './wink-instance';
+
+export type TokenSettings = EffectiveSettings['tokens'];
+
+const ALL_KINDS: ReadonlySet<TokenKind> = new Set<TokenKind>([
+  'word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol',
+  'punctuation', 'currency', 'ordinal', 'time', 'shortForm',
+]);
+
+/** Kinds whose tokens are one sign by nature: a length floor would only ever delete them all. */
+const LENGTH_EXEMPT: ReadonlySet<TokenKind> = new Set<TokenKind>(['emoji', 'emoticon', 'symbol', 'punctuation', 'currency']);
+
+/**
+ * Turns a document into its terms with wink-nlp (English lite model), tokenisation only.
+ *
+ * What wink-nlp does that users will notice (checked against wink-nlp 2.4 and
+ * wink-eng-lite-web-model 1.8; the unit tests pin each one):
+ * - Contractions are split, and with `lowercase` the parts are mapped to full words
+ *   (its.normal): "don't" → "do" + "not", "can't" → "ca"→"can" + "not", "won't" → "wo"→"will" +
+ *   "not", "ain't" → "are" + "not", "we'd" → "we" + "would", "cannot" → "can" + "not", "it's" →
+ *   "it" + "is". Possessives split too: "ABC's" → "abc" + "'s" (a word token), but a name with a
+ *   lowercase tail stays whole ("John's" → "john's"), as do "I'm", "y'all", "o'clock".
+ *   Without `lowercase` the parts keep their surface form ("n't", "ca", "wo").
+ * - URLs ("https://example.com/a?b=1") and e-mail addresses are single tokens of kind url / email;
+ *   a bare "www.foo.org" is not a URL: it becomes "www", ".", "foo", ".", "org".
+ * - "#Hashtag" → hashtag "#hashtag" and "@user" → mention "@user", each with its sign kept.
+ * - Numbers keep separators: "1,000,000", "3.5", "-5", "3/4" are single number tokens; "5pm"
+ *   is a time, "1st" an ordinal, "2020s"/"'90s" are counted as numbers; "$20" is currency "$"
+ *   plus number "20"; "50%" is "50" plus symbol "%".
+ * - Hyphenated words are split ("well-known" → "well", "-", "known"), abbreviations are kept
+ *   whole ("U.S.A.", "e.g.", "Mr.").
+ * - Scripts the English model has no rules for (Cyrillic, Greek, Arabic, Hebrew, Devanagari,
+ *   CJK) are kept as words; unsegmented CJK text stays one token per run of characters.
+ *
+ * Options:
+ * - lowercase: use wink's normal form (lowercased, contractions expanded) instead of the surface.
+ * - minLength: drop tokens shorter than this many Unicode code points, measured before stemming;
+ *   emoji, emoticons, symbols, punctuation and currency signs are exempt.
+ * - kinds: token kinds to keep; everything else is dropped before n-grams are formed.
+ * - stem: Porter stemmer (wink's) on words only — it would turn "3.5" into "y.5". The stemmer
+ *   lowercases its output.
+ * - ngrams 2: the unigrams, then each pair of adjacent kept tokens within one sentence (wink's
+ *   sentence boundaries), joined by one space. Dropped tokens do not break adjacency, as in
+ *   scikit-learn, where the token pattern and stop words act before n-grams are formed.
+ */
+export function createTokenizer(settings: TokenSettings): (text: string) => string[] {
+  const { lowercase, minLength, stem, ngrams } = settings;
+  if (!Number.isInteger(minLength) || minLength < 0) throw new RangeError(`tokens.minLength must be a whole number ≥ 0, got ${minLength}`);
+  if (ngrams !== 1 && ngrams !== 2) throw new RangeError(`tokens.ngrams must be 1 or 2, got ${String(ngrams)}`);
+  for (const k of settings.kinds) if (!ALL_KINDS.has(k)) throw new RangeError(`unknown token kind "${k}"`);
+  const kinds: ReadonlySet<TokenKind> = new Set(settings.kinds);
+  const nlp = winkInstance(ngrams === 2 ? 'sentences' : 'tokens');
+  const its = nlp.its;
+  const stemmer = stem ? winkStemmer() : null;
+
+  return (text: string): string[] => {
+    const doc = nlp.readDoc(text);
+    const tokens = doc.tokens();
+    const values = tokens.out() as string[];
+    const forms = lowercase ? (tokens.out(its.normal) as string[]) : values;
+    const types = tokens.out(its.type) as string[];
+    const kept: string[] = [];
+    // Sentence id of each kept token, only needed to stop bigrams at sentence ends.
+    const sentenceOfKept: number[] | null = ngrams === 2 ? [] : null;
+    const spans = ngrams === 2 ? (doc.sentences().out(its.span) as unknown as [number, number][]) : null;
+    let sentence = 0;
+    for (let i = 0; i < values.length; i++) {
+      const kind = tokenKindOf(types[i], values[i]);
+      if (kind === null || !kinds.has(kind)) continue;
+      let term = forms[i];
+      if (minLength > 0 && !LENGTH_EXEMPT.has(kind) && codePointLength(term) < minLength) continue;
+      if (stemmer !== null && kind === 'word') term = stemmer(term);
+      kept.push(term);
+      if (spans !== null && sentenceOfKept !== null) {
+        while (sentence < spans.length - 1 && i > spans[sentence][1]) sentence++;
+        sentenceOfKept.push(sentence);
+      }
+    }
+    if (sentenceOfKept === null) return kept;
+    const unigrams = kept.length;
+    for (let i = 1; i < unigrams; i++) {
+      if (sentenceOfKept[i] === sentenceOfKept[i - 1]) kept.push(`${kept[i - 1]} ${kept[i]}`);
+    }
+    return kept;
+  };
+}
+
+/** Length in code points; a surrogate pair counts once. */
+function codePointLength(s: string): number {
+  let n = s.length;
+  for (let i = 0; i < s.length; i++) {
+    const c = s.charCodeAt(i);
+    if (c >= 0xd800 && c <= 0xdbff) n--;
+  }
+  return n;
+}
