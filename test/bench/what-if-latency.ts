@@ -1,0 +1,75 @@
+// What the panel's toggle costs: one full review through the engine API, then several
+// what-if calls that each stop one more term, timed one by one. Prints one JSON object.
+//
+// usage: node --import tsx test/bench/what-if-latency.ts FILE.csv [--text text] [--label topic] [--toggles 9]
+import { performance } from 'node:perf_hooks';
+import { resolve } from 'node:path';
+import type { ReviewInput, ReviewHooks, ReviewSession } from '../../extension/src/engine/review/review-api';
+
+type StartReview = (input: ReviewInput, hooks: ReviewHooks) => Promise<ReviewSession>;
+
+function option(args: string[], name: string, fallback: string): string {
+  const i = args.indexOf(name);
+  return i >= 0 && i + 1 < args.length ? (args[i + 1] as string) : fallback;
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? (sorted[mid] as number) : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
+}
+
+async function main(): Promise<void> {
+  const args = process.argv.slice(2);
+  const file = args[0];
+  if (!file) throw new Error('usage: what-if-latency.ts FILE.csv [--text text] [--label topic] [--toggles 9]');
+  const text = option(args, '--text', 'text');
+  const label = option(args, '--label', 'topic');
+  const toggles = Number(option(args, '--toggles', '9'));
+
+  // Loaded by path at run time so this script still parses while the engine is being written.
+  const modulePath = resolve(__dirname, '../../extension/src/engine/review/start-review.ts');
+  const engine = (await import(modulePath)) as { startReview?: StartReview };
+  if (typeof engine.startReview !== 'function') throw new Error(`${modulePath} does not export startReview`);
+
+  const started = performance.now();
+  const session = await engine.startReview({ file: resolve(file), configPath: null, overrides: { text, label } }, {});
+  const reviewMs = performance.now() - started;
+
+  // Toggle the terms a user would try first: the suggestions, then the loudest rows.
+  const candidates = [...session.report.suggestions];
+  for (const row of session.report.terms) if (!candidates.includes(row.term)) candidates.push(row.term);
+  if (candidates.length === 0) throw new Error('the review ranked no terms to toggle');
+
+  const on: number[] = [];
+  const off: number[] = [];
+  const removed: string[] = [];
+  for (let i = 0; i < toggles; i++) {
+    const term = candidates[i % candidates.length] as string;
+    // Toggling a term on stops it on top of the ones already stopped; toggling back undoes it.
+    let t = performance.now();
+    session.whatIf([...removed, term]);
+    on.push(performance.now() - t);
+    t = performance.now();
+    session.whatIf(removed);
+    off.push(performance.now() - t);
+    if (i % 2 === 0) removed.push(term);
+  }
+  console.log(
+    JSON.stringify({
+      documents: session.report.input.documents,
+      reviewMs,
+      toggles,
+      medianMs: median(on),
+      medianBackMs: median(off),
+      firstMs: on[0],
+      onMs: on,
+      offMs: off,
+    }),
+  );
+}
+
+main().catch((error: unknown) => {
+  console.error(error instanceof Error ? error.stack ?? error.message : String(error));
+  process.exit(1);
+});
