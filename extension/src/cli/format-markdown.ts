@@ -1,0 +1,36 @@
+import type { Report } from '../protocol';
+import { formatNumber, MEASURE_LINES, verdict } from './measure-table';
+
+const TERMS_SHOWN = 30;
+
+/** Markdown cells must not break the table or inject markup: escape pipes and specials. */
+function cell(text: string): string {
+  return text.replace(/[\\`*_{}[\]<>|#]/g, (c) => `\\${c}`).replace(/\r?\n/g, ' ');
+}
+
+/** The Report as Markdown, for pull requests and CI summaries. */
+export function formatMarkdown(report: Report): string {
+  const { input, vocabulary, baseline, suggested } = report;
+  const out: string[] = [];
+  out.push(`## Loudword review of \`${cell(input.file)}\``);
+  out.push('');
+  out.push(`${input.documents} documents · ${vocabulary.terms} terms · ${vocabulary.tokens} tokens · sample ${baseline.sample.documents} (k = ${baseline.sample.k}, seed ${baseline.sample.seed})`);
+  out.push('');
+  out.push('| measure | current | with suggestions | |');
+  out.push('|---|---:|---:|---|');
+  for (const line of MEASURE_LINES) {
+    const a = line.get(baseline);
+    const b = line.get(suggested);
+    if (a === null && b === null) continue;
+    out.push(`| ${line.label} | ${formatNumber(a, line.digits)} | ${formatNumber(b, line.digits)} | ${verdict(line, a, b)} |`);
+  }
+  out.push('');
+  out.push(report.suggestions.length > 0 ? `**Suggested stop terms (${report.suggestions.length}):** ${report.suggestions.map(cell).join(', ')}` : 'No stop terms suggested.');
+  out.push('');
+  out.push('| term | status | df | pull share | neighbour lift | why |');
+  out.push('|---|---|---:|---:|---:|---|');
+  for (const t of report.terms.slice(0, TERMS_SHOWN)) {
+    out.push(`| ${cell(t.term)} | ${t.status} | ${t.df} | ${(t.pullShare * 100).toFixed(2)}% | ${t.neighborLift === null ? '–' : t.neighborLift.toFixed(2)} | ${cell(t.why)} |`);
+  }
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,55 @@
+import type { Report } from '../protocol';
+import { formatNumber, MEASURE_LINES, verdict } from './measure-table';
+
+const TERMS_SHOWN = 15;
+const HUBS_SHOWN = 5;
+
+/** The Report as a terminal summary: headline, measures current → suggested, terms, hubs. */
+export function formatText(report: Report): string {
+  const out: string[] = [];
+  const { input, vocabulary, baseline, suggested } = report;
+  const fields = [input.format, input.textField && `text "${input.textField}"`, input.labelField && `label "${input.labelField}"`].filter(Boolean).join(', ');
+  out.push(`Loudword ${report.tool.version} — ${input.file} (${fields})`);
+  out.push(
+    `${input.documents} documents, ${vocabulary.terms} terms, ${vocabulary.tokens} tokens ` +
+      `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${input.skipped} rows skipped`,
+  );
+  if (input.truncated) out.push(`Read only the first ${input.truncated.bytesRead} bytes (limit ${input.truncated.limitBytes}).`);
+  out.push(`Stop list: ${report.stopList.file ?? 'none'} (${report.stopList.terms} terms${report.stopList.unused.length ? `, ${report.stopList.unused.length} never occur` : ''})`);
+  out.push(`Sample: ${baseline.sample.documents} documents, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);
+  out.push('');
+
+  const width = Math.max(...MEASURE_LINES.map((l) => l.label.length));
+  out.push(`${'measure'.padEnd(width)}  ${'current'.padStart(9)}  ${'suggested'.padStart(9)}`);
+  for (const line of MEASURE_LINES) {
+    const a = line.get(baseline);
+    const b = line.get(suggested);
+    if (a === null && b === null) continue;
+    out.push(`${line.label.padEnd(width)}  ${formatNumber(a, line.digits).padStart(9)}  ${formatNumber(b, line.digits).padStart(9)}  ${verdict(line, a, b)}`.trimEnd());
+  }
+  out.push('');
+
+  if (report.suggestions.length > 0) {
+    out.push(`Suggested stop terms (${report.suggestions.length}): ${report.suggestions.join(', ')}`);
+  } else {
+    out.push('No stop terms suggested: no candidate made the neighbours stand out more in the what-if.');
+  }
+  out.push('');
+  out.push('Loudest terms (pull share = share of all-pair similarity; lift = share among neighbours ÷ pull share):');
+  for (const t of report.terms.slice(0, TERMS_SHOWN)) {
+    const lift = t.neighborLift === null ? '–' : t.neighborLift.toFixed(2);
+    out.push(`  ${t.term.padEnd(16)} ${t.status.padEnd(9)} pull ${(t.pullShare * 100).toFixed(2).padStart(6)}%  lift ${lift.padStart(5)}  ${t.why}`);
+  }
+  if (report.hubs.length > 0) {
+    out.push('');
+    out.push(`Hub documents (in the k-NN lists of many others; current setting):`);
+    for (const h of report.hubs.slice(0, HUBS_SHOWN)) {
+      out.push(`  line ${String(h.line).padStart(6)}  N_k = ${String(h.kOccurrence).padStart(3)}  ${h.preview}`);
+    }
+  }
+  if (report.suggestions.length > 0) {
+    out.push('');
+    out.push(`Next: review the suggestions, then \`loudword apply ${input.file}\` adds them to ${report.stopList.file ?? 'the stop list file'}.`);
+  }
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,114 @@
+import { promises as fs } from 'node:fs';
+import * as path from 'node:path';
+import type { Report } from '../protocol';
+import { isUserError } from '../engine/user-error';
+import { startReview } from '../engine/review/start-review';
+import type { ReviewInput, SettingsOverrides } from '../engine/review/review-api';
+import { addTermsToStopList } from '../engine/stoplist/add-terms';
+import { readStopListFile } from '../engine/stoplist/read-stop-list-file';
+import { loadWebviewAssets, renderStandaloneReport } from '../html/standalone-report';
+import { LOUDWORD_VERSION } from '../engine/review/version';
+import { findConfig } from './find-config';
+import { formatMarkdown } from './format-markdown';
+import { formatText } from './format-text';
+import { parseArgs, UsageError, type CliOptions } from './parse-args';
+import { USAGE } from './usage';
+
+const EXIT = { ok: 0, input: 1, usage: 2, suggestions: 3, internal: 4 } as const;
+
+async function main(argv: readonly string[]): Promise<number> {
+  const options = parseArgs(argv);
+  if (options.command === 'help') {
+    process.stdout.write(USAGE);
+    return EXIT.ok;
+  }
+  if (options.command === 'version') {
+    process.stdout.write(`${LOUDWORD_VERSION}\n`);
+    return EXIT.ok;
+  }
+  const session = await startReview(reviewInput(options), { onStage: progressPrinter(options) });
+  const report = session.report;
+  if (options.command === 'apply') return applySuggestions(report, options);
+
+  await emit(render(report, options.format), options.out);
+  if (options.out !== null && !options.quiet) process.stderr.write(`loudword: wrote ${options.out}\n`);
+  return options.failOnSuggestions && report.suggestions.length > 0 ? EXIT.suggestions : EXIT.ok;
+}
+
+function reviewInput(o: CliOptions): ReviewInput {
+  const file = o.file!;
+  const overrides: SettingsOverrides = { sample: {} };
+  if (o.text !== null) overrides.text = o.text;
+  if (o.label !== null) overrides.label = o.label;
+  if (o.inputFormat !== null) overrides.format = o.inputFormat;
+  // A stop list named on the command line is relative to where the command runs.
+  if (o.stopList !== null) overrides.stopList = path.resolve(o.stopList);
+  if (o.sample !== null) overrides.sample!.documents = o.sample;
+  if (o.k !== null) overrides.sample!.k = o.k;
+  if (o.seed !== null) overrides.sample!.seed = o.seed;
+  const configPath = o.noConfig ? null : o.config ?? findConfig(file, process.cwd());
+  return { file, configPath, overrides };
+}
+
+function render(report: Report, format: CliOptions['format']): string {
+  switch (format) {
+    case 'json':
+      return JSON.stringify(report, null, 2) + '\n';
+    case 'md':
+      return formatMarkdown(report);
+    case 'html':
+      return renderStandaloneReport(report, loadWebviewAssets(__dirname));
+    case 'text':
+      return formatText(report);
+  }
+}
+
+async function emit(text: string, out: string | null): Promise<void> {
+  if (out === null) {
+    process.stdout.write(text);
+    return;
+  }
+  await fs.writeFile(out, text);
+}
+
+async function applySuggestions(report: Report, o: CliOptions): Promise<number> {
+  const file = report.stopList.file;
+  if (file === null) throw new UsageError('no stop list file is configured; give --stoplist FILE');
+  if (report.suggestions.length === 0) {
+    process.stdout.write(`No stop terms suggested; ${file} is unchanged.\n`);
+    return EXIT.ok;
+  }
+  const { text } = await readStopListFile(file);
+  const result = addTermsToStopList(text, report.suggestions);
+  if (result.added.length === 0) {
+    process.stdout.write(`All ${report.suggestions.length} suggestions are already in ${file}.\n`);
+    return EXIT.ok;
+  }
+  if (!o.dryRun) await fs.writeFile(file, result.text);
+  const verb = o.dryRun ? 'Would add' : 'Added';
+  process.stdout.write(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n`);
+  return EXIT.ok;
+}
+
+function progressPrinter(o: CliOptions): ((stage: string) => void) | undefined {
+  if (o.quiet || !process.stderr.isTTY) return undefined;
+  return (stage) => process.stderr.write(`loudword: ${stage}…\n`);
+}
+
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (error: unknown) => {
+    if (isUserError(error)) {
+      process.stderr.write(`loudword: ${error.describe()}\n`);
+      process.exitCode = EXIT.input;
+    } else if (error instanceof UsageError) {
+      process.stderr.write(`loudword: ${error.message}\nRun \`loudword --help\` for the options.\n`);
+      process.exitCode = EXIT.usage;
+    } else {
+      process.stderr.write(`loudword: internal error — please report it with the input that caused it.\n${(error as Error)?.stack ?? String(error)}\n`);
+      process.exitCode = EXIT.internal;
+    }
+  },
+);

@@ -1,0 +1,61 @@
+import type { EffectiveSettings, HubRow, Report } from '../../protocol';
+import { nnz, type CountMatrix } from '../matrix/csr';
+import type { CorpusSource } from '../read/corpus-source';
+import type { BuiltCorpus } from '../tokenize/build-count-matrix';
+import type { TermReview } from '../terms/review-terms';
+import type { ReviewSample } from './choose-sample';
+import type { DistanceResult } from './distance-lab';
+import { LOUDWORD_VERSION } from './version';
+
+const HUBS_IN_REPORT = 12;
+
+export interface ReportParts {
+  settings: EffectiveSettings;
+  source: CorpusSource;
+  built: BuiltCorpus;
+  /** Counts after pruning: the vocabulary the measures saw. */
+  counts: CountMatrix;
+  stopList: { file: string | null; terms: string[]; unused: string[] };
+  baseline: DistanceResult;
+  termReview: TermReview;
+  sample: ReviewSample;
+}
+
+/** The Report of design.md, from the parts of a finished review. */
+export function assembleReport(p: ReportParts): Report {
+  const documents = p.counts.rows;
+  let tokens = 0;
+  for (let r = 0; r < documents; r++) tokens += p.built.counts.tokensPerDoc[r]!;
+  return {
+    tool: { name: 'loudword', version: LOUDWORD_VERSION },
+    input: {
+      file: p.source.file,
+      format: p.source.format,
+      textField: p.source.textField,
+      labelField: p.source.labelField,
+      documents,
+      skipped: p.source.skipped.count,
+      truncated: p.source.truncated ?? undefined,
+      skippedExamples: p.source.skipped.examples.slice(0, 5),
+    },
+    settings: p.settings,
+    vocabulary: { terms: p.counts.cols, tokens, nonzeros: nnz(p.counts), meanDocLength: documents > 0 ? tokens / documents : 0 },
+    baseline: p.baseline.measures,
+    suggested: p.termReview.suggested.measures,
+    terms: p.termReview.rows,
+    suggestions: p.termReview.suggestions,
+    hubs: hubRows(p),
+    stopList: { file: p.stopList.file, terms: p.stopList.terms.length, unused: p.stopList.unused },
+  };
+}
+
+function hubRows(p: ReportParts): HubRow[] {
+  const { hubPositions, kOccurrence } = p.baseline;
+  const rows: HubRow[] = [];
+  for (let i = 0; i < hubPositions.length && rows.length < HUBS_IN_REPORT; i++) {
+    const position = hubPositions[i]!;
+    const doc = p.sample.positions[position]!;
+    rows.push({ doc, line: p.built.lines[doc]!, kOccurrence: kOccurrence[position]!, preview: p.built.previews[doc] ?? '' });
+  }
+  return rows;
+}

@@ -1,0 +1,121 @@
+import * as path from 'node:path';
+import type { Report } from '../../protocol';
+import { loadSettings } from '../config/load-settings';
+import { openCorpus, openCorpusFromText } from '../read/open-corpus';
+import { buildCountMatrix } from '../tokenize/build-count-matrix';
+import { createTokenizer } from '../tokenize/create-tokenizer';
+import { pruneTerms } from '../matrix/prune-terms';
+import { weigh } from '../matrix/weigh';
+import { UserError } from '../user-error';
+import { DistanceLab } from './distance-lab';
+import { loadStopList } from './load-stop-list';
+import { chooseSample } from './choose-sample';
+import { reviewTerms } from '../terms/review-terms';
+import { assembleReport } from './assemble-report';
+import { TermIndex } from './term-index';
+import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
+
+/**
+ * Runs a whole review (design.md "Data flow"): read → tokens → counts → weights → measures →
+ * term review → suggestions → Report, and keeps the weights for later what-if questions.
+ */
+export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): Promise<ReviewSession> {
+  const timings: Record<string, number> = {};
+  let stageStart = performance.now();
+  let currentStage: ReviewStage | null = null;
+  const stage = (name: ReviewStage, fraction = 0): void => {
+    throwIfAborted(hooks.signal);
+    const now = performance.now();
+    if (currentStage !== null) timings[currentStage] = Math.round(now - stageStart);
+    if (currentStage !== name) stageStart = now;
+    currentStage = name;
+    hooks.onStage?.(name, fraction);
+  };
+
+  stage('reading');
+  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides);
+  const readOptions = {
+    format: settings.format,
+    textField: settings.text,
+    labelField: settings.label,
+    maxBytes: settings.limits.maxBytes,
+  };
+  const source =
+    input.text !== undefined
+      ? openCorpusFromText(input.file, input.text, readOptions)
+      : await openCorpus(input.file, readOptions);
+  const projectDir = configDir ?? path.dirname(path.resolve(input.file));
+  const tokenize = createTokenizer(settings.tokens);
+  const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, settings.tokens.lowercase);
+
+  stage('tokenizing');
+  const buildOptions = hooks.signal === undefined ? {} : { signal: hooks.signal };
+  const built = await buildCountMatrix(source, settings.tokens, buildOptions);
+  if (built.counts.rows === 0) throw new UserError('no documents with text were found', input.file);
+
+  stage('weighting');
+  // The stop list is applied later as a column mask, not here, so that the review can still say
+  // how much a stopped term would pull and whether it carries neighbour signal.
+  const pruned = pruneTerms(built.counts, { minDf: settings.prune.minDf, maxDf: settings.prune.maxDf, stopTerms: new Set() });
+  const counts = pruned.counts;
+  if (counts.cols === 0) {
+    throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', input.file);
+  }
+  // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
+  const { weights, idf } = weigh(counts, { ...settings.weighting, norm: 'l2' });
+  const index = new TermIndex(counts.terms);
+  const baseMask = index.mask(stopList.terms);
+
+  stage('measuring');
+  const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, built.labels);
+  const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels);
+  const baseline = lab.measure(baseMask, null);
+
+  stage('reviewing terms');
+  const termReview = reviewTerms({
+    lab,
+    baseMask,
+    baseline,
+    counts,
+    idf,
+    index,
+    tokenize,
+    settings,
+  });
+
+  stage('what-if');
+  const report: Report = assembleReport({
+    settings,
+    source,
+    built,
+    counts,
+    stopList: { ...stopList, unused: unusedEntries(stopList.terms, built.counts.terms) },
+    baseline,
+    termReview,
+    sample,
+  });
+  timings[currentStage ?? 'what-if'] = Math.round(performance.now() - stageStart);
+  report.timings = timings;
+
+  return {
+    report,
+    whatIf(removed: readonly string[]) {
+      const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
+      return lab.measure(mask, baseline.neighbors).measures;
+    },
+  };
+}
+
+function throwIfAborted(signal: AbortSignal | undefined): void {
+  if (signal?.aborted) {
+    const error = new Error('the review was cancelled');
+    error.name = 'AbortError';
+    throw error;
+  }
+}
+
+/** Stop-list entries that never occur in the corpus (before pruning). */
+function unusedEntries(entries: readonly string[], vocabulary: readonly string[]): string[] {
+  const seen = new Set(vocabulary);
+  return entries.filter((t) => !seen.has(t));
+}
