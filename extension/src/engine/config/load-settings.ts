@@ -1,0 +1,68 @@
+import { readFile } from 'node:fs/promises';
+import * as path from 'node:path';
+import type { EffectiveSettings } from '../../protocol';
+import type { SettingsOverrides } from '../review/review-api';
+import { UserError } from '../user-error';
+import { DEFAULT_SETTINGS } from './default-settings';
+import { mergeSettings } from './merge-settings';
+import { parseSettings, type PartialSettings } from './parse-settings';
+import { SETTINGS_SPEC } from './settings-spec';
+import { validateSettings } from './validate-settings';
+
+export interface LoadedSettings {
+  settings: EffectiveSettings;
+  /** The folder of loudword.json (relative settings paths start there), or null without one. */
+  configDir: string | null;
+  /** settings.stopList as an absolute path, or null when no stop list is set. */
+  stopListPath: string | null;
+}
+
+/**
+ * Defaults, then loudword.json, then overrides (command line or editor) win. A stopList given
+ * as an override is resolved against `baseDir` (default: the working directory) and returned
+ * absolute; one from loudword.json stays as written and is relative to the config's folder.
+ */
+export async function loadSettings(
+  configPath: string | null,
+  overrides: SettingsOverrides = {},
+  options: { baseDir?: string } = {},
+): Promise<LoadedSettings> {
+  const baseDir = path.resolve(options.baseDir ?? process.cwd());
+  let fromFile: PartialSettings = {};
+  let configDir: string | null = null;
+  let origin = '(overrides)';
+  if (configPath !== null) {
+    const file = path.resolve(baseDir, configPath);
+    let text: string;
+    try {
+      text = await readFile(file, 'utf8');
+    } catch (e) {
+      const code = (e as NodeJS.ErrnoException).code;
+      throw new UserError(code === 'ENOENT' ? 'config file not found' : `cannot read the config file (${code ?? (e as Error).message})`, file, null);
+    }
+    fromFile = parseSettings(text, file);
+    configDir = path.dirname(file);
+    origin = file;
+  }
+
+  const layer = overridesLayer(overrides, baseDir);
+  validateSettings(layer, SETTINGS_SPEC, { file: '(overrides)' });
+  const settings = mergeSettings(DEFAULT_SETTINGS, fromFile, layer);
+  if (settings.sample.k >= settings.sample.documents) {
+    throw new UserError(`"sample.k" (${settings.sample.k}) must be smaller than "sample.documents" (${settings.sample.documents})`, origin, null);
+  }
+  const stopListPath = settings.stopList === null ? null : path.resolve(configDir ?? baseDir, settings.stopList);
+  return { settings, configDir, stopListPath };
+}
+
+function overridesLayer(overrides: SettingsOverrides, baseDir: string): PartialSettings {
+  const layer: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(overrides)) if (value !== undefined) layer[key] = value;
+  if (typeof layer.stopList === 'string' && layer.stopList !== '') layer.stopList = path.resolve(baseDir, layer.stopList);
+  if (overrides.sample !== undefined) {
+    const sample: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(overrides.sample)) if (v !== undefined) sample[k] = v;
+    layer.sample = sample;
+  }
+  return layer as PartialSettings;
+}
