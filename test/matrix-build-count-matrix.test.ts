@@ -1,0 +1,153 @@
+import { strict as assert } from 'node:assert';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { build } from 'esbuild';
+import { buildCountMatrix } from '../extension/src/engine/matrix/build-count-matrix';
+import type { CountMatrix } from '../extension/src/engine/matrix/csr';
+import type { CorpusRow } from '../extension/src/engine/read/corpus-source';
+import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
+import { arrayCorpusSource } from './reference/array-corpus-source';
+import { readFortunes } from './reference/read-fortunes';
+
+const tokens: TokenSettings = { lowercase: true, minLength: 2, kinds: ['word', 'number', 'hashtag', 'emoji'], stem: false, ngrams: 1 };
+
+function assertCsrInvariants(m: CountMatrix): void {
+  assert.equal(m.indptr.length, m.rows + 1);
+  assert.equal(m.indptr[0], 0);
+  assert.equal(m.indices.length, m.indptr[m.rows]);
+  assert.equal(m.data.length, m.indptr[m.rows]);
+  assert.equal(m.terms.length, m.cols);
+  assert.equal(m.tokensPerDoc.length, m.rows);
+  for (let r = 0; r < m.rows; r++) {
+    assert.ok(m.indptr[r]! <= m.indptr[r + 1]!);
+    let sum = 0;
+    for (let k = m.indptr[r]!; k < m.indptr[r + 1]!; k++) {
+      assert.ok(m.indices[k]! < m.cols);
+      if (k > m.indptr[r]!) assert.ok(m.indices[k - 1]! < m.indices[k]!, 'column ids ascend within a row');
+      assert.ok(m.data[k]! >= 1);
+      sum += m.data[k]!;
+    }
+    assert.equal(sum, m.tokensPerDoc[r]);
+  }
+}
+
+describe('matrix/build-count-matrix', () => {
+  it('buildCountMatrix counts each document\'s tokens, with lines, labels and previews', async () => {
+    const rows: CorpusRow[] = [
+      { text: 'the cat sat on the mat', label: 'pets', line: 2 },
+      { text: '', label: null, line: 3 },
+      { text: '  Dogs   chase\n\tcats. The end  ', label: 'pets', line: 7 },
+    ];
+    const built = await buildCountMatrix(arrayCorpusSource(rows, 'topic'), tokens, { workers: 0, batchSize: 2 });
+    const m = built.counts;
+    assertCsrInvariants(m);
+    // Expected by hand from the texts above (common practice, no source): sorted distinct terms.
+    assert.deepEqual(m.terms, ['cat', 'cats', 'chase', 'dogs', 'end', 'mat', 'on', 'sat', 'the']);
+    const row0 = new Map<string, number>();
+    for (let k = m.indptr[0]!; k < m.indptr[1]!; k++) row0.set(m.terms[m.indices[k]!]!, m.data[k]!);
+    assert.deepEqual([...row0], [['cat', 1], ['mat', 1], ['on', 1], ['sat', 1], ['the', 2]]);
+    assert.equal(m.indptr[2]! - m.indptr[1]!, 0, 'the empty document is an empty row');
+    assert.deepEqual([...built.lines], [2, 3, 7]);
+    assert.deepEqual(built.labels, ['pets', null, 'pets']);
+    assert.deepEqual(built.previews, ['the cat sat on the mat', '', 'Dogs chase cats. The end']);
+  });
+
+  it('buildCountMatrix gives null labels when the source has no label field, and cuts previews at 120', async () => {
+    const long = 'word '.repeat(100);
+    const built = await buildCountMatrix(arrayCorpusSource([{ text: long, label: null, line: 1 }]), tokens, { workers: 0 });
+    assert.equal(built.labels, null);
+    assert.equal(built.previews[0]!.length, 119); // 120 characters cut after "word", trailing space trimmed
+    assert.ok(long.startsWith(built.previews[0]!));
+  });
+
+  it('buildCountMatrix orders terms by code point, like Python\'s sorted()', async () => {
+    // U+FF21 (full-width A) sorts before U+1F600 (emoji) by code point, after it by UTF-16 unit.
+    // Source: Python 3 str ordering compares code points (Python language reference, "Value comparisons").
+    const built = await buildCountMatrix(arrayCorpusSource([{ text: '😀 ＡＢ zz Ab ab', label: null, line: 1 }]), tokens, { workers: 0 });
+    assert.deepEqual(built.counts.terms, ['ab', 'zz', 'ａｂ', '😀']);
+  });
+
+  it('buildCountMatrix agrees with tokenising each fortune directly (Debian fortunes)', async () => {
+    const rows = readFortunes(200);
+    const built = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 0, batchSize: 37 });
+    const m = built.counts;
+    assertCsrInvariants(m);
+    const tokenize = createTokenizer(tokens);
+    for (let r = 0; r < rows.length; r++) {
+      const expected = new Map<string, number>();
+      for (const t of tokenize(rows[r]!.text)) expected.set(t, (expected.get(t) ?? 0) + 1);
+      const got = new Map<string, number>();
+      for (let k = m.indptr[r]!; k < m.indptr[r + 1]!; k++) got.set(m.terms[m.indices[k]!]!, m.data[k]!);
+      assert.deepEqual([...got].sort(), [...expected].sort(), `row ${r}`);
+    }
+    assert.deepEqual([...built.lines], rows.map((r) => r.line));
+  });
+
+  it('buildCountMatrix throws an AbortError when the signal is aborted', async () => {
+    const controller = new AbortController();
+    const rows = readFortunes(50);
+    let seen = 0;
+    const promise = buildCountMatrix(arrayCorpusSource(rows), tokens, {
+      workers: 0,
+      batchSize: 10,
+      signal: controller.signal,
+      onProgress(documents) {
+        seen = documents;
+        controller.abort();
+      },
+    });
+    await assert.rejects(promise, (e: Error) => e.name === 'AbortError');
+    assert.equal(seen, 10);
+  });
+
+  describe('with worker threads', function () {
+    let dir = '';
+    let script = '';
+    before(async function () {
+      this.timeout(120000);
+      dir = mkdtempSync(join(tmpdir(), 'loudword-tokenize-worker-'));
+      script = join(dir, 'tokenize-worker.js');
+      await build({
+        entryPoints: ['extension/src/engine/tokenize/tokenize-worker.ts'],
+        outfile: script,
+        bundle: true,
+        platform: 'node',
+        format: 'cjs',
+        target: 'node20',
+        logLevel: 'warning',
+      });
+    });
+    after(() => {
+      if (dir !== '') rmSync(dir, { recursive: true, force: true });
+    });
+
+    it('buildCountMatrix gives the same matrix with 0, 1 and 2 workers', async () => {
+      const rows = readFortunes(300);
+      const settings: TokenSettings = { ...tokens, ngrams: 2 };
+      const inProcess = await buildCountMatrix(arrayCorpusSource(rows), settings, { workers: 0, batchSize: 23 });
+      for (const workers of [1, 2]) {
+        const progress: number[] = [];
+        const threaded = await buildCountMatrix(arrayCorpusSource(rows), settings, {
+          workers,
+          batchSize: 23,
+          workerScript: script,
+          onProgress: (d) => progress.push(d),
+        });
+        assert.equal(progress[progress.length - 1], rows.length);
+        assert.deepEqual(threaded.counts.terms, inProcess.counts.terms);
+        assert.deepEqual(threaded.counts.indptr, inProcess.counts.indptr);
+        assert.deepEqual(threaded.counts.indices, inProcess.counts.indices);
+        assert.deepEqual(threaded.counts.data, inProcess.counts.data);
+        assert.deepEqual(threaded.counts.tokensPerDoc, inProcess.counts.tokensPerDoc);
+        assert.deepEqual(threaded.previews, inProcess.previews);
+      }
+    });
+
+    it('buildCountMatrix falls back to in-process when the worker script is missing', async () => {
+      const rows = readFortunes(20);
+      const built = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 2, workerScript: join(dir, 'absent.js') });
+      assert.equal(built.counts.rows, 20);
+    });
+  });
+});
