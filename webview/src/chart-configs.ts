@@ -1,0 +1,228 @@
+// Chart.js configurations for the four panel charts, built from the Report's distributions.
+// Pure: data and theme in, configuration out; charts.ts owns the canvases.
+
+import type { ChartConfiguration, TooltipItem } from 'chart.js';
+import type { Distributions, TermRow } from '../../extension/src/protocol';
+import type { ChartTheme } from './chart-theme';
+import { withAlpha } from './chart-theme';
+import { formatCount, formatNumber, formatRatio, formatShare } from './format';
+
+export interface Setting {
+  label: string;
+  distributions: Distributions;
+}
+
+interface XY {
+  x: number;
+  y: number;
+}
+interface TermPoint extends XY {
+  term: string;
+}
+
+const SCATTER_OTHERS_MAX = 3000;
+
+function common(theme: ChartTheme) {
+  return {
+    responsive: true,
+    maintainAspectRatio: false,
+    animation: false as const,
+    normalized: true,
+    plugins: {
+      legend: {
+        position: 'bottom' as const,
+        labels: { color: theme.foreground, boxWidth: 14, boxHeight: 8, padding: 10, font: { family: theme.fontFamily, size: theme.fontSize } },
+      },
+      tooltip: { titleFont: { family: theme.fontFamily }, bodyFont: { family: theme.fontFamily } },
+    },
+  };
+}
+
+function axis(theme: ChartTheme, title: string) {
+  return {
+    grid: { color: theme.grid },
+    border: { color: theme.grid },
+    ticks: { color: theme.muted, font: { family: theme.fontFamily, size: theme.fontSize } },
+    title: { display: true, text: title, color: theme.muted, font: { family: theme.fontFamily, size: theme.fontSize } },
+  };
+}
+
+/** Histogram counts as shares of their total, at bin centres. */
+function histogramShares(h: Distributions['similarity'], counts: readonly number[]): XY[] {
+  let total = 0;
+  for (const c of counts) total += c;
+  return counts.map((c, i) => ({ x: h.start + (i + 0.5) * h.binWidth, y: total > 0 ? c / total : 0 }));
+}
+
+export function similarityConfig(baseline: Setting, current: Setting, theme: ChartTheme): ChartConfiguration<'line', XY[]> {
+  const b = baseline.distributions.similarity;
+  const c = current.distributions.similarity;
+  const line = (label: string, data: XY[], color: string, dashed: boolean, fill: boolean) => ({
+    label,
+    data,
+    borderColor: color,
+    backgroundColor: fill ? withAlpha(color, 0.14) : color,
+    borderWidth: 1.6,
+    borderDash: dashed ? [5, 3] : [],
+    fill: fill ? ('origin' as const) : false,
+    pointRadius: 0,
+    tension: 0.2,
+  });
+  return {
+    type: 'line',
+    data: {
+      datasets: [
+        line(`pairs · ${baseline.label}`, histogramShares(b, b.pairs), theme.baseline, false, true),
+        line(`nearest · ${baseline.label}`, histogramShares(b, b.nearest), theme.baseline, true, false),
+        line(`pairs · ${current.label}`, histogramShares(c, c.pairs), theme.current, false, true),
+        line(`nearest · ${current.label}`, histogramShares(c, c.nearest), theme.current, true, false),
+      ],
+    },
+    options: {
+      ...common(theme),
+      interaction: { mode: 'nearest', intersect: false },
+      scales: {
+        x: { ...axis(theme, 'cosine similarity'), type: 'linear', min: Math.min(b.start, c.start), ticks: { ...axis(theme, '').ticks, maxTicksLimit: 8 } },
+        y: { ...axis(theme, 'share of documents or pairs'), beginAtZero: true, ticks: { ...axis(theme, '').ticks, callback: (v) => formatShare(Number(v)) } },
+      },
+      plugins: {
+        ...common(theme).plugins,
+        tooltip: {
+          ...common(theme).plugins.tooltip,
+          callbacks: {
+            title: (items: TooltipItem<'line'>[]) => `similarity ≈ ${formatNumber(items[0]?.parsed.x ?? 0)}`,
+            label: (item: TooltipItem<'line'>) => `${item.dataset.label ?? ''}: ${formatShare(item.parsed.y)}`,
+          },
+        },
+      },
+    },
+  };
+}
+
+export function pullLiftConfig(terms: readonly TermRow[], suggestions: ReadonlySet<string>, theme: ChartTheme): ChartConfiguration<'scatter', TermPoint[]> {
+  const highlighted: TermPoint[] = [];
+  const others: TermPoint[] = [];
+  for (const t of terms) {
+    if (t.neighborLift === null || !Number.isFinite(t.neighborLift) || !(t.pullShare > 0)) continue;
+    const point = { x: t.pullShare, y: t.neighborLift, term: t.term };
+    if (suggestions.has(t.term)) highlighted.push(point);
+    // The report lists terms loudest first, so the cap keeps the ones worth seeing.
+    else if (others.length < SCATTER_OTHERS_MAX) others.push(point);
+  }
+  return {
+    type: 'scatter',
+    data: {
+      datasets: [
+        { label: 'suggested', data: highlighted, backgroundColor: withAlpha(theme.suggested, 0.85), borderColor: theme.suggested, pointRadius: 3.5, pointHoverRadius: 5, order: 0 },
+        { label: 'other terms', data: others, backgroundColor: withAlpha(theme.other, 0.35), borderColor: withAlpha(theme.other, 0.35), pointRadius: 2, pointHoverRadius: 4, order: 1 },
+      ],
+    },
+    options: {
+      ...common(theme),
+      scales: {
+        x: { ...axis(theme, 'pull share (log scale)'), type: 'logarithmic', ticks: { ...axis(theme, '').ticks, maxTicksLimit: 6, callback: logTick } },
+        y: { ...axis(theme, 'neighbour lift'), beginAtZero: true },
+      },
+      plugins: {
+        ...common(theme).plugins,
+        tooltip: {
+          ...common(theme).plugins.tooltip,
+          callbacks: {
+            label: (item: TooltipItem<'scatter'>) => {
+              const p = item.raw as TermPoint;
+              return `${p.term}: pull ${formatShare(p.x)}, lift ${formatRatio(p.y)}`;
+            },
+          },
+        },
+      },
+    },
+  };
+}
+
+/** Tick labels only at powers of ten, so the log axis does not crowd. */
+function logTick(value: number | string): string | null {
+  const v = Number(value);
+  if (!(v > 0)) return null;
+  const exponent = Math.log10(v);
+  return Math.abs(exponent - Math.round(exponent)) < 1e-9 ? formatShare(v) : null;
+}
+
+export function cumulativeMassConfig(baseline: Setting, theme: ChartTheme): ChartConfiguration<'line', XY[]> {
+  const data = baseline.distributions.cumulativeMass.map((y, i) => ({ x: i + 1, y }));
+  return {
+    type: 'line',
+    data: {
+      datasets: [
+        {
+          label: `top terms · ${baseline.label}`,
+          data,
+          borderColor: theme.baseline,
+          backgroundColor: withAlpha(theme.baseline, 0.12),
+          fill: 'origin',
+          borderWidth: 1.8,
+          pointRadius: 0,
+        },
+      ],
+    },
+    options: {
+      ...common(theme),
+      interaction: { mode: 'nearest', intersect: false },
+      scales: {
+        x: { ...axis(theme, 'number of top terms (log scale)'), type: 'logarithmic', min: 1, ticks: { ...axis(theme, '').ticks, callback: (v) => (isPowerOfTen(Number(v)) ? formatCount(Number(v)) : null) } },
+        y: { ...axis(theme, 'share of all-pairs similarity'), min: 0, max: 1, ticks: { ...axis(theme, '').ticks, callback: (v) => formatShare(Number(v)) } },
+      },
+      plugins: {
+        ...common(theme).plugins,
+        legend: { display: false },
+        tooltip: {
+          ...common(theme).plugins.tooltip,
+          callbacks: {
+            title: (items: TooltipItem<'line'>[]) => `top ${formatCount(items[0]?.parsed.x ?? 0)} terms`,
+            label: (item: TooltipItem<'line'>) => `${formatShare(item.parsed.y)} of the similarity mass`,
+          },
+        },
+      },
+    },
+  };
+}
+
+function isPowerOfTen(v: number): boolean {
+  if (!(v > 0)) return false;
+  const e = Math.log10(v);
+  return Math.abs(e - Math.round(e)) < 1e-9;
+}
+
+export function kOccurrenceConfig(baseline: Setting, current: Setting, k: number, theme: ChartTheme): ChartConfiguration<'bar', number[]> {
+  const b = baseline.distributions.kOccurrence;
+  const c = current.distributions.kOccurrence;
+  const bins = Math.max(b.length, c.length);
+  const labels = Array.from({ length: bins }, (_, i) => (i === bins - 1 ? `≥${i}` : String(i)));
+  const pad = (xs: readonly number[]) => Array.from({ length: bins }, (_, i) => xs[i] ?? 0);
+  return {
+    type: 'bar',
+    data: {
+      labels,
+      datasets: [
+        { label: baseline.label, data: pad(b), backgroundColor: withAlpha(theme.baseline, 0.75), borderColor: theme.baseline, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.85 },
+        { label: current.label, data: pad(c), backgroundColor: withAlpha(theme.current, 0.75), borderColor: theme.current, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.85 },
+      ],
+    },
+    options: {
+      ...common(theme),
+      scales: {
+        x: { ...axis(theme, `k-occurrence: in how many ${k}-NN lists a document appears`), ticks: { ...axis(theme, '').ticks, maxRotation: 0, autoSkipPadding: 6 } },
+        y: { ...axis(theme, 'documents'), beginAtZero: true },
+      },
+      plugins: {
+        ...common(theme).plugins,
+        tooltip: {
+          ...common(theme).plugins.tooltip,
+          callbacks: {
+            title: (items: TooltipItem<'bar'>[]) => `in ${items[0]?.label ?? ''} lists`,
+            label: (item: TooltipItem<'bar'>) => `${item.dataset.label ?? ''}: ${formatCount(item.parsed.y)} documents`,
+          },
+        },
+      },
+    },
+  };
+}

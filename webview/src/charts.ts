@@ -1,0 +1,133 @@
+// The four charts with a caption each saying how to read them. Only the chart.js pieces used
+// here are registered, which keeps the bundle small. Charts are rebuilt on a theme change
+// (their colours are read once from CSS) and updated in place when a what-if result arrives.
+
+import {
+  BarController,
+  BarElement,
+  CategoryScale,
+  Chart,
+  Filler,
+  Legend,
+  LinearScale,
+  LineController,
+  LineElement,
+  LogarithmicScale,
+  PointElement,
+  ScatterController,
+  Tooltip,
+  type ChartConfiguration,
+} from 'chart.js';
+import type { Report } from '../../extension/src/protocol';
+import { cumulativeMassConfig, kOccurrenceConfig, pullLiftConfig, similarityConfig, type Setting } from './chart-configs';
+import { readChartTheme } from './chart-theme';
+import { el } from './create-element';
+
+Chart.register(BarController, BarElement, CategoryScale, Filler, Legend, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, ScatterController, Tooltip);
+
+type ChartId = 'similarity' | 'pullLift' | 'cumulativeMass' | 'kOccurrence';
+
+interface Figure {
+  id: ChartId;
+  title: string;
+  caption: string;
+  describe: string;
+}
+
+const figures: readonly Figure[] = [
+  {
+    id: 'similarity',
+    title: 'Similarity distribution',
+    caption:
+      'Filled: cosine similarity of random document pairs. Dashed: similarity of each sampled document to its nearest neighbour. Healthy distances keep the two apart; a stop list that helps moves the filled curve left.',
+    describe: 'Line chart of the share of document pairs and of nearest neighbours at each cosine similarity, baseline against the current setting.',
+  },
+  {
+    id: 'pullLift',
+    title: 'Pull share against neighbour lift',
+    caption:
+      'Each dot is a term. Far right: it carries much of the similarity every pair shares. Low: little of that similarity falls between true neighbours (lift below 1). Loud terms sit bottom right.',
+    describe: 'Scatter chart of terms by pull share (logarithmic) and neighbour lift, suggested terms highlighted.',
+  },
+  {
+    id: 'cumulativeMass',
+    title: 'Similarity mass of the top terms',
+    caption:
+      'How much of the all-pairs similarity the heaviest terms carry, with the baseline stop list. A curve that rises steeply on the left means a few terms decide most distances.',
+    describe: 'Line chart of the cumulative share of all-pairs similarity carried by the top terms.',
+  },
+  {
+    id: 'kOccurrence',
+    title: 'k-occurrence',
+    caption:
+      'How many documents appear in how many nearest-neighbour lists. A long tail to the right (hubs) and a tall bar at 0 (orphans) mean a few documents crowd out the rest.',
+    describe: 'Bar chart of the number of documents by k-occurrence, baseline against the current setting.',
+  },
+];
+
+export class ChartPanel {
+  readonly element: HTMLElement;
+  private readonly canvases = new Map<ChartId, HTMLCanvasElement>();
+  private readonly charts = new Map<ChartId, Chart>();
+  private current: Setting;
+
+  constructor(
+    private readonly report: Report,
+    current: Setting,
+  ) {
+    this.current = current;
+    this.element = el('div', { className: 'lw-charts' });
+    for (const f of figures) {
+      const canvas = el('canvas', { attrs: { role: 'img', 'aria-label': f.describe } }, [f.describe]);
+      this.canvases.set(f.id, canvas);
+      this.element.append(
+        el('figure', { className: 'lw-chart', attrs: { 'data-chart': f.id } }, [
+          el('figcaption', {}, [el('h3', { className: 'lw-chart__title', text: f.title }), el('p', { className: 'lw-chart__caption', text: f.caption })]),
+          el('div', { className: 'lw-chart__box' }, [canvas]),
+        ]),
+      );
+    }
+  }
+
+  /** Creates the charts; call once the element is in the document (chart.js measures it). */
+  mount(): void {
+    this.destroy();
+    const theme = readChartTheme();
+    Chart.defaults.color = theme.foreground;
+    Chart.defaults.font.family = theme.fontFamily;
+    Chart.defaults.font.size = theme.fontSize;
+    for (const [id, config] of this.configs(theme)) {
+      const canvas = this.canvases.get(id);
+      if (canvas) this.charts.set(id, new Chart(canvas, config as ChartConfiguration));
+    }
+  }
+
+  /** The current setting changed (what-if result or reset): swap data, keep the canvases. */
+  update(current: Setting): void {
+    this.current = current;
+    if (this.charts.size === 0) return;
+    const theme = readChartTheme();
+    for (const [id, config] of this.configs(theme)) {
+      const chart = this.charts.get(id);
+      if (!chart) continue;
+      chart.data = config.data as Chart['data'];
+      chart.update('none');
+    }
+  }
+
+  destroy(): void {
+    for (const chart of this.charts.values()) chart.destroy();
+    this.charts.clear();
+  }
+
+  private configs(theme: ReturnType<typeof readChartTheme>): Array<[ChartId, ChartConfiguration<'line' | 'scatter' | 'bar', unknown[]>]> {
+    const baseline: Setting = { label: 'baseline', distributions: this.report.baseline.distributions };
+    const k = this.report.baseline.sample.k;
+    return [
+      ['similarity', similarityConfig(baseline, this.current, theme) as ChartConfiguration<'line', unknown[]>],
+      ['pullLift', pullLiftConfig(this.report.terms, new Set(this.report.suggestions), theme) as ChartConfiguration<'scatter', unknown[]>],
+      ['cumulativeMass', cumulativeMassConfig(baseline, theme) as ChartConfiguration<'line', unknown[]>],
+      ['kOccurrence', kOccurrenceConfig(baseline, this.current, k, theme) as ChartConfiguration<'bar', unknown[]>],
+    ];
+  }
+}

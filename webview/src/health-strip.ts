@@ -1,0 +1,97 @@
+// The health strip: every measure as baseline → with suggestions (→ your selection once a
+// what-if result is in), each change marked with the direction it moved and whether that is an
+// improvement for that measure (colour plus a glyph plus hidden words, never colour alone).
+
+import type { Measures } from '../../extension/src/protocol';
+import { el, uniqueId, type Child } from './create-element';
+import { measureCatalog, verdict, verdictWord, type MeasureSpec, type Verdict } from './measure-catalog';
+
+export interface StripInput {
+  baseline: Measures;
+  suggested: Measures;
+  suggestedCount: number;
+  selection: { measures: Measures; removedCount: number } | null;
+  pending: boolean;
+}
+
+export function renderHealthStrip(input: StripInput): HTMLElement {
+  const legend = el('p', { className: 'lw-strip__legend' }, [
+    el('span', { className: 'lw-key lw-key--baseline', text: 'baseline' }),
+    el('span', { className: 'lw-arrow', text: '→', attrs: { 'aria-hidden': 'true' } }),
+    el('span', { className: 'lw-key', text: `with ${plural(input.suggestedCount, 'suggested term')}` }),
+    input.selection
+      ? el('span', { className: 'lw-arrow', text: '→', attrs: { 'aria-hidden': 'true' } })
+      : null,
+    input.selection ? el('span', { className: 'lw-key', text: `your selection (${plural(input.selection.removedCount, 'term')})` }) : null,
+    input.pending ? el('span', { className: 'lw-pending', text: 'updating…', attrs: { role: 'status' } }) : null,
+  ]);
+  const primary = el('div', { className: 'lw-strip__primary' });
+  const secondary = el('div', { className: 'lw-strip__secondary' });
+  for (const spec of measureCatalog) {
+    (spec.primary ? primary : secondary).append(renderTile(spec, input));
+  }
+  return el('div', { className: 'lw-strip', attrs: { 'data-pending': input.pending } }, [legend, primary, secondary]);
+}
+
+function renderTile(spec: MeasureSpec, input: StripInput): HTMLElement {
+  const labelId = uniqueId('lw-m');
+  const meaningId = uniqueId('lw-d');
+  const base = spec.value(input.baseline);
+  const values: Child[] = [valueSpan(spec, 'baseline', base, null, null)];
+  const sug = spec.value(input.suggested);
+  values.push(arrow(), valueSpan(spec, 'suggested', sug, base, verdict(spec, base, sug), 'with suggestions'));
+  if (input.selection) {
+    const sel = spec.value(input.selection.measures);
+    values.push(arrow(), valueSpan(spec, 'selection', sel, base, verdict(spec, base, sel), 'your selection'));
+  }
+  const detailSource = input.selection?.measures ?? input.suggested;
+  const detail = spec.detail ? spec.detail(detailSource) : null;
+  return el(
+    'div',
+    {
+      className: `lw-tile${spec.primary ? ' lw-tile--primary' : ''}`,
+      attrs: {
+        role: 'group',
+        tabindex: 0,
+        title: spec.meaning,
+        'aria-labelledby': labelId,
+        'aria-describedby': meaningId,
+        'data-measure': spec.id,
+      },
+    },
+    [
+      el('div', { className: 'lw-tile__label', text: spec.label, attrs: { id: labelId } }),
+      el('div', { className: 'lw-tile__values' }, values),
+      detail ? el('div', { className: 'lw-tile__detail', text: detail }) : null,
+      el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
+    ],
+  );
+}
+
+function arrow(): HTMLElement {
+  return el('span', { className: 'lw-arrow', text: '→', attrs: { 'aria-hidden': 'true' } });
+}
+
+function valueSpan(
+  spec: MeasureSpec,
+  role: string,
+  value: number | null,
+  base: number | null,
+  v: Verdict | null,
+  srLabel = 'baseline',
+): HTMLElement {
+  const children: Child[] = [
+    el('span', { className: 'lw-sr', text: `${srLabel} ` }),
+    el('span', { className: 'lw-v__num', text: spec.format(value), attrs: { 'data-role': role } }),
+  ];
+  // The glyph shows which way the number moved; the colour (from data-verdict) whether that helps.
+  if (v !== null && v !== 'unknown' && v !== 'same' && value !== null && base !== null) {
+    children.push(el('span', { className: 'lw-mark', text: value > base ? '▲' : '▼', attrs: { 'aria-hidden': 'true' } }));
+  }
+  if (v !== null) children.push(el('span', { className: 'lw-sr', text: ` (${verdictWord(v)})` }));
+  return el('span', { className: `lw-v lw-v--${role}`, attrs: { 'data-verdict': v ?? 'baseline' } }, children);
+}
+
+function plural(n: number, word: string): string {
+  return `${n.toLocaleString('en-US')} ${word}${n === 1 ? '' : 's'}`;
+}

@@ -1,0 +1,26 @@
+// The hub documents: those found in the most k-nearest-neighbour lists. In the editor a row is
+// a button that asks the host to reveal the document's line; in the standalone report it is text.
+
+import type { HubRow } from '../../extension/src/protocol';
+import { el } from './create-element';
+import { formatCount } from './format';
+
+const MAX_ROWS = 100;
+
+export function renderHubList(hubs: readonly HubRow[], k: number, onReveal: ((line: number) => void) | null): HTMLElement {
+  if (hubs.length === 0) return el('p', { className: 'lw-empty', text: 'No hub documents in the sample.' });
+  const list = el('ol', { className: 'lw-hubs', attrs: { 'aria-label': 'Hub documents' } });
+  for (const hub of hubs.slice(0, MAX_ROWS)) {
+    const parts = [
+      el('span', { className: 'lw-hub__line', text: `line ${formatCount(hub.line)}` }),
+      el('span', { className: 'lw-hub__k', text: `in ${formatCount(hub.kOccurrence)} lists`, attrs: { title: `Appears in ${hub.kOccurrence} of the sampled ${k}-nearest-neighbour lists (mean is ${k})` } }),
+      el('span', { className: 'lw-hub__preview', text: hub.preview }),
+    ];
+    const row = onReveal
+      ? el('button', { className: 'lw-hub', attrs: { type: 'button', 'data-line': hub.line, title: `Go to line ${hub.line}` } }, parts)
+      : el('div', { className: 'lw-hub', attrs: { 'data-line': hub.line } }, parts);
+    if (onReveal) row.addEventListener('click', () => onReveal(hub.line));
+    list.append(el('li', {}, [row]));
+  }
+  return list;
+}

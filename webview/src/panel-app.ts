@@ -1,0 +1,233 @@
+// Composes the Distance Review page from a Report plus the reader's toggles. Everything shown is
+// derived from (report, view state, latest what-if answer); rendering never reads it elsewhere.
+
+import type { Measures, Report, WhatIfResultMessage } from '../../extension/src/protocol';
+import { ChartPanel } from './charts';
+import { watchTheme } from './chart-theme';
+import { el, replaceChildren } from './create-element';
+import { renderHealthStrip } from './health-strip';
+import type { HostBridge } from './host-bridge';
+import { renderHubList } from './hub-list';
+import { renderReportHeader, renderSettingsFooter } from './report-header';
+import { TermTable } from './term-table';
+import { PAGE_SIZE, reportKeyOf, restoreViewState, type ViewState } from './view-state';
+import { WhatIfRequester } from './what-if-requester';
+
+interface Loaded {
+  report: Report;
+  checked: Set<string>;
+  suggestionSet: Set<string>;
+  table: TermTable;
+  charts: ChartPanel;
+  stripSlot: HTMLElement;
+  checkedCount: HTMLElement;
+  addButton: HTMLButtonElement | null;
+  resetButton: HTMLButtonElement | null;
+}
+
+export class PanelApp {
+  private readonly state: ViewState;
+  private readonly requester: WhatIfRequester;
+  private readonly statusSlot: HTMLElement;
+  private readonly content: HTMLElement;
+  private loaded: Loaded | null = null;
+
+  constructor(
+    root: HTMLElement,
+    private readonly bridge: HostBridge,
+  ) {
+    this.state = restoreViewState(bridge.loadState());
+    this.requester = new WhatIfRequester((m) => bridge.post(m));
+    this.statusSlot = el('div', { className: 'lw-statusbar', attrs: { role: 'status', 'aria-live': 'polite' } });
+    this.content = el('main', { className: 'lw-main' }, [
+      el('p', { className: 'lw-empty', text: bridge.mode === 'panel' ? 'Waiting for a review… Run “Review distances” on a corpus file.' : 'Loading the report…' }),
+    ]);
+    replaceChildren(root, [this.statusSlot, this.content]);
+    watchTheme(() => this.loaded?.charts.mount());
+  }
+
+  showReport(report: Report): void {
+    this.loaded?.charts.destroy();
+    const key = reportKeyOf(report);
+    if (key !== this.state.reportKey) {
+      // A different corpus or stop list: the old toggles would not mean the same thing.
+      this.state.reportKey = key;
+      this.state.checked = null;
+      this.state.whatIf = null;
+      this.state.shown = PAGE_SIZE;
+    }
+    const stopped = new Set(report.terms.filter((t) => t.status === 'stopped').map((t) => t.term));
+    const known = new Set(report.terms.map((t) => t.term));
+    const suggestionSet = new Set(report.suggestions.filter((t) => !stopped.has(t)));
+    const checked = new Set((this.state.checked ?? report.suggestions).filter((t) => known.has(t) && !stopped.has(t)));
+    const panel = this.bridge.mode === 'panel';
+
+    const exportButton = panel ? button('Export HTML report', 'secondary', () => this.bridge.post({ type: 'exportHtml' })) : null;
+    const resetButton = panel ? button('Reset to suggestions', 'secondary', () => this.resetToSuggestions()) : null;
+    const addButton = panel ? button('Add checked terms to stop list', 'primary', () => this.addChecked()) : null;
+    const checkedCount = el('span', { className: 'lw-checked-count' });
+
+    const table = new TermTable(report.terms, this.state, checked, {
+      togglesEnabled: panel,
+      actions: [checkedCount, resetButton, addButton].filter((x): x is HTMLElement => x !== null),
+      onToggle: (term, on) => this.toggle(term, on),
+      onViewChange: () => this.save(),
+    });
+    const stripSlot = el('div', { className: 'lw-strip-slot' });
+    const charts = new ChartPanel(report, this.currentSetting(report));
+
+    this.loaded = { report, checked, suggestionSet, table, charts, stripSlot, checkedCount, addButton, resetButton };
+
+    const termNote = panel
+      ? el('p', { className: 'lw-hint', text: 'Check or uncheck terms to see what the measures and charts would be with that stop list.' })
+      : el('p', { className: 'lw-hint lw-hint--standalone', text: 'What-if needs the editor: this report shows the baseline and the suggested stop list only.' });
+
+    replaceChildren(this.content, [
+      renderReportHeader(report, exportButton ? [exportButton] : []),
+      section('Distance health', 'lw-sec-health', [stripSlot]),
+      section('Terms', 'lw-sec-terms', [termNote, table.element]),
+      section('Charts', 'lw-sec-charts', [charts.element]),
+      section('Hub documents', 'lw-sec-hubs', [
+        el('p', { className: 'lw-hint', text: 'Documents that turn up in the most nearest-neighbour lists of the sample (baseline).' }),
+        renderHubList(report.hubs, report.baseline.sample.k, panel ? (line) => this.bridge.post({ type: 'revealLine', line }) : null),
+      ]),
+      renderSettingsFooter(report),
+    ]);
+    this.statusSlot.replaceChildren();
+    charts.mount();
+    this.renderStrip();
+    this.renderSelectionControls();
+    this.save();
+
+    // A restored selection that differs from the suggestions needs its measures again.
+    const removed = this.removedTerms();
+    if (!sameSet(removed, suggestionSet) && (!this.state.whatIf || !sameSet(this.state.whatIf.removed, new Set(removed)))) {
+      this.state.whatIf = null;
+      this.requester.schedule(removed);
+      this.renderStrip();
+    }
+  }
+
+  onWhatIfResult(message: WhatIfResultMessage): void {
+    if (!this.loaded || !this.requester.accept(message.requestId)) return;
+    this.state.whatIf = { removed: [...message.removed], measures: message.measures };
+    this.save();
+    this.renderStrip();
+    this.loaded.charts.update(this.currentSetting(this.loaded.report));
+  }
+
+  setBusy(stage: string | null): void {
+    if (stage === null) {
+      this.statusSlot.replaceChildren();
+      return;
+    }
+    replaceChildren(this.statusSlot, [el('span', { className: 'lw-spinner', attrs: { 'aria-hidden': 'true' } }), el('span', { text: `Working: ${stage}…` })]);
+  }
+
+  showError(message: string): void {
+    replaceChildren(this.statusSlot, [el('div', { className: 'lw-error', text: message, attrs: { role: 'alert' } })]);
+  }
+
+  private toggle(term: string, on: boolean): void {
+    const l = this.loaded;
+    if (!l) return;
+    if (on) l.checked.add(term);
+    else l.checked.delete(term);
+    this.state.checked = [...l.checked];
+    this.selectionChanged();
+  }
+
+  private resetToSuggestions(): void {
+    const l = this.loaded;
+    if (!l) return;
+    l.checked.clear();
+    for (const t of l.suggestionSet) l.checked.add(t);
+    this.state.checked = null;
+    l.table.syncChecks();
+    this.selectionChanged();
+  }
+
+  private addChecked(): void {
+    const terms = this.removedTerms();
+    if (terms.length > 0) this.bridge.post({ type: 'addTerms', terms });
+  }
+
+  private selectionChanged(): void {
+    const l = this.loaded;
+    if (!l) return;
+    const removed = this.removedTerms();
+    if (sameSet(removed, l.suggestionSet)) {
+      // Back at the suggestions: the report already holds those measures.
+      this.requester.cancel();
+      this.state.whatIf = null;
+      l.charts.update(this.currentSetting(l.report));
+    } else {
+      this.requester.schedule(removed);
+    }
+    this.save();
+    this.renderStrip();
+    this.renderSelectionControls();
+  }
+
+  /** Checked terms that are not already stopped, in the report's (loudness) order. */
+  private removedTerms(): string[] {
+    const l = this.loaded;
+    if (!l) return [];
+    return l.report.terms.filter((t) => t.status !== 'stopped' && l.checked.has(t.term)).map((t) => t.term);
+  }
+
+  private selectionMeasures(): Measures | null {
+    return this.state.whatIf?.measures ?? null;
+  }
+
+  private currentSetting(report: Report) {
+    const selection = this.selectionMeasures();
+    return selection
+      ? { label: 'your selection', distributions: selection.distributions }
+      : { label: 'with suggestions', distributions: report.suggested.distributions };
+  }
+
+  private renderStrip(): void {
+    const l = this.loaded;
+    if (!l) return;
+    const selection = this.selectionMeasures();
+    replaceChildren(l.stripSlot, [
+      renderHealthStrip({
+        baseline: l.report.baseline,
+        suggested: l.report.suggested,
+        suggestedCount: l.suggestionSet.size,
+        selection: selection ? { measures: selection, removedCount: this.state.whatIf?.removed.length ?? 0 } : null,
+        pending: this.requester.pending,
+      }),
+    ]);
+  }
+
+  private renderSelectionControls(): void {
+    const l = this.loaded;
+    if (!l) return;
+    const n = this.removedTerms().length;
+    l.checkedCount.textContent = `${n.toLocaleString('en-US')} checked`;
+    if (l.addButton) l.addButton.disabled = n === 0;
+    if (l.resetButton) l.resetButton.disabled = sameSet(this.removedTerms(), l.suggestionSet);
+  }
+
+  private save(): void {
+    this.bridge.saveState(this.state);
+  }
+}
+
+function section(title: string, id: string, children: readonly HTMLElement[]): HTMLElement {
+  return el('section', { className: `lw-section ${id}`, attrs: { 'aria-labelledby': `${id}-h` } }, [el('h2', { text: title, attrs: { id: `${id}-h` } }), ...children]);
+}
+
+function button(label: string, kind: 'primary' | 'secondary', onClick: () => void): HTMLButtonElement {
+  const b = el('button', { className: `lw-button lw-button--${kind}`, text: label, attrs: { type: 'button' } });
+  b.addEventListener('click', onClick);
+  return b;
+}
+
+function sameSet(list: readonly string[], set: ReadonlySet<string>): boolean {
+  if (list.length !== set.size) return false;
+  for (const t of list) if (!set.has(t)) return false;
+  return true;
+}

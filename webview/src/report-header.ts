@@ -1,0 +1,71 @@
+// The top of the panel: which file, how much of it, with which settings, and anything the
+// reader must know before trusting the numbers (a cut-off input, skipped rows).
+
+import type { Report } from '../../extension/src/protocol';
+import { el, type Child } from './create-element';
+import { formatBytes, formatCount, formatNumber } from './format';
+
+export function renderReportHeader(report: Report, actions: readonly HTMLElement[]): HTMLElement {
+  const input = report.input;
+  const facts: Child[] = [
+    fact('documents', formatCount(input.documents)),
+    fact('terms', formatCount(report.vocabulary.terms)),
+    fact('mean length', `${formatNumber(report.vocabulary.meanDocLength)} tokens`),
+    fact('format', input.format),
+    input.textField ? fact('text', input.textField) : null,
+    input.labelField ? fact('label', input.labelField) : null,
+    fact('sample', `${formatCount(report.baseline.sample.documents)} docs, k = ${report.baseline.sample.k}`),
+  ];
+  const notes: Child[] = [];
+  if (input.truncated) {
+    notes.push(
+      el('p', {
+        className: 'lw-note lw-note--warn',
+        text: `Only the first ${formatBytes(input.truncated.bytesRead)} were read (limit ${formatBytes(input.truncated.limitBytes)}); the numbers describe that part of the file.`,
+      }),
+    );
+  }
+  if (input.skipped > 0) {
+    const examples = input.skippedExamples ?? [];
+    const summary = `${formatCount(input.skipped)} row${input.skipped === 1 ? '' : 's'} skipped`;
+    notes.push(
+      examples.length > 0
+        ? el('details', { className: 'lw-note' }, [
+            el('summary', { text: summary }),
+            el('ul', {}, examples.map((x) => el('li', { text: `line ${formatCount(x.line)}: ${x.reason}` }))),
+          ])
+        : el('p', { className: 'lw-note', text: summary }),
+    );
+  }
+  return el('header', { className: 'lw-header' }, [
+    el('div', { className: 'lw-header__top' }, [
+      el('div', { className: 'lw-header__title' }, [
+        el('h1', { text: 'Distance Review' }),
+        el('span', { className: 'lw-file', text: input.file, attrs: { title: input.file } }),
+      ]),
+      el('div', { className: 'lw-header__actions' }, actions),
+    ]),
+    el('dl', { className: 'lw-facts' }, facts),
+    ...notes,
+  ]);
+}
+
+function fact(name: string, value: string): HTMLElement {
+  return el('div', { className: 'lw-fact' }, [el('dt', { text: name }), el('dd', { text: value })]);
+}
+
+/** The settings the review used and the stop list in force, for the footer. */
+export function renderSettingsFooter(report: Report): HTMLElement {
+  const s = report.settings;
+  const stop = report.stopList;
+  const lines: string[] = [
+    `Weighting: tf ${s.weighting.tf}, idf ${s.weighting.idf}, norm ${s.weighting.norm}.`,
+    `Tokens: ${s.tokens.lowercase ? 'lowercased' : 'case kept'}, min length ${s.tokens.minLength}, ${s.tokens.ngrams === 2 ? 'uni- and bigrams' : 'unigrams'}${s.tokens.stem ? ', stemmed' : ''}; kinds ${s.tokens.kinds.join(', ')}.`,
+    `Pruning: min df ${formatNumber(s.prune.minDf)}, max df ${formatNumber(s.prune.maxDf)}. Sample: ${formatCount(s.sample.documents)} documents, k = ${s.sample.k}, seed ${s.sample.seed}.`,
+    `Stop list: ${stop.file ?? 'none'} (${formatCount(stop.terms)} terms${stop.unused.length > 0 ? `, ${formatCount(stop.unused.length)} never occur` : ''}).`,
+  ];
+  return el('footer', { className: 'lw-footer' }, [
+    ...lines.map((text) => el('p', { text })),
+    el('p', { className: 'lw-footer__tool', text: `${report.tool.name} ${report.tool.version}` }),
+  ]);
+}

@@ -1,0 +1,240 @@
+// The ranked term table: sortable headers (buttons inside <th>, aria-sort), a status filter, a
+// text search, a "stop this term" checkbox per row, and a row cap with "show more" so that
+// tens of thousands of terms stay quick (only the rows on screen exist in the DOM).
+
+import type { TermRow } from '../../extension/src/protocol';
+import { el, replaceChildren, setSafeAttribute } from './create-element';
+import { formatCount, formatFixed, formatNumber, formatRatio, formatShare } from './format';
+import { orderTerms } from './term-order';
+import { PAGE_SIZE, type SortKey, type StatusFilter, type ViewState } from './view-state';
+
+interface Column {
+  key: SortKey;
+  label: string;
+  title: string;
+  numeric: boolean;
+  /** Direction of the first click: numbers start high-to-low, text A to Z. */
+  firstDescending: boolean;
+}
+
+const columns: readonly Column[] = [
+  { key: 'checked', label: 'Stop', title: 'Checked terms are treated as stopped in the what-if', numeric: false, firstDescending: true },
+  { key: 'term', label: 'Term', title: 'The term as tokenised', numeric: false, firstDescending: false },
+  { key: 'df', label: 'df', title: 'Documents that contain the term', numeric: true, firstDescending: true },
+  { key: 'idf', label: 'idf', title: 'Inverse document frequency with the configured formula', numeric: true, firstDescending: true },
+  { key: 'pullShare', label: 'Pull share', title: 'Share of the all-pairs similarity mass that comes from this term', numeric: true, firstDescending: true },
+  {
+    key: 'neighborLift',
+    label: 'Neighbour lift',
+    title: "The term's share of similarity inside nearest-neighbour pairs divided by its pull share; below 1 it adds more background than neighbour signal",
+    numeric: true,
+    firstDescending: true,
+  },
+  { key: 'spread', label: 'Spread', title: "How evenly the term's weight is spread over documents (1 = everywhere evenly)", numeric: true, firstDescending: true },
+  { key: 'loudness', label: 'Loudness', title: 'Combined score used to rank loud terms; higher is louder', numeric: true, firstDescending: true },
+  { key: 'status', label: 'Status', title: 'suggested, already stopped, protected by the settings, or kept', numeric: false, firstDescending: false },
+  { key: 'why', label: 'Why', title: 'Why the term is or is not suggested', numeric: false, firstDescending: false },
+];
+
+const statusOptions: ReadonlyArray<[StatusFilter, string]> = [
+  ['all', 'All statuses'],
+  ['suggested', 'Suggested'],
+  ['stopped', 'Already stopped'],
+  ['protected', 'Protected'],
+  ['kept', 'Kept'],
+  ['checked', 'Checked by you'],
+];
+
+export interface TermTableOptions {
+  /** False in the standalone report: there is no engine to answer a what-if. */
+  togglesEnabled: boolean;
+  /** Extra controls placed at the end of the toolbar (buttons owned by the app). */
+  actions: readonly HTMLElement[];
+  onToggle(term: string, checked: boolean): void;
+  onViewChange(): void;
+}
+
+export class TermTable {
+  readonly element: HTMLElement;
+  private readonly tbody: HTMLTableSectionElement;
+  private readonly headRow: HTMLTableRowElement;
+  private readonly countLine: HTMLElement;
+  private readonly moreButton: HTMLButtonElement;
+  private readonly searchInput: HTMLInputElement;
+  private readonly statusSelect: HTMLSelectElement;
+  private order: number[] = [];
+  private readonly maxPull: number;
+  private searchTimer: ReturnType<typeof setTimeout> | undefined;
+
+  constructor(
+    private readonly terms: readonly TermRow[],
+    private readonly state: ViewState,
+    private readonly checked: Set<string>,
+    private readonly options: TermTableOptions,
+  ) {
+    let maxPull = 0;
+    for (const t of terms) if (Number.isFinite(t.pullShare) && t.pullShare > maxPull) maxPull = t.pullShare;
+    this.maxPull = maxPull;
+
+    this.searchInput = el('input', {
+      className: 'lw-input',
+      attrs: { type: 'search', placeholder: 'Find a term', 'aria-label': 'Find a term', spellcheck: 'false', autocomplete: 'off' },
+    });
+    this.searchInput.value = state.search;
+    this.searchInput.addEventListener('input', () => {
+      clearTimeout(this.searchTimer);
+      this.searchTimer = setTimeout(() => {
+        this.state.search = this.searchInput.value;
+        this.state.shown = PAGE_SIZE;
+        this.refresh();
+        this.options.onViewChange();
+      }, 120);
+    });
+
+    this.statusSelect = el('select', { className: 'lw-select', attrs: { 'aria-label': 'Filter by status' } });
+    for (const [value, label] of statusOptions) {
+      const option = el('option', { text: label, attrs: { value } });
+      if (value === state.status) option.selected = true;
+      this.statusSelect.append(option);
+    }
+    this.statusSelect.addEventListener('change', () => {
+      this.state.status = this.statusSelect.value as StatusFilter;
+      this.state.shown = PAGE_SIZE;
+      this.refresh();
+      this.options.onViewChange();
+    });
+
+    this.countLine = el('span', { className: 'lw-count', attrs: { 'aria-live': 'polite' } });
+    const toolbar = el('div', { className: 'lw-toolbar' }, [
+      this.searchInput,
+      this.statusSelect,
+      this.countLine,
+      el('span', { className: 'lw-toolbar__spacer' }),
+      ...options.actions,
+    ]);
+
+    this.headRow = el('tr');
+    for (const c of columns) {
+      const button = el('button', { className: 'lw-sort', attrs: { type: 'button', 'data-sort': c.key, title: c.title } }, [
+        el('span', { text: c.label }),
+        el('span', { className: 'lw-sort__glyph', attrs: { 'aria-hidden': 'true' } }),
+      ]);
+      button.addEventListener('click', () => this.sortBy(c));
+      this.headRow.append(el('th', { className: `lw-col-${c.key}${c.numeric ? ' lw-num' : ''}`, attrs: { scope: 'col' } }, [button]));
+    }
+
+    this.tbody = el('tbody');
+    this.tbody.addEventListener('change', (event) => {
+      const input = event.target;
+      if (!(input instanceof HTMLInputElement) || input.type !== 'checkbox') return;
+      const term = input.closest('tr')?.getAttribute('data-term');
+      if (term === null || term === undefined) return;
+      this.options.onToggle(term, input.checked);
+    });
+
+    const table = el('table', { className: 'lw-table', attrs: { 'aria-label': 'Terms ranked by how loud they are' } }, [el('thead', {}, [this.headRow]), this.tbody]);
+
+    this.moreButton = el('button', { className: 'lw-button lw-button--secondary lw-more', attrs: { type: 'button' } });
+    this.moreButton.addEventListener('click', () => {
+      this.state.shown += PAGE_SIZE;
+      this.renderRows();
+      this.options.onViewChange();
+    });
+
+    this.element = el('div', { className: 'lw-terms' }, [toolbar, el('div', { className: 'lw-table-wrap' }, [table]), this.moreButton]);
+    this.refresh();
+  }
+
+  /** Re-sorts and re-filters, then redraws the visible rows. */
+  refresh(): void {
+    this.order = orderTerms(this.terms, { sort: this.state.sort, status: this.state.status, search: this.state.search, checked: this.checked });
+    this.renderHeader();
+    this.renderRows();
+  }
+
+  /** Brings the checkboxes on screen in line with `checked` (after a reset). */
+  syncChecks(): void {
+    for (const input of this.tbody.querySelectorAll<HTMLInputElement>('input[type=checkbox]')) {
+      const term = input.closest('tr')?.getAttribute('data-term');
+      if (term !== null && term !== undefined && !input.disabled) input.checked = this.checked.has(term);
+    }
+    this.renderCount();
+  }
+
+  private sortBy(c: Column): void {
+    const current = this.state.sort;
+    this.state.sort = current.key === c.key ? { key: c.key, descending: !current.descending } : { key: c.key, descending: c.firstDescending };
+    this.refresh();
+    this.options.onViewChange();
+  }
+
+  private renderHeader(): void {
+    for (const th of this.headRow.children) {
+      const button = th.querySelector('button');
+      const key = button?.getAttribute('data-sort');
+      const glyph = th.querySelector('.lw-sort__glyph');
+      if (key === this.state.sort.key) {
+        setSafeAttribute(th, 'aria-sort', this.state.sort.descending ? 'descending' : 'ascending');
+        if (glyph) glyph.textContent = this.state.sort.descending ? '▾' : '▴';
+      } else {
+        setSafeAttribute(th, 'aria-sort', 'none');
+        if (glyph) glyph.textContent = '';
+      }
+    }
+  }
+
+  private renderRows(): void {
+    const limit = Math.min(this.state.shown, this.order.length);
+    const rows: HTMLTableRowElement[] = [];
+    for (let i = 0; i < limit; i += 1) rows.push(this.renderRow(this.terms[this.order[i]!]!));
+    replaceChildren(this.tbody, rows);
+    const hidden = this.order.length - limit;
+    this.moreButton.hidden = hidden <= 0;
+    this.moreButton.textContent = `Show ${formatCount(Math.min(PAGE_SIZE, hidden))} more (${formatCount(hidden)} not shown)`;
+    this.renderCount();
+  }
+
+  private renderCount(): void {
+    const shown = Math.min(this.state.shown, this.order.length);
+    const of = this.order.length === this.terms.length ? '' : ` (${formatCount(this.terms.length)} in all)`;
+    this.countLine.textContent = `${formatCount(shown)} of ${formatCount(this.order.length)} terms${of}`;
+  }
+
+  private renderRow(t: TermRow): HTMLTableRowElement {
+    const stopped = t.status === 'stopped';
+    const box = el('input', {
+      className: 'lw-check',
+      attrs: {
+        type: 'checkbox',
+        'aria-label': `Stop “${t.term}”`,
+        title: stopped ? 'Already in the stop list' : this.options.togglesEnabled ? 'Treat this term as stopped' : 'What-if needs the editor',
+      },
+    });
+    box.checked = stopped || this.checked.has(t.term);
+    box.disabled = stopped || !this.options.togglesEnabled;
+
+    const pull = el('td', { className: 'lw-num lw-pull' }, [el('span', { className: 'lw-pull__bar', attrs: { 'aria-hidden': 'true' } }), el('span', { text: formatShare(t.pullShare) })]);
+    if (this.maxPull > 0 && Number.isFinite(t.pullShare)) {
+      // CSSOM, not a style attribute: allowed under the panel's CSP.
+      pull.style.setProperty('--lw-bar', String(Math.max(0, Math.min(1, t.pullShare / this.maxPull))));
+    }
+
+    return el('tr', { attrs: { 'data-term': t.term, 'data-status': t.status } }, [
+      el('td', { className: 'lw-col-checked' }, [box]),
+      el('td', { className: 'lw-termcell' }, [el('span', { className: 'lw-term', text: t.term, attrs: { title: t.term } })]),
+      el('td', { className: 'lw-num', text: formatCount(t.df) }),
+      el('td', { className: 'lw-num', text: formatFixed(t.idf, 2) }),
+      pull,
+      el('td', { className: `lw-num${t.neighborLift !== null && t.neighborLift < 1 ? ' lw-low' : ''}`, text: formatRatio(t.neighborLift) }),
+      el('td', { className: 'lw-num', text: formatFixed(t.spread, 2) }),
+      el('td', { className: 'lw-num', text: formatNumber(t.loudness) }),
+      el('td', {}, [el('span', { className: `lw-status lw-status--${safeClass(t.status)}`, text: t.status })]),
+      el('td', { className: 'lw-why', text: t.why, attrs: { title: t.why } }),
+    ]);
+  }
+}
+
+/** Status comes from the report; only known words may become part of a class name. */
+function safeClass(status: string): string {
+  return /^(suggested|stopped|protected|kept)$/.test(status) ? status : 'other';
+}
