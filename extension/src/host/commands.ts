@@ -1,0 +1,74 @@
+// Every command, as a table of factories over the shared HostContext, registered in one loop
+// by extension.ts. Ids and titles are in package.json (contributes.commands) and are relied on
+// by the end-to-end tests: keep them in step.
+import * as vscode from 'vscode';
+import type { HostContext } from './host-context';
+import { openConfig } from './open-config';
+import { flaggedTermAt } from './pure/flagged-term-spans';
+
+type CommandFactory = (ctx: HostContext) => (...args: unknown[]) => unknown;
+
+function asUri(value: unknown): vscode.Uri | undefined {
+  return value instanceof vscode.Uri ? value : typeof value === 'string' && value.includes(':') ? vscode.Uri.parse(value) : undefined;
+}
+
+function noReview(): void {
+  void vscode.window.showInformationMessage('Loudword: run "Review distances" on a corpus first.');
+}
+
+/** The flagged term (else the plain word) under the cursor, if the editor shows `review`'s corpus. */
+function termUnderCursor(ctx: HostContext, uri: vscode.Uri): string | null {
+  const editor = vscode.window.activeTextEditor;
+  const review = ctx.store.get(uri);
+  if (editor === undefined || review?.report == null || editor.document.uri.toString() !== uri.toString()) return null;
+  const pos = editor.selection.active;
+  const line = editor.document.lineAt(pos.line).text;
+  const lowercase = review.report.settings.tokens.lowercase;
+  const flagged = flaggedTermAt(line, pos.character, new Set(review.openSuggestions()), { lowercase });
+  return flagged?.term ?? null;
+}
+
+export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
+  'loudword.reviewDistances': (ctx) => async (arg?: unknown) => {
+    const uri = asUri(arg) ?? vscode.window.activeTextEditor?.document.uri;
+    if (uri === undefined) {
+      void vscode.window.showInformationMessage('Loudword: open a corpus (CSV, TSV, JSON Lines or one document per line) first.');
+      return;
+    }
+    const doc = await vscode.workspace.openTextDocument(uri);
+    await ctx.review(doc, true);
+  },
+
+  'loudword.addTermToStopList': (ctx) => async (arg?: unknown, termArg?: unknown) => {
+    const uri = asUri(arg);
+    const review = ctx.reviewFor(uri);
+    if (review?.report == null) return noReview();
+    let term = typeof termArg === 'string' ? termArg : typeof arg === 'string' && uri === undefined ? arg : termUnderCursor(ctx, review.uri);
+    if (term === null) {
+      const items = review.openSuggestions().map((t) => ({ label: t, detail: review.report?.terms.find((r) => r.term === t)?.why ?? '' }));
+      const picked = await vscode.window.showQuickPick(items, { title: 'Add term to stop list', placeHolder: 'Pick a suggested term', matchOnDetail: true });
+      term = picked?.label ?? null;
+    }
+    if (term === null || term.trim() === '') return;
+    await ctx.addTerms(review, [term]);
+  },
+
+  'loudword.addAllSuggested': (ctx) => async (arg?: unknown) => {
+    const review = ctx.reviewFor(asUri(arg));
+    if (review?.report == null) return noReview();
+    const open = review.openSuggestions();
+    if (open.length === 0) {
+      void vscode.window.showInformationMessage('Loudword: no suggested terms are left to add.');
+      return;
+    }
+    await ctx.addTerms(review, open);
+  },
+
+  'loudword.exportHtmlReport': (ctx) => async (arg?: unknown) => {
+    const review = ctx.reviewFor(asUri(arg));
+    if (review?.report == null) return noReview();
+    await ctx.exportHtml(review);
+  },
+
+  'loudword.openConfig': (ctx) => () => openConfig(ctx.extensionUri),
+};

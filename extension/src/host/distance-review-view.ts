@@ -1,0 +1,128 @@
+// The Distance Review panel: a webview view whose page is a pure function of the Report. The
+// page is untrusted: every message is checked with isWebviewToHost before the host acts.
+import { randomBytes } from 'node:crypto';
+import * as vscode from 'vscode';
+import { isWebviewToHost, type HostToWebview, type WebviewToHost } from '../protocol';
+import { panelHtml } from '../html/panel-html';
+import type { CorpusReview } from './corpus-review';
+import type { ReviewStore } from './review-store';
+
+/** What the page may ask the host to do, for the review it shows. */
+export interface PanelActions {
+  revealLine(review: CorpusReview, line: number): Promise<void>;
+  addTerms(review: CorpusReview, terms: string[]): Promise<void>;
+  exportHtml(review: CorpusReview): Promise<void>;
+}
+
+export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, vscode.Disposable {
+  /** Equal to the view id in package.json (contributes.views). */
+  static readonly viewType = 'loudword.distanceReview';
+
+  private view: vscode.WebviewView | null = null;
+  private ready = false;
+  /** The review whose Report the page holds, so a late what-if answer is not mixed up. */
+  private shown: CorpusReview | null = null;
+  private readonly disposables: vscode.Disposable[] = [];
+  private readonly viewDisposables: vscode.Disposable[] = [];
+
+  constructor(
+    private readonly extensionUri: vscode.Uri,
+    private readonly store: ReviewStore,
+    private readonly actions: PanelActions,
+  ) {
+    this.disposables.push(store.onDidChange(() => this.showFocused()));
+  }
+
+  resolveWebviewView(view: vscode.WebviewView): void {
+    this.disposeView();
+    this.view = view;
+    this.ready = false;
+    const dist = vscode.Uri.joinPath(this.extensionUri, 'dist');
+    view.webview.options = { enableScripts: true, localResourceRoots: [dist] };
+    view.webview.html = this.html(view.webview, dist);
+    this.viewDisposables.push(
+      view.webview.onDidReceiveMessage((m: unknown) => void this.receive(m)),
+      view.onDidDispose(() => {
+        this.view = null;
+        this.ready = false;
+        this.shown = null;
+        this.disposeView();
+      }),
+    );
+  }
+
+  /** Reveals the panel (e.g. after a review the user asked for). */
+  async reveal(): Promise<void> {
+    await vscode.commands.executeCommand(`${DistanceReviewViewProvider.viewType}.focus`);
+  }
+
+  busy(stage: string | null): void {
+    this.post({ type: 'busy', stage });
+  }
+
+  private html(webview: vscode.Webview, dist: vscode.Uri): string {
+    // A fresh nonce per render: a script injected through corpus text can never guess it.
+    return panelHtml({
+      cspSource: webview.cspSource,
+      nonce: randomBytes(18).toString('base64'),
+      scriptUri: webview.asWebviewUri(vscode.Uri.joinPath(dist, 'webview.js')).toString(),
+      styleUri: webview.asWebviewUri(vscode.Uri.joinPath(dist, 'webview.css')).toString(),
+    });
+  }
+
+  private showFocused(): void {
+    const review = this.store.focused;
+    if (review === null || review.report === null) return;
+    this.shown = review;
+    this.post({ type: 'showReport', report: review.report });
+  }
+
+  private post(message: HostToWebview): void {
+    if (this.view === null || !this.ready) return;
+    void this.view.webview.postMessage(message);
+  }
+
+  private async receive(message: unknown): Promise<void> {
+    if (!isWebviewToHost(message)) return;
+    const m: WebviewToHost = message;
+    if (m.type === 'ready') {
+      this.ready = true;
+      this.showFocused();
+      return;
+    }
+    const review = this.shown;
+    if (review === null || review.report === null) {
+      this.post({ type: 'error', message: 'No review is loaded; run "Review distances" on a corpus first.' });
+      return;
+    }
+    try {
+      switch (m.type) {
+        case 'whatIf': {
+          const measures = await review.client.whatIf(m.removed);
+          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId });
+          return;
+        }
+        case 'revealLine':
+          await this.actions.revealLine(review, m.line);
+          return;
+        case 'addTerms':
+          await this.actions.addTerms(review, m.terms);
+          return;
+        case 'exportHtml':
+          await this.actions.exportHtml(review);
+          return;
+      }
+    } catch (e) {
+      this.post({ type: 'error', message: e instanceof Error ? e.message : String(e) });
+    }
+  }
+
+  private disposeView(): void {
+    for (const d of this.viewDisposables.splice(0)) d.dispose();
+  }
+
+  dispose(): void {
+    this.disposeView();
+    for (const d of this.disposables.splice(0)) d.dispose();
+  }
+}

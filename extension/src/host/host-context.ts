@@ -1,0 +1,90 @@
+// What the commands, the panel and the listeners share: the reviews, the panel, and the few
+// operations more than one of them starts. Lives as long as the extension.
+import * as path from 'node:path';
+import * as vscode from 'vscode';
+import type { CorpusReview } from './corpus-review';
+import type { DistanceReviewViewProvider } from './distance-review-view';
+import { exportHtmlReport } from './export-html-report';
+import { openAtLine, showReviewError } from './review-error-message';
+import type { ReviewStore } from './review-store';
+import { addTermsToReviewStopList } from './stop-list-edits';
+
+export class HostContext {
+  panel: DistanceReviewViewProvider | null = null;
+
+  constructor(
+    readonly extensionUri: vscode.Uri,
+    readonly store: ReviewStore,
+  ) {}
+
+  /** Reviews `doc`; errors become messages, never exceptions (the host must not crash). */
+  async review(doc: vscode.TextDocument, reveal: boolean): Promise<CorpusReview | null> {
+    const review = this.store.getOrCreate(doc.uri);
+    try {
+      await review.run(doc, (stage) => this.panel?.busy(stage));
+      this.store.focus(review);
+      this.store.notify(review);
+      await vscode.commands.executeCommand('setContext', 'loudword.hasReview', true);
+      await this.updateActiveContext();
+      if (reveal) await this.panel?.reveal();
+      return review;
+    } catch (e) {
+      void showReviewError(e);
+      return null;
+    }
+  }
+
+  /** The review a command without arguments means: the active editor's, else the panel's. */
+  reviewFor(uri: vscode.Uri | undefined): CorpusReview | null {
+    const target = uri ?? vscode.window.activeTextEditor?.document.uri;
+    const direct = target === undefined ? undefined : this.store.get(target) ?? this.store.usingStopList(target)[0];
+    return direct ?? this.store.focused;
+  }
+
+  async addTerms(review: CorpusReview, terms: readonly string[]): Promise<string[]> {
+    try {
+      const { added, stopList } = await addTermsToReviewStopList(review, terms);
+      this.store.notify(review);
+      const name = path.basename(stopList.fsPath);
+      if (added.length === 0) {
+        void vscode.window.showInformationMessage(`Loudword: ${terms.length === 1 ? `'${terms[0]}' is` : 'those terms are'} already in ${name}.`);
+        return added;
+      }
+      const open = 'Open Stop List';
+      const what = added.length === 1 ? `'${added[0]}'` : `${added.length} terms`;
+      void vscode.window.showInformationMessage(`Loudword: added ${what} to ${name} (unsaved; undo with Ctrl+Z in that file).`, open).then(async (choice) => {
+        if (choice === open) await vscode.window.showTextDocument(stopList, { preview: false });
+      });
+      return added;
+    } catch (e) {
+      void showReviewError(e);
+      return [];
+    }
+  }
+
+  async exportHtml(review: CorpusReview): Promise<void> {
+    try {
+      await exportHtmlReport(this.extensionUri, review);
+    } catch (e) {
+      void showReviewError(e);
+    }
+  }
+
+  async revealLine(review: CorpusReview, line: number): Promise<void> {
+    if (review.uri.scheme === 'file') {
+      await openAtLine(review.uri.fsPath, line);
+      return;
+    }
+    const doc = await vscode.workspace.openTextDocument(review.uri);
+    const at = new vscode.Position(Math.max(0, Math.min(line - 1, doc.lineCount - 1)), 0);
+    await vscode.window.showTextDocument(doc, { selection: new vscode.Range(at, at) });
+  }
+
+  /** Keeps `loudword.activeEditorReviewed` (menus) and the panel's focus on the active corpus. */
+  async updateActiveContext(): Promise<void> {
+    const editor = vscode.window.activeTextEditor;
+    const review = editor === undefined ? undefined : this.store.get(editor.document.uri);
+    if (review?.report != null) this.store.focus(review);
+    await vscode.commands.executeCommand('setContext', 'loudword.activeEditorReviewed', review?.report != null);
+  }
+}

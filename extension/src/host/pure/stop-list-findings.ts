@@ -1,0 +1,78 @@
+// Which stop-list entries deserve a diagnostic, from the stop list's text and the Report.
+// Two findings, both fixed by removing the entry:
+//  - unused: the entry never occurs in the corpus (Report.stopList.unused), so it only adds noise;
+//  - neighbour signal: the term was stopped, yet documents that are each other's nearest
+//    neighbours share it far more than random pairs do (neighbour lift ≥ NEIGHBOR_SIGNAL_LIFT),
+//    so stopping it throws away what tells neighbours apart.
+import type { Report } from '../../protocol';
+import { splitStopListLines, stopListTerm } from '../../engine/stoplist/stop-list-lines';
+
+/** A stopped term with neighbour lift at or above this gets a warning. Lift 1 means "no more
+ * shared inside k-NN pairs than across all pairs"; 1.5 asks for half again as much — a
+ * judgement call (common practice, no source), kept in one place so it can be tuned. */
+export const NEIGHBOR_SIGNAL_LIFT = 1.5;
+
+export interface StopListEntry {
+  /** The entry as compared with the Report's terms (lowercased when the review lowercases). */
+  term: string;
+  /** 0-based line and UTF-16 columns of the entry's text, end exclusive. */
+  line: number;
+  start: number;
+  end: number;
+}
+
+export type FindingKind = 'unused' | 'neighborSignal';
+
+export interface StopListFinding extends StopListEntry {
+  kind: FindingKind;
+  message: string;
+}
+
+/** Entries of a stop list, read by the engine's own line rules so both sides agree on what is an entry. */
+export function stopListEntries(text: string, lowercase: boolean): StopListEntry[] {
+  const entries: StopListEntry[] = [];
+  const lines = splitStopListLines(text);
+  for (let line = 0; line < lines.length; line++) {
+    const raw = lines[line]!.text;
+    const term = stopListTerm(raw);
+    if (term === null) continue;
+    const start = raw.indexOf(term);
+    entries.push({ term: lowercase ? term.toLowerCase() : term, line, start, end: start + term.length });
+  }
+  return entries;
+}
+
+function fixed(x: number): string {
+  return x.toFixed(2);
+}
+
+/** The findings for `stopListText`, in line order; at most `max` (a huge list stays responsive). */
+export function stopListFindings(stopListText: string, report: Report, max = 1000): StopListFinding[] {
+  const unused = new Set(report.stopList.unused);
+  const lift = new Map<string, number>();
+  for (const row of report.terms) {
+    if (row.status === 'stopped' && row.neighborLift !== null && row.neighborLift >= NEIGHBOR_SIGNAL_LIFT) lift.set(row.term, row.neighborLift);
+  }
+  const findings: StopListFinding[] = [];
+  for (const entry of stopListEntries(stopListText, report.settings.tokens.lowercase)) {
+    if (findings.length >= max) break;
+    if (unused.has(entry.term)) {
+      findings.push({ ...entry, kind: 'unused', message: `'${entry.term}' never occurs in ${baseName(report.input.file)}; the entry has no effect.` });
+      continue;
+    }
+    const l = lift.get(entry.term);
+    if (l !== undefined) {
+      findings.push({
+        ...entry,
+        kind: 'neighborSignal',
+        message: `'${entry.term}' carries neighbour signal (neighbour lift ${fixed(l)} ≥ ${fixed(NEIGHBOR_SIGNAL_LIFT)}): nearest neighbours share it more than random pairs do, so stopping it may blur which documents belong together.`,
+      });
+    }
+  }
+  return findings;
+}
+
+function baseName(file: string): string {
+  const parts = file.split(/[\\/]/);
+  return parts[parts.length - 1] || file;
+}

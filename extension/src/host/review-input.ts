@@ -1,0 +1,95 @@
+// Gathers what one review needs from the editor: the corpus (buffer text when unsaved), the
+// project's loudword.json, the editor defaults, and the stop list's unsaved buffer if open.
+// Also enforces restricted mode: in an untrusted workspace nothing outside it is read.
+import * as path from 'node:path';
+import * as vscode from 'vscode';
+import type { ReviewInput } from '../engine/review/review-api';
+import { editorDefaults } from './loudword-settings';
+import { confineToWorkspace } from '../engine/config/confine-to-workspace';
+import { isUserError } from '../engine/user-error';
+import { configCandidates, editorOverrides, expectedStopListPath } from './pure/config-location';
+import { WorkerFailure } from '../worker/review-worker-client';
+
+export interface PreparedReview {
+  input: ReviewInput;
+  configPath: string | null;
+  /** Where the stop list will be read from; null when the config turns it off. */
+  stopListPath: string | null;
+  workspaceRoot: string | null;
+}
+
+async function exists(file: string): Promise<boolean> {
+  try {
+    await vscode.workspace.fs.stat(vscode.Uri.file(file));
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** The nearest loudword.json, or null. */
+export async function findConfig(corpusFile: string, workspaceRoot: string | null): Promise<string | null> {
+  for (const candidate of configCandidates(corpusFile, workspaceRoot)) {
+    if (await exists(candidate)) return candidate;
+  }
+  return null;
+}
+
+/** Parses leniently: a broken file is reported by the engine with its line, not here. */
+async function readConfigJson(configPath: string | null): Promise<unknown> {
+  if (configPath === null) return {};
+  try {
+    const open = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && d.uri.fsPath === configPath);
+    const text = open ? open.getText() : Buffer.from(await vscode.workspace.fs.readFile(vscode.Uri.file(configPath))).toString('utf8');
+    return JSON.parse(text) as unknown;
+  } catch {
+    return {};
+  }
+}
+
+function sameFile(a: string, b: string): boolean {
+  return process.platform === 'win32' || process.platform === 'darwin' ? a.toLowerCase() === b.toLowerCase() : a === b;
+}
+
+export function workspaceRootOf(uri: vscode.Uri): string | null {
+  const folder = vscode.workspace.getWorkspaceFolder(uri) ?? (uri.scheme === 'untitled' ? vscode.workspace.workspaceFolders?.[0] : undefined);
+  return folder?.uri.scheme === 'file' ? folder.uri.fsPath : null;
+}
+
+/**
+ * Restricted mode: every path the config or settings name must stay inside the workspace
+ * (symbolic links followed). Throws WorkerFailure, shown like any user error.
+ */
+export function confineForRestrictedMode(workspaceRoot: string | null, paths: ReadonlyArray<string | null>, blame: string | null): void {
+  for (const p of paths) {
+    if (p === null) continue;
+    if (workspaceRoot === null) throw new WorkerFailure(`This window is not trusted and has no workspace folder, so Loudword will not read ${p}.`, 'user', blame, null);
+    try {
+      confineToWorkspace(workspaceRoot, p);
+    } catch (e) {
+      if (isUserError(e)) throw new WorkerFailure(`${e.message}. Trust the workspace or move the file.`, 'user', blame, null);
+      throw e;
+    }
+  }
+}
+
+export async function prepareReview(doc: vscode.TextDocument): Promise<PreparedReview> {
+  const workspaceRoot = workspaceRootOf(doc.uri);
+  const corpusFile = doc.uri.scheme === 'file' ? doc.uri.fsPath : path.join(workspaceRoot ?? process.cwd(), doc.fileName);
+  const configPath = doc.uri.scheme === 'file' || workspaceRoot !== null
+    ? await findConfig(doc.uri.scheme === 'file' ? corpusFile : path.join(workspaceRoot ?? '', 'corpus'), workspaceRoot)
+    : null;
+  const configJson = await readConfigJson(configPath);
+  const overrides = editorOverrides(editorDefaults(doc.uri), configJson, workspaceRoot ?? path.dirname(corpusFile));
+  const stopListPath = expectedStopListPath(configPath, configJson, overrides);
+
+  if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRoot, [configPath, stopListPath], configPath);
+
+  const input: ReviewInput = { file: corpusFile, configPath, overrides };
+  if (doc.isDirty || doc.isUntitled) input.text = doc.getText();
+  if (stopListPath !== null) {
+    const stopDoc = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && sameFile(d.uri.fsPath, stopListPath));
+    if (stopDoc?.isDirty) input.stopListText = stopDoc.getText();
+  }
+  return { input, configPath, stopListPath, workspaceRoot };
+}

@@ -1,0 +1,64 @@
+// Every change to the stop list goes through here: the engine computes TextEdits that keep
+// comments and order and never duplicate an entry; they are checked and applied as one
+// WorkspaceEdit, so the user can undo them. The corpus file is never edited.
+import * as path from 'node:path';
+import * as vscode from 'vscode';
+import { addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
+import { removeTermsFromStopList } from '../engine/stoplist/remove-terms-from-stop-list';
+import { WorkerFailure } from '../worker/review-worker-client';
+import type { CorpusReview } from './corpus-review';
+import { checkLineEdits, type LineEdit } from './pure/text-edit-ranges';
+import { confineForRestrictedMode, workspaceRootOf } from './review-input';
+
+export function toRange(edit: LineEdit): vscode.Range {
+  return new vscode.Range(edit.start.line, edit.start.character, edit.end.line, edit.end.character);
+}
+
+async function fileExists(uri: vscode.Uri): Promise<boolean> {
+  try {
+    await vscode.workspace.fs.stat(uri);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+function stopListUriOf(review: CorpusReview): vscode.Uri {
+  const file = review.stopListPath;
+  if (file === null) {
+    throw new WorkerFailure('This project has no stop list file (loudword.json sets "stopList" to null); set one to add terms.', 'user');
+  }
+  if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRootOf(review.uri), [file], null);
+  return vscode.Uri.file(file);
+}
+
+export interface AddResult { added: string[]; stopList: vscode.Uri }
+
+/** Adds `terms` to the review's stop list (creating the file if missing); returns what was new. */
+export async function addTermsToReviewStopList(review: CorpusReview, terms: readonly string[]): Promise<AddResult> {
+  const uri = stopListUriOf(review);
+  const edit = new vscode.WorkspaceEdit();
+  let text = '';
+  if (await fileExists(uri)) {
+    text = (await vscode.workspace.openTextDocument(uri)).getText();
+  } else {
+    edit.createFile(uri, { ignoreIfExists: true });
+  }
+  const result = addTermsToStopList(text, [...terms]);
+  if (result.edit === null || result.added.length === 0) return { added: [], stopList: uri };
+  const [checked] = checkLineEdits([result.edit], text);
+  edit.replace(uri, toRange(checked!), checked!.newText);
+  if (!(await vscode.workspace.applyEdit(edit))) throw new Error(`the editor refused the edit to ${path.basename(uri.fsPath)}`);
+  for (const t of result.added) review.addedSinceReview.add(t);
+  return { added: result.added, stopList: uri };
+}
+
+/** A WorkspaceEdit removing `terms` from the open stop list `doc`; null when none is listed. */
+export function removeTermsEdit(doc: vscode.TextDocument, terms: readonly string[]): vscode.WorkspaceEdit | null {
+  const text = doc.getText();
+  const result = removeTermsFromStopList(text, [...terms]);
+  if (result.edits.length === 0) return null;
+  const edit = new vscode.WorkspaceEdit();
+  for (const e of checkLineEdits(result.edits, text)) edit.replace(doc.uri, toRange(e), e.newText);
+  return edit;
+}

@@ -1,0 +1,75 @@
+// The worker_threads entry (dist/review-worker.js): runs the engine off the extension-host
+// thread, so tokenising a large corpus never freezes the editor. It keeps the last finished
+// session so the panel's what-if toggles are answered without re-reading the corpus.
+import { parentPort } from 'node:worker_threads';
+import { startReview } from '../engine/review/start-review';
+import type { ReviewSession } from '../engine/review/review-api';
+import { isUserError } from '../engine/user-error';
+import { isHostToWorker, type HostToWorker, type WorkerErrorMessage, type WorkerToHost } from './worker-protocol';
+
+interface Running { runId: number; controller: AbortController }
+
+let session: ReviewSession | null = null;
+let running: Running | null = null;
+
+function post(message: WorkerToHost): void {
+  parentPort?.postMessage(message);
+}
+
+function errorMessage(e: unknown, controller: AbortController | null): Omit<WorkerErrorMessage, 'runId' | 'requestId'> {
+  if (isUserError(e)) return { type: 'error', kind: 'user', message: e.message, file: e.file, line: e.line };
+  if (controller?.signal.aborted || (e instanceof Error && e.name === 'AbortError')) {
+    return { type: 'error', kind: 'cancelled', message: 'Review cancelled.', file: null, line: null };
+  }
+  const err = e instanceof Error ? e : new Error(String(e));
+  return { type: 'error', kind: 'internal', message: err.message, file: null, line: null, ...(err.stack ? { stack: err.stack } : {}) };
+}
+
+async function review(runId: number, input: HostToWorker & { type: 'review' }): Promise<void> {
+  running?.controller.abort();
+  const controller = new AbortController();
+  running = { runId, controller };
+  try {
+    const next = await startReview(input.input, {
+      signal: controller.signal,
+      onStage: (stage, fraction) => post({ type: 'stage', runId, stage, fraction }),
+    });
+    if (controller.signal.aborted) throw Object.assign(new Error('aborted'), { name: 'AbortError' });
+    session = next;
+    post({ type: 'report', runId, report: next.report });
+  } catch (e) {
+    post({ ...errorMessage(e, controller), runId });
+  } finally {
+    if (running?.controller === controller) running = null;
+  }
+}
+
+function whatIf(requestId: number, removed: string[]): void {
+  if (session === null) {
+    post({ type: 'error', kind: 'user', message: 'No finished review to ask a what-if of; run "Review distances" first.', file: null, line: null, requestId });
+    return;
+  }
+  try {
+    post({ type: 'whatIfResult', requestId, removed, measures: session.whatIf(removed) });
+  } catch (e) {
+    post({ ...errorMessage(e, null), requestId });
+  }
+}
+
+parentPort?.on('message', (message: unknown) => {
+  if (!isHostToWorker(message)) {
+    post({ type: 'error', kind: 'internal', message: 'The review worker received a message it does not know.', file: null, line: null });
+    return;
+  }
+  switch (message.type) {
+    case 'review':
+      void review(message.runId, message);
+      return;
+    case 'whatIf':
+      whatIf(message.requestId, message.removed);
+      return;
+    case 'cancel':
+      if (running?.runId === message.runId) running.controller.abort();
+      return;
+  }
+});
