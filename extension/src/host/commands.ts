@@ -4,6 +4,7 @@
 import * as vscode from 'vscode';
 import type { HostContext } from './host-context';
 import { openConfig } from './open-config';
+import { COMMAND_IDS } from './pure/contribution-ids';
 import { flaggedTermAt } from './pure/flagged-term-spans';
 
 type CommandFactory = (ctx: HostContext) => (...args: unknown[]) => unknown;
@@ -29,7 +30,7 @@ function termUnderCursor(ctx: HostContext, uri: vscode.Uri): string | null {
 }
 
 export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
-  'loudword.reviewDistances': (ctx) => async (arg?: unknown) => {
+  [COMMAND_IDS.reviewDistances]: (ctx) => async (arg?: unknown) => {
     const uri = asUri(arg) ?? vscode.window.activeTextEditor?.document.uri;
     if (uri === undefined) {
       void vscode.window.showInformationMessage('Loudword: open a corpus (CSV, TSV, JSON Lines or one document per line) first.');
@@ -39,7 +40,7 @@ export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
     await ctx.review(doc, true);
   },
 
-  'loudword.addTermToStopList': (ctx) => async (arg?: unknown, termArg?: unknown) => {
+  [COMMAND_IDS.addTermToStopList]: (ctx) => async (arg?: unknown, termArg?: unknown) => {
     const uri = asUri(arg);
     const review = ctx.reviewFor(uri);
     if (review?.report == null) return noReview();
@@ -53,7 +54,7 @@ export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
     await ctx.addTerms(review, [term]);
   },
 
-  'loudword.addAllSuggested': (ctx) => async (arg?: unknown) => {
+  [COMMAND_IDS.addAllSuggested]: (ctx) => async (arg?: unknown) => {
     const review = ctx.reviewFor(asUri(arg));
     if (review?.report == null) return noReview();
     const open = review.openSuggestions();
@@ -64,11 +65,11 @@ export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
     await ctx.addTerms(review, open);
   },
 
-  'loudword.exportHtmlReport': (ctx) => async (arg?: unknown) => {
+  [COMMAND_IDS.exportHtmlReport]: (ctx) => async (arg?: unknown) => {
     const review = ctx.reviewFor(asUri(arg));
     if (review?.report == null) return noReview();
     await ctx.exportHtml(review);
   },
 
-  'loudword.openConfig': (ctx) => () => openConfig(ctx.extensionUri),
+  [COMMAND_IDS.openConfig]: (ctx) => () => openConfig(ctx.extensionUri),
 };

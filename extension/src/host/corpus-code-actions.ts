@@ -2,6 +2,7 @@
 // terms". Only inside the visible range and with a bounded count, so a million-line corpus
 // costs nothing off screen. The actions run commands; the corpus itself is never edited.
 import * as vscode from 'vscode';
+import { COMMAND_IDS } from './pure/contribution-ids';
 import { planCorpusActions } from './pure/corpus-action-plan';
 import { flaggedTermSpans } from './pure/flagged-term-spans';
 import type { ReviewStore } from './review-store';
@@ -43,10 +44,10 @@ export class CorpusCodeActions implements vscode.CodeActionProvider {
     return planCorpusActions(terms, review.report.suggestions, review.addedSinceReview).map((a) => {
       const action = new vscode.CodeAction(a.title, vscode.CodeActionKind.QuickFix);
       if (a.kind === 'addOne') {
-        action.command = { command: 'loudword.addTermToStopList', title: a.title, arguments: [document.uri, a.term] };
+        action.command = { command: COMMAND_IDS.addTermToStopList, title: a.title, arguments: [document.uri, a.term] };
         action.isPreferred = true;
       } else {
-        action.command = { command: 'loudword.addAllSuggested', title: a.title, arguments: [document.uri] };
+        action.command = { command: COMMAND_IDS.addAllSuggested, title: a.title, arguments: [document.uri] };
       }
       return action;
     });

@@ -5,6 +5,7 @@ import * as vscode from 'vscode';
 import { isWebviewToHost, type HostToWebview, type WebviewToHost } from '../protocol';
 import { panelHtml } from '../html/panel-html';
 import type { CorpusReview } from './corpus-review';
+import { DISTANCE_REVIEW_VIEW_ID } from './pure/contribution-ids';
 import type { ReviewStore } from './review-store';
 
 /** What the page may ask the host to do, for the review it shows. */
@@ -16,7 +17,7 @@ export interface PanelActions {
 
 export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, vscode.Disposable {
   /** Equal to the view id in package.json (contributes.views). */
-  static readonly viewType = 'loudword.distanceReview';
+  static readonly viewType = DISTANCE_REVIEW_VIEW_ID;
 
   private view: vscode.WebviewView | null = null;
   private ready = false;

@@ -1,0 +1,116 @@
+import { strict as assert } from 'node:assert';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import * as path from 'node:path';
+import { ReviewWorkerClient, WorkerFailure } from '../extension/src/worker/review-worker-client';
+import { isHostToWorker, isWorkerToHost } from '../extension/src/worker/worker-protocol';
+
+// The bundled worker, as the extension runs it (npm test builds first).
+const WORKER = path.resolve(__dirname, '..', 'dist', 'review-worker.js');
+
+describe('worker-protocol guards', () => {
+  it('isHostToWorker accepts the three requests and refuses malformed ones', () => {
+    assert.equal(isHostToWorker({ type: 'review', runId: 1, input: { file: 'a.csv' } }), true);
+    assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: ['via'] }), true);
+    assert.equal(isHostToWorker({ type: 'cancel', runId: 1 }), true);
+    assert.equal(isHostToWorker({ type: 'review', runId: 1, input: {} }), false);
+    assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: [3] }), false);
+    assert.equal(isHostToWorker({ type: 'report', runId: 1 }), false);
+    assert.equal(isHostToWorker(null), false);
+  });
+
+  it('isWorkerToHost accepts only worker message types', () => {
+    assert.equal(isWorkerToHost({ type: 'stage', runId: 1, stage: 'reading', fraction: 0 }), true);
+    assert.equal(isWorkerToHost({ type: 'review' }), false);
+  });
+});
+
+// A tiny invented corpus: every document carries the same helpdesk footer ("sent via portal"),
+// and two topics with their own words. Three footer words are in every document, so they
+// carry similarity every pair shares (design.md "loud term"); invented data, no source.
+function corpusCsv(): string {
+  const rows = ['id,message'];
+  const topics = [
+    ['battery', 'drains', 'charger', 'overnight'],
+    ['invoice', 'refund', 'payment', 'twice'],
+    ['sensor', 'display', 'cracked', 'screen'],
+  ];
+  for (let i = 0; i < 30; i++) {
+    const words = topics[i % 3]!;
+    const body = `${words[i % 4]} ${words[(i + 1) % 4]} ${words[(i + 2) % 4]} item${i}`;
+    rows.push(`${i},"${body} sent via portal"`);
+  }
+  return rows.join('\n') + '\n';
+}
+
+describe('review worker round trip (dist/review-worker.js)', function () {
+  let dir = '';
+  let client: ReviewWorkerClient;
+
+  before(function () {
+    assert.ok(existsSync(WORKER), `${WORKER} is missing: run npm run build first`);
+    dir = mkdtempSync(path.join(tmpdir(), 'loudword-host-'));
+    writeFileSync(path.join(dir, 'tickets.csv'), corpusCsv());
+    writeFileSync(path.join(dir, 'stoplist.txt'), '# none yet\nnevermentioned\n');
+    client = new ReviewWorkerClient(WORKER);
+  });
+
+  after(async function () {
+    await client.terminate();
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('ReviewWorkerClient.review reports stages in order and returns the Report', async () => {
+    const stages: string[] = [];
+    const report = await client.review(
+      { file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message', stopList: path.join(dir, 'stoplist.txt'), sample: { documents: 30, k: 3 } } },
+      (stage) => stages.push(stage),
+    );
+    assert.equal(report.input.documents, 30);
+    assert.deepEqual(report.stopList.unused, ['nevermentioned']);
+    assert.equal(stages[0], 'reading');
+    assert.ok(stages.includes('measuring'));
+    // Footer words occur in all 30 documents; a loud-term review should put one of them first.
+    // Source: design.md ("loud term": large share of all-pairs similarity, little neighbour signal).
+    assert.ok(['sent', 'via', 'portal'].includes(report.terms[0]!.term), `first term was ${report.terms[0]!.term}`);
+    assert.equal(client.hasSession, true);
+  });
+
+  it('ReviewWorkerClient.whatIf with nothing removed gives the baseline, with the suggestions gives "suggested"', async function () {
+    const report = await client.review({ file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message', stopList: null, sample: { documents: 30, k: 3 } } });
+    // Source: design.md Report contract — baseline is the current stop list, suggested is
+    // current + suggestions; what-if masks terms on the same session, so both must match.
+    const none = await client.whatIf([]);
+    assert.equal(none.backgroundSimilarity, report.baseline.backgroundSimilarity);
+    const withSuggestions = await client.whatIf(report.suggestions);
+    assert.ok(Math.abs(withSuggestions.backgroundSimilarity - report.suggested.backgroundSimilarity) < 1e-12);
+    if (report.suggestions.length > 0) assert.ok(withSuggestions.backgroundSimilarity < none.backgroundSimilarity);
+  });
+
+  it('ReviewWorkerClient.review turns a broken loudword.json into a user failure with file and line', async () => {
+    const config = path.join(dir, 'loudword.json');
+    writeFileSync(config, '{\n  "text": "message",\n  "sample": { "documents": "many" }\n}\n');
+    await assert.rejects(client.review({ file: path.join(dir, 'tickets.csv'), configPath: config }), (e: unknown) => {
+      assert.ok(e instanceof WorkerFailure);
+      assert.equal(e.kind, 'user');
+      assert.equal(e.file, config);
+      assert.equal(e.line, 3);
+      return true;
+    });
+    // A failed review leaves the previous session answering what-ifs.
+    assert.equal(typeof (await client.whatIf([])).backgroundSimilarity, 'number');
+  });
+
+  it('ReviewWorkerClient.review rejects a missing corpus as a user failure naming it', async () => {
+    const missing = path.join(dir, 'missing.csv');
+    await assert.rejects(client.review({ file: missing, configPath: null }), (e: unknown) => e instanceof WorkerFailure && e.kind === 'user' && e.file === missing);
+  });
+
+  it('ReviewWorkerClient.review rejects as cancelled and stops the worker when aborted', async () => {
+    const controller = new AbortController();
+    const pending = client.review({ file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message' } }, () => controller.abort(), controller.signal);
+    await assert.rejects(pending, (e: unknown) => e instanceof WorkerFailure && e.kind === 'cancelled');
+    assert.equal(client.hasSession, false);
+    await assert.rejects(client.whatIf([]), (e: unknown) => e instanceof WorkerFailure && e.kind === 'user');
+  });
+});
