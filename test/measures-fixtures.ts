@@ -1,6 +1,7 @@
 // Builders of small test matrices for the measures' tests (no module under test here).
 import type { Csr } from '../extension/src/engine/matrix/csr';
 import { standardNormal } from '../extension/src/engine/random/gaussian';
+import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { distancesFromGram } from '../extension/src/engine/measures/gram-distances';
 import { sampleSimilarities } from '../extension/src/engine/measures/sample-similarity';
 
@@ -25,10 +26,10 @@ export function denseToCsr(rows: number[][], cols = rows[0]?.length ?? 0): Csr {
 export function randomUnitRows(random: () => number, n: number, cols: number, density: number, emptyEvery = 0): number[][] {
   const rows: number[][] = [];
   for (let r = 0; r < n; r++) {
-    const row = new Array<number>(cols).fill(0);
+    const row: number[] = new Array<number>(cols).fill(0);
     if (!(emptyEvery > 0 && r % emptyEvery === emptyEvery - 1)) {
       for (let c = 0; c < cols; c++) if (random() < density) row[c] = random();
-      if (row.every((v) => v === 0)) row[Math.floor(random() * cols)] = 1;
+      if (!row.some((v) => v !== 0)) row[Math.floor(random() * cols)] = 1;
       const norm = Math.hypot(...row);
       for (let c = 0; c < cols; c++) row[c]! /= norm;
     }
@@ -101,4 +102,39 @@ export function embeddedCube(random: () => number, n: number, d: number, ambient
     }
   }
   return out;
+}
+
+const cubeCache = new Map<string, Float64Array>();
+
+/**
+ * Distances of n points uniform in the unit d-cube rotated into `ambient` dimensions, computed
+ * once per process: the TwoNN and MLE checks share them.
+ */
+export function cubeDistances(d: number, n = 2000, ambient = 100, seed = 40): Float64Array {
+  const key = `${d}/${n}/${ambient}/${seed}`;
+  let dist = cubeCache.get(key);
+  if (dist === undefined) {
+    dist = euclideanDistances(embeddedCube(mulberry32(seed + d), n, d, ambient), n, ambient);
+    cubeCache.set(key, dist);
+  }
+  return dist;
+}
+
+/** Distances of n points uniform on the flat d-torus [0, 1)^d (wrap-around, no boundary). */
+export function torusDistances(random: () => number, n: number, d: number): Float64Array {
+  const x = new Float64Array(n * d);
+  for (let i = 0; i < x.length; i++) x[i] = random();
+  const dist = new Float64Array(n * n);
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      let s = 0;
+      for (let c = 0; c < d; c++) {
+        let diff = Math.abs(x[a * d + c]! - x[b * d + c]!);
+        if (diff > 0.5) diff = 1 - diff;
+        s += diff * diff;
+      }
+      dist[a * n + b] = dist[b * n + a] = Math.sqrt(s);
+    }
+  }
+  return dist;
 }
