@@ -1,6 +1,7 @@
 import { strict as assert } from 'node:assert';
 import { buildCountMatrix } from '../extension/src/engine/matrix/build-count-matrix';
 import type { CountMatrix, Csr } from '../extension/src/engine/matrix/csr';
+import { maskTerms } from '../extension/src/engine/matrix/mask-terms';
 import { pruneTerms } from '../extension/src/engine/matrix/prune-terms';
 import { weigh, type WeightingSettings } from '../extension/src/engine/matrix/weigh';
 import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
@@ -59,6 +60,11 @@ describe('weighting against scikit-learn (Debian fortunes)', function () {
   let answer: SklearnAnswer;
   let stopAnswer: SklearnAnswer;
   const stopTerms = new Set(['the', 'of', 'and', 'to', 'you', 'zzz-not-in-corpus']);
+  const maskVariants: WeightingSettings[] = [
+    { tf: 'raw', idf: 'smooth', norm: 'l2' },
+    { tf: 'sublinear', idf: 'plainPlusOne', norm: 'l1' },
+    { tf: 'binary', idf: 'smooth', norm: 'l2' },
+  ];
 
   before(async () => {
     requireSklearn();
@@ -69,7 +75,7 @@ describe('weighting against scikit-learn (Debian fortunes)', function () {
     answer = runSklearn(docs, variants.map(sklearnVariant), prunes.map((p) => p.sk));
     // scikit-learn drops stop words while analysing; with a pass-through analyzer we drop them here.
     const stoppedDocs = docs.map((d) => d.filter((t) => !stopTerms.has(t)));
-    stopAnswer = runSklearn(stoppedDocs, [], prunes.map((p) => p.sk));
+    stopAnswer = runSklearn(stoppedDocs, maskVariants.map(sklearnVariant), prunes.map((p) => p.sk));
   });
 
   it('buildCountMatrix has CountVectorizer\'s vocabulary order and counts', () => {
@@ -111,6 +117,27 @@ describe('weighting against scikit-learn (Debian fortunes)', function () {
       assert.equal(pruned.stopped, stopTerms.size - 1);
       assert.deepEqual(pruned.unusedStopTerms, ['zzz-not-in-corpus']);
       assert.equal(pruned.stopped + pruned.prunedByDf + pruned.counts.cols, counts.cols);
+    });
+  }
+
+  for (const [i, w] of maskVariants.entries()) {
+    it(`maskTerms on ${w.tf}/${w.idf}/${w.norm} weights equals TfidfVectorizer on the corpus without those terms`, () => {
+      const { weights } = weigh(counts, w);
+      const masked = maskTerms(weights, Uint8Array.from(counts.terms, (t) => (stopTerms.has(t) ? 1 : 0)), w.norm);
+      const theirs = stopAnswer.variants[i]!;
+      const column = new Map(theirs.vocabulary.map((t, j) => [t, j]));
+      let compared = 0;
+      for (let r = 0; r < counts.rows; r++) {
+        const s = masked.indptr[r]!;
+        assert.equal(masked.indptr[r + 1]! - s, theirs.indptr[r + 1]! - theirs.indptr[r]!, `row ${r} length`);
+        for (let k = s; k < masked.indptr[r + 1]!; k++) {
+          const kk = theirs.indptr[r]! + (k - s);
+          assert.equal(column.get(counts.terms[masked.indices[k]!]!), theirs.indices[kk]);
+          assert.ok(Math.abs(masked.data[k]! - theirs.data[kk]!) <= TOLERANCE, `row ${r}`);
+          compared++;
+        }
+      }
+      assert.ok(compared > 0 && masked.data.length < weights.data.length);
     });
   }
 

@@ -1,5 +1,5 @@
 import type { Csr } from './csr';
-import { normalizeRows } from './normalize-rows';
+import { normalizeRow } from './normalize-rows';
 
 /** Preallocated arrays for maskTerms: indptr of rows + 1, indices and data of at least nnz. */
 export interface CsrBuffers {
@@ -9,7 +9,7 @@ export interface CsrBuffers {
 }
 
 /**
- * The what-if: `weights` without the columns marked 1 in `removed`, each row renormalised, in
+ * The what-if: `weights` without the columns marked non-zero (1) in `removed`, each row renormalised, in
  * one O(nnz) pass and no re-tokenising. Columns keep their ids (removed ones are just empty).
  *
  * Renormalising the already normalised row gives the same as weighting the recounted corpus:
@@ -37,14 +37,19 @@ export function maskTerms(weights: Csr, removed: Uint8Array, norm: 'l2' | 'l1' |
   let at = 0;
   indptr[0] = 0;
   for (let r = 0; r < rows; r++) {
+    const s = srcIndptr[r];
     const e = srcIndptr[r + 1];
-    for (let k = srcIndptr[r]; k < e; k++) {
+    const rowStart = at;
+    for (let k = s; k < e; k++) {
       const c = srcIndices[k];
-      if (removed[c] === 1) continue;
+      if (removed[c] !== 0) continue;
       indices[at] = c;
       data[at++] = srcData[k];
     }
     indptr[r + 1] = at;
+    // A row that lost nothing is already normalised: leave its bits alone, so masking nothing
+    // returns exactly the input.
+    if (at - rowStart !== e - s && norm !== 'none') normalizeRow(data, rowStart, at, norm);
   }
   const result: Csr = {
     rows,
@@ -53,6 +58,5 @@ export function maskTerms(weights: Csr, removed: Uint8Array, norm: 'l2' | 'l1' |
     indices: indices.length === at ? indices : indices.subarray(0, at),
     data: data.length === at ? data : data.subarray(0, at),
   };
-  normalizeRows(result.indptr, result.data, rows, norm);
   return result;
 }
