@@ -13,19 +13,24 @@ export function neighborStandout(sims: Float64Array, m: number, valid: Uint8Arra
   for (let i = 0; i < m; i++) {
     if (!valid[i] || Number.isNaN(nearest[i])) continue;
     let sum = 0;
-    let sumSq = 0;
     let n = 0;
     const base = i * m;
     for (let j = 0; j < m; j++) {
       if (j === i || !valid[j]) continue;
-      const s = sims[base + j];
-      sum += s;
-      sumSq += s * s;
+      sum += sims[base + j];
       n++;
     }
     if (n < 2) continue;
     const mean = sum / n;
-    const variance = Math.max(0, sumSq / n - mean * mean);
+    // Two passes: Σs² − n·mean² cancels badly when a query's similarities are (nearly) equal,
+    // and would turn rounding noise into a huge z-score.
+    let sumSq = 0;
+    for (let j = 0; j < m; j++) {
+      if (j === i || !valid[j]) continue;
+      const dev = sims[base + j] - mean;
+      sumSq += dev * dev;
+    }
+    const variance = sumSq / n;
     const sd = Math.sqrt(variance);
     // Relative guard: a spread at rounding level is no spread.
     if (!(sd > 1e-12 * Math.max(1, Math.abs(mean)))) continue;
