@@ -13,6 +13,17 @@ function asUri(value: unknown): vscode.Uri | undefined {
   return value instanceof vscode.Uri ? value : typeof value === 'string' && value.includes(':') ? vscode.Uri.parse(value) : undefined;
 }
 
+/**
+ * The active editor's resource; else the active tab's, which also covers a file too large
+ * for the editor to hand to extensions (it has a tab but no TextEditor).
+ */
+function activeResource(): vscode.Uri | undefined {
+  const editorUri = vscode.window.activeTextEditor?.document.uri;
+  if (editorUri !== undefined) return editorUri;
+  const input = vscode.window.tabGroups.activeTabGroup.activeTab?.input;
+  return input instanceof vscode.TabInputText ? input.uri : undefined;
+}
+
 function noReview(): void {
   void vscode.window.showInformationMessage('Loudword: run "Review distances" on a corpus first.');
 }
@@ -31,13 +42,12 @@ function termUnderCursor(ctx: HostContext, uri: vscode.Uri): string | null {
 
 export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
   [COMMAND_IDS.reviewDistances]: (ctx) => async (arg?: unknown) => {
-    const uri = asUri(arg) ?? vscode.window.activeTextEditor?.document.uri;
+    const uri = asUri(arg) ?? activeResource();
     if (uri === undefined) {
       void vscode.window.showInformationMessage('Loudword: open a corpus (CSV, TSV, JSON Lines or one document per line) first.');
       return;
     }
-    const doc = await vscode.workspace.openTextDocument(uri);
-    await ctx.review(doc, true);
+    await ctx.review(uri, true);
   },
 
   [COMMAND_IDS.addTermToStopList]: (ctx) => async (arg?: unknown, termArg?: unknown) => {

@@ -18,6 +18,8 @@ export class CorpusReview implements vscode.Disposable {
   /** Terms added to the stop list since the Report was made: no longer offered or underlined. */
   readonly addedSinceReview = new Set<string>();
   private running: AbortController | null = null;
+  /** Set when the corpus's document closed; a new review clears it. */
+  closed = false;
 
   constructor(readonly uri: vscode.Uri, workerFile: string) {
     this.client = new ReviewWorkerClient(workerFile);
@@ -43,16 +45,17 @@ export class CorpusReview implements vscode.Disposable {
    * Runs a review with a cancellable progress notification. A review already running for this
    * corpus is cancelled first (its worker is stopped). Rejects with WorkerFailure.
    */
-  async run(doc: vscode.TextDocument, onStage: (stage: ReviewStage | null) => void): Promise<Report> {
+  async run(doc: vscode.TextDocument | undefined, onStage: (stage: ReviewStage | null) => void): Promise<Report> {
     this.cancel();
+    this.closed = false;
     const controller = new AbortController();
     this.running = controller;
     try {
-      const prepared = await prepareReview(doc);
+      const prepared = await prepareReview(this.uri, doc);
       this.expectedStopList = prepared.stopListPath;
       this.configDir = prepared.configPath === null ? prepared.workspaceRoot : path.dirname(prepared.configPath);
       const report = await vscode.window.withProgress(
-        { location: vscode.ProgressLocation.Notification, title: `Loudword: reviewing ${path.basename(doc.fileName)}`, cancellable: true },
+        { location: vscode.ProgressLocation.Notification, title: `Loudword: reviewing ${path.basename(this.uri.path)}`, cancellable: true },
         (progress, token) => {
           const sub = token.onCancellationRequested(() => controller.abort());
           let done = 0;
@@ -82,6 +85,7 @@ export class CorpusReview implements vscode.Disposable {
 
   /** Stops the worker (document closed); the Report stays readable. */
   stopWorker(): void {
+    this.closed = true;
     this.cancel();
     void this.client.terminate('The corpus was closed; run "Review distances" again for what-ifs.', 'user');
   }

@@ -46,9 +46,9 @@ export function activate(context: vscode.ExtensionContext): void {
     vscode.workspace.onDidSaveTextDocument((doc) => {
       for (const review of reviewsTouchedBySave(store, doc)) {
         if (!reviewOnSave(review.uri)) continue;
-        const corpus = vscode.workspace.textDocuments.find((d) => d.uri.toString() === review.uri.toString());
-        if (corpus === undefined) continue; // closed corpora are not re-read behind the user's back
-        onSave.schedule(review.uri.toString(), () => void ctx.review(corpus, false));
+        // Closed corpora (worker stopped) are not re-read behind the user's back.
+        if (review.closed) continue;
+        onSave.schedule(review.uri.toString(), () => void ctx.review(review.uri, false));
       }
     }),
   );

@@ -17,9 +17,13 @@ export class HostContext {
     readonly store: ReviewStore,
   ) {}
 
-  /** Reviews `doc`; errors become messages, never exceptions (the host must not crash). */
-  async review(doc: vscode.TextDocument, reveal: boolean): Promise<CorpusReview | null> {
-    const review = this.store.getOrCreate(doc.uri);
+  /**
+   * Reviews the corpus at `uri` (its open document's text when unsaved); errors become
+   * messages, never exceptions (the host must not crash).
+   */
+  async review(uri: vscode.Uri, reveal: boolean): Promise<CorpusReview | null> {
+    const doc = vscode.workspace.textDocuments.find((d) => d.uri.toString() === uri.toString());
+    const review = this.store.getOrCreate(uri);
     try {
       await review.run(doc, (stage) => this.panel?.busy(stage));
       this.store.focus(review);

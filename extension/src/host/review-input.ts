@@ -73,20 +73,26 @@ export function confineForRestrictedMode(workspaceRoot: string | null, paths: Re
   }
 }
 
-export async function prepareReview(doc: vscode.TextDocument): Promise<PreparedReview> {
-  const workspaceRoot = workspaceRootOf(doc.uri);
-  const corpusFile = doc.uri.scheme === 'file' ? doc.uri.fsPath : path.join(workspaceRoot ?? process.cwd(), doc.fileName);
-  const configPath = doc.uri.scheme === 'file' || workspaceRoot !== null
-    ? await findConfig(doc.uri.scheme === 'file' ? corpusFile : path.join(workspaceRoot ?? '', 'corpus'), workspaceRoot)
+/**
+ * `doc` is the open document when the editor holds one; a file too large for the editor to
+ * sync to extensions has none and is read from disk by the worker.
+ */
+export async function prepareReview(uri: vscode.Uri, doc: vscode.TextDocument | undefined): Promise<PreparedReview> {
+  const workspaceRoot = workspaceRootOf(uri);
+  const onDisk = uri.scheme === 'file';
+  const corpusFile = onDisk ? uri.fsPath : path.join(workspaceRoot ?? process.cwd(), path.basename(uri.path));
+  const configPath = onDisk || workspaceRoot !== null
+    ? await findConfig(onDisk ? corpusFile : path.join(workspaceRoot ?? '', 'corpus'), workspaceRoot)
     : null;
   const configJson = await readConfigJson(configPath);
-  const overrides = editorOverrides(editorDefaults(doc.uri), configJson, workspaceRoot ?? path.dirname(corpusFile));
+  const overrides = editorOverrides(editorDefaults(uri), configJson, workspaceRoot ?? path.dirname(corpusFile));
   const stopListPath = expectedStopListPath(configPath, configJson, overrides);
 
   if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRoot, [configPath, stopListPath], configPath);
 
   const input: ReviewInput = { file: corpusFile, configPath, overrides };
-  if (doc.isDirty || doc.isUntitled) input.text = doc.getText();
+  if (doc !== undefined && (doc.isDirty || doc.isUntitled || !onDisk)) input.text = doc.getText();
+  else if (!onDisk) throw new WorkerFailure('This document is neither on disk nor open in the editor; save it to a file first.', 'user');
   if (stopListPath !== null) {
     const stopDoc = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && sameFile(d.uri.fsPath, stopListPath));
     if (stopDoc?.isDirty) input.stopListText = stopDoc.getText();

@@ -53,9 +53,11 @@ export class StopListDiagnostics implements vscode.Disposable {
 
   async refreshAll(): Promise<void> {
     const files = new Set(this.store.all().map((r) => (r.report === null ? null : r.stopListPath)).filter((p): p is string => p !== null));
+    const stale: vscode.Uri[] = [];
     this.collection.forEach((uri) => {
-      if (!files.has(uri.fsPath)) this.collection.delete(uri);
+      if (!files.has(uri.fsPath)) stale.push(uri);
     });
+    for (const uri of stale) this.collection.delete(uri);
     for (const file of files) {
       const uri = vscode.Uri.file(file);
       const open = vscode.workspace.textDocuments.find((d) => d.uri.toString() === uri.toString());
