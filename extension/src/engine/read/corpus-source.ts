@@ -21,6 +21,11 @@ export interface ReadOptions {
   labelField?: string | null;
   /** Stop reading after this many bytes and say so in `truncated`. */
   maxBytes?: number;
+  /**
+   * Bytes (characters for in-memory text) per read; default 1 MiB. Tests set it small so records,
+   * quotes, CRLF pairs and multi-byte characters fall across chunk boundaries.
+   */
+  chunkBytes?: number;
 }
 
 /**

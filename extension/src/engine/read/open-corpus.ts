@@ -7,7 +7,7 @@ import { ChunkDecoder } from './chunk-decoder';
 import { BINARY_PROBE_BYTES, detectEncoding } from './detect-encoding';
 import { NewlineNormalizer } from './newline-normalizer';
 import { checkPass, createRowSink, type PassState } from './row-stream';
-import { fileTextChunks, memoryTextChunks } from './text-chunks';
+import { CHUNK_BYTES, fileTextChunks, memoryTextChunks } from './text-chunks';
 import { completeUtf8Length } from './utf8-boundary';
 
 /** Bytes read at open time to detect encoding, format and fields (about DETECT_ROWS rows of most corpora). */
@@ -42,7 +42,8 @@ export async function openCorpus(file: string, options: ReadOptions = {}): Promi
   const baseNotes = encoding.note === null ? [] : [encoding.note];
   const layout = detectLayout(file, head, headIsAll, options);
   const cut = end < size ? { bytesRead: end, limitBytes: limitBytes as number } : null;
-  return new StreamedCorpus(file, layout, baseNotes, cut, (notes) => fileTextChunks(file, encoding, end, notes));
+  const chunkBytes = checkChunkBytes(options.chunkBytes);
+  return new StreamedCorpus(file, layout, baseNotes, cut, (notes) => fileTextChunks(file, encoding, end, notes, chunkBytes));
 }
 
 /**
@@ -69,7 +70,8 @@ export function openCorpusFromText(file: string, text: string, options: ReadOpti
   const headSource = body.charCodeAt(0) === 0xfeff ? body.slice(1, headChars + 1) : body.slice(0, headChars);
   const head = new NewlineNormalizer().push(headSource, headIsAll);
   const layout = detectLayout(file, head, headIsAll, options);
-  return new StreamedCorpus(file, layout, [], cut, () => memoryTextChunks(body));
+  const chunkChars = checkChunkBytes(options.chunkBytes);
+  return new StreamedCorpus(file, layout, [], cut, () => memoryTextChunks(body, chunkChars));
 }
 
 type ChunkSource = (notes: string[]) => AsyncIterable<string> | Iterable<string>;
@@ -144,4 +146,10 @@ function checkMaxBytes(maxBytes: number | undefined): number | null {
   if (maxBytes === undefined) return null;
   if (!Number.isInteger(maxBytes) || maxBytes < 1) throw new RangeError(`maxBytes must be a positive integer, got ${maxBytes}`);
   return maxBytes;
+}
+
+function checkChunkBytes(chunkBytes: number | undefined): number {
+  if (chunkBytes === undefined) return CHUNK_BYTES;
+  if (!Number.isInteger(chunkBytes) || chunkBytes < 1) throw new RangeError(`chunkBytes must be a positive integer, got ${chunkBytes}`);
+  return chunkBytes;
 }

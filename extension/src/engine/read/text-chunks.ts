@@ -7,11 +7,17 @@ import { NewlineNormalizer } from './newline-normalizer';
 export const CHUNK_BYTES = 1024 * 1024;
 
 /** LF-normalised text of bytes [bom, end) of a file, decoded chunk by chunk. */
-export async function* fileTextChunks(file: string, encoding: DetectedEncoding, end: number, notes: string[]): AsyncGenerator<string> {
+export async function* fileTextChunks(
+  file: string,
+  encoding: DetectedEncoding,
+  end: number,
+  notes: string[],
+  chunkBytes = CHUNK_BYTES,
+): AsyncGenerator<string> {
   const decoder = new ChunkDecoder(encoding.encoding, encoding.bomLength);
   const newlines = new NewlineNormalizer();
   if (end > encoding.bomLength) {
-    const stream = createReadStream(file, { start: encoding.bomLength, end: end - 1, highWaterMark: CHUNK_BYTES });
+    const stream = createReadStream(file, { start: encoding.bomLength, end: end - 1, highWaterMark: chunkBytes });
     try {
       for await (const chunk of stream as AsyncIterable<Buffer>) {
         const text = newlines.push(decoder.decode(chunk, false), false);
