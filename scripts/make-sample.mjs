@@ -26,6 +26,11 @@ const footers = [
   'Sent from the Tallowby web portal',
   '',
 ];
+// The legal footer some customers' mail servers append: long, identical, and about nothing.
+const disclaimers = [
+  'This email and any files transmitted with it are confidential and intended solely for the use of the individual to whom they are addressed. If you have received this email in error please notify the sender and delete it from your system.',
+  'CONFIDENTIALITY NOTICE: the contents of this message are private and may be legally privileged. Any unauthorised use, copying or distribution is prohibited. Please consider the environment before printing this email.',
+];
 const names = ['Priya', 'Tom', 'Agnes', 'Marek', 'Lena', 'Oluwaseun', 'Hiro', 'Carmen', 'Dave', 'Ines', 'Bjorn', 'Fatima', 'Sam', 'Noor'];
 const devices = ['the Tallowby Hub', 'my thermostat', 'the Tallowby Dial', 'the radiator valve', 'the Tallowby Hub mini', 'my room sensor'];
 const rooms = ['kitchen', 'living room', 'bedroom', 'hallway', 'bathroom', 'office', 'nursery', 'loft'];
@@ -80,9 +85,13 @@ const topics = {
   ],
 };
 
+const topicNames = Object.keys(topics);
+
 function ticket(topic, i) {
   const body = [pick(topics[topic])()];
-  if (chance(0.55)) body.push(pick(topics[topic])());
+  if (chance(0.4)) body.push(pick(topics[topic])());
+  // Real inboxes mix subjects: one ticket in eight also mentions another topic in passing.
+  if (chance(0.12)) body.push(pick(topics[pick(topicNames)])());
   if (chance(0.35)) body.push(pick(['I have already tried restarting everything.', 'This is urgent as it is very cold.', 'I have attached a photo.', 'My order number is in the previous email.', 'Please call me back.']));
   const parts = [];
   if (chance(0.85)) parts.push(pick(greetings));
@@ -92,10 +101,10 @@ function ticket(topic, i) {
   const ref = `Ref TB-${10000 + i}`;
   // A third of the messages keep their line breaks (quoted multi-line CSV fields).
   const sep = chance(0.33) ? '\n' : ' ';
-  return [...parts, close, footer, chance(0.6) ? ref : ''].filter(Boolean).join(sep);
+  const legal = chance(0.3) ? pick(disclaimers) : '';
+  return [...parts, close, footer, chance(0.6) ? ref : '', legal].filter(Boolean).join(sep);
 }
 
-const topicNames = Object.keys(topics);
 const rows = ['id,received,topic,message'];
 const csvCell = (s) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
 for (let i = 0; i < 3000; i++) {

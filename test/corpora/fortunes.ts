@@ -1,0 +1,44 @@
+import { existsSync, readFileSync } from 'node:fs';
+import * as path from 'node:path';
+
+/**
+ * Debian's `fortunes` package as a labelled corpus: one category per file under
+ * /usr/share/games/fortunes, entries separated by lines holding a single '%'.
+ * Source: the Debian package `fortunes` (fortune-mod data files), installed by apt.
+ */
+export const FORTUNES_DIR = '/usr/share/games/fortunes';
+
+/** Categories with a few hundred entries each, mostly prose (not ASCII art). */
+export const FORTUNE_CATEGORIES = ['computers', 'food', 'law', 'love', 'medicine', 'politics', 'science', 'sports', 'work', 'education', 'pets', 'literature'];
+
+export interface Fortune {
+  text: string;
+  category: string;
+}
+
+export function fortunesAvailable(): boolean {
+  return existsSync(path.join(FORTUNES_DIR, 'computers'));
+}
+
+export function readFortunes(categories: readonly string[] = FORTUNE_CATEGORIES, maxPerCategory = Infinity): Fortune[] {
+  if (!fortunesAvailable()) {
+    throw new Error(`${FORTUNES_DIR} is missing: install the Debian package "fortunes" (apt-get install fortunes)`);
+  }
+  const out: Fortune[] = [];
+  for (const category of categories) {
+    const raw = readFileSync(path.join(FORTUNES_DIR, category), 'latin1');
+    const entries = raw
+      .split(/\r?\n%\r?\n/)
+      .map((e) => e.replace(/\s+/g, ' ').trim())
+      .filter((e) => e.length > 0 && e !== '%');
+    for (const text of entries.slice(0, maxPerCategory)) out.push({ text, category });
+  }
+  return out;
+}
+
+/** The corpus as JSON Lines with keys "text" and "category". */
+export function fortunesJsonl(categories?: readonly string[], maxPerCategory?: number): string {
+  return readFortunes(categories, maxPerCategory)
+    .map((f) => JSON.stringify(f))
+    .join('\n') + '\n';
+}
