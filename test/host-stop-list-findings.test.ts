@@ -76,7 +76,7 @@ describe('stopListFindings', () => {
       ['boiler', 'neighborSignal', 5],
     ]);
     assert.match(findings[0]!.message, /never occurs in tickets\.csv/);
-    assert.match(findings[1]!.message, /neighbour lift 1\.50/);
+    assert.match(findings[1]!.message, /neighbour lift 1\.25 ≥ 1\.25/);
   });
 
   it('stopListFindings ignores a null neighbour lift and a kept term with high lift', () => {

@@ -56,7 +56,7 @@ export class HostContext {
       }
       const open = 'Open Stop List';
       const what = added.length === 1 ? `'${added[0]}'` : `${added.length} terms`;
-      void vscode.window.showInformationMessage(`Loudword: added ${what} to ${name} (unsaved; undo with Ctrl+Z in that file).`, open).then(async (choice) => {
+      void vscode.window.showInformationMessage(`Loudword: added ${what} to ${name} (unsaved; Undo in that file reverts it).`, open).then(async (choice) => {
         if (choice === open) await vscode.window.showTextDocument(stopList, { preview: false });
       });
       return added;

@@ -53,6 +53,7 @@ export class ReviewWorkerClient {
         f(...a);
       };
       this.runs.set(runId, { resolve: settle(resolve), reject: settle(reject), onStage });
+      this.updateRef();
       this.send(worker, { type: 'review', runId, input });
     });
   }
@@ -63,6 +64,7 @@ export class ReviewWorkerClient {
     const requestId = this.nextId++;
     return new Promise<Measures>((resolve, reject) => {
       this.whatIfs.set(requestId, { resolve, reject });
+      this.updateRef();
       this.send(worker, { type: 'whatIf', requestId, removed: [...removed] });
     });
   }
@@ -92,10 +94,19 @@ export class ReviewWorkerClient {
       this.sessionReady = false;
       this.rejectAll(new WorkerFailure(`The review worker stopped unexpectedly (exit code ${code}).`, 'internal'));
     });
-    // The host must be free to exit while a worker idles with a session in memory.
-    worker.unref();
     this.worker = worker;
+    this.updateRef();
     return worker;
+  }
+
+  /**
+   * Keeps the process alive while an answer is awaited, and lets it exit while the worker only
+   * idles with a session in memory.
+   */
+  private updateRef(): void {
+    if (this.worker === null) return;
+    if (this.runs.size + this.whatIfs.size > 0) this.worker.ref();
+    else this.worker.unref();
   }
 
   private send(worker: Worker, message: HostToWorker): void {
@@ -104,7 +115,14 @@ export class ReviewWorkerClient {
 
   private receive(message: unknown): void {
     if (!isWorkerToHost(message)) return;
-    const m: WorkerToHost = message;
+    try {
+      this.dispatch(message);
+    } finally {
+      this.updateRef();
+    }
+  }
+
+  private dispatch(m: WorkerToHost): void {
     switch (m.type) {
       case 'stage':
         this.runs.get(m.runId)?.onStage?.(m.stage, m.fraction);
