@@ -19,6 +19,8 @@ export interface CorpusLayout {
   textIndex: number;
   labelIndex: number;
   notes: string[];
+  /** Data rows the detection saw; 0 with an incomplete head means a longer head may help. */
+  sampled: number;
 }
 
 /**
@@ -50,7 +52,7 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
       if (options.textField != null || options.labelField != null) {
         notes.push('plain text has one document per line and no fields: the text and label settings were ignored');
       }
-      return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, notes };
+      return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, notes, sampled: 1 };
   }
 }
 
@@ -94,6 +96,7 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
     textIndex: fields.indexOf(textField),
     labelIndex: labelField === null ? -1 : fields.indexOf(labelField),
     notes: [],
+    sampled: sample.length,
   };
 }
 
@@ -138,7 +141,7 @@ function jsonlLayout(file: string, head: string, headComplete: boolean, options:
   if (textField === null) {
     throw new UserError(`found no key with text; name one with the text setting (keys: ${list(fields)})`, file, null);
   }
-  return { format: 'jsonl', delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, notes: [] };
+  return { format: 'jsonl', delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, notes: [], sampled: sample.length };
 }
 
 /** A head holding one record longer than itself has no sample: take the first candidate field rather than fail. */

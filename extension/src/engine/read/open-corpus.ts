@@ -12,6 +12,8 @@ import { completeUtf8Length } from './utf8-boundary';
 
 /** Bytes read at open time to detect encoding, format and fields (about DETECT_ROWS rows of most corpora). */
 export const HEAD_BYTES = 1024 * 1024;
+/** The head grows up to this when its first records are longer than HEAD_BYTES. */
+export const MAX_HEAD_BYTES = 64 * 1024 * 1024;
 export const DEFAULT_BATCH_SIZE = 1000;
 
 /**
@@ -32,18 +34,36 @@ export async function openCorpus(file: string, options: ReadOptions = {}): Promi
   }
   if (size === 0) throw new UserError('the file is empty', file, null);
   const end = limitBytes === null ? size : Math.min(size, limitBytes);
-  const headBytes = await readHead(file, Math.min(end, Math.max(HEAD_BYTES, BINARY_PROBE_BYTES)));
-  const headIsAll = headBytes.length >= end;
-  const encoding = detectEncoding(headBytes, file, headIsAll && end === size);
-  if (size <= encoding.bomLength) throw new UserError('the file is empty (only a byte-order mark)', file, null);
+  let headLength = Math.min(end, Math.max(HEAD_BYTES, BINARY_PROBE_BYTES));
+  for (;;) {
+    const headBytes = await readHead(file, headLength);
+    const headIsAll = headBytes.length >= end;
+    const encoding = detectEncoding(headBytes, file, headIsAll && end === size);
+    if (size <= encoding.bomLength) throw new UserError('the file is empty (only a byte-order mark)', file, null);
+    const decoder = new ChunkDecoder(encoding.encoding, encoding.bomLength);
+    const head = new NewlineNormalizer().push(decoder.decode(headBytes.subarray(encoding.bomLength), headIsAll), headIsAll);
+    const mayGrow = !headIsAll && headLength < MAX_HEAD_BYTES;
+    const layout = tryLayout(file, head, headIsAll, mayGrow, options);
+    // A head that ends inside the first records (very long documents) says too little: read more.
+    if (layout === null || (layout.sampled === 0 && mayGrow)) {
+      headLength = Math.min(end, headLength * 8, MAX_HEAD_BYTES);
+      continue;
+    }
+    const baseNotes = encoding.note === null ? [] : [encoding.note];
+    const cut = end < size ? { bytesRead: end, limitBytes: limitBytes as number } : null;
+    const chunkBytes = checkChunkBytes(options.chunkBytes);
+    return new StreamedCorpus(file, layout, baseNotes, cut, (notes) => fileTextChunks(file, encoding, end, notes, chunkBytes));
+  }
+}
 
-  const decoder = new ChunkDecoder(encoding.encoding, encoding.bomLength);
-  const head = new NewlineNormalizer().push(decoder.decode(headBytes.subarray(encoding.bomLength), headIsAll), headIsAll);
-  const baseNotes = encoding.note === null ? [] : [encoding.note];
-  const layout = detectLayout(file, head, headIsAll, options);
-  const cut = end < size ? { bytesRead: end, limitBytes: limitBytes as number } : null;
-  const chunkBytes = checkChunkBytes(options.chunkBytes);
-  return new StreamedCorpus(file, layout, baseNotes, cut, (notes) => fileTextChunks(file, encoding, end, notes, chunkBytes));
+/** Layout of a head, or null when a head cut short could not show a complete record yet. */
+function tryLayout(file: string, head: string, headIsAll: boolean, mayGrow: boolean, options: ReadOptions): CorpusLayout | null {
+  try {
+    return detectLayout(file, head, headIsAll, options);
+  } catch (e) {
+    if (mayGrow && e instanceof UserError && /^no documents|^found no/.test(e.message)) return null;
+    throw e;
+  }
 }
 
 /**

@@ -1,0 +1,268 @@
+import assert from 'node:assert/strict';
+import { mkdtempSync, mkdirSync, rmSync, writeFileSync, createWriteStream } from 'node:fs';
+import { tmpdir } from 'node:os';
+import * as path from 'node:path';
+import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
+import { openCorpus, openCorpusFromText } from '../extension/src/engine/read/open-corpus';
+import { UserError } from '../extension/src/engine/user-error';
+
+// Robustness: each case asserts a defined result, or a UserError that names the file and line.
+
+let cases = 0;
+let dir: string;
+
+async function readAll(source: CorpusSource): Promise<CorpusRow[]> {
+  const rows: CorpusRow[] = [];
+  for await (const batch of source.batches()) rows.push(...batch);
+  return rows;
+}
+
+async function fileRows(name: string, content: string | Uint8Array, options: ReadOptions = {}): Promise<{ source: CorpusSource; rows: CorpusRow[] }> {
+  const file = path.join(dir, name);
+  writeFileSync(file, content);
+  const source = await openCorpus(file, options);
+  return { source, rows: await readAll(source) };
+}
+
+/** Runs `fn` and checks it fails with a UserError naming `file`, the line (when given) and the words. */
+async function rejectsUserError(fn: () => Promise<unknown>, file: string, line: number | null, words: RegExp): Promise<UserError> {
+  try {
+    await fn();
+  } catch (e) {
+    assert.ok(e instanceof UserError, `expected a UserError, got ${String(e)}`);
+    assert.equal(path.basename(e.file ?? ''), path.basename(file));
+    assert.equal(e.line, line);
+    assert.match(e.message, words);
+    return e;
+  }
+  assert.fail('expected a UserError');
+}
+
+describe('reader bad input', () => {
+  before(() => {
+    dir = mkdtempSync(path.join(tmpdir(), 'loudword-bad-'));
+  });
+  after(() => {
+    rmSync(dir, { recursive: true, force: true });
+    console.log(`      reader bad-input cases run: ${cases}`);
+  });
+  afterEach(() => cases++);
+
+  it('openCorpus: an unclosed quote is a UserError on the line where the quote opened', async () => {
+    // Source: RFC 4180 §2 rule 6/7 — a quoted field runs to its closing quote.
+    const file = path.join(dir, 'unclosed.csv');
+    writeFileSync(file, 'id,text\n1,fine\n2,"never closed\n3,more\n4,rows\n');
+    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 3, /unclosed quote.*line 3/);
+  });
+
+  it('openCorpus: an unclosed quote found only after many chunks still names its line', async () => {
+    const file = path.join(dir, 'unclosed-late.csv');
+    const good = Array.from({ length: 2000 }, (_, i) => `${i},document number ${i}`).join('\n');
+    writeFileSync(file, `id,text\n${good}\n2000,"open\n2001,x\n`);
+    await rejectsUserError(async () => readAll(await openCorpus(file, { chunkBytes: 4096 })), file, 2002, /unclosed quote/);
+  });
+
+  it('openCorpus: a quote closed only by text, never by a delimiter or line end, at the end of the file is unclosed', async () => {
+    const file = path.join(dir, 'badquote-end.csv');
+    writeFileSync(file, 'id,text\n1,ok one\n2,"abc"def\n');
+    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 3, /unclosed quote/);
+  });
+
+  it('openCorpus: a malformed quote (text after the closing quote) skips that record with its line', async () => {
+    // papaparse keeps looking for a proper closing quote, so the bad record runs to line 4.
+    const { rows, source } = await fileRows('badquote.csv', 'id,text\n1,ok one\n2,"abc"def\n3,"x"\n4,ok four\n');
+    assert.deepEqual(rows.map((r) => r.line), [2, 5]);
+    assert.equal(source.skipped.count, 1);
+    assert.equal(source.skipped.examples[0]?.line, 3);
+    assert.match(source.skipped.examples[0]?.reason ?? '', /malformed quote/);
+  });
+
+  it('openCorpus: ragged rows (too few, too many fields) are skipped with line and reason, and counted', async () => {
+    const { rows, source } = await fileRows('ragged.csv', 'id,text,label\n1,good row,a\n2,short\n3,long,b,extra\n4,also good,b\n');
+    assert.deepEqual(rows.map((r) => [r.line, r.text]), [[2, 'good row'], [5, 'also good']]);
+    assert.equal(source.skipped.count, 2);
+    assert.deepEqual(source.skipped.examples, [
+      { line: 3, reason: '2 fields where the header has 3' },
+      { line: 4, reason: '4 fields where the header has 3' },
+    ]);
+  });
+
+  it('openCorpus: a .csv written with semicolons is read with the sniffed delimiter', async () => {
+    const { rows, source } = await fileRows('semi.csv', 'id;text;label\n1;"a, b and c";x\n2;d e;y\n', { labelField: 'label' });
+    assert.equal(source.delimiter, ';');
+    assert.deepEqual(rows.map((r) => r.text), ['a, b and c', 'd e']);
+  });
+
+  it('openCorpus: mixed delimiters (comma header, semicolon rows) give "no documents" naming the first bad line', async () => {
+    const file = path.join(dir, 'mixed.csv');
+    writeFileSync(file, 'id,text,label\n1;hello;a\n2;bye;b\n');
+    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 2, /no documents.*1 field where the header has 3/);
+  });
+
+  it('openCorpus: format tsv forced on a comma file reads one column, whole lines as text', async () => {
+    const { rows, source } = await fileRows('forced.tsv', 'id,text\n1,hello there\n', { format: 'tsv' });
+    assert.deepEqual(source.fields, ['id,text']);
+    assert.deepEqual(rows, [{ text: '1,hello there', label: null, line: 2 }]);
+  });
+
+  it('openCorpus: mixed CRLF/LF/CR line endings keep editor line numbers', async () => {
+    const { rows } = await fileRows('endings.csv', 'id,text\r\n1,one\n2,"two\r\nlines"\r3,three\r\n');
+    assert.deepEqual(rows.map((r) => [r.line, r.text]), [[2, 'one'], [3, 'two\nlines'], [5, 'three']]);
+  });
+
+  it('openCorpus: a UTF-8 BOM is not part of the first header name', async () => {
+    // Source: Unicode standard — the UTF-8 encoding of U+FEFF is EF BB BF.
+    const bytes = Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from('id,text\n1,héllo\n', 'utf8')]);
+    const { rows, source } = await fileRows('bom.csv', bytes);
+    assert.deepEqual(source.fields, ['id', 'text']);
+    assert.equal(rows[0]?.text, 'héllo');
+  });
+
+  it('openCorpus: UTF-16 LE with BOM FF FE is decoded', async () => {
+    // Source: Unicode standard — byte-order mark FF FE = UTF-16 little-endian.
+    const bytes = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from('id,text\n1,naïve 日本\n', 'utf16le')]);
+    const { rows } = await fileRows('le.csv', bytes, { chunkBytes: 3 });
+    assert.deepEqual(rows, [{ text: 'naïve 日本', label: null, line: 2 }]);
+  });
+
+  it('openCorpus: UTF-16 BE with BOM FE FF is decoded', async () => {
+    // Source: Unicode standard — byte-order mark FE FF = UTF-16 big-endian.
+    const le = Buffer.from('\uFEFFid,text\n1,naïve 😀\n', 'utf16le');
+    const be = Buffer.from(le).swap16();
+    const { rows } = await fileRows('be.csv', be, { chunkBytes: 5 });
+    assert.deepEqual(rows, [{ text: 'naïve 😀', label: null, line: 2 }]);
+  });
+
+  it('openCorpus: Latin-1 (windows-1252) bytes are decoded as windows-1252 with a note', async () => {
+    // Source: Python's cp1252 codec — b'\x93caf\xe9\x94 \x80'.decode('cp1252') == '“café” €'
+    // (checked with /usr/bin/python3).
+    const bytes = Buffer.from([...Buffer.from('id,text\n1,'), 0x93, 0x63, 0x61, 0x66, 0xe9, 0x94, 0x20, 0x80, 0x0a]);
+    const { rows, source } = await fileRows('latin1.csv', bytes);
+    assert.equal(rows[0]?.text, '\u201ccaf\u00e9\u201d \u20ac');
+    assert.match((source.notes ?? []).join(' '), /not valid UTF-8.*windows-1252/);
+  });
+
+  it('openCorpus: Latin-1 bytes after the head (past 1 MiB of ASCII) switch decoding mid-stream with a note', async () => {
+    const ascii = 'id,text\n1,short\n' + 'x,' + 'a'.repeat(1100 * 1024) + '\n';
+    const bytes = Buffer.concat([Buffer.from(ascii), Buffer.from([0x32, 0x2c, 0x63, 0x61, 0x66, 0xe9, 0x0a])]);
+    const { rows, source } = await fileRows('latin1-late.csv', bytes);
+    assert.equal(rows[2]?.text, 'café');
+    assert.match((source.notes ?? []).join(' '), /from byte offset \d+.*windows-1252/);
+  });
+
+  it('openCorpus: a NUL byte without a UTF-16 BOM is "looks like a binary file"', async () => {
+    const file = path.join(dir, 'binary.csv');
+    writeFileSync(file, Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x00, 0x08, 0x00]));
+    await rejectsUserError(() => openCorpus(file, {}), file, null, /looks like a binary file/);
+  });
+
+  it('openCorpus: an empty file, and a BOM-only file, are UserErrors', async () => {
+    const empty = path.join(dir, 'empty.csv');
+    writeFileSync(empty, '');
+    await rejectsUserError(() => openCorpus(empty, {}), empty, null, /empty/);
+    const bomOnly = path.join(dir, 'bom-only.txt');
+    writeFileSync(bomOnly, Buffer.from([0xef, 0xbb, 0xbf]));
+    await rejectsUserError(() => openCorpus(bomOnly, {}), bomOnly, null, /empty/);
+  });
+
+  it('openCorpus: a file of blank lines has no documents', async () => {
+    const file = path.join(dir, 'blank.txt');
+    writeFileSync(file, '\n  \r\n\t\n');
+    await rejectsUserError(() => openCorpus(file, {}), file, null, /no documents/);
+  });
+
+  it('openCorpus: a header-only CSV is "no documents" on the header line', async () => {
+    const file = path.join(dir, 'header.csv');
+    writeFileSync(file, 'id,text,label\n');
+    await rejectsUserError(() => openCorpus(file, {}), file, 1, /no documents/);
+  });
+
+  it('openCorpus: a single document is read', async () => {
+    const { rows } = await fileRows('one.csv', 'text\nonly one\n');
+    assert.deepEqual(rows, [{ text: 'only one', label: null, line: 2 }]);
+  });
+
+  it('openCorpus: a missing file and a folder are UserErrors', async () => {
+    const missing = path.join(dir, 'nope.csv');
+    await rejectsUserError(() => openCorpus(missing, {}), missing, null, /ENOENT/);
+    const folder = path.join(dir, 'folder.csv');
+    mkdirSync(folder);
+    await rejectsUserError(() => openCorpus(folder, {}), folder, null, /not a file/);
+  });
+
+  it('openCorpus: an unknown text field lists the available fields', async () => {
+    const file = path.join(dir, 'fields.csv');
+    writeFileSync(file, 'id,Body\n1,x\n');
+    const e = await rejectsUserError(() => openCorpus(file, { textField: 'body' }), file, 1, /no text field "body"/);
+    assert.match(e.message, /did you mean "Body".*"id", "Body"/);
+  });
+
+  it('openCorpus: JSON Lines with a few broken lines skips them with line and reason', async () => {
+    // Source: jsonlines.org — each line is a valid JSON value.
+    const { rows, source } = await fileRows('some-broken.jsonl', '{"text":"one"}\n{"text": "two"\n{"text":"three"}\n[1,2]\n{"text":"four"}\n');
+    assert.deepEqual(rows.map((r) => r.line), [1, 3, 5]);
+    assert.equal(source.skipped.count, 2);
+    assert.equal(source.skipped.examples[0]?.line, 2);
+    assert.match(source.skipped.examples[0]?.reason ?? '', /not valid JSON/);
+    assert.match(source.skipped.examples[1]?.reason ?? '', /array, not an object/);
+  });
+
+  it('openCorpus: JSON Lines where most lines are broken is a UserError naming the first bad line', async () => {
+    const file = path.join(dir, 'mostly-broken.jsonl');
+    writeFileSync(file, '{"text":"ok"}\nnot json\nstill not\n{"text":\n');
+    await rejectsUserError(() => openCorpus(file, {}), file, 2, /3 of the first 4 lines.*first bad line 2/);
+  });
+
+  it('openCorpus: JSON Lines with a nested text value skips it with a reason', async () => {
+    const { rows, source } = await fileRows('nested.jsonl', '{"text":{"en":"hi"}}\n{"text":"plain"}\n{"text":42}\n', { textField: 'text' });
+    assert.deepEqual(rows.map((r) => r.text), ['plain', '42']);
+    assert.match(source.skipped.examples[0]?.reason ?? '', /nested values are not supported/);
+  });
+
+  it('openCorpus: maxBytes on a file cuts it at a record boundary and reports truncated', async () => {
+    const { rows, source } = await fileRows('cut.txt', 'first doc\nsecond doc\nthird doc\n', { maxBytes: 15 });
+    assert.deepEqual(rows.map((r) => r.text), ['first doc']);
+    assert.deepEqual(source.truncated, { bytesRead: 15, limitBytes: 15 });
+  });
+
+  it('openCorpus: a 50 MB single line is one document (text) and finishes', async function () {
+    this.timeout(120000);
+    const file = path.join(dir, 'long.txt');
+    await writeLongLine(file, 'word ', 50 * 1024 * 1024, '');
+    const source = await openCorpus(file, {});
+    let count = 0;
+    let length = 0;
+    for await (const batch of source.batches()) for (const row of batch) {
+      count++;
+      length = row.text.length;
+    }
+    assert.equal(count, 1);
+    assert.equal(length, 50 * 1024 * 1024);
+    rmSync(file);
+  });
+
+  it('openCorpus: a 50 MB CSV line without a line break is a header and "no documents"', async function () {
+    this.timeout(120000);
+    const file = path.join(dir, 'long.csv');
+    await writeLongLine(file, 'a,b,', 50 * 1024 * 1024, '');
+    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 1, /no documents/);
+    rmSync(file);
+  });
+
+  it('openCorpusFromText: a NUL character is refused as binary', () => {
+    assert.throws(() => openCorpusFromText('buf.txt', 'abc\0def', {}), (e: unknown) => e instanceof UserError && /binary/.test(e.message) && e.file === 'buf.txt');
+  });
+});
+
+async function writeLongLine(file: string, unit: string, bytes: number, end: string): Promise<void> {
+  const out = createWriteStream(file);
+  const block = unit.repeat(Math.floor((1024 * 1024) / unit.length));
+  let left = bytes;
+  while (left > 0) {
+    const piece = left >= block.length ? block : block.slice(0, left);
+    left -= piece.length;
+    if (!out.write(piece)) await new Promise<void>((r) => out.once('drain', () => r()));
+  }
+  out.end(end);
+  await new Promise<void>((r) => out.once('finish', () => r()));
+}
