@@ -83,7 +83,7 @@ export function similarityConfig(baseline: Setting, current: Setting, theme: Cha
       interaction: { mode: 'nearest', intersect: false },
       scales: {
         x: { ...axis(theme, 'cosine similarity'), type: 'linear', min: Math.min(b.start, c.start), ticks: { ...axis(theme, '').ticks, maxTicksLimit: 8 } },
-        y: { ...axis(theme, 'share of documents or pairs'), beginAtZero: true, ticks: { ...axis(theme, '').ticks, callback: (v) => formatShare(Number(v)) } },
+        y: { ...axis(theme, 'share'), beginAtZero: true, ticks: { ...axis(theme, '').ticks, callback: (v) => formatShare(Number(v)) } },
       },
       plugins: {
         ...common(theme).plugins,

@@ -41,10 +41,10 @@ export function formatShare(value: number | null | undefined): string {
   return `${withMinus(text)}%`;
 }
 
-/** A ratio such as neighbour lift: 0.42×. */
+/** A ratio such as neighbour lift, two decimals below 10: 0.42×, 2.31×, 14.2×. */
 export function formatRatio(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return NO_VALUE;
-  return `${formatNumber(value)}×`;
+  return `${Math.abs(value) < 10 ? formatFixed(value, 2) : formatNumber(value)}×`;
 }
 
 /** Fixed decimals (idf, spread). */

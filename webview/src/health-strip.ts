@@ -17,25 +17,69 @@ export interface StripInput {
 export function renderHealthStrip(input: StripInput): HTMLElement {
   const legend = el('p', { className: 'lw-strip__legend' }, [
     el('span', { className: 'lw-key lw-key--baseline', text: 'baseline' }),
-    el('span', { className: 'lw-arrow', text: '→', attrs: { 'aria-hidden': 'true' } }),
+    arrow(),
     el('span', { className: 'lw-key', text: `with ${plural(input.suggestedCount, 'suggested term')}` }),
-    input.selection
-      ? el('span', { className: 'lw-arrow', text: '→', attrs: { 'aria-hidden': 'true' } })
-      : null,
+    input.selection ? arrow() : null,
     input.selection ? el('span', { className: 'lw-key', text: `your selection (${plural(input.selection.removedCount, 'term')})` }) : null,
     input.pending ? el('span', { className: 'lw-pending', text: 'updating…', attrs: { role: 'status' } }) : null,
   ]);
-  const primary = el('div', { className: 'lw-strip__primary' });
-  const secondary = el('div', { className: 'lw-strip__secondary' });
-  for (const spec of measureCatalog) {
-    (spec.primary ? primary : secondary).append(renderTile(spec, input));
-  }
-  return el('div', { className: 'lw-strip', attrs: { 'data-pending': input.pending } }, [legend, primary, secondary]);
+  const primary = el('div', { className: `lw-strip__primary${input.selection ? ' lw-strip--three' : ''}` });
+  for (const spec of measureCatalog) if (spec.primary) primary.append(renderTile(spec, input));
+  return el('div', { className: 'lw-strip', attrs: { 'data-pending': input.pending } }, [legend, primary, renderMeasureTable(input)]);
 }
 
+/** The headline measures: one tile each, values large. */
 function renderTile(spec: MeasureSpec, input: StripInput): HTMLElement {
   const labelId = uniqueId('lw-m');
   const meaningId = uniqueId('lw-d');
+  return el(
+    'div',
+    {
+      className: 'lw-tile',
+      attrs: { role: 'group', tabindex: 0, title: spec.meaning, 'aria-labelledby': labelId, 'aria-describedby': meaningId, 'data-measure': spec.id },
+    },
+    [
+      el('div', { className: 'lw-tile__label', text: spec.label, attrs: { id: labelId } }),
+      el('div', { className: 'lw-tile__values' }, valueChain(spec, input)),
+      el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
+    ],
+  );
+}
+
+/** The other measures: a compact table with aligned columns, one row per measure. */
+function renderMeasureTable(input: StripInput): HTMLElement {
+  const head = el('tr', {}, [
+    el('th', { text: 'Measure', attrs: { scope: 'col' } }),
+    el('th', { className: 'lw-num', text: 'Baseline', attrs: { scope: 'col' } }),
+    el('th', { className: 'lw-num', text: 'Suggested', attrs: { scope: 'col' } }),
+    input.selection ? el('th', { className: 'lw-num', text: 'Selection', attrs: { scope: 'col' } }) : null,
+  ]);
+  const body = el('tbody');
+  for (const spec of measureCatalog) {
+    if (spec.primary) continue;
+    const meaningId = uniqueId('lw-d');
+    const base = spec.value(input.baseline);
+    const sug = spec.value(input.suggested);
+    const detailSource = input.selection?.measures ?? input.suggested;
+    const detail = spec.detail ? spec.detail(detailSource) : null;
+    const sel = input.selection ? spec.value(input.selection.measures) : null;
+    body.append(
+      el('tr', { attrs: { tabindex: 0, title: spec.meaning, 'aria-describedby': meaningId, 'data-measure': spec.id } }, [
+        el('th', { attrs: { scope: 'row' } }, [
+          el('span', { text: spec.label }),
+          detail ? el('span', { className: 'lw-measures__detail', text: detail }) : null,
+          el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
+        ]),
+        el('td', { className: 'lw-num' }, [valueSpan(spec, 'baseline', base, null, null)]),
+        el('td', { className: 'lw-num' }, [valueSpan(spec, 'suggested', sug, base, verdict(spec, base, sug), 'with suggestions')]),
+        input.selection ? el('td', { className: 'lw-num' }, [valueSpan(spec, 'selection', sel, base, verdict(spec, base, sel), 'your selection')]) : null,
+      ]),
+    );
+  }
+  return el('table', { className: 'lw-measures', attrs: { 'aria-label': 'More distance measures' } }, [el('thead', {}, [head]), body]);
+}
+
+function valueChain(spec: MeasureSpec, input: StripInput): Child[] {
   const base = spec.value(input.baseline);
   const values: Child[] = [valueSpan(spec, 'baseline', base, null, null)];
   const sug = spec.value(input.suggested);
@@ -44,28 +88,7 @@ function renderTile(spec: MeasureSpec, input: StripInput): HTMLElement {
     const sel = spec.value(input.selection.measures);
     values.push(arrow(), valueSpan(spec, 'selection', sel, base, verdict(spec, base, sel), 'your selection'));
   }
-  const detailSource = input.selection?.measures ?? input.suggested;
-  const detail = spec.detail ? spec.detail(detailSource) : null;
-  return el(
-    'div',
-    {
-      className: `lw-tile${spec.primary ? ' lw-tile--primary' : ''}`,
-      attrs: {
-        role: 'group',
-        tabindex: 0,
-        title: spec.meaning,
-        'aria-labelledby': labelId,
-        'aria-describedby': meaningId,
-        'data-measure': spec.id,
-      },
-    },
-    [
-      el('div', { className: 'lw-tile__label', text: spec.label, attrs: { id: labelId } }),
-      el('div', { className: 'lw-tile__values' }, values),
-      detail ? el('div', { className: 'lw-tile__detail', text: detail }) : null,
-      el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
-    ],
-  );
+  return values;
 }
 
 function arrow(): HTMLElement {

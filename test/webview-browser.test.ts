@@ -1,0 +1,404 @@
+// The panel bundle in headless Chromium: the standalone report (Report embedded in the page)
+// and the editor panel (acquireVsCodeApi stubbed, messages posted by hand). Fixture Reports
+// are invented UI data (test/fixtures/report-*.json); the expected strings below are the
+// fixture's numbers written out by hand with the panel's rounding (about three significant
+// digits, shares as percentages — common practice, no source).
+import assert from 'node:assert/strict';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { build } from 'esbuild';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { panelHtml } from '../extension/src/html/panel-html';
+import { loadWebviewAssets, renderStandaloneReport, type WebviewAssets } from '../extension/src/html/standalone-report';
+import type { Measures, Report, TermRow } from '../extension/src/protocol';
+
+// Globals of the page, used only inside evaluate callbacks (they run in Chromium, not in Node).
+declare const document: { querySelectorAll(s: string): { length: number }; body: { classList: { add(c: string): void } }; documentElement: { style: { setProperty(k: string, v: string): void } } };
+declare const window: { postMessage(m: unknown, origin: string): void; scrollTo(x: number, y: number): void } & Record<string, unknown>;
+declare function getComputedStyle(e: unknown): { backgroundColor: string };
+type InputLike = { checked: boolean; disabled: boolean; closest(s: string): { getAttribute(a: string): string | null } | null };
+
+const root = join(__dirname, '..');
+const shots = join(root, 'test', 'e2e', 'screenshots');
+const fixture = (name: string): Report => JSON.parse(readFileSync(join(__dirname, 'fixtures', name), 'utf8')) as Report;
+
+// VS Code "Dark Modern" theme colours, for screenshots that look like the editor (from memory).
+const vscodeDark: Record<string, string> = {
+  '--vscode-font-family': 'system-ui, "Ubuntu", "Droid Sans", sans-serif',
+  '--vscode-font-size': '13px',
+  '--vscode-editor-font-family': '"Droid Sans Mono", "monospace", monospace',
+  '--vscode-foreground': '#cccccc',
+  '--vscode-editor-background': '#1f1f1f',
+  '--vscode-descriptionForeground': '#9d9d9d',
+  '--vscode-panel-border': '#2b2b2b',
+  '--vscode-editorWidget-background': '#202020',
+  '--vscode-list-hoverBackground': '#2a2d2e',
+  '--vscode-focusBorder': '#0078d4',
+  '--vscode-input-background': '#313131',
+  '--vscode-input-foreground': '#cccccc',
+  '--vscode-input-border': '#3c3c3c',
+  '--vscode-button-background': '#0078d4',
+  '--vscode-button-foreground': '#ffffff',
+  '--vscode-button-hoverBackground': '#026ec1',
+  '--vscode-button-secondaryBackground': '#313131',
+  '--vscode-button-secondaryForeground': '#cccccc',
+  '--vscode-charts-blue': '#3794ff',
+  '--vscode-charts-orange': '#d18616',
+  '--vscode-charts-red': '#f14c4c',
+  '--vscode-charts-green': '#89d185',
+  '--vscode-charts-purple': '#b180d7',
+  '--vscode-errorForeground': '#f85149',
+  '--vscode-editorWarning-foreground': '#cca700',
+};
+
+describe('webview in Chromium', function () {
+  this.timeout(30000);
+  let browser: Browser;
+  let dist: string;
+  let assets: WebviewAssets;
+
+  before(async () => {
+    dist = mkdtempSync(join(tmpdir(), 'lw-webview-'));
+    // Same options as scripts/build.mjs uses for the browser entry.
+    await build({ entryPoints: [join(root, 'webview/src/main.ts')], bundle: true, outfile: join(dist, 'webview.js'), platform: 'browser', format: 'iife', target: 'es2022', logLevel: 'warning' });
+    copyFileSync(join(root, 'webview/src/panel.css'), join(dist, 'webview.css'));
+    assets = loadWebviewAssets(dist);
+    mkdirSync(shots, { recursive: true });
+    browser = await chromium.launch({
+      executablePath: '/usr/bin/chromium',
+      args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+    });
+  });
+
+  after(async () => {
+    await shared?.page.close();
+    await browser?.close();
+    if (dist) rmSync(dist, { recursive: true, force: true });
+  });
+
+  /** Console lines that mention CSP, and uncaught page errors, for the whole page's life. */
+  function watch(page: Page): { csp: string[]; errors: string[]; dialogs: string[] } {
+    const seen = { csp: [] as string[], errors: [] as string[], dialogs: [] as string[] };
+    page.on('console', (m) => {
+      if (/Content Security Policy/i.test(m.text())) seen.csp.push(m.text());
+    });
+    page.on('pageerror', (e) => seen.errors.push(e.message));
+    page.on('dialog', (d) => {
+      seen.dialogs.push(d.message());
+      void d.dismiss();
+    });
+    return seen;
+  }
+
+  // One page serves every standalone test: setContent replaces the whole document each time.
+  let shared: { page: Page; seen: ReturnType<typeof watch> } | null = null;
+  async function openStandalone(report: Report, opts: { colorScheme?: 'light' | 'dark' } = {}) {
+    if (!shared) {
+      const page = await browser.newPage({ viewport: { width: 1200, height: 900 } });
+      shared = { page, seen: watch(page) };
+    }
+    const { page, seen } = shared;
+    for (const list of Object.values(seen)) list.length = 0;
+    await page.emulateMedia({ colorScheme: opts.colorScheme ?? 'light' });
+    await page.setContent(renderStandaloneReport(report, assets));
+    await page.waitForSelector('.lw-tile');
+    return { page, seen };
+  }
+
+  const stripValue = (page: Page, measure: string, role: string) =>
+    page.locator(`[data-measure="${measure}"] [data-role="${role}"]`).textContent();
+  const rowTerms = (page: Page) => page.locator('.lw-table tbody tr').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-term')));
+
+  describe('standalone report', () => {
+    it('shows each measure baseline → with suggestions, formatted from the Report', async () => {
+      const { page, seen } = await openStandalone(fixture('report-small.json'));
+      // Fixture: backgroundSimilarity 0.2143 → 0.0871, neighborStandout 2.61 → 3.94, hubness skewness
+      // 1.84 → 1.07, labelPrecisionAtK 0.742 → 0.811, top10 0.512 → 0.236, hubs 37 → 19, iid 212 → 96.4.
+      const expected: Array<[string, string, string]> = [
+        ['backgroundSimilarity', '0.214', '0.0871'],
+        ['neighborStandout', '2.61', '3.94'],
+        ['hubnessSkewness', '1.84', '1.07'],
+        ['labelPrecisionAtK', '74.2%', '81.1%'],
+        ['topTermsMassTop10', '51.2%', '23.6%'],
+        ['hubs', '37', '19'],
+        ['iidEquivalentDimension', '212', '96.4'],
+        ['contrastMedian', '0.645', '0.383'],
+        ['neighborTurnover', '—', '28.6%'],
+      ];
+      for (const [measure, baseline, suggested] of expected) {
+        assert.equal(await stripValue(page, measure, 'baseline'), baseline, `${measure} baseline`);
+        assert.equal(await stripValue(page, measure, 'suggested'), suggested, `${measure} suggested`);
+      }
+      // Lower background similarity and higher standout are improvements; relative contrast gets no verdict.
+      const verdictOf = (m: string) => page.locator(`[data-measure="${m}"] .lw-v--suggested`).getAttribute('data-verdict');
+      assert.equal(await verdictOf('backgroundSimilarity'), 'better');
+      assert.equal(await verdictOf('neighborStandout'), 'better');
+      assert.equal(await verdictOf('contrastMedian'), 'neutral');
+      // Every tile carries its meaning for hover and for assistive technology.
+      const tile = page.locator('[data-measure="backgroundSimilarity"]');
+      assert.match((await tile.getAttribute('title')) ?? '', /Mean cosine similarity over all document pairs/);
+      const describedBy = await tile.getAttribute('aria-describedby');
+      assert.match((await page.locator(`#${describedBy}`).textContent()) ?? '', /Mean cosine similarity/);
+      assert.deepEqual(seen.csp, []);
+      assert.deepEqual(seen.errors, []);
+      await page.screenshot({ path: join(shots, 'standalone-light.png'), fullPage: true });
+    });
+
+    it('lists the terms in loudness order, sorts by a header, filters by status and by text', async () => {
+      const report = fixture('report-small.json');
+      const { page } = await openStandalone(report);
+      const byLoudness = [...report.terms].sort((a, b) => b.loudness - a.loudness).map((t) => t.term);
+      assert.deepEqual(await rowTerms(page), byLoudness);
+      assert.equal(await page.locator('th.lw-col-loudness').getAttribute('aria-sort'), 'descending');
+
+      // df, first click: high to low; Enter on the focused header button: low to high.
+      await page.click('button[data-sort="df"]');
+      const byDf = [...report.terms].sort((a, b) => b.df - a.df || report.terms.indexOf(a) - report.terms.indexOf(b)).map((t) => t.term);
+      assert.deepEqual(await rowTerms(page), byDf);
+      assert.equal(await page.locator('th.lw-col-df').getAttribute('aria-sort'), 'descending');
+      await page.focus('button[data-sort="df"]');
+      await page.keyboard.press('Enter');
+      assert.equal(await page.locator('th.lw-col-df').getAttribute('aria-sort'), 'ascending');
+      assert.equal((await rowTerms(page))[0], 'warehouse', 'df 22 is the smallest in the fixture');
+
+      await page.selectOption('select.lw-select', 'suggested');
+      assert.deepEqual((await rowTerms(page)).sort(), [...report.suggestions].sort());
+
+      await page.selectOption('select.lw-select', 'all');
+      await page.fill('input[type=search]', 'PASS');
+      await page.waitForFunction(() => document.querySelectorAll('.lw-table tbody tr').length === 1);
+      assert.deepEqual(await rowTerms(page), ['password']);
+    });
+
+    it('disables the what-if toggles with a note, keeps suggested ones shown as checked, lists hubs as text', async () => {
+      const report = fixture('report-small.json');
+      const { page } = await openStandalone(report);
+      assert.match((await page.locator('.lw-hint--standalone').textContent()) ?? '', /What-if needs the editor/);
+      const boxes = await page.locator('.lw-table tbody input[type=checkbox]').evaluateAll((xs) =>
+        xs.map((x) => ({ term: (x as unknown as InputLike).closest('tr')!.getAttribute('data-term'), checked: (x as unknown as InputLike).checked, disabled: (x as unknown as InputLike).disabled })),
+      );
+      assert.ok(boxes.every((b) => b.disabled));
+      const checked = boxes.filter((b) => b.checked).map((b) => b.term);
+      const expectChecked = report.terms.filter((t) => t.status === 'suggested' || t.status === 'stopped').map((t) => t.term);
+      assert.deepEqual(checked.sort(), expectChecked.sort());
+      assert.equal(await page.locator('button', { hasText: 'Add checked terms' }).count(), 0);
+
+      const hubs = await page.locator('.lw-hub').evaluateAll((xs) => xs.map((x) => [x.tagName, x.querySelector('.lw-hub__line')!.textContent, x.querySelector('.lw-hub__k')!.textContent]));
+      assert.deepEqual(
+        hubs,
+        report.hubs.map((h) => ['DIV', `line ${h.line}`, `in ${h.kOccurrence} lists`]),
+      );
+      // Four charts drawn on canvases that chart.js sized.
+      const sizes = await page.locator('.lw-chart canvas').evaluateAll((cs) => cs.map((c) => (c as unknown as { width: number }).width));
+      assert.equal(sizes.length, 4);
+      assert.ok(sizes.every((w) => w > 100), `canvas widths ${sizes.join(',')}`);
+    });
+
+    it('renders hostile terms, previews and file names as text and runs none of them', async () => {
+      const bad = fixture('report-payloads.json');
+      const { page, seen } = await openStandalone(bad);
+      await page.waitForTimeout(200); // let any onerror/onload a payload could trigger fire
+      assert.equal(await page.evaluate(() => (window as unknown as { __lwPwned?: number }).__lwPwned), undefined);
+      assert.deepEqual(seen.dialogs, []);
+      assert.equal(await page.locator('img, svg, iframe, object').count(), 0);
+      assert.equal(await page.locator('script').count(), 2, 'the JSON element and the bundle, nothing injected');
+      assert.equal(await page.locator('style').count(), 1);
+      // The strings come back exactly as text.
+      const shownTerms = await page.locator('.lw-table tbody .lw-term').allTextContents();
+      for (const t of bad.terms.slice(0, 7)) assert.ok(shownTerms.includes(t.term), `term shown as text: ${t.term}`);
+      assert.equal(await page.locator('.lw-file').textContent(), bad.input.file);
+      const previews = await page.locator('.lw-hub__preview').allTextContents();
+      assert.deepEqual(previews, bad.hubs.map((h) => h.preview));
+      assert.ok(await page.locator('body').isVisible(), 'a CSS payload did not hide the page');
+      assert.deepEqual(seen.csp, []);
+      assert.deepEqual(seen.errors, []);
+    });
+
+    it('shows 500 rows of a 20,000-term report and 500 more on request', async () => {
+      const report = fixture('report-small.json');
+      const many: TermRow[] = Array.from({ length: 20000 }, (_, i) => ({
+        term: `term${String(i).padStart(5, '0')}`,
+        df: 1 + (i % 900),
+        idf: 1 + (i % 50) / 10,
+        pullShare: 1 / (i + 50),
+        neighborLift: i % 7 === 0 ? null : 0.5 + (i % 30) / 10,
+        spread: (i % 100) / 100,
+        loudness: 20000 - i,
+        status: 'kept',
+        why: 'invented row',
+      }));
+      const { page } = await openStandalone({ ...report, terms: many, suggestions: [] });
+      assert.equal(await page.locator('.lw-table tbody tr').count(), 500);
+      assert.match((await page.locator('.lw-count').textContent()) ?? '', /^500 of 20,000 terms/);
+      await page.click('button.lw-more');
+      assert.equal(await page.locator('.lw-table tbody tr').count(), 1000);
+      assert.equal(await page.locator('.lw-table tbody tr').nth(999).getAttribute('data-term'), 'term00999');
+    });
+
+    it('follows a dark colour scheme preference', async () => {
+      const { page } = await openStandalone(fixture('report-small.json'), { colorScheme: 'dark' });
+      const bg = await page.evaluate(() => getComputedStyle(document.body).backgroundColor);
+      const [r, g, b] = (bg.match(/\d+/g) ?? []).map(Number);
+      assert.ok(r! + g! + b! < 3 * 80, `dark background, got ${bg}`);
+      await page.screenshot({ path: join(shots, 'standalone-dark.png'), fullPage: true });
+    });
+  });
+
+  describe('editor panel', () => {
+    const origin = 'https://loudword.test';
+
+    /** Serves the panel shell and the bundle from one fake origin, like the webview resource host. */
+    async function openPanel(opts: { width?: number; dark?: boolean; state?: unknown } = {}) {
+      const context = await browser.newContext({ viewport: { width: opts.width ?? 1100, height: 900 } });
+      const page = await context.newPage();
+      const seen = watch(page);
+      const html = panelHtml({ cspSource: origin, nonce: 'dGVzdG5vbmNlLTEyMzQ1Njc4', scriptUri: `${origin}/dist/webview.js`, styleUri: `${origin}/dist/webview.css` });
+      await page.route(`${origin}/**`, async (route) => {
+        const path = new URL(route.request().url()).pathname;
+        if (path === '/panel.html') return route.fulfill({ contentType: 'text/html', body: html });
+        if (path === '/dist/webview.js') return route.fulfill({ contentType: 'text/javascript', body: assets.js });
+        if (path === '/dist/webview.css') return route.fulfill({ contentType: 'text/css', body: assets.css });
+        return route.fulfill({ status: 404, body: '' });
+      });
+      // A stand-in for VS Code's acquireVsCodeApi: records posts and keeps state like the editor does.
+      // (A string, not a function: the test's TypeScript transform would add helpers the page lacks.)
+      await page.addInitScript(`(() => {
+        window.__posted = [];
+        window.__state = ${JSON.stringify(opts.state ?? null)};
+        window.acquireVsCodeApi = () => ({
+          postMessage: (m) => window.__posted.push(JSON.parse(JSON.stringify(m))),
+          getState: () => window.__state,
+          setState: (s) => { window.__state = JSON.parse(JSON.stringify(s)); },
+        });
+      })();`);
+      await page.goto(`${origin}/panel.html`);
+      await page.waitForFunction(() => (window as unknown as { __posted: Array<{ type: string }> }).__posted.some((m) => m.type === 'ready'));
+      if (opts.dark) {
+        await page.evaluate((vars) => {
+          for (const [k, v] of Object.entries(vars)) document.documentElement.style.setProperty(k, v);
+          document.body.classList.add('vscode-dark');
+        }, vscodeDark);
+      }
+      return { context, page, seen };
+    }
+
+    const posted = (page: Page) => page.evaluate(() => (window as unknown as { __posted: Array<Record<string, unknown>> }).__posted);
+    const send = (page: Page, message: unknown) => page.evaluate((m) => window.postMessage(m, '*'), message);
+
+    async function lastWhatIf(page: Page, count: number): Promise<{ removed: string[]; requestId: number }> {
+      await page.waitForFunction((n) => (window as unknown as { __posted: Array<{ type: string }> }).__posted.filter((m) => m.type === 'whatIf').length >= n, count);
+      const all = (await posted(page)).filter((m) => m.type === 'whatIf');
+      return all[all.length - 1] as unknown as { removed: string[]; requestId: number };
+    }
+
+    it('renders a posted showReport; a toggle posts whatIf; only the latest whatIfResult counts; buttons and hubs post', async () => {
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel();
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'suggested'), '0.0871');
+        assert.equal(await page.locator('[data-role="selection"]').count(), 0, 'no selection column before a what-if');
+
+        // Uncheck "the" (suggested) and check "account" (kept).
+        await page.locator('tr[data-term="the"] input[type=checkbox]').uncheck();
+        await page.locator('tr[data-term="account"] input[type=checkbox]').check();
+        const expected = report.suggestions.filter((t) => t !== 'the').concat('account');
+        let request = await lastWhatIf(page, 1);
+        await page.waitForTimeout(300); // past the debounce, so the second toggle's request is in
+        request = await lastWhatIf(page, 1);
+        assert.deepEqual([...request.removed].sort(), [...expected].sort());
+
+        // A stale answer (older requestId) is ignored; the latest one shows as "your selection".
+        const measures = (bg: number): Measures => ({ ...report.suggested, backgroundSimilarity: bg, neighborStandout: 2.1 });
+        await send(page, { type: 'whatIfResult', removed: request.removed, measures: measures(0.5), requestId: request.requestId - 1 });
+        await send(page, { type: 'whatIfResult', removed: request.removed, measures: measures(0.1234), requestId: request.requestId });
+        await page.waitForSelector('[data-measure="backgroundSimilarity"] [data-role="selection"]');
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.123');
+        // 2.61 → 2.1 is a drop in standout: worse.
+        assert.equal(await page.locator('[data-measure="neighborStandout"] .lw-v--selection').getAttribute('data-verdict'), 'worse');
+        await send(page, { type: 'whatIfResult', removed: request.removed, measures: measures(0.9), requestId: request.requestId - 1 });
+        await page.waitForTimeout(50);
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.123');
+
+        // Add and export post what the host needs.
+        await page.click('button:has-text("Add checked terms to stop list")');
+        await page.click('button:has-text("Export HTML report")');
+        const tail = (await posted(page)).slice(-2);
+        assert.deepEqual((tail[0] as { terms: string[] }).terms.sort(), [...expected].sort());
+        assert.equal(tail[0]!.type, 'addTerms');
+        assert.deepEqual(tail[1], { type: 'exportHtml' });
+
+        // Hubs: a click and Enter on a focused row both ask the host to reveal the line.
+        await page.click(`button.lw-hub[data-line="${report.hubs[0]!.line}"]`);
+        await page.focus(`button.lw-hub[data-line="${report.hubs[2]!.line}"]`);
+        await page.keyboard.press('Enter');
+        const reveals = (await posted(page)).filter((m) => m.type === 'revealLine');
+        assert.deepEqual(reveals, [
+          { type: 'revealLine', line: report.hubs[0]!.line },
+          { type: 'revealLine', line: report.hubs[2]!.line },
+        ]);
+        assert.deepEqual(seen.csp, []);
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+
+    it('restores sort, filter and toggles from the saved state when the panel comes back', async () => {
+      const report = fixture('report-small.json');
+      const first = await openPanel();
+      let saved: unknown;
+      try {
+        await send(first.page, { type: 'showReport', report });
+        await first.page.waitForSelector('.lw-tile');
+        await first.page.click('button[data-sort="term"]');
+        await first.page.locator('tr[data-term="please"] input[type=checkbox]').uncheck();
+        await lastWhatIf(first.page, 1);
+        saved = await first.page.evaluate(() => (window as unknown as { __state: unknown }).__state);
+      } finally {
+        await first.context.close();
+      }
+      const second = await openPanel({ state: saved });
+      try {
+        await send(second.page, { type: 'showReport', report });
+        await second.page.waitForSelector('.lw-tile');
+        assert.equal(await second.page.locator('th.lw-col-term').getAttribute('aria-sort'), 'ascending');
+        assert.equal(await second.page.locator('tr[data-term="please"] input[type=checkbox]').isChecked(), false);
+        assert.equal(await second.page.locator('tr[data-term="the"] input[type=checkbox]').isChecked(), true);
+        // The restored selection differs from the suggestions, so its measures are asked for again.
+        const request = await lastWhatIf(second.page, 1);
+        assert.ok(!request.removed.includes('please') && request.removed.includes('the'));
+      } finally {
+        await second.context.close();
+      }
+    });
+
+    it('takes its colours from VS Code theme variables (dark, narrow side bar)', async () => {
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel({ dark: true, width: 440 });
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        await page.locator('tr[data-term="regards"] input[type=checkbox]').uncheck();
+        const request = await lastWhatIf(page, 1);
+        await send(page, { type: 'whatIfResult', removed: request.removed, measures: { ...report.suggested, backgroundSimilarity: 0.0912, neighborStandout: 3.71 }, requestId: request.requestId });
+        await page.waitForSelector('[data-role="selection"]');
+        const bg = await page.evaluate(() => getComputedStyle(document.body).backgroundColor);
+        assert.equal(bg, 'rgb(31, 31, 31)', 'body uses --vscode-editor-background (#1f1f1f)');
+        await page.waitForTimeout(150); // charts rebuild after the theme observer's short delay
+        await page.evaluate(() => window.scrollTo(0, 0));
+        await page.screenshot({ path: join(shots, 'panel-dark-narrow.png'), fullPage: true });
+        await page.setViewportSize({ width: 1100, height: 900 });
+        await page.waitForTimeout(150);
+        await page.evaluate(() => window.scrollTo(0, 0));
+        await page.screenshot({ path: join(shots, 'panel-dark-wide.png'), fullPage: true });
+        assert.deepEqual(seen.csp, []);
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+  });
+});
