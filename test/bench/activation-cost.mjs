@@ -6,12 +6,12 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const bundleArg = process.argv.indexOf('--bundle');
-const bundle = bundleArg > 0 ? process.argv[bundleArg + 1] : join(root, 'dist', 'extension.js');
+const bundle = bundleArg > 0 ? resolve(process.argv[bundleArg + 1]) : join(root, 'dist', 'extension.js');
 
 /**
  * A stand-in for the whole vscode API: every property is another stand-in, calling or
@@ -20,8 +20,14 @@ const bundle = bundleArg > 0 ? process.argv[bundleArg + 1] : join(root, 'dist', 
  */
 function stub(name) {
   const target = function () {};
+  const assigned = new Map();
   return new Proxy(target, {
+    set(_t, key, value) {
+      assigned.set(key, value);
+      return true;
+    },
     get(_t, key) {
+      if (assigned.has(key)) return assigned.get(key);
       if (key === 'then') return undefined;
       if (key === Symbol.toPrimitive) return () => name;
       if (key === Symbol.iterator) return function* () {};
@@ -63,7 +69,9 @@ function fakeContext() {
 async function measureOnce() {
   const require = createRequire(import.meta.url);
   const Module = require('node:module');
-  const vscode = stub('vscode');
+  // Bundlers copy a CommonJS module's own keys into a namespace object whose prototype is the
+  // module's prototype; a stand-in as the prototype keeps `import * as vscode` lookups working.
+  const vscode = Object.create(stub('vscode'));
   const originalLoad = Module._load;
   Module._load = function (request, parent, isMain) {
     if (request === 'vscode') return vscode;
@@ -92,7 +100,11 @@ export function measureActivation(runs = 5) {
   const samples = [];
   for (let i = 0; i < runs; i++) {
     const child = spawnSync(process.execPath, [fileURLToPath(import.meta.url), '--once', '--bundle', bundle], { encoding: 'utf8' });
-    if (child.status !== 0) return { error: (child.stderr || child.stdout).trim().split('\n').slice(-3).join(' | ') };
+    if (child.status !== 0) {
+      const lines = (child.stderr || child.stdout).trim().split('\n');
+      const at = lines.findIndex((l) => /^\w*Error\b/.test(l));
+      return { error: (at >= 0 ? lines.slice(at, at + 2) : lines.slice(-3)).join(' | ') };
+    }
     samples.push(JSON.parse(child.stdout.trim().split('\n').pop()));
   }
   const requireMs = median(samples.map((s) => s.requireMs));

@@ -1,13 +1,16 @@
 // `npm run bench`: Loudword's whole review against scikit-learn on seeded corpora of
 // 10k / 100k / 1M documents, then the targets. Figures are whole processes, wall clock, on a
 // machine others may be using: read them as rough, compare runs made back to back.
+// scikit-learn's brute kNN grows as queries × documents and takes ~15 minutes alone at 1M on
+// two shared cores, so by default it runs up to 100k only (--sklearn-knn-max 1M to include it).
 //
 // usage: node test/bench/run.mjs [--sizes 10k,100k,1M] [--seed 1] [--toggles 9]
-//                                [--no-sklearn-knn-above 1M] [--skip-loudword] [--skip-sklearn]
+//                                [--sklearn-knn-max 100k] [--skip-loudword] [--skip-sklearn]
 //                                [--cli bin/loudword.js]
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
+import { cpus, loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { DATA_DIR, ensureCorpus, parseSize, sizeLabel } from './generate-corpus.mjs';
 import { measureActivation } from './activation-cost.mjs';
@@ -33,7 +36,7 @@ const TARGETS = {
 };
 
 function parseArgs(argv) {
-  const options = { sizes: ['10k', '100k', '1M'], seed: 1, toggles: 9, knnAbove: Infinity, loudword: true, sklearn: true, cli: join(root, 'bin', 'loudword.js') };
+  const options = { sizes: ['10k', '100k', '1M'], seed: 1, toggles: 9, knnMax: 100_000, loudword: true, sklearn: true, cli: join(root, 'bin', 'loudword.js') };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     const value = () => {
@@ -43,7 +46,7 @@ function parseArgs(argv) {
     if (a === '--sizes') options.sizes = value().split(',').filter(Boolean);
     else if (a === '--seed') options.seed = Number(value());
     else if (a === '--toggles') options.toggles = Number(value());
-    else if (a === '--no-sklearn-knn-above') options.knnAbove = parseSize(value());
+    else if (a === '--sklearn-knn-max') options.knnMax = parseSize(value());
     else if (a === '--skip-loudword') options.loudword = false;
     else if (a === '--cli') options.cli = resolve(value());
     else if (a === '--skip-sklearn') options.sklearn = false;
@@ -89,7 +92,7 @@ async function runLoudword(cli, file, label) {
   const cliArgs = [cli, 'review', file, '--text', TEXT_COLUMN, '--label', LABEL_COLUMN, '--format', 'json', '--out', out];
   const useTime = existsSync(GNU_TIME);
   const result = useTime
-    ? await run(GNU_TIME, ['-f', '%M %e', '-o', measureFile, process.execPath, ...cliArgs], { cwd: DATA_DIR })
+    ? await run(GNU_TIME, ['-f', '%M %e %U %S', '-o', measureFile, process.execPath, ...cliArgs], { cwd: DATA_DIR })
     : await run(process.execPath, cliArgs, {
         cwd: DATA_DIR,
         env: { NODE_OPTIONS: `--require ${join(here, 'peak-rss-probe.cjs')}`, LOUDWORD_BENCH_RSS_FILE: measureFile },
@@ -102,15 +105,23 @@ async function runLoudword(cli, file, label) {
     return { error: `report is not JSON: ${e.message}` };
   }
   let peakRss = null;
+  let cpuSeconds = null;
   if (existsSync(measureFile)) {
     const text = readFileSync(measureFile, 'utf8').trim();
-    // GNU time prints "Command exited with non-zero status N" above the format line.
-    peakRss = useTime ? Number(text.split('\n').pop().split(' ')[0]) * 1024 : Number(text);
+    if (useTime) {
+      // GNU time prints "Command exited with non-zero status N" above the format line.
+      const [kb, , user, system] = text.split('\n').pop().split(' ').map(Number);
+      peakRss = kb * 1024;
+      cpuSeconds = user + system;
+    } else {
+      ({ peakRss, cpuSeconds } = JSON.parse(text));
+    }
   }
   return {
     wall: result.wall,
     exitCode: result.code,
     peakRss,
+    cpuSeconds,
     rssMethod: useTime ? 'GNU time %M' : 'process.resourceUsage().maxRSS at exit',
     documents: report.input?.documents,
     tokens: report.vocabulary?.tokens,
@@ -163,13 +174,16 @@ function printSize(label, corpus, lw, sk, whatIf) {
   const lwOk = lw && !lw.error;
   const skOk = sk && !sk.error;
   const ratio = lwOk && skOk ? lw.wall / sk.fitTransformSeconds : null;
-  console.log(`\n== ${label} documents — ${corpus.file.replace(root + '/', '')} (${megabytes(corpus.bytes)}${corpus.cached ? ', cached' : `, generated in ${seconds(corpus.seconds)}`}) ==`);
+  const cpuRatio = lwOk && skOk && lw.cpuSeconds != null ? lw.cpuSeconds / sk.fitTransformCpuSeconds : null;
+  console.log(`\n== ${label} documents — ${corpus.file.replace(root + '/', '')} (${megabytes(corpus.bytes)}${corpus.cached ? ', cached' : `, generated in ${seconds(corpus.seconds)}`}) — load average now ${loadavg()[0].toFixed(1)} on ${cpus().length} cores ==`);
   const rows = [
     ['', 'Loudword', 'scikit-learn'],
     ['full review, whole process (wall)', lwOk ? seconds(lw.wall) : dash, dash],
     ['TfidfVectorizer.fit_transform alone (wall)', dash, skOk ? seconds(sk.fitTransformSeconds) : dash],
-    [`brute cosine kNN, ${queries} queries, k=${k} (wall)`, lwOk ? '(inside review)' : dash, skOk ? seconds(sk.knnSeconds) : dash],
+    [`brute cosine kNN, ${queries} queries, k=${k} (wall)`, lwOk ? '(inside review)' : dash, skOk ? (sk.knnSeconds == null ? 'skipped (--sklearn-knn-max)' : seconds(sk.knnSeconds)) : dash],
     ['ratio Loudword / fit_transform', ratio == null ? dash : `${ratio.toFixed(2)}×`, ''],
+    ['CPU time, user+sys (Loudword: whole process; sklearn: fit_transform | kNN)', lwOk ? seconds(lw.cpuSeconds) : dash, skOk ? `${seconds(sk.fitTransformCpuSeconds)} | ${seconds(sk.knnCpuSeconds)}` : dash],
+    ['CPU ratio Loudword / fit_transform', cpuRatio == null ? dash : `${cpuRatio.toFixed(2)}×`, ''],
     ['tokens', lwOk ? count(lw.tokens) : dash, skOk ? count(sk.tokens) : dash],
     ['tokens/s (Loudword: whole review; sklearn: fit_transform)', lwOk ? rate(lw.tokens / lw.wall) : dash, skOk ? rate(sk.tokens / sk.fitTransformSeconds) : dash],
     ['terms / nonzeros', lwOk ? `${count(lw.terms)} / ${count(lw.nonzeros)}` : dash, skOk ? `${count(sk.terms)} / ${count(sk.nonzeros)}` : dash],
@@ -180,7 +194,7 @@ function printSize(label, corpus, lw, sk, whatIf) {
   if (lw?.error) console.log(`Loudword: not measured — ${lw.error}`);
   else if (lw) {
     console.log(`Loudword: peak RSS by ${lw.rssMethod}; wall measured around the child (node start-up, reading and writing included)${lw.exitCode ? `; CLI exit code ${lw.exitCode}` : ''}.`);
-    if (lw.timings) console.log(`Loudword stages (Report timings): ${Object.entries(lw.timings).map(([k2, v]) => `${k2} ${typeof v === 'number' ? v.toFixed(0) : v}`).join(', ')}`);
+    if (lw.timings) console.log(`Loudword stages (Report timings, ms): ${Object.entries(lw.timings).map(([k2, v]) => `${k2} ${typeof v === 'number' ? v.toFixed(0) : v}`).join(', ')}`);
   }
   if (sk?.error) console.log(`scikit-learn: not measured — ${sk.error}`);
   else if (sk) console.log(`scikit-learn ${sk.sklearn}: CSV read ${seconds(sk.readSeconds)}, whole process ${seconds(sk.wall)}; peak RSS by getrusage ru_maxrss, single-threaded.`);
@@ -197,7 +211,7 @@ async function main() {
   const sizes = options.sizes.map(parseSize);
   mkdirSync(DATA_DIR, { recursive: true });
   const gnuTime = existsSync(GNU_TIME);
-  console.log(`Loudword bench — seed ${options.seed}, sizes ${sizes.map(sizeLabel).join(', ')}; node ${process.version}; peak RSS of the CLI by ${gnuTime ? 'GNU time' : 'a resourceUsage() preload'}.`);
+  console.log(`Loudword bench — seed ${options.seed}, sizes ${sizes.map(sizeLabel).join(', ')}; node ${process.version}; peak RSS and CPU of the CLI by ${gnuTime ? 'GNU time' : 'a resourceUsage() preload'}; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores (wall figures stretch when it exceeds the cores; CPU figures less so).`);
   const python = spawnSync(PYTHON, ['-c', 'import sklearn; print(sklearn.__version__)'], { encoding: 'utf8' });
   if (python.status !== 0) console.log(`scikit-learn not importable with ${PYTHON}: the sklearn columns will be empty.`);
 
@@ -207,7 +221,7 @@ async function main() {
     const corpus = ensureCorpus(documents, options.seed, { log: (m) => console.log(m) });
     const lw = options.loudword ? await runLoudword(options.cli, corpus.file, label) : null;
     const sample = lw && !lw.error && lw.sample ? lw.sample : { documents: DEFAULT_QUERIES, k: DEFAULT_K, seed: DEFAULT_SAMPLE_SEED };
-    const sk = options.sklearn && python.status === 0 ? await runSklearn(corpus.file, sample.documents, sample.k, sample.seed, documents <= options.knnAbove) : null;
+    const sk = options.sklearn && python.status === 0 ? await runSklearn(corpus.file, sample.documents, sample.k, sample.seed, documents <= options.knnMax) : null;
     const whatIf = options.loudword && documents === 100_000 ? await runWhatIf(corpus.file, options.toggles) : null;
     results.set(documents, { lw, sk, whatIf });
     printSize(label, corpus, lw, sk, whatIf);
