@@ -24,10 +24,10 @@ function applyAsEditor(text: string, edits: readonly TextEdit[]): string {
 let badInputCases = 0;
 let generatedCases = 0;
 
+after(() => console.log(`      stop list bad-input cases run: ${badInputCases}`));
+
 describe('parseStopList', () => {
   afterEach(() => badInputCases++);
-  after(() => console.log(`      stop list bad-input cases run: ${badInputCases}`));
-
   it('parseStopList reads terms, comments, blank lines, CRLF, duplicates and non-ASCII terms', () => {
     const text = '# project list\r\nthe\r\n\r\n  über  \r\n#ad\r\n# note\r\nthe\r\n日本\r\nThe';
     const parsed = parseStopList(text);
