@@ -3,10 +3,22 @@
  * pairs of valid sample rows; null with fewer than two pairs or a zero mean.
  */
 export function pairDistanceCv(dist: Float64Array, m: number, valid: Uint8Array, power: 1 | 2 = 1): number | null {
-  // Welford's update keeps the variance accurate when the spread is small next to the mean,
-  // which is exactly the concentrated case this measure is for.
+  // Two passes (mean, then squared deviations) keep the variance accurate when the spread is
+  // small next to the mean — exactly the concentrated case this measure is for.
   let count = 0;
-  let mean = 0;
+  let sum = 0;
+  for (let i = 0; i < m; i++) {
+    if (!valid[i]) continue;
+    const base = i * m;
+    for (let j = i + 1; j < m; j++) {
+      if (!valid[j]) continue;
+      const d = dist[base + j];
+      sum += power === 1 ? d : d * d;
+      count++;
+    }
+  }
+  if (count < 2) return null;
+  const mean = sum / count;
   let m2 = 0;
   for (let i = 0; i < m; i++) {
     if (!valid[i]) continue;
@@ -14,14 +26,11 @@ export function pairDistanceCv(dist: Float64Array, m: number, valid: Uint8Array,
     for (let j = i + 1; j < m; j++) {
       if (!valid[j]) continue;
       const d = dist[base + j];
-      const v = power === 1 ? d : d * d;
-      count++;
-      const delta = v - mean;
-      mean += delta / count;
-      m2 += delta * (v - mean);
+      const dev = (power === 1 ? d : d * d) - mean;
+      m2 += dev * dev;
     }
   }
-  if (count < 2 || !(mean > 0)) return null;
+  if (!(mean > 0)) return null;
   return Math.sqrt(m2 / count) / mean;
 }
 

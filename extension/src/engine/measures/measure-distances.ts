@@ -14,7 +14,7 @@ import { radiusSlack } from './radius-slack';
 import { relativeContrast } from './relative-contrast';
 import { sampleSimilarities } from './sample-similarity';
 import { similarityHistograms } from './similarity-histograms';
-import { cumulativeMassShare, pairMass, termSums, topMassShare, type PairMass, type TermSums } from './term-sums';
+import { cumulativeMassShare, pairMass, termSums, type PairMass, type TermSums } from './term-sums';
 import { twoNN } from './two-nn';
 
 /** How many terms the cumulative-mass chart shows. */
@@ -90,6 +90,10 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   const hubness = hubnessSummary(counts, valid, k);
   const termKnnMass = knnTermMass(X, sample, knn.neighbors, k);
 
+  // One sort of the term masses serves the chart and both top-term shares.
+  const cumulativeMass = cumulativeMassShare(mass.perTerm, mass.total, CUMULATIVE_MASS_TERMS);
+  const shareOfTop = (count: number) => (cumulativeMass.length === 0 ? 0 : cumulativeMass[Math.min(count, cumulativeMass.length) - 1]);
+
   const dist = distancesFromGram(gram, m);
   const nnDist = neighborDistances(dist, m, knn.neighbors, k);
 
@@ -103,14 +107,14 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
     hubness,
     intrinsicDimension: { twoNN: twoNN(nnDist, m, k), mle: mleDimension(nnDist, m, k) },
     radiusSlack: radiusSlack(dist, m, valid, k),
-    topTermsMassShare: { top10: topMassShare(mass.perTerm, mass.total, 10), top100: topMassShare(mass.perTerm, mass.total, 100) },
+    topTermsMassShare: { top10: shareOfTop(10), top100: shareOfTop(100) },
     labelPrecisionAtK: labels === null ? null : labelPrecisionAtK(knn.neighbors, labels, k),
     neighborTurnover: baselineNeighbors === null ? null : neighborTurnover(baselineNeighbors, knn.neighbors, m, k),
     distributions: {
       similarity,
       // Bins 0..3k: the mean is k, and anything past 3k is a hub by any reading.
       kOccurrence: kOccurrenceHistogram(counts, valid, 3 * k),
-      cumulativeMass: cumulativeMassShare(mass.perTerm, mass.total, CUMULATIVE_MASS_TERMS),
+      cumulativeMass,
     },
   };
 
