@@ -13,6 +13,6 @@ export const DEFAULT_SETTINGS: EffectiveSettings = Object.freeze({
   weighting: { tf: 'raw', idf: 'smooth', norm: 'l2' },
   prune: { minDf: 1, maxDf: 1 },
   sample: { documents: 2000, k: 10, seed: 1 },
-  suggest: { max: 200, protect: ['not', 'no', 'never', 'nor', 'neither', 'none', 'nobody', 'nothing', 'nowhere', 'without', 'cannot'], functionWordPrior: true },
+  suggest: { max: 500, protect: ['not', 'no', 'never', 'nor', 'neither', 'none', 'nobody', 'nothing', 'nowhere', 'without', 'cannot'], functionWordPrior: true },
   limits: { maxBytes: 2 * 1024 ** 3 },
 }) as EffectiveSettings;

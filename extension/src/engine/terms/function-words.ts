@@ -36,3 +36,21 @@ export const ENGLISH_FUNCTION_WORDS: readonly string[] = [
   'very', 'too', 'quite', 'rather', 'just', 'only', 'even', 'still', 'already', 'again', 'ever',
   'here', 'there', 'now', 'well', 'almost', 'enough', 'perhaps', 'yes', 'oh', 'etc',
 ];
+
+/**
+ * Light words: very frequent verbs with little meaning of their own ("get", "make", "take"),
+ * number words and vague nouns and adverbs. Not closed-class, so more often part of a topic than
+ * the words above — they join the prior last, and the what-if decides for each group.
+ */
+export const ENGLISH_LIGHT_WORDS: readonly string[] = [
+  'get', 'gets', 'got', 'gotten', 'getting', 'go', 'goes', 'went', 'gone', 'going', 'make', 'makes',
+  'made', 'making', 'take', 'takes', 'took', 'taken', 'taking', 'come', 'comes', 'came', 'coming',
+  'give', 'gives', 'gave', 'given', 'put', 'puts', 'keep', 'keeps', 'kept', 'let', 'lets', 'say',
+  'says', 'said', 'see', 'sees', 'saw', 'seen', 'seem', 'seems', 'seemed', 'become', 'becomes',
+  'became', 'find', 'found', 'show', 'shows', 'shown', 'call', 'called', 'use', 'used', 'using',
+  'want', 'wants', 'wanted', 'know', 'knows', 'knew', 'known', 'think', 'thought', 'tell', 'told',
+  'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'hundred',
+  'thousand', 'first', 'second', 'third', 'last', 'next', 'thing', 'things', 'way', 'ways', 'lot',
+  'lots', 'kind', 'sort', 'part', 'always', 'often', 'sometimes', 'usually', 'really', 'actually',
+  'maybe', 'anyway', 'away', 'back', 'together', 'further', 'indeed', 'please', 'sure', 'ok', 'okay',
+];

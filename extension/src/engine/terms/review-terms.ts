@@ -5,7 +5,7 @@ import { pairMass, termSpread, termSums } from '../measures/term-sums';
 import type { DistanceLab, DistanceResult } from '../review/distance-lab';
 import type { TermIndex } from '../review/term-index';
 import { explainTerm } from './explain-term';
-import { priorColumns, protectedColumns } from './prior-columns';
+import { lightWordColumns, priorColumns, protectedColumns } from './prior-columns';
 import { suggestTerms } from './suggest-terms';
 import { termScores, type TermScores } from './term-scores';
 
@@ -43,11 +43,15 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const { lab, baseMask, baseline, counts, idf, index, tokenize, settings } = input;
   const cols = counts.cols;
   const basePairMass = baseline.pairMass.perTerm;
-  const prior = settings.suggest.functionWordPrior ? priorColumns(index, tokenize, settings.tokens.ngrams === 2) : new Set<number>();
+  const functionWords = settings.suggest.functionWordPrior ? priorColumns(index, tokenize, settings.tokens.ngrams === 2) : new Set<number>();
+  const lightWords = settings.suggest.functionWordPrior ? lightWordColumns(index, tokenize, functionWords) : new Set<number>();
+  const prior = new Set([...functionWords, ...lightWords]);
   const protect = protectedColumns(index, tokenize, settings.suggest.protect);
   const open = (c: number): boolean => baseMask[c] === 0 && !protect.has(c) && basePairMass[c]! > 0;
 
-  const priorOrder = [...prior].filter(open).sort((a, b) => basePairMass[b]! - basePairMass[a]!);
+  // Closed-class words first, heaviest first; the light words after them.
+  const heaviestFirst = (cols: Set<number>): number[] => [...cols].filter(open).sort((a, b) => basePairMass[b]! - basePairMass[a]!);
+  const priorOrder = [...heaviestFirst(functionWords), ...heaviestFirst(lightWords)];
   const plan = suggestTerms({
     lab,
     baseMask,
@@ -59,9 +63,10 @@ export function reviewTerms(input: TermReviewInput): TermReview {
       const loud: number[] = [];
       for (let c = 0; c < cols; c++) {
         if (!open(c) || accepted.has(c) || prior.has(c)) continue;
-        if (scores.loudness[c]! > 0 && scores.neighborLift[c]! < 1) loud.push(c);
+        if (scores.neighborLift[c]! < 1) loud.push(c);
       }
-      loud.sort((a, b) => scores.loudness[b]! - scores.loudness[a]!);
+      // Heaviest first: a term that pulls little cannot change the distances much either way.
+      loud.sort((a, b) => scores.pullShare[b]! - scores.pullShare[a]!);
       return loud.slice(0, LOUD_CANDIDATES);
     },
   });

@@ -32,7 +32,7 @@ export interface SuggestionInput {
 
 const PRIOR_GROUP = 16;
 const LOUD_GROUP = 4;
-const MAX_REJECTED_GROUPS_IN_A_ROW = 2;
+const MAX_REJECTED_GROUPS_IN_A_ROW = 3;
 
 /**
  * Suggests stop terms in two passes, each checked by the what-if (methods §8):
@@ -90,7 +90,7 @@ export function suggestTerms(input: SuggestionInput): SuggestionPlan {
 
 /** Tolerances for sampling noise in the paired comparison of two settings on the same sample. */
 const STANDOUT_TOLERANCE = 0.02;
-const STANDOUT_GAIN = 0.01;
+const STANDOUT_GAIN = 0;
 const PRECISION_TOLERANCE = 0.002;
 
 function isAcceptable(before: DistanceResult, after: DistanceResult, mustImprove: boolean): boolean {
@@ -102,5 +102,5 @@ function isAcceptable(before: DistanceResult, after: DistanceResult, mustImprove
   if (p0 !== null && p1 !== null && p1 < p0 - PRECISION_TOLERANCE) return false;
   if (!mustImprove) return s1 >= s0 - STANDOUT_TOLERANCE;
   const precisionGain = p0 !== null && p1 !== null && p1 > p0 + PRECISION_TOLERANCE;
-  return (s1 >= s0 + STANDOUT_GAIN && (p0 === null || p1 === null || p1 >= p0)) || (precisionGain && s1 >= s0 - STANDOUT_TOLERANCE);
+  return (s1 > s0 + STANDOUT_GAIN && (p0 === null || p1 === null || p1 >= p0)) || (precisionGain && s1 >= s0 - STANDOUT_TOLERANCE);
 }
