@@ -237,11 +237,18 @@ async function main() {
     const nnzLarge = large.lw.nonzeros ?? large.sk?.nonzeros;
     if (nnzSmall && nnzLarge) exponent = Math.log(large.lw.wall / small.lw.wall) / Math.log(nnzLarge / nnzSmall);
   }
+  let cpuExponent = null;
+  if (ok(small?.lw) && ok(large?.lw) && small.lw.cpuSeconds && large.lw.cpuSeconds) {
+    const nnzSmall = small.lw.nonzeros ?? small.sk?.nonzeros;
+    const nnzLarge = large.lw.nonzeros ?? large.sk?.nonzeros;
+    if (nnzSmall && nnzLarge) cpuExponent = Math.log(large.lw.cpuSeconds / small.lw.cpuSeconds) / Math.log(nnzLarge / nnzSmall);
+  }
   let skExponent = null;
   if (ok(small?.sk) && ok(large?.sk)) {
     skExponent = Math.log(large.sk.fitTransformSeconds / small.sk.fitTransformSeconds) / Math.log(large.sk.nonzeros / small.sk.nonzeros);
   }
-  console.log(`\nGrowth exponent of wall time vs nonzeros, 100k → 1M: Loudword ${exponent == null ? dash : exponent.toFixed(2)}; fit_transform ${skExponent == null ? dash : skExponent.toFixed(2)}`);
+  const fixed2 = (x) => (x == null ? dash : x.toFixed(2));
+  console.log(`\nGrowth exponent of time vs nonzeros, 100k → 1M: Loudword wall ${fixed2(exponent)}, CPU ${fixed2(cpuExponent)}; fit_transform wall ${fixed2(skExponent)}`);
 
   const activation = measureActivation(5);
   if (activation.error) console.log(`Activation: not measured — ${activation.error}`);
