@@ -4,9 +4,10 @@
 // fixture's numbers written out by hand with the panel's rounding (about three significant
 // digits, shares as percentages — common practice, no source).
 import assert from 'node:assert/strict';
-import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { build } from 'esbuild';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { panelHtml } from '../extension/src/html/panel-html';
@@ -101,7 +102,10 @@ describe('webview in Chromium', function () {
     const { page, seen } = shared;
     for (const list of Object.values(seen)) list.length = 0;
     await page.emulateMedia({ colorScheme: opts.colorScheme ?? 'light' });
-    await page.setContent(renderStandaloneReport(report, assets));
+    // A file:// URL rather than setContent: large reports load much faster than over the protocol.
+    const file = join(dist, 'report.html');
+    writeFileSync(file, renderStandaloneReport(report, assets));
+    await page.goto(pathToFileURL(file).href);
     await page.waitForSelector('.lw-tile');
     return { page, seen };
   }
@@ -143,6 +147,7 @@ describe('webview in Chromium', function () {
       assert.deepEqual(seen.csp, []);
       assert.deepEqual(seen.errors, []);
       await page.screenshot({ path: join(shots, 'standalone-light.png'), fullPage: true });
+      await page.screenshot({ path: join(shots, 'standalone-light-top.png') });
     });
 
     it('lists the terms in loudness order, sorts by a header, filters by status and by text', async () => {
@@ -339,6 +344,12 @@ describe('webview in Chromium', function () {
           { type: 'revealLine', line: report.hubs[0]!.line },
           { type: 'revealLine', line: report.hubs[2]!.line },
         ]);
+
+        // An error from the host (it may quote corpus text) is shown as text.
+        const message = 'cannot read line 3: <img src=x onerror="window.__lwPwned=1">';
+        await send(page, { type: 'error', message });
+        assert.equal(await page.locator('.lw-error').textContent(), message);
+        assert.equal(await page.locator('img').count(), 0);
         assert.deepEqual(seen.csp, []);
         assert.deepEqual(seen.errors, []);
       } finally {
@@ -390,6 +401,7 @@ describe('webview in Chromium', function () {
         await page.waitForTimeout(150); // charts rebuild after the theme observer's short delay
         await page.evaluate(() => window.scrollTo(0, 0));
         await page.screenshot({ path: join(shots, 'panel-dark-narrow.png'), fullPage: true });
+        await page.screenshot({ path: join(shots, 'panel-dark-narrow-top.png') });
         await page.setViewportSize({ width: 1100, height: 900 });
         await page.waitForTimeout(150);
         await page.evaluate(() => window.scrollTo(0, 0));

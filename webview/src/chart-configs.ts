@@ -5,7 +5,7 @@ import type { ChartConfiguration, TooltipItem } from 'chart.js';
 import type { Distributions, TermRow } from '../../extension/src/protocol';
 import type { ChartTheme } from './chart-theme';
 import { withAlpha } from './chart-theme';
-import { formatCount, formatNumber, formatRatio, formatShare } from './format';
+import { formatAxisShare, formatCount, formatNumber, formatRatio, formatShare } from './format';
 
 export interface Setting {
   label: string;
@@ -61,7 +61,7 @@ export function similarityConfig(baseline: Setting, current: Setting, theme: Cha
     label,
     data,
     borderColor: color,
-    backgroundColor: fill ? withAlpha(color, 0.14) : color,
+    backgroundColor: fill ? withAlpha(color, 0.14) : 'transparent',
     borderWidth: 1.6,
     borderDash: dashed ? [5, 3] : [],
     fill: fill ? ('origin' as const) : false,
@@ -83,7 +83,7 @@ export function similarityConfig(baseline: Setting, current: Setting, theme: Cha
       interaction: { mode: 'nearest', intersect: false },
       scales: {
         x: { ...axis(theme, 'cosine similarity'), type: 'linear', min: Math.min(b.start, c.start), ticks: { ...axis(theme, '').ticks, maxTicksLimit: 8 } },
-        y: { ...axis(theme, 'share'), beginAtZero: true, ticks: { ...axis(theme, '').ticks, callback: (v) => formatShare(Number(v)) } },
+        y: { ...axis(theme, 'share'), beginAtZero: true, ticks: { ...axis(theme, '').ticks, callback: (v) => formatAxisShare(Number(v)) } },
       },
       plugins: {
         ...common(theme).plugins,
@@ -144,7 +144,7 @@ function logTick(value: number | string): string | null {
   const v = Number(value);
   if (!(v > 0)) return null;
   const exponent = Math.log10(v);
-  return Math.abs(exponent - Math.round(exponent)) < 1e-9 ? formatShare(v) : null;
+  return Math.abs(exponent - Math.round(exponent)) < 1e-9 ? formatAxisShare(v) : null;
 }
 
 export function cumulativeMassConfig(baseline: Setting, theme: ChartTheme): ChartConfiguration<'line', XY[]> {
@@ -169,7 +169,7 @@ export function cumulativeMassConfig(baseline: Setting, theme: ChartTheme): Char
       interaction: { mode: 'nearest', intersect: false },
       scales: {
         x: { ...axis(theme, 'number of top terms (log scale)'), type: 'logarithmic', min: 1, ticks: { ...axis(theme, '').ticks, callback: (v) => (isPowerOfTen(Number(v)) ? formatCount(Number(v)) : null) } },
-        y: { ...axis(theme, 'share of all-pairs similarity'), min: 0, max: 1, ticks: { ...axis(theme, '').ticks, callback: (v) => formatShare(Number(v)) } },
+        y: { ...axis(theme, 'share of all-pairs similarity'), min: 0, max: 1, ticks: { ...axis(theme, '').ticks, callback: (v) => formatAxisShare(Number(v)) } },
       },
       plugins: {
         ...common(theme).plugins,

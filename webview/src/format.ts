@@ -65,3 +65,9 @@ export function formatBytes(value: number): string {
   }
   return u === 0 ? `${formatCount(v)} bytes` : `${v.toFixed(1)} ${units[u]}`;
 }
+
+/** Axis ticks: a share as a percentage without trailing zeros (35%, 0.1%, 12.5%). */
+export function formatAxisShare(value: number): string {
+  if (!Number.isFinite(value)) return '';
+  return `${withMinus(String(Number((value * 100).toPrecision(3))))}%`;
+}

@@ -136,8 +136,9 @@ export class TermTable {
 
     this.moreButton = el('button', { className: 'lw-button lw-button--secondary lw-more', attrs: { type: 'button' } });
     this.moreButton.addEventListener('click', () => {
+      const from = Math.min(this.state.shown, this.order.length);
       this.state.shown += PAGE_SIZE;
-      this.renderRows();
+      this.renderRows(from);
       this.options.onViewChange();
     });
 
@@ -183,11 +184,13 @@ export class TermTable {
     }
   }
 
-  private renderRows(): void {
+  /** Draws rows up to `state.shown`; with `from`, keeps the rows already there and appends. */
+  private renderRows(from = 0): void {
     const limit = Math.min(this.state.shown, this.order.length);
     const rows: HTMLTableRowElement[] = [];
-    for (let i = 0; i < limit; i += 1) rows.push(this.renderRow(this.terms[this.order[i]!]!));
-    replaceChildren(this.tbody, rows);
+    for (let i = from; i < limit; i += 1) rows.push(this.renderRow(this.terms[this.order[i]!]!));
+    if (from === 0) replaceChildren(this.tbody, rows);
+    else this.tbody.append(...rows);
     const hidden = this.order.length - limit;
     this.moreButton.hidden = hidden <= 0;
     this.moreButton.textContent = `Show ${formatCount(Math.min(PAGE_SIZE, hidden))} more (${formatCount(hidden)} not shown)`;
