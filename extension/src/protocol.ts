@@ -81,6 +81,8 @@ export interface Report {
     skipped: number;
     /** Set when the input was cut at a size limit: what was read and why. */
     truncated?: { bytesRead: number; limitBytes: number } | undefined;
+    /** What the reader had to decide on its own (encoding fallback, ignored options). */
+    notes?: string[] | undefined;
     /** A few of the skipped rows, with their line and reason. */
     skippedExamples?: Array<{ line: number; reason: string }> | undefined;
   };

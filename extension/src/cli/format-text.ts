@@ -14,6 +14,8 @@ export function formatText(report: Report): string {
     `${input.documents} documents, ${vocabulary.terms} terms, ${vocabulary.tokens} tokens ` +
       `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${input.skipped} rows skipped`,
   );
+  for (const note of input.notes ?? []) out.push(`Note: ${note}`);
+  for (const s of input.skippedExamples ?? []) out.push(`Skipped line ${s.line}: ${s.reason}`);
   if (input.truncated) out.push(`Read only the first ${input.truncated.bytesRead} bytes (limit ${input.truncated.limitBytes}).`);
   out.push(`Stop list: ${report.stopList.file ?? 'none'} (${report.stopList.terms} terms${report.stopList.unused.length ? `, ${report.stopList.unused.length} never occur` : ''})`);
   out.push(`Sample: ${baseline.sample.documents} documents, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);

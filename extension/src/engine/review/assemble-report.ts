@@ -1,7 +1,7 @@
 import type { EffectiveSettings, HubRow, Report } from '../../protocol';
 import { nnz, type CountMatrix } from '../matrix/csr';
 import type { CorpusSource } from '../read/corpus-source';
-import type { BuiltCorpus } from '../tokenize/build-count-matrix';
+import type { BuiltCorpus } from '../matrix/build-count-matrix';
 import type { TermReview } from '../terms/review-terms';
 import type { ReviewSample } from './choose-sample';
 import type { DistanceResult } from './distance-lab';
@@ -37,6 +37,7 @@ export function assembleReport(p: ReportParts): Report {
       skipped: p.source.skipped.count,
       truncated: p.source.truncated ?? undefined,
       skippedExamples: p.source.skipped.examples.slice(0, 5),
+      notes: p.source.notes && p.source.notes.length > 0 ? [...p.source.notes] : undefined,
     },
     settings: p.settings,
     vocabulary: { terms: p.counts.cols, tokens, nonzeros: nnz(p.counts), meanDocLength: documents > 0 ? tokens / documents : 0 },
