@@ -6,6 +6,7 @@
 # Everything the run installs is cached under <repo>/.cache/e2e (git-ignored), so a second run on
 # the same machine skips the ≈3-minute editor install; a fresh CI clone pays it once.
 # Environment: E2E_ONLY=<substring> runs only matching scenarios; E2E_KEEP=1 keeps the temp dirs;
+# E2E_HOLD=1 starts the editor and waits (to write scenarios against it).
 set -euo pipefail
 set +m # no job control: a background job stays in our group, so setsid below execs in place
 
@@ -134,6 +135,10 @@ PATH="$NODE24_BIN:$PATH" "$CS_BIN" --config "$TMP/code-server.yaml" --extensions
   || { cat "$TMP/install-ext.log" >&2; die "code-server --install-extension $VSIX"; }
 ls -d "$EXT_DIR/$EXT_ID-"* >/dev/null 2>&1 || { cat "$TMP/install-ext.log" >&2; die "$EXT_ID not in $EXT_DIR after install"; }
 installed="$how ($(du -k "$VSIX" | cut -f1) KB)"
+# The scenarios compare the panel with the CLI of the very same build: others may rebuild dist/
+# while this runs, so the CLI is taken from the installed extension when it ships one.
+CLI="$(ls -d "$EXT_DIR/$EXT_ID-"*/dist/cli.js 2>/dev/null | head -1)"
+[[ -n "$CLI" ]] || CLI="$REPO/bin/loudword.js"
 echo "e2e: extension installed by $installed"
 
 # ---- A throwaway workspace: the samples plus the e2e fixtures, so nothing in the repo is edited.
@@ -179,11 +184,18 @@ done
 [[ -n "$ready" ]] || { tail -20 "$TMP/code-server.log" >&2; die "code-server did not answer /healthz on port $PORT within 60 s"; }
 echo "e2e: code-server on http://127.0.0.1:$PORT (log: $TMP/code-server.log)"
 
-# ---- Scenarios, in their own process group too (chromium goes down with it).
+if [[ "${E2E_HOLD:-}" == 1 ]]; then
+  # For writing scenarios: the editor stays up (workspace $WORKSPACE) until this script is stopped.
+  echo "e2e: holding; E2E_PORT=$PORT E2E_WORKSPACE=$WORKSPACE E2E_TMP=$TMP"
+  while kill -0 "$CS_PID" 2>/dev/null; do sleep 2; done
+  exit 0
+fi
+
+# ---- Scenarios, in their own process group too (the runner writes chromium's group id down).
 part "scenarios"
 mkdir -p "$REPO/test/e2e/screenshots"
 set +e
-E2E_PORT="$PORT" E2E_WORKSPACE="$WORKSPACE" E2E_REPO="$REPO" E2E_TMP="$TMP" E2E_USER_DATA="$USER_DATA" \
+E2E_PORT="$PORT" E2E_WORKSPACE="$WORKSPACE" E2E_REPO="$REPO" E2E_CLI="$CLI" E2E_TMP="$TMP" E2E_USER_DATA="$USER_DATA" \
   setsid node "$REPO/test/e2e/scenarios.mjs" &
 RUNNER_PID=$!
 wait "$RUNNER_PID"
