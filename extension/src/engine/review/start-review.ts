@@ -2,12 +2,13 @@ import * as path from 'node:path';
 import type { Report } from '../../protocol';
 import { loadSettings } from '../config/load-settings';
 import { openCorpus, openCorpusFromText } from '../read/open-corpus';
-import { buildCountMatrix } from '../tokenize/build-count-matrix';
+import { buildCountMatrix } from '../matrix/build-count-matrix';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { pruneTerms } from '../matrix/prune-terms';
 import { weigh } from '../matrix/weigh';
 import { UserError } from '../user-error';
 import { DistanceLab } from './distance-lab';
+import { FileSnapshot } from './file-snapshot';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { reviewTerms } from '../terms/review-terms';
@@ -40,6 +41,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     labelField: settings.label,
     maxBytes: settings.limits.maxBytes,
   };
+  const snapshot = input.text === undefined ? await FileSnapshot.take(input.file) : null;
   const source =
     input.text !== undefined
       ? openCorpusFromText(input.file, input.text, readOptions)
@@ -51,6 +53,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   stage('tokenizing');
   const buildOptions = hooks.signal === undefined ? {} : { signal: hooks.signal };
   const built = await buildCountMatrix(source, settings.tokens, buildOptions);
+  await snapshot?.assertUnchanged();
   if (built.counts.rows === 0) throw new UserError('no documents with text were found', input.file);
 
   stage('weighting');

@@ -1,0 +1,104 @@
+// Whole-review invariants and edge cases (issue "Robustness and security"): generated corpora
+// must never crash the review, and the what-if must agree with the Report it came from.
+// Invariants follow from the definitions in methods §3 (shares of a total sum to at most 1) and
+// from the what-if's contract (removing nothing changes nothing). Common practice, no source.
+import { strict as assert } from 'node:assert';
+import { appendFileSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import fc from 'fast-check';
+import { startReview } from '../extension/src/engine/review/start-review';
+import type { Measures } from '../extension/src/protocol';
+import { isUserError } from '../extension/src/engine/user-error';
+
+const WORDS = ['alpha', 'beta', 'gamma', 'delta', 'the', 'and', 'of', 'river', 'stone', 'cloud', 'not', 'seven', 'blue', 'green'];
+
+function headline(m: Measures) {
+  return [m.backgroundSimilarity, m.neighborStandout, m.hubness?.skewness ?? null, m.labelPrecisionAtK, m.topTermsMassShare.top10, m.contrast?.median ?? null];
+}
+
+async function reviewText(text: string, extra: { label?: string } = {}) {
+  return startReview({
+    file: 'generated.jsonl',
+    text,
+    configPath: null,
+    overrides: { format: 'jsonl', text: 'text', label: extra.label ?? null, stopList: null, sample: { documents: 50, k: 3 } },
+  });
+}
+
+describe('startReview invariants on generated corpora', function () {
+  this.timeout(300_000);
+  let cases = 0;
+  after(() => console.log(`      generated review cases: ${cases}`));
+
+  it('never fails with anything but a UserError; what-if(nothing) = baseline; what-if(suggestions) = suggested; shares ≤ 1', async () => {
+    const doc = fc.array(fc.constantFrom(...WORDS), { minLength: 0, maxLength: 12 }).map((ws) => ws.join(' '));
+    const corpus = fc.array(fc.record({ text: doc, label: fc.constantFrom('a', 'b', 'c') }), { minLength: 1, maxLength: 40 });
+    await fc.assert(
+      fc.asyncProperty(corpus, async (rows) => {
+        cases++;
+        const text = rows.map((r) => JSON.stringify(r)).join('\n') + '\n';
+        let session;
+        try {
+          session = await reviewText(text, { label: 'label' });
+        } catch (e) {
+          assert.ok(isUserError(e), `unexpected ${(e as Error).stack}`);
+          return;
+        }
+        const r = session.report;
+        assert.deepEqual(headline(session.whatIf([])), headline(r.baseline));
+        assert.deepEqual(headline(session.whatIf(r.suggestions)), headline(r.suggested));
+        const kept = r.terms.filter((t) => t.status !== 'stopped');
+        const total = kept.reduce((s, t) => s + t.pullShare, 0);
+        assert.ok(total <= 1 + 1e-9, `pull shares sum to ${total}`);
+        for (const t of r.terms) assert.ok(t.pullShare >= 0 && t.pullShare <= 1 + 1e-12);
+        for (const h of r.hubs) assert.ok(h.line >= 1 && h.line <= rows.length);
+        assert.ok(r.baseline.backgroundSimilarity >= 0 && r.baseline.backgroundSimilarity <= 1 + 1e-12);
+      }),
+      { numRuns: 60, seed: 20261202 },
+    );
+  });
+
+  it('all documents identical: a defined Report, no suggestion can separate them', async () => {
+    const text = Array.from({ length: 30 }, () => JSON.stringify({ text: 'the same words in every row' })).join('\n');
+    const r = (await reviewText(text)).report;
+    assert.equal(r.input.documents, 30);
+    assert.ok(Math.abs(r.baseline.backgroundSimilarity - 1) < 1e-9);
+  });
+
+  it('documents with no tokens at all: a UserError naming the file', async () => {
+    const text = ['!!!', '...', '?'].map((t) => JSON.stringify({ text: t })).join('\n');
+    await assert.rejects(reviewText(text), (e: unknown) => isUserError(e) && e.file === 'generated.jsonl');
+  });
+
+  it('one document: measures that need pairs are null, nothing throws', async () => {
+    const r = (await reviewText(JSON.stringify({ text: 'a single lonely document about rivers' }))).report;
+    assert.equal(r.input.documents, 1);
+    assert.equal(r.baseline.neighborStandout, null);
+  });
+
+  it('an aborted review rejects with AbortError', async () => {
+    const controller = new AbortController();
+    const text = Array.from({ length: 50 }, (_, i) => JSON.stringify({ text: `river stone ${i}` })).join('\n');
+    const run = startReview(
+      { file: 'g.jsonl', text, configPath: null, overrides: { format: 'jsonl', text: 'text', stopList: null } },
+      { signal: controller.signal, onStage: (s) => s === 'tokenizing' && controller.abort() },
+    );
+    await assert.rejects(run, (e: unknown) => (e as Error).name === 'AbortError');
+  });
+
+  it('a file changed while it is read: the review refuses the mixed result with a UserError', async () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-snapshot-'));
+    const file = path.join(dir, 'corpus.txt');
+    writeFileSync(file, Array.from({ length: 200 }, (_, i) => `river stone cloud number ${i}`).join('\n') + '\n');
+    try {
+      const run = startReview(
+        { file, configPath: null, overrides: { stopList: null } },
+        { onStage: (s) => s === 'tokenizing' && appendFileSync(file, 'a late line written by another program\n') },
+      );
+      await assert.rejects(run, (e: unknown) => isUserError(e) && /changed while it was being read/.test(e.message));
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
