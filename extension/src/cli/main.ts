@@ -4,7 +4,7 @@ import type { Report } from '../protocol';
 import { isUserError } from '../engine/user-error';
 import { startReview } from '../engine/review/start-review';
 import type { ReviewInput, SettingsOverrides } from '../engine/review/review-api';
-import { addTermsToStopList } from '../engine/stoplist/add-terms';
+import { addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
 import { readStopListFile } from '../engine/stoplist/read-stop-list-file';
 import { loadWebviewAssets, renderStandaloneReport } from '../html/standalone-report';
 import { LOUDWORD_VERSION } from '../engine/review/version';
