@@ -22,6 +22,11 @@ type InputLike = { checked: boolean; disabled: boolean; closest(s: string): { ge
 
 const root = join(__dirname, '..');
 const shots = join(root, 'test', 'e2e', 'screenshots');
+// Screenshots cost seconds on a busy machine; take them when asked (LOUDWORD_SCREENSHOTS=1).
+const wantShots = process.env.LOUDWORD_SCREENSHOTS === '1';
+async function shot(page: Page, name: string, fullPage = true): Promise<void> {
+  if (wantShots) await page.screenshot({ path: join(shots, name), fullPage });
+}
 const fixture = (name: string): Report => JSON.parse(readFileSync(join(__dirname, 'fixtures', name), 'utf8')) as Report;
 
 // VS Code "Dark Modern" theme colours, for screenshots that look like the editor (from memory).
@@ -146,8 +151,8 @@ describe('webview in Chromium', function () {
       assert.match((await page.locator(`#${describedBy}`).textContent()) ?? '', /Mean cosine similarity/);
       assert.deepEqual(seen.csp, []);
       assert.deepEqual(seen.errors, []);
-      await page.screenshot({ path: join(shots, 'standalone-light.png'), fullPage: true });
-      await page.screenshot({ path: join(shots, 'standalone-light-top.png') });
+      await shot(page, 'standalone-light.png');
+      await shot(page, 'standalone-light-top.png', false);
     });
 
     it('lists the terms in loudness order, sorts by a header, filters by status and by text', async () => {
@@ -246,7 +251,7 @@ describe('webview in Chromium', function () {
       const bg = await page.evaluate(() => getComputedStyle(document.body).backgroundColor);
       const [r, g, b] = (bg.match(/\d+/g) ?? []).map(Number);
       assert.ok(r! + g! + b! < 3 * 80, `dark background, got ${bg}`);
-      await page.screenshot({ path: join(shots, 'standalone-dark.png'), fullPage: true });
+      await shot(page, 'standalone-dark.png');
     });
   });
 
@@ -400,12 +405,12 @@ describe('webview in Chromium', function () {
         assert.equal(bg, 'rgb(31, 31, 31)', 'body uses --vscode-editor-background (#1f1f1f)');
         await page.waitForTimeout(150); // charts rebuild after the theme observer's short delay
         await page.evaluate(() => window.scrollTo(0, 0));
-        await page.screenshot({ path: join(shots, 'panel-dark-narrow.png'), fullPage: true });
-        await page.screenshot({ path: join(shots, 'panel-dark-narrow-top.png') });
+        await shot(page, 'panel-dark-narrow.png');
+        await shot(page, 'panel-dark-narrow-top.png', false);
         await page.setViewportSize({ width: 1100, height: 900 });
         await page.waitForTimeout(150);
         await page.evaluate(() => window.scrollTo(0, 0));
-        await page.screenshot({ path: join(shots, 'panel-dark-wide.png'), fullPage: true });
+        await shot(page, 'panel-dark-wide.png');
         assert.deepEqual(seen.csp, []);
         assert.deepEqual(seen.errors, []);
       } finally {
