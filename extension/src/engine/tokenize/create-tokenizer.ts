@@ -58,23 +58,25 @@ export function createTokenizer(settings: TokenSettings): (text: string) => stri
   return (text: string): string[] => {
     const doc = nlp.readDoc(text);
     const tokens = doc.tokens();
-    const values = tokens.out() as string[];
-    const forms = lowercase ? (tokens.out(its.normal) as string[]) : values;
+    // Each out() walks every token, so skip the surface text when the normal form is used.
+    const forms = (lowercase ? tokens.out(its.normal) : tokens.out()) as string[];
     const types = tokens.out(its.type) as string[];
     const kept: string[] = [];
     // Sentence id of each kept token, only needed to stop bigrams at sentence ends.
     const sentenceOfKept: number[] | null = ngrams === 2 ? [] : null;
     const spans = ngrams === 2 ? (doc.sentences().out(its.span) as unknown as [number, number][]) : null;
     let sentence = 0;
-    for (let i = 0; i < values.length; i++) {
-      const kind = tokenKindOf(types[i], values[i]);
+    for (let i = 0; i < forms.length; i++) {
+      let term = forms[i]!;
+      // The normal form has the same letters and digits as the surface, which is all
+      // tokenKindOf looks at for wink's "unk" tokens.
+      const kind = tokenKindOf(types[i]!, term);
       if (kind === null || !kinds.has(kind)) continue;
-      let term = forms[i];
       if (minLength > 0 && !LENGTH_EXEMPT.has(kind) && codePointLength(term) < minLength) continue;
       if (stemmer !== null && kind === 'word') term = stemmer(term);
       kept.push(term);
       if (spans !== null && sentenceOfKept !== null) {
-        while (sentence < spans.length - 1 && i > spans[sentence][1]) sentence++;
+        while (sentence < spans.length - 1 && i > spans[sentence]![1]) sentence++;
         sentenceOfKept.push(sentence);
       }
     }

@@ -17,6 +17,7 @@ export function winkInstance(pipe: WinkPipe): WinkMethods {
     // Required here rather than imported at the top so the model is parsed only when needed.
     const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
     nlp = winkNLP(winkModel(), pipe === 'tokens' ? [] : ['sbd']);
+    assertItsRecognised(nlp);
     instances.set(pipe, nlp);
   }
   return nlp;
@@ -29,4 +30,19 @@ export function winkStemmer(): (word: string) => string {
 
 function winkModel(): { addons: { stem: (word: string) => string } } {
   return require('wink-eng-lite-web-model') as { addons: { stem: (word: string) => string } };
+}
+
+/**
+ * wink-nlp checks an its-function by identity against its own module's set and silently falls
+ * back to the surface text when it does not know it. If two copies of wink-nlp end up loaded
+ * (a bundler or loader that duplicates modules), every token would then come out unlowercased
+ * and typed "word" — garbage no test of the output would flag. Fail loudly instead.
+ */
+function assertItsRecognised(nlp: WinkMethods): void {
+  const tokens = nlp.readDoc("Don't").tokens();
+  const normal = (tokens.out(nlp.its.normal) as string[]).join(' ');
+  const types = (tokens.out(nlp.its.type) as string[]).join(' ');
+  if (normal !== 'do not' || types !== 'word word') {
+    throw new Error(`wink-nlp does not recognise its own its-functions (got "${normal}" / "${types}"): two copies of wink-nlp are probably loaded.`);
+  }
 }
