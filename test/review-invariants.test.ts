@@ -77,6 +77,21 @@ describe('startReview invariants on generated corpora', function () {
     assert.equal(r.baseline.neighborStandout, null);
   });
 
+  it('stop-list entries go through the tokenizer: with stemming, "Running" stops the stem of "runs"', async () => {
+    const text = ['runs along the river', 'running stones', 'the river runs'].map((t) => JSON.stringify({ text: t })).join('\n');
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-stem-'));
+    const config = path.join(dir, 'loudword.json');
+    writeFileSync(config, JSON.stringify({ tokens: { stem: true }, format: 'jsonl', text: 'text' }));
+    try {
+      const session = await startReview({ file: path.join(dir, 'c.jsonl'), text, configPath: config, stopListText: '# comment\nRunning\nNeverSeen\n' });
+      const run = session.report.terms.find((t) => t.term === 'run');
+      assert.equal(run?.status, 'stopped');
+      assert.deepEqual(session.report.stopList.unused, ['NeverSeen']);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it('an aborted review rejects with AbortError', async () => {
     const controller = new AbortController();
     const text = Array.from({ length: 50 }, (_, i) => JSON.stringify({ text: `river stone ${i}` })).join('\n');

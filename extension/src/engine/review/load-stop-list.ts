@@ -6,21 +6,31 @@ export interface LoadedStopList {
   /** Absolute path of the stop list file, or null when the settings name none. */
   file: string | null;
   exists: boolean;
-  /** Entries as the vocabulary spells them (lower-cased when the tokenizer lower-cases). */
+  /** Entries as the vocabulary spells them (through the tokenizer: lower-cased, stemmed, …). */
   terms: string[];
+  /** Entries as written in the file, each with its vocabulary spelling. */
+  entries: Array<{ written: string; term: string }>;
 }
 
-/** Reads the project's stop list (or the editor's unsaved text of it) for the baseline. */
+/**
+ * Reads the project's stop list (or the editor's unsaved text of it) for the baseline. Each
+ * entry goes through the same tokenizer as the corpus, so "Running" matches the stem "run" when
+ * stemming is on; an entry the tokenizer splits (a phrase) is kept as written, lower-cased.
+ */
 export async function loadStopList(
   setting: string | null,
   projectDir: string,
   unsavedText: string | undefined,
+  tokenize: (text: string) => string[],
   lowercase: boolean,
 ): Promise<LoadedStopList> {
-  if (setting === null) return { file: null, exists: false, terms: [] };
+  if (setting === null) return { file: null, exists: false, terms: [], entries: [] };
   const file = path.resolve(projectDir, setting);
   const { text, exists } = unsavedText !== undefined ? { text: unsavedText, exists: true } : await readStopListFile(file);
-  const parsed = parseStopList(text);
-  const terms = [...new Set(parsed.terms.map((t) => (lowercase ? t.toLowerCase() : t)))];
-  return { file, exists, terms };
+  const entries = parseStopList(text).terms.map((written) => {
+    const tokens = tokenize(written);
+    const term = tokens.length === 1 ? tokens[0]! : lowercase ? written.toLowerCase() : written;
+    return { written, term };
+  });
+  return { file, exists, terms: [...new Set(entries.map((e) => e.term))], entries };
 }

@@ -48,7 +48,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
       : await openCorpus(input.file, readOptions);
   const projectDir = configDir ?? path.dirname(path.resolve(input.file));
   const tokenize = createTokenizer(settings.tokens);
-  const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, settings.tokens.lowercase);
+  const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, tokenize, settings.tokens.lowercase);
 
   stage('tokenizing');
   const buildOptions = hooks.signal === undefined ? {} : { signal: hooks.signal };
@@ -92,7 +92,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     source,
     built,
     counts,
-    stopList: { ...stopList, unused: unusedEntries(stopList.terms, built.counts.terms) },
+    stopList: { ...stopList, unused: unusedEntries(stopList.entries, built.counts.terms) },
     baseline,
     termReview,
     sample,
@@ -117,8 +117,8 @@ function throwIfAborted(signal: AbortSignal | undefined): void {
   }
 }
 
-/** Stop-list entries that never occur in the corpus (before pruning). */
-function unusedEntries(entries: readonly string[], vocabulary: readonly string[]): string[] {
+/** Stop-list entries, as written, that never occur in the corpus (before pruning). */
+function unusedEntries(entries: ReadonlyArray<{ written: string; term: string }>, vocabulary: readonly string[]): string[] {
   const seen = new Set(vocabulary);
-  return entries.filter((t) => !seen.has(t));
+  return entries.filter((e) => !seen.has(e.term)).map((e) => e.written);
 }
