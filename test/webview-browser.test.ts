@@ -145,7 +145,7 @@ describe('webview in Chromium', function () {
       assert.equal(await verdictOf('neighborStandout'), 'better');
       assert.equal(await verdictOf('contrastMedian'), 'neutral');
       // Every tile carries its meaning for hover and for assistive technology.
-      const tile = page.locator('[data-measure="backgroundSimilarity"]');
+      const tile = page.locator('.lw-tile[data-measure="backgroundSimilarity"]');
       assert.match((await tile.getAttribute('title')) ?? '', /Mean cosine similarity over all document pairs/);
       const describedBy = await tile.getAttribute('aria-describedby');
       assert.match((await page.locator(`#${describedBy}`).textContent()) ?? '', /Mean cosine similarity/);
@@ -326,6 +326,8 @@ describe('webview in Chromium', function () {
         await send(page, { type: 'whatIfResult', removed: request.removed, measures: measures(0.1234), requestId: request.requestId });
         await page.waitForSelector('[data-measure="backgroundSimilarity"] [data-role="selection"]');
         assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.123');
+        // The sticky toolbar's one-line summary follows the selection too.
+        assert.equal(await page.locator('.lw-toolbar [data-measure="backgroundSimilarity"] [data-role="live"]').textContent(), '0.123');
         // 2.61 → 2.1 is a drop in standout: worse.
         assert.equal(await page.locator('[data-measure="neighborStandout"] .lw-v--selection').getAttribute('data-verdict'), 'worse');
         await send(page, { type: 'whatIfResult', removed: request.removed, measures: measures(0.9), requestId: request.requestId - 1 });

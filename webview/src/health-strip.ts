@@ -118,3 +118,26 @@ function valueSpan(
 function plural(n: number, word: string): string {
   return `${n.toLocaleString('en-US')} ${word}${n === 1 ? '' : 's'}`;
 }
+
+/**
+ * The headline measures in one line for the sticky term toolbar, so the effect of a toggle is
+ * visible even when the strip has scrolled away (the panel is often short).
+ */
+export function renderLiveSummary(input: StripInput): HTMLElement {
+  const current = input.selection?.measures ?? input.suggested;
+  const parts: Child[] = [];
+  for (const spec of measureCatalog) {
+    if (!spec.primary) continue;
+    const base = spec.value(input.baseline);
+    const now = spec.value(current);
+    if (now === null) continue;
+    if (parts.length > 0) parts.push(el('span', { className: 'lw-live__sep', text: '·', attrs: { 'aria-hidden': 'true' } }));
+    parts.push(
+      el('span', { className: 'lw-live__item', attrs: { title: spec.meaning, 'data-measure': spec.id } }, [
+        el('span', { className: 'lw-live__label', text: `${spec.label} ` }),
+        valueSpan(spec, 'live', now, base, verdict(spec, base, now), input.selection ? 'your selection' : 'with suggestions'),
+      ]),
+    );
+  }
+  return el('span', { className: 'lw-live', attrs: { 'data-pending': input.pending } }, parts);
+}

@@ -5,7 +5,7 @@ import type { Measures, Report, WhatIfResultMessage } from '../../extension/src/
 import { ChartPanel } from './charts';
 import { watchTheme } from './chart-theme';
 import { el, replaceChildren } from './create-element';
-import { renderHealthStrip } from './health-strip';
+import { renderHealthStrip, renderLiveSummary, type StripInput } from './health-strip';
 import type { HostBridge } from './host-bridge';
 import { renderHubList } from './hub-list';
 import { renderReportHeader, renderSettingsFooter } from './report-header';
@@ -21,6 +21,7 @@ interface Loaded {
   charts: ChartPanel;
   stripSlot: HTMLElement;
   checkedCount: HTMLElement;
+  liveSlot: HTMLElement;
   addButton: HTMLButtonElement | null;
   resetButton: HTMLButtonElement | null;
 }
@@ -66,17 +67,18 @@ export class PanelApp {
     const resetButton = panel ? button('Reset to suggestions', 'secondary', () => this.resetToSuggestions()) : null;
     const addButton = panel ? button('Add checked terms to stop list', 'primary', () => this.addChecked()) : null;
     const checkedCount = el('span', { className: 'lw-checked-count' });
+    const liveSlot = el('span', { className: 'lw-live-slot', attrs: { 'aria-live': 'polite' } });
 
     const table = new TermTable(report.terms, this.state, checked, {
       togglesEnabled: panel,
-      actions: [checkedCount, resetButton, addButton].filter((x): x is HTMLElement => x !== null),
+      actions: [liveSlot, checkedCount, resetButton, addButton].filter((x): x is HTMLElement => x !== null),
       onToggle: (term, on) => this.toggle(term, on),
       onViewChange: () => this.save(),
     });
     const stripSlot = el('div', { className: 'lw-strip-slot' });
     const charts = new ChartPanel(report, this.currentSetting(report));
 
-    this.loaded = { report, checked, suggestionSet, table, charts, stripSlot, checkedCount, addButton, resetButton };
+    this.loaded = { report, checked, suggestionSet, table, charts, stripSlot, checkedCount, liveSlot, addButton, resetButton };
 
     const termNote = panel
       ? el('p', { className: 'lw-hint', text: 'Check or uncheck terms to see what the measures and charts would be with that stop list.' })
@@ -191,15 +193,15 @@ export class PanelApp {
     const l = this.loaded;
     if (!l) return;
     const selection = this.selectionMeasures();
-    replaceChildren(l.stripSlot, [
-      renderHealthStrip({
-        baseline: l.report.baseline,
-        suggested: l.report.suggested,
-        suggestedCount: l.suggestionSet.size,
-        selection: selection ? { measures: selection, removedCount: this.state.whatIf?.removed.length ?? 0 } : null,
-        pending: this.requester.pending,
-      }),
-    ]);
+    const input: StripInput = {
+      baseline: l.report.baseline,
+      suggested: l.report.suggested,
+      suggestedCount: l.suggestionSet.size,
+      selection: selection ? { measures: selection, removedCount: this.state.whatIf?.removed.length ?? 0 } : null,
+      pending: this.requester.pending,
+    };
+    replaceChildren(l.stripSlot, [renderHealthStrip(input)]);
+    replaceChildren(l.liveSlot, [renderLiveSummary(input)]);
   }
 
   private renderSelectionControls(): void {
