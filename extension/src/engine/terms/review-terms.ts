@@ -2,7 +2,8 @@ import type { EffectiveSettings, TermRow } from '../../protocol';
 import type { CountMatrix } from '../matrix/csr';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread, termSums } from '../measures/term-sums';
-import type { DistanceLab, DistanceResult } from '../review/distance-lab';
+import { DistanceLab, type DistanceResult } from '../review/distance-lab';
+import { SampleProbe } from '../review/sample-probe';
 import type { TermIndex } from '../review/term-index';
 import { explainTerm } from './explain-term';
 import { lightWordColumns, priorColumns, protectedColumns } from './prior-columns';
@@ -52,14 +53,15 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   // Closed-class words first, heaviest first; the light words after them.
   const heaviestFirst = (cols: Set<number>): number[] => [...cols].filter(open).sort((a, b) => basePairMass[b]! - basePairMass[a]!);
   const priorOrder = [...heaviestFirst(functionWords), ...heaviestFirst(lightWords)];
+  const probe = new SampleProbe(lab.weights, lab.sample, lab.k, lab.sampleLabels);
   const plan = suggestTerms({
-    lab,
+    probe,
     baseMask,
-    baseline,
+    baseline: probe.evaluate(baseMask),
     priorColumns: priorOrder,
     max: settings.suggest.max,
     rankLoudColumns(neighbors, accepted) {
-      const scores = termScores(basePairMass, knnTermMass(lab.masked(baseMask), lab.sample, neighbors, lab.k));
+      const scores = termScores(basePairMass, knnTermMass(lab.masked(baseMask), probe.sample, neighbors, lab.k));
       const loud: number[] = [];
       for (let c = 0; c < cols; c++) {
         if (!open(c) || accepted.has(c) || prior.has(c)) continue;
@@ -70,7 +72,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
       return loud.slice(0, LOUD_CANDIDATES);
     },
   });
-  const suggested = plan.accepted.length > 0 ? plan.result : lab.measure(baseMask, baseline.neighbors);
+  const suggested = lab.measure(DistanceLab.union(baseMask, plan.accepted), baseline.neighbors);
 
   // Scores for the table: kept terms on the baseline weights; stopped terms as if un-stopped.
   const baseWeights = lab.masked(baseMask);

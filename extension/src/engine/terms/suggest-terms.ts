@@ -1,5 +1,5 @@
-import type { DistanceLab, DistanceResult } from '../review/distance-lab';
-import { DistanceLab as Lab } from '../review/distance-lab';
+import { DistanceLab } from '../review/distance-lab';
+import type { ProbeResult, SampleProbe } from '../review/sample-probe';
 
 /** What the what-if must show before a group of terms joins the suggestions. */
 export interface SuggestionPlan {
@@ -9,17 +9,17 @@ export interface SuggestionPlan {
   rejected: number[];
   /** Which of the accepted columns came from the function-word prior. */
   fromPrior: Set<number>;
-  /** The measures with the accepted columns removed. */
-  result: DistanceResult;
+  /** The probe of the setting with the accepted columns removed. */
+  result: ProbeResult;
   /** How many what-if evaluations the plan took. */
   evaluations: number;
 }
 
 export interface SuggestionInput {
-  lab: DistanceLab;
+  probe: SampleProbe;
   /** Columns already removed by the project's stop list. */
   baseMask: Uint8Array;
-  baseline: DistanceResult;
+  baseline: ProbeResult;
   /** Function-word columns, already filtered (not stopped, not protected), heaviest first. */
   priorColumns: number[];
   /**
@@ -44,8 +44,7 @@ const MAX_REJECTED_GROUPS_IN_A_ROW = 3;
  * rises (methods §4). Neighbour standout and label precision are what tracked precision there.
  */
 export function suggestTerms(input: SuggestionInput): SuggestionPlan {
-  const { lab, baseMask, baseline, max } = input;
-  const baselineNeighbors = baseline.neighbors;
+  const { probe, baseMask, baseline, max } = input;
   const accepted: number[] = [];
   const rejected: number[] = [];
   const fromPrior = new Set<number>();
@@ -54,8 +53,8 @@ export function suggestTerms(input: SuggestionInput): SuggestionPlan {
   let evaluations = 0;
 
   const tryGroup = (group: number[], mustImprove: boolean): boolean => {
-    const trialMask = Lab.union(mask, group);
-    const trial = lab.measure(trialMask, baselineNeighbors);
+    const trialMask = DistanceLab.union(mask, group);
+    const trial = probe.evaluate(trialMask);
     evaluations++;
     if (!isAcceptable(current, trial, mustImprove)) return false;
     current = trial;
@@ -93,11 +92,11 @@ const STANDOUT_TOLERANCE = 0.02;
 const STANDOUT_GAIN = 0;
 const PRECISION_TOLERANCE = 0.002;
 
-function isAcceptable(before: DistanceResult, after: DistanceResult, mustImprove: boolean): boolean {
-  const s0 = before.measures.neighborStandout;
-  const s1 = after.measures.neighborStandout;
-  const p0 = before.measures.labelPrecisionAtK;
-  const p1 = after.measures.labelPrecisionAtK;
+function isAcceptable(before: ProbeResult, after: ProbeResult, mustImprove: boolean): boolean {
+  const s0 = before.neighborStandout;
+  const s1 = after.neighborStandout;
+  const p0 = before.labelPrecisionAtK;
+  const p1 = after.labelPrecisionAtK;
   if (s0 === null || s1 === null) return false;
   if (p0 !== null && p1 !== null && p1 < p0 - PRECISION_TOLERANCE) return false;
   if (!mustImprove) return s1 >= s0 - STANDOUT_TOLERANCE;
