@@ -126,6 +126,7 @@ if [[ -z "$VSIX" ]]; then
       --exclude=./samples --exclude=./extension --exclude=./webview --exclude=./scripts --exclude=./.e2e \
       --exclude='./*.vsix' --exclude='./loudword-report.html' --exclude=./.vscodeignore -cf - . | tar -C "$STAGE" -xf -
   (cd "$STAGE" && "$REPO/node_modules/.bin/vsce" package --no-dependencies --allow-missing-repository --skip-license \
+      --baseContentUrl https://loudword.invalid/ --baseImagesUrl https://loudword.invalid/ \
       --out "$TMP/loudword.vsix" </dev/null >"$TMP/vsce-stage.log" 2>&1) \
     || { tail -15 "$TMP/vsce-stage.log" >&2; die "vsce package of the staged extension (log: $TMP/vsce-stage.log)"; }
   VSIX="$TMP/loudword.vsix"; how="vsce on a staging copy"

@@ -2,5 +2,10 @@
 // (lib/review-corpus.mjs caches it) and each puts back any file it edits.
 import { smoke } from './scenarios/smoke.mjs';
 import { reviewFromPalette } from './scenarios/review-from-palette.mjs';
+import { toggleWhatIf } from './scenarios/toggle-what-if.mjs';
+import { quickFixAddTerm } from './scenarios/quick-fix-add-term.mjs';
+import { deadStopEntry } from './scenarios/dead-stop-entry.mjs';
+import { htmlPayloadCorpus } from './scenarios/html-payload-corpus.mjs';
+import { malformedCorpus } from './scenarios/malformed-corpus.mjs';
 
-export const scenarios = [smoke, reviewFromPalette];
+export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus];

@@ -47,12 +47,18 @@ try {
     const shot = path.join(screenshotsDir, `${String(index + 1).padStart(2, '0')}-${scenario.slug}.png`);
     const started = Date.now();
     let error = null;
+    let shotTaken = false;
+    // A scenario may take its screenshot at the telling moment, before it tidies up.
+    ctx.screenshot = async () => {
+      await page.screenshot({ path: shot });
+      shotTaken = true;
+    };
     try {
       await withTimeout(scenario.run(ctx), SCENARIO_TIMEOUT_MS, `scenario "${scenario.name}"`);
     } catch (e) {
       error = e;
     }
-    await page.screenshot({ path: shot }).catch((e) => console.log(`  (screenshot failed: ${e.message.split('\n')[0]})`));
+    if (error || !shotTaken) await page.screenshot({ path: shot }).catch((e) => console.log(`  (screenshot failed: ${e.message.split('\n')[0]})`));
     const seconds = ((Date.now() - started) / 1000).toFixed(1);
     if (error) {
       failed++;

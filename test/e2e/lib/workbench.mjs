@@ -56,13 +56,20 @@ export async function runCommand(page, title) {
 /** Quick-opens a workspace file by name and waits for its tab to be the active one. */
 export async function openFile(page, fileName) {
   await openPalette(page, fileName);
+  let seen = [];
   const row = await waitUntil(`"${fileName}" in quick open`, async () => {
+    seen = [];
     for (const handle of await page.$$(QUICK_INPUT_ROWS)) {
-      const label = (await handle.getAttribute('aria-label')) ?? '';
-      if (label.split(',')[0].trim() === fileName) return handle;
+      // aria-label is "<name>, <description>"; a dirty or decorated file may phrase it otherwise.
+      const label = ((await handle.getAttribute('aria-label')) ?? '').trim();
+      const name = ((await handle.$eval('.label-name', (e) => e.textContent ?? '').catch(() => '')) || label.split(',')[0]).trim();
+      seen.push(label);
+      if (name === fileName || label.startsWith(fileName + ',')) return handle;
     }
     return null;
-  }, { timeout: 15000 });
+  }, { timeout: 15000 }).catch((e) => {
+    throw new Error(`${e.message}; rows: ${JSON.stringify(seen.slice(0, 4))}`);
+  });
   await row.click();
   await waitForActiveTab(page, fileName);
   await page.waitForTimeout(300);
@@ -94,7 +101,14 @@ export async function focusActiveEditor(page) {
 
 /** Text of the toasts currently shown (errors, progress, information). */
 export async function notificationTexts(page) {
-  return page.$$eval('.notifications-toasts .notification-toast', (els) => els.map((e) => e.textContent ?? '')).catch(() => []);
+  return page.$$eval('.notifications-toasts .notification-toast .notification-list-item-message', (els) => els.map((e) => e.textContent ?? '')).catch(() => []);
+}
+
+/** Messages of the error toasts on screen. */
+export async function errorNotificationTexts(page) {
+  return page.$$eval('.notifications-toasts .notification-toast', (els) => els
+    .filter((e) => e.querySelector('.codicon-error, .codicon-notifications-error, .error'))
+    .map((e) => e.querySelector('.notification-list-item-message')?.textContent ?? '')).catch(() => []);
 }
 
 export async function clearNotifications(page) {
@@ -122,7 +136,45 @@ export async function workbenchResponds(page) {
 
 async function openPalette(page, text) {
   if (await page.isVisible(QUICK_INPUT)) await page.keyboard.press('Escape');
-  await page.keyboard.press('F1');
-  await named('the command palette', page.waitForSelector(QUICK_INPUT_BOX, { state: 'visible', timeout: 10000 }));
+  // F1 can be swallowed while the workbench is still restoring focus: press it again.
+  await waitUntil('the command palette to open (F1)', async () => {
+    await page.keyboard.press('F1');
+    return page.waitForSelector(QUICK_INPUT_BOX, { state: 'visible', timeout: 4000 }).then(() => true, () => false);
+  }, { timeout: 20000, interval: 500 });
   await page.fill(QUICK_INPUT_BOX, text);
+}
+
+/** Ctrl+. in the active editor, then picks the code action titled `title` from the menu. */
+export async function applyQuickFix(page, title) {
+  let labels = [];
+  const row = await waitUntil(`the quick fix "${title}" in the Ctrl+. menu`, async () => {
+    if (!(await page.isVisible('.action-widget'))) {
+      await page.keyboard.press('Control+Period');
+      await page.waitForSelector('.action-widget', { state: 'visible', timeout: 3000 }).catch(() => {});
+    }
+    const rows = await page.$$('.action-widget .monaco-list-row');
+    labels = [];
+    for (const r of rows) {
+      const label = ((await r.getAttribute('aria-label')) ?? (await r.textContent()) ?? '').trim();
+      labels.push(label);
+      if (label === title || label.startsWith(title)) return r;
+    }
+    // The provider may answer after the menu opened (the review is still landing): ask again.
+    await page.keyboard.press('Escape');
+    return null;
+  }, { timeout: 30000, interval: 1000 }).catch((e) => {
+    throw new Error(`${e.message}; menu showed ${JSON.stringify(labels)}`);
+  });
+  await row.click();
+  await waitUntil('the quick-fix menu to close', async () => !(await page.isVisible('.action-widget')), { timeout: 5000 });
+}
+
+/** Ctrl+S on the active editor, waiting until its tab no longer shows unsaved changes. */
+export async function saveActiveEditor(page, fileName) {
+  await focusActiveEditor(page);
+  await page.keyboard.press('Control+S');
+  await waitUntil(`"${fileName}" to be saved`, async () => {
+    const dirty = await page.$('.tabs-container .tab.active.dirty');
+    return dirty === null;
+  }, { timeout: 10000 });
 }
