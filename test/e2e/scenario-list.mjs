@@ -7,5 +7,6 @@ import { quickFixAddTerm } from './scenarios/quick-fix-add-term.mjs';
 import { deadStopEntry } from './scenarios/dead-stop-entry.mjs';
 import { htmlPayloadCorpus } from './scenarios/html-payload-corpus.mjs';
 import { malformedCorpus } from './scenarios/malformed-corpus.mjs';
+import { exportHtmlReport } from './scenarios/export-html-report.mjs';
 
-export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus];
+export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport];

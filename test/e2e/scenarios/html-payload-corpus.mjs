@@ -21,6 +21,7 @@ export const htmlPayloadCorpus = {
         const previews = await frame.$$eval('.lw-hub__preview', (els) => els.map((e) => e.textContent ?? ''));
         return previews.length > 0 ? previews : null;
       }, { timeout: 20000 });
+      await frame.$eval('.lw-hubs', (e) => e.scrollIntoView({ block: 'center' })).catch(() => {});
       await ctx.screenshot();
       const problems = [];
       if (!found.some((p) => p.includes('<script>') || p.includes('<img') || p.includes('<svg'))) {
