@@ -50,7 +50,12 @@ export async function runCommand(page, title) {
     return null;
   }, { timeout: 15000 });
   await row.click();
-  await waitUntil(`the command palette to close after "${title}"`, async () => !(await page.isVisible(QUICK_INPUT)), { timeout: 5000 });
+  // Closed, or taken over by the command's own quick input (a picker, a save dialog).
+  await waitUntil(`the command palette to close after "${title}"`, async () => {
+    if (!(await page.isVisible(QUICK_INPUT))) return true;
+    const value = await page.inputValue(QUICK_INPUT_BOX).catch(() => '');
+    return !value.startsWith('>');
+  }, { timeout: 5000 });
 }
 
 /** Quick-opens a workspace file by name and waits for its tab to be the active one. */

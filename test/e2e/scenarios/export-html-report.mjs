@@ -21,8 +21,14 @@ export const exportHtmlReport = {
     // code-server's save dialog is a quick input holding the suggested path: accept it.
     const box = '.quick-input-widget .quick-input-box input';
     await named('the save dialog', ctx.page.waitForSelector(box, { state: 'visible', timeout: 15000 }));
-    const proposed = await ctx.page.inputValue(box);
-    if (!proposed.endsWith(path.basename(target))) throw new Error(`the save dialog proposes "${proposed}", expected …/${path.basename(target)}`);
+    // The dialog types the folder first and the file name a moment later.
+    let proposed = '';
+    await waitUntil(`the save dialog to propose …/${path.basename(target)}`, async () => {
+      proposed = await ctx.page.inputValue(box);
+      return proposed.endsWith(path.basename(target));
+    }, { timeout: 15000 }).catch((e) => {
+      throw new Error(`${e.message}; it shows "${proposed}"`);
+    });
     await ctx.page.keyboard.press('Enter');
     await waitUntil(`${path.basename(target)} on disk`, () => existsSync(target), { timeout: 30000 });
     await waitUntil('the "report written" notification', async () => (await notificationTexts(ctx.page)).some((t) => t.includes('report written')), { timeout: 15000 });
