@@ -36,6 +36,11 @@ export interface MeasureDistancesOptions {
   baselineNeighbors: Uint32Array | null;
   /** termSums(X) when the caller already has it. */
   sums?: TermSums;
+  /**
+   * Non-empty rows of the whole corpus when X holds only the sampled rows: the what-if passes
+   * the masked sample alone (with `sums` of the whole masked corpus) to avoid an n-sized copy.
+   */
+  nonEmptyRows?: number;
 }
 
 export interface MeasureDistancesResult {
@@ -69,7 +74,7 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   }
 
   const sums = options.sums ?? termSums(X);
-  const mass = pairMass(sums, countNonEmptyRows(X));
+  const mass = pairMass(sums, options.nonEmptyRows ?? countNonEmptyRows(X));
 
   const gram = sampleSimilarities(X, sample);
   const valid = validRowsFromGram(gram, m);

@@ -1,7 +1,6 @@
 import type { EffectiveSettings, HubRow, Report } from '../../protocol';
-import { nnz, type CountMatrix } from '../matrix/csr';
 import type { CorpusSource } from '../read/corpus-source';
-import type { BuiltCorpus } from '../matrix/build-count-matrix';
+import type { PreparedWeights } from './prepare-weights';
 import type { TermReview } from '../terms/review-terms';
 import type { ReviewSample } from './choose-sample';
 import type { DistanceResult } from './distance-lab';
@@ -12,9 +11,7 @@ const HUBS_IN_REPORT = 12;
 export interface ReportParts {
   settings: EffectiveSettings;
   source: CorpusSource;
-  built: BuiltCorpus;
-  /** Counts after pruning: the vocabulary the measures saw. */
-  counts: CountMatrix;
+  prepared: PreparedWeights;
   stopList: { file: string | null; terms: string[]; unused: string[] };
   baseline: DistanceResult;
   termReview: TermReview;
@@ -23,9 +20,7 @@ export interface ReportParts {
 
 /** The Report of design.md, from the parts of a finished review. */
 export function assembleReport(p: ReportParts): Report {
-  const documents = p.counts.rows;
-  let tokens = 0;
-  for (let r = 0; r < documents; r++) tokens += p.built.counts.tokensPerDoc[r]!;
+  const { documents, tokens } = p.prepared;
   return {
     tool: { name: 'loudword', version: LOUDWORD_VERSION },
     input: {
@@ -40,7 +35,7 @@ export function assembleReport(p: ReportParts): Report {
       notes: p.source.notes && p.source.notes.length > 0 ? [...p.source.notes] : undefined,
     },
     settings: p.settings,
-    vocabulary: { terms: p.counts.cols, tokens, nonzeros: nnz(p.counts), meanDocLength: documents > 0 ? tokens / documents : 0 },
+    vocabulary: { terms: p.prepared.terms.length, tokens, nonzeros: p.prepared.nonzeros, meanDocLength: documents > 0 ? tokens / documents : 0 },
     baseline: p.baseline.measures,
     suggested: p.termReview.suggested.measures,
     terms: p.termReview.rows,
@@ -56,7 +51,7 @@ function hubRows(p: ReportParts): HubRow[] {
   for (let i = 0; i < hubPositions.length && rows.length < HUBS_IN_REPORT; i++) {
     const position = hubPositions[i]!;
     const doc = p.sample.positions[position]!;
-    rows.push({ doc, line: p.built.lines[doc]!, kOccurrence: kOccurrence[position]!, preview: p.built.previews[doc] ?? '' });
+    rows.push({ doc, line: p.prepared.lines[doc]!, kOccurrence: kOccurrence[position]!, preview: p.prepared.previews[doc] ?? '' });
   }
   return rows;
 }

@@ -1,48 +1,61 @@
 import type { Csr } from '../matrix/csr';
-import { maskTerms } from '../matrix/mask-terms';
+import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
+import { selectRows } from '../matrix/select-rows';
+import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
 import { measureDistances } from '../measures/measure-distances';
 
 export type DistanceResult = ReturnType<typeof measureDistances>;
 
 /**
  * Holds the full weight matrix (no stop list applied) and measures it under any set of removed
- * columns: mask, renormalise each row (O(nnz)), then the measures on the seeded sample.
- * This is the what-if behind the suggestions and the panel's toggles; nothing is re-tokenised.
+ * columns — the what-if behind the suggestions and the panel's toggles; nothing is re-tokenised.
+ * The exact part (term sums over all rows) is one pass that renormalises on the fly; the sampled
+ * part masks a copy of the m sampled rows only. The n-row masked matrix is never written.
  */
 export class DistanceLab {
-  private readonly scratch: { indptr: Uint32Array; indices: Uint32Array; data: Float64Array };
+  /** The sampled rows, unmasked, in sample order. */
+  readonly sampleRows: Csr;
+  /** 0..m−1: sample positions, for functions that take (rows, sample) pairs. */
+  readonly positions: Uint32Array;
+  private readonly buffers: CsrBuffers;
 
   constructor(
     /** l2-normalised weights of every kept term; removing a column and renormalising equals
      *  weighting without that term, because idf depends only on the term's own df. */
     readonly weights: Csr,
+    /** Document index of each sample position. */
     readonly sample: Uint32Array,
     readonly k: number,
     readonly seed: number,
     /** Label id per sample position, −1 where the document has none; null without labels. */
     readonly sampleLabels: Int32Array | null,
   ) {
-    const nnz = weights.indptr[weights.rows] ?? 0;
-    this.scratch = {
-      indptr: new Uint32Array(weights.rows + 1),
-      indices: new Uint32Array(nnz),
-      data: new Float64Array(nnz),
-    };
+    this.sampleRows = selectRows(weights, sample);
+    this.positions = new Uint32Array(sample.length).map((_, i) => i);
+    const nnz = this.sampleRows.indptr[this.sampleRows.rows]!;
+    this.buffers = { indptr: new Uint32Array(sample.length + 1), indices: new Uint32Array(nnz), data: new Float64Array(nnz) };
   }
 
-  /** The masked matrix: rows renormalised over the terms that remain. */
-  masked(removed: Uint8Array): Csr {
-    return maskTerms(this.weights, removed, 'l2', this.scratch);
+  /** Exact term sums of the whole corpus with `removed` stopped. */
+  sums(removed: Uint8Array, withSpread = false): MaskedTermSums {
+    return maskedTermSums(this.weights, removed, withSpread);
+  }
+
+  /** The sampled rows with `removed` stopped, renormalised (reused buffers: valid until the next call). */
+  maskedSample(removed: Uint8Array): Csr {
+    return maskTerms(this.sampleRows, removed, 'l2', this.buffers);
   }
 
   measure(removed: Uint8Array, baselineNeighbors: Uint32Array | null): DistanceResult {
-    const x = this.masked(removed);
-    return measureDistances(x, {
-      sample: this.sample,
+    const { sums, nonEmptyRows } = this.sums(removed);
+    return measureDistances(this.maskedSample(removed), {
+      sample: this.positions,
       k: this.k,
       seed: this.seed,
       labels: this.sampleLabels,
       baselineNeighbors,
+      sums,
+      nonEmptyRows,
     });
   }
 

@@ -25,27 +25,32 @@ export const PROBE_DOCUMENTS = 1000;
  * the chosen list, on the whole sample.
  */
 export class SampleProbe {
-  /** Document index of each probe position. */
-  readonly sample: Uint32Array;
+  /** 0..p−1: probe positions, for functions that take (rows, sample) pairs. */
+  readonly identity: Uint32Array;
   private readonly labels: Int32Array | null;
   private readonly rows: Csr;
-  private readonly identity: Uint32Array;
   private readonly buffers: CsrBuffers;
 
-  constructor(weights: Csr, sample: Uint32Array, readonly k: number, sampleLabels: Int32Array | null) {
-    const stride = Math.max(1, Math.ceil(sample.length / PROBE_DOCUMENTS));
-    const picked = Array.from({ length: Math.ceil(sample.length / stride) }, (_, i) => i * stride);
-    this.sample = Uint32Array.from(picked, (i) => sample[i]!);
+  /** `sampleRows`: the review's sampled rows in sample order; `sampleLabels` per sample position. */
+  constructor(sampleRows: Csr, readonly k: number, sampleLabels: Int32Array | null) {
+    const m = sampleRows.rows;
+    const stride = Math.max(1, Math.ceil(m / PROBE_DOCUMENTS));
+    const picked = Uint32Array.from({ length: Math.ceil(m / stride) }, (_, i) => i * stride);
     this.labels = sampleLabels === null ? null : Int32Array.from(picked, (i) => sampleLabels[i]!);
-    this.rows = selectRows(weights, this.sample);
-    this.identity = new Uint32Array(this.sample.length).map((_, i) => i);
+    this.rows = selectRows(sampleRows, picked);
+    this.identity = new Uint32Array(picked.length).map((_, i) => i);
     const nnz = this.rows.indptr[this.rows.rows]!;
     this.buffers = { indptr: new Uint32Array(this.rows.rows + 1), indices: new Uint32Array(nnz), data: new Float64Array(nnz) };
   }
 
+  /** The probe's rows with `removed` stopped (reused buffers: valid until the next call). */
+  maskedRows(removed: Uint8Array): Csr {
+    return maskTerms(this.rows, removed, 'l2', this.buffers);
+  }
+
   evaluate(removed: Uint8Array): ProbeResult {
     const m = this.identity.length;
-    const x = maskTerms(this.rows, removed, 'l2', this.buffers);
+    const x = this.maskedRows(removed);
     const gram = sampleSimilarities(x, this.identity);
     const valid = validRowsFromGram(gram, m);
     const knn = knnFromSimilarities(gram, m, this.k, valid);

@@ -2,13 +2,10 @@ import * as path from 'node:path';
 import type { Report } from '../../protocol';
 import { loadSettings } from '../config/load-settings';
 import { openCorpus, openCorpusFromText } from '../read/open-corpus';
-import { buildCountMatrix } from '../matrix/build-count-matrix';
 import { createTokenizer } from '../tokenize/create-tokenizer';
-import { pruneTerms } from '../matrix/prune-terms';
-import { weigh } from '../matrix/weigh';
-import { UserError } from '../user-error';
 import { DistanceLab } from './distance-lab';
 import { FileSnapshot } from './file-snapshot';
+import { prepareWeights } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { reviewTerms } from '../terms/review-terms';
@@ -51,26 +48,13 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, tokenize, settings.tokens.lowercase);
 
   stage('tokenizing');
-  const buildOptions = hooks.signal === undefined ? {} : { signal: hooks.signal };
-  const built = await buildCountMatrix(source, settings.tokens, buildOptions);
-  await snapshot?.assertUnchanged();
-  if (built.counts.rows === 0) throw new UserError('no documents with text were found', input.file);
-
-  stage('weighting');
-  // The stop list is applied later as a column mask, not here, so that the review can still say
-  // how much a stopped term would pull and whether it carries neighbour signal.
-  const pruned = pruneTerms(built.counts, { minDf: settings.prune.minDf, maxDf: settings.prune.maxDf, stopTerms: new Set() });
-  const counts = pruned.counts;
-  if (counts.cols === 0) {
-    throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', input.file);
-  }
-  // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
-  const { weights, idf } = weigh(counts, { ...settings.weighting, norm: 'l2' });
-  const index = new TermIndex(counts.terms);
+  const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal);
+  const { weights } = prepared;
+  const index = new TermIndex(prepared.terms);
   const baseMask = index.mask(stopList.terms);
 
   stage('measuring');
-  const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, built.labels);
+  const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels);
   const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels);
   const baseline = lab.measure(baseMask, null);
 
@@ -79,8 +63,8 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     lab,
     baseMask,
     baseline,
-    counts,
-    idf,
+    documents: prepared.documents,
+    idf: prepared.idf,
     index,
     tokenize,
     settings,
@@ -90,9 +74,8 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const report: Report = assembleReport({
     settings,
     source,
-    built,
-    counts,
-    stopList: { ...stopList, unused: unusedEntries(stopList.entries, built.counts.terms) },
+    prepared,
+    stopList: { ...stopList, unused: stopList.entries.filter((e) => !prepared.seenTerms.has(e.term)).map((e) => e.written) },
     baseline,
     termReview,
     sample,
@@ -117,8 +100,3 @@ function throwIfAborted(signal: AbortSignal | undefined): void {
   }
 }
 
-/** Stop-list entries, as written, that never occur in the corpus (before pruning). */
-function unusedEntries(entries: ReadonlyArray<{ written: string; term: string }>, vocabulary: readonly string[]): string[] {
-  const seen = new Set(vocabulary);
-  return entries.filter((e) => !seen.has(e.term)).map((e) => e.written);
-}

@@ -1,5 +1,4 @@
 import type { EffectiveSettings, TermRow } from '../../protocol';
-import type { CountMatrix } from '../matrix/csr';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread, termSums } from '../measures/term-sums';
 import { DistanceLab, type DistanceResult } from '../review/distance-lab';
@@ -14,7 +13,7 @@ export interface TermReviewInput {
   lab: DistanceLab;
   baseMask: Uint8Array;
   baseline: DistanceResult;
-  counts: CountMatrix;
+  documents: number;
   idf: Float64Array;
   index: TermIndex;
   tokenize: (text: string) => string[];
@@ -41,8 +40,8 @@ const REPORT_ROWS = 2000;
  * (methods §8).
  */
 export function reviewTerms(input: TermReviewInput): TermReview {
-  const { lab, baseMask, baseline, counts, idf, index, tokenize, settings } = input;
-  const cols = counts.cols;
+  const { lab, baseMask, baseline, documents, idf, index, tokenize, settings } = input;
+  const cols = lab.weights.cols;
   const basePairMass = baseline.pairMass.perTerm;
   const functionWords = settings.suggest.functionWordPrior ? priorColumns(index, tokenize, settings.tokens.ngrams === 2) : new Set<number>();
   const lightWords = settings.suggest.functionWordPrior ? lightWordColumns(index, tokenize, functionWords) : new Set<number>();
@@ -53,7 +52,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   // Closed-class words first, heaviest first; the light words after them.
   const heaviestFirst = (cols: Set<number>): number[] => [...cols].filter(open).sort((a, b) => basePairMass[b]! - basePairMass[a]!);
   const priorOrder = [...heaviestFirst(functionWords), ...heaviestFirst(lightWords)];
-  const probe = new SampleProbe(lab.weights, lab.sample, lab.k, lab.sampleLabels);
+  const probe = new SampleProbe(lab.sampleRows, lab.k, lab.sampleLabels);
   const plan = suggestTerms({
     probe,
     baseMask,
@@ -61,7 +60,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
     priorColumns: priorOrder,
     max: settings.suggest.max,
     rankLoudColumns(neighbors, accepted) {
-      const scores = termScores(basePairMass, knnTermMass(lab.masked(baseMask), probe.sample, neighbors, lab.k));
+      const scores = termScores(basePairMass, knnTermMass(probe.maskedRows(baseMask), probe.identity, neighbors, lab.k));
       const loud: number[] = [];
       for (let c = 0; c < cols; c++) {
         if (!open(c) || accepted.has(c) || prior.has(c)) continue;
@@ -75,16 +74,15 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const suggested = lab.measure(DistanceLab.union(baseMask, plan.accepted), baseline.neighbors);
 
   // Scores for the table: kept terms on the baseline weights; stopped terms as if un-stopped.
-  const baseWeights = lab.masked(baseMask);
-  const baseSums = termSums(baseWeights);
-  const baseScores = termScores(basePairMass, knnTermMass(baseWeights, lab.sample, suggested.neighbors, lab.k));
-  const baseSpread = termSpread(baseSums, counts.rows);
+  const baseSums = lab.sums(baseMask, true).sums;
+  const baseScores = termScores(basePairMass, knnTermMass(lab.maskedSample(baseMask), lab.positions, suggested.neighbors, lab.k));
+  const baseSpread = termSpread(baseSums, documents);
   const fullSums = termSums(lab.weights);
   let fullScores: TermScores | null = null;
   let fullSpread: Float64Array | null = null;
   if (baseMask.includes(1)) {
-    fullScores = termScores(pairMass(fullSums, nonEmptyRows(lab.weights)).perTerm, knnTermMass(lab.weights, lab.sample, suggested.neighbors, lab.k));
-    fullSpread = termSpread(fullSums, counts.rows);
+    fullScores = termScores(pairMass(fullSums, nonEmptyRows(lab.weights)).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
+    fullSpread = termSpread(fullSums, documents);
   }
 
   const suggestedSet = new Set(plan.accepted);
@@ -106,7 +104,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
       status,
       why: '',
     };
-    row.why = explainTerm(row, counts.rows, { fromPrior: plan.fromPrior.has(c), rejected: rejectedSet.has(c) });
+    row.why = explainTerm(row, documents, { fromPrior: plan.fromPrior.has(c), rejected: rejectedSet.has(c) });
     return row;
   });
   rows.sort((a, b) => b.loudness - a.loudness || b.pullShare - a.pullShare);

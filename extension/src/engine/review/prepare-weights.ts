@@ -1,0 +1,65 @@
+import type { EffectiveSettings } from '../../protocol';
+import { buildCountMatrix } from '../matrix/build-count-matrix';
+import { nnz, type Csr } from '../matrix/csr';
+import { pruneTerms } from '../matrix/prune-terms';
+import { weigh } from '../matrix/weigh';
+import type { CorpusSource } from '../read/corpus-source';
+import { UserError } from '../user-error';
+import type { FileSnapshot } from './file-snapshot';
+
+/** What the rest of a review needs from the counting step, and nothing bigger. */
+export interface PreparedWeights {
+  /** l2-normalised tf·idf of every term kept by the df bounds (stop list not applied). */
+  weights: Csr;
+  idf: Float64Array;
+  /** Column j's term. */
+  terms: readonly string[];
+  /** Every term seen before pruning, to tell which stop-list entries never occur. */
+  seenTerms: ReadonlySet<string>;
+  documents: number;
+  tokens: number;
+  nonzeros: number;
+  lines: Uint32Array;
+  labels: (string | null)[] | null;
+  previews: string[];
+}
+
+/**
+ * Counts, prunes and weighs. Kept apart so that the raw counts (one float per non-zero, ~600 MB
+ * at a million documents) go out of scope when it returns: only the weights live on.
+ */
+export async function prepareWeights(
+  source: CorpusSource,
+  settings: EffectiveSettings,
+  snapshot: FileSnapshot | null,
+  onWeighting: () => void,
+  signal: AbortSignal | undefined,
+): Promise<PreparedWeights> {
+  const built = await buildCountMatrix(source, settings.tokens, signal === undefined ? {} : { signal });
+  await snapshot?.assertUnchanged();
+  if (built.counts.rows === 0) throw new UserError('no documents with text were found', source.file);
+
+  onWeighting();
+  // The stop list is applied later as a column mask, not here, so that the review can still say
+  // how much a stopped term would pull and whether it carries neighbour signal.
+  const { counts } = pruneTerms(built.counts, { minDf: settings.prune.minDf, maxDf: settings.prune.maxDf, stopTerms: new Set() });
+  if (counts.cols === 0) {
+    throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', source.file);
+  }
+  // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
+  const { weights, idf } = weigh(counts, { ...settings.weighting, norm: 'l2' });
+  let tokens = 0;
+  for (let r = 0; r < built.counts.rows; r++) tokens += built.counts.tokensPerDoc[r]!;
+  return {
+    weights,
+    idf,
+    terms: counts.terms,
+    seenTerms: new Set(built.counts.terms),
+    documents: counts.rows,
+    tokens,
+    nonzeros: nnz(counts),
+    lines: built.lines,
+    labels: built.labels,
+    previews: built.previews,
+  };
+}
