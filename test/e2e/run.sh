@@ -86,7 +86,10 @@ part "code-server install"
 if [[ ! -f "$CS_MARKER" || ! -x "$CS_BIN" ]]; then
   echo "e2e: installing code-server@$CODE_SERVER_VERSION (takes a few minutes, cached afterwards)"
   rm -rf "$CS_PREFIX"
-  PATH="$NODE24_BIN:$PATH" npm install -g --prefix "$CS_PREFIX" --no-audit --no-fund \
+  # Run as `npm run e2e`, the outer npm (Node 20) leaves npm_config_user_agent ("… node/v20 …") in
+  # the environment; the inner npm takes it as its own, and code-server's postinstall reads the
+  # Node version from it. Clear the outer npm's variables for this install.
+  env $(env | sed -n 's/^\(npm_[A-Za-z0-9_]*\)=.*/-u \1/p') PATH="$NODE24_BIN:$PATH" npm install -g --prefix "$CS_PREFIX" --no-audit --no-fund \
     --allow-scripts=code-server,argon2 \
     "code-server@$CODE_SERVER_VERSION" > "$CACHE/code-server-install.log" 2>&1 \
     || { tail -30 "$CACHE/code-server-install.log" >&2; die "code-server install (log: $CACHE/code-server-install.log)"; }
