@@ -17,8 +17,15 @@ const only = process.env.E2E_ONLY ?? '';
 const screenshotsDir = path.join(repo, 'test', 'e2e', 'screenshots');
 mkdirSync(screenshotsDir, { recursive: true });
 
+// A stray rejection must fail a scenario, not end the run without its summary line.
+process.on('unhandledRejection', (e) => console.log(`  (unhandled rejection: ${String(e?.message ?? e).split('\n')[0]})`));
+
 // A scenario that hangs must not hold the whole run: each gets this long, then counts as failed.
 const SCENARIO_TIMEOUT_MS = 150000;
+// The whole e2e run must stay well inside 20 minutes on a fresh 2-core machine, editor install
+// included: past this budget the remaining scenarios are reported as failed without running.
+const RUN_BUDGET_MS = 10 * 60 * 1000;
+const runStarted = Date.now();
 
 // launchServer rather than launch: playwright starts chromium in a process group of its own, and
 // run.sh needs its id to take it down if this runner is killed before it can close the browser.
@@ -54,6 +61,7 @@ try {
       shotTaken = true;
     };
     try {
+      if (Date.now() - runStarted > RUN_BUDGET_MS) throw new Error(`not run: the e2e budget of ${RUN_BUDGET_MS / 60000} minutes is spent`);
       await withTimeout(scenario.run(ctx), SCENARIO_TIMEOUT_MS, `scenario "${scenario.name}"`);
     } catch (e) {
       error = e;

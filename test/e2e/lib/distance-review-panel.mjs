@@ -2,13 +2,19 @@
 // nested two deep; these helpers find that frame and read what it shows. Selectors are the
 // panel's own (webview/src): .lw-file, .lw-tile[data-measure], .lw-v__num[data-role],
 // tr[data-term][data-status], .lw-strip[data-pending], .lw-error.
-import { findFrame } from './workbench.mjs';
+import { findFrame, errorNotificationTexts } from './workbench.mjs';
 import { waitUntil } from './wait-until.mjs';
 
-/** The frame showing a finished review of `fileName` (no spinner, tiles drawn). */
-export async function panelShowing(page, fileName, timeout = 240000) {
+/**
+ * The frame showing a finished review of `fileName` (no spinner, tiles drawn). Fails at once
+ * when the editor shows a Loudword error instead, rather than waiting out the timeout.
+ */
+export async function panelShowing(page, fileName, timeout = 120000) {
   let frame = null;
-  await waitUntil(`the Distance Review panel to show the review of ${fileName}`, async () => {
+  const outcome = await waitUntil(`the Distance Review panel to show the review of ${fileName}`, async () => {
+    const errors = await errorNotificationTexts(page);
+    const failure = errors.find((t) => t.startsWith('Loudword'));
+    if (failure) return { error: failure };
     for (const f of page.frames()) {
       if (f.isDetached()) continue;
       const file = await f.$eval('.lw-header .lw-file', (e) => e.textContent ?? '').catch(() => null);
@@ -17,11 +23,12 @@ export async function panelShowing(page, fileName, timeout = 240000) {
       const tiles = await f.$$('.lw-tile[data-measure]').catch(() => []);
       if (!busy && tiles.length > 0) {
         frame = f;
-        return true;
+        return { frame: f };
       }
     }
-    return false;
+    return null;
   }, { timeout, interval: 1000 });
+  if (outcome.error) throw new Error(`the review of ${fileName} failed in the editor: ${outcome.error}`);
   return frame;
 }
 
