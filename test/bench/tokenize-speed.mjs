@@ -1,9 +1,10 @@
 // Tokeniser and matrix throughput on this machine (a script that prints figures; not a test).
-// Corpus: every saying in Debian's `fortunes` package (/usr/share/games/fortunes), repeated.
+// Corpus: every saying in Debian's `fortunes` package (/usr/share/games/fortunes), repeated;
+// the chunk-cache comparison also uses the generated bench corpus test/bench/data/corpus-v1-10k-seed1.csv.
 //
-// usage: node test/bench/tokenize-speed.mjs [--repeat 4] [--mask-rows 100000] [--mask-nnz 100]
+// usage: node test/bench/tokenize-speed.mjs [--repeat 4] [--mask-rows 100000] [--mask-nnz 100] [--only-cache]
 // Figures are wall clock on a 2-core machine others may be using: compare runs made back to back.
-import { readdirSync, readFileSync, mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, mkdtempSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -24,6 +25,7 @@ await build({
   stdin: {
     contents: [
       "export { createTokenizer } from './extension/src/engine/tokenize/create-tokenizer';",
+      "export { freshWinkInstance } from './extension/src/engine/tokenize/wink-instance';",
       "export { buildCountMatrix } from './extension/src/engine/matrix/build-count-matrix';",
       "export { maskTerms } from './extension/src/engine/matrix/mask-terms';",
       "export { default as winkNLP } from 'wink-nlp';",
@@ -35,7 +37,8 @@ await build({
   outfile: benchBundle, bundle: true, platform: 'node', format: 'cjs', target: 'node20', logLevel: 'warning',
 });
 await build({ entryPoints: [join(root, 'extension/src/engine/tokenize/tokenize-worker.ts')], outfile: workerScript, bundle: true, platform: 'node', format: 'cjs', target: 'node20', logLevel: 'warning' });
-const { createTokenizer, buildCountMatrix, maskTerms, winkNLP, winkModel } = createRequire(import.meta.url)(benchBundle);
+const require = createRequire(import.meta.url);
+const { createTokenizer, freshWinkInstance, buildCountMatrix, maskTerms, winkNLP, winkModel } = require(benchBundle);
 
 function option(name, fallback) {
   const i = process.argv.indexOf(name);
@@ -60,6 +63,39 @@ function time(fn) {
   const t0 = performance.now();
   const out = fn();
   return [performance.now() - t0, out];
+}
+
+// 0. The chunk cache: whole documents through wink ("before") vs the chunk-cached path
+// ("after"), default token settings, each on its own fresh wink instance starting cold; the
+// term lists must be identical, which is checked here too.
+{
+  const corpora = [[`fortunes × ${repeat}`, texts]];
+  const generated = join(root, 'test/bench/data/corpus-v1-10k-seed1.csv');
+  if (existsSync(generated)) {
+    const Papa = require('papaparse');
+    const rows = Papa.parse(readFileSync(generated, 'utf8'), { header: true, skipEmptyLines: true }).data;
+    corpora.push(['corpus-v1-10k-seed1', rows.map((r) => r.text).filter((t) => typeof t === 'string')]);
+  } else console.log(`note: ${generated} missing (node test/bench/generate-corpus.mjs); only fortunes measured`);
+  const settings = { lowercase: true, minLength: 2, kinds: ['word', 'number', 'hashtag', 'emoji'], stem: false, ngrams: 1 };
+  for (const [name, docs] of corpora) {
+    const rates = [];
+    const outputs = [];
+    for (const chunkCache of [false, true]) {
+      const tokenize = createTokenizer(settings, { nlp: freshWinkInstance('tokens'), chunkCache });
+      const out = [];
+      const [ms, n] = time(() => {
+        let count = 0;
+        for (const t of docs) { const terms = tokenize(t); out.push(terms); count += terms.length; }
+        return count;
+      });
+      rates.push((n / ms) * 1000);
+      outputs.push(out);
+      console.log(`${name}: ${chunkCache ? 'chunk cache ' : 'whole docs  '} ${fmt((n / ms) * 1000)} terms/s (${fmt(n)} terms, ${fmt(docs.length)} docs, ${ms.toFixed(0)} ms, cold start)`);
+    }
+    const same = outputs[0].every((terms, d) => terms.length === outputs[1][d].length && terms.every((t, i) => t === outputs[1][d][i]));
+    console.log(`${name}: speed-up ×${(rates[1] / rates[0]).toFixed(2)}; outputs identical: ${same}`);
+  }
+  if (process.argv.includes('--only-cache')) process.exit(0);
 }
 
 // 1. wink-nlp alone: empty pipe vs the default pipe (sbd, pos, ner, negation, sentiment).

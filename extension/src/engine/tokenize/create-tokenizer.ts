@@ -1,6 +1,9 @@
+import type { WinkMethods } from 'wink-nlp';
 import type { EffectiveSettings, TokenKind } from '../../protocol';
-import { tokenKindOf } from './token-kind';
-import { winkInstance, winkStemmer } from './wink-instance';
+import { chunkCachedUnigrams } from './chunk-cached-unigrams';
+import { createTermOf } from './term-of-token';
+import { winkInstance } from './wink-instance';
+import { winkSplitsLikeThis } from './wink-splitter';
 
 export type TokenSettings = EffectiveSettings['tokens'];
 
@@ -9,8 +12,13 @@ const ALL_KINDS: ReadonlySet<TokenKind> = new Set<TokenKind>([
   'punctuation', 'currency', 'ordinal', 'time', 'shortForm',
 ]);
 
-/** Kinds whose tokens are one sign by nature: a length floor would only ever delete them all. */
-const LENGTH_EXEMPT: ReadonlySet<TokenKind> = new Set<TokenKind>(['emoji', 'emoticon', 'symbol', 'punctuation', 'currency']);
+/** How to run wink; tests pass their own instance to compare the two paths from the same state. */
+export interface TokenizerEngine {
+  /** wink-nlp instance to use (default: the shared one for the pipe the settings need). */
+  nlp?: WinkMethods;
+  /** Use the per-chunk cache when the settings allow it (default true). */
+  chunkCache?: boolean;
+}
 
 /**
  * Turns a document into its terms with wink-nlp (English lite model), tokenisation only.
@@ -44,16 +52,21 @@ const LENGTH_EXEMPT: ReadonlySet<TokenKind> = new Set<TokenKind>(['emoji', 'emot
  * - ngrams 2: the unigrams, then each pair of adjacent kept tokens within one sentence (wink's
  *   sentence boundaries), joined by one space. Dropped tokens do not break adjacency, as in
  *   scikit-learn, where the token pattern and stop words act before n-grams are formed.
+ *
+ * With ngrams 1 the terms are the same, token for token, but most of wink's work is skipped
+ * through a cache of whitespace-delimited chunks (see chunk-cached-unigrams.ts for why that is
+ * exact). Bigrams need wink's sentence boundaries, which look across chunks, so they always go
+ * through wink whole.
  */
-export function createTokenizer(settings: TokenSettings): (text: string) => string[] {
-  const { lowercase, minLength, stem, ngrams } = settings;
+export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine = {}): (text: string) => string[] {
+  const { lowercase, minLength, ngrams } = settings;
   if (!Number.isInteger(minLength) || minLength < 0) throw new RangeError(`tokens.minLength must be a whole number ≥ 0, got ${minLength}`);
   if (ngrams !== 1 && ngrams !== 2) throw new RangeError(`tokens.ngrams must be 1 or 2, got ${String(ngrams)}`);
   for (const k of settings.kinds) if (!ALL_KINDS.has(k)) throw new RangeError(`unknown token kind "${k}"`);
-  const kinds: ReadonlySet<TokenKind> = new Set(settings.kinds);
-  const nlp = winkInstance(ngrams === 2 ? 'sentences' : 'tokens');
+  const nlp = engine.nlp ?? winkInstance(ngrams === 2 ? 'sentences' : 'tokens');
+  const termOf = createTermOf(settings);
+  if (ngrams === 1 && engine.chunkCache !== false && winkSplitsLikeThis()) return chunkCachedUnigrams(nlp, lowercase, termOf);
   const its = nlp.its;
-  const stemmer = stem ? winkStemmer() : null;
 
   return (text: string): string[] => {
     const doc = nlp.readDoc(text);
@@ -67,13 +80,8 @@ export function createTokenizer(settings: TokenSettings): (text: string) => stri
     const spans = ngrams === 2 ? (doc.sentences().out(its.span) as unknown as [number, number][]) : null;
     let sentence = 0;
     for (let i = 0; i < forms.length; i++) {
-      let term = forms[i]!;
-      // The normal form has the same letters and digits as the surface, which is all
-      // tokenKindOf looks at for wink's "unk" tokens.
-      const kind = tokenKindOf(types[i]!, term);
-      if (kind === null || !kinds.has(kind)) continue;
-      if (minLength > 0 && !LENGTH_EXEMPT.has(kind) && codePointLength(term) < minLength) continue;
-      if (stemmer !== null && kind === 'word') term = stemmer(term);
+      const term = termOf(forms[i]!, types[i]!);
+      if (term === null) continue;
       kept.push(term);
       if (spans !== null && sentenceOfKept !== null) {
         while (sentence < spans.length - 1 && i > spans[sentence]![1]) sentence++;
@@ -87,14 +95,4 @@ export function createTokenizer(settings: TokenSettings): (text: string) => stri
     }
     return kept;
   };
-}
-
-/** Length in code points; a surrogate pair counts once. */
-function codePointLength(s: string): number {
-  let n = s.length;
-  for (let i = 0; i < s.length; i++) {
-    const c = s.charCodeAt(i);
-    if (c >= 0xd800 && c <= 0xdbff) n--;
-  }
-  return n;
 }

@@ -14,12 +14,22 @@ const instances = new Map<WinkPipe, WinkMethods>();
 export function winkInstance(pipe: WinkPipe): WinkMethods {
   let nlp = instances.get(pipe);
   if (nlp === undefined) {
-    // Required here rather than imported at the top so the model is parsed only when needed.
-    const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
-    nlp = winkNLP(winkModel(), pipe === 'tokens' ? [] : ['sbd']);
-    assertItsRecognised(nlp);
+    nlp = freshWinkInstance(pipe);
     instances.set(pipe, nlp);
   }
+  return nlp;
+}
+
+/**
+ * A new wink-nlp instance with its own lexeme cache (wink deep-copies the model per instance).
+ * wink's output depends on what that cache has seen before, so comparing two tokenizer paths
+ * needs two instances started from the same state.
+ */
+export function freshWinkInstance(pipe: WinkPipe): WinkMethods {
+  // Required here rather than imported at the top so the model is parsed only when needed.
+  const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
+  const nlp = winkNLP(winkModel(), pipe === 'tokens' ? [] : ['sbd']);
+  assertItsRecognised(nlp);
   return nlp;
 }
 
