@@ -1,7 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import * as path from 'node:path';
 import type { EffectiveSettings } from '../../protocol';
-import type { SettingsOverrides } from '../review/review-api';
+import type { SettingsOverrides } from './settings-overrides';
 import { UserError } from '../user-error';
 import { DEFAULT_SETTINGS } from './default-settings';
 import { mergeSettings } from './merge-settings';

@@ -3,7 +3,7 @@ import type { CorpusSource } from '../read/corpus-source';
 import type { PreparedWeights } from './prepare-weights';
 import type { TermReview } from '../terms/review-terms';
 import type { ReviewSample } from './choose-sample';
-import type { DistanceResult } from './distance-lab';
+import type { DistanceResult } from '../what-if/distance-lab';
 import { LOUDWORD_VERSION } from './version';
 
 const HUBS_IN_REPORT = 12;

@@ -1,9 +1,5 @@
-import type { EffectiveSettings, Measures, Report } from '../../protocol';
-
-/** Settings given on the command line or by the editor; they win over loudword.json. */
-export type SettingsOverrides = Partial<Pick<EffectiveSettings, 'format' | 'text' | 'label' | 'stopList'>> & {
-  sample?: Partial<EffectiveSettings['sample']>;
-};
+import type { Measures, Report } from '../../protocol';
+import type { SettingsOverrides } from '../config/settings-overrides';
 
 export interface ReviewInput {
   /** Path of the corpus file (used for reading unless `text` is given, and for messages). */

@@ -3,14 +3,14 @@ import type { Report } from '../../protocol';
 import { loadSettings } from '../config/load-settings';
 import { openCorpus, openCorpusFromText } from '../read/open-corpus';
 import { createTokenizer } from '../tokenize/create-tokenizer';
-import { DistanceLab } from './distance-lab';
+import { DistanceLab } from '../what-if/distance-lab';
 import { FileSnapshot } from './file-snapshot';
 import { prepareWeights } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { reviewTerms } from '../terms/review-terms';
 import { assembleReport } from './assemble-report';
-import { TermIndex } from './term-index';
+import { TermIndex } from '../what-if/term-index';
 import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
 
 /**

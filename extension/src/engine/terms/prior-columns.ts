@@ -1,4 +1,4 @@
-import type { TermIndex } from '../review/term-index';
+import type { TermIndex } from '../what-if/term-index';
 import { ENGLISH_FUNCTION_WORDS, ENGLISH_LIGHT_WORDS } from './function-words';
 
 /**

@@ -1,9 +1,9 @@
 import type { EffectiveSettings, TermRow } from '../../protocol';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread, termSums } from '../measures/term-sums';
-import { DistanceLab, type DistanceResult } from '../review/distance-lab';
-import { SampleProbe } from '../review/sample-probe';
-import type { TermIndex } from '../review/term-index';
+import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
+import { SampleProbe } from '../what-if/sample-probe';
+import type { TermIndex } from '../what-if/term-index';
 import { explainTerm } from './explain-term';
 import { lightWordColumns, priorColumns, protectedColumns } from './prior-columns';
 import { suggestTerms } from './suggest-terms';

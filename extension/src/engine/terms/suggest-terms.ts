@@ -1,5 +1,5 @@
-import { DistanceLab } from '../review/distance-lab';
-import type { ProbeResult, SampleProbe } from '../review/sample-probe';
+import { DistanceLab } from '../what-if/distance-lab';
+import type { ProbeResult, SampleProbe } from '../what-if/sample-probe';
 
 /** What the what-if must show before a group of terms joins the suggestions. */
 export interface SuggestionPlan {

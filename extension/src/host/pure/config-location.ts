@@ -1,7 +1,7 @@
 // Where a corpus's loudword.json and stop list are, and which editor settings reach the
 // review. Node's path only, so it is unit-tested without the editor.
 import * as path from 'node:path';
-import type { SettingsOverrides } from '../../engine/review/review-api';
+import type { SettingsOverrides } from '../../engine/config/settings-overrides';
 
 export const CONFIG_FILE_NAME = 'loudword.json';
 
