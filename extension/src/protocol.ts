@@ -70,6 +70,20 @@ export interface HubRow {
   preview: string;
 }
 
+/**
+ * The one judgement a review leads with: what the suggested stop list does to neighbour quality,
+ * with its uncertainty. The CLI summary, the panel and the HTML report all show it first.
+ */
+export interface Verdict {
+  outcome: 'helps' | 'no clear change' | 'hurts' | 'nothing suggested';
+  /** One sentence a person reads first, e.g. why little or nothing is suggested. */
+  headline: string;
+  /** The quantity judged, its change with the suggested list, and an interval from `draws` re-draws. */
+  estimate: { measure: string; change: number; low: number; high: number; draws: number; method: 'seeds' | 'bootstrap' } | null;
+  /** Measures that moved the other way, each explained in a sentence. */
+  caveats: Array<{ measure: string; sentence: string }>;
+}
+
 export interface Report {
   tool: { name: 'loudword'; version: string };
   input: {
@@ -92,6 +106,8 @@ export interface Report {
   suggested: Measures;
   terms: TermRow[];
   suggestions: string[];
+  /** Filled by the suggestion step; optional only until every producer of a Report sets it. */
+  verdict?: Verdict | undefined;
   hubs: HubRow[];
   /** The stop list in force for the baseline (from the project's stop list file). */
   stopList: { file: string | null; terms: number; unused: string[] };
