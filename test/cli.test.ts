@@ -52,7 +52,7 @@ describe('loudword CLI', function () {
   it('review prints the text summary by default and Markdown with --format md', () => {
     const text = run(['review', 'support-tickets.csv', '--sample', '300'], dir);
     assert.equal(text.code, 0, text.stderr);
-    assert.match(text.stdout, /background similarity/);
+    assert.match(text.stdout, /Background similarity/);
     assert.match(text.stdout, /Suggested stop terms|No stop terms suggested/);
     const md = run(['review', 'support-tickets.csv', '--sample', '300', '--format', 'md'], dir);
     assert.match(md.stdout, /^## Loudword review/);

@@ -4,7 +4,7 @@
 
 import type { Measures } from '../../extension/src/protocol';
 import { el, uniqueId, type Child } from './create-element';
-import { measureCatalog, verdict, verdictWord, type MeasureSpec, type Verdict } from './measure-catalog';
+import { changeWord, judgeChange, measureCatalog, type MeasureChange, type MeasureSpec } from '../../extension/src/measure-catalog';
 
 export interface StripInput {
   baseline: Measures;
@@ -71,8 +71,8 @@ function renderMeasureTable(input: StripInput): HTMLElement {
           el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
         ]),
         el('td', { className: 'lw-num' }, [valueSpan(spec, 'baseline', base, null, null)]),
-        el('td', { className: 'lw-num' }, [valueSpan(spec, 'suggested', sug, base, verdict(spec, base, sug), 'with suggestions')]),
-        input.selection ? el('td', { className: 'lw-num' }, [valueSpan(spec, 'selection', sel, base, verdict(spec, base, sel), 'your selection')]) : null,
+        el('td', { className: 'lw-num' }, [valueSpan(spec, 'suggested', sug, base, judgeChange(spec, base, sug), 'with suggestions')]),
+        input.selection ? el('td', { className: 'lw-num' }, [valueSpan(spec, 'selection', sel, base, judgeChange(spec, base, sel), 'your selection')]) : null,
       ]),
     );
   }
@@ -83,10 +83,10 @@ function valueChain(spec: MeasureSpec, input: StripInput): Child[] {
   const base = spec.value(input.baseline);
   const values: Child[] = [valueSpan(spec, 'baseline', base, null, null)];
   const sug = spec.value(input.suggested);
-  values.push(arrow(), valueSpan(spec, 'suggested', sug, base, verdict(spec, base, sug), 'with suggestions'));
+  values.push(arrow(), valueSpan(spec, 'suggested', sug, base, judgeChange(spec, base, sug), 'with suggestions'));
   if (input.selection) {
     const sel = spec.value(input.selection.measures);
-    values.push(arrow(), valueSpan(spec, 'selection', sel, base, verdict(spec, base, sel), 'your selection'));
+    values.push(arrow(), valueSpan(spec, 'selection', sel, base, judgeChange(spec, base, sel), 'your selection'));
   }
   return values;
 }
@@ -100,7 +100,7 @@ function valueSpan(
   role: string,
   value: number | null,
   base: number | null,
-  v: Verdict | null,
+  v: MeasureChange | null,
   srLabel = 'baseline',
 ): HTMLElement {
   const children: Child[] = [
@@ -111,7 +111,7 @@ function valueSpan(
   if (v !== null && v !== 'unknown' && v !== 'same' && value !== null && base !== null) {
     children.push(el('span', { className: 'lw-mark', text: value > base ? '▲' : '▼', attrs: { 'aria-hidden': 'true' } }));
   }
-  if (v !== null) children.push(el('span', { className: 'lw-sr', text: ` (${verdictWord(v)})` }));
+  if (v !== null) children.push(el('span', { className: 'lw-sr', text: ` (${changeWord(v)})` }));
   return el('span', { className: `lw-v lw-v--${role}`, attrs: { 'data-verdict': v ?? 'baseline' } }, children);
 }
 
@@ -135,7 +135,7 @@ export function renderLiveSummary(input: StripInput): HTMLElement {
     parts.push(
       el('span', { className: 'lw-live__item', attrs: { title: spec.meaning, 'data-measure': spec.id } }, [
         el('span', { className: 'lw-live__label', text: `${spec.label} ` }),
-        valueSpan(spec, 'live', now, base, verdict(spec, base, now), input.selection ? 'your selection' : 'with suggestions'),
+        valueSpan(spec, 'live', now, base, judgeChange(spec, base, now), input.selection ? 'your selection' : 'with suggestions'),
       ]),
     );
   }

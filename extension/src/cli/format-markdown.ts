@@ -1,5 +1,5 @@
 import type { Report } from '../protocol';
-import { formatNumber, MEASURE_LINES, verdict } from './measure-table';
+import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 
 const TERMS_SHOWN = 30;
 
@@ -18,11 +18,11 @@ export function formatMarkdown(report: Report): string {
   out.push('');
   out.push('| measure | current | with suggestions | |');
   out.push('|---|---:|---:|---|');
-  for (const line of MEASURE_LINES) {
-    const a = line.get(baseline);
-    const b = line.get(suggested);
+  for (const spec of measureCatalog) {
+    const a = spec.value(baseline);
+    const b = spec.value(suggested);
     if (a === null && b === null) continue;
-    out.push(`| ${line.label} | ${formatNumber(a, line.digits)} | ${formatNumber(b, line.digits)} | ${verdict(line, a, b)} |`);
+    out.push(`| ${spec.label} | ${spec.format(a)} | ${spec.format(b)} | ${judgedChangeWord(spec, a, b)} |`);
   }
   out.push('');
   out.push(report.suggestions.length > 0 ? `**Suggested stop terms (${report.suggestions.length}):** ${report.suggestions.map(cell).join(', ')}` : 'No stop terms suggested.');

@@ -1,5 +1,5 @@
 import type { Report } from '../protocol';
-import { formatNumber, MEASURE_LINES, verdict } from './measure-table';
+import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 
 const TERMS_SHOWN = 15;
 const HUBS_SHOWN = 5;
@@ -21,13 +21,13 @@ export function formatText(report: Report): string {
   out.push(`Sample: ${baseline.sample.documents} documents, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);
   out.push('');
 
-  const width = Math.max(...MEASURE_LINES.map((l) => l.label.length));
+  const width = Math.max(...measureCatalog.map((spec) => spec.label.length));
   out.push(`${'measure'.padEnd(width)}  ${'current'.padStart(9)}  ${'suggested'.padStart(9)}`);
-  for (const line of MEASURE_LINES) {
-    const a = line.get(baseline);
-    const b = line.get(suggested);
+  for (const spec of measureCatalog) {
+    const a = spec.value(baseline);
+    const b = spec.value(suggested);
     if (a === null && b === null) continue;
-    out.push(`${line.label.padEnd(width)}  ${formatNumber(a, line.digits).padStart(9)}  ${formatNumber(b, line.digits).padStart(9)}  ${verdict(line, a, b)}`.trimEnd());
+    out.push(`${spec.label.padEnd(width)}  ${spec.format(a).padStart(9)}  ${spec.format(b).padStart(9)}  ${judgedChangeWord(spec, a, b)}`.trimEnd());
   }
   out.push('');
 

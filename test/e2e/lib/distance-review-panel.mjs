@@ -55,7 +55,7 @@ export async function readFacts(frame) {
     Object.fromEntries(facts.map((f) => [f.querySelector('dt')?.textContent ?? '', f.querySelector('dd')?.textContent ?? ''])));
 }
 
-/** How the headline tiles map onto the Report's Measures (webview/src/measure-catalog.ts ids). */
+/** How the headline tiles map onto the Report's Measures (extension/src/measure-catalog.ts ids). */
 export const headlineMeasures = {
   backgroundSimilarity: (m) => m.backgroundSimilarity,
   neighborStandout: (m) => m.neighborStandout,
