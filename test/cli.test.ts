@@ -1,5 +1,5 @@
 // The `loudword` command as a user runs it: the bundled CLI (dist/cli.js, built by `npm test`)
-// on a temporary copy of the demo corpus. The Report keys are the contract of design.md.
+// on a temporary copy of the demo corpus. The Report keys are the contract of README.md "The Report".
 import { strict as assert } from 'node:assert';
 import { spawnSync } from 'node:child_process';
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';

@@ -3,7 +3,7 @@ import * as path from 'node:path';
 import { configCandidates, editorOverrides, expectedStopListPath, isInsideFolder } from '../extension/src/host/pure/config-location';
 
 // Paths are built with path.resolve so the expectations hold on any platform; the rules are
-// the project's own (design.md "loudword.json"); common practice, no source.
+// the project's own (README.md "Configuration"); common practice, no source.
 const root = path.resolve('/ws/project');
 const p = (...parts: string[]): string => path.join(root, ...parts);
 

@@ -63,7 +63,7 @@ describe('package.json contributions', () => {
   });
 });
 
-// style.md: pure helpers never import 'vscode', so they run in plain mocha.
+// DEVELOPERS.md "Conventions": pure helpers never import 'vscode', so they run in plain mocha.
 describe('host layering', () => {
   function tsFiles(dir: string): string[] {
     return readdirSync(dir, { withFileTypes: true }).flatMap((d) => (d.isDirectory() ? tsFiles(path.join(dir, d.name)) : d.name.endsWith('.ts') ? [path.join(dir, d.name)] : []));

@@ -27,7 +27,7 @@ describe('worker-protocol guards', () => {
 
 // A tiny invented corpus: every document carries the same helpdesk footer ("sent via portal"),
 // and two topics with their own words. Three footer words are in every document, so they
-// carry similarity every pair shares (design.md "loud term"); invented data, no source.
+// carry similarity every pair shares (docs/methods.md "Names"); invented data, no source.
 function corpusCsv(): string {
   const rows = ['id,message'];
   const topics = [
@@ -71,14 +71,14 @@ describe('review worker round trip (dist/review-worker.js)', function () {
     assert.equal(stages[0], 'reading');
     assert.ok(stages.includes('measuring'));
     // Footer words occur in all 30 documents; a loud-term review should put one of them first.
-    // Source: design.md ("loud term": large share of all-pairs similarity, little neighbour signal).
+    // Source: docs/methods.md "Names" (a loud term has a large share of all-pairs similarity, little neighbour signal).
     assert.ok(['sent', 'via', 'portal'].includes(report.terms[0]!.term), `first term was ${report.terms[0]!.term}`);
     assert.equal(client.hasSession, true);
   });
 
   it('ReviewWorkerClient.whatIf with nothing removed gives the baseline, with the suggestions gives "suggested"', async function () {
     const report = await client.review({ file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message', stopList: null, sample: { documents: 30, k: 3 } } });
-    // Source: design.md Report contract — baseline is the current stop list, suggested is
+    // Source: README.md "The Report" — baseline is the current stop list, suggested is
     // current + suggestions; what-if masks terms on the same session, so both must match.
     const none = await client.whatIf([]);
     assert.equal(none.backgroundSimilarity, report.baseline.backgroundSimilarity);

@@ -3,7 +3,7 @@ import { addTermsToStopList } from '../extension/src/engine/stoplist/add-terms-t
 import { removeTermsFromStopList } from '../extension/src/engine/stoplist/remove-terms-from-stop-list';
 import { applyLineEdits, checkLineEdits, lineLengths } from '../extension/src/host/pure/text-edit-ranges';
 
-// Expected texts are written out by hand from the stop-list file format in design.md
+// Expected texts are written out by hand from the stop-list file format in README.md "Configuration"
 // (one term a line, # comments); common practice, no source.
 describe('lineLengths', () => {
   it('lineLengths counts LF, CRLF and CR breaks as the editor does', () => {

@@ -74,7 +74,7 @@ describe('matrix/mask-terms', () => {
   const guide = countMatrix([[3, 0, 1], [2, 0, 0], [3, 0, 0], [4, 0, 0], [3, 2, 0], [3, 0, 2]], 3);
 
   it('maskTerms equals weighting the recounted matrix without those terms', () => {
-    // Counts from the scikit-learn user guide's TfidfTransformer example (methods §1).
+    // Counts from the scikit-learn user guide's TfidfTransformer example (docs/methods.md §1).
     for (const norm of ['l2', 'l1', 'none'] as const) {
       assertMaskEqualsRecount(guide, new Set(['t000']), { tf: 'raw', idf: 'smooth', norm });
       assertMaskEqualsRecount(guide, new Set(['t002']), { tf: 'sublinear', idf: 'plainPlusOne', norm });

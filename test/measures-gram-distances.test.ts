@@ -6,7 +6,7 @@ import { denseToCsr, dot, randomUnitRows } from './measures-fixtures';
 
 describe('measures/gram-distances', () => {
   it('‖a − b‖² = 2 − 2·cos(a, b) on random sparse unit vectors', () => {
-    // Source: methods §2 — exact identity for l2-normalised vectors; brute-force ‖a − b‖ here.
+    // Source: docs/methods.md §2 — exact identity for l2-normalised vectors; brute-force ‖a − b‖ here.
     const rows = randomUnitRows(mulberry32(21), 40, 50, 0.1);
     const m = rows.length;
     const all = Uint32Array.from(rows.keys());

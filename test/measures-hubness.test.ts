@@ -14,7 +14,7 @@ function skewnessFor(d: number, k: number): number {
 describe('measures/hubness', () => {
   it('hubness skewness on iid Gaussian data grows with dimension: d = 3 near 0, d = 100 above 1 (k = 10)', () => {
     // Source: Radovanović, Nanopoulos & Ivanović (2010), JMLR 11 — skewness of N_k grows with
-    // dimension (methods §5; from memory, qualitative).
+    // dimension (docs/methods.md §5; from memory, qualitative).
     const low = skewnessFor(3, 10);
     const high = skewnessFor(100, 10);
     assert.ok(Math.abs(low) < 0.6, `d = 3 skewness ${low}`);

@@ -7,7 +7,7 @@ import { denseToCsr, randomUnitRows } from './measures-fixtures';
 
 describe('measures/knn-term-mass', () => {
   it('knnTermMass equals the brute-force sum over unordered k-NN pairs', () => {
-    // Source: definition (design.md "neighbour lift"); brute force over the set of pairs.
+    // Source: definition (docs/methods.md "Names"); brute force over the set of pairs.
     const rows = randomUnitRows(mulberry32(8), 80, 20, 0.2, 13);
     const X = denseToCsr(rows);
     const sample = sampleIndices(80, 40, 4);

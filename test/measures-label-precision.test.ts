@@ -3,8 +3,8 @@ import { labelPrecisionAtK } from '../extension/src/engine/measures/label-precis
 import { NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
 
 describe('measures/label-precision', () => {
-  it('labelPrecisionAtK on a hand-checked case (methods §7)', () => {
-    // Source: methods §7 definition. k = 2; labels A A B B −1.
+  it('labelPrecisionAtK on a hand-checked case (docs/methods.md §7)', () => {
+    // Source: docs/methods.md §7 definition. k = 2; labels A A B B −1.
     // row 0 (A): 1 (A), 2 (B) → 1/2; row 1 (A): 0 (A), 4 (−1) → 1/2; row 2 (B): 3 (B), 0 → 1/2;
     // row 3 (B): 2 (B) and an empty slot → 1/1 (empty slots are not counted);
     // row 4 is unlabelled → not a query. Mean (0.5 + 0.5 + 0.5 + 1)/4 = 0.625.

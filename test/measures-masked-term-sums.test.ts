@@ -1,5 +1,5 @@
 // maskedTermSums must equal termSums of the masked matrix, which the scikit-learn checks in
-// test/weighting-sklearn.test.ts tie to TfidfVectorizer without those terms (methods §1, §3).
+// test/weighting-sklearn.test.ts tie to TfidfVectorizer without those terms (docs/methods.md §1, §3).
 import { strict as assert } from 'node:assert';
 import fc from 'fast-check';
 import { maskTerms } from '../extension/src/engine/matrix/mask-terms';

@@ -15,7 +15,7 @@ describe('measures/mean-to-nearest', () => {
 
   it('meanToNearest falls towards 1 as the dimension grows (iid normal, d = 2 vs 100)', () => {
     // Source: He, Kumar & Chang (2012), ICML — C_r = E[D_mean]/E[D_min] decreases with
-    // dimensionality (methods §4).
+    // dimensionality (docs/methods.md §4).
     const n = 300;
     const c2 = meanToNearest(euclideanDistances(gaussianPoints(mulberry32(2), n, 2), n, 2), n, allValid(n))!;
     const c100 = meanToNearest(euclideanDistances(gaussianPoints(mulberry32(3), n, 100), n, 100), n, allValid(n))!;

@@ -11,8 +11,8 @@ const X = denseToCsr(rows);
 const labelsOf = (sample: Uint32Array) => Int32Array.from(sample, (r) => (r % 5 === 4 ? -1 : r % 3));
 
 describe('measures/measure-distances', () => {
-  it('measureDistances: background similarity is the brute-force mean pairwise cosine (methods §3)', () => {
-    // Source: methods §3; brute force over all non-empty pairs.
+  it('measureDistances: background similarity is the brute-force mean pairwise cosine (docs/methods.md §3)', () => {
+    // Source: docs/methods.md §3; brute force over all non-empty pairs.
     const sample = sampleIndices(n, 60, 1);
     const { measures } = measureDistances(X, { sample, k: 5, seed: 1, labels: null, baselineNeighbors: null });
     const nonEmpty = rows.filter((r) => r.some((v) => v !== 0));

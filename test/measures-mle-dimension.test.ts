@@ -14,14 +14,14 @@ describe('measures/mle-dimension', () => {
   for (const d of [2, 5]) {
     it(`mleDimension (k = 10) is within 15% of d = ${d} for a uniform cube rotated into 100 dimensions (n = 2000)`, () => {
       // Source: Levina & Bickel (2005), NIPS, with the MacKay & Ghahramani (2005) correction
-      // (methods §6).
+      // (docs/methods.md §6).
       const value = estimate(cubeDistances(d), n, 10);
       assert.ok(Math.abs(value - d) < 0.15 * d, `mle = ${value}`);
     });
   }
 
   it('mleDimension (k = 10) underestimates d = 10 in a cube by the boundary effect only (n = 2000)', () => {
-    // Source: methods §6 says within ~15%; measured here the same formula on scikit-learn 1.2.1
+    // Source: docs/methods.md §6 says within ~15%; measured here the same formula on scikit-learn 1.2.1
     // NearestNeighbors distances gives 8.23 for the d = 10 cube and 9.92 on the periodic 10-torus,
     // so the shortfall comes from the cube's faces. Hence: cube within 20% below, torus within 15%.
     const cube = estimate(cubeDistances(10), n, 10);

@@ -3,8 +3,8 @@ import { NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
 import { neighborTurnover } from '../extension/src/engine/measures/neighbor-turnover';
 
 describe('measures/neighbor-turnover', () => {
-  it('neighborTurnover on a hand-checked case (methods §7)', () => {
-    // Source: methods §7 definition, 1 − mean Jaccard. k = 2.
+  it('neighborTurnover on a hand-checked case (docs/methods.md §7)', () => {
+    // Source: docs/methods.md §7 definition, 1 − mean Jaccard. k = 2.
     // row 0: {1, 2} vs {2, 1} → J = 1; row 1: {0, 2} vs {0, 3} → 1/3;
     // row 2: {0, 1} vs {} → 0; row 3: {} vs {} → skipped. Turnover = 1 − (1 + 1/3 + 0)/3 = 5/9.
     const N = NO_NEIGHBOR;

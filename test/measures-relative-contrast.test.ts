@@ -6,7 +6,7 @@ import { allValid, euclideanDistances, gaussianPoints } from './measures-fixture
 describe('measures/relative-contrast', () => {
   it('relativeContrast median falls as the dimension grows (iid normal, d = 2, 10, 100)', () => {
     // Source: Beyer, Goldstein, Ramakrishnan & Shaft (1999), ICDT — (Dmax − Dmin)/Dmin → 0 as
-    // dimensionality grows for iid attributes (methods §4).
+    // dimensionality grows for iid attributes (docs/methods.md §4).
     const n = 300;
     const medians = [2, 10, 100].map((d) => relativeContrast(euclideanDistances(gaussianPoints(mulberry32(d), n, d), n, d), n, allValid(n))!.median);
     assert.ok(medians[0]! > medians[1]! && medians[1]! > medians[2]!, `medians ${medians.join(', ')}`);

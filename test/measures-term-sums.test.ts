@@ -7,7 +7,7 @@ import { denseToCsr, dot, randomUnitRows } from './measures-fixtures';
 describe('measures/term-sums', () => {
   for (const seed of [1, 2, 3]) {
     it(`pairMass equals brute-force all-pairs sums to 1e-9 (corpus seed ${seed})`, () => {
-      // Source: methods §3 — P(t) = (S1² − S2)/2 must equal Σ_{a<b} x_at·x_bt; the check
+      // Source: docs/methods.md §3 — P(t) = (S1² − S2)/2 must equal Σ_{a<b} x_at·x_bt; the check
       // value is the O(n²) brute-force sum itself.
       const random = mulberry32(seed);
       const rows = randomUnitRows(random, 40, 25, 0.2, 7);
@@ -38,7 +38,7 @@ describe('measures/term-sums', () => {
   }
 
   it('termSums gives df and the squared-distance mass identity D(t) = n·S2 − S1²', () => {
-    // Source: methods §3 — Σ_{a<b} (x_at − x_bt)² = n·S2(t) − S1(t)², checked by brute force.
+    // Source: docs/methods.md §3 — Σ_{a<b} (x_at − x_bt)² = n·S2(t) − S1(t)², checked by brute force.
     const random = mulberry32(11);
     const rows = randomUnitRows(random, 30, 12, 0.3);
     const sums = termSums(denseToCsr(rows));
@@ -80,7 +80,7 @@ describe('measures/term-sums', () => {
   });
 
   it('pair mass shares sum to 1 and the cumulative share ends at 1 (property)', () => {
-    // Source: methods §3 — Σ_t P(t) is the total, so the shares partition it.
+    // Source: docs/methods.md §3 — Σ_t P(t) is the total, so the shares partition it.
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 1_000_000 }), fc.integer({ min: 2, max: 30 }), (seed, n) => {
         const rows = randomUnitRows(mulberry32(seed), n, 8, 0.4);

@@ -13,14 +13,14 @@ describe('measures/two-nn', () => {
   const n = 2000;
   for (const d of [2, 5]) {
     it(`twoNN is within 15% of d = ${d} for a uniform cube rotated into 100 dimensions (n = 2000)`, () => {
-      // Source: Facco, d'Errico, Rodriguez & Laio (2017), Scientific Reports 7 (methods §6).
+      // Source: Facco, d'Errico, Rodriguez & Laio (2017), Scientific Reports 7 (docs/methods.md §6).
       const value = estimate(cubeDistances(d), n);
       assert.ok(Math.abs(value - d) < 0.15 * d, `twoNN = ${value}`);
     });
   }
 
   it('twoNN underestimates d = 10 in a cube by the boundary effect only (n = 2000)', () => {
-    // Source: methods §6 says within ~15%; measured here the same formula on scikit-learn 1.2.1
+    // Source: docs/methods.md §6 says within ~15%; measured here the same formula on scikit-learn 1.2.1
     // NearestNeighbors distances gives 8.5 for the d = 10 cube and 9.93 on the periodic 10-torus
     // (no faces), so the shortfall is the cube's boundary, not the estimator. Hence: the cube
     // within 20% below d, the torus within 15%.

@@ -40,7 +40,7 @@ function assertClose(actual: number[], expected: number[], tolerance: number, wh
 
 describe('weighting against published examples', () => {
   // Source: scikit-learn user guide, "Tf–idf term weighting", TfidfTransformer example
-  // (methods.md §1; values recomputed there with scikit-learn 1.2.1, printed to 8 decimals).
+  // (docs/methods.md §1; values recomputed there with scikit-learn 1.2.1, printed to 8 decimals).
   const guideCounts = countMatrix([[3, 0, 1], [2, 0, 0], [3, 0, 0], [4, 0, 0], [3, 2, 0], [3, 0, 2]]);
 
   it('weigh raw/plainPlusOne/l2 gives the user guide\'s smooth_idf=False rows', () => {

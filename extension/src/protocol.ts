@@ -1,4 +1,4 @@
-// The Report (design.md "Report contract") and every message between the extension host and
+// The Report (README.md "The Report") and every message between the extension host and
 // the Distance Review webview. Imported by both sides: keep it free of Node and DOM types.
 // Each message type carries a literal `type`; the comment says which way it travels.
 
@@ -6,19 +6,19 @@
 export interface Measures {
   /** The seeded document sample the quadratic measures were computed on. */
   sample: { documents: number; k: number; seed: number };
-  /** Mean pairwise cosine over all pairs, exact (methods §3). */
+  /** Mean pairwise cosine over all pairs, exact (docs/methods.md §3). */
   backgroundSimilarity: number;
   /** Median z-score of the nearest neighbour's similarity against the query's similarities. */
   neighborStandout: number | null;
-  /** Relative contrast (Dmax − Dmin)/Dmin per query, Beyer et al. 1999 (methods §4). */
+  /** Relative contrast (Dmax − Dmin)/Dmin per query, Beyer et al. 1999 (docs/methods.md §4). */
   contrast: { median: number; p10: number; p90: number } | null;
-  /** E[D_mean]/E[D_min] over the sample queries, He, Kumar & Chang 2012 (methods §4). */
+  /** E[D_mean]/E[D_min] over the sample queries, He, Kumar & Chang 2012 (docs/methods.md §4). */
   meanToNearest: number | null;
-  /** 1/(2·CV²) of the sampled pair distances (methods §4). */
+  /** 1/(2·CV²) of the sampled pair distances (docs/methods.md §4). */
   iidEquivalentDimension: number | null;
-  /** k-occurrence statistics, Radovanović et al. 2010 (methods §5). */
+  /** k-occurrence statistics, Radovanović et al. 2010 (docs/methods.md §5). */
   hubness: { skewness: number; hubs: number; orphans: number } | null;
-  /** TwoNN (Facco et al. 2017) and MLE (Levina & Bickel 2005) on the sample (methods §6). */
+  /** TwoNN (Facco et al. 2017) and MLE (Levina & Bickel 2005) on the sample (docs/methods.md §6). */
   intrinsicDimension: { twoNN: number | null; mle: number | null };
   /** Relative growth of the radius past the k-th neighbour before hits grow 10×. */
   radiusSlack: { median: number } | null;
@@ -48,7 +48,7 @@ export interface TermRow {
   term: string;
   df: number;
   idf: number;
-  /** Share of the all-pairs similarity mass (methods §3). */
+  /** Share of the all-pairs similarity mass (docs/methods.md §3). */
   pullShare: number;
   /** Share of the similarity inside k-NN pairs ÷ pull share; null where no k-NN mass exists. */
   neighborLift: number | null;

@@ -13,7 +13,7 @@ export interface Weighted {
 
 /**
  * tf·idf weights, following Salton & Buckley (1988) and IIR ch. 6, with scikit-learn's
- * TfidfTransformer variants (methods §1):
+ * TfidfTransformer variants (docs/methods.md §1):
  *   tf:  raw c | sublinear 1 + ln c | binary [c > 0]
  *   idf: smooth ln((1+n)/(1+df)) + 1 | plain ln(n/df) | plainPlusOne ln(n/df) + 1 | none 1
  *   norm: l2 | l1 | none.

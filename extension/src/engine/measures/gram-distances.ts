@@ -2,7 +2,7 @@
  * Turning a dense m×m Gram matrix (dot products, from sampleSimilarities) into Euclidean
  * distances, and telling which rows take part in the neighbour measures.
  *
- * ‖a − b‖² = ‖a‖² + ‖b‖² − 2·a·b; on unit rows this is 2 − 2·cos(a, b) (methods §2), so the
+ * ‖a − b‖² = ‖a‖² + ‖b‖² − 2·a·b; on unit rows this is 2 − 2·cos(a, b) (docs/methods.md §2), so the
  * distance ranking equals the cosine ranking. The general form keeps the same code usable on
  * raw, unnormalised points, which is how the textbook checks of §4–§6 are run.
  */

@@ -2,7 +2,7 @@ import { NO_NEIGHBOR } from './knn';
 
 /**
  * Hubness from k-occurrences (Radovanović, Nanopoulos & Ivanović 2010, "Hubs in space:
- * popular nearest neighbors in high-dimensional data", JMLR 11; methods §5). N_k(x) counts the
+ * popular nearest neighbors in high-dimensional data", JMLR 11; docs/methods.md §5). N_k(x) counts the
  * k-NN lists of other points that contain x; its mean is k.
  */
 export function kOccurrence(neighbors: Uint32Array, m: number, k: number): Uint32Array {

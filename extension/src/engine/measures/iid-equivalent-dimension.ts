@@ -35,7 +35,7 @@ export function pairDistanceCv(dist: Float64Array, m: number, valid: Uint8Array,
 }
 
 /**
- * The "iid-equivalent dimension" of the sampled pair distances (methods §4): for iid standard
+ * The "iid-equivalent dimension" of the sampled pair distances (docs/methods.md §4): for iid standard
  * normal points in d dimensions ‖x − y‖² = 2·χ²_d, and the distances' coefficient of variation
  * is ≈ 1/√(2d) for large d, so d_eq = 1/(2·CV²) reads a distance spread as the dimension of an
  * iid Gaussian cloud with the same concentration. null when the CV is undefined or 0.

@@ -3,7 +3,7 @@ import { NO_NEIGHBOR } from './knn';
 
 /**
  * Per term, the similarity it contributes inside k-NN pairs: Σ over pairs {q, nb} of x_qt·x_nbt.
- * Set against the all-pairs mass P(t) (methods §3) this gives the neighbour lift: a term whose
+ * Set against the all-pairs mass P(t) (docs/methods.md §3) this gives the neighbour lift: a term whose
  * share of neighbour similarity is no larger than its share of all-pairs similarity does not
  * help pick neighbours.
  *

@@ -1,7 +1,7 @@
 import { NO_NEIGHBOR } from './knn';
 
 /**
- * Leave-one-out k-NN precision@k (methods §7): for each labelled query with neighbours, the
+ * Leave-one-out k-NN precision@k (docs/methods.md §7): for each labelled query with neighbours, the
  * fraction of its neighbours that carry the same label; the mean over those queries. A
  * neighbour without a label (−1) counts as a miss — it is not evidence of the same class.
  * Slots without a neighbour are not counted. `labels` is per sample position.

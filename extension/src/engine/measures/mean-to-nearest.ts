@@ -1,7 +1,7 @@
 /**
  * Relative contrast in the sense of He, Kumar & Chang (2012), "On the difficulty of nearest
  * neighbor search", ICML: C_r = E[D_mean]/E[D_min], the expectations taken over queries
- * (methods §4). Near 1, the nearest neighbour is hardly nearer than an average document.
+ * (docs/methods.md §4). Near 1, the nearest neighbour is hardly nearer than an average document.
  *
  * Unlike the per-query ratio, a ratio of means stays finite when some queries have an exact
  * duplicate (D_min = 0), so those queries are kept: they are part of what a search would meet.

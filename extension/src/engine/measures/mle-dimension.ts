@@ -1,6 +1,6 @@
 /**
  * Maximum-likelihood intrinsic dimension (Levina & Bickel 2005, "Maximum likelihood estimation
- * of intrinsic dimension", NIPS; methods §6) with the correction of MacKay & Ghahramani (2005):
+ * of intrinsic dimension", NIPS; docs/methods.md §6) with the correction of MacKay & Ghahramani (2005):
  * the local estimate at x is m_k(x) = [ (1/(k−1)) Σ_{j<k} ln(T_k(x)/T_j(x)) ]⁻¹, and the global
  * estimate averages the *inverses* 1/m_k(x) before inverting, because averaging m_k itself is
  * dominated by the points whose neighbours happen to be nearly equidistant.

@@ -1,7 +1,7 @@
 import { NO_NEIGHBOR } from './knn';
 
 /**
- * Neighbour turnover between two settings on the same sample positions (methods §7):
+ * Neighbour turnover between two settings on the same sample positions (docs/methods.md §7):
  * 1 − mean Jaccard |A ∩ B| / |A ∪ B| of each row's k-NN sets. Rows with no neighbours in either
  * setting are skipped (nothing to compare); a row with neighbours in only one has Jaccard 0.
  * null when no row has neighbours in either.

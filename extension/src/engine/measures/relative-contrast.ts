@@ -9,7 +9,7 @@ export interface ContrastSummary {
 /**
  * Relative contrast per query, RC(q) = (Dmax − Dmin)/Dmin over the other valid sample rows
  * (Beyer, Goldstein, Ramakrishnan & Shaft 1999, "When is 'nearest neighbor' meaningful?",
- * ICDT; methods §4). As dimensionality concentrates distances, RC falls towards 0.
+ * ICDT; docs/methods.md §4). As dimensionality concentrates distances, RC falls towards 0.
  *
  * Queries with Dmin = 0 have an exact duplicate in the sample: their RC is infinite and says
  * nothing about concentration, so they are left out (text corpora often hold many duplicates).

@@ -1,7 +1,7 @@
 import type { Csr } from '../matrix/csr';
 
 /**
- * Per-term sums over documents, exact in one O(nnz) pass (methods §3). Every field is a plain
+ * Per-term sums over documents, exact in one O(nnz) pass (docs/methods.md §3). Every field is a plain
  * sum over documents, so shards of a corpus merge by adding them.
  */
 export interface TermSums {
@@ -44,7 +44,7 @@ export interface PairMass {
 }
 
 /**
- * The all-pairs similarity mass per term without a pair loop (methods §3): on unit rows
+ * The all-pairs similarity mass per term without a pair loop (docs/methods.md §3): on unit rows
  * cos(a, b) = Σ_t x_at·x_bt, and Σ_{a<b} x_at·x_bt = (S1(t)² − S2(t))/2.
  * Empty rows add nothing to the mass, and they are left out of the pair count so that
  * documents emptied by a stop list do not make the corpus look artificially quiet.

@@ -18,7 +18,7 @@ export interface ReportParts {
   sample: ReviewSample;
 }
 
-/** The Report of design.md, from the parts of a finished review. */
+/** The Report (README.md "The Report") from the parts of a finished review. */
 export function assembleReport(p: ReportParts): Report {
   const { documents, tokens } = p.prepared;
   return {

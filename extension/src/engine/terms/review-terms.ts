@@ -37,7 +37,7 @@ const REPORT_ROWS = 2000;
  * Scores every term, picks the suggestions (checked by the what-if) and writes the term table.
  * Neighbour lift is measured against the neighbours of the *suggested* setting: on the raw
  * corpus the neighbours are themselves picked by the loud terms, which flatters them
- * (methods §8).
+ * (docs/methods.md §8).
  */
 export function reviewTerms(input: TermReviewInput): TermReview {
   const { lab, baseMask, baseline, documents, idf, index, tokenize, settings } = input;

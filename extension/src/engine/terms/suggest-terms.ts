@@ -35,13 +35,13 @@ const LOUD_GROUP = 4;
 const MAX_REJECTED_GROUPS_IN_A_ROW = 3;
 
 /**
- * Suggests stop terms in two passes, each checked by the what-if (methods §8):
+ * Suggests stop terms in two passes, each checked by the what-if (docs/methods.md §8):
  * 1. the function-word prior, in groups, heaviest first — a group is kept unless it makes the
  *    neighbours stand out less or lowers label precision;
  * 2. corpus-specific loud terms ranked against the neighbours of the cleaned setting — a group is
  *    kept only if it makes neighbours stand out more or raises label precision.
  * Relative contrast is deliberately not the objective: on text it falls while neighbour quality
- * rises (methods §4). Neighbour standout and label precision are what tracked precision there.
+ * rises (docs/methods.md §4). Neighbour standout and label precision are what tracked precision there.
  */
 export function suggestTerms(input: SuggestionInput): SuggestionPlan {
   const { probe, baseMask, baseline, max } = input;

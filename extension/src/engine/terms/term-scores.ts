@@ -1,6 +1,6 @@
-/** Per-term scores behind the ranked term table (design.md "Names"). */
+/** Per-term scores behind the ranked term table (docs/methods.md "Names"). */
 export interface TermScores {
-  /** P(t) / Σ P: the term's share of the all-pairs similarity mass (methods §3). */
+  /** P(t) / Σ P: the term's share of the all-pairs similarity mass (docs/methods.md §3). */
   pullShare: Float64Array;
   /** (share of the similarity inside k-NN pairs) ÷ pullShare; NaN where the term has no mass. */
   neighborLift: Float64Array;
