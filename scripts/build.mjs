@@ -4,7 +4,15 @@ import { build } from 'esbuild';
 import { existsSync, mkdirSync, copyFileSync } from 'node:fs';
 
 const production = process.argv.includes('--production');
-const common = { bundle: true, sourcemap: !production, minify: production, logLevel: 'warning' };
+const common = {
+  bundle: true,
+  sourcemap: !production,
+  minify: production,
+  logLevel: 'warning',
+  // jsonc-parser's "main" is a UMD build whose dynamic require('./impl/…') esbuild cannot follow;
+  // its ES module build bundles cleanly.
+  alias: { 'jsonc-parser': './node_modules/jsonc-parser/lib/esm/main.js' },
+};
 
 const entries = [
   // Node side: the extension host, the engine worker, the CLI.

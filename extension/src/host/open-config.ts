@@ -1,38 +1,19 @@
-// "Open config": opens the project's loudword.json, creating it (after asking) with a $schema
-// line so completion works even where the extension's jsonValidation does not reach.
+// "Open config": opens the project's loudword.json, creating it (after asking).
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { CONFIG_FILE_NAME } from './pure/config-location';
 import { findConfig, workspaceRootOf } from './review-input';
 
-/** Where the schema lives relative to a config at the workspace root, as in samples/. */
-const SCHEMA_REF = './loudword.schema.json';
-
-function newConfigText(schemaRef: string): string {
-  return `${JSON.stringify({ $schema: schemaRef, stopList: 'stoplist.txt' }, null, 2)}\n`;
-}
-
 /**
- * A workspace's own copy of the schema, by relative path, when it has one; else the schema's
- * published $id. Never the extension's install path: the file is committed and shared.
+ * No "$schema" line: the extension applies loudword.schema.json to every loudword.json by file
+ * name (package.json jsonValidation), and a path or URL the user's folder lacks would make
+ * VS Code report "Unable to load schema" and turn validation off.
  */
-async function schemaReference(extensionUri: vscode.Uri, root: string): Promise<string> {
-  try {
-    await vscode.workspace.fs.stat(vscode.Uri.file(path.join(root, 'loudword.schema.json')));
-    return SCHEMA_REF;
-  } catch {
-    // no local copy
-  }
-  try {
-    const schema = JSON.parse(Buffer.from(await vscode.workspace.fs.readFile(vscode.Uri.joinPath(extensionUri, 'loudword.schema.json'))).toString('utf8')) as { $id?: unknown };
-    if (typeof schema.$id === 'string') return schema.$id;
-  } catch {
-    // fall through
-  }
-  return SCHEMA_REF;
+function newConfigText(): string {
+  return `${JSON.stringify({ stopList: 'stoplist.txt' }, null, 2)}\n`;
 }
 
-export async function openConfig(extensionUri: vscode.Uri): Promise<void> {
+export async function openConfig(_extensionUri: vscode.Uri): Promise<void> {
   const active = vscode.window.activeTextEditor?.document.uri;
   const root = active !== undefined ? workspaceRootOf(active) : vscode.workspace.workspaceFolders?.[0]?.uri.fsPath ?? null;
   const existing = active?.scheme === 'file' ? await findConfig(active.fsPath, root) : root !== null ? await findConfig(path.join(root, CONFIG_FILE_NAME), root) : null;
@@ -48,9 +29,8 @@ export async function openConfig(extensionUri: vscode.Uri): Promise<void> {
   const create = 'Create loudword.json';
   const choice = await vscode.window.showInformationMessage(`Loudword: there is no ${CONFIG_FILE_NAME} in ${path.basename(root)}. Create one?`, { modal: true }, create);
   if (choice !== create) return;
-  const schemaRef = await schemaReference(extensionUri, root);
   const edit = new vscode.WorkspaceEdit();
-  edit.createFile(target, { ignoreIfExists: true, contents: Buffer.from(newConfigText(schemaRef), 'utf8') });
+  edit.createFile(target, { ignoreIfExists: true, contents: Buffer.from(newConfigText(), 'utf8') });
   await vscode.workspace.applyEdit(edit);
   await vscode.window.showTextDocument(target);
 }

@@ -6,8 +6,7 @@ import { UserError } from '../user-error';
 import { DEFAULT_SETTINGS } from './default-settings';
 import { mergeSettings } from './merge-settings';
 import { parseSettings, type PartialSettings } from './parse-settings';
-import { SETTINGS_SPEC } from './settings-spec';
-import { validateSettings } from './validate-settings';
+import { checkSettings } from './settings-schema';
 
 export interface LoadedSettings {
   settings: EffectiveSettings;
@@ -46,7 +45,8 @@ export async function loadSettings(
   }
 
   const layer = overridesLayer(overrides, baseDir);
-  validateSettings(layer, SETTINGS_SPEC, { file: '(overrides)' });
+  const problem = checkSettings(layer);
+  if (problem !== null) throw new UserError(problem.message, '(overrides)', null);
   const settings = mergeSettings(DEFAULT_SETTINGS, fromFile, layer);
   if (settings.sample.k >= settings.sample.documents) {
     throw new UserError(`"sample.k" (${settings.sample.k}) must be smaller than "sample.documents" (${settings.sample.documents})`, origin, null);

@@ -1,8 +1,7 @@
 import type { EffectiveSettings } from '../../protocol';
 import { UserError } from '../user-error';
-import { JsonSyntaxError, parseJsonWithLines } from './json-with-lines';
-import { SETTINGS_SPEC } from './settings-spec';
-import { validateSettings } from './validate-settings';
+import { JsonSyntaxError, parseJsonWithPositions } from './json-with-positions';
+import { checkSettings } from './settings-schema';
 
 /** loudword.json as written: any key may be left out, nested objects too. */
 export type PartialSettings = {
@@ -11,20 +10,32 @@ export type PartialSettings = {
     : Partial<EffectiveSettings[K]>;
 };
 
+export interface ParsedSettings {
+  settings: PartialSettings;
+  /** 1-based line of a key ("sample", "k"), for messages about a value found valid here but wrong later. */
+  lineOf(path: ReadonlyArray<string | number>): number | null;
+}
+
 /**
- * Parses and checks the text of a loudword.json. Syntax errors, unknown keys and wrong types
- * become UserErrors with the file and line. "$schema" is accepted and dropped.
+ * Parses and checks the text of a loudword.json against loudword.schema.json. Syntax errors,
+ * unknown keys and wrong values become UserErrors with the file and the line of the key.
+ * "$schema" is accepted and dropped.
  */
-export function parseSettings(jsonText: string, file: string): PartialSettings {
+export function parseSettingsWithLines(jsonText: string, file: string): ParsedSettings {
   let parsed;
   try {
-    parsed = parseJsonWithLines(jsonText);
+    parsed = parseJsonWithPositions(jsonText);
   } catch (e) {
     if (e instanceof JsonSyntaxError) throw new UserError(`JSON syntax error at column ${e.column}: ${e.message}`, file, e.line);
     throw e;
   }
-  validateSettings(parsed.value, SETTINGS_SPEC, { file, keyLines: parsed.keyLines });
+  const problem = checkSettings(parsed.value);
+  if (problem !== null) throw new UserError(problem.message, file, parsed.lineOf(problem.path));
   const { $schema: _schema, ...settings } = parsed.value as Record<string, unknown>;
   void _schema;
-  return settings as PartialSettings;
+  return { settings: settings as PartialSettings, lineOf: parsed.lineOf };
+}
+
+export function parseSettings(jsonText: string, file: string): PartialSettings {
+  return parseSettingsWithLines(jsonText, file).settings;
 }
