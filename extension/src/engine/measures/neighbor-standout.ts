@@ -3,7 +3,7 @@ import { medianOf } from './quantile';
 /**
  * Neighbour standout: per query, the z-score of its nearest neighbour's similarity against
  * the query's similarities to all other valid sample rows, (s_nn − mean_q)/sd_q; the median
- * over queries. Methods §4 found this tracks k-NN precision on text where relative contrast
+ * over queries. docs/methods.md §4 found this tracks k-NN precision on text where relative contrast
  * does not. Queries whose similarities are all equal (sd = 0) have no z-score and are skipped.
  * `nearest` holds each row's best similarity (NaN for rows without neighbours).
  */

@@ -1,6 +1,6 @@
 /**
  * TwoNN intrinsic dimension (Facco, d'Errico, Rodriguez & Laio 2017, "Estimating the intrinsic
- * dimension of datasets by a minimal neighborhood information", Scientific Reports 7; methods
+ * dimension of datasets by a minimal neighborhood information", Scientific Reports 7; docs/methods.md
  * §6). For each point μ = r2/r1, the ratio of its second to first neighbour distance, follows a
  * Pareto law with exponent d, whose maximum-likelihood estimate is d = N / Σ ln μ.
  *

@@ -14,7 +14,7 @@ import { TermIndex } from '../what-if/term-index';
 import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
 
 /**
- * Runs a whole review (DEVELOPERS.md "Architecture"): read → tokens → counts → weights → measures →
+ * Runs a whole review (docs/architecture.md "Data flow"): read → tokens → counts → weights → measures →
  * term review → suggestions → Report, and keeps the weights for later what-if questions.
  */
 export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): Promise<ReviewSession> {
