@@ -1,4 +1,6 @@
+import { parseArgs as parseNodeArgs } from 'node:util';
 import type { CorpusFormatName } from '../protocol';
+import { schemaAt } from '../engine/config/settings-schema';
 
 export type OutputFormat = 'text' | 'json' | 'md' | 'html';
 
@@ -26,82 +28,191 @@ export class UsageError extends Error {
   override name = 'UsageError';
 }
 
-const valueOptions = new Set(['--text', '--label', '--config', '--stoplist', '--input-format', '--format', '--out', '--sample', '--k', '--seed']);
+type ValueKind =
+  /** a file, field or other name: any non-empty text */
+  | { kind: 'name' }
+  | { kind: 'choice'; choices: readonly string[] }
+  /** a whole number, bounded like the loudword.json key it stands for */
+  | { kind: 'count'; setting: readonly string[] };
 
+/** One command-line option: parsing, checking and the usage text all come from this entry. */
+export interface OptionSpec {
+  flag: string;
+  short?: string;
+  /** Where the value goes in CliOptions; a boolean option sets it to true. */
+  field: keyof CliOptions;
+  /** The value's placeholder in the usage ("FILE"); absent for a switch. */
+  value?: string;
+  check?: ValueKind;
+  help: string;
+}
+
+export const COMMANDS = [
+  { name: 'review', args: '<corpus> [options]', help: 'review the corpus and print the findings' },
+  { name: 'apply', args: '<corpus> [options]', help: 'review, then add the suggested terms to the stop list file' },
+] as const;
+
+export const OPTIONS: readonly OptionSpec[] = [
+  { flag: 'text', field: 'text', value: 'FIELD', check: { kind: 'name' }, help: 'column or key holding the text (default: the one with the longest texts)' },
+  { flag: 'label', field: 'label', value: 'FIELD', check: { kind: 'name' }, help: 'column or key with a class label; enables label precision@k' },
+  { flag: 'config', field: 'config', value: 'FILE', check: { kind: 'name' }, help: 'loudword.json to read (default: loudword.json beside the corpus, then in the current folder)' },
+  { flag: 'no-config', field: 'noConfig', help: 'ignore any loudword.json' },
+  { flag: 'stoplist', field: 'stopList', value: 'FILE', check: { kind: 'name' }, help: 'the stop list file (default: "stopList" of the config, else stoplist.txt)' },
+  { flag: 'input-format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: ['csv', 'tsv', 'jsonl', 'text'] }, help: 'how to read the corpus (default: from the file name and content)' },
+  { flag: 'format', field: 'format', value: 'F', check: { kind: 'choice', choices: ['text', 'json', 'md', 'html'] }, help: 'output; json prints the Report (default text)' },
+  { flag: 'out', field: 'out', value: 'FILE', check: { kind: 'name' }, help: 'write the output to FILE instead of standard output' },
+  { flag: 'sample', field: 'sample', value: 'N', check: { kind: 'count', setting: ['sample', 'documents'] }, help: 'documents in the seeded sample for the neighbour measures' },
+  { flag: 'k', field: 'k', value: 'N', check: { kind: 'count', setting: ['sample', 'k'] }, help: 'neighbours per document' },
+  { flag: 'seed', field: 'seed', value: 'N', check: { kind: 'count', setting: ['sample', 'seed'] }, help: 'sample seed' },
+  { flag: 'fail-on-suggestions', field: 'failOnSuggestions', help: 'exit with status 3 when terms are suggested (for CI)' },
+  { flag: 'dry-run', field: 'dryRun', help: 'with apply: show what would be added, change nothing' },
+  { flag: 'quiet', short: 'q', field: 'quiet', help: 'no progress on standard error' },
+  { flag: 'help', short: 'h', field: 'command', help: 'this help' },
+  { flag: 'version', short: 'v', field: 'command', help: 'the version' },
+];
+
+/** The bounds and default of the loudword.json key a number flag stands for. */
+export function countBounds(setting: readonly string[]): { min: number; max: number; default: number } {
+  const node = schemaAt(setting);
+  if (node?.minimum === undefined || node.maximum === undefined || typeof node.default !== 'number') throw new Error(`no bounds for ${setting.join('.')} in the schema`);
+  return { min: node.minimum, max: node.maximum, default: node.default };
+}
+
+const DEFAULTS: CliOptions = {
+  command: 'help',
+  file: null,
+  text: null,
+  label: null,
+  config: null,
+  noConfig: false,
+  stopList: null,
+  inputFormat: null,
+  format: 'text',
+  out: null,
+  sample: null,
+  k: null,
+  seed: null,
+  failOnSuggestions: false,
+  dryRun: false,
+  quiet: false,
+};
+
+/** Parses the command line with node:util's parseArgs, driven by OPTIONS; throws UsageError. */
 export function parseArgs(argv: readonly string[]): CliOptions {
-  const o: CliOptions = {
-    command: 'help',
-    file: null,
-    text: null,
-    label: null,
-    config: null,
-    noConfig: false,
-    stopList: null,
-    inputFormat: null,
-    format: 'text',
-    out: null,
-    sample: null,
-    k: null,
-    seed: null,
-    failOnSuggestions: false,
-    dryRun: false,
-    quiet: false,
-  };
-  const positional: string[] = [];
-  for (let i = 0; i < argv.length; i++) {
-    let arg = argv[i]!;
-    let value: string | undefined;
-    const eq = arg.indexOf('=');
-    if (arg.startsWith('--') && eq > 0) {
-      value = arg.slice(eq + 1);
-      arg = arg.slice(0, eq);
-    }
-    if (valueOptions.has(arg) && value === undefined) {
-      value = argv[++i];
-      if (value === undefined) throw new UsageError(`${arg} needs a value`);
-    }
-    switch (arg) {
-      case '-h':
-      case '--help':
-        return { ...o, command: 'help' };
-      case '-v':
-      case '--version':
-        return { ...o, command: 'version' };
-      case '--text': o.text = value!; break;
-      case '--label': o.label = value!; break;
-      case '--config': o.config = value!; break;
-      case '--no-config': o.noConfig = true; break;
-      case '--stoplist': o.stopList = value!; break;
-      case '--input-format': o.inputFormat = oneOf(arg, value!, ['csv', 'tsv', 'jsonl', 'text'] as const); break;
-      case '--format': o.format = oneOf(arg, value!, ['text', 'json', 'md', 'html'] as const); break;
-      case '--out': o.out = value!; break;
-      case '--sample': o.sample = wholeNumber(arg, value!, 10); break;
-      case '--k': o.k = wholeNumber(arg, value!, 1); break;
-      case '--seed': o.seed = wholeNumber(arg, value!, 0); break;
-      case '--fail-on-suggestions': o.failOnSuggestions = true; break;
-      case '--dry-run': o.dryRun = true; break;
-      case '-q':
-      case '--quiet': o.quiet = true; break;
-      default:
-        if (arg.startsWith('-') && arg !== '-') throw new UsageError(`unknown option ${arg}`);
-        positional.push(arg);
-    }
+  const config: Record<string, { type: 'string' | 'boolean'; short?: string }> = {};
+  for (const o of OPTIONS) config[o.flag] = { type: o.value === undefined ? 'boolean' : 'string', ...(o.short !== undefined ? { short: o.short } : {}) };
+  let parsed;
+  try {
+    parsed = parseNodeArgs({ args: [...argv], options: config, allowPositionals: true, strict: true });
+  } catch (e) {
+    throw new UsageError(wordParseError(e as Error & { code?: string }, argv));
   }
-  const [command, file, ...extra] = positional;
-  if (command === undefined) return o;
-  if (command !== 'review' && command !== 'apply') throw new UsageError(`unknown command "${command}" (use review or apply)`);
+  const values = parsed.values as Record<string, string | boolean | undefined>;
+  if (values.help === true) return { ...DEFAULTS, command: 'help' };
+  if (values.version === true) return { ...DEFAULTS, command: 'version' };
+
+  const o: CliOptions = { ...DEFAULTS };
+  const set = o as unknown as Record<string, unknown>;
+  for (const spec of OPTIONS) {
+    const value = values[spec.flag];
+    if (value === undefined || spec.field === 'command') continue;
+    set[spec.field] = typeof value === 'boolean' ? value : checkValue(spec, value);
+  }
+  if (o.config !== null && o.noConfig) throw new UsageError('--config and --no-config contradict each other; give one');
+
+  const [command, file, ...extra] = parsed.positionals;
+  if (command === undefined) {
+    if (argv.length > 0) throw new UsageError(`which command? Give ${COMMANDS.map((c) => c.name).join(' or ')} before the corpus`);
+    return o;
+  }
+  if (command !== 'review' && command !== 'apply') {
+    if (/[./\\]/.test(command)) throw new UsageError(`"${command}" is not a command; did you mean: loudword review ${command}?`);
+    const near = closest(command, COMMANDS.map((c) => c.name));
+    throw new UsageError(`unknown command "${command}"${near !== null ? `; did you mean ${near}?` : ` (use ${COMMANDS.map((c) => c.name).join(' or ')})`}`);
+  }
   if (file === undefined) throw new UsageError(`${command} needs a corpus file`);
-  if (extra.length > 0) throw new UsageError(`unexpected argument "${extra[0]}"`);
+  if (file === '') throw new UsageError(`${command}: the corpus file name is empty`);
+  if (extra.length > 0) throw new UsageError(`unexpected argument "${extra[0]}" (one corpus file per run)`);
+  if (o.dryRun && command !== 'apply') throw new UsageError('--dry-run only goes with apply');
   return { ...o, command, file };
 }
 
-function oneOf<T extends string>(option: string, value: string, allowed: readonly T[]): T {
-  if ((allowed as readonly string[]).includes(value)) return value as T;
-  throw new UsageError(`${option} must be one of ${allowed.join(', ')} (got "${value}")`);
+function checkValue(spec: OptionSpec, value: string): string | number {
+  const flag = `--${spec.flag}`;
+  const check = spec.check ?? { kind: 'name' };
+  switch (check.kind) {
+    case 'name':
+      if (value.trim() === '') throw new UsageError(`${flag}: needs a ${spec.value === 'FILE' ? 'file name' : 'field name'}, got ${JSON.stringify(value)}`);
+      return value;
+    case 'choice':
+      if (!check.choices.includes(value)) {
+        const near = closest(value, check.choices);
+        throw new UsageError(`${flag}: must be one of ${check.choices.join(', ')}, got ${JSON.stringify(value)}${near !== null ? `; did you mean ${near}?` : ''}`);
+      }
+      return value;
+    case 'count': {
+      const { min, max } = countBounds(check.setting);
+      // Digits only: "1e3", "0x10", " 5" and "" are refused rather than read as numbers.
+      const n = /^\d{1,16}$/.test(value) ? Number(value) : NaN;
+      if (!Number.isSafeInteger(n) || n < min || n > max) throw new UsageError(`${flag}: must be a whole number from ${min} to ${max}, got ${JSON.stringify(value)}`);
+      return n;
+    }
+  }
 }
 
-function wholeNumber(option: string, value: string, min: number): number {
-  const n = Number(value);
-  if (!Number.isInteger(n) || n < min) throw new UsageError(`${option} must be a whole number ≥ ${min} (got "${value}")`);
-  return n;
+function wordParseError(e: Error & { code?: string }, argv: readonly string[]): string {
+  const quoted = /'([^']+)'/.exec(e.message)?.[1] ?? '';
+  switch (e.code) {
+    case 'ERR_PARSE_ARGS_UNKNOWN_OPTION': {
+      const written = quoted.replace(/=.*$/, '');
+      const flags = OPTIONS.map((o) => `--${o.flag}`);
+      const near = written.startsWith('--') ? closest(written, flags) : null;
+      return `unknown option ${written}${near !== null ? `; did you mean ${near}?` : ''}`;
+    }
+    case 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE': {
+      const flag = /^(-{1,2}[\w-]+)/.exec(quoted)?.[1] ?? quoted;
+      const long = OPTIONS.find((o) => `-${o.short}` === flag);
+      const name = long !== undefined ? `--${long.flag}` : flag;
+      const spec = OPTIONS.find((o) => `--${o.flag}` === name);
+      if (spec?.value === undefined) return `${name} is a switch and takes no value`;
+      // node:util refuses a value that looks like an option ("--out -x"); say how to pass one.
+      const i = argv.findIndex((a) => a === name || a === flag);
+      const next = i >= 0 ? argv[i + 1] : undefined;
+      if (next !== undefined && next.startsWith('-')) return `${name} needs a value; to give one starting with "-", write ${name}=${next}`;
+      return `${name} needs a value (${spec.value})`;
+    }
+    case 'ERR_PARSE_ARGS_UNEXPECTED_POSITIONAL':
+      return e.message;
+    default:
+      return e.message;
+  }
+}
+
+/** The candidate within edit distance 2 (or that the word starts), if exactly one is nearest. */
+export function closest(word: string, candidates: readonly string[]): string | null {
+  let best: string | null = null;
+  let bestDistance = Infinity;
+  let tie = false;
+  for (const c of candidates) {
+    const d = c.startsWith(word) && word.length >= 3 ? 0.5 : editDistance(word, c);
+    if (d < bestDistance) {
+      best = c;
+      bestDistance = d;
+      tie = false;
+    } else if (d === bestDistance) tie = true;
+  }
+  return best !== null && bestDistance <= 2 && !tie ? best : null;
+}
+
+/** Levenshtein distance (insert, delete, substitute), one row at a time. */
+function editDistance(a: string, b: string): number {
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const row = [i];
+    for (let j = 1; j <= b.length; j++) {
+      row[j] = Math.min(prev[j]! + 1, row[j - 1]! + 1, prev[j - 1]! + (a[i - 1] === b[j - 1] ? 0 : 1));
+    }
+    prev = row;
+  }
+  return prev[b.length]!;
 }
