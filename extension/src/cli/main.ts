@@ -1,4 +1,4 @@
-import { promises as fs } from 'node:fs';
+import { promises as fs, readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import type { Report } from '../protocol';
 import { isUserError } from '../engine/user-error';
@@ -13,6 +13,9 @@ import { findConfig } from './find-config';
 import { formatMarkdown } from './format-markdown';
 import { formatText } from './format-text';
 import { parseArgs, UsageError, type CliOptions } from './parse-args';
+import { checkWriteTarget, PathArgumentError, type NamedInput } from './output-path';
+import { UserError } from '../engine/user-error';
+import { lineOfKey } from '../engine/config/confine-to-workspace';
 import { USAGE } from './usage';
 
 const EXIT = { ok: 0, input: 1, usage: 2, suggestions: 3, internal: 4 } as const;
@@ -27,10 +30,19 @@ async function main(argv: readonly string[]): Promise<number> {
     process.stdout.write(`${LOUDWORD_VERSION}\n`);
     return EXIT.ok;
   }
-  const session = await startReview(reviewInput(options), { onStage: progressPrinter(options) });
+  const input = reviewInput(options);
+  // Paths typed on the command line are checked before the (long) review starts.
+  const inputs: NamedInput[] = [
+    { role: 'the corpus', file: input.file },
+    { role: 'the config file', file: input.configPath ?? null },
+  ];
+  if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: options.stopList }]);
+  if (options.command === 'apply' && options.stopList !== null) checkWriteTarget('--stoplist', options.stopList, inputs);
+  const session = await startReview(input, { onStage: progressPrinter(options) });
   const report = session.report;
-  if (options.command === 'apply') return applySuggestions(report, options);
+  if (options.command === 'apply') return applySuggestions(report, options, inputs);
 
+  if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: report.stopList.file }]);
   await emit(render(report, options.format), options.out);
   if (options.out !== null && !options.quiet) process.stderr.write(`loudword: wrote ${options.out}\n`);
   return options.failOnSuggestions && report.suggestions.length > 0 ? EXIT.suggestions : EXIT.ok;
@@ -72,9 +84,10 @@ async function emit(text: string, out: string | null): Promise<void> {
   await fs.writeFile(out, text);
 }
 
-async function applySuggestions(report: Report, o: CliOptions): Promise<number> {
+async function applySuggestions(report: Report, o: CliOptions, inputs: readonly NamedInput[]): Promise<number> {
   const file = report.stopList.file;
   if (file === null) throw new UsageError('no stop list file is configured; give --stoplist FILE');
+  checkStopListTarget(file, o, inputs);
   if (report.suggestions.length === 0) {
     process.stdout.write(`No stop terms suggested; ${file} is unchanged.\n`);
     return EXIT.ok;
@@ -91,6 +104,17 @@ async function applySuggestions(report: Report, o: CliOptions): Promise<number> 
   return EXIT.ok;
 }
 
+/** The stop list apply writes is never the corpus or the config, wherever it was named. */
+function checkStopListTarget(file: string, o: CliOptions, inputs: readonly NamedInput[]): void {
+  try {
+    checkWriteTarget(o.stopList !== null ? '--stoplist' : 'the stop list', file, inputs);
+  } catch (e) {
+    const config = inputs.find((i) => i.role === 'the config file')?.file ?? null;
+    if (!(e instanceof PathArgumentError) || o.stopList !== null || config === null) throw e;
+    throw new UserError(`stopList "${path.relative(path.dirname(config), file)}": ${e.message.slice(e.message.indexOf(': ') + 2)}`, config, lineOfKey(readFileSync(config, 'utf8'), 'stopList'));
+  }
+}
+
 function progressPrinter(o: CliOptions): ((stage: string) => void) | undefined {
   if (o.quiet || !process.stderr.isTTY) return undefined;
   return (stage) => process.stderr.write(`loudword: ${stage}…\n`);
@@ -104,6 +128,9 @@ main(process.argv.slice(2)).then(
     if (isUserError(error)) {
       process.stderr.write(`loudword: ${error.describe()}\n`);
       process.exitCode = EXIT.input;
+    } else if (error instanceof PathArgumentError) {
+      process.stderr.write(`loudword: ${error.message}\n`);
+      process.exitCode = EXIT.usage;
     } else if (error instanceof UsageError) {
       process.stderr.write(`loudword: ${error.message}\nRun \`loudword --help\` for the options.\n`);
       process.exitCode = EXIT.usage;

@@ -90,7 +90,7 @@ export async function prepareReview(uri: vscode.Uri, doc: vscode.TextDocument | 
 
   if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRoot, [configPath, stopListPath], configPath);
 
-  const input: ReviewInput = { file: corpusFile, configPath, overrides };
+  const input: ReviewInput = { file: corpusFile, configPath, overrides, projectRoot: workspaceRoot };
   if (doc !== undefined && (doc.isDirty || doc.isUntitled || !onDisk)) input.text = doc.getText();
   else if (!onDisk) throw new WorkerFailure('This document is neither on disk nor open in the editor; save it to a file first.', 'user');
   if (stopListPath !== null) {

@@ -9,6 +9,8 @@ import { WorkerFailure } from '../worker/review-worker-client';
 import type { CorpusReview } from './corpus-review';
 import { checkLineEdits, type LineEdit } from './pure/text-edit-ranges';
 import { confineForRestrictedMode, workspaceRootOf } from './review-input';
+import { confineStopListWrite } from '../engine/config/confine-to-workspace';
+import { isUserError } from '../engine/user-error';
 
 export function toRange(edit: LineEdit): vscode.Range {
   return new vscode.Range(edit.start.line, edit.start.character, edit.end.line, edit.end.character);
@@ -29,6 +31,13 @@ function stopListUriOf(review: CorpusReview): vscode.Uri {
     throw new WorkerFailure('This project has no stop list file (loudword.json sets "stopList" to null); set one to add terms.', 'user');
   }
   if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRootOf(review.uri), [file], null);
+  // Trusted or not, a stop list is only written inside the project (safety hook, issue 13).
+  try {
+    confineStopListWrite(workspaceRootOf(review.uri) ?? path.dirname(review.uri.fsPath), file);
+  } catch (e) {
+    if (isUserError(e)) throw new WorkerFailure(e.message, 'user', null, null);
+    throw e;
+  }
   return vscode.Uri.file(file);
 }
 

@@ -7,6 +7,7 @@ import { DEFAULT_SETTINGS } from './default-settings';
 import { mergeSettings } from './merge-settings';
 import { parseSettings, type PartialSettings } from './parse-settings';
 import { checkSettings } from './settings-schema';
+import { confineConfigPath, isWithin, realPathAllowingMissing } from './confine-to-workspace';
 
 export interface LoadedSettings {
   settings: EffectiveSettings;
@@ -24,12 +25,13 @@ export interface LoadedSettings {
 export async function loadSettings(
   configPath: string | null,
   overrides: SettingsOverrides = {},
-  options: { baseDir?: string } = {},
+  options: { baseDir?: string; projectRoot?: string | null } = {},
 ): Promise<LoadedSettings> {
   const baseDir = path.resolve(options.baseDir ?? process.cwd());
   let fromFile: PartialSettings = {};
   let configDir: string | null = null;
   let origin = '(overrides)';
+  let configText: string | null = null;
   if (configPath !== null) {
     const file = path.resolve(baseDir, configPath);
     let text: string;
@@ -40,6 +42,7 @@ export async function loadSettings(
       throw new UserError(code === 'ENOENT' ? 'config file not found' : `cannot read the config file (${code ?? (e as Error).message})`, file, null);
     }
     fromFile = parseSettings(text, file);
+    configText = text;
     configDir = path.dirname(file);
     origin = file;
   }
@@ -51,8 +54,18 @@ export async function loadSettings(
   if (settings.sample.k >= settings.sample.documents) {
     throw new UserError(`"sample.k" (${settings.sample.k}) must be smaller than "sample.documents" (${settings.sample.documents})`, origin, null);
   }
+  // A stop list named by loudword.json must stay inside the project (confine-to-workspace.ts).
+  if (configDir !== null && layer.stopList === undefined && typeof fromFile.stopList === 'string') {
+    confineConfigPath(origin, configText, 'stopList', fromFile.stopList, projectFolder(configDir, options.projectRoot));
+  }
   const stopListPath = settings.stopList === null ? null : path.resolve(configDir ?? baseDir, settings.stopList);
   return { settings, configDir, stopListPath };
+}
+
+/** The workspace when the config lies inside it (the editor), else the config's own folder. */
+function projectFolder(configDir: string, projectRoot: string | null | undefined): string {
+  if (projectRoot == null) return configDir;
+  return isWithin(realPathAllowingMissing(projectRoot), realPathAllowingMissing(configDir)) ? path.resolve(projectRoot) : configDir;
 }
 
 function overridesLayer(overrides: SettingsOverrides, baseDir: string): PartialSettings {

@@ -14,6 +14,11 @@ export interface ReviewInput {
    */
   stopListText?: string;
   overrides?: SettingsOverrides;
+  /**
+   * The workspace folder in the editor: paths loudword.json names must stay inside it. Without
+   * it (the CLI) they must stay inside the config's own folder.
+   */
+  projectRoot?: string | null;
 }
 
 /** Named stages, in order, for progress reporting. */

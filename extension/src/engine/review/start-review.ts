@@ -31,7 +31,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   };
 
   stage('reading');
-  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides);
+  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides, { projectRoot: input.projectRoot ?? null });
   const readOptions = {
     format: settings.format,
     textField: settings.text,

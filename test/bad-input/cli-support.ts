@@ -1,0 +1,66 @@
+// Shared by the bad-input CLI cases: the bundled CLI as a user runs it, on a small corpus in a
+// fresh temporary project folder. Not a test file itself (no .test.ts suffix).
+import { strict as assert } from 'node:assert';
+import { spawnSync, type SpawnSyncOptions } from 'node:child_process';
+import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+
+export const root = path.join(__dirname, '..', '..');
+const cli = path.join(root, 'bin', 'loudword.js');
+let built = false;
+
+/** Builds dist/ once per mocha run (the CLI runs from the bundle, as users get it). */
+export function buildOnce(): void {
+  if (built && existsSync(path.join(root, 'dist', 'cli.js'))) return;
+  const r = spawnSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
+  built = true;
+}
+
+export interface CliRun {
+  code: number | null;
+  stdout: string;
+  stderr: string;
+}
+
+export function runCli(args: readonly string[], cwd: string, extra: SpawnSyncOptions = {}): CliRun {
+  const r = spawnSync(process.execPath, [cli, ...args], { cwd, encoding: 'utf8', maxBuffer: 1 << 26, ...extra });
+  return { code: r.status, stdout: String(r.stdout ?? ''), stderr: String(r.stderr ?? '') };
+}
+
+/**
+ * A corpus of 60 short documents on three topics, each with the same greeting, so a review is
+ * quick (well under a second of work).
+ */
+export function smallCorpusCsv(): string {
+  const topics = [
+    ['printer', 'paper', 'jam', 'toner', 'tray'],
+    ['password', 'login', 'reset', 'account', 'locked'],
+    ['invoice', 'payment', 'refund', 'charge', 'billing'],
+  ];
+  const lines = ['id,text,topic'];
+  for (let i = 0; i < 60; i++) {
+    const t = topics[i % 3]!;
+    const words = [t[i % 5], t[(i + 1) % 5], t[(i + 2) % 5], t[(i * 7) % 5]];
+    lines.push(`${i},"hello team thanks ${words.join(' ')} regards",${['print', 'auth', 'bill'][i % 3]}`);
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** A fresh project folder holding corpus.csv; returns its path. */
+export function projectWithCorpus(prefix = 'loudword-bad-'): string {
+  const dir = mkdtempSync(path.join(os.tmpdir(), prefix));
+  writeFileSync(path.join(dir, 'corpus.csv'), smallCorpusCsv());
+  return dir;
+}
+
+/** The CLI failed the way the README promises: exit `code`, one line on stderr, no stack. */
+export function assertOneLineFailure(r: CliRun, code: number, words: RegExp): void {
+  assert.equal(r.code, code, `exit code (stderr: ${r.stderr})`);
+  const lines = r.stderr.trimEnd().split('\n');
+  assert.equal(lines.length, 1, `one line on stderr, got:\n${r.stderr}`);
+  assert.doesNotMatch(r.stderr, /\n\s+at /, 'no stack trace');
+  assert.match(lines[0]!, /^loudword: /);
+  assert.match(lines[0]!, words);
+}
