@@ -50,15 +50,15 @@ describe('bad input: --out and --stoplist never write over an input, a directory
 
   it('--out a directory, or in a folder that does not exist', () => {
     assertOneLineFailure(review('--out', '.'), 2, /^loudword: \.: --out names a directory/);
-    assertOneLineFailure(review('--out', 'missing/report.md'), 2, /missing\/report\.md: --out is in a folder that does not exist/);
-    assertOneLineFailure(review('--out', 'corpus.csv/report.md'), 2, /which is not a folder/);
+    assertOneLineFailure(review('--out', 'missing/report.txt'), 2, /missing\/report\.txt: --out is in a folder that does not exist/);
+    assertOneLineFailure(review('--out', 'corpus.csv/report.txt'), 2, /which is not a folder/);
     assert.equal(existsSync(path.join(dir, 'missing')), false);
   });
 
   it('a good --out still writes the report', () => {
-    const r = review('--out', 'report.md', '--format', 'md');
+    const r = review('--out', 'report.txt', '--format', 'md');
     assert.equal(r.code, 0, r.stderr);
-    assert.match(readFileSync(path.join(dir, 'report.md'), 'utf8'), /^## Loudword review/);
+    assert.match(readFileSync(path.join(dir, 'report.txt'), 'utf8'), /^## Loudword review/);
   });
 
   it('apply --stoplist naming the corpus or the config is refused before anything is written', () => {
