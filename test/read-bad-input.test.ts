@@ -184,10 +184,10 @@ describe('reader bad input', () => {
 
   it('openCorpus: a missing file and a folder are UserErrors', async () => {
     const missing = path.join(dir, 'nope.csv');
-    await rejectsUserError(() => openCorpus(missing, {}), missing, null, /ENOENT/);
+    await rejectsUserError(() => openCorpus(missing, {}), missing, null, /the corpus does not exist/);
     const folder = path.join(dir, 'folder.csv');
     mkdirSync(folder);
-    await rejectsUserError(() => openCorpus(folder, {}), folder, null, /not a file/);
+    await rejectsUserError(() => openCorpus(folder, {}), folder, null, /is a directory; Loudword reads regular files only/);
   });
 
   it('openCorpus: an unknown text field lists the available fields', async () => {

@@ -5,8 +5,7 @@ import { isUserError } from '../engine/user-error';
 import { startReview } from '../engine/review/start-review';
 import type { SettingsOverrides } from '../engine/config/settings-overrides';
 import type { ReviewInput } from '../engine/review/review-api';
-import { addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
-import { readStopListFile } from '../engine/stoplist/read-stop-list-file';
+import { appendTerms, readStopList, replaceStopList } from '../engine/stoplist/stop-list-file';
 import { loadWebviewAssets, renderStandaloneReport } from '../html/standalone-report';
 import { LOUDWORD_VERSION } from '../engine/review/version';
 import { findConfig } from './find-config';
@@ -92,15 +91,19 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
     process.stdout.write(`No stop terms suggested; ${file} is unchanged.\n`);
     return EXIT.ok;
   }
-  const { text } = await readStopListFile(file);
-  const result = addTermsToStopList(text, report.suggestions);
+  // Read again now, just before writing: the bytes the rename will be checked against.
+  const list = await readStopList(file);
+  const result = appendTerms(list, report.suggestions);
+  const leftOut = result.unrepresentable.length > 0
+    ? `Left out ${result.unrepresentable.length} terms that ${file} (${list.encoding}) cannot hold: ${result.unrepresentable.join(', ')}\n`
+    : '';
   if (result.added.length === 0) {
-    process.stdout.write(`All ${report.suggestions.length} suggestions are already in ${file}.\n`);
+    process.stdout.write(leftOut || `All ${report.suggestions.length} suggestions are already in ${file}.\n`);
     return EXIT.ok;
   }
-  if (!o.dryRun) await fs.writeFile(file, result.text);
+  if (!o.dryRun) await replaceStopList(list, result.bytes);
   const verb = o.dryRun ? 'Would add' : 'Added';
-  process.stdout.write(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n`);
+  process.stdout.write(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n${leftOut}`);
   return EXIT.ok;
 }
 

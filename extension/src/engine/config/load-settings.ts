@@ -1,4 +1,4 @@
-import { readFile } from 'node:fs/promises';
+import { readRegularFile } from '../read/regular-file';
 import * as path from 'node:path';
 import type { EffectiveSettings } from '../../protocol';
 import type { SettingsOverrides } from './settings-overrides';
@@ -8,6 +8,9 @@ import { mergeSettings } from './merge-settings';
 import { parseSettings, type PartialSettings } from './parse-settings';
 import { checkSettings } from './settings-schema';
 import { confineConfigPath, isWithin, realPathAllowingMissing } from './confine-to-workspace';
+
+/** A config is a few hundred bytes; past this it is not a config (common practice, no source). */
+export const MAX_CONFIG_BYTES = 1024 * 1024;
 
 export interface LoadedSettings {
   settings: EffectiveSettings;
@@ -36,8 +39,10 @@ export async function loadSettings(
     const file = path.resolve(baseDir, configPath);
     let text: string;
     try {
-      text = await readFile(file, 'utf8');
+      // Regular files only, size checked first (a FIFO used to block forever): safety hook.
+      text = (await readRegularFile(file, 'the config file', MAX_CONFIG_BYTES)).bytes.toString('utf8');
     } catch (e) {
+      if (e instanceof UserError) throw e;
       const code = (e as NodeJS.ErrnoException).code;
       throw new UserError(code === 'ENOENT' ? 'config file not found' : `cannot read the config file (${code ?? (e as Error).message})`, file, null);
     }

@@ -9,6 +9,7 @@ import { NewlineNormalizer } from './newline-normalizer';
 import { checkPass, createRowSink, type PassState } from './row-stream';
 import { CHUNK_BYTES, fileTextChunks, memoryTextChunks } from './text-chunks';
 import { completeUtf8Length } from './utf8-boundary';
+import { fileKind, readErrorMessage } from './regular-file';
 
 /** Bytes read at open time to detect encoding, format and fields (about DETECT_ROWS rows of most corpora). */
 export const HEAD_BYTES = 1024 * 1024;
@@ -26,11 +27,11 @@ export async function openCorpus(file: string, options: ReadOptions = {}): Promi
   let size: number;
   try {
     const info = await stat(file);
-    if (!info.isFile()) throw new UserError('not a file', file, null);
+    if (!info.isFile()) throw new UserError(`the corpus is ${fileKind(info)}; Loudword reads regular files only`, file, null);
     size = info.size;
   } catch (e) {
     if (e instanceof UserError) throw e;
-    throw new UserError(`cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`, file, null);
+    throw new UserError(readErrorMessage('the corpus', e), file, null);
   }
   if (size === 0) throw new UserError('the file is empty', file, null);
   const end = limitBytes === null ? size : Math.min(size, limitBytes);
