@@ -4,16 +4,11 @@
 // ticket references) — the loud terms a review should find — while the topic words carry the
 // neighbour signal. Seeded, so the file is the same on every machine.
 import { writeFileSync } from 'node:fs';
+import { tsImport } from 'tsx/esm/api';
 
-let state = 20261202;
-function random() {
-  // mulberry32 (Tommy Ettinger, public domain): tiny and good enough for invented text.
-  state = (state + 0x6d2b79f5) | 0;
-  let t = state;
-  t = Math.imul(t ^ (t >>> 15), t | 1);
-  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-}
+// The engine's own generator (mulberry32), so there is one seeded random in the project.
+const { mulberry32 } = await tsImport('../extension/src/engine/random/seeded-random.ts', import.meta.url);
+const random = mulberry32(20261202);
 const pick = (xs) => xs[Math.floor(random() * xs.length)];
 const chance = (p) => random() < p;
 

@@ -4,7 +4,7 @@ import * as path from 'node:path';
 import fc from 'fast-check';
 import Papa from 'papaparse';
 import type { WinkMethods } from 'wink-nlp';
-import type { TokenKind } from '../extension/src/protocol';
+import { TOKEN_KINDS, type TokenKind } from '../extension/src/protocol';
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
 import { freshWinkInstance } from '../extension/src/engine/tokenize/wink-instance';
@@ -18,7 +18,7 @@ import { FORTUNES_DIR, fortunesAvailable } from './corpora/fortunes';
 // The checks share those two instances (see `pair`), so they must run in file order: each path
 // sees exactly the documents the other saw.
 
-const ALL_KINDS: TokenKind[] = ['word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol', 'punctuation', 'currency', 'ordinal', 'time', 'shortForm'];
+const ALL_KINDS: readonly TokenKind[] = TOKEN_KINDS;
 
 /** Every combination of the options that change what a token becomes (24 variants). */
 const VARIANTS: TokenSettings[] = [];

@@ -1,14 +1,25 @@
 import { strict as assert } from 'node:assert';
+import { readFileSync } from 'node:fs';
+import * as path from 'node:path';
 import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
 import { tokenKindOf } from '../extension/src/engine/tokenize/token-kind';
+import { TOKEN_KINDS } from '../extension/src/protocol';
 
 // Expected tokens below are wink-nlp's own behaviour. Source: wink-nlp 2.4.0 with
 // wink-eng-lite-web-model 1.8.1 (package.json), observed here; a wink upgrade that changes them
 // should fail these tests so the README's list of behaviours is updated.
 const base: TokenSettings = { lowercase: true, minLength: 1, kinds: ['word', 'number', 'hashtag', 'emoji'], stem: false, ngrams: 1 };
-const every: TokenSettings['kinds'] = ['word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol', 'punctuation', 'currency', 'ordinal', 'time', 'shortForm'];
+const every: TokenSettings['kinds'] = [...TOKEN_KINDS];
 
 describe('createTokenizer', () => {
+  it("createTokenizer accepts exactly the kinds of TOKEN_KINDS, and loudword.schema.json's enum is that list", () => {
+    // Source: the project's own contract (one list of kinds, protocol.ts); no outside source.
+    const schema = JSON.parse(readFileSync(path.join(__dirname, '..', 'loudword.schema.json'), 'utf8'));
+    assert.deepEqual(schema.properties.tokens.properties.kinds.items.enum, [...TOKEN_KINDS]);
+    for (const kind of TOKEN_KINDS) assert.doesNotThrow(() => createTokenizer({ ...base, kinds: [kind] }), kind);
+    assert.throws(() => createTokenizer({ ...base, kinds: ['hashtags' as never] }), /unknown token kind "hashtags"/);
+  });
+
   it('createTokenizer splits contractions and maps the parts to words when lowercasing', () => {
     const t = createTokenizer(base);
     assert.deepEqual(t("I don't know, we can't go, they won't come"), ['i', 'do', 'not', 'know', 'we', 'can', 'not', 'go', 'they', 'will', 'not', 'come']);

@@ -115,7 +115,9 @@ export interface Report {
 }
 
 export type CorpusFormatName = 'csv' | 'tsv' | 'jsonl' | 'text';
-export type TokenKind = 'word' | 'number' | 'url' | 'email' | 'hashtag' | 'mention' | 'emoji' | 'emoticon' | 'symbol' | 'punctuation' | 'currency' | 'ordinal' | 'time' | 'shortForm';
+/** The token kinds a user can keep (`tokens.kinds`): the one list; loudword.schema.json's enum is held equal by a test. */
+export const TOKEN_KINDS = ['word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol', 'punctuation', 'currency', 'ordinal', 'time', 'shortForm'] as const;
+export type TokenKind = (typeof TOKEN_KINDS)[number];
 
 /** The settings after defaults are applied: what the review actually used. */
 export interface EffectiveSettings {

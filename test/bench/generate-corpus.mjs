@@ -13,6 +13,10 @@
 import { closeSync, existsSync, mkdirSync, openSync, renameSync, statSync, writeSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { tsImport } from 'tsx/esm/api';
+
+// The engine's own seeded generator (mulberry32), so the project has one.
+const { mulberry32 } = await tsImport('../../extension/src/engine/random/seeded-random.ts', import.meta.url);
 
 /** Bump when the output for a given (size, seed) changes, so cached files are not reused. */
 export const GENERATOR_VERSION = 1;
@@ -46,18 +50,6 @@ const FRESH_SHARE = 0.005;
 const NUMBER_SHARE = 0.01;
 const NEAR_DUPLICATE_SHARE = 0.02;
 const RECENT_KEPT = 512;
-
-/** mulberry32: small, fast and good enough to make reproducible synthetic text. */
-function makeRandom(seed) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Cumulative weights 1/(r+q)^s, r = 1..n, normalised to end at 1. */
 function zipfCdf(n, s, q) {
@@ -165,7 +157,7 @@ export function corpusPath(documents, seed, dir = DATA_DIR) {
 
 /** Writes the corpus to `file` (through a temporary name, so an interrupted run leaves no cache). */
 export function writeCorpus(file, documents, seed) {
-  const random = makeRandom(seed);
+  const random = mulberry32(seed);
   const content = makeVocabulary(random, CONTENT_WORDS, FUNCTION_WORDS);
   const contentCdf = zipfCdf(content.length, 1.0, 2.7);
   const functionCdf = zipfCdf(FUNCTION_WORDS.length, 1.0, 1.5);

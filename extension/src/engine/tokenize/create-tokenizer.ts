@@ -1,5 +1,5 @@
 import type { WinkMethods } from 'wink-nlp';
-import type { EffectiveSettings, TokenKind } from '../../protocol';
+import { TOKEN_KINDS, type EffectiveSettings, type TokenKind } from '../../protocol';
 import { chunkCachedUnigrams } from './chunk-cached-unigrams';
 import { createTermOf } from './term-of-token';
 import { winkInstance } from './wink-instance';
@@ -7,10 +7,7 @@ import { winkSplitsLikeThis } from './wink-splitter';
 
 export type TokenSettings = EffectiveSettings['tokens'];
 
-const ALL_KINDS: ReadonlySet<TokenKind> = new Set<TokenKind>([
-  'word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol',
-  'punctuation', 'currency', 'ordinal', 'time', 'shortForm',
-]);
+const ALL_KINDS: ReadonlySet<TokenKind> = new Set<TokenKind>(TOKEN_KINDS);
 
 /** How to run wink; tests pass their own instance to compare the two paths from the same state. */
 export interface TokenizerEngine {

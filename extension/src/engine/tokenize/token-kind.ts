@@ -1,9 +1,7 @@
-import type { TokenKind } from '../../protocol';
+import { TOKEN_KINDS, type TokenKind } from '../../protocol';
 
-const SAME_NAME: ReadonlySet<string> = new Set<TokenKind>([
-  'word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol',
-  'punctuation', 'currency', 'ordinal', 'time', 'shortForm',
-]);
+/** wink-nlp types that carry the same name as one of our kinds. */
+const SAME_NAME: ReadonlySet<string> = new Set<TokenKind>(TOKEN_KINDS);
 
 const HAS_LETTER = /[\p{L}\p{M}]/u;
 const HAS_DIGIT = /\p{N}/u;
