@@ -9,10 +9,10 @@ import { isHostToWorker, isWorkerToHost } from '../extension/src/worker/worker-p
 const WORKER = path.resolve(__dirname, '..', 'dist', 'review-worker.js');
 
 describe('worker-protocol guards', () => {
-  it('isHostToWorker accepts the three requests and refuses malformed ones', () => {
+  it('isHostToWorker accepts the two requests and refuses malformed ones', () => {
     assert.equal(isHostToWorker({ type: 'review', runId: 1, input: { file: 'a.csv' } }), true);
     assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: ['via'] }), true);
-    assert.equal(isHostToWorker({ type: 'cancel', runId: 1 }), true);
+    assert.equal(isHostToWorker({ type: 'cancel', runId: 1 }), false, 'cancelling terminates the worker; there is no cancel message');
     assert.equal(isHostToWorker({ type: 'review', runId: 1, input: {} }), false);
     assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: [3] }), false);
     assert.equal(isHostToWorker({ type: 'report', runId: 1 }), false);

@@ -44,7 +44,7 @@ describe('maskedTermSums', () => {
           assert.equal(got.sums.df[t], expected.df[t]);
         }
         const nonEmpty = rows.filter((row) => row.some((v, c) => v !== 0 && !m[c])).length;
-        assert.equal(got.nonEmptyRows, nonEmpty);
+        assert.equal(got.rowsWithWeight, nonEmpty);
       }),
       { numRuns: 500, seed: 11 },
     );

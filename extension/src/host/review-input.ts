@@ -8,6 +8,7 @@ import { editorDefaults } from './loudword-settings';
 import { confineToWorkspace } from '../engine/config/confine-to-workspace';
 import { isUserError } from '../engine/user-error';
 import { configCandidates, editorOverrides, expectedStopListPath } from './pure/config-location';
+import { samePath } from './pure/same-path';
 import { WorkerFailure } from '../worker/review-worker-client';
 
 export interface PreparedReview {
@@ -45,10 +46,6 @@ async function readConfigJson(configPath: string | null): Promise<unknown> {
   } catch {
     return {};
   }
-}
-
-function sameFile(a: string, b: string): boolean {
-  return process.platform === 'win32' || process.platform === 'darwin' ? a.toLowerCase() === b.toLowerCase() : a === b;
 }
 
 export function workspaceRootOf(uri: vscode.Uri): string | null {
@@ -94,7 +91,7 @@ export async function prepareReview(uri: vscode.Uri, doc: vscode.TextDocument | 
   if (doc !== undefined && (doc.isDirty || doc.isUntitled || !onDisk)) input.text = doc.getText();
   else if (!onDisk) throw new WorkerFailure('This document is neither on disk nor open in the editor; save it to a file first.', 'user');
   if (stopListPath !== null) {
-    const stopDoc = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && sameFile(d.uri.fsPath, stopListPath));
+    const stopDoc = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && samePath(d.uri.fsPath, stopListPath));
     if (stopDoc?.isDirty) input.stopListText = stopDoc.getText();
   }
   return { input, configPath, stopListPath, workspaceRoot };

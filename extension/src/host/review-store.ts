@@ -2,10 +2,7 @@
 // follow. Fires onDidChange whenever a Report or the "added since" set changes.
 import * as vscode from 'vscode';
 import { CorpusReview } from './corpus-review';
-
-function samePath(a: string, b: string): boolean {
-  return process.platform === 'win32' || process.platform === 'darwin' ? a.toLowerCase() === b.toLowerCase() : a === b;
-}
+import { samePath } from './pure/same-path';
 
 export class ReviewStore implements vscode.Disposable {
   private readonly reviews = new Map<string, CorpusReview>();

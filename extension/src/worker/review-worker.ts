@@ -34,7 +34,7 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
       signal: controller.signal,
       onStage: (stage, fraction) => post({ type: 'stage', runId, stage, fraction }),
     });
-    if (controller.signal.aborted) throw Object.assign(new Error('aborted'), { name: 'AbortError' });
+    controller.signal.throwIfAborted();
     session = next;
     post({ type: 'report', runId, report: next.report });
   } catch (e) {
@@ -67,9 +67,6 @@ parentPort?.on('message', (message: unknown) => {
       return;
     case 'whatIf':
       whatIf(message.requestId, message.removed);
-      return;
-    case 'cancel':
-      if (running?.runId === message.runId) running.controller.abort();
       return;
   }
 });

@@ -10,14 +10,15 @@ import type { ReviewInput, ReviewStage } from '../engine/review/review-api';
 export interface ReviewRequest { type: 'review'; runId: number; input: ReviewInput }
 /** Measures with the session's baseline stop list plus `removed`. */
 export interface WhatIfRequest { type: 'whatIf'; requestId: number; removed: string[] }
-/** Abort the running review, if any; the finished session (if any) is kept. */
-export interface CancelRequest { type: 'cancel'; runId: number }
-export type HostToWorker = ReviewRequest | WhatIfRequest | CancelRequest;
+// Cancelling is not a message: the host terminates the worker (review-worker-client.ts), because a
+// long synchronous step would not read one, and a stuck thread must not outlive the user's cancel.
+export type HostToWorker = ReviewRequest | WhatIfRequest;
 
 // ---- worker → host ----
 export interface StageMessage { type: 'stage'; runId: number; stage: ReviewStage; fraction: number }
 export interface ReportMessage { type: 'report'; runId: number; report: Report }
-export interface WhatIfResultMessage { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures }
+/** The worker's answer to a WhatIfRequest (the host passes it on to the panel as protocol.ts's WhatIfResultMessage). */
+export interface WorkerWhatIfResult { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures }
 /**
  * A failure. `kind` says whose fault it is: 'user' (a file or setting, with file and 1-based
  * line where known), 'cancelled' (the host asked), 'internal' (a bug; `stack` for the log).
@@ -33,9 +34,9 @@ export interface WorkerErrorMessage {
   requestId?: number;
   stack?: string;
 }
-export type WorkerToHost = StageMessage | ReportMessage | WhatIfResultMessage | WorkerErrorMessage;
+export type WorkerToHost = StageMessage | ReportMessage | WorkerWhatIfResult | WorkerErrorMessage;
 
-const hostToWorkerTypes: ReadonlySet<string> = new Set(['review', 'whatIf', 'cancel']);
+const hostToWorkerTypes: ReadonlySet<string> = new Set(['review', 'whatIf']);
 const workerToHostTypes: ReadonlySet<string> = new Set(['stage', 'report', 'whatIfResult', 'error']);
 
 /** Checks a message the worker received; the worker answers anything else with an error. */
@@ -45,10 +46,8 @@ export function isHostToWorker(value: unknown): value is HostToWorker {
   switch (m.type) {
     case 'review':
       return typeof m.runId === 'number' && typeof m.input === 'object' && m.input !== null && typeof (m.input as { file?: unknown }).file === 'string';
-    case 'whatIf':
-      return typeof m.requestId === 'number' && isStringArray(m.removed);
     default:
-      return typeof m.runId === 'number';
+      return typeof m.requestId === 'number' && isStringArray(m.removed);
   }
 }
 

@@ -40,7 +40,7 @@ const DEFAULT_BATCH = 1000;
  */
 export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettings, options: BuildOptions = {}): Promise<BuiltCorpus> {
   const { signal, onProgress } = options;
-  throwIfAborted(signal);
+  signal?.throwIfAborted();
   const workers = options.workers ?? Math.min(2, availableParallelism());
   const encoder: BatchEncoder =
     workerEncoder(tokens, workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js')) ?? inProcessEncoder(tokens);
@@ -51,7 +51,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
   const inFlight: Promise<EncodedBatch>[] = [];
   try {
     for await (const rows of source.batches(options.batchSize ?? DEFAULT_BATCH)) {
-      throwIfAborted(signal);
+      signal?.throwIfAborted();
       if (rows.length === 0) continue;
       const texts: string[] = new Array<string>(rows.length);
       for (let i = 0; i < rows.length; i++) {
@@ -67,25 +67,18 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
       while (inFlight.length >= encoder.parallelism) {
         counter.add(await inFlight.shift()!);
         onProgress?.(counter.rows);
-        throwIfAborted(signal);
+        signal?.throwIfAborted();
       }
     }
     while (inFlight.length > 0) {
       counter.add(await inFlight.shift()!);
       onProgress?.(counter.rows);
-      throwIfAborted(signal);
+      signal?.throwIfAborted();
     }
   } finally {
     await encoder.close();
   }
   return { counts: counter.finish(), lines: lines.toArray(), labels, previews };
-}
-
-function throwIfAborted(signal: AbortSignal | undefined): void {
-  if (signal?.aborted !== true) return;
-  const e = new Error('The corpus build was cancelled.');
-  e.name = 'AbortError';
-  throw e;
 }
 
 class GrowingUint32 {

@@ -3,8 +3,8 @@ import type { TermSums } from './term-sums';
 
 export interface MaskedTermSums {
   sums: TermSums;
-  /** Rows with at least one kept non-zero weight. */
-  nonEmptyRows: number;
+  /** Rows with at least one kept non-zero weight (rowsWithWeight of the masked matrix). */
+  rowsWithWeight: number;
 }
 
 /**
@@ -21,14 +21,14 @@ export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean)
   const df = new Uint32Array(cols);
   const sxlogx = new Float64Array(cols);
   const { indptr, indices, data } = X;
-  let nonEmptyRows = 0;
+  let rowsWithWeight = 0;
   for (let r = 0; r < X.rows; r++) {
     const start = indptr[r]!;
     const end = indptr[r + 1]!;
     let norm2 = 0;
     for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
     if (!(norm2 > 0)) continue;
-    nonEmptyRows++;
+    rowsWithWeight++;
     const scale = 1 / Math.sqrt(norm2);
     for (let p = start; p < end; p++) {
       const t = indices[p]!;
@@ -41,5 +41,5 @@ export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean)
       if (withSpread && x > 0) sxlogx[t] += x * Math.log(x);
     }
   }
-  return { sums: { s1, s2, df, sxlogx }, nonEmptyRows };
+  return { sums: { s1, s2, df, sxlogx }, rowsWithWeight };
 }

@@ -1,5 +1,6 @@
 import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
+import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { distancesFromGram, validRowsFromGram } from './gram-distances';
 import { hubnessSummary, kOccurrence, kOccurrenceHistogram, topHubPositions } from './hubness';
 import { iidEquivalentDimension } from './iid-equivalent-dimension';
@@ -37,10 +38,11 @@ export interface MeasureDistancesOptions {
   /** termSums(X) when the caller already has it. */
   sums?: TermSums;
   /**
-   * Non-empty rows of the whole corpus when X holds only the sampled rows: the what-if passes
-   * the masked sample alone (with `sums` of the whole masked corpus) to avoid an n-sized copy.
+   * Rows with a non-zero weight in the whole corpus when X holds only the sampled rows: the
+   * what-if passes the masked sample alone (with `sums` of the whole masked corpus) to avoid an
+   * n-sized copy.
    */
-  nonEmptyRows?: number;
+  rowsWithWeight?: number;
 }
 
 export interface MeasureDistancesResult {
@@ -74,7 +76,7 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   }
 
   const sums = options.sums ?? termSums(X);
-  const mass = pairMass(sums, options.nonEmptyRows ?? countNonEmptyRows(X));
+  const mass = pairMass(sums, options.rowsWithWeight ?? rowsWithWeight(X));
 
   const gram = sampleSimilarities(X, sample);
   const valid = validRowsFromGram(gram, m);
@@ -134,16 +136,3 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   };
 }
 
-/** Rows with at least one non-zero weight (a mask may leave explicit zeros behind). */
-function countNonEmptyRows(X: Csr): number {
-  let count = 0;
-  for (let r = 0; r < X.rows; r++) {
-    for (let p = X.indptr[r]; p < X.indptr[r + 1]; p++) {
-      if (X.data[p] !== 0) {
-        count++;
-        break;
-      }
-    }
-  }
-  return count;
-}

@@ -39,7 +39,7 @@ export interface PairMass {
   perTerm: Float64Array;
   /** Σ_t P(t) = Σ_{a<b} cos(a, b). */
   total: number;
-  /** total / (n(n−1)/2) with n the non-empty rows: the mean pairwise cosine. */
+  /** total / (n(n−1)/2) with n the rows that have a non-zero weight: the mean pairwise cosine. */
   backgroundSimilarity: number;
 }
 
@@ -49,7 +49,7 @@ export interface PairMass {
  * Empty rows add nothing to the mass, and they are left out of the pair count so that
  * documents emptied by a stop list do not make the corpus look artificially quiet.
  */
-export function pairMass(sums: TermSums, nonEmptyRows: number): PairMass {
+export function pairMass(sums: TermSums, rowsWithWeight: number): PairMass {
   const { s1, s2 } = sums;
   const perTerm = new Float64Array(s1.length);
   let total = 0;
@@ -59,7 +59,7 @@ export function pairMass(sums: TermSums, nonEmptyRows: number): PairMass {
     perTerm[t] = p;
     total += p;
   }
-  const pairs = (nonEmptyRows * (nonEmptyRows - 1)) / 2;
+  const pairs = (rowsWithWeight * (rowsWithWeight - 1)) / 2;
   return { perTerm, total, backgroundSimilarity: pairs > 0 ? total / pairs : 0 };
 }
 

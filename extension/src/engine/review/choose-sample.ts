@@ -1,4 +1,5 @@
 import type { Csr } from '../matrix/csr';
+import { rowHasWeight } from '../matrix/rows-with-weight';
 import { sampleIndices } from '../random/seeded-random';
 
 export interface ReviewSample {
@@ -16,7 +17,7 @@ export interface ReviewSample {
  */
 export function chooseSample(weights: Csr, size: number, seed: number, labels: readonly (string | null)[] | null): ReviewSample {
   const nonEmpty: number[] = [];
-  for (let r = 0; r < weights.rows; r++) if (weights.indptr[r + 1]! > weights.indptr[r]!) nonEmpty.push(r);
+  for (let r = 0; r < weights.rows; r++) if (rowHasWeight(weights, r)) nonEmpty.push(r);
   const picked = sampleIndices(nonEmpty.length, Math.min(size, nonEmpty.length), seed);
   const positions = new Uint32Array(picked.length);
   for (let i = 0; i < picked.length; i++) positions[i] = nonEmpty[picked[i]!]!;

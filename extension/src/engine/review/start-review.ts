@@ -22,7 +22,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   let stageStart = performance.now();
   let currentStage: ReviewStage | null = null;
   const stage = (name: ReviewStage, fraction = 0): void => {
-    throwIfAborted(hooks.signal);
+    hooks.signal?.throwIfAborted();
     const now = performance.now();
     if (currentStage !== null) timings[currentStage] = Math.round(now - stageStart);
     if (currentStage !== name) stageStart = now;
@@ -92,11 +92,4 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   };
 }
 
-function throwIfAborted(signal: AbortSignal | undefined): void {
-  if (signal?.aborted) {
-    const error = new Error('the review was cancelled');
-    error.name = 'AbortError';
-    throw error;
-  }
-}
 

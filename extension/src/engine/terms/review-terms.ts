@@ -1,4 +1,5 @@
 import type { EffectiveSettings, TermRow } from '../../protocol';
+import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread, termSums } from '../measures/term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
@@ -81,7 +82,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   let fullScores: TermScores | null = null;
   let fullSpread: Float64Array | null = null;
   if (baseMask.includes(1)) {
-    fullScores = termScores(pairMass(fullSums, nonEmptyRows(lab.weights)).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
+    fullScores = termScores(pairMass(fullSums, rowsWithWeight(lab.weights)).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
     fullSpread = termSpread(fullSums, documents);
   }
 
@@ -110,12 +111,6 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   rows.sort((a, b) => b.loudness - a.loudness || b.pullShare - a.pullShare);
   const suggestions = plan.accepted.map((c) => index.terms[c]!);
   return { rows, suggestions, suggested, evaluations: plan.evaluations };
-}
-
-function nonEmptyRows(x: { rows: number; indptr: Uint32Array }): number {
-  let n = 0;
-  for (let r = 0; r < x.rows; r++) if (x.indptr[r + 1]! > x.indptr[r]!) n++;
-  return n;
 }
 
 /** Every suggested, stopped and protected term, then the loudest and the heaviest of the rest. */

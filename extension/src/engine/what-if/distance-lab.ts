@@ -47,7 +47,7 @@ export class DistanceLab {
   }
 
   measure(removed: Uint8Array, baselineNeighbors: Uint32Array | null): DistanceResult {
-    const { sums, nonEmptyRows } = this.sums(removed);
+    const { sums, rowsWithWeight } = this.sums(removed);
     return measureDistances(this.maskedSample(removed), {
       sample: this.positions,
       k: this.k,
@@ -55,7 +55,7 @@ export class DistanceLab {
       labels: this.sampleLabels,
       baselineNeighbors,
       sums,
-      nonEmptyRows,
+      rowsWithWeight,
     });
   }
 
