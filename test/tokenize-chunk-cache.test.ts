@@ -1,102 +1,15 @@
 import { strict as assert } from 'node:assert';
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
-import * as path from 'node:path';
 import fc from 'fast-check';
-import Papa from 'papaparse';
-import type { WinkMethods } from 'wink-nlp';
-import { TOKEN_KINDS, type TokenKind } from '../extension/src/protocol';
-import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
-import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
-import { freshWinkInstance } from '../extension/src/engine/tokenize/wink-instance';
 import { winkSplitsLikeThis } from '../extension/src/engine/tokenize/wink-splitter';
-import { FORTUNES_DIR, fortunesAvailable } from './corpora/fortunes';
+import { CORNER_VARIANTS, TICKETS, VARIANTS, describeVariant, makeOracle, readAllFortunes, readCsvColumn } from './support/tokenize-oracle';
 
 // The chunk-cached tokenizer must give, token for token, what the plain path gives: each whole
-// document through wink-nlp. wink's output depends on its lexeme cache (what it has tokenised
-// before), so each comparison runs the two paths on two fresh wink instances fed the same
-// documents in the same order. No expected values are written here: the plain path is the oracle.
-// The checks share those two instances (see `pair`), so they must run in file order: each path
-// sees exactly the documents the other saw.
+// document through wink-nlp (see test/support/tokenize-oracle.ts). No expected values are written
+// here: the plain path is the oracle. The checks share one oracle, so they run in file order.
+// This file covers two opposite corners of the 24 option variants on the real corpora and all 24
+// on generated strings; tokenize-chunk-cache.slow.test.ts sweeps all 24 over every corpus.
 
-const ALL_KINDS: readonly TokenKind[] = TOKEN_KINDS;
-
-/** Every combination of the options that change what a token becomes (24 variants). */
-const VARIANTS: TokenSettings[] = [];
-for (const lowercase of [true, false]) {
-  for (const stem of [false, true]) {
-    for (const minLength of [1, 2, 3]) {
-      for (const kinds of [DEFAULT_SETTINGS.tokens.kinds, ALL_KINDS]) VARIANTS.push({ lowercase, stem, minLength, kinds: [...kinds], ngrams: 1 });
-    }
-  }
-}
-const describeVariant = (v: TokenSettings): string =>
-  `lowercase ${v.lowercase}, stem ${v.stem}, minLength ${v.minLength}, ${v.kinds.length === ALL_KINDS.length ? 'all kinds' : 'default kinds'}`;
-
-/**
- * One wink instance for each path, shared by every check in this file and fed the same documents
- * in the same order (plain path on one, cached path on the other), so their lexeme caches stay in
- * step. Fresh instances per check would be cleaner but wink-eng-lite-web-model grows with each
- * instance loaded (RangeError after a few dozen).
- */
-let shared: { plainNlp: WinkMethods; cachedNlp: WinkMethods; chars: number } | null = null;
-
-/** Both paths for `settings`; `winkChars` counts the text the cached path sent to wink. */
-function pair(settings: TokenSettings): { plain: (t: string) => string[]; cached: (t: string) => string[]; winkChars: () => number } {
-  if (shared === null) {
-    const nlp = freshWinkInstance('tokens');
-    const s = { plainNlp: freshWinkInstance('tokens'), cachedNlp: nlp, chars: 0 };
-    s.cachedNlp = { ...nlp, readDoc: (text: string) => ((s.chars += text.length), nlp.readDoc(text)) };
-    shared = s;
-  }
-  const s = shared;
-  const plain = createTokenizer(settings, { nlp: s.plainNlp, chunkCache: false });
-  const cached = createTokenizer(settings, { nlp: s.cachedNlp });
-  return { plain, cached, winkChars: () => s.chars };
-}
-
-/** Runs both paths over `docs` in order; fails on the first document where they differ. */
-function assertSameOverCorpus(settings: TokenSettings, docs: readonly string[]): { winkShare: number } {
-  const { plain, cached, winkChars } = pair(settings);
-  let secondHalfChars = 0;
-  let secondHalfWink = 0;
-  for (let d = 0; d < docs.length; d++) {
-    const before = winkChars();
-    const got = cached(docs[d]!);
-    const want = plain(docs[d]!);
-    if (d >= docs.length / 2) {
-      secondHalfChars += docs[d]!.length;
-      secondHalfWink += winkChars() - before;
-    }
-    if (got.length !== want.length || got.some((t, i) => t !== want[i])) {
-      assert.deepEqual(got, want, `document ${d} (${describeVariant(settings)}): ${JSON.stringify(docs[d]!.slice(0, 300))}`);
-    }
-  }
-  return { winkShare: secondHalfWink / Math.max(1, secondHalfChars) };
-}
-
-/**
- * Every saying of every category file, raw (tabs, newlines and layout kept), entries separated
- * by lines holding a single '%'. Source: the Debian package `fortunes` (fortune-mod data files).
- */
-function readAllFortunes(): string[] {
-  const out: string[] = [];
-  for (const f of readdirSync(FORTUNES_DIR).sort()) {
-    if (f.endsWith('.dat') || f.endsWith('.u8')) continue;
-    const file = path.join(FORTUNES_DIR, f);
-    if (!statSync(file).isFile()) continue;
-    for (const s of readFileSync(file, 'latin1').split(/\r?\n%\r?\n/)) if (s.trim() !== '' && s !== '%') out.push(s);
-  }
-  return out;
-}
-
-function readCsvColumn(file: string, column: string): string[] {
-  const parsed = Papa.parse<Record<string, string>>(readFileSync(file, 'utf8'), { header: true, skipEmptyLines: true });
-  return parsed.data.map((r) => r[column]).filter((t): t is string => typeof t === 'string');
-}
-
-const ROOT = path.join(__dirname, '..');
-const TICKETS = path.join(ROOT, 'samples', 'support-tickets.csv');
-const GENERATED = path.join(ROOT, 'test', 'bench', 'data', 'corpus-v1-10k-seed1.csv');
+const { pair, assertSameOverCorpus } = makeOracle();
 
 describe('tokenize: chunk-cached unigrams equal whole-document wink', function () {
   this.timeout(600_000);
@@ -108,14 +21,10 @@ describe('tokenize: chunk-cached unigrams equal whole-document wink', function (
 
   describe('Debian fortunes (every saying; source: Debian package "fortunes")', () => {
     let docs: string[] = [];
-    before(function () {
-      if (!fortunesAvailable()) {
-        console.log(`      note: ${FORTUNES_DIR} missing (Debian package "fortunes"); skipping`);
-        this.skip();
-      }
+    before(() => {
       docs = readAllFortunes();
     });
-    for (const v of VARIANTS) {
+    for (const v of CORNER_VARIANTS) {
       it(describeVariant(v), () => {
         const { winkShare } = assertSameOverCorpus(v, docs);
         // The cache must actually spare wink most of the text once warm, or this path is pointless.
@@ -126,19 +35,7 @@ describe('tokenize: chunk-cached unigrams equal whole-document wink', function (
 
   describe('demo corpus samples/support-tickets.csv, message column (our invented corpus: a regression check only)', () => {
     const docs = readCsvColumn(TICKETS, 'message');
-    for (const v of VARIANTS) it(describeVariant(v), () => assertSameOverCorpus(v, docs));
-  });
-
-  describe('generated bench corpus test/bench/data/corpus-v1-10k-seed1.csv (test/bench/generate-corpus.mjs; a regression check)', () => {
-    let docs: string[] = [];
-    before(function () {
-      if (!existsSync(GENERATED)) {
-        console.log(`      note: ${GENERATED} not present (run test/bench/generate-corpus.mjs); skipping`);
-        this.skip();
-      }
-      docs = readCsvColumn(GENERATED, 'text');
-    });
-    for (const v of VARIANTS) it(describeVariant(v), () => assertSameOverCorpus(v, docs));
+    for (const v of CORNER_VARIANTS) it(describeVariant(v), () => assertSameOverCorpus(v, docs));
   });
 
   describe('fast-check strings from tricky pieces (2000 runs per variant, fixed seed)', () => {
