@@ -1,7 +1,24 @@
 import { strict as assert } from 'node:assert';
 import { addTermsToStopList } from '../extension/src/engine/stoplist/add-terms-to-stop-list';
 import { removeTermsFromStopList } from '../extension/src/engine/stoplist/remove-terms-from-stop-list';
-import { applyLineEdits, checkLineEdits, lineLengths } from '../extension/src/host/pure/text-edit-ranges';
+import { checkLineEdits, lineLengths, type LineEdit, type Position0 } from '../extension/src/host/pure/text-edit-ranges';
+
+/**
+ * What the editor shows after applying checked edits (the host hands them to a WorkspaceEdit; this
+ * stands in for the editor, so the engine's edits can be checked against the text it promises).
+ */
+function applyLineEdits(text: string, edits: readonly LineEdit[]): string {
+  const sorted = checkLineEdits(edits, text);
+  const starts: number[] = [0];
+  for (const m of text.matchAll(/\r\n|\r|\n/g)) starts.push((m.index ?? 0) + m[0].length);
+  const offset = (p: Position0): number => (starts[p.line] ?? 0) + p.character;
+  let out = text;
+  for (let i = sorted.length - 1; i >= 0; i--) {
+    const e = sorted[i]!;
+    out = out.slice(0, offset(e.start)) + e.newText + out.slice(offset(e.end));
+  }
+  return out;
+}
 
 // Expected texts are written out by hand from the stop-list file format in README.md "Configuration"
 // (one term a line, # comments); common practice, no source.

@@ -1,8 +1,8 @@
 // Builders of small test matrices for the measures' tests (no module under test here).
 import type { Csr } from '../extension/src/engine/matrix/csr';
-import { standardNormal } from '../extension/src/engine/random/gaussian';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { distancesFromGram } from '../extension/src/engine/measures/gram-distances';
+import { knnFromSimilarities, neighborDistances } from '../extension/src/engine/measures/knn';
 import { sampleSimilarities } from '../extension/src/engine/measures/sample-similarity';
 
 /** Dense rows → CSR, dropping zeros. */
@@ -36,6 +36,25 @@ export function randomUnitRows(random: () => number, n: number, cols: number, de
     rows.push(row);
   }
   return rows;
+}
+
+/**
+ * A standard normal draw by the Box–Muller transform (Box & Muller, "A note on the generation of
+ * random normal deviates", Ann. Math. Stat. 29, 1958); 1 − u keeps the logarithm's argument in (0, 1].
+ */
+export function standardNormal(random: () => number): number {
+  const u = 1 - random();
+  const v = random();
+  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
+}
+
+/**
+ * k nearest neighbours of point clouds by distance, through the engine's own ranking: the nearest
+ * point is the one with the largest −distance. Returns the m×k neighbour distances as well.
+ */
+export function knnByDistance(dist: Float64Array, m: number, k: number, valid: Uint8Array): { neighbors: Uint32Array; distances: Float64Array } {
+  const { neighbors } = knnFromSimilarities(dist.map((d) => -d), m, k, valid);
+  return { neighbors, distances: neighborDistances(dist, m, neighbors, k) };
 }
 
 /** n iid standard normal points in d dimensions, row-major. */

@@ -1,13 +1,13 @@
 import { strict as assert } from 'node:assert';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { hubnessSummary, kOccurrence, kOccurrenceHistogram, topHubPositions } from '../extension/src/engine/measures/hubness';
-import { knnFromDistances, NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
-import { allValid, euclideanDistances, gaussianPoints } from './measures-fixtures';
+import { NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
+import { allValid, euclideanDistances, gaussianPoints, knnByDistance } from './measures-fixtures';
 
 function skewnessFor(d: number, k: number): number {
   const n = 1500;
   const dist = euclideanDistances(gaussianPoints(mulberry32(500 + d), n, d), n, d);
-  const { neighbors } = knnFromDistances(dist, n, k, allValid(n));
+  const { neighbors } = knnByDistance(dist, n, k, allValid(n));
   return hubnessSummary(kOccurrence(neighbors, n, k), allValid(n), k)!.skewness;
 }
 

@@ -1,9 +1,9 @@
 import { strict as assert } from 'node:assert';
 import fc from 'fast-check';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { knnFromDistances, knnFromSimilarities, neighborDistances, NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
+import { knnFromSimilarities, neighborDistances, NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
 import { sampleSimilarities } from '../extension/src/engine/measures/sample-similarity';
-import { denseToCsr, randomUnitRows } from './measures-fixtures';
+import { denseToCsr, knnByDistance, randomUnitRows } from './measures-fixtures';
 
 function gramOf(rows: number[][]): Float64Array {
   return sampleSimilarities(denseToCsr(rows), Uint32Array.from(rows.keys()));
@@ -64,11 +64,11 @@ describe('measures/knn', () => {
     assert.deepEqual(Array.from(neighbors.slice(0, 4)), [1, 2, NO_NEIGHBOR, NO_NEIGHBOR]);
   });
 
-  it('knnFromDistances ranks ascending and neighborDistances reads them back', () => {
+  it('knnFromSimilarities on −distance ranks nearest first, and neighborDistances reads the distances back', () => {
     // Hand-checked points on a line: 0, 1, 3, 7.
     const x = [0, 1, 3, 7];
     const dist = Float64Array.from(x.flatMap((a) => x.map((b) => Math.abs(a - b))));
-    const { neighbors, distances } = knnFromDistances(dist, 4, 2, new Uint8Array(4).fill(1));
+    const { neighbors, distances } = knnByDistance(dist, 4, 2, new Uint8Array(4).fill(1));
     assert.deepEqual(Array.from(neighbors), [1, 2, 0, 2, 1, 0, 2, 1]);
     assert.deepEqual(Array.from(distances), [1, 3, 1, 2, 2, 3, 4, 6]);
     assert.deepEqual(neighborDistances(dist, 4, neighbors, 2), distances);

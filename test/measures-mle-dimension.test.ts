@@ -1,11 +1,10 @@
 import { strict as assert } from 'node:assert';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { knnFromDistances } from '../extension/src/engine/measures/knn';
 import { mleDimension } from '../extension/src/engine/measures/mle-dimension';
-import { allValid, cubeDistances, torusDistances } from './measures-fixtures';
+import { allValid, cubeDistances, knnByDistance, torusDistances } from './measures-fixtures';
 
 function estimate(dist: Float64Array, n: number, k: number): number {
-  const { distances } = knnFromDistances(dist, n, k, allValid(n));
+  const { distances } = knnByDistance(dist, n, k, allValid(n));
   return mleDimension(distances, n, k)!;
 }
 

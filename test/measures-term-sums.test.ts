@@ -1,7 +1,7 @@
 import { strict as assert } from 'node:assert';
 import fc from 'fast-check';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { cumulativeMassShare, pairMass, termSpread, termSums, topMassShare } from '../extension/src/engine/measures/term-sums';
+import { cumulativeMassShare, pairMass, termSpread, termSums } from '../extension/src/engine/measures/term-sums';
 import { denseToCsr, dot, randomUnitRows } from './measures-fixtures';
 
 describe('measures/term-sums', () => {
@@ -92,18 +92,19 @@ describe('measures/term-sums', () => {
         assert.equal(cum.length, 8);
         assert.ok(Math.abs(cum[cum.length - 1]! - 1) < 1e-9);
         for (let i = 1; i < cum.length; i++) assert.ok(cum[i]! >= cum[i - 1]! - 1e-15);
-        assert.ok(Math.abs(topMassShare(mass.perTerm, mass.total, 8) - 1) < 1e-9);
       }),
       { numRuns: 100 },
     );
   });
 
-  it('topMassShare picks the heaviest terms without reordering the input', () => {
-    // Hand-checked: masses 1, 5, 3, 1 of total 10 → top 1 = 0.5, top 2 = 0.8.
+  it('cumulativeMassShare adds the heaviest terms first, stops at maxTerms and leaves the input alone', () => {
+    // Hand-checked: masses 1, 5, 3, 1 of total 10 → 0.5, 0.8, 0.9, 1 (the top-10 / top-100 shares
+    // of the Report are read from this list).
     const perTerm = Float64Array.from([1, 5, 3, 1]);
-    assert.equal(topMassShare(perTerm, 10, 1), 0.5);
-    assert.ok(Math.abs(topMassShare(perTerm, 10, 2) - 0.8) < 1e-15);
+    const cum = cumulativeMassShare(perTerm, 10, 10);
+    assert.deepEqual(cum.map((x) => Math.round(x * 1e12) / 1e12), [0.5, 0.8, 0.9, 1]);
+    assert.deepEqual(cumulativeMassShare(perTerm, 10, 2), [0.5, 0.8]);
     assert.deepEqual(Array.from(perTerm), [1, 5, 3, 1]);
-    assert.equal(topMassShare(perTerm, 0, 2), 0);
+    assert.deepEqual(cumulativeMassShare(perTerm, 0, 2), [0, 0]);
   });
 });

@@ -1,11 +1,10 @@
 import { strict as assert } from 'node:assert';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { knnFromDistances } from '../extension/src/engine/measures/knn';
 import { twoNN } from '../extension/src/engine/measures/two-nn';
-import { allValid, cubeDistances, torusDistances } from './measures-fixtures';
+import { allValid, cubeDistances, knnByDistance, torusDistances } from './measures-fixtures';
 
 function estimate(dist: Float64Array, n: number): number {
-  const { distances } = knnFromDistances(dist, n, 2, allValid(n));
+  const { distances } = knnByDistance(dist, n, 2, allValid(n));
   return twoNN(distances, n, 2)!;
 }
 

@@ -26,8 +26,3 @@ export function editorDefaults(scope: vscode.Uri | undefined): EditorDefaults {
 export function reviewOnSave(scope: vscode.Uri | undefined): boolean {
   return section(scope).get<boolean>('reviewOnSave', false);
 }
-
-/** Settings whose change should refresh an open review on the next save. */
-export function affectsReview(e: vscode.ConfigurationChangeEvent, scope: vscode.Uri): boolean {
-  return ['sampleSize', 'neighbors', 'stopListFile'].some((key) => e.affectsConfiguration(`${SECTION}.${key}`, scope));
-}

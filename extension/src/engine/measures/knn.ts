@@ -6,7 +6,7 @@ export const NO_NEIGHBOR = 0xffffffff;
 export interface KnnLists {
   /** m×k sample positions, best first; NO_NEIGHBOR where there is none. */
   neighbors: Uint32Array;
-  /** m×k similarities (or distances) matching `neighbors`; NaN where there is none. */
+  /** m×k similarities matching `neighbors`; NaN where there is none. */
   sims: Float64Array;
 }
 
@@ -18,13 +18,7 @@ export interface KnnLists {
  * from the diagonal (a zero squared norm = an all-zero row, see validRowsFromGram).
  */
 export function knnFromSimilarities(sims: Float64Array, m: number, k: number, valid?: Uint8Array): KnnLists {
-  return selectNearest(sims, m, k, valid ?? validRowsFromGram(sims, m), 1);
-}
-
-/** k nearest neighbours from a dense m×m distance matrix, distances ascending (see above). */
-export function knnFromDistances(dist: Float64Array, m: number, k: number, valid: Uint8Array): { neighbors: Uint32Array; distances: Float64Array } {
-  const { neighbors, sims } = selectNearest(dist, m, k, valid, -1);
-  return { neighbors, distances: sims };
+  return selectNearest(sims, m, k, valid ?? validRowsFromGram(sims, m));
 }
 
 /** The distance matrix's entries at each row's neighbour positions (NaN where none). */
@@ -39,8 +33,8 @@ export function neighborDistances(dist: Float64Array, m: number, neighbors: Uint
   return out;
 }
 
-/** Top-k per row by sign·value; an insertion list is enough for the small k in use. */
-function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8Array, sign: 1 | -1): KnnLists {
+/** Top-k per row by value; an insertion list is enough for the small k in use. */
+function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8Array): KnnLists {
   if (!Number.isInteger(k) || k < 1) throw new RangeError(`k must be a positive integer, got ${k}`);
   if (values.length !== m * m) throw new RangeError(`expected an ${m}×${m} matrix, got ${values.length} entries`);
   const neighbors = new Uint32Array(m * k).fill(NO_NEIGHBOR);
@@ -53,7 +47,7 @@ function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8A
     const base = i * m;
     for (let j = 0; j < m; j++) {
       if (j === i || !valid[j]) continue;
-      const s = sign * values[base + j];
+      const s = values[base + j];
       if (filled === k && !(s > bestScore[k - 1])) continue;
       // Shift strictly worse entries down; equal scores stay ahead (lower position wins).
       let slot = filled < k ? filled++ : k - 1;
@@ -67,7 +61,7 @@ function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8A
     }
     for (let r = 0; r < filled; r++) {
       neighbors[i * k + r] = bestPos[r];
-      out[i * k + r] = sign * bestScore[r];
+      out[i * k + r] = bestScore[r];
     }
   }
   return { neighbors, sims: out };

@@ -93,15 +93,6 @@ function largestFirst(perTerm: Float64Array, count: number): Float64Array {
   return out;
 }
 
-/** Share of the total mass carried by the `count` heaviest terms; 0 when there is no mass. */
-export function topMassShare(perTerm: Float64Array, total: number, count: number): number {
-  if (!(total > 0)) return 0;
-  const top = largestFirst(perTerm, count);
-  let sum = 0;
-  for (let i = 0; i < top.length; i++) sum += top[i];
-  return sum / total;
-}
-
 /** Cumulative share of the total mass of the heaviest 1, 2, …, maxTerms terms. */
 export function cumulativeMassShare(perTerm: Float64Array, total: number, maxTerms: number): number[] {
   const top = largestFirst(perTerm, maxTerms);

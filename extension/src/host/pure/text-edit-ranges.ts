@@ -37,17 +37,3 @@ export function checkLineEdits(edits: readonly LineEdit[], text: string): LineEd
   }
   return sorted;
 }
-
-/** Applies checked edits to `text` (what the editor will show after the WorkspaceEdit). */
-export function applyLineEdits(text: string, edits: readonly LineEdit[]): string {
-  const sorted = checkLineEdits(edits, text);
-  const starts: number[] = [0];
-  for (const m of text.matchAll(/\r\n|\r|\n/g)) starts.push((m.index ?? 0) + m[0].length);
-  const offset = (p: Position0): number => (starts[p.line] ?? 0) + p.character;
-  let out = text;
-  for (let i = sorted.length - 1; i >= 0; i--) {
-    const e = sorted[i]!;
-    out = out.slice(0, offset(e.start)) + e.newText + out.slice(offset(e.end));
-  }
-  return out;
-}
