@@ -18,6 +18,12 @@ export function validRowsFromGram(gram: Float64Array, m: number): Uint8Array {
   return valid;
 }
 
+/**
+ * Squared distances below this fraction of ‖a‖² + ‖b‖² are taken as 0: cosines carry ~1e-16 of
+ * rounding, so a cosine within 5e-13 of 1 cannot be told from 1 by how it was summed.
+ */
+export const SAME_POINT = 1e-12;
+
 /** Overwrites the Gram matrix with distances (the diagonal becomes 0) and returns it. */
 export function distancesFromGram(gram: Float64Array, m: number): Float64Array {
   const norms = new Float64Array(m);
@@ -27,8 +33,9 @@ export function distancesFromGram(gram: Float64Array, m: number): Float64Array {
     const ni = norms[i];
     for (let j = 0; j < m; j++) {
       const sq = ni + norms[j] - 2 * gram[base + j];
-      // Rounding can leave a tiny negative for identical rows.
-      gram[base + j] = sq > 0 ? Math.sqrt(sq) : 0;
+      // Identical rows give ±1e-16 from rounding, and its square root (1e-8) would be noise that
+      // ratio measures (TwoNN's r2/r1) blow up; below SAME_POINT they are the same point.
+      gram[base + j] = sq > SAME_POINT * (ni + norms[j]) ? Math.sqrt(sq) : 0;
     }
     gram[base + i] = 0;
   }

@@ -12,7 +12,9 @@ export interface KnnLists {
 
 /**
  * k nearest neighbours from a dense m×m similarity matrix, self excluded, similarities
- * descending, ties to the lower position so results never depend on scan order.
+ * descending, ties to the lower position so results never depend on scan order. Values within
+ * TIE_TOLERANCE (relative above 1) count as ties: the same cosine reached by another order of
+ * additions — the incremental what-if's, a shard merge's — must pick the same neighbours.
  *
  * Rows not in `valid` get no neighbours and are nobody's neighbour. By default `valid` is read
  * from the diagonal (a zero squared norm = an all-zero row, see validRowsFromGram).
@@ -33,6 +35,9 @@ export function neighborDistances(dist: Float64Array, m: number, neighbors: Uint
   return out;
 }
 
+/** Relative gap below which two similarities (or distances) are one value for the ranking. */
+export const TIE_TOLERANCE = 1e-12;
+
 /** Top-k per row by value; an insertion list is enough for the small k in use. */
 function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8Array): KnnLists {
   if (!Number.isInteger(k) || k < 1) throw new RangeError(`k must be a positive integer, got ${k}`);
@@ -48,10 +53,10 @@ function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8A
     for (let j = 0; j < m; j++) {
       if (j === i || !valid[j]) continue;
       const s = values[base + j];
-      if (filled === k && !(s > bestScore[k - 1])) continue;
-      // Shift strictly worse entries down; equal scores stay ahead (lower position wins).
+      if (filled === k && !(s > clearlyAbove(bestScore[k - 1]))) continue;
+      // Shift clearly worse entries down; equal scores stay ahead (lower position wins).
       let slot = filled < k ? filled++ : k - 1;
-      while (slot > 0 && s > bestScore[slot - 1]) {
+      while (slot > 0 && s > clearlyAbove(bestScore[slot - 1])) {
         bestScore[slot] = bestScore[slot - 1];
         bestPos[slot] = bestPos[slot - 1];
         slot--;
@@ -65,4 +70,9 @@ function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8A
     }
   }
   return { neighbors, sims: out };
+}
+
+/** The least score that beats `score` rather than ties with it. */
+function clearlyAbove(score: number): number {
+  return score + TIE_TOLERANCE * Math.max(1, Math.abs(score));
 }

@@ -43,6 +43,11 @@ export interface MeasureDistancesOptions {
    * n-sized copy.
    */
   rowsWithWeight?: number;
+  /**
+   * The m×m cosines of X's sample rows when the caller already has them (the what-if keeps them
+   * up to date across toggles); overwritten with distances here, like the one computed inside.
+   */
+  gram?: Float64Array;
 }
 
 export interface MeasureDistancesResult {
@@ -78,7 +83,8 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   const sums = options.sums ?? termSums(X);
   const mass = pairMass(sums, options.rowsWithWeight ?? rowsWithWeight(X));
 
-  const gram = sampleSimilarities(X, sample);
+  if (options.gram !== undefined && options.gram.length !== m * m) throw new RangeError(`measureDistances: gram is not ${m}×${m}`);
+  const gram = options.gram ?? sampleSimilarities(X, sample);
   const valid = validRowsFromGram(gram, m);
   for (let i = 0; i < m; i++) {
     const sq = gram[i * m + i];

@@ -16,9 +16,10 @@ export function mleDimension(nnDist: Float64Array, m: number, k: number): number
     const base = i * k;
     const t1 = nnDist[base];
     const tk = nnDist[base + k - 1];
-    if (!(t1 > 0) || !(tk >= t1)) continue;
+    if (!(t1 > 0) || Number.isNaN(tk)) continue;
     let s = 0;
-    for (let j = 0; j < k - 1; j++) s += Math.log(tk / nnDist[base + j]);
+    // Neighbours within the k-NN tie tolerance may come out a rounding error out of order.
+    for (let j = 0; j < k - 1; j++) s += Math.log(Math.max(1, tk / nnDist[base + j]));
     n++;
     sumInverse += s / (k - 1);
   }

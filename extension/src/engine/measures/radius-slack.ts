@@ -1,4 +1,5 @@
 import { medianOf } from './quantile';
+import { selectRank } from './select-rank';
 
 /**
  * Radius slack per query: r_k is the distance to the k-th neighbour, r_10k the distance at which
@@ -35,32 +36,4 @@ export function radiusSlack(dist: Float64Array, m: number, valid: Uint8Array, k:
   const perQuery = radiusSlackPerQuery(dist, m, valid, k);
   const kept = perQuery.filter((v) => !Number.isNaN(v));
   return kept.length === 0 ? null : { median: medianOf(kept) };
-}
-
-/**
- * Hoare's quickselect (Hoare 1961, "Algorithm 65: find", CACM 4(7)) on a[lo..hi]: returns the
- * value of rank `rank` and leaves smaller-or-equal values to its left. The middle element as
- * pivot keeps it deterministic; sorted input, common here, is its best case.
- */
-function selectRank(a: Float64Array, lo: number, hi: number, rank: number): number {
-  while (lo < hi) {
-    const pivot = a[(lo + hi) >>> 1];
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
-      if (i <= j) {
-        const t = a[i];
-        a[i] = a[j];
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (rank <= j) hi = j;
-    else if (rank >= i) lo = i;
-    else return a[rank];
-  }
-  return a[rank];
 }

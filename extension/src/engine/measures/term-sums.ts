@@ -1,3 +1,4 @@
+import { selectRank } from './select-rank';
 import type { Csr } from '../matrix/csr';
 
 /**
@@ -84,12 +85,20 @@ export function termSpread(sums: TermSums, n: number): Float64Array {
   return spread;
 }
 
-/** The `count` largest values of perTerm, largest first (a sorted copy; the input is untouched). */
+/**
+ * The `count` largest values of perTerm, largest first (from a copy; the input is untouched).
+ * A selection then a sort of the top only: the what-if calls this on every toggle, and sorting
+ * the whole vocabulary each time cost more than the rest of the exact part.
+ */
 function largestFirst(perTerm: Float64Array, count: number): Float64Array {
-  const sorted = Float64Array.from(perTerm).sort();
-  const take = Math.min(count, sorted.length);
+  const n = perTerm.length;
+  const take = Math.min(count, n);
+  if (take === 0) return new Float64Array(0);
+  const copy = Float64Array.from(perTerm);
+  selectRank(copy, 0, n - 1, n - take);
+  const top = copy.subarray(n - take).sort();
   const out = new Float64Array(take);
-  for (let i = 0; i < take; i++) out[i] = sorted[sorted.length - 1 - i];
+  for (let i = 0; i < take; i++) out[i] = top[take - 1 - i];
   return out;
 }
 

@@ -19,9 +19,10 @@ export function twoNN(nnDist: Float64Array, m: number, k: number): number | null
   for (let i = 0; i < m; i++) {
     const r1 = nnDist[i * k];
     const r2 = nnDist[i * k + 1];
-    if (!(r1 > 0) || !(r2 >= r1)) continue;
+    if (!(r1 > 0) || Number.isNaN(r2)) continue;
     n++;
-    sumLog += Math.log(r2 / r1);
+    // Neighbours within the k-NN tie tolerance may come out a rounding error below r1: μ = 1.
+    sumLog += Math.log(Math.max(1, r2 / r1));
   }
   if (n < 2 || !(sumLog > 0)) return null;
   return n / sumLog;

@@ -3,14 +3,19 @@ import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
 import { selectRows } from '../matrix/select-rows';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
 import { measureDistances } from '../measures/measure-distances';
+import { IncrementalGram } from './incremental-gram';
+import { IncrementalTermSums } from './incremental-term-sums';
 
 export type DistanceResult = ReturnType<typeof measureDistances>;
 
 /**
  * Holds the full weight matrix (no stop list applied) and measures it under any set of removed
  * columns — the what-if behind the suggestions and the panel's toggles; nothing is re-tokenised.
- * The exact part (term sums over all rows) is one pass that renormalises on the fly; the sampled
- * part masks a copy of the m sampled rows only. The n-row masked matrix is never written.
+ * The exact part (term sums over all rows) and the sample's cosines are kept from one call to
+ * the next and updated from the postings of the terms whose state changed (IncrementalTermSums,
+ * IncrementalGram), so a panel toggle costs the rows that hold the term rather than a pass over
+ * the corpus; the rest of the sampled measures are recomputed from the cosines. The n-row masked
+ * matrix is never written.
  */
 export class DistanceLab {
   /** The sampled rows, unmasked, in sample order. */
@@ -18,6 +23,8 @@ export class DistanceLab {
   /** 0..m−1: sample positions, for functions that take (rows, sample) pairs. */
   readonly positions: Uint32Array;
   private readonly buffers: CsrBuffers;
+  private readonly exact: IncrementalTermSums;
+  private readonly gram: IncrementalGram;
 
   constructor(
     /** l2-normalised weights of every kept term; removing a column and renormalising equals
@@ -34,6 +41,8 @@ export class DistanceLab {
     this.positions = new Uint32Array(sample.length).map((_, i) => i);
     const nnz = this.sampleRows.indptr[this.sampleRows.rows]!;
     this.buffers = { indptr: new Uint32Array(sample.length + 1), indices: new Uint32Array(nnz), data: new Float64Array(nnz) };
+    this.exact = new IncrementalTermSums(weights);
+    this.gram = new IncrementalGram(this.sampleRows);
   }
 
   /** Exact term sums of the whole corpus with `removed` stopped. */
@@ -46,8 +55,13 @@ export class DistanceLab {
     return maskTerms(this.sampleRows, removed, 'l2', this.buffers);
   }
 
+  /**
+   * Every measure with `removed` stopped. Consecutive calls share work: only the terms whose
+   * state differs from the previous call are applied (see the class comment).
+   */
   measure(removed: Uint8Array, baselineNeighbors: Uint32Array | null): DistanceResult {
-    const { sums, rowsWithWeight } = this.sums(removed);
+    const { sums, rowsWithWeight } = this.exact.at(removed);
+    const gram = this.gram.at(removed);
     return measureDistances(this.maskedSample(removed), {
       sample: this.positions,
       k: this.k,
@@ -56,6 +70,7 @@ export class DistanceLab {
       baselineNeighbors,
       sums,
       rowsWithWeight,
+      gram,
     });
   }
 

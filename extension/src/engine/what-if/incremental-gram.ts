@@ -1,0 +1,209 @@
+import type { Csr } from '../matrix/csr';
+import { sameMask } from './incremental-term-sums';
+
+/**
+ * The sample's m×m cosine matrix under a what-if, kept up to date across toggles instead of
+ * being recomputed. It holds the raw dot products D_ij = Σ_{t kept} w_it·w_jt of the unmasked
+ * (unit) sample rows; the cosine under the mask is D_ij/√(D_ii·D_jj), because renormalising a
+ * masked row only rescales it (see maskTerms). Stopping or restoring term t changes D only on
+ * the pairs of sample rows that both hold t: |P_s(t)|² updates from the term's sample postings
+ * (a column-major copy of the sampled rows, built once), then one O(m²) scaling pass.
+ *
+ * Rounding: D_ii is recomputed from the row, never updated by subtraction. Off the diagonal a
+ * count of shared kept terms is kept beside D (Uint16 when no sampled row has 65,536 terms,
+ * else Uint32); when it reaches 0, D_ij is set to exact 0, so pairs left with nothing in common
+ * stay exactly orthogonal as in a full recompute (kNN ties at 0 depend on it). Other entries
+ * drift by ~1e-16 relative per update; after `REBUILD_AFTER`·m² pair updates D is rebuilt.
+ * The first state (the review's baseline) is kept and restored exactly when asked for again.
+ */
+export class IncrementalGram {
+  readonly m: number;
+  private readonly dots: Float64Array;
+  private readonly shared: Uint16Array | Uint32Array;
+  /** The cosines handed out; callers may overwrite them (measureDistances does). */
+  private readonly out: Float64Array;
+  private readonly inv: Float64Array;
+  private readonly mask: Uint8Array;
+  private readonly start: Uint32Array;
+  private readonly postPos: Uint32Array;
+  private readonly postVal: Float64Array;
+  /** Σ_t |P_s(t)|²/2: the multiply-adds of a full build, to choose between update and rebuild. */
+  private readonly fullCost: number;
+  private ready = false;
+  private updatedPairs = 0;
+  /** D at the first call (the review's baseline), restored bit for bit when that mask returns. */
+  private checkpoint: { mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array } | null = null;
+  lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; pairs: number } = { kind: 'unchanged', pairs: 0 };
+
+  constructor(readonly rows: Csr) {
+    const m = rows.rows;
+    this.m = m;
+    let longest = 0;
+    for (let i = 0; i < m; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
+    this.dots = new Float64Array(m * m);
+    this.shared = longest < 0xffff ? new Uint16Array(m * m) : new Uint32Array(m * m);
+    this.out = new Float64Array(m * m);
+    this.inv = new Float64Array(m);
+    this.mask = new Uint8Array(rows.cols);
+
+    const cols = rows.cols;
+    const nnz = rows.indptr[m]!;
+    const start = new Uint32Array(cols + 1);
+    for (let p = 0; p < nnz; p++) if (rows.data[p] !== 0) start[rows.indices[p]! + 1]++;
+    let cost = 0;
+    for (let t = 0; t < cols; t++) {
+      cost += (start[t + 1]! * start[t + 1]!) / 2;
+      start[t + 1] += start[t]!;
+    }
+    const fill = start.slice(0, cols);
+    this.postPos = new Uint32Array(start[cols]!);
+    this.postVal = new Float64Array(start[cols]!);
+    for (let i = 0; i < m; i++) {
+      for (let p = rows.indptr[i]!, end = rows.indptr[i + 1]!; p < end; p++) {
+        const x = rows.data[p]!;
+        if (x === 0) continue;
+        const slot = fill[rows.indices[p]!]!++;
+        this.postPos[slot] = i;
+        this.postVal[slot] = x;
+      }
+    }
+    this.start = start;
+    this.fullCost = cost;
+  }
+
+  /**
+   * The m×m cosines of the sampled rows with `removed` stopped (row-major; diagonal 1 for rows
+   * with a kept term, 0 for emptied rows). The array is reused: valid until the next call.
+   */
+  at(removed: Uint8Array): Float64Array {
+    if (removed.length < this.mask.length) throw new RangeError(`removed has ${removed.length} entries for ${this.mask.length} columns`);
+    if (!this.ready) {
+      this.build(removed);
+      this.checkpoint = { mask: this.mask.slice(), dots: this.dots.slice(), shared: this.shared.slice() };
+    } else if (this.checkpoint !== null && sameMask(removed, this.checkpoint.mask) && !sameMask(removed, this.mask)) {
+      this.dots.set(this.checkpoint.dots);
+      this.shared.set(this.checkpoint.shared);
+      this.mask.set(this.checkpoint.mask);
+      this.updatedPairs = 0;
+      this.lastStep = { kind: 'restored', pairs: 0 };
+    } else {
+      const changed: number[] = [];
+      let cost = 0;
+      for (let t = 0; t < this.mask.length; t++) {
+        if ((removed[t] !== 0) === (this.mask[t] !== 0)) continue;
+        changed.push(t);
+        const len = this.start[t + 1]! - this.start[t]!;
+        cost += len * len;
+      }
+      if (changed.length === 0) this.lastStep = { kind: 'unchanged', pairs: 0 };
+      else if (cost >= this.fullCost || this.updatedPairs + cost > REBUILD_AFTER * this.m * this.m) this.build(removed);
+      else this.update(changed, removed, cost);
+    }
+    return this.cosines();
+  }
+
+  /** D and the shared-term counts from scratch, through an inverted index of the rows seen. */
+  private build(removed: Uint8Array): void {
+    const { m, dots, shared } = this;
+    const { indptr, indices, data, cols } = this.rows;
+    const start = new Uint32Array(cols + 1);
+    start.set(this.start);
+    const fill = start.slice(0, cols);
+    const pos = new Uint32Array(this.postPos.length);
+    const val = new Float64Array(this.postPos.length);
+    const acc = new Float64Array(m);
+    const cnt = new Uint32Array(m);
+    for (let i = 0; i < m; i++) {
+      let self = 0;
+      let selfCount = 0;
+      for (let p = indptr[i]!, end = indptr[i + 1]!; p < end; p++) {
+        const x = data[p]!;
+        const t = indices[p]!;
+        if (x === 0 || removed[t] !== 0) continue;
+        self += x * x;
+        selfCount++;
+        const stop = fill[t]!;
+        for (let q = start[t]!; q < stop; q++) {
+          acc[pos[q]!] += x * val[q]!;
+          cnt[pos[q]!]++;
+        }
+        pos[stop] = i;
+        val[stop] = x;
+        fill[t] = stop + 1;
+      }
+      const base = i * m;
+      for (let j = 0; j < i; j++) {
+        dots[base + j] = acc[j]!;
+        dots[j * m + i] = acc[j]!;
+        shared[base + j] = cnt[j]!;
+        shared[j * m + i] = cnt[j]!;
+        acc[j] = 0;
+        cnt[j] = 0;
+      }
+      dots[base + i] = self;
+      shared[base + i] = selfCount;
+    }
+    this.mask.set(removed.subarray(0, this.mask.length));
+    this.ready = true;
+    this.updatedPairs = 0;
+    this.lastStep = { kind: 'full', pairs: this.fullCost };
+  }
+
+  private update(changed: number[], removed: Uint8Array, cost: number): void {
+    const { m, dots, shared, postPos, postVal } = this;
+    const touched = new Uint8Array(m);
+    for (const t of changed) {
+      const sign = removed[t] !== 0 ? -1 : 1;
+      const from = this.start[t]!;
+      const to = this.start[t + 1]!;
+      for (let a = from; a < to; a++) {
+        const i = postPos[a]!;
+        touched[i] = 1;
+        const wi = sign * postVal[a]!;
+        const base = i * m;
+        for (let b = from; b < to; b++) {
+          if (b === a) continue;
+          const at = base + postPos[b]!;
+          const count = shared[at]! + sign;
+          shared[at] = count;
+          dots[at] = count === 0 ? 0 : dots[at]! + wi * postVal[b]!;
+        }
+      }
+    }
+    // The diagonal from the rows themselves: exact, so an emptied row is exactly empty.
+    const { indptr, indices, data } = this.rows;
+    for (let i = 0; i < m; i++) {
+      if (touched[i] === 0) continue;
+      let self = 0;
+      let selfCount = 0;
+      for (let p = indptr[i]!, end = indptr[i + 1]!; p < end; p++) {
+        const x = data[p]!;
+        if (x === 0 || removed[indices[p]!] !== 0) continue;
+        self += x * x;
+        selfCount++;
+      }
+      dots[i * m + i] = self;
+      shared[i * m + i] = selfCount;
+    }
+    this.mask.set(removed.subarray(0, this.mask.length));
+    this.updatedPairs += cost;
+    this.lastStep = { kind: 'incremental', pairs: cost };
+  }
+
+  private cosines(): Float64Array {
+    const { m, dots, out, inv } = this;
+    for (let i = 0; i < m; i++) {
+      const d = dots[i * m + i]!;
+      inv[i] = d > 0 ? 1 / Math.sqrt(d) : 0;
+    }
+    for (let i = 0; i < m; i++) {
+      const base = i * m;
+      const si = inv[i]!;
+      for (let j = 0; j < m; j++) out[base + j] = dots[base + j]! * si * inv[j]!;
+    }
+    return out;
+  }
+}
+
+/** Incremental pair updates allowed, in multiples of m², before D is rebuilt to reset drift. */
+const REBUILD_AFTER = 8;

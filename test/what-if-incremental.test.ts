@@ -1,0 +1,187 @@
+// The panel's incremental what-if must give what a full recompute gives. The reference here is
+// the full path itself — maskedTermSums, maskTerms + sampleSimilarities, measureDistances with
+// nothing carried over — which test/measures-masked-term-sums.test.ts and
+// test/weighting-sklearn.test.ts tie to scikit-learn's TfidfVectorizer without those terms
+// (methods §1, §3). Tolerance 1e-12 (relative above 1): the order of additions differs.
+import { strict as assert } from 'node:assert';
+import type { Csr } from '../extension/src/engine/matrix/csr';
+import { maskTerms } from '../extension/src/engine/matrix/mask-terms';
+import { maskedTermSums } from '../extension/src/engine/measures/masked-term-sums';
+import { measureDistances } from '../extension/src/engine/measures/measure-distances';
+import { sampleSimilarities } from '../extension/src/engine/measures/sample-similarity';
+import { selectRows } from '../extension/src/engine/matrix/select-rows';
+import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
+import { IncrementalGram } from '../extension/src/engine/what-if/incremental-gram';
+import { IncrementalTermSums } from '../extension/src/engine/what-if/incremental-term-sums';
+
+const TOLERANCE = 1e-12;
+
+/** Small seeded generator (mulberry32, common practice, no source) so failures replay. */
+function generator(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/**
+ * Unit rows over `cols` terms shaped like text: a few terms in most rows (the loud ones a user
+ * toggles), a long tail of rare ones, some exact duplicate rows, some rows of one or two terms
+ * (they empty out when those terms are stopped), and tf-idf-like positive weights.
+ */
+function textLikeRows(rows: number, cols: number, random: () => number): Csr {
+  const indptr = new Uint32Array(rows + 1);
+  const indices: number[] = [];
+  const data: number[] = [];
+  let previous: Array<[number, number]> = [];
+  for (let r = 0; r < rows; r++) {
+    let entries: Array<[number, number]>;
+    if (r > 0 && random() < 0.05) entries = previous;
+    else {
+      const chosen = new Map<number, number>();
+      const length = random() < 0.1 ? 1 + Math.floor(random() * 2) : 3 + Math.floor(random() * 12);
+      for (let e = 0; e < length; e++) {
+        // Zipf-like: the column is the floor of cols·u³, so low columns are common.
+        const u = random();
+        const t = Math.min(cols - 1, Math.floor(cols * u * u * u));
+        chosen.set(t, (chosen.get(t) ?? 0) + 0.5 + random());
+      }
+      entries = [...chosen.entries()].sort((a, b) => a[0] - b[0]);
+    }
+    previous = entries;
+    const norm = Math.hypot(...entries.map((e) => e[1]));
+    for (const [t, w] of entries) {
+      indices.push(t);
+      data.push(w / norm);
+    }
+    indptr[r + 1] = indices.length;
+  }
+  return { rows, cols, indptr, indices: Uint32Array.from(indices), data: Float64Array.from(data) };
+}
+
+/**
+ * The intrinsic-dimension estimates take ratios of neighbour distances, and a distance
+ * √(2 − 2·cos) turns a last-bit difference of a cosine near 1 into a relative error of
+ * ε/(1 − cos) (conditioning of the square root, textbook numerics): near-duplicate documents make
+ * those two estimates differ by more than 1e-12 between any two orders of summation, the full
+ * recompute and scikit-learn included. They are compared to this looser bound.
+ */
+const RATIO_TOLERANCE = 1e-8;
+
+function close(a: number, b: number, tolerance = TOLERANCE): boolean {
+  if (Number.isNaN(a) || Number.isNaN(b)) return Number.isNaN(a) && Number.isNaN(b);
+  return Math.abs(a - b) <= tolerance * Math.max(1, Math.abs(a), Math.abs(b));
+}
+
+/** Deep comparison: numbers to TOLERANCE, everything else equal; the path names the mismatch. */
+function assertClose(got: unknown, want: unknown, path: string): void {
+  if (typeof want === 'number') {
+    assert.equal(typeof got, 'number', path);
+    const tolerance = path.includes('intrinsicDimension') ? RATIO_TOLERANCE : TOLERANCE;
+    assert.ok(close(got as number, want, tolerance), `${path}: ${String(got)} vs ${want}`);
+  } else if (ArrayBuffer.isView(want) || Array.isArray(want)) {
+    const w = want as ArrayLike<unknown>;
+    const g = got as ArrayLike<unknown>;
+    assert.equal(g.length, w.length, `${path}.length`);
+    for (let i = 0; i < w.length; i++) assertClose(g[i], w[i], `${path}[${i}]`);
+  } else if (want !== null && typeof want === 'object') {
+    for (const key of Object.keys(want)) assertClose((got as Record<string, unknown>)[key], (want as Record<string, unknown>)[key], `${path}.${key}`);
+  } else {
+    assert.equal(got, want, path);
+  }
+}
+
+/** A toggle sequence a user or the suggestion search might make: mostly single flips of common terms. */
+function toggleSequence(cols: number, steps: number, random: () => number): Uint8Array[] {
+  const masks: Uint8Array[] = [];
+  const mask = new Uint8Array(cols);
+  for (let s = 0; s < steps; s++) {
+    const roll = random();
+    const flips = roll < 0.7 ? 1 : roll < 0.9 ? 2 + Math.floor(random() * 4) : Math.floor(cols / 3);
+    for (let f = 0; f < flips; f++) {
+      const u = random();
+      const t = Math.min(cols - 1, Math.floor(cols * u * u));
+      mask[t] = mask[t] === 0 ? 1 : 0;
+    }
+    masks.push(mask.slice());
+  }
+  return masks;
+}
+
+describe('incremental what-if', () => {
+  it('IncrementalTermSums.at equals maskedTermSums after every step of random toggle sequences', () => {
+    for (let seed = 1; seed <= 6; seed++) {
+      const random = generator(seed);
+      const X = textLikeRows(400, 60, random);
+      const sums = new IncrementalTermSums(X);
+      let incremental = 0;
+      for (const mask of toggleSequence(X.cols, 80, random)) {
+        const got = sums.at(mask);
+        if (sums.lastStep.kind === 'incremental') incremental++;
+        const want = maskedTermSums(X, mask, false);
+        assert.equal(got.rowsWithWeight, want.rowsWithWeight);
+        assert.deepEqual([...got.sums.df], [...want.sums.df]);
+        assertClose(got.sums.s1, want.sums.s1, 's1');
+        assertClose(got.sums.s2, want.sums.s2, 's2');
+      }
+      // Otherwise the test would only exercise the full pass.
+      assert.ok(incremental > 20, `only ${incremental} incremental steps`);
+    }
+  });
+
+  it('IncrementalGram.at equals sampleSimilarities of the masked, renormalised rows, zeros exactly', () => {
+    for (let seed = 1; seed <= 6; seed++) {
+      const random = generator(100 + seed);
+      const rows = textLikeRows(150, 40, random);
+      const gram = new IncrementalGram(rows);
+      const all = Uint32Array.from({ length: rows.rows }, (_, i) => i);
+      let incremental = 0;
+      for (const mask of toggleSequence(rows.cols, 60, random)) {
+        const got = gram.at(mask);
+        if (gram.lastStep.kind === 'incremental') incremental++;
+        const want = sampleSimilarities(maskTerms(rows, mask, 'l2'), all);
+        for (let p = 0; p < want.length; p++) {
+          // Exact zeros stay exact: a pair with no kept term in common is orthogonal, not 1e-17.
+          if (want[p] === 0) assert.equal(got[p], 0, `entry ${p} should be exactly 0`);
+          else assert.ok(close(got[p]!, want[p]!), `entry ${p}: ${got[p]} vs ${want[p]}`);
+        }
+      }
+      assert.ok(incremental > 20, `only ${incremental} incremental steps`);
+    }
+  });
+
+  it('DistanceLab.measure along random toggle sequences equals a fresh full recompute', () => {
+    for (let seed = 1; seed <= 4; seed++) {
+      const random = generator(1000 + seed);
+      const X = textLikeRows(600, 50, random);
+      const sample = Uint32Array.from({ length: 120 }, (_, i) => i * 5);
+      const labels = Int32Array.from(sample, () => (random() < 0.1 ? -1 : Math.floor(random() * 3)));
+      const k = 5;
+      const lab = new DistanceLab(X, sample, k, seed, labels);
+      const base = new Uint8Array(X.cols);
+      const baseline = lab.measure(base, null);
+      const positions = Uint32Array.from(sample, (_, i) => i);
+      for (const mask of toggleSequence(X.cols, 25, random)) {
+        const got = lab.measure(mask, baseline.neighbors);
+        const { sums, rowsWithWeight } = maskedTermSums(X, mask, false);
+        const want = measureDistances(maskTerms(selectRows(X, sample), mask, 'l2'), {
+          sample: positions,
+          k,
+          seed,
+          labels,
+          baselineNeighbors: baseline.neighbors,
+          sums,
+          rowsWithWeight,
+        });
+        assert.deepEqual([...got.neighbors], [...want.neighbors], 'neighbours');
+        assertClose(got.measures, want.measures, 'measures');
+        assertClose(got.termKnnMass, want.termKnnMass, 'termKnnMass');
+        assertClose(got.pairMass, want.pairMass, 'pairMass');
+      }
+    }
+  });
+});
