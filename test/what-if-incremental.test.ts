@@ -2,7 +2,7 @@
 // the full path itself — maskedTermSums, maskTerms + sampleSimilarities, measureDistances with
 // nothing carried over — which test/measures-masked-term-sums.test.ts and
 // test/weighting-sklearn.test.ts tie to scikit-learn's TfidfVectorizer without those terms
-// (methods §1, §3). Tolerance 1e-12 (relative above 1): the order of additions differs.
+// (docs/methods.md §1, §3). Tolerance 1e-12 (relative above 1): the order of additions differs.
 import { strict as assert } from 'node:assert';
 import type { Csr } from '../extension/src/engine/matrix/csr';
 import { maskTerms } from '../extension/src/engine/matrix/mask-terms';

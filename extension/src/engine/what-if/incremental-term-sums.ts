@@ -3,7 +3,7 @@ import type { MaskedTermSums } from '../measures/masked-term-sums';
 
 /**
  * The exact term sums of a what-if (S1, S2, df over every document, each row renormalised after
- * its removed columns are dropped — methods §3), kept up to date across toggles instead of being
+ * its removed columns are dropped — docs/methods.md §3), kept up to date across toggles instead of being
  * recomputed. Stopping or restoring term t changes only the rows that hold t: each such row's
  * kept norm is recomputed from scratch and its old contribution to the sums swapped for its new
  * one in the same pass. The rows holding t come from a column-major copy of the row ids (postings, 4 bytes per
