@@ -166,7 +166,7 @@ describe('incremental what-if', () => {
       const baseline = lab.measure(base, null);
       const positions = Uint32Array.from(sample, (_, i) => i);
       for (const mask of toggleSequence(X.cols, 25, random)) {
-        const got = lab.measure(mask, baseline.neighbors);
+        const got = lab.measureIncrementally(mask, baseline.neighbors);
         const { sums, rowsWithWeight } = maskedTermSums(X, mask, false);
         const want = measureDistances(maskTerms(selectRows(X, sample), mask, 'l2'), {
           sample: positions,

@@ -87,7 +87,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     report,
     whatIf(removed: readonly string[]) {
       const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
-      return lab.measure(mask, baseline.neighbors).measures;
+      return lab.measureIncrementally(mask, baseline.neighbors).measures;
     },
   };
 }

@@ -14,7 +14,7 @@ import { sameMask } from './incremental-term-sums';
  * else Uint32); when it reaches 0, D_ij is set to exact 0, so pairs left with nothing in common
  * stay exactly orthogonal as in a full recompute (kNN ties at 0 depend on it). Other entries
  * drift by ~1e-16 relative per update; after `REBUILD_AFTER`·m² pair updates D is rebuilt.
- * The first state (the review's baseline) is kept and restored exactly when asked for again.
+ * Full builds (the Report's figures) are kept and restored exactly when asked for again.
  */
 export class IncrementalGram {
   readonly m: number;
@@ -31,8 +31,10 @@ export class IncrementalGram {
   private readonly fullCost: number;
   private ready = false;
   private updatedPairs = 0;
-  /** D at the first call (the review's baseline), restored bit for bit when that mask returns. */
-  private checkpoint: { mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array } | null = null;
+  /** D of full builds (the review's baseline and the latest Report figure), restored bit for bit. */
+  private readonly checkpoints: Array<{ mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array }> = [];
+  /** Whether D is what a full build gives (not reached by updates). */
+  private exact = false;
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; pairs: number } = { kind: 'unchanged', pairs: 0 };
 
   constructor(readonly rows: Csr) {
@@ -74,18 +76,25 @@ export class IncrementalGram {
   /**
    * The m×m cosines of the sampled rows with `removed` stopped (row-major; diagonal 1 for rows
    * with a kept term, 0 for emptied rows). The array is reused: valid until the next call.
+   * `incremental` as in IncrementalTermSums.at: false = a full build, kept as a checkpoint.
    */
-  at(removed: Uint8Array): Float64Array {
+  at(removed: Uint8Array, incremental = true): Float64Array {
     if (removed.length < this.mask.length) throw new RangeError(`removed has ${removed.length} entries for ${this.mask.length} columns`);
-    if (!this.ready) {
-      this.build(removed);
-      this.checkpoint = { mask: this.mask.slice(), dots: this.dots.slice(), shared: this.shared.slice() };
-    } else if (this.checkpoint !== null && sameMask(removed, this.checkpoint.mask) && !sameMask(removed, this.mask)) {
-      this.dots.set(this.checkpoint.dots);
-      this.shared.set(this.checkpoint.shared);
-      this.mask.set(this.checkpoint.mask);
+    const checkpoint = this.ready ? this.checkpoints.find((c) => sameMask(removed, c.mask)) : undefined;
+    if (this.ready && sameMask(removed, this.mask) && (incremental || this.exact)) {
+      this.lastStep = { kind: 'unchanged', pairs: 0 };
+    } else if (checkpoint !== undefined) {
+      this.dots.set(checkpoint.dots);
+      this.shared.set(checkpoint.shared);
+      this.mask.set(checkpoint.mask);
       this.updatedPairs = 0;
+      this.exact = true;
       this.lastStep = { kind: 'restored', pairs: 0 };
+    } else if (!this.ready || !incremental) {
+      this.build(removed);
+      const saved = { mask: this.mask.slice(), dots: this.dots.slice(), shared: this.shared.slice() };
+      if (this.checkpoints.length < 2) this.checkpoints.push(saved);
+      else this.checkpoints[1] = saved;
     } else {
       const changed: number[] = [];
       let cost = 0;
@@ -145,6 +154,7 @@ export class IncrementalGram {
     }
     this.mask.set(removed.subarray(0, this.mask.length));
     this.ready = true;
+    this.exact = true;
     this.updatedPairs = 0;
     this.lastStep = { kind: 'full', pairs: this.fullCost };
   }
@@ -187,6 +197,7 @@ export class IncrementalGram {
     }
     this.mask.set(removed.subarray(0, this.mask.length));
     this.updatedPairs += cost;
+    this.exact = false;
     this.lastStep = { kind: 'incremental', pairs: cost };
   }
 

@@ -31,10 +31,12 @@ export class IncrementalTermSums {
   /** Entries visited by incremental updates since the last full pass. */
   private updatedEntries = 0;
   /**
-   * The state of the first call (the review's baseline), restored bit for bit whenever that
-   * mask is asked for again, so "stop nothing more" gives exactly the Report's baseline.
+   * States of full passes (the review's baseline and the latest Report figure), restored bit for
+   * bit whenever that mask is asked for again.
    */
-  private checkpoint: { mask: Uint8Array; s1: Float64Array; s2: Float64Array; df: Uint32Array; rowNorm2: Float64Array; rowsWithWeight: number } | null = null;
+  private readonly checkpoints: Array<{ mask: Uint8Array; s1: Float64Array; s2: Float64Array; df: Uint32Array; rowNorm2: Float64Array; rowsWithWeight: number }> = [];
+  /** Whether the state is what a full pass gives (not reached by updates). */
+  private exact = false;
   /** Statistics of the last call, for the benchmark and the tests. */
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; entries: number } = { kind: 'unchanged', entries: 0 };
 
@@ -49,14 +51,32 @@ export class IncrementalTermSums {
     this.mask = new Uint8Array(cols);
   }
 
-  /** The sums with `removed` stopped (1 = removed), reached from the previous call's state. */
-  at(removed: Uint8Array): MaskedTermSums {
+  /**
+   * The sums with `removed` stopped (1 = removed). With `incremental` (the panel's toggles) they
+   * are reached from the previous call's state; without it (the Report's figures) they are
+   * computed by a full pass — bit for bit what a fresh review with that stop list computes — and
+   * kept as a checkpoint (the first and the latest), restored exactly when that mask returns.
+   */
+  at(removed: Uint8Array, incremental = true): MaskedTermSums {
     const X = this.weights;
     if (removed.length < X.cols) throw new RangeError(`removed has ${removed.length} entries for ${X.cols} columns`);
     const nnz = X.indptr[X.rows]!;
-    if (!this.ready) {
+    const checkpoint = this.ready ? this.checkpoints.find((c) => sameMask(removed, c.mask)) : undefined;
+    if (this.ready && sameMask(removed, this.mask) && (incremental || this.exact)) {
+      this.lastStep = { kind: 'unchanged', entries: 0 };
+    } else if (checkpoint !== undefined) {
+      this.s1.set(checkpoint.s1);
+      this.s2.set(checkpoint.s2);
+      this.df.set(checkpoint.df);
+      this.rowNorm2.set(checkpoint.rowNorm2);
+      this.rowsWithWeight = checkpoint.rowsWithWeight;
+      this.mask.set(checkpoint.mask);
+      this.updatedEntries = 0;
+      this.exact = true;
+      this.lastStep = { kind: 'restored', entries: 0 };
+    } else if (!this.ready || !incremental) {
       this.full(removed);
-      this.checkpoint = {
+      const saved = {
         mask: this.mask.slice(),
         s1: this.s1.slice(),
         s2: this.s2.slice(),
@@ -64,16 +84,8 @@ export class IncrementalTermSums {
         rowNorm2: this.rowNorm2.slice(),
         rowsWithWeight: this.rowsWithWeight,
       };
-    } else if (this.checkpoint !== null && sameMask(removed, this.checkpoint.mask) && !sameMask(removed, this.mask)) {
-      const c = this.checkpoint;
-      this.s1.set(c.s1);
-      this.s2.set(c.s2);
-      this.df.set(c.df);
-      this.rowNorm2.set(c.rowNorm2);
-      this.rowsWithWeight = c.rowsWithWeight;
-      this.mask.set(c.mask);
-      this.updatedEntries = 0;
-      this.lastStep = { kind: 'restored', entries: 0 };
+      if (this.checkpoints.length < 2) this.checkpoints.push(saved);
+      else this.checkpoints[1] = saved;
     } else {
       const changed: number[] = [];
       for (let t = 0; t < X.cols; t++) if ((removed[t] !== 0) !== (this.mask[t] !== 0)) changed.push(t);
@@ -112,6 +124,7 @@ export class IncrementalTermSums {
     this.rowsWithWeight = nonEmpty;
     this.mask.set(removed.subarray(0, this.mask.length));
     this.ready = true;
+    this.exact = true;
     this.updatedEntries = 0;
     this.lastStep = { kind: 'full', entries: indptr[rows]! };
   }
@@ -176,6 +189,7 @@ export class IncrementalTermSums {
     }
     mask.set(removed.subarray(0, mask.length));
     this.updatedEntries += entries;
+    this.exact = false;
     this.lastStep = { kind: 'incremental', entries };
   }
 
