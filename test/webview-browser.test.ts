@@ -315,10 +315,16 @@ describe('webview in Chromium', function () {
         await page.locator('tr[data-term="the"] input[type=checkbox]').uncheck();
         await page.locator('tr[data-term="account"] input[type=checkbox]').check();
         const expected = report.suggestions.filter((t) => t !== 'the').concat('account');
-        let request = await lastWhatIf(page, 1);
-        await page.waitForTimeout(300); // past the debounce, so the second toggle's request is in
-        request = await lastWhatIf(page, 1);
+        // The first click is sent at once; the second waits for its answer (coalescing), and
+        // goes out when that answer arrives, which is then stale and ignored.
+        const first = await lastWhatIf(page, 1);
+        assert.deepEqual([...first.removed].sort(), report.suggestions.filter((t) => t !== 'the').sort());
+        assert.equal((await posted(page)).filter((m) => m.type === 'whatIf').length, 1, 'one request in flight at a time');
+        const firstMeasures: Measures = { ...report.suggested, backgroundSimilarity: 0.777 };
+        await send(page, { type: 'whatIfResult', removed: first.removed, measures: firstMeasures, requestId: first.requestId });
+        const request = await lastWhatIf(page, 2);
         assert.deepEqual([...request.removed].sort(), [...expected].sort());
+        assert.equal(await page.locator('[data-role="selection"]').count(), 0, 'the stale answer is not shown');
 
         // A stale answer (older requestId) is ignored; the latest one shows as "your selection".
         const measures = (bg: number): Measures => ({ ...report.suggested, backgroundSimilarity: bg, neighborStandout: 2.1 });

@@ -111,7 +111,8 @@ export class PanelApp {
   }
 
   onWhatIfResult(message: WhatIfResultMessage): void {
-    if (!this.loaded || !this.requester.accept(message.requestId)) return;
+    const latest = this.requester.accept(message.requestId);
+    if (!this.loaded || !latest) return;
     this.state.whatIf = { removed: [...message.removed], measures: message.measures };
     this.save();
     this.renderStrip();
@@ -127,6 +128,8 @@ export class PanelApp {
   }
 
   showError(message: string): void {
+    // A failed what-if answers with an error: the requester must not wait for it any more.
+    this.requester.failed();
     replaceChildren(this.statusSlot, [el('div', { className: 'lw-error', text: message, attrs: { role: 'alert' } })]);
   }
 
