@@ -1,0 +1,24 @@
+import { FORTUNE_CATEGORIES, fortunesAvailable, readFortunes } from './fortunes';
+import { KJV_CHAPTERS } from './kjv-chapters';
+import type { DevCorpus } from './labelled-corpus';
+import { MAN_PAGES } from './man-pages';
+import { PACKAGE_DESCRIPTIONS } from './package-descriptions';
+import { SOTU } from './sotu';
+import { SPAM_ASSASSIN } from './spam-assassin';
+
+/**
+ * Debian fortunes, 12 categories. Source: Debian package `fortunes`. CHECK: the fortunes test
+ * (test/review-fortunes.test.ts) judges the suggestions on it, so nothing is tuned on it.
+ */
+export const FORTUNES: DevCorpus = {
+  name: 'fortunes',
+  genre: 'short quotations and jokes',
+  role: 'CHECK',
+  source: 'Debian fortunes; label = category file',
+  missing: 'apt-get install fortunes',
+  available: fortunesAvailable,
+  load: async () => readFortunes(FORTUNE_CATEGORIES).map((f) => ({ text: f.text, label: f.category })),
+};
+
+/** The development set (test/corpora/README.md): TUNE first, then CHECK. */
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS];

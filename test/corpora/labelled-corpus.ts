@@ -1,0 +1,54 @@
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import * as path from 'node:path';
+
+/** One document of a labelled development corpus. */
+export interface LabelledDoc {
+  text: string;
+  label: string;
+}
+
+/**
+ * A labelled corpus of the development set (test/corpora/README.md). TUNE corpora may be used to
+ * choose the suggestion method's constants; CHECK corpora only to check them afterwards.
+ */
+export interface DevCorpus {
+  name: string;
+  genre: string;
+  role: 'TUNE' | 'CHECK';
+  /** Where the text comes from (Debian or npm package) and what the label is. */
+  source: string;
+  available(): boolean;
+  /** Why the corpus is not available and what to install. */
+  missing: string;
+  load(): Promise<LabelledDoc[]>;
+}
+
+/** Rendered corpora are cached here (git-ignored); delete the folder to rebuild them. */
+export const CORPUS_CACHE = path.join(__dirname, '..', '..', '.cache', 'corpora');
+
+export async function cached(name: string, build: () => Promise<LabelledDoc[]>): Promise<LabelledDoc[]> {
+  const file = path.join(CORPUS_CACHE, `${name}.jsonl`);
+  if (existsSync(file)) {
+    return readFileSync(file, 'utf8').split('\n').filter((l) => l.length > 0).map((l) => JSON.parse(l) as LabelledDoc);
+  }
+  const docs = await build();
+  mkdirSync(CORPUS_CACHE, { recursive: true });
+  writeFileSync(file, docs.map((d) => JSON.stringify(d)).join('\n') + '\n');
+  return docs;
+}
+
+/**
+ * At most `max` items, spread evenly over the list (every (n/max)-th), so a capped corpus keeps
+ * the proportions of its labels and is the same on every machine.
+ */
+export function evenlySpaced<T>(items: readonly T[], max: number): T[] {
+  if (items.length <= max) return [...items];
+  const out: T[] = [];
+  for (let i = 0; i < max; i++) out.push(items[Math.floor((i * items.length) / max)]!);
+  return out;
+}
+
+/** Whitespace runs to one space, ends trimmed. */
+export function squeeze(text: string): string {
+  return text.replace(/\s+/g, ' ').trim();
+}
