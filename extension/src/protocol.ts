@@ -59,6 +59,9 @@ export interface TermRow {
   status: TermStatus;
   /** One line a person can read: why this term is or is not suggested. */
   why: string;
+  /** Stopped terms only: whether the suggestion rule would suggest the term too (the stop-list
+   *  warning "carries neighbour signal" is not raised on such terms). */
+  ruleWouldSuggest?: boolean | undefined;
 }
 
 export interface HubRow {

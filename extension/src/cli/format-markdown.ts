@@ -1,5 +1,6 @@
 import type { Report } from '../protocol';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
+import { verdictLines } from './format-verdict';
 
 const TERMS_SHOWN = 30;
 
@@ -14,6 +15,13 @@ export function formatMarkdown(report: Report): string {
   const out: string[] = [];
   out.push(`## Loudword review of \`${cell(input.file)}\``);
   out.push('');
+  const verdict = verdictLines(report.verdict);
+  if (verdict !== null) {
+    out.push(`**${verdict.title}.** ${cell(verdict.headline)}`);
+    out.push('');
+    for (const c of verdict.caveats) out.push(`- ${cell(c)}`);
+    if (verdict.caveats.length > 0) out.push('');
+  }
   out.push(`${input.documents} documents · ${vocabulary.terms} terms · ${vocabulary.tokens} tokens · sample ${baseline.sample.documents} (k = ${baseline.sample.k}, seed ${baseline.sample.seed})`);
   out.push('');
   out.push('| measure | current | with suggestions | |');

@@ -1,5 +1,6 @@
 import type { Report } from '../protocol';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
+import { verdictLines } from './format-verdict';
 
 const TERMS_SHOWN = 15;
 const HUBS_SHOWN = 5;
@@ -10,6 +11,13 @@ export function formatText(report: Report): string {
   const { input, vocabulary, baseline, suggested } = report;
   const fields = [input.format, input.textField && `text "${input.textField}"`, input.labelField && `label "${input.labelField}"`].filter(Boolean).join(', ');
   out.push(`Loudword ${report.tool.version} — ${input.file} (${fields})`);
+  const verdict = verdictLines(report.verdict);
+  if (verdict !== null) {
+    out.push('');
+    out.push(`${verdict.title}. ${verdict.headline}`);
+    for (const c of verdict.caveats) out.push(`  But: ${c}`);
+    out.push('');
+  }
   out.push(
     `${input.documents} documents, ${vocabulary.terms} terms, ${vocabulary.tokens} tokens ` +
       `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${input.skipped} rows skipped`,
@@ -34,7 +42,7 @@ export function formatText(report: Report): string {
   if (report.suggestions.length > 0) {
     out.push(`Suggested stop terms (${report.suggestions.length}): ${report.suggestions.join(', ')}`);
   } else {
-    out.push('No stop terms suggested: no candidate made the neighbours stand out more in the what-if.');
+    out.push('No stop terms suggested (see the verdict above for why).');
   }
   out.push('');
   out.push('Loudest terms (pull share = share of all-pair similarity; lift = share among neighbours ÷ pull share):');

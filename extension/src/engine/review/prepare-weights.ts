@@ -6,6 +6,7 @@ import { weigh } from '../matrix/weigh';
 import type { CorpusSource } from '../read/corpus-source';
 import { UserError } from '../user-error';
 import type { FileSnapshot } from './file-snapshot';
+import { termCountStats, type TermCountStats } from '../terms/term-count-stats';
 
 /** What the rest of a review needs from the counting step, and nothing bigger. */
 export interface PreparedWeights {
@@ -22,6 +23,8 @@ export interface PreparedWeights {
   lines: Uint32Array;
   labels: (string | null)[] | null;
   previews: string[];
+  /** Exact raw-count sums per kept term (stop list not applied), for the suggestion rule. */
+  counts: TermCountStats;
 }
 
 /**
@@ -61,5 +64,6 @@ export async function prepareWeights(
     lines: built.lines,
     labels: built.labels,
     previews: built.previews,
+    counts: termCountStats(counts),
   };
 }

@@ -68,6 +68,8 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     index,
     tokenize,
     settings,
+    counts: prepared.counts,
+    previews: prepared.previews,
   });
 
   stage('what-if');

@@ -1,56 +1,55 @@
 /**
- * English closed-class words (determiners, pronouns, prepositions, conjunctions, auxiliaries,
- * modals and a few degree adverbs), written for this project from the grammar's word classes.
- * They are the *prior* of the suggestions: a candidate only, each one still has to pass the
- * what-if check before it is suggested. Negations are listed too; the `protect` setting keeps
- * them out of suggestions by default, because removing them flips meaning.
+ * English closed-class words by grammatical class, written for this project from the grammar's
+ * word classes (no outside list copied). They are the *prior* of the suggestions: each one is
+ * still held to the corpus's own evidence (docs/methods.md §9) before it is suggested.
  * Lower-case; the tokenizer's settings are applied to each before matching the vocabulary.
  */
-export const ENGLISH_FUNCTION_WORDS: readonly string[] = [
-  // articles and determiners
-  'a', 'an', 'the', 'this', 'that', 'these', 'those', 'each', 'every', 'either', 'neither', 'some', 'any',
-  'all', 'both', 'few', 'many', 'much', 'more', 'most', 'less', 'least', 'several', 'such', 'own', 'other',
-  'another', 'same', 'what', 'which', 'whose', 'whatever', 'whichever',
-  // personal, possessive, reflexive and relative pronouns
-  'i', 'me', 'my', 'mine', 'myself', 'we', 'us', 'our', 'ours', 'ourselves', 'you', 'your', 'yours',
-  'yourself', 'yourselves', 'he', 'him', 'his', 'himself', 'she', 'her', 'hers', 'herself', 'it', 'its',
-  'itself', 'they', 'them', 'their', 'theirs', 'themselves', 'who', 'whom', 'whoever', 'one', 'ones',
-  'someone', 'somebody', 'something', 'anyone', 'anybody', 'anything', 'everyone', 'everybody',
-  'everything', 'nobody', 'nothing', 'none', 'no', 'not', 'nor', 'never', 'nowhere', 'cannot',
-  // prepositions
-  'about', 'above', 'across', 'after', 'against', 'along', 'among', 'amongst', 'around', 'as', 'at',
-  'before', 'behind', 'below', 'beneath', 'beside', 'besides', 'between', 'beyond', 'by', 'despite',
-  'down', 'during', 'except', 'for', 'from', 'in', 'inside', 'into', 'like', 'near', 'of', 'off', 'on',
-  'onto', 'out', 'outside', 'over', 'past', 'per', 'since', 'than', 'through', 'throughout', 'till',
-  'to', 'toward', 'towards', 'under', 'underneath', 'until', 'unto', 'up', 'upon', 'via', 'with',
-  'within', 'without',
-  // conjunctions and subordinators
-  'and', 'but', 'or', 'so', 'yet', 'because', 'although', 'though', 'while', 'whilst', 'whereas',
-  'if', 'unless', 'whether', 'once', 'when', 'whenever', 'where', 'wherever', 'whereby', 'why', 'how',
-  'however', 'therefore', 'thus', 'hence', 'also', 'then', 'else', 'otherwise', 'instead',
-  // auxiliaries and modals, with the forms wink-nlp's contractions expand to
-  'be', 'am', 'is', 'are', 'was', 'were', 'been', 'being', 'have', 'has', 'had', 'having', 'do',
-  'does', 'did', 'doing', 'done', 'will', 'would', 'shall', 'should', 'can', 'could', 'may', 'might',
-  'must', 'ought', 'need', 'dare', "'s", "'re", "'ve", "'d", "'ll", "'m",
-  // degree and sentence adverbs, existential there, infinitive marker, discourse fillers
-  'very', 'too', 'quite', 'rather', 'just', 'only', 'even', 'still', 'already', 'again', 'ever',
-  'here', 'there', 'now', 'well', 'almost', 'enough', 'perhaps', 'yes', 'oh', 'etc',
-];
+export const FUNCTION_WORD_CLASSES = {
+  determiner: ['a', 'an', 'the', 'this', 'that', 'these', 'those', 'each', 'every', 'either', 'some', 'any', 'both',
+    'such', 'own', 'other', 'another', 'same', 'what', 'which', 'whose', 'whatever', 'whichever'],
+  pronoun: ['i', 'me', 'my', 'mine', 'myself', 'we', 'us', 'our', 'ours', 'ourselves', 'you', 'your', 'yours',
+    'yourself', 'yourselves', 'he', 'him', 'his', 'himself', 'she', 'her', 'hers', 'herself', 'it', 'its',
+    'itself', 'they', 'them', 'their', 'theirs', 'themselves', 'who', 'whom', 'whoever', 'someone', 'somebody',
+    'something', 'anyone', 'anybody', 'anything', 'everyone', 'everybody', 'everything'],
+  preposition: ['about', 'above', 'across', 'after', 'against', 'along', 'among', 'amongst', 'around', 'as', 'at',
+    'before', 'behind', 'below', 'beneath', 'beside', 'besides', 'between', 'beyond', 'by', 'down', 'during',
+    'for', 'from', 'in', 'inside', 'into', 'like', 'near', 'of', 'off', 'on', 'onto', 'out', 'outside', 'over',
+    'past', 'per', 'since', 'through', 'throughout', 'till', 'to', 'toward', 'towards', 'under', 'underneath',
+    'until', 'unto', 'up', 'upon', 'via', 'with', 'within'],
+  conjunction: ['and', 'or', 'so', 'because', 'while', 'whilst', 'if', 'unless', 'whether', 'once', 'when',
+    'whenever', 'where', 'wherever', 'whereby', 'why', 'how', 'therefore', 'thus', 'hence', 'also', 'then', 'else'],
+  auxiliary: ['be', 'am', 'is', 'are', 'was', 'were', 'been', 'being', 'have', 'has', 'had', 'having', 'do',
+    'does', 'did', 'doing', 'done', 'will', 'would', 'shall', 'should', 'can', 'could', 'may', 'might', 'must',
+    'ought', "'s", "'re", "'ve", "'d", "'ll", "'m"],
+  adverb: ['here', 'there', 'now', 'etc'],
+} as const;
 
 /**
- * Light words: very frequent verbs with little meaning of their own ("get", "make", "take"),
- * number words and vague nouns and adverbs. Not closed-class, so more often part of a topic than
- * the words above — they join the prior last, and the what-if decides for each group.
+ * Closed-class words that change what a sentence says rather than only how it is built:
+ * negations, degree words (intensifiers), contrast and concession, quantity. On opinion text they
+ * carry the opinion (methods §8: every list that removed them lowered precision on rated
+ * reviews), so the method only suggests them where they are in more than half the documents of
+ * a corpus that does not read as opinion text.
  */
-export const ENGLISH_LIGHT_WORDS: readonly string[] = [
-  'get', 'gets', 'got', 'gotten', 'getting', 'go', 'goes', 'went', 'gone', 'going', 'make', 'makes',
-  'made', 'making', 'take', 'takes', 'took', 'taken', 'taking', 'come', 'comes', 'came', 'coming',
-  'give', 'gives', 'gave', 'given', 'put', 'puts', 'keep', 'keeps', 'kept', 'let', 'lets', 'say',
-  'says', 'said', 'see', 'sees', 'saw', 'seen', 'seem', 'seems', 'seemed', 'become', 'becomes',
-  'became', 'find', 'found', 'show', 'shows', 'shown', 'call', 'called', 'use', 'used', 'using',
-  'want', 'wants', 'wanted', 'know', 'knows', 'knew', 'known', 'think', 'thought', 'tell', 'told',
-  'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'hundred',
-  'thousand', 'first', 'second', 'third', 'last', 'next', 'thing', 'things', 'way', 'ways', 'lot',
-  'lots', 'kind', 'sort', 'part', 'always', 'often', 'sometimes', 'usually', 'really', 'actually',
-  'maybe', 'anyway', 'away', 'back', 'together', 'further', 'indeed', 'please', 'sure', 'ok', 'okay',
-];
+export const MEANING_WORDS = {
+  negation: ['no', 'not', 'nor', 'never', 'none', 'nobody', 'nothing', 'nowhere', 'neither', 'cannot', 'without'],
+  degree: ['very', 'too', 'quite', 'rather', 'just', 'only', 'even', 'still', 'already', 'again', 'ever', 'enough',
+    'almost', 'really', 'well', 'much', 'more', 'most', 'less', 'least'],
+  contrast: ['but', 'yet', 'however', 'although', 'though', 'whereas', 'despite', 'except', 'otherwise', 'instead',
+    'than'],
+  quantity: ['all', 'many', 'few', 'several'],
+} as const;
+
+export type WordClass = keyof typeof FUNCTION_WORD_CLASSES | keyof typeof MEANING_WORDS;
+
+/** Every word of the prior with its class. */
+export function wordClasses(): Map<string, WordClass> {
+  const out = new Map<string, WordClass>();
+  for (const [cls, words] of Object.entries(MEANING_WORDS)) for (const w of words) out.set(w, cls as WordClass);
+  for (const [cls, words] of Object.entries(FUNCTION_WORD_CLASSES)) for (const w of words) out.set(w, cls as WordClass);
+  return out;
+}
+
+export function isMeaningClass(cls: WordClass): boolean {
+  return cls in MEANING_WORDS;
+}

@@ -1,38 +1,41 @@
 import type { TermIndex } from '../what-if/term-index';
-import { ENGLISH_FUNCTION_WORDS, ENGLISH_LIGHT_WORDS } from './function-words';
+import { MARKUP_NAMES } from './markup-names';
+import { wordClasses, type WordClass } from './function-words';
+
+export type PriorClass = WordClass | 'markup' | 'phrase';
 
 /**
- * Columns of the vocabulary that the function-word prior names, spelled the way the tokenizer
- * spells them (lower-cased, stemmed, …). With bigrams on, a bigram made only of function words
- * ("of the") belongs to the prior too.
+ * Columns of the vocabulary the prior names, each with its class, spelled the way the tokenizer
+ * spells them (lower-cased, stemmed, …). With bigrams on, a bigram of two closed-class words
+ * ("of the") is a 'phrase'. A word the tokenizer splits ("cannot" → "can" + "not") names no column.
  */
-export function priorColumns(
-  index: TermIndex,
-  tokenize: (text: string) => string[],
-  bigrams: boolean,
-  words: readonly string[] = ENGLISH_FUNCTION_WORDS,
-): Set<number> {
-  const forms = new Set<string>();
-  for (const word of words) for (const form of tokenize(word)) if (!form.includes(' ')) forms.add(form);
-  const columns = new Set(index.columnsOf(forms));
+export function priorColumns(index: TermIndex, tokenize: (text: string) => string[], bigrams: boolean): Map<number, PriorClass> {
+  const out = new Map<number, PriorClass>();
+  const forms = new Map<string, PriorClass>();
+  const add = (word: string, cls: PriorClass): void => {
+    const tokens = tokenize(word);
+    if (tokens.length === 1 && !tokens[0]!.includes(' ') && !forms.has(tokens[0]!)) forms.set(tokens[0]!, cls);
+  };
+  for (const [word, cls] of wordClasses()) add(word, cls);
+  for (const word of MARKUP_NAMES) add(word, 'markup');
+  for (const [form, cls] of forms) {
+    const c = index.column(form);
+    if (c !== undefined) out.set(c, cls);
+  }
   if (bigrams) {
     for (let j = 0; j < index.terms.length; j++) {
       const term = index.terms[j]!;
       const space = term.indexOf(' ');
-      if (space > 0 && forms.has(term.slice(0, space)) && forms.has(term.slice(space + 1))) columns.add(j);
+      if (space <= 0) continue;
+      const a = forms.get(term.slice(0, space));
+      const b = forms.get(term.slice(space + 1));
+      if (a !== undefined && b !== undefined && a !== 'markup' && b !== 'markup') out.set(j, 'phrase');
     }
   }
-  return columns;
+  return out;
 }
 
-/** Columns of the light words (see ENGLISH_LIGHT_WORDS) that are not function words already. */
-export function lightWordColumns(index: TermIndex, tokenize: (text: string) => string[], functionWords: ReadonlySet<number>): Set<number> {
-  const columns = priorColumns(index, tokenize, false, ENGLISH_LIGHT_WORDS);
-  for (const c of functionWords) columns.delete(c);
-  return columns;
-}
-
-/** Columns of the protected words (negations by default), in the tokenizer's spelling. */
+/** Columns of the protected words ("suggest.protect"), in the tokenizer's spelling. */
 export function protectedColumns(index: TermIndex, tokenize: (text: string) => string[], words: readonly string[]): Set<number> {
   const forms = new Set<string>();
   for (const word of words) {

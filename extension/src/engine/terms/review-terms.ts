@@ -1,13 +1,15 @@
-import type { EffectiveSettings, TermRow } from '../../protocol';
+import type { EffectiveSettings, TermRow, Verdict } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread, termSums } from '../measures/term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
-import { SampleProbe } from '../what-if/sample-probe';
 import type { TermIndex } from '../what-if/term-index';
+import { chooseSuggestions, type Decision } from './choose-suggestions';
 import { explainTerm } from './explain-term';
-import { lightWordColumns, priorColumns, protectedColumns } from './prior-columns';
-import { suggestTerms } from './suggest-terms';
+import { judgeSuggestions } from './judge-suggestions';
+import { OPINION_SHARE, opinionShare } from './opinion-check';
+import { priorColumns, protectedColumns } from './prior-columns';
+import type { TermCountStats } from './term-count-stats';
 import { termScores, type TermScores } from './term-scores';
 
 export interface TermReviewInput {
@@ -19,6 +21,10 @@ export interface TermReviewInput {
   index: TermIndex;
   tokenize: (text: string) => string[];
   settings: EffectiveSettings;
+  /** Exact raw-count sums of the whole corpus (term-count-stats.ts). */
+  counts: TermCountStats;
+  /** The opening text of every document, for the opinion check. */
+  previews: readonly string[];
 }
 
 export interface TermReview {
@@ -26,53 +32,50 @@ export interface TermReview {
   suggestions: string[];
   /** The measures with the suggestions removed (turnover against the baseline). */
   suggested: DistanceResult;
-  evaluations: number;
+  /** Share of sampled documents with a clear opinion, and whether that made it opinion text. */
+  opinion: { share: number; opinionText: boolean };
+  /** The mask with the project's list and the suggestions. */
+  suggestedMask: Uint8Array;
+  verdict: Verdict;
 }
 
-/** How many loud candidates the what-if looks at after the prior. */
-const LOUD_CANDIDATES = 64;
+/** Documents read for the opinion check: enough for a share to ±0.05. */
+const OPINION_SAMPLE = 400;
 /** Rows in the Report's term table beyond the suggested, stopped and protected ones. */
 const REPORT_ROWS = 2000;
 
 /**
- * Scores every term, picks the suggestions (checked by the what-if) and writes the term table.
- * Neighbour lift is measured against the neighbours of the *suggested* setting: on the raw
- * corpus the neighbours are themselves picked by the loud terms, which flatters them
- * (docs/methods.md §8).
+ * Chooses the suggestions from exact per-term statistics (choose-suggestions.ts), measures what
+ * they do, and writes the term table. Neighbour lift is measured against the neighbours of the
+ * *suggested* setting: on the raw corpus the neighbours are themselves picked by the loud terms,
+ * which flatters them (docs/methods.md §8).
  */
 export function reviewTerms(input: TermReviewInput): TermReview {
-  const { lab, baseMask, baseline, documents, idf, index, tokenize, settings } = input;
+  const { lab, baseMask, baseline, documents, idf, index, tokenize, settings, counts } = input;
   const cols = lab.weights.cols;
-  const basePairMass = baseline.pairMass.perTerm;
-  const functionWords = settings.suggest.functionWordPrior ? priorColumns(index, tokenize, settings.tokens.ngrams === 2) : new Set<number>();
-  const lightWords = settings.suggest.functionWordPrior ? lightWordColumns(index, tokenize, functionWords) : new Set<number>();
-  const prior = new Set([...functionWords, ...lightWords]);
+  const prior = priorColumns(index, tokenize, settings.tokens.ngrams === 2);
   const protect = protectedColumns(index, tokenize, settings.suggest.protect);
-  const open = (c: number): boolean => baseMask[c] === 0 && !protect.has(c) && basePairMass[c]! > 0;
-
-  // Closed-class words first, heaviest first; the light words after them.
-  const heaviestFirst = (cols: Set<number>): number[] => [...cols].filter(open).sort((a, b) => basePairMass[b]! - basePairMass[a]!);
-  const priorOrder = [...heaviestFirst(functionWords), ...heaviestFirst(lightWords)];
-  const probe = new SampleProbe(lab.sampleRows, lab.k, lab.sampleLabels);
-  const plan = suggestTerms({
-    probe,
-    baseMask,
-    baseline: probe.evaluate(baseMask),
-    priorColumns: priorOrder,
-    max: settings.suggest.max,
-    rankLoudColumns(neighbors, accepted) {
-      const scores = termScores(basePairMass, knnTermMass(probe.maskedRows(baseMask), probe.identity, neighbors, lab.k));
-      const loud: number[] = [];
-      for (let c = 0; c < cols; c++) {
-        if (!open(c) || accepted.has(c) || prior.has(c)) continue;
-        if (scores.neighborLift[c]! < 1) loud.push(c);
-      }
-      // Heaviest first: a term that pulls little cannot change the distances much either way.
-      loud.sort((a, b) => scores.pullShare[b]! - scores.pullShare[a]!);
-      return loud.slice(0, LOUD_CANDIDATES);
-    },
+  // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
+  const share = opinionShare(evenlySpaced(input.previews, OPINION_SAMPLE));
+  const opinionText = share >= OPINION_SHARE;
+  const decisions = chooseSuggestions({
+    stats: counts,
+    prior,
+    // Decisions do not depend on the stop list: a stopped term is judged like any other, so its
+    // row can say whether the rule agrees with the list.
+    stopped: new Uint8Array(cols),
+    protect,
+    opinion: opinionText,
+    usePrior: settings.suggest.functionWordPrior,
   });
-  const suggested = lab.measure(DistanceLab.union(baseMask, plan.accepted), baseline.neighbors);
+
+  const basePairMass = baseline.pairMass.perTerm;
+  // Heaviest first, so that `suggest.max` keeps the terms that pull the most.
+  const accepted = [...decisions].filter(([c, d]) => d.suggested && baseMask[c] === 0).map(([c]) => c);
+  accepted.sort((a, b) => basePairMass[b]! - basePairMass[a]! || a - b);
+  accepted.length = Math.min(accepted.length, settings.suggest.max);
+  const suggestedMask = DistanceLab.union(baseMask, accepted);
+  const suggested = lab.measure(suggestedMask, baseline.neighbors);
 
   // Scores for the table: kept terms on the baseline weights; stopped terms as if un-stopped.
   const baseSums = lab.sums(baseMask, true).sums;
@@ -86,9 +89,8 @@ export function reviewTerms(input: TermReviewInput): TermReview {
     fullSpread = termSpread(fullSums, documents);
   }
 
-  const suggestedSet = new Set(plan.accepted);
-  const rejectedSet = new Set(plan.rejected);
-  const chosen = chooseRows(cols, baseMask, suggestedSet, protect, baseScores);
+  const suggestedSet = new Set(accepted);
+  const chosen = chooseRows(cols, baseMask, suggestedSet, protect, decisions, baseScores);
   const rows: TermRow[] = chosen.map((c) => {
     const stopped = baseMask[c] === 1;
     const scores = stopped && fullScores !== null ? fullScores : baseScores;
@@ -105,18 +107,34 @@ export function reviewTerms(input: TermReviewInput): TermReview {
       status,
       why: '',
     };
-    row.why = explainTerm(row, documents, { fromPrior: plan.fromPrior.has(c), rejected: rejectedSet.has(c) });
+    const decision = decisions.get(c) ?? null;
+    if (stopped) row.ruleWouldSuggest = decision?.suggested === true;
+    row.why = explainTerm(row, documents, decision);
     return row;
   });
   rows.sort((a, b) => b.loudness - a.loudness || b.pullShare - a.pullShare);
-  const suggestions = plan.accepted.map((c) => index.terms[c]!);
-  return { rows, suggestions, suggested, evaluations: plan.evaluations };
+  const suggestions = accepted.map((c) => index.terms[c]!);
+  const opinion = { share, opinionText };
+  const verdict = judgeSuggestions({ lab, baseMask, suggestedMask, suggestions, baseline: baseline.measures, suggested: suggested.measures, opinion });
+  return { rows, suggestions, suggested, opinion, suggestedMask, verdict };
 }
 
-/** Every suggested, stopped and protected term, then the loudest and the heaviest of the rest. */
-function chooseRows(cols: number, baseMask: Uint8Array, suggested: Set<number>, protect: Set<number>, scores: TermScores): number[] {
+function evenlySpaced(texts: readonly string[], max: number): string[] {
+  if (texts.length <= max) return [...texts];
+  return Array.from({ length: max }, (_, i) => texts[Math.floor((i * texts.length) / max)]!);
+}
+
+/** Every suggested, stopped, protected and ruled-on term, then the loudest and heaviest of the rest. */
+function chooseRows(
+  cols: number,
+  baseMask: Uint8Array,
+  suggested: Set<number>,
+  protect: Set<number>,
+  decisions: ReadonlyMap<number, Decision>,
+  scores: TermScores,
+): number[] {
   const chosen = new Set<number>();
-  for (let c = 0; c < cols; c++) if (baseMask[c] === 1 || suggested.has(c) || protect.has(c)) chosen.add(c);
+  for (let c = 0; c < cols; c++) if (baseMask[c] === 1 || suggested.has(c) || protect.has(c) || decisions.has(c)) chosen.add(c);
   const rest: number[] = [];
   for (let c = 0; c < cols; c++) if (!chosen.has(c) && scores.pullShare[c]! > 0) rest.push(c);
   const byLoudness = [...rest].sort((a, b) => scores.loudness[b]! - scores.loudness[a]!);

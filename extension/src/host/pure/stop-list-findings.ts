@@ -52,7 +52,9 @@ export function stopListFindings(stopListText: string, report: Report, max = 100
   const unused = new Set(report.stopList.unused);
   const lift = new Map<string, number>();
   for (const row of report.terms) {
-    if (row.status === 'stopped' && row.neighborLift !== null && row.neighborLift >= NEIGHBOR_SIGNAL_LIFT) lift.set(row.term, row.neighborLift);
+    // A term the suggestion rule would suggest itself is never flagged: applying the suggestions
+    // must not raise warnings on the terms just added (the rule's reasons are in its `why`).
+    if (row.status === 'stopped' && row.ruleWouldSuggest !== true && row.neighborLift !== null && row.neighborLift >= NEIGHBOR_SIGNAL_LIFT) lift.set(row.term, row.neighborLift);
   }
   const findings: StopListFinding[] = [];
   for (const entry of stopListEntries(stopListText, report.settings.tokens.lowercase)) {

@@ -1,0 +1,101 @@
+import { isMeaningClass } from './function-words';
+import type { PriorClass } from './prior-columns';
+import { termSignal, type TermSignal } from './term-signals';
+import type { TermCountStats } from './term-count-stats';
+
+/** Why a term is suggested, or why a term the rules looked at is kept. */
+export type Decision =
+  | { suggested: true; reason: 'everywhere' | 'grammar' | 'markup'; signal: TermSignal; cls: PriorClass | null }
+  | { suggested: false; reason: 'bursty' | 'opinion' | 'protected'; signal: TermSignal; cls: PriorClass | null };
+
+/**
+ * Above this document fraction a term is suggested whatever it is: the max_df = 0.5 practice
+ * (Luhn 1958; scikit-learn's max_df), which held on every corpus measured (methods §8). Not tuned.
+ */
+export const EVERYWHERE = 0.5;
+/**
+ * A prior word is kept when its burstiness is clearly above that of this corpus's typical content
+ * word (b − Z·se > the median burstiness of the terms outside the prior that are in at least
+ * CONTENT_DF of the documents): the corpus shows it clusters like its topic words do. Relative,
+ * because how bursty words are depends on how mixed the corpus is (docs/methods.md §9).
+ * Z = 2 is the usual two standard errors; CONTENT_DF keeps one-off words out of the median.
+ * FALLBACK_LIMIT is used when no content term qualifies.
+ */
+export const BURST_Z = 2;
+export const CONTENT_DF = 0.01;
+export const FALLBACK_LIMIT = 1;
+
+/** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents. */
+export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<number, PriorClass>): number {
+  const values: number[] = [];
+  for (let c = 0; c < stats.df.length; c++) {
+    if (prior.has(c) || stats.documents === 0 || stats.df[c]! / stats.documents < CONTENT_DF) continue;
+    const b = termSignal(stats, c).burstiness;
+    if (Number.isFinite(b)) values.push(b);
+  }
+  if (values.length === 0) return FALLBACK_LIMIT;
+  values.sort((a, b) => a - b);
+  const h = values.length >> 1;
+  return values.length % 2 === 1 ? values[h]! : (values[h - 1]! + values[h]!) / 2;
+}
+
+export interface ChoiceInput {
+  stats: TermCountStats;
+  /** Prior columns with their class (closed-class words, markup names). */
+  prior: ReadonlyMap<number, PriorClass>;
+  /** Columns the project already stops: never suggested again. */
+  stopped: Uint8Array;
+  /** Columns of `suggest.protect`: never suggested. */
+  protect: ReadonlySet<number>;
+  /** The corpus reads as opinion text (opinion-check.ts). */
+  opinion: boolean;
+  /** With the function-word prior off, only the document-fraction rule is used. */
+  usePrior: boolean;
+}
+
+/**
+ * The suggestion rule (docs/methods.md §9). Every input is an exact per-term sum over the whole
+ * corpus, computed without the stop list, so the result does not depend on the sample or its
+ * seed, and stopping one term by hand changes no other term's decision.
+ * - Any term in more than half the documents is suggested (but on opinion text, not a negation,
+ *   degree or contrast word).
+ * - A prior word (closed-class, markup residue) is suggested unless the corpus shows it is
+ *   burstier than its typical content word (it then carries a topic here).
+ * - On opinion text, the meaning-bearing prior words are kept and only markup residue, the
+ *   grammar words in more than half the documents, and nothing else is suggested.
+ * Returns a decision for every column the rules looked at; the rest are plain kept terms.
+ */
+export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
+  const { stats, prior, stopped, protect, opinion, usePrior } = input;
+  const out = new Map<number, Decision>();
+  const cols = stats.df.length;
+  const limit = contentBurstiness(stats, prior);
+  for (let c = 0; c < cols; c++) {
+    if (stopped[c] === 1 || stats.df[c]! === 0) continue;
+    const cls = prior.get(c) ?? null;
+    const inPrior = usePrior && cls !== null;
+    const signal = termSignal(stats, c);
+    const everywhere = signal.docFraction > EVERYWHERE;
+    if (!everywhere && !inPrior) continue;
+    if (protect.has(c)) {
+      out.set(c, { suggested: false, reason: 'protected', signal, cls });
+      continue;
+    }
+    const meaning = cls !== null && cls !== 'markup' && cls !== 'phrase' && isMeaningClass(cls);
+    if (opinion) {
+      if (cls === 'markup' && inPrior) out.set(c, { suggested: true, reason: 'markup', signal, cls });
+      else if (meaning) out.set(c, { suggested: false, reason: 'opinion', signal, cls });
+      else if (everywhere) out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
+      else out.set(c, { suggested: false, reason: 'opinion', signal, cls });
+      continue;
+    }
+    if (everywhere) {
+      out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
+      continue;
+    }
+    const bursty = signal.burstiness - BURST_Z * signal.burstinessSe > limit;
+    if (bursty) out.set(c, { suggested: false, reason: 'bursty', signal, cls });
+    else out.set(c, { suggested: true, reason: cls === 'markup' ? 'markup' : 'grammar', signal, cls });
+  }
+  return out;
+}

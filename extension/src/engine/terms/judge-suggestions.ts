@@ -1,0 +1,101 @@
+import type { Measures, Verdict } from '../../protocol';
+import type { DistanceLab } from '../what-if/distance-lab';
+import { pairedBootstrap } from './paired-bootstrap';
+import { perQueryQuality } from './per-query-quality';
+
+/** Bootstrap draws behind the verdict's interval. */
+export const VERDICT_DRAWS = 400;
+
+export interface JudgeInput {
+  lab: DistanceLab;
+  baseMask: Uint8Array;
+  suggestedMask: Uint8Array;
+  suggestions: readonly string[];
+  baseline: Measures;
+  suggested: Measures;
+  opinion: { share: number; opinionText: boolean };
+}
+
+const f2 = (x: number): string => x.toFixed(2);
+const f3 = (x: number): string => x.toFixed(3);
+const signed = (x: number, digits: number): string => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(digits)}`;
+const pct = (x: number): string => `${Math.round(x * 100)}%`;
+
+/**
+ * The one judgement a review leads with (Report.verdict): what the suggested list does to
+ * neighbour quality on the sample, with a 95% paired-bootstrap interval over the sampled queries.
+ * With labels the quantity is label precision@k; the suggestions never use the labels
+ * (choose-suggestions.ts), so every sampled document is held out and the figure is honest.
+ * Without labels it is neighbour standout, a proxy (docs/methods.md §8 shows it can rise while
+ * precision falls), and the headline says so.
+ */
+export function judgeSuggestions(input: JudgeInput): Verdict {
+  const { lab, suggestions, baseline, suggested, opinion } = input;
+  const caveats = caveatsOf(baseline, suggested);
+  if (suggestions.length === 0) {
+    return {
+      outcome: 'nothing suggested',
+      headline: opinion.opinionText
+        ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
+        : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
+      estimate: null,
+      caveats: [],
+    };
+  }
+  const labels = lab.sampleLabels;
+  const before = perQueryQuality(lab.maskedSample(input.baseMask), lab.k, labels);
+  const after = perQueryQuality(lab.maskedSample(input.suggestedMask), lab.k, labels);
+  const useLabels = before.precision !== null && after.precision !== null;
+  const boot = useLabels
+    ? pairedBootstrap(before.precision!, after.precision!, 'mean', VERDICT_DRAWS, lab.seed)
+    : pairedBootstrap(before.standout, after.standout, 'median', VERDICT_DRAWS, lab.seed);
+  const list = `The suggested list (${suggestions.length} term${suggestions.length === 1 ? '' : 's'})`;
+  if (boot === null) {
+    return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats };
+  }
+  const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
+  const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const };
+  const digits = useLabels ? 3 : 2;
+  const interval = `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${boot.queries} sampled documents`;
+  const outcome: Verdict['outcome'] = boot.low > 0 ? 'helps' : boot.high < 0 ? 'hurts' : 'no clear change';
+  let headline: string;
+  if (useLabels) {
+    const from = `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
+    const verb = outcome === 'helps' ? 'raises' : outcome === 'hurts' ? 'lowers' : 'does not clearly change';
+    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, 3)}; ${interval}). The list was chosen without the labels, so every sampled document is held out.`;
+    if (outcome === 'no clear change') headline += ' A difference this small needs a larger sample (sample.documents) to resolve.';
+  } else {
+    const verb = outcome === 'helps' ? 'makes nearest neighbours stand out more' : outcome === 'hurts' ? 'makes nearest neighbours stand out less' : 'does not clearly change how much nearest neighbours stand out';
+    headline = `${list} ${verb}: ${measure} ${signed(boot.change, 2)} (${interval}). Without labels this is a proxy for neighbour quality; pass --label to measure precision.`;
+  }
+  return { outcome, headline, estimate, caveats };
+}
+
+/** Measures that moved the unhealthy way, each with the reason it usually does so. */
+export function caveatsOf(before: Measures, after: Measures): Verdict['caveats'] {
+  const out: Verdict['caveats'] = [];
+  const h0 = before.hubness;
+  const h1 = after.hubness;
+  if (h0 !== null && h1 !== null) {
+    if (h1.skewness > h0.skewness + 0.05) {
+      out.push({ measure: 'hubness', sentence: `Hubness skew rose (${f2(h0.skewness)} → ${f2(h1.skewness)}): without the shared grammar words, documents that share rarer words become everyone's neighbour; look at the hub list.` });
+    }
+    if (h1.orphans > h0.orphans) {
+      out.push({ measure: 'orphans', sentence: `More documents are in no neighbour list (${h0.orphans} → ${h1.orphans}): short documents lose much of their text to the list and drift apart from everything.` });
+    }
+  }
+  if (before.contrast !== null && after.contrast !== null && after.contrast.median < before.contrast.median) {
+    out.push({ measure: 'relative contrast', sentence: `Relative contrast fell (${f2(before.contrast.median)} → ${f2(after.contrast.median)}): on text it falls as neighbours improve, because removing shared words makes far documents farther too (docs/methods.md §4).` });
+  }
+  if (after.backgroundSimilarity > before.backgroundSimilarity) {
+    out.push({ measure: 'background similarity', sentence: `Background similarity rose (${f3(before.backgroundSimilarity)} → ${f3(after.backgroundSimilarity)}): the removed terms were rarer than what remains, so what every pair shares grew.` });
+  }
+  const p0 = before.labelPrecisionAtK;
+  const p1 = after.labelPrecisionAtK;
+  const s0 = before.neighborStandout;
+  const s1 = after.neighborStandout;
+  if (p0 !== null && p1 !== null && s0 !== null && s1 !== null && p1 < p0 && s1 > s0) {
+    out.push({ measure: 'neighbour standout', sentence: `Neighbour standout rose (${f2(s0)} → ${f2(s1)}) while label precision fell: neighbours stand out more but agree less with the labels.` });
+  }
+  return out;
+}

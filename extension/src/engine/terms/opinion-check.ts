@@ -1,0 +1,39 @@
+import type { WinkMethods } from 'wink-nlp';
+
+/**
+ * Share of documents that carry a clear opinion, by wink-nlp's sentiment scorer (a general
+ * English sentiment lexicon with negation handling, the library's `its.sentiment`, in −1..1).
+ * Read on the first characters of a sample of documents: enough for short texts, which is where
+ * the question matters.
+ */
+export function opinionShare(texts: readonly string[]): number {
+  if (texts.length === 0) return 0;
+  const nlp = sentimentInstance();
+  let strong = 0;
+  for (const text of texts) {
+    const s = nlp.readDoc(text).out(nlp.its.sentiment) as unknown as number;
+    if (Math.abs(s) >= STRONG_SENTIMENT) strong++;
+  }
+  return strong / texts.length;
+}
+
+/** |sentiment| from which a text reads as a clear opinion (wink's scale; common practice, no source). */
+export const STRONG_SENTIMENT = 0.25;
+
+/**
+ * When at least this share of documents carries a clear opinion, the corpus reads as opinion
+ * text: its labels, if any, are likely ratings or stances, and negations, intensifiers and
+ * contrast words carry them (docs/methods.md §9). Set above every topic-labelled corpus of the
+ * development set (highest 0.31: fortunes and the State of the Union addresses); no opinion
+ * corpus was at hand to tune it on, so it is a bound, not a fit.
+ */
+export const OPINION_SHARE = 0.45;
+
+let instance: WinkMethods | null = null;
+function sentimentInstance(): WinkMethods {
+  if (instance === null) {
+    const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
+    instance = winkNLP(require('wink-eng-lite-web-model'), ['sbd', 'negation', 'sentiment']);
+  }
+  return instance;
+}

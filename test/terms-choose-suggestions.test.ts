@@ -1,0 +1,88 @@
+// The suggestion rule (docs/methods.md §9) on hand-made count matrices whose signals are known
+// by construction. Sources: max_df = 0.5 as scikit-learn documents it (TfidfVectorizer);
+// burstiness from Church & Gale (1995), "Poisson mixtures".
+import { strict as assert } from 'node:assert';
+import { chooseSuggestions, contentBurstiness, type Decision } from '../extension/src/engine/terms/choose-suggestions';
+import { termSignal } from '../extension/src/engine/terms/term-signals';
+import type { PriorClass } from '../extension/src/engine/terms/prior-columns';
+import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
+import { csrOf } from './support/csr-of';
+
+// 40 documents of 100 tokens. Columns:
+// 0 'everywhere'  5 in every document                        (content word, df 1.0)
+// 1 'grammar'     2 in each of the first 20                  (prior: preposition, df 0.5, even)
+// 2 'topical'    40 in each of documents 0..1, 0 elsewhere   (prior: pronoun, df 0.05, bursty)
+// 3 'negation'    1 in each of the first 10                  (prior: negation, df 0.25)
+// 4 'content'     3 in each of the first 10                  (no prior, df 0.25)
+// 5 'markup'      1 in each of the first 4                   (prior: markup, df 0.1)
+// 6 'degree'      1 in each of the first 30                  (prior: degree word, df 0.75)
+// 7 filler to make every document 100 tokens long
+function corpus(): ReturnType<typeof termCountStats> {
+  const dense: number[][] = [];
+  for (let d = 0; d < 40; d++) {
+    const row = [5, d < 20 ? 2 : 0, d < 2 ? 40 : 0, d < 10 ? 1 : 0, d < 10 ? 3 : 0, d < 4 ? 1 : 0, d < 30 ? 1 : 0, 0];
+    row[7] = 100 - row.reduce((a, b) => a + b, 0);
+    dense.push(row);
+  }
+  return termCountStats(csrOf(dense));
+}
+const PRIOR = new Map<number, PriorClass>([[1, 'preposition'], [2, 'pronoun'], [3, 'negation'], [5, 'markup'], [6, 'degree']]);
+
+function decide(opinion: boolean, protect: number[] = [], usePrior = true): Map<number, Decision> {
+  const stats = corpus();
+  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior });
+}
+const brief = (d: Decision | undefined): string => (d === undefined ? '—' : `${d.suggested ? 'suggest' : 'keep'}:${d.reason}`);
+
+describe('chooseSuggestions', () => {
+  it('contentBurstiness: the median burstiness of the non-prior terms in ≥ 1% of documents (by hand)', () => {
+    // Non-prior columns 0, 4, 7. Column 0: 5 in every 100-token document, b = −1/5.
+    // Column 4: 3 in each of 10 of 40 documents: μ = 0.75, Σ(c−μ)² = 10·2.25² + 30·0.75² = 67.5,
+    // Σμ = 30, Σμ² = 22.5 → b = 37.5/22.5 = 5/3. Column 7 (filler) lies between: the median is it.
+    const stats = corpus();
+    const b0 = termSignal(stats, 0).burstiness;
+    const b4 = termSignal(stats, 4).burstiness;
+    const b7 = termSignal(stats, 7).burstiness;
+    assert.ok(Math.abs(b0 - -0.2) < 1e-12 && Math.abs(b4 - 5 / 3) < 1e-12, `${b0} ${b4}`);
+    assert.equal(contentBurstiness(stats, PRIOR), [b0, b4, b7].sort((a, b) => a - b)[1]);
+  });
+
+  it('chooseSuggestions: topic-labelled text — df > 0.5 always, grammar words unless burstier than the typical content word', () => {
+    const d = decide(false);
+    assert.equal(brief(d.get(0)), 'suggest:everywhere');
+    assert.equal(brief(d.get(1)), 'suggest:grammar'); // df exactly 0.5 is not "more than half"
+    assert.equal(brief(d.get(2)), 'keep:bursty');
+    assert.equal(brief(d.get(3)), 'suggest:grammar'); // b = −1 (by hand: (7.5 − 10)/2.5)
+    assert.equal(brief(d.get(4)), '—');
+    assert.equal(brief(d.get(5)), 'suggest:markup');
+    assert.equal(brief(d.get(6)), 'suggest:everywhere');
+    assert.equal(brief(d.get(7)), 'suggest:everywhere');
+  });
+
+  it('chooseSuggestions: opinion text — meaning words kept even above half, grammar words only above half, markup still suggested', () => {
+    const d = decide(true);
+    assert.equal(brief(d.get(0)), 'suggest:everywhere');
+    assert.equal(brief(d.get(1)), 'keep:opinion');
+    assert.equal(brief(d.get(3)), 'keep:opinion');
+    assert.equal(brief(d.get(5)), 'suggest:markup');
+    assert.equal(brief(d.get(6)), 'keep:opinion');
+  });
+
+  it('chooseSuggestions: suggest.protect wins over every rule; without the prior only df > 0.5 counts', () => {
+    assert.equal(brief(decide(false, [0]).get(0)), 'keep:protected');
+    const d = decide(false, [], false);
+    assert.equal(brief(d.get(1)), '—');
+    assert.equal(brief(d.get(5)), '—');
+    assert.equal(brief(d.get(0)), 'suggest:everywhere');
+  });
+
+  it('chooseSuggestions: already-stopped columns get no decision, and stopping one term changes no other decision', () => {
+    const stats = corpus();
+    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true });
+    const stopped = new Uint8Array(8);
+    stopped[1] = 1;
+    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true });
+    assert.equal(after.has(1), false);
+    for (const [c, d] of after) assert.equal(brief(d), brief(free.get(c)), `column ${c}`);
+  });
+});
