@@ -10,7 +10,7 @@ export type Decision =
 
 /**
  * Above this document fraction a term is suggested whatever it is: the max_df = 0.5 practice
- * (Luhn 1958; scikit-learn's max_df), which held on every corpus measured (methods §8). Not tuned.
+ * (Luhn 1958; scikit-learn's max_df), which held on every corpus measured (docs/methods.md §8). Not tuned.
  */
 export const EVERYWHERE = 0.5;
 /**

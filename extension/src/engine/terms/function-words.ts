@@ -27,7 +27,7 @@ export const FUNCTION_WORD_CLASSES = {
 /**
  * Closed-class words that change what a sentence says rather than only how it is built:
  * negations, degree words (intensifiers), contrast and concession, quantity. On opinion text they
- * carry the opinion (methods §8: every list that removed them lowered precision on rated
+ * carry the opinion (docs/methods.md §8: every list that removed them lowered precision on rated
  * reviews), so the method only suggests them where they are in more than half the documents of
  * a corpus that does not read as opinion text.
  */
