@@ -1,4 +1,4 @@
-import { promises as fs, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import type { Report } from '../protocol';
 import { isUserError } from '../engine/user-error';
@@ -16,20 +16,32 @@ import { checkWriteTarget, PathArgumentError, type NamedInput } from './output-p
 import { UserError } from '../engine/user-error';
 import { lineOfKey } from '../engine/config/confine-to-workspace';
 import { USAGE } from './usage';
+import { escapeControls, escapeJsonControls } from './terminal-text';
+import { describeSystemError, guardStdout, writeOutputFile, writeStdout } from './write-output';
 
 const EXIT = { ok: 0, input: 1, usage: 2, suggestions: 3, internal: 4 } as const;
 
+/** The corpus being reviewed, for a message about an error that names no file. */
+let currentCorpus: string | null = null;
+
+/** Everything printed goes through here: control characters from the corpus are shown escaped. */
+function say(text: string): Promise<void> {
+  return writeStdout(escapeControls(text));
+}
+
 async function main(argv: readonly string[]): Promise<number> {
+  guardStdout();
   const options = parseArgs(argv);
   if (options.command === 'help') {
-    process.stdout.write(USAGE);
+    await say(USAGE);
     return EXIT.ok;
   }
   if (options.command === 'version') {
-    process.stdout.write(`${LOUDWORD_VERSION}\n`);
+    await say(`${LOUDWORD_VERSION}\n`);
     return EXIT.ok;
   }
   const input = reviewInput(options);
+  currentCorpus = input.file;
   // Paths typed on the command line are checked before the (long) review starts.
   const inputs: NamedInput[] = [
     { role: 'the corpus', file: input.file },
@@ -43,7 +55,7 @@ async function main(argv: readonly string[]): Promise<number> {
 
   if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: report.stopList.file }]);
   await emit(render(report, options.format), options.out);
-  if (options.out !== null && !options.quiet) process.stderr.write(`loudword: wrote ${options.out}\n`);
+  if (options.out !== null && !options.quiet) process.stderr.write(escapeControls(`loudword: wrote ${options.out}\n`));
   return options.failOnSuggestions && report.suggestions.length > 0 ? EXIT.suggestions : EXIT.ok;
 }
 
@@ -62,25 +74,23 @@ function reviewInput(o: CliOptions): ReviewInput {
   return { file, configPath, overrides };
 }
 
+/** The report in `format`; text and Markdown with control characters escaped, JSON with C1/bidi as \u escapes. */
 function render(report: Report, format: CliOptions['format']): string {
   switch (format) {
     case 'json':
-      return JSON.stringify(report, null, 2) + '\n';
+      return escapeJsonControls(JSON.stringify(report, null, 2)) + '\n';
     case 'md':
-      return formatMarkdown(report);
+      return escapeControls(formatMarkdown(report));
     case 'html':
       return renderStandaloneReport(report, loadWebviewAssets(__dirname));
     case 'text':
-      return formatText(report);
+      return escapeControls(formatText(report));
   }
 }
 
 async function emit(text: string, out: string | null): Promise<void> {
-  if (out === null) {
-    process.stdout.write(text);
-    return;
-  }
-  await fs.writeFile(out, text);
+  if (out === null) await writeStdout(text);
+  else await writeOutputFile(out, text);
 }
 
 async function applySuggestions(report: Report, o: CliOptions, inputs: readonly NamedInput[]): Promise<number> {
@@ -88,7 +98,7 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   if (file === null) throw new UsageError('no stop list file is configured; give --stoplist FILE');
   checkStopListTarget(file, o, inputs);
   if (report.suggestions.length === 0) {
-    process.stdout.write(`No stop terms suggested; ${file} is unchanged.\n`);
+    await say(`No stop terms suggested; ${file} is unchanged.\n`);
     return EXIT.ok;
   }
   // Read again now, just before writing: the bytes the rename will be checked against.
@@ -98,12 +108,12 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
     ? `Left out ${result.unrepresentable.length} terms that ${file} (${list.encoding}) cannot hold: ${result.unrepresentable.join(', ')}\n`
     : '';
   if (result.added.length === 0) {
-    process.stdout.write(leftOut || `All ${report.suggestions.length} suggestions are already in ${file}.\n`);
+    await say(leftOut || `All ${report.suggestions.length} suggestions are already in ${file}.\n`);
     return EXIT.ok;
   }
   if (!o.dryRun) await replaceStopList(list, result.bytes);
   const verb = o.dryRun ? 'Would add' : 'Added';
-  process.stdout.write(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n${leftOut}`);
+  await say(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n${leftOut}`);
   return EXIT.ok;
 }
 
@@ -118,9 +128,29 @@ function checkStopListTarget(file: string, o: CliOptions, inputs: readonly Named
   }
 }
 
+/**
+ * Errors that come from the machine, not from a bug: a file system error with its path (a
+ * corpus that cannot be read half-way, a full disk) and a value too long for memory. One line,
+ * `file: what is wrong`, like a UserError; anything else is an internal error with its stack.
+ */
+function asOneLine(error: unknown): string | null {
+  const e = error as NodeJS.ErrnoException;
+  if (typeof e?.code === 'string' && /^E[A-Z]+$/.test(e.code)) {
+    const where = e.path ?? currentCorpus ?? '(unknown file)';
+    return `${where}: ${describeSystemError(e)} (${e.code}${e.syscall ? `, ${e.syscall}` : ''})`;
+  }
+  if (error instanceof RangeError && /Invalid string length|Array buffer allocation failed|Invalid array length/.test(error.message)) {
+    return `${currentCorpus ?? '(input)'}: a value too large to hold in memory (${error.message}); is there a line or field of hundreds of megabytes?`;
+  }
+  if ((error as { code?: string })?.code === 'ERR_STRING_TOO_LONG') {
+    return `${currentCorpus ?? '(input)'}: a value too large to hold in memory; is there a line or field of hundreds of megabytes?`;
+  }
+  return null;
+}
+
 function progressPrinter(o: CliOptions): ((stage: string) => void) | undefined {
   if (o.quiet || !process.stderr.isTTY) return undefined;
-  return (stage) => process.stderr.write(`loudword: ${stage}…\n`);
+  return (stage) => process.stderr.write(`loudword: ${escapeControls(stage)}…\n`);
 }
 
 main(process.argv.slice(2)).then(
@@ -128,15 +158,19 @@ main(process.argv.slice(2)).then(
     process.exitCode = code;
   },
   (error: unknown) => {
+    const oneLine = asOneLine(error);
     if (isUserError(error)) {
-      process.stderr.write(`loudword: ${error.describe()}\n`);
+      process.stderr.write(`loudword: ${escapeControls(error.describe())}\n`);
       process.exitCode = EXIT.input;
     } else if (error instanceof PathArgumentError) {
-      process.stderr.write(`loudword: ${error.message}\n`);
+      process.stderr.write(`loudword: ${escapeControls(error.message)}\n`);
       process.exitCode = EXIT.usage;
     } else if (error instanceof UsageError) {
-      process.stderr.write(`loudword: ${error.message}\nRun \`loudword --help\` for the options.\n`);
+      process.stderr.write(`loudword: ${escapeControls(error.message)}\nRun \`loudword --help\` for the options.\n`);
       process.exitCode = EXIT.usage;
+    } else if (oneLine !== null) {
+      process.stderr.write(`loudword: ${escapeControls(oneLine)}\n`);
+      process.exitCode = EXIT.input;
     } else {
       process.stderr.write(`loudword: internal error — please report it with the input that caused it.\n${(error as Error)?.stack ?? String(error)}\n`);
       process.exitCode = EXIT.internal;

@@ -36,14 +36,14 @@ export function sameFile(a: string, b: string): boolean {
 
 /**
  * Refuses a file Loudword would write (`flag` names where it came from) that is a directory,
- * lies in a folder that does not exist, or is one of `inputs`.
+ * lies in a folder that does not exist, or is one of `inputs`. A device or pipe (/dev/null,
+ * /dev/stdout) is allowed for --out; a stop list that is one is refused when it is read.
  */
 export function checkWriteTarget(flag: string, target: string, inputs: readonly NamedInput[]): void {
   const abs = path.resolve(target);
   const shown = target;
   const st = statOrNull(abs);
   if (st !== null && st.isDirectory()) throw new PathArgumentError(`${shown}: ${flag} names a directory; give a file name`);
-  if (st !== null && !st.isFile()) throw new PathArgumentError(`${shown}: ${flag} names a special file (not a regular file); give a regular file name`);
   const folder = path.dirname(abs);
   const fst = statOrNull(folder);
   if (fst === null) throw new PathArgumentError(`${shown}: ${flag} is in a folder that does not exist (${folder})`);

@@ -148,7 +148,12 @@ class StreamedCorpus implements CorpusSource {
 }
 
 async function readHead(file: string, length: number): Promise<Uint8Array> {
-  const handle = await open(file, 'r');
+  let handle;
+  try {
+    handle = await open(file, 'r');
+  } catch (e) {
+    throw new UserError(readErrorMessage('the corpus', e), file, null);
+  }
   try {
     const buffer = Buffer.alloc(length);
     let filled = 0;

@@ -2,7 +2,7 @@ import type { CorpusRow, SkippedRow } from './corpus-source';
 import type { CorpusLayout } from './corpus-layout';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { parseJsonlLine, scalarText } from './jsonl-value';
-import { LineSplitter } from './line-splitter';
+import { LineSplitter, MAX_LINE_CHARS } from './line-splitter';
 import { UserError } from '../user-error';
 
 /** How many skipped rows are kept with their reason; the rest are only counted. */
@@ -38,11 +38,11 @@ export function createRowSink(file: string, layout: CorpusLayout, state: PassSta
     case 'tsv':
       return tableSink(file, layout, skip, accept);
     case 'jsonl':
-      return lineSink((text, line) => jsonlRow(layout, text, line, skip, accept, state));
+      return lineSink((text, line) => jsonlRow(layout, text, line, skip, accept, state), skip);
     case 'text':
       return lineSink((text, line) => {
         if (text.trim() !== '') accept({ text, label: null, line });
-      });
+      }, skip);
   }
 }
 
@@ -100,8 +100,10 @@ function jsonlRow(
   accept({ text: value.text, label, line });
 }
 
-function lineSink(onLine: (text: string, line: number) => void): RowSink {
-  const splitter = new LineSplitter();
+function lineSink(onLine: (text: string, line: number) => void, skip: (line: number, reason: string) => void): RowSink {
+  const splitter = new LineSplitter(MAX_LINE_CHARS, (line, chars) =>
+    skip(line, `${(chars / 1024 / 1024).toFixed(0)} Mi characters on one line, more than the ${MAX_LINE_CHARS / 1024 / 1024} Mi a document may have (a minified or binary blob?)`),
+  );
   return {
     push: (chunk) => splitter.push(chunk, onLine),
     end: (cut) => splitter.end(onLine, cut),
