@@ -38,6 +38,7 @@ function report(terms: TermRow[], unused: string[], suggestions: string[] = [], 
     suggested: measures(0.068),
     terms,
     suggestions,
+    verdict: { outcome: 'nothing suggested', headline: '', estimate: null, caveats: [] },
     hubs: [],
     stopList: { file: '/p/stoplist.txt', terms: 4, unused },
   };

@@ -109,8 +109,8 @@ export interface Report {
   suggested: Measures;
   terms: TermRow[];
   suggestions: string[];
-  /** Filled by the suggestion step; optional only until every producer of a Report sets it. */
-  verdict?: Verdict | undefined;
+  /** What the suggested list does to neighbour quality, read first (engine/terms/judge-suggestions.ts). */
+  verdict: Verdict;
   hubs: HubRow[];
   /** The stop list in force for the baseline (from the project's stop list file). */
   stopList: { file: string | null; terms: number; unused: string[] };

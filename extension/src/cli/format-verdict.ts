@@ -9,6 +9,7 @@ const OUTCOME_WORDS: Record<Verdict['outcome'], string> = {
 
 /** The verdict as plain lines, first of every summary: outcome, headline, then the caveats. */
 export function verdictLines(verdict: Verdict | undefined): { title: string; headline: string; caveats: string[] } | null {
+  // A Report saved by an older version has no verdict.
   if (verdict === undefined) return null;
   return {
     title: `Verdict: ${OUTCOME_WORDS[verdict.outcome]}`,
