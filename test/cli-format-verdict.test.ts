@@ -1,0 +1,36 @@
+// The verdict leads the CLI summary and the Markdown output (issue 9, "One verdict"). The Report
+// is the small fixture of test/fixtures with a verdict of our own; no outside figure is involved.
+import { strict as assert } from 'node:assert';
+import { readFileSync } from 'node:fs';
+import * as path from 'node:path';
+import { formatMarkdown } from '../extension/src/cli/format-markdown';
+import { formatText } from '../extension/src/cli/format-text';
+import type { Report } from '../extension/src/protocol';
+
+function withVerdict(): Report {
+  const report = JSON.parse(readFileSync(path.join(__dirname, 'fixtures', 'report-small.json'), 'utf8')) as Report;
+  report.verdict = {
+    outcome: 'helps',
+    headline: 'The suggested list (3 terms) raises label precision@10 (0.800 → 0.850, +0.050; 95% interval +0.020 to +0.080 over 200 sampled documents).',
+    estimate: { measure: 'label precision@10', change: 0.05, low: 0.02, high: 0.08, draws: 400, method: 'bootstrap' },
+    caveats: [{ measure: 'hubness', sentence: 'Hubness skew rose (1.20 → 1.40): look at the hub list.' }],
+  };
+  return report;
+}
+
+describe('verdict in the CLI outputs', () => {
+  it('formatText: the verdict and its caveats come right after the title, before the measures', () => {
+    const text = formatText(withVerdict());
+    const lines = text.split('\n');
+    const at = lines.findIndex((l) => l.startsWith('Verdict: the suggested list helps. The suggested list (3 terms) raises'));
+    assert.ok(at > 0 && at <= 2, text.slice(0, 400));
+    assert.match(lines[at + 1]!, /^ {2}But: Hubness skew rose/);
+    assert.ok(at < lines.findIndex((l) => l.startsWith('measure')));
+  });
+
+  it('formatMarkdown: the verdict is the first paragraph under the heading, caveats as a list', () => {
+    const md = formatMarkdown(withVerdict()).split('\n');
+    assert.match(md[2]!, /^\*\*Verdict: the suggested list helps\.\*\* The suggested list \(3 terms\) raises/);
+    assert.match(md[4]!, /^- Hubness skew rose/);
+  });
+});
