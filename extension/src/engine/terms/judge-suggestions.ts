@@ -68,6 +68,9 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     const verb = outcome === 'helps' ? 'makes nearest neighbours stand out more' : outcome === 'hurts' ? 'makes nearest neighbours stand out less' : 'does not clearly change how much nearest neighbours stand out';
     headline = `${list} ${verb}: ${measure} ${signed(boot.change, 2)} (${interval}). Without labels this is a proxy for neighbour quality; pass --label to measure precision.`;
   }
+  if (opinion.opinionText) {
+    headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;
+  }
   return { outcome, headline, estimate, caveats };
 }
 
