@@ -29,7 +29,8 @@ const DEFAULT_SAMPLE_SEED = 1;
 
 const TARGETS = {
   ratio100k: 1.0,
-  whatIfMs: 250,
+  // Issue 10: click → strip ≤ 100 ms at 100k documents, of which the engine ≤ 30 ms.
+  whatIfMs: 30,
   peakRss1M: 3 * 1024 ** 3,
   exponent: 1.1,
   activationMs: 50,
@@ -189,6 +190,7 @@ function printSize(label, corpus, lw, sk, whatIf) {
     ['terms / nonzeros', lwOk ? `${count(lw.terms)} / ${count(lw.nonzeros)}` : dash, skOk ? `${count(sk.terms)} / ${count(sk.nonzeros)}` : dash],
     ['peak RSS', lwOk ? megabytes(lw.peakRss) : dash, skOk ? megabytes(sk.peakRssBytes) : dash],
     ['what-if, one term toggled (median)', whatIf && !whatIf.error ? ms(whatIf.medianMs) : dash, ''],
+    ['what-if, one term toggled, engine CPU time (median)', whatIf && !whatIf.error && whatIf.medianCpuMs != null ? ms(whatIf.medianCpuMs) : dash, ''],
   ];
   console.log(table(rows));
   if (lw?.error) console.log(`Loudword: not measured — ${lw.error}`);
@@ -260,7 +262,7 @@ async function main() {
   console.log('\nTargets');
   console.log(table([
     [verdict(ratio == null ? null : ratio <= TARGETS.ratio100k), `full review of 100k ≤ ${TARGETS.ratio100k}× fit_transform alone`, ratio == null ? dash : `${ratio.toFixed(2)}×`],
-    [verdict(whatIfMs == null ? null : whatIfMs <= TARGETS.whatIfMs), `what-if on 100k ≤ ${TARGETS.whatIfMs} ms`, ms(whatIfMs)],
+    [verdict(whatIfMs == null ? null : whatIfMs <= TARGETS.whatIfMs), `what-if on 100k ≤ ${TARGETS.whatIfMs} ms (engine, wall)`, ms(whatIfMs)],
     [verdict(peak == null ? null : peak <= TARGETS.peakRss1M), '1M reviewed with peak RSS ≤ 3 GB', megabytes(peak)],
     [verdict(exponent == null ? null : exponent <= TARGETS.exponent), `growth exponent 100k → 1M ≤ ${TARGETS.exponent}`, exponent == null ? dash : exponent.toFixed(2)],
     [verdict(activation.error ? null : activation.totalMs < TARGETS.activationMs), `activation (require + activate) < ${TARGETS.activationMs} ms`, activation.error ? dash : ms(activation.totalMs)],
