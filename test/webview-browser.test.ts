@@ -403,8 +403,31 @@ describe('webview in Chromium', function () {
       const report = fixture('report-small.json');
       const { context, page, seen } = await openPanel({ dark: true, width: 440 });
       try {
-        await send(page, { type: 'showReport', report });
+        const verdict = {
+          outcome: 'helps',
+          headline: 'Stopping the suggested terms makes nearest neighbours stand out more.',
+          estimate: { measure: 'Neighbour standout', change: 0.42, low: 0.3, high: 0.55, draws: 20, method: 'seeds' },
+          caveats: [{ measure: 'Relative contrast', sentence: 'falls, as it does on text when neighbours improve.' }],
+        };
+        await send(page, { type: 'showReport', report: { ...report, verdict } });
         await page.waitForSelector('.lw-tile');
+        // The verdict and the loudest terms come first, right under the header.
+        const order = await page.evaluate(() => Array.from(document.querySelectorAll('.lw-main > *'), (e: Element) => e.className));
+        assert.match(order[1] ?? '', /lw-verdict/, `second block is ${order[1]}`);
+        assert.equal(await page.locator('.lw-verdict__estimate').textContent(), 'Neighbour standout: +0.420 with the suggested list (+0.300 to +0.550 over 20 re-drawn samples).');
+        // Narrow: term, pull share and status stay; df and the rest open under the term.
+        assert.equal(await page.locator('tr[data-term="regards"] .lw-col-df').isVisible(), false);
+        assert.equal(await page.locator('tr[data-term="regards"] .lw-col-pullShare').isVisible(), true);
+        assert.equal(await page.locator('tr[data-term="regards"] .lw-col-status').isVisible(), true);
+        const tableWidth = await page.locator('.lw-table').evaluate((t) => t.getBoundingClientRect().width);
+        assert.ok(tableWidth <= 440, `the term table is ${tableWidth} px wide in a 440 px panel`);
+        await page.locator('tr[data-term="regards"] .lw-rowmore__term').click();
+        assert.equal(await page.locator('tr[data-term="regards"] .lw-rowmore__facts').isVisible(), true);
+        await page.locator('tr[data-term="regards"]').scrollIntoViewIfNeeded();
+        await shot(page, 'panel-dark-narrow-terms.png', false);
+        // A measure's meaning is one click away.
+        await page.locator('.lw-tile[data-measure="neighborStandout"] .lw-meaning__toggle').click();
+        assert.equal(await page.locator('.lw-tile[data-measure="neighborStandout"] .lw-meaning__text').isVisible(), true);
         await page.locator('tr[data-term="regards"] input[type=checkbox]').uncheck();
         const request = await lastWhatIf(page, 1);
         await send(page, { type: 'whatIfResult', removed: request.removed, measures: { ...report.suggested, backgroundSimilarity: 0.0912, neighborStandout: 3.71 }, requestId: request.requestId });

@@ -41,7 +41,7 @@ function renderTile(spec: MeasureSpec, input: StripInput): HTMLElement {
     [
       el('div', { className: 'lw-tile__label', text: spec.label, attrs: { id: labelId } }),
       el('div', { className: 'lw-tile__values' }, valueChain(spec, input)),
-      el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
+      meaningDetails(spec, meaningId),
     ],
   );
 }
@@ -68,11 +68,11 @@ function renderMeasureTable(input: StripInput): HTMLElement {
         el('th', { attrs: { scope: 'row' } }, [
           el('span', { text: spec.label }),
           detail ? el('span', { className: 'lw-measures__detail', text: detail }) : null,
-          el('span', { className: 'lw-sr', text: spec.meaning, attrs: { id: meaningId } }),
+          meaningDetails(spec, meaningId),
         ]),
         el('td', { className: 'lw-num' }, [valueSpan(spec, 'baseline', base, null, null)]),
         el('td', { className: 'lw-num' }, [valueSpan(spec, 'suggested', sug, base, judgeChange(spec, base, sug), 'with suggestions')]),
-        input.selection ? el('td', { className: 'lw-num' }, [valueSpan(spec, 'selection', sel, base, judgeChange(spec, base, sel), 'your selection')]) : null,
+        input.selection ? el('td', { className: 'lw-num' }, [valueSpan(spec, 'selection', sel, sug, judgeChange(spec, sug, sel), 'your selection, against the suggestions')]) : null,
       ]),
     );
   }
@@ -86,9 +86,22 @@ function valueChain(spec: MeasureSpec, input: StripInput): Child[] {
   values.push(arrow(), valueSpan(spec, 'suggested', sug, base, judgeChange(spec, base, sug), 'with suggestions'));
   if (input.selection) {
     const sel = spec.value(input.selection.measures);
-    values.push(arrow(), valueSpan(spec, 'selection', sel, base, judgeChange(spec, base, sel), 'your selection'));
+    // Judged against the suggestions, not the baseline: the question a toggle asks is whether
+    // the reader's own list does better or worse than the one suggested.
+    values.push(arrow(), valueSpan(spec, 'selection', sel, sug, judgeChange(spec, sug, sel), 'your selection, against the suggestions'));
   }
   return values;
+}
+
+/**
+ * The measure's meaning (which says which direction is healthier) one click (or Enter) away: a disclosure, not only
+ * a hover title, which touch screens and keyboards never show.
+ */
+function meaningDetails(spec: MeasureSpec, meaningId: string): HTMLElement {
+  return el('details', { className: 'lw-meaning' }, [
+    el('summary', { className: 'lw-meaning__toggle', text: 'What is this?' }),
+    el('p', { className: 'lw-meaning__text', text: spec.meaning, attrs: { id: meaningId } }),
+  ]);
 }
 
 function arrow(): HTMLElement {
@@ -128,7 +141,8 @@ export function renderLiveSummary(input: StripInput): HTMLElement {
   const parts: Child[] = [];
   for (const spec of measureCatalog) {
     if (!spec.primary) continue;
-    const base = spec.value(input.baseline);
+    // The reader's selection is judged against the suggestions, the suggestions against the baseline.
+    const base = spec.value(input.selection ? input.suggested : input.baseline);
     const now = spec.value(current);
     if (now === null) continue;
     if (parts.length > 0) parts.push(el('span', { className: 'lw-live__sep', text: '·', attrs: { 'aria-hidden': 'true' } }));

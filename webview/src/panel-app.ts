@@ -10,6 +10,7 @@ import type { HostBridge } from './host-bridge';
 import { renderHubList } from './hub-list';
 import { renderReportHeader, renderSettingsFooter } from './report-header';
 import { TermTable } from './term-table';
+import { renderVerdictSummary } from './verdict-summary';
 import { PAGE_SIZE, reportKeyOf, restoreViewState, type ViewState } from './view-state';
 import { WhatIfRequester } from './what-if-requester';
 
@@ -86,6 +87,7 @@ export class PanelApp {
 
     replaceChildren(this.content, [
       renderReportHeader(report, exportButton ? [exportButton] : []),
+      renderVerdictSummary(report),
       section('Distance health', 'lw-sec-health', [stripSlot]),
       section('Terms', 'lw-sec-terms', [termNote, table.element]),
       section('Charts', 'lw-sec-charts', [charts.element]),

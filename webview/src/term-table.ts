@@ -222,19 +222,38 @@ export class TermTable {
       pull.style.setProperty('--lw-bar', String(Math.max(0, Math.min(1, t.pullShare / this.maxPull))));
     }
 
+    pull.classList.add('lw-col-pullShare');
+    const lift = formatRatio(t.neighborLift);
+    // Below ~600 px only stop, term, pull share and status stay as columns (panel.css); the rest
+    // opens under the term with one click, instead of a wide table scrolling inside the page.
+    const more = el('details', { className: 'lw-rowmore' }, [
+      el('summary', { className: 'lw-rowmore__term', text: t.term }),
+      el('dl', { className: 'lw-rowmore__facts' }, [
+        ...fact('df', formatCount(t.df)),
+        ...fact('idf', formatFixed(t.idf, 2)),
+        ...fact('Neighbour lift', lift),
+        ...fact('Spread', formatFixed(t.spread, 2)),
+        ...fact('Loudness', formatNumber(t.loudness)),
+        ...fact('Why', t.why),
+      ]),
+    ]);
     return el('tr', { attrs: { 'data-term': t.term, 'data-status': t.status } }, [
       el('td', { className: 'lw-col-checked' }, [box]),
-      el('td', { className: 'lw-termcell' }, [el('span', { className: 'lw-term', text: t.term, attrs: { title: t.term } })]),
-      el('td', { className: 'lw-num', text: formatCount(t.df) }),
-      el('td', { className: 'lw-num', text: formatFixed(t.idf, 2) }),
+      el('td', { className: 'lw-termcell lw-col-term' }, [el('span', { className: 'lw-term lw-term--wide', text: t.term, attrs: { title: t.term } }), more]),
+      el('td', { className: 'lw-num lw-col-df', text: formatCount(t.df) }),
+      el('td', { className: 'lw-num lw-col-idf', text: formatFixed(t.idf, 2) }),
       pull,
-      el('td', { className: `lw-num${t.neighborLift !== null && t.neighborLift < 1 ? ' lw-low' : ''}`, text: formatRatio(t.neighborLift) }),
-      el('td', { className: 'lw-num', text: formatFixed(t.spread, 2) }),
-      el('td', { className: 'lw-num', text: formatNumber(t.loudness) }),
-      el('td', {}, [el('span', { className: `lw-status lw-status--${safeClass(t.status)}`, text: t.status })]),
-      el('td', { className: 'lw-why', text: t.why, attrs: { title: t.why } }),
+      el('td', { className: `lw-num lw-col-neighborLift${t.neighborLift !== null && t.neighborLift < 1 ? ' lw-low' : ''}`, text: lift }),
+      el('td', { className: 'lw-num lw-col-spread', text: formatFixed(t.spread, 2) }),
+      el('td', { className: 'lw-num lw-col-loudness', text: formatNumber(t.loudness) }),
+      el('td', { className: 'lw-col-status' }, [el('span', { className: `lw-status lw-status--${safeClass(t.status)}`, text: t.status })]),
+      el('td', { className: 'lw-why lw-col-why', text: t.why, attrs: { title: t.why } }),
     ]);
   }
+}
+
+function fact(name: string, value: string): HTMLElement[] {
+  return [el('dt', { text: name }), el('dd', { text: value })];
 }
 
 /** Status comes from the report; only known words may become part of a class name. */

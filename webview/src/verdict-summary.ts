@@ -1,0 +1,39 @@
+// What a reader needs first, above the measures: the review's verdict on the suggested list
+// (Report.verdict, when the engine gives one) and the few loudest terms. At the default
+// bottom-panel height this is what shows before any scrolling.
+
+import type { Report, Verdict } from '../../extension/src/protocol';
+import { formatNumber, formatShare } from '../../extension/src/number-format';
+import { el, type Child } from './create-element';
+
+/** How many of the loudest terms the summary names. */
+export const TOP_TERMS = 5;
+
+export function renderVerdictSummary(report: Report): HTMLElement {
+  const children: Child[] = [];
+  if (report.verdict) children.push(...renderVerdict(report.verdict));
+  const top = report.terms.filter((t) => t.status !== 'stopped').slice(0, TOP_TERMS);
+  if (top.length > 0) {
+    const items: Child[] = [];
+    top.forEach((t, i) => {
+      if (i > 0) items.push(', ');
+      items.push(el('span', { className: `lw-top__term${t.status === 'suggested' ? ' lw-top__term--suggested' : ''}`, text: t.term }), ` ${formatShare(t.pullShare)}`);
+    });
+    children.push(el('p', { className: 'lw-top' }, [el('span', { className: 'lw-top__label', text: 'Loudest terms (share of all-pair similarity): ' }), ...items]));
+  }
+  return el('div', { className: 'lw-verdict', attrs: { 'data-outcome': report.verdict?.outcome ?? 'none' } }, children);
+}
+
+function renderVerdict(v: Verdict): Child[] {
+  const out: Child[] = [el('p', { className: 'lw-verdict__headline', text: v.headline })];
+  if (v.estimate) {
+    const e = v.estimate;
+    const signed = (x: number) => (x > 0 ? `+${formatNumber(x)}` : formatNumber(x));
+    const how = e.method === 'seeds' ? `${e.draws} re-drawn samples` : `${e.draws} bootstrap draws`;
+    out.push(el('p', { className: 'lw-verdict__estimate', text: `${e.measure}: ${signed(e.change)} with the suggested list (${signed(e.low)} to ${signed(e.high)} over ${how}).` }));
+  }
+  if (v.caveats.length > 0) {
+    out.push(el('ul', { className: 'lw-verdict__caveats' }, v.caveats.map((c) => el('li', {}, [el('span', { className: 'lw-verdict__measure', text: `${c.measure}: ` }), c.sentence]))));
+  }
+  return out;
+}
