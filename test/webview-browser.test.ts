@@ -412,7 +412,7 @@ describe('webview in Chromium', function () {
         await send(page, { type: 'showReport', report: { ...report, verdict } });
         await page.waitForSelector('.lw-tile');
         // The verdict and the loudest terms come first, right under the header.
-        const order = await page.evaluate(() => Array.from(document.querySelectorAll('.lw-main > *'), (e: Element) => e.className));
+        const order = await page.evaluate(() => Array.from(document.querySelectorAll('.lw-main > *'), (e) => (e as unknown as { className: string }).className));
         assert.match(order[1] ?? '', /lw-verdict/, `second block is ${order[1]}`);
         assert.equal(await page.locator('.lw-verdict__estimate').textContent(), 'Neighbour standout: +0.420 with the suggested list (+0.300 to +0.550 over 20 re-drawn samples).');
         // Narrow: term, pull share and status stay; df and the rest open under the term.
