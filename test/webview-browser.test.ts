@@ -370,6 +370,27 @@ describe('webview in Chromium', function () {
       }
     });
 
+    it('says when the review is out of date, counts the suggestions added since, and offers to review again', async () => {
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel();
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        assert.equal(await page.locator('.lw-stale').count(), 0, 'no banner while up to date');
+        await send(page, { type: 'stale', reason: 'stoplist.txt changed', added: report.suggestions });
+        await page.waitForSelector('.lw-stale');
+        assert.match((await page.locator('.lw-stale').textContent()) ?? '', /Out of date: stoplist\.txt changed since this review/);
+        assert.match((await page.locator('.lw-strip__legend').textContent()) ?? '', /with \d+ suggested terms\(all added to the stop list since\)/);
+        await page.click('.lw-stale button:has-text("Review again")');
+        assert.deepEqual((await posted(page)).slice(-1), [{ type: 'reviewAgain' }]);
+        await send(page, { type: 'stale', reason: null, added: [] });
+        await page.waitForFunction(() => document.querySelectorAll('.lw-stale').length === 0);
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+
     it('restores sort, filter and toggles from the saved state when the panel comes back', async () => {
       const report = fixture('report-small.json');
       const first = await openPanel();

@@ -141,7 +141,13 @@ export interface ShowReportMessage { type: 'showReport'; report: Report }
 export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number }
 export interface BusyMessage { type: 'busy'; stage: string | null }
 export interface ErrorMessage { type: 'error'; message: string }
-export type HostToWebview = ShowReportMessage | WhatIfResultMessage | BusyMessage | ErrorMessage;
+/**
+ * host → webview: whether the shown Report still describes the files. `reason` says what changed
+ * since (stop list, loudword.json, corpus); null = up to date. `added`: terms added to the stop
+ * list since the review (no longer open suggestions).
+ */
+export interface StaleMessage { type: 'stale'; reason: string | null; added: string[] }
+export type HostToWebview = ShowReportMessage | WhatIfResultMessage | BusyMessage | ErrorMessage | StaleMessage;
 
 // ---- Messages: webview → extension host ----
 export interface ReadyMessage { type: 'ready' }
@@ -149,9 +155,11 @@ export interface WhatIfRequestMessage { type: 'whatIf'; removed: string[]; reque
 export interface RevealLineMessage { type: 'revealLine'; line: number }
 export interface AddTermsMessage { type: 'addTerms'; terms: string[] }
 export interface ExportHtmlMessage { type: 'exportHtml' }
-export type WebviewToHost = ReadyMessage | WhatIfRequestMessage | RevealLineMessage | AddTermsMessage | ExportHtmlMessage;
+/** webview → host: review the shown corpus again (the out-of-date banner's button). */
+export interface ReviewAgainMessage { type: 'reviewAgain' }
+export type WebviewToHost = ReadyMessage | WhatIfRequestMessage | RevealLineMessage | AddTermsMessage | ExportHtmlMessage | ReviewAgainMessage;
 
-const webviewToHostTypes: ReadonlySet<string> = new Set(['ready', 'whatIf', 'revealLine', 'addTerms', 'exportHtml']);
+const webviewToHostTypes: ReadonlySet<string> = new Set(['ready', 'whatIf', 'revealLine', 'addTerms', 'exportHtml', 'reviewAgain']);
 
 /** Checks a message from the webview before the host acts on it (the page is not trusted). */
 export function isWebviewToHost(value: unknown): value is WebviewToHost {

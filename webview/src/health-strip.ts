@@ -10,6 +10,8 @@ export interface StripInput {
   baseline: Measures;
   suggested: Measures;
   suggestedCount: number;
+  /** Suggested terms added to the stop list since the review (the panel is then out of date). */
+  addedCount?: number;
   selection: { measures: Measures; removedCount: number } | null;
   pending: boolean;
 }
@@ -19,6 +21,7 @@ export function renderHealthStrip(input: StripInput): HTMLElement {
     el('span', { className: 'lw-key lw-key--baseline', text: 'baseline' }),
     arrow(),
     el('span', { className: 'lw-key', text: `with ${plural(input.suggestedCount, 'suggested term')}` }),
+    input.addedCount ? el('span', { className: 'lw-key lw-key--added', text: `(${input.addedCount === input.suggestedCount ? 'all' : input.addedCount.toLocaleString('en-US')} added to the stop list since)` }) : null,
     input.selection ? arrow() : null,
     input.selection ? el('span', { className: 'lw-key', text: `your selection (${plural(input.selection.removedCount, 'term')})` }) : null,
     input.pending ? el('span', { className: 'lw-pending', text: 'updating…', attrs: { role: 'status' } }) : null,

@@ -37,7 +37,7 @@ export function createHostBridge(): HostBridge {
   };
 }
 
-const hostTypes: ReadonlySet<string> = new Set(['showReport', 'whatIfResult', 'busy', 'error']);
+const hostTypes: ReadonlySet<string> = new Set(['showReport', 'whatIfResult', 'busy', 'error', 'stale']);
 
 /** Shape check for messages arriving on window 'message' events. */
 export function isHostToWebview(value: unknown): value is HostToWebview {
@@ -53,6 +53,8 @@ export function isHostToWebview(value: unknown): value is HostToWebview {
       return m.stage === null || typeof m.stage === 'string';
     case 'error':
       return typeof m.message === 'string';
+    case 'stale':
+      return (m.reason === null || typeof m.reason === 'string') && Array.isArray(m.added) && m.added.every((t) => typeof t === 'string');
     default:
       return false;
   }

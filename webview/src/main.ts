@@ -38,6 +38,9 @@ function start(): void {
         app.setBusy(null);
         app.showError(message.message);
         break;
+      case 'stale':
+        app.setStale(message.reason, message.added);
+        break;
     }
   });
   bridge.post({ type: 'ready' });

@@ -33,6 +33,9 @@ export class PanelApp {
   private readonly statusSlot: HTMLElement;
   private readonly content: HTMLElement;
   private loaded: Loaded | null = null;
+  /** What the host says changed since the shown Report (see StaleMessage). */
+  private stale: { reason: string | null; added: string[] } = { reason: null, added: [] };
+  private readonly staleSlot: HTMLElement;
 
   constructor(
     root: HTMLElement,
@@ -44,7 +47,8 @@ export class PanelApp {
     this.content = el('main', { className: 'lw-main' }, [
       el('p', { className: 'lw-empty', text: bridge.mode === 'panel' ? 'Waiting for a review… Run “Review distances” on a corpus file.' : 'Loading the report…' }),
     ]);
-    replaceChildren(root, [this.statusSlot, this.content]);
+    this.staleSlot = el('div', { className: 'lw-stale-slot', attrs: { role: 'status', 'aria-live': 'polite' } });
+    replaceChildren(root, [this.statusSlot, this.staleSlot, this.content]);
     watchTheme(() => this.loaded?.charts.mount());
   }
 
@@ -119,6 +123,23 @@ export class PanelApp {
     this.save();
     this.renderStrip();
     this.loaded.charts.update(this.currentSetting(this.loaded.report));
+  }
+
+  /** The host's word on whether the shown Report still describes the files. */
+  setStale(reason: string | null, added: readonly string[]): void {
+    this.stale = { reason, added: [...added] };
+    if (reason === null) {
+      this.staleSlot.replaceChildren();
+    } else {
+      const again = this.bridge.mode === 'panel' ? button('Review again', 'primary', () => this.bridge.post({ type: 'reviewAgain' })) : null;
+      replaceChildren(this.staleSlot, [
+        el('div', { className: 'lw-stale' }, [
+          el('span', { className: 'lw-stale__text', text: `Out of date: ${reason} since this review. The figures below are from before.` }),
+          again,
+        ]),
+      ]);
+    }
+    this.renderStrip();
   }
 
   setBusy(stage: string | null): void {
@@ -202,6 +223,7 @@ export class PanelApp {
       baseline: l.report.baseline,
       suggested: l.report.suggested,
       suggestedCount: l.suggestionSet.size,
+      addedCount: this.stale.added.filter((t) => l.suggestionSet.has(t)).length,
       selection: selection ? { measures: selection, removedCount: this.state.whatIf?.removed.length ?? 0 } : null,
       pending: this.requester.pending,
     };

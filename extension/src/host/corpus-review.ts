@@ -20,6 +20,12 @@ export class CorpusReview implements vscode.Disposable {
   private running: AbortController | null = null;
   /** Set when the corpus's document closed; a new review clears it. */
   closed = false;
+  /** What changed since the Report was made (stop list, loudword.json, corpus); null = up to date. */
+  staleReason: string | null = null;
+  /** The document version the running review reads (−1: the file on disk), to ignore a double click. */
+  runningVersion: number | null = null;
+  /** Set when the user pressed Cancel on the progress notification of the last run. */
+  cancelledByUser = false;
 
   constructor(readonly uri: vscode.Uri, workerFile: string) {
     this.client = new ReviewWorkerClient(workerFile);
@@ -48,8 +54,10 @@ export class CorpusReview implements vscode.Disposable {
   async run(doc: vscode.TextDocument | undefined, onStage: (stage: ReviewStage | null) => void): Promise<Report> {
     this.cancel();
     this.closed = false;
+    this.cancelledByUser = false;
     const controller = new AbortController();
     this.running = controller;
+    this.runningVersion = doc?.version ?? -1;
     try {
       const prepared = await prepareReview(this.uri, doc);
       this.expectedStopList = prepared.stopListPath;
@@ -57,7 +65,10 @@ export class CorpusReview implements vscode.Disposable {
       const report = await vscode.window.withProgress(
         { location: vscode.ProgressLocation.Notification, title: `Loudword: reviewing ${path.basename(this.uri.path)}`, cancellable: true },
         (progress, token) => {
-          const sub = token.onCancellationRequested(() => controller.abort());
+          const sub = token.onCancellationRequested(() => {
+            this.cancelledByUser = true;
+            controller.abort();
+          });
           let done = 0;
           return this.client
             .review(prepared.input, (stage, fraction) => {
@@ -71,9 +82,13 @@ export class CorpusReview implements vscode.Disposable {
       );
       this.report = report;
       this.addedSinceReview.clear();
+      this.staleReason = null;
       return report;
     } finally {
-      if (this.running === controller) this.running = null;
+      if (this.running === controller) {
+        this.running = null;
+        this.runningVersion = null;
+      }
       onStage(null);
     }
   }
@@ -81,6 +96,12 @@ export class CorpusReview implements vscode.Disposable {
   cancel(): void {
     this.running?.abort();
     this.running = null;
+    this.runningVersion = null;
+  }
+
+  /** Marks the Report as out of date (the first reason is kept until the next review). */
+  markStale(reason: string): void {
+    if (this.report !== null && this.staleReason === null) this.staleReason = reason;
   }
 
   /** Stops the worker (document closed); the Report stays readable. */

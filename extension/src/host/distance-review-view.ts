@@ -2,7 +2,7 @@
 // page is untrusted: every message is checked with isWebviewToHost before the host acts.
 import { randomBytes } from 'node:crypto';
 import * as vscode from 'vscode';
-import { isWebviewToHost, type HostToWebview, type WebviewToHost } from '../protocol';
+import { isWebviewToHost, type HostToWebview, type Report, type WebviewToHost } from '../protocol';
 import { panelHtml } from '../html/panel-html';
 import type { CorpusReview } from './corpus-review';
 import { DISTANCE_REVIEW_VIEW_ID } from './pure/contribution-ids';
@@ -12,7 +12,8 @@ import type { ReviewStore } from './review-store';
 export interface PanelActions {
   revealLine(review: CorpusReview, line: number): Promise<void>;
   addTerms(review: CorpusReview, terms: string[]): Promise<void>;
-  exportHtml(review: CorpusReview): Promise<void>;
+  exportHtml(review: CorpusReview, report: Report): Promise<void>;
+  reviewAgain(review: CorpusReview): Promise<void>;
 }
 
 export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, vscode.Disposable {
@@ -23,6 +24,7 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
   private ready = false;
   /** The review whose Report the page holds, so a late what-if answer is not mixed up. */
   private shown: CorpusReview | null = null;
+  private shownReport: Report | null = null;
   private readonly disposables: vscode.Disposable[] = [];
   private readonly viewDisposables: vscode.Disposable[] = [];
 
@@ -47,6 +49,7 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
         this.view = null;
         this.ready = false;
         this.shown = null;
+        this.shownReport = null;
         this.disposeView();
       }),
     );
@@ -74,8 +77,19 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
   private showFocused(): void {
     const review = this.store.focused;
     if (review === null || review.report === null) return;
-    this.shown = review;
-    this.post({ type: 'showReport', report: review.report });
+    // A store change that leaves the Report as it was (a stop-list edit, say) must not redraw the
+    // page and lose the reader's toggles: only the out-of-date state is sent then.
+    if (this.shown !== review || this.shownReport !== review.report) {
+      this.shown = review;
+      this.shownReport = review.report;
+      this.post({ type: 'showReport', report: review.report });
+    }
+    this.post({ type: 'stale', reason: review.staleReason, added: [...review.addedSinceReview] });
+  }
+
+  /** The Report the page shows (Export writes this one, whatever was reviewed since). */
+  get shownReportOf(): { review: CorpusReview; report: Report } | null {
+    return this.shown === null || this.shownReport === null ? null : { review: this.shown, report: this.shownReport };
   }
 
   private post(message: HostToWebview): void {
@@ -110,7 +124,10 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
           await this.actions.addTerms(review, m.terms);
           return;
         case 'exportHtml':
-          await this.actions.exportHtml(review);
+          await this.actions.exportHtml(review, this.shownReport ?? review.report);
+          return;
+        case 'reviewAgain':
+          await this.actions.reviewAgain(review);
           return;
       }
     } catch (e) {

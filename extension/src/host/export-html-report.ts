@@ -3,10 +3,11 @@
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { loadWebviewAssets, renderStandaloneReport } from '../html/standalone-report';
+import type { Report } from '../protocol';
 import type { CorpusReview } from './corpus-review';
 
-export async function exportHtmlReport(extensionUri: vscode.Uri, review: CorpusReview): Promise<void> {
-  const report = review.report;
+/** Writes `report` — the one the panel shows, which may be older than `review.report`. */
+export async function exportHtmlReport(extensionUri: vscode.Uri, review: CorpusReview, report: Report | null): Promise<void> {
   if (report === null) {
     void vscode.window.showInformationMessage('Loudword: run "Review distances" on this corpus before exporting a report.');
     return;

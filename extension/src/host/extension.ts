@@ -24,7 +24,8 @@ export function activate(context: vscode.ExtensionContext): void {
   const panel = new DistanceReviewViewProvider(context.extensionUri, store, {
     revealLine: (r, line) => ctx.revealLine(r, line),
     addTerms: async (r, terms) => void (await ctx.addTerms(r, terms)),
-    exportHtml: (r) => ctx.exportHtml(r),
+    exportHtml: (r, report) => ctx.exportHtml(r, report),
+    reviewAgain: async (r) => void (await ctx.review(r.uri, false)),
   });
   ctx.panel = panel;
   const onSave = new KeyedDebounce<string>(REVIEW_ON_SAVE_DELAY_MS);
@@ -43,6 +44,16 @@ export function activate(context: vscode.ExtensionContext): void {
     new StatusHeadlineItem(store),
     vscode.window.onDidChangeActiveTextEditor(() => void ctx.updateActiveContext()),
     vscode.workspace.onDidCloseTextDocument((doc) => store.get(doc.uri)?.stopWorker()),
+    // The panel says when its Report no longer describes the files, and offers to review again.
+    vscode.workspace.onDidChangeTextDocument((event) => {
+      if (event.contentChanges.length === 0) return;
+      const name = path.basename(event.document.uri.fsPath || event.document.uri.path);
+      for (const review of reviewsTouchedBySave(store, event.document)) {
+        if (review.staleReason !== null) continue;
+        review.markStale(`${name} changed`);
+        store.notify(review);
+      }
+    }),
     vscode.workspace.onDidSaveTextDocument((doc) => {
       for (const review of reviewsTouchedBySave(store, doc)) {
         if (!reviewOnSave(review.uri)) continue;

@@ -2,12 +2,14 @@
 // operations more than one of them starts. Lives as long as the extension.
 import * as path from 'node:path';
 import * as vscode from 'vscode';
+import type { Report } from '../protocol';
 import type { CorpusReview } from './corpus-review';
 import type { DistanceReviewViewProvider } from './distance-review-view';
 import { exportHtmlReport } from './export-html-report';
 import { openAtLine, showReviewError } from './review-error-message';
 import type { ReviewStore } from './review-store';
 import { addTermsToReviewStopList } from './stop-list-edits';
+import { WorkerFailure } from '../worker/review-worker-client';
 
 export class HostContext {
   panel: DistanceReviewViewProvider | null = null;
@@ -24,6 +26,9 @@ export class HostContext {
   async review(uri: vscode.Uri, reveal: boolean): Promise<CorpusReview | null> {
     const doc = vscode.workspace.textDocuments.find((d) => d.uri.toString() === uri.toString());
     const review = this.store.getOrCreate(uri);
+    // A second click while the same text is being reviewed (a quick double click on the title
+    // button) would only restart the work: the first run carries on.
+    if (review.isRunning && review.runningVersion === (doc?.version ?? -1)) return null;
     try {
       await review.run(doc, (stage) => this.panel?.busy(stage));
       this.store.focus(review);
@@ -33,6 +38,11 @@ export class HostContext {
       if (reveal) await this.panel?.reveal();
       return review;
     } catch (e) {
+      if (e instanceof WorkerFailure && e.kind === 'cancelled') {
+        // Only the user's Cancel is reported; a run replaced by a newer one ends silently.
+        if (review.cancelledByUser) void vscode.window.showInformationMessage('Loudword: Review cancelled.');
+        return null;
+      }
       void showReviewError(e);
       return null;
     }
@@ -48,8 +58,9 @@ export class HostContext {
   async addTerms(review: CorpusReview, terms: readonly string[]): Promise<string[]> {
     try {
       const { added, stopList } = await addTermsToReviewStopList(review, terms);
-      this.store.notify(review);
       const name = path.basename(stopList.fsPath);
+      if (added.length > 0) review.markStale(`${name} changed`);
+      this.store.notify(review);
       if (added.length === 0) {
         void vscode.window.showInformationMessage(`Loudword: ${terms.length === 1 ? `'${terms[0]}' is` : 'those terms are'} already in ${name}.`);
         return added;
@@ -66,9 +77,12 @@ export class HostContext {
     }
   }
 
-  async exportHtml(review: CorpusReview): Promise<void> {
+  /** Writes `report` (default: the one the panel shows for `review`, else its latest). */
+  async exportHtml(review: CorpusReview, report?: Report): Promise<void> {
+    const shown = this.panel?.shownReportOf;
+    const chosen = report ?? (shown?.review === review ? shown.report : review.report);
     try {
-      await exportHtmlReport(this.extensionUri, review);
+      await exportHtmlReport(this.extensionUri, review, chosen);
     } catch (e) {
       void showReviewError(e);
     }
