@@ -53,6 +53,8 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
         notes.push('plain text has one document per line and no fields: the text and label settings were ignored');
       }
       return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, notes, sampled: 1 };
+    case 'parquet':
+      throw new UserError('this is not a Parquet file (name it .parquet, or choose another format)', file, null);
   }
 }
 

@@ -179,3 +179,19 @@ function checkChunkBytes(chunkBytes: number | undefined): number {
   if (!Number.isInteger(chunkBytes) || chunkBytes < 1) throw new RangeError(`chunkBytes must be a positive integer, got ${chunkBytes}`);
   return chunkBytes;
 }
+
+/**
+ * Opens a corpus whose decoded, LF-normalised text arrives from `chunks` (a compressed file):
+ * `head` is its start, already decoded, for the layout. Each call of `chunks` starts a new pass.
+ */
+export function openCorpusFromChunks(
+  file: string,
+  head: string,
+  headIsAll: boolean,
+  notes: readonly string[],
+  chunks: (notes: string[]) => AsyncIterable<string>,
+  options: ReadOptions = {},
+): CorpusSource {
+  const layout = detectLayout(file, head, headIsAll, options);
+  return new StreamedCorpus(file, layout, notes, null, chunks);
+}

@@ -43,6 +43,8 @@ export function createRowSink(file: string, layout: CorpusLayout, state: PassSta
       return lineSink((text, line) => {
         if (text.trim() !== '') accept({ text, label: null, line });
       }, skip);
+    case 'parquet':
+      throw new UserError('a Parquet file is read by the Parquet reader, not as text', file, null);
   }
 }
 
