@@ -1,7 +1,9 @@
 import * as path from 'node:path';
 import type { Report } from '../../protocol';
 import { loadSettings } from '../config/load-settings';
-import { openCorpus, openCorpusFromText } from '../read/open-corpus';
+import { openCorpusFromText } from '../read/open-corpus';
+import { isManyFilesInput } from '../read/corpus-files';
+import { openCorpusInput, withPlaces } from '../read/many-files-corpus';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { DistanceLab } from '../what-if/distance-lab';
 import { FileSnapshot } from './file-snapshot';
@@ -38,11 +40,13 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     labelField: settings.label,
     maxBytes: settings.limits.maxBytes,
   };
-  const snapshot = input.text === undefined ? await FileSnapshot.take(input.file) : null;
+  // A glob or a folder is many files (each shard is read as it comes; no one snapshot covers them).
+  const manyFiles = input.text === undefined && (await isManyFilesInput(input.file));
+  const snapshot = input.text === undefined && !manyFiles ? await FileSnapshot.take(input.file) : null;
   const source =
     input.text !== undefined
-      ? openCorpusFromText(input.file, input.text, readOptions)
-      : await openCorpus(input.file, readOptions);
+      ? withPlaces(openCorpusFromText(input.file, input.text, readOptions), path.basename(input.file))
+      : await openCorpusInput(input.file, readOptions);
   const projectDir = configDir ?? path.dirname(path.resolve(input.file));
   const tokenize = createTokenizer(settings.tokens);
   const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, tokenize, settings.tokens.lowercase);
@@ -54,7 +58,8 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const baseMask = index.mask(stopList.terms);
 
   stage('measuring');
-  const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels);
+  const places = { keys: source.places.keys, documents: source.places.documents, lines: prepared.lines };
+  const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels, places);
   const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels);
   const baseline = lab.measure(baseMask, null);
 

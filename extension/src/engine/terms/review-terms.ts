@@ -1,7 +1,6 @@
 import type { EffectiveSettings, TermRow, Verdict } from '../../protocol';
-import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { knnTermMass } from '../measures/knn-term-mass';
-import { pairMass, termSpread, termSums } from '../measures/term-sums';
+import { pairMass, termSpread } from '../measures/term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, type Decision } from './choose-suggestions';
@@ -81,11 +80,12 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const baseSums = lab.sums(baseMask, true).sums;
   const baseScores = termScores(basePairMass, knnTermMass(lab.maskedSample(baseMask), lab.positions, suggested.neighbors, lab.k));
   const baseSpread = termSpread(baseSums, documents);
-  const fullSums = termSums(lab.weights);
+  const full = lab.fullSums();
+  const fullSums = full.sums;
   let fullScores: TermScores | null = null;
   let fullSpread: Float64Array | null = null;
   if (baseMask.includes(1)) {
-    fullScores = termScores(pairMass(fullSums, rowsWithWeight(lab.weights)).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
+    fullScores = termScores(pairMass(fullSums, full.rowsWithWeight).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
     fullSpread = termSpread(fullSums, documents);
   }
 

@@ -3,6 +3,8 @@ import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
 import { selectRows } from '../matrix/select-rows';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
 import { measureDistances } from '../measures/measure-distances';
+import { rowsWithWeight } from '../matrix/rows-with-weight';
+import { termSums } from '../measures/term-sums';
 import { IncrementalGram } from './incremental-gram';
 import { IncrementalTermSums } from './incremental-term-sums';
 
@@ -50,6 +52,20 @@ export class DistanceLab {
     return maskedTermSums(this.weights, removed, withSpread);
   }
 
+  /**
+   * Exact term sums of the whole corpus with nothing stopped, as weighted (no renormalising), and
+   * its rows with any weight. A method, so that a review spread over shards can answer it from
+   * summed partials (engine/shards/).
+   */
+  fullSums(): MaskedTermSums {
+    return { sums: termSums(this.weights), rowsWithWeight: rowsWithWeight(this.weights) };
+  }
+
+  /** The exact sums `measure` uses; a review in shards answers them from summed partials. */
+  protected exactSums(removed: Uint8Array, incremental: boolean): MaskedTermSums {
+    return this.exact.at(removed, incremental);
+  }
+
   /** The sampled rows with `removed` stopped, renormalised (reused buffers: valid until the next call). */
   maskedSample(removed: Uint8Array): Csr {
     return maskTerms(this.sampleRows, removed, 'l2', this.buffers);
@@ -72,7 +88,7 @@ export class DistanceLab {
   }
 
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {
-    const { sums, rowsWithWeight } = this.exact.at(removed, incremental);
+    const { sums, rowsWithWeight } = this.exactSums(removed, incremental);
     const gram = this.gram.at(removed, incremental);
     return measureDistances(this.maskedSample(removed), {
       sample: this.positions,
