@@ -28,6 +28,8 @@ export interface BuildOptions {
   workerScript?: string;
   /** Documents per batch handed to a tokeniser. */
   batchSize?: number;
+  /** Who tokenises, instead of the default pool (count-each-file.ts passes a fresh one per file). */
+  encoder?: BatchEncoder;
 }
 
 const DEFAULT_BATCH = 1000;
@@ -43,6 +45,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
   signal?.throwIfAborted();
   const workers = options.workers ?? Math.min(2, availableParallelism());
   const encoder: BatchEncoder =
+    options.encoder ??
     workerEncoder(tokens, workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js')) ?? inProcessEncoder(tokens);
   const counter = new CountAccumulator();
   const lines = new GrowingUint32();

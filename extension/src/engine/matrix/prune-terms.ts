@@ -91,7 +91,7 @@ export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneRes
 }
 
 /** The df bound a setting stands for, as scikit-learn computes it (proportion × n, unrounded). */
-function documentCount(name: string, value: number, n: number, isMax: boolean): number {
+export function documentCount(name: string, value: number, n: number, isMax: boolean): number {
   if (!Number.isFinite(value) || value < 0) throw new UserError(`${name} must be a number ≥ 0, got ${value}.`);
   const proportion = isMax ? value <= 1 : value < 1;
   if (proportion) return value * n;

@@ -28,6 +28,16 @@ export function weigh(counts: CountMatrix, weighting: WeightingSettings): Weight
   const idf = new Float64Array(cols);
   for (let j = 0; j < cols; j++) idf[j] = idfOf(weighting.idf, n, df[j]);
 
+  return { weights: weighWithIdf(counts, idf, weighting), idf };
+}
+
+/**
+ * tf·idf with the idf given (a distributed review computes it once from the summed df), each
+ * row normalised; the same arithmetic as `weigh`, so the rows are equal to the last bit.
+ */
+export function weighWithIdf(counts: Csr, idf: Float64Array, weighting: WeightingSettings): Csr {
+  const n = counts.rows;
+  const total = counts.indptr[n];
   const data = new Float64Array(total);
   const tf = weighting.tf;
   for (let k = 0; k < total; k++) {
@@ -35,12 +45,13 @@ export function weigh(counts: CountMatrix, weighting: WeightingSettings): Weight
     const t = c === 0 ? 0 : tf === 'raw' ? c : tf === 'sublinear' ? 1 + Math.log(c) : 1;
     data[k] = t * idf[counts.indices[k]];
   }
-  const weights: Csr = { rows: n, cols, indptr: counts.indptr, indices: counts.indices, data };
+  const weights: Csr = { rows: n, cols: counts.cols, indptr: counts.indptr, indices: counts.indices, data };
   normalizeRows(weights.indptr, data, n, weighting.norm);
-  return { weights, idf };
+  return weights;
 }
 
-function idfOf(kind: WeightingSettings['idf'], n: number, df: number): number {
+/** The idf of a term in `df` of `n` documents (see `weigh`). */
+export function idfOf(kind: WeightingSettings['idf'], n: number, df: number): number {
   switch (kind) {
     case 'smooth':
       return Math.log((1 + n) / (1 + df)) + 1;

@@ -1,4 +1,4 @@
-import { compareCodePoints } from '../matrix/compare-code-points';
+import { compareUtf8 } from './compare-utf8';
 
 /** A candidate for a bottom-k sample: its key, and its place to break (astronomically rare) ties. */
 export interface Ranked {
@@ -9,7 +9,7 @@ export interface Ranked {
 
 /** Orders by key, then by place; a total order, so every reader keeps the same k. */
 export function compareRanked(a: Ranked, b: Ranked): number {
-  return a.key - b.key || compareCodePoints(a.file, b.file) || a.line - b.line;
+  return a.key - b.key || compareUtf8(a.file, b.file) || a.line - b.line;
 }
 
 /**

@@ -1,6 +1,6 @@
+import { compareUtf8 } from '../random/compare-utf8';
 import { readdir, stat } from 'node:fs/promises';
 import * as path from 'node:path';
-import { compareCodePoints } from '../matrix/compare-code-points';
 import { UserError } from '../user-error';
 
 /** One file of a corpus given as a glob or a folder. */
@@ -64,7 +64,7 @@ export async function listCorpusFiles(input: string): Promise<CorpusFile[]> {
 }
 
 function sorted(files: CorpusFile[]): CorpusFile[] {
-  return files.sort((a, b) => compareCodePoints(a.key, b.key));
+  return files.sort((a, b) => compareUtf8(a.key, b.key));
 }
 
 /** The folder part before the first segment with a wildcard, and the rest ('/' separated). */

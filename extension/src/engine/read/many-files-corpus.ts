@@ -57,7 +57,16 @@ export function withPlaces(source: CorpusSource, key: string): PlacedCorpusSourc
   return counted;
 }
 
-class ManyFilesCorpus implements PlacedCorpusSource {
+/** A corpus of many files that can be read file by file. */
+export interface FileByFileSource extends PlacedCorpusSource {
+  eachFile(): AsyncIterable<{ key: string; source: PlacedCorpusSource }>;
+}
+
+export function isFileByFile(source: CorpusSource): source is FileByFileSource {
+  return typeof (source as Partial<FileByFileSource>).eachFile === 'function';
+}
+
+class ManyFilesCorpus implements FileByFileSource {
   readonly format: CorpusFormatName;
   readonly textField: string | null;
   readonly labelField: string | null;
@@ -84,6 +93,15 @@ class ManyFilesCorpus implements PlacedCorpusSource {
   }
 
   async *batches(batchSize = DEFAULT_BATCH_SIZE): AsyncGenerator<CorpusRow[]> {
+    for await (const { source } of this.eachFile()) yield* source.batches(batchSize);
+  }
+
+  /**
+   * The files one by one, each as its own source, for a reader that must treat each file
+   * alike (a fresh tokeniser per file: matrix/count-each-file.ts). Read each one to its end
+   * before asking for the next; the corpus's places, skipped rows and notes fill in as it goes.
+   */
+  async *eachFile(): AsyncGenerator<{ key: string; source: PlacedCorpusSource }> {
     const skipped = { count: 0, examples: [] as SkippedRow[] };
     this.skipped = skipped;
     this.truncated = null;
@@ -92,15 +110,12 @@ class ManyFilesCorpus implements PlacedCorpusSource {
     const formats = new Set<CorpusFormatName>();
     for (let f = 0; f < this.files.length; f++) {
       const file = this.files[f]!;
-      const source = f === 0 ? this.first : await openCorpusFile(file.path, this.fileOptions());
-      this.checkSameFields(file, source);
-      formats.add(source.format);
-      let documents = 0;
-      for await (const rows of source.batches(batchSize)) {
-        documents += rows.length;
-        yield rows;
-      }
-      this.places.documents[f] = documents;
+      const opened = f === 0 ? this.first : await openCorpusFile(file.path, this.fileOptions());
+      this.checkSameFields(file, opened);
+      formats.add(opened.format);
+      const source = withPlaces(opened, file.key);
+      yield { key: file.key, source };
+      this.places.documents[f] = source.places.documents[0]!;
       skipped.count += source.skipped.count;
       for (const example of source.skipped.examples) {
         if (skipped.examples.length >= MAX_SKIPPED_EXAMPLES) break;

@@ -1,18 +1,11 @@
 import { open, stat } from 'node:fs/promises';
-import type { AsyncBuffer, FileMetaData } from 'hyparquet';
+import { parquetMetadataAsync, parquetReadObjects, parquetSchema, type AsyncBuffer, type FileMetaData } from 'hyparquet';
 import type { CorpusFormatName } from '../../protocol';
 import { UserError } from '../user-error';
 import type { CorpusRow, CorpusSource, ReadOptions, SkippedRow } from './corpus-source';
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
 import { DEFAULT_BATCH_SIZE } from './open-corpus';
 import { MAX_SKIPPED_EXAMPLES } from './row-stream';
-
-type Hyparquet = typeof import('hyparquet');
-
-/** hyparquet is an ES module; loading it on first use keeps the CommonJS bundle and the tests happy. */
-async function hyparquet(): Promise<Hyparquet> {
-  return import('hyparquet');
-}
 
 /**
  * Opens an Apache Parquet file (read with hyparquet, a dependency-free JavaScript reader that
@@ -22,21 +15,20 @@ async function hyparquet(): Promise<Hyparquet> {
  * Rows are read one row group at a time, only the two columns, so memory follows the row group.
  */
 export async function openParquetCorpus(file: string, options: ReadOptions = {}): Promise<CorpusSource> {
-  const pq = await hyparquet();
   const buffer = await fileBuffer(file);
   let metadata: FileMetaData;
   try {
-    metadata = await pq.parquetMetadataAsync(buffer);
+    metadata = await parquetMetadataAsync(buffer);
   } catch (e) {
     await buffer.close();
     throw new UserError(`not a readable Parquet file (${(e as Error).message})`, file, null);
   }
-  const fields = pq.parquetSchema(metadata).children.map((c) => c.element.name);
+  const fields = parquetSchema(metadata).children.map((c) => c.element.name);
   const labelField = options.labelField ? pickColumn(file, fields, options.labelField, 'label') : null;
   let textField = options.textField ? pickColumn(file, fields, options.textField, 'text') : null;
   const rows = Number(metadata.num_rows);
   if (textField === null) {
-    const head = rows === 0 ? [] : await readRows(pq, buffer, metadata, fields, 0, Math.min(rows, DETECT_ROWS));
+    const head = rows === 0 ? [] : await readRows(buffer, metadata, fields, 0, Math.min(rows, DETECT_ROWS));
     const sample = head.map((r) => new Map(Object.entries(r)));
     textField = detectTextField(fields, sample, labelField);
     if (textField === null) {
@@ -64,8 +56,7 @@ class ParquetCorpus implements CorpusSource {
   ) {}
 
   async *batches(batchSize = DEFAULT_BATCH_SIZE): AsyncGenerator<CorpusRow[]> {
-    const pq = await hyparquet();
-    const buffer = await fileBuffer(this.file);
+      const buffer = await fileBuffer(this.file);
     const skipped = { count: 0, examples: [] as SkippedRow[] };
     this.skipped = skipped;
     const columns = this.labelField === null ? [this.textField] : [this.textField, this.labelField];
@@ -74,7 +65,7 @@ class ParquetCorpus implements CorpusSource {
       let groupStart = 0;
       for (const group of this.metadata.row_groups) {
         const groupEnd = groupStart + Number(group.num_rows);
-        const rows = await readRows(pq, buffer, this.metadata, columns, groupStart, groupEnd);
+        const rows = await readRows(buffer, this.metadata, columns, groupStart, groupEnd);
         let batch: CorpusRow[] = [];
         for (let i = 0; i < rows.length; i++) {
           const line = groupStart + i + 1;
@@ -111,7 +102,6 @@ function cellText(value: unknown): string | null {
 }
 
 async function readRows(
-  pq: Hyparquet,
   file: AsyncBuffer,
   metadata: FileMetaData,
   columns: readonly string[],
@@ -119,7 +109,7 @@ async function readRows(
   rowEnd: number,
 ): Promise<Record<string, unknown>[]> {
   try {
-    return (await pq.parquetReadObjects({ file, metadata, columns: [...columns], rowStart, rowEnd })) as Record<string, unknown>[];
+    return (await parquetReadObjects({ file, metadata, columns: [...columns], rowStart, rowEnd })) as Record<string, unknown>[];
   } catch (e) {
     throw new UserError(`cannot read rows ${rowStart + 1}–${rowEnd} (${(e as Error).message})`, (file as FileBuffer).path, rowStart + 1);
   }

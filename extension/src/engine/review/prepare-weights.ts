@@ -1,5 +1,7 @@
 import type { EffectiveSettings } from '../../protocol';
 import { buildCountMatrix } from '../matrix/build-count-matrix';
+import { countEachFile } from '../matrix/count-each-file';
+import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
 import { pruneTerms } from '../matrix/prune-terms';
 import { weigh } from '../matrix/weigh';
@@ -38,7 +40,10 @@ export async function prepareWeights(
   onWeighting: () => void,
   signal: AbortSignal | undefined,
 ): Promise<PreparedWeights> {
-  const built = await buildCountMatrix(source, settings.tokens, signal === undefined ? {} : { signal });
+  // Many files: each with a fresh tokeniser, so the terms equal those of a review in shards.
+  const built = isFileByFile(source)
+    ? await countEachFile(source, settings.tokens, signal)
+    : await buildCountMatrix(source, settings.tokens, signal === undefined ? {} : { signal });
   await snapshot?.assertUnchanged();
   if (built.counts.rows === 0) throw new UserError('no documents with text were found', source.file);
 

@@ -28,7 +28,7 @@ export function winkInstance(pipe: WinkPipe): WinkMethods {
 export function freshWinkInstance(pipe: WinkPipe): WinkMethods {
   // Required here rather than imported at the top so the model is parsed only when needed.
   const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
-  const nlp = winkNLP(winkModel(), pipe === 'tokens' ? [] : ['sbd']);
+  const nlp = winkNLP(reusableModel(), pipe === 'tokens' ? [] : ['sbd']);
   assertItsRecognised(nlp);
   return nlp;
 }
@@ -36,6 +36,23 @@ export function freshWinkInstance(pipe: WinkPipe): WinkMethods {
 /** Porter stemmer shipped with the model (the same one `its.stem` calls). */
 export function winkStemmer(): (word: string) => string {
   return winkModel().addons.stem;
+}
+
+let reusable: unknown;
+
+/**
+ * The model as wink-nlp may load it any number of times. wink-eng-lite-web-model 1.8's
+ * metaCER() JSON-stringifies a module-level value in place, so each call returns the previous
+ * answer stringified again (quotes escaped, ~2× longer): the ~10th wink instance of a process
+ * fails with "Invalid string length". Its first answer is kept and handed out again.
+ */
+function reusableModel(): unknown {
+  if (reusable === undefined) {
+    const model = require('wink-eng-lite-web-model') as { metaCER(): unknown };
+    let meta: unknown;
+    reusable = { ...model, metaCER: () => (meta ??= model.metaCER()) };
+  }
+  return reusable;
 }
 
 function winkModel(): { addons: { stem: (word: string) => string } } {

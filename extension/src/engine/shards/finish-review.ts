@@ -1,0 +1,122 @@
+import type { EffectiveSettings, Report } from '../../protocol';
+import type { Csr } from '../matrix/csr';
+import { weighWithIdf } from '../matrix/weigh';
+import type { MaskedTermSums } from '../measures/masked-term-sums';
+import type { CorpusSource } from '../read/corpus-source';
+import { assembleReport } from '../review/assemble-report';
+import { sampleLabelIds, type ReviewSample } from '../review/choose-sample';
+import type { PreparedWeights } from '../review/prepare-weights';
+import { reviewTerms } from '../terms/review-terms';
+import { createTokenizer } from '../tokenize/create-tokenizer';
+import { UserError } from '../user-error';
+import { TermIndex } from '../what-if/term-index';
+import { checkSameSettings, decodeFloat64, decodeUint32, settingsKey, type EncodedSums, type MaskRequest, type PlanPartial, type SumsPartial } from './partials';
+import { ShardedLab } from './sharded-lab';
+
+export type FinishResult = { done: true; report: Report } | { done: false; masks: MaskRequest[] };
+
+/**
+ * The last step: adds up the shards' sums (in shard key order), measures the baseline on the
+ * sample, runs the term review and the suggestions through the same entry point as one process
+ * (terms/review-terms.ts), and assembles the Report. When the review asked for the sums of a mask
+ * no round computed (the suggested stop list, the first time), returns those masks instead.
+ */
+export function finishReview(plan: PlanPartial, settings: EffectiveSettings, partials: ReadonlyArray<{ partial: SumsPartial; file: string }>): FinishResult {
+  const key = settingsKey(settings);
+  if (plan.settingsKey !== key) throw new UserError('the plan was made with other settings: every shard step must use the same loudword.json and options');
+  checkSameSettings(partials.map((p) => ({ header: p.partial, file: p.file })), key);
+  for (const p of partials) {
+    if (p.partial.planId !== plan.planId) throw new UserError(`computed for another plan (${p.partial.planId}, this one is ${plan.planId})`, p.file, null);
+  }
+  const cols = plan.terms.length;
+  const masked = new Map<string, MaskedTermSums>();
+  const maskIds = new Set(partials.flatMap((p) => p.partial.masks.map((m) => m.id)));
+  for (const id of maskIds) masked.set(id, addUp(plan, partials, id, cols));
+  const full = addUp(plan, partials, null, cols);
+
+  const idf = decodeFloat64(plan.idf);
+  const s = plan.sample;
+  const counts: Csr = {
+    rows: s.docs.length,
+    cols,
+    indptr: Uint32Array.from(s.indptr),
+    indices: Uint32Array.from(s.indices),
+    data: Float64Array.from(s.counts),
+  };
+  const sampleRows = weighWithIdf(counts, idf, { ...settings.weighting, norm: 'l2' });
+  const identity = new Uint32Array(s.docs.length).map((_, i) => i);
+  const labels = sampleLabelIds(identity, s.labels);
+  const lab = new ShardedLab(sampleRows, settings.sample.k, settings.sample.seed, labels, masked, full);
+
+  const index = new TermIndex(plan.terms);
+  const tokenize = createTokenizer(settings.tokens);
+  const baseMask = index.mask(plan.stopList.terms);
+  const baseline = lab.measure(baseMask, null);
+  const termReview = reviewTerms({ lab, baseMask, baseline, documents: plan.documents, idf, index, tokenize, settings });
+  if (lab.missing.size > 0) return { done: false, masks: [...lab.missing].map(([id, columns]) => ({ id, columns })) };
+
+  const source = { ...plan.input, skipped: { count: plan.input.skipped, examples: plan.input.skippedExamples ?? [] }, truncated: plan.input.truncated ?? null, fields: [] } as unknown as CorpusSource;
+  const prepared: PreparedWeights = {
+    weights: sampleRows,
+    idf,
+    terms: plan.terms,
+    seenTerms: new Set(),
+    documents: plan.documents,
+    tokens: plan.tokens,
+    nonzeros: plan.nonzeros,
+    lines: Uint32Array.from(s.lines),
+    labels: s.labels,
+    previews: s.previews,
+  };
+  const sample: ReviewSample = { positions: identity, labels, emptyDocuments: 0 };
+  const report = assembleReport({
+    settings,
+    source,
+    prepared,
+    stopList: { file: plan.stopList.file, terms: plan.stopList.terms, unused: plan.stopList.unused },
+    baseline,
+    termReview,
+    sample,
+  });
+  // Hub rows were numbered by sample position; the Report numbers documents in the corpus.
+  for (const hub of report.hubs) hub.doc = s.docs[hub.doc]!;
+  return { done: true, report };
+}
+
+/** One mask's sums (null = unmasked) over all shards, each shard exactly once, in shard order. */
+function addUp(plan: PlanPartial, partials: ReadonlyArray<{ partial: SumsPartial; file: string }>, id: string | null, cols: number): MaskedTermSums {
+  const s1 = new Float64Array(cols);
+  const s2 = new Float64Array(cols);
+  const sxlogx = new Float64Array(cols);
+  const df = new Uint32Array(cols);
+  let nonEmptyRows = 0;
+  for (const shard of plan.shards) {
+    let found: EncodedSums | null = null;
+    let from = '';
+    for (const { partial, file } of partials) {
+      if (partial.shard.key !== shard.key) continue;
+      const part = id === null ? partial.full : (partial.masks.find((m) => m.id === id) ?? null);
+      if (part === null) continue;
+      if (found !== null) throw new UserError(`two sums partials for shard "${shard.key}" (${from} and this one)`, file, null);
+      found = part;
+      from = file;
+    }
+    if (found === null) throw new UserError(`no sums partial for shard "${shard.key}"${id === null ? '' : ` and mask ${id}`}: run the sums step on every shard`);
+    const c = decodeUint32(found.cols);
+    const a1 = decodeFloat64(found.s1);
+    const a2 = decodeFloat64(found.s2);
+    const ax = decodeFloat64(found.sxlogx);
+    const ad = decodeUint32(found.df);
+    for (let i = 0; i < c.length; i++) {
+      const col = c[i]!;
+      s1[col] += a1[i]!;
+      s2[col] += a2[i]!;
+      sxlogx[col] += ax[i]!;
+      df[col] += ad[i]!;
+    }
+    nonEmptyRows += found.nonEmptyRows;
+  }
+  return { sums: { s1, s2, df, sxlogx }, nonEmptyRows };
+}
+
+export type { EffectiveSettings };

@@ -1,0 +1,83 @@
+import type { EffectiveSettings } from '../../protocol';
+import { countFile } from '../matrix/count-each-file';
+import type { CountMatrix, Csr } from '../matrix/csr';
+import { weighWithIdf } from '../matrix/weigh';
+import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
+import { termSums } from '../measures/term-sums';
+import { openCorpusFile } from '../read/open-corpus-file';
+import { UserError } from '../user-error';
+import type { ShardRef } from './count-shard';
+import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
+
+/**
+ * Round 2 of a distributed review, for one shard: reads and tokenises it again, weighs it with
+ * the merged vocabulary and idf, and adds up the exact term sums (docs/methods.md §3) under each
+ * mask the plan asks for, in one pass per mask over the shard's non-zeros. Each row is weighted
+ * and renormalised exactly as the one-process review weighs it, so the sums differ from its sums
+ * only in the order the shards' subtotals are added.
+ */
+export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: EffectiveSettings): Promise<SumsPartial> {
+  if (plan.settingsKey !== settingsKey(settings)) {
+    throw new UserError('the plan was made with other settings: every shard step must use the same loudword.json and options', shard.file, null);
+  }
+  const known = plan.shards.find((s) => s.key === shard.key);
+  if (known === undefined) throw new UserError(`shard "${shard.key}" is not in the plan (${plan.shards.length} shards)`, shard.file, null);
+  const source = await openCorpusFile(shard.file, { format: settings.format, textField: settings.text, labelField: settings.label, maxBytes: settings.limits.maxBytes });
+  const built = await countFile(source, settings.tokens);
+  if (built.counts.rows !== known.documents) {
+    throw new UserError(`the shard changed since round 1: ${built.counts.rows} documents now, ${known.documents} then`, shard.file, null);
+  }
+  const weights = weighWithIdf(inPlanColumns(built.counts, plan.terms), decodeFloat64(plan.idf), { ...settings.weighting, norm: 'l2' });
+  const masks = plan.masks.map((m) => {
+    const removed = new Uint8Array(plan.terms.length);
+    for (const c of m.columns) removed[c] = 1;
+    return { id: m.id, ...encodeSums(maskedTermSums(weights, removed, true)) };
+  });
+  let full: EncodedSums | null = null;
+  if (plan.full) {
+    let nonEmptyRows = 0;
+    for (let r = 0; r < weights.rows; r++) if (weights.indptr[r + 1]! > weights.indptr[r]!) nonEmptyRows++;
+    full = encodeSums({ sums: termSums(weights), nonEmptyRows });
+  }
+  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, full };
+}
+
+/** The shard's counts re-indexed to the plan's columns; terms the merge pruned are dropped. */
+function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr {
+  const columnOf = new Map<string, number>();
+  for (let j = 0; j < planTerms.length; j++) columnOf.set(planTerms[j]!, j);
+  const local = counts.terms.map((t) => columnOf.get(t) ?? -1);
+  const total = counts.indptr[counts.rows]!;
+  let kept = 0;
+  for (let p = 0; p < total; p++) if (local[counts.indices[p]!]! >= 0) kept++;
+  const indptr = new Uint32Array(counts.rows + 1);
+  const indices = new Uint32Array(kept);
+  const data = new Float64Array(kept);
+  let at = 0;
+  for (let r = 0; r < counts.rows; r++) {
+    // Both vocabularies are in code point order, so the mapped columns stay ascending.
+    for (let p = counts.indptr[r]!; p < counts.indptr[r + 1]!; p++) {
+      const c = local[counts.indices[p]!]!;
+      if (c < 0) continue;
+      indices[at] = c;
+      data[at++] = counts.data[p]!;
+    }
+    indptr[r + 1] = at;
+  }
+  return { rows: counts.rows, cols: planTerms.length, indptr, indices, data };
+}
+
+/** Sparse: only the columns this shard touches. */
+function encodeSums({ sums, nonEmptyRows }: MaskedTermSums): EncodedSums {
+  const cols: number[] = [];
+  for (let c = 0; c < sums.df.length; c++) if (sums.df[c] !== 0 || sums.s1[c] !== 0) cols.push(c);
+  const pick = (a: Float64Array): Float64Array => Float64Array.from(cols, (c) => a[c]!);
+  return {
+    nonEmptyRows,
+    cols: encodeUint32(Uint32Array.from(cols)),
+    s1: encodeFloat64(pick(sums.s1)),
+    s2: encodeFloat64(pick(sums.s2)),
+    sxlogx: encodeFloat64(pick(sums.sxlogx)),
+    df: encodeUint32(Uint32Array.from(cols, (c) => sums.df[c]!)),
+  };
+}
