@@ -3,12 +3,9 @@ import * as path from 'node:path';
 import type { Report } from '../protocol';
 import { isUserError } from '../engine/user-error';
 import { startReview } from '../engine/review/start-review';
-import type { SettingsOverrides } from '../engine/config/settings-overrides';
-import type { ReviewInput } from '../engine/review/review-api';
 import { appendTerms, readStopList, replaceStopList } from '../engine/stoplist/stop-list-file';
 import { loadWebviewAssets, renderStandaloneReport } from '../html/standalone-report';
 import { LOUDWORD_VERSION } from '../engine/review/version';
-import { findConfig } from './find-config';
 import { formatMarkdown } from './format-markdown';
 import { formatText } from './format-text';
 import { parseArgs, UsageError, type CliOptions } from './parse-args';
@@ -18,6 +15,9 @@ import { lineOfKey } from '../engine/config/confine-to-workspace';
 import { USAGE } from './usage';
 import { escapeControls, escapeJsonControls } from './terminal-text';
 import { describeSystemError, guardStdout, writeOutputFile, writeStdout } from './write-output';
+import { reviewInputOf } from './review-input-of';
+import { runShardCommand } from './shard-command';
+import { reviewWithDask } from './review-with-dask';
 
 const EXIT = { ok: 0, input: 1, usage: 2, suggestions: 3, internal: 4 } as const;
 
@@ -31,6 +31,7 @@ function say(text: string): Promise<void> {
 
 async function main(argv: readonly string[]): Promise<number> {
   guardStdout();
+  if (argv[0] === 'shard') return runShardCommand(argv.slice(1));
   const options = parseArgs(argv);
   if (options.command === 'help') {
     await say(USAGE);
@@ -40,7 +41,7 @@ async function main(argv: readonly string[]): Promise<number> {
     await say(`${LOUDWORD_VERSION}\n`);
     return EXIT.ok;
   }
-  const input = reviewInput(options);
+  const input = reviewInputOf(options);
   currentCorpus = input.file;
   // Paths typed on the command line are checked before the (long) review starts.
   const inputs: NamedInput[] = [
@@ -49,29 +50,13 @@ async function main(argv: readonly string[]): Promise<number> {
   ];
   if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: options.stopList }]);
   if (options.command === 'apply' && options.stopList !== null) checkWriteTarget('--stoplist', options.stopList, inputs);
-  const session = await startReview(input, { onStage: progressPrinter(options) });
-  const report = session.report;
+  const report = options.dask !== null ? await reviewWithDask(options, options.dask) : (await startReview(input, { onStage: progressPrinter(options) })).report;
   if (options.command === 'apply') return applySuggestions(report, options, inputs);
 
   if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: report.stopList.file }]);
   await emit(render(report, options.format), options.out);
   if (options.out !== null && !options.quiet) process.stderr.write(escapeControls(`loudword: wrote ${options.out}\n`));
   return options.failOnSuggestions && report.suggestions.length > 0 ? EXIT.suggestions : EXIT.ok;
-}
-
-function reviewInput(o: CliOptions): ReviewInput {
-  const file = o.file!;
-  const overrides: SettingsOverrides = { sample: {} };
-  if (o.text !== null) overrides.text = o.text;
-  if (o.label !== null) overrides.label = o.label;
-  if (o.inputFormat !== null) overrides.format = o.inputFormat;
-  // A stop list named on the command line is relative to where the command runs.
-  if (o.stopList !== null) overrides.stopList = path.resolve(o.stopList);
-  if (o.sample !== null) overrides.sample!.documents = o.sample;
-  if (o.k !== null) overrides.sample!.k = o.k;
-  if (o.seed !== null) overrides.sample!.seed = o.seed;
-  const configPath = o.noConfig ? null : o.config ?? findConfig(file, process.cwd());
-  return { file, configPath, overrides };
 }
 
 /** The report in `format`; text and Markdown with control characters escaped, JSON with C1/bidi as \u escapes. */

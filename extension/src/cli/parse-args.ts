@@ -21,6 +21,9 @@ export interface CliOptions {
   failOnSuggestions: boolean;
   dryRun: boolean;
   quiet: boolean;
+  /** Run the review as shard steps on this Dask scheduler ("local": a LocalCluster). */
+  dask: string | null;
+  workdir: string | null;
 }
 
 /** A mistake in the command line itself: the CLI prints it with the usage and exits 2. */
@@ -50,6 +53,7 @@ export interface OptionSpec {
 export const COMMANDS = [
   { name: 'review', args: '<corpus> [options]', help: 'review the corpus and print the findings' },
   { name: 'apply', args: '<corpus> [options]', help: 'review, then add the suggested terms to the stop list file' },
+  { name: 'shard', args: '<step> [options]', help: 'one step of a review in shards: count, plan, sums, finish, settings (README "Reviewing on a cluster")' },
 ] as const;
 
 export const OPTIONS: readonly OptionSpec[] = [
@@ -58,12 +62,14 @@ export const OPTIONS: readonly OptionSpec[] = [
   { flag: 'config', field: 'config', value: 'FILE', check: { kind: 'name' }, help: 'loudword.json to read (default: loudword.json beside the corpus, then in the current folder)' },
   { flag: 'no-config', field: 'noConfig', help: 'ignore any loudword.json' },
   { flag: 'stoplist', field: 'stopList', value: 'FILE', check: { kind: 'name' }, help: 'the stop list file (default: "stopList" of the config, else stoplist.txt)' },
-  { flag: 'input-format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: ['csv', 'tsv', 'jsonl', 'text'] }, help: 'how to read the corpus (default: from the file name and content)' },
+  { flag: 'input-format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: ['csv', 'tsv', 'jsonl', 'text', 'parquet'] }, help: 'how to read the corpus (default: from the file name and content)' },
   { flag: 'format', field: 'format', value: 'F', check: { kind: 'choice', choices: ['text', 'json', 'md', 'html'] }, help: 'output; json prints the Report (default text)' },
   { flag: 'out', field: 'out', value: 'FILE', check: { kind: 'name' }, help: 'write the output to FILE instead of standard output' },
   { flag: 'sample', field: 'sample', value: 'N', check: { kind: 'count', setting: ['sample', 'documents'] }, help: 'documents in the seeded sample for the neighbour measures' },
   { flag: 'k', field: 'k', value: 'N', check: { kind: 'count', setting: ['sample', 'k'] }, help: 'neighbours per document' },
   { flag: 'seed', field: 'seed', value: 'N', check: { kind: 'count', setting: ['sample', 'seed'] }, help: 'sample seed' },
+  { flag: 'dask', field: 'dask', value: 'ADDR', check: { kind: 'name' }, help: 'run the review as shard steps on a Dask cluster (tcp://host:8786), or "local" for a LocalCluster here; the corpus is a glob or a folder of shards' },
+  { flag: 'workdir', field: 'workdir', value: 'DIR', check: { kind: 'name' }, help: 'with --dask: the folder for the partial files, readable and writable by every worker (default: a new temporary folder)' },
   { flag: 'fail-on-suggestions', field: 'failOnSuggestions', help: 'exit with status 3 when terms are suggested (for CI)' },
   { flag: 'dry-run', field: 'dryRun', help: 'with apply: show what would be added, change nothing' },
   { flag: 'quiet', short: 'q', field: 'quiet', help: 'no progress on standard error' },
@@ -95,6 +101,8 @@ const DEFAULTS: CliOptions = {
   failOnSuggestions: false,
   dryRun: false,
   quiet: false,
+  dask: null,
+  workdir: null,
 };
 
 /** Parses the command line with node:util's parseArgs, driven by OPTIONS; throws UsageError. */
@@ -134,6 +142,7 @@ export function parseArgs(argv: readonly string[]): CliOptions {
   if (file === '') throw new UsageError(`${command}: the corpus file name is empty`);
   if (extra.length > 0) throw new UsageError(`unexpected argument "${extra[0]}" (one corpus file per run)`);
   if (o.dryRun && command !== 'apply') throw new UsageError('--dry-run only goes with apply');
+  if (o.workdir !== null && o.dask === null) throw new UsageError('--workdir only goes with --dask');
   return { ...o, command, file };
 }
 

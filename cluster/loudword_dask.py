@@ -1,0 +1,129 @@
+#!/usr/bin/env python3
+"""Runs a Loudword review as shard steps on a Dask cluster.
+
+Called by `loudword review '<glob>' --dask ADDR` (extension/src/cli/review-with-dask.ts), which has
+already written WORKDIR/settings.json (the settings, resolved once) and WORKDIR/shards.json (the
+shard files). Round 1 (`loudword shard count`) and the sums rounds (`loudword shard sums`) run as
+Dask tasks, one per shard, each a `node bin/loudword.js shard ...` process on a worker that writes
+its partial into WORKDIR atomically; the merge (`shard plan`) and `shard finish` run here. A worker
+that dies mid-task has its task rerun elsewhere by the scheduler; a step that fails on its input
+(an unparsable shard) fails the review with the step's own message, naming shard and line.
+
+Workers need Node and the loudword package at the same path as here (or LOUDWORD_BIN set on the
+worker to its bin/loudword.js), and WORKDIR readable and writable at the same path.
+Prints progress to stderr ("loudword: ..." lines) and, last on stdout, one JSON line:
+{"report": PATH} or {"error": MESSAGE}.
+"""
+import argparse
+import json
+import os
+import subprocess
+import sys
+import uuid
+
+from distributed import Client, LocalCluster, as_completed
+
+NEEDS_SUMS = 10  # `shard finish`: the review needs another sums round (extension/src/cli/shard-command.ts)
+MAX_SUMS_ROUNDS = 6
+
+
+class ShardStepFailed(Exception):
+    """A shard step that refused its input (exit status 1) or failed; carries its message."""
+
+
+def run_step(node, loudword, args):
+    """A Dask task: one `loudword shard ...` process. Returns its exit status (0, or NEEDS_SUMS)."""
+    program = os.environ.get("LOUDWORD_BIN", loudword)
+    done = subprocess.run([node, program, "shard", *args], capture_output=True, text=True)
+    if done.returncode not in (0, NEEDS_SUMS):
+        lines = [l for l in done.stderr.strip().splitlines() if l.strip()]
+        message = lines[-1] if lines else f"exit status {done.returncode}"
+        if message.startswith("loudword: "):
+            message = message[len("loudword: "):]
+        raise ShardStepFailed(message)
+    return done.returncode
+
+
+def say(quiet, text):
+    if not quiet:
+        print(f"loudword: {text}", file=sys.stderr, flush=True)
+
+
+def run_round(client, name, node, loudword, commands, quiet):
+    """Submits one task per shard and waits for all, reporting progress as they finish."""
+    token = uuid.uuid4().hex[:8]
+    futures = [
+        client.submit(run_step, node, loudword, args, key=f"loudword-{name}-{i}-{token}", pure=False)
+        for i, args in enumerate(commands)
+    ]
+    done = 0
+    for future in as_completed(futures):
+        future.result()  # raises the step's ShardStepFailed here
+        done += 1
+        say(quiet, f"{name}: {done}/{len(commands)} shards")
+
+
+def review(client, workdir, node, loudword, quiet):
+    settings = os.path.join(workdir, "settings.json")
+    with open(os.path.join(workdir, "shards.json"), encoding="utf-8") as f:
+        shards = json.load(f)
+    counts = [os.path.join(workdir, f"count-{i}.json") for i in range(len(shards))]
+    run_round(client, "round 1 (count)", node, loudword,
+              [["count", s["file"], "--key", s["key"], "--settings", settings, "--out", out] for s, out in zip(shards, counts)],
+              quiet)
+    plan = os.path.join(workdir, "plan-1.json")
+    run_step(node, loudword, ["plan", *counts, "--settings", settings, "--out", plan])
+    say(quiet, "merged: vocabulary, idf and sample")
+    report = os.path.join(workdir, "report.json")
+    sums = []
+    for r in range(1, MAX_SUMS_ROUNDS + 1):
+        outs = [os.path.join(workdir, f"sums-{r}-{i}.json") for i in range(len(shards))]
+        run_round(client, f"round {r + 1} (sums)", node, loudword,
+                  [["sums", s["file"], "--key", s["key"], "--settings", settings, "--plan", plan, "--out", out] for s, out in zip(shards, outs)],
+                  quiet)
+        sums += outs
+        next_plan = os.path.join(workdir, f"plan-{r + 1}.json")
+        status = run_step(node, loudword, ["finish", *sums, "--settings", settings, "--plan", plan, "--out", report, "--next-plan", next_plan])
+        if status == 0:
+            return report
+        plan = next_plan
+        say(quiet, "the suggested stop list needs its exact sums: one more round")
+    raise ShardStepFailed(f"the review still needed more sums after {MAX_SUMS_ROUNDS} rounds")
+
+
+def main():
+    parser = argparse.ArgumentParser(description=__doc__.split("\n")[0])
+    parser.add_argument("--scheduler", required=True, help='tcp://host:port, or "local" for a LocalCluster')
+    parser.add_argument("--workdir", required=True)
+    parser.add_argument("--loudword", required=True, help="path of bin/loudword.js")
+    parser.add_argument("--node", default="node")
+    parser.add_argument("--quiet", action="store_true")
+    a = parser.parse_args()
+    cluster = None
+    try:
+        if a.scheduler == "local":
+            workers = int(os.environ.get("LOUDWORD_DASK_WORKERS", "2"))
+            cluster = LocalCluster(n_workers=workers, threads_per_worker=1, processes=True, dashboard_address=None)
+            client = Client(cluster)
+        else:
+            client = Client(a.scheduler, timeout=30)
+        say(a.quiet, f"Dask: {len(client.scheduler_info()['workers'])} workers at {client.scheduler.address}")
+        try:
+            report = review(client, a.workdir, a.node, a.loudword, a.quiet)
+        finally:
+            client.close()
+        print(json.dumps({"report": report}), flush=True)
+        return 0
+    except ShardStepFailed as e:
+        print(json.dumps({"error": str(e)}), flush=True)
+        return 1
+    except OSError as e:
+        print(json.dumps({"error": f"cannot reach the Dask scheduler {a.scheduler} ({e})"}), flush=True)
+        return 1
+    finally:
+        if cluster is not None:
+            cluster.close()
+
+
+if __name__ == "__main__":
+    sys.exit(main())

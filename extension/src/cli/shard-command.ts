@@ -1,0 +1,145 @@
+import { promises as fs } from 'node:fs';
+import * as path from 'node:path';
+import { parseArgs as parseNodeArgs } from 'node:util';
+import type { EffectiveSettings } from '../protocol';
+import { loadSettings } from '../engine/config/load-settings';
+import { listCorpusFiles } from '../engine/read/corpus-files';
+import { LOUDWORD_VERSION } from '../engine/review/version';
+import { countShard } from '../engine/shards/count-shard';
+import { finishReview } from '../engine/shards/finish-review';
+import { parsePartial, type CountPartial, type PlanPartial, type SumsPartial } from '../engine/shards/partials';
+import { planReview } from '../engine/shards/plan-review';
+import { sumShard } from '../engine/shards/sum-shard';
+import { UserError } from '../engine/user-error';
+import { parseArgs, UsageError } from './parse-args';
+import { reviewInputOf } from './review-input-of';
+import { writeAtomically } from './write-atomically';
+
+/** Exit status of `shard finish` when the review needs another sums round (the next plan is written). */
+export const NEEDS_SUMS = 10;
+
+/** What every shard step reads: the settings resolved once, so all steps use the same. */
+export interface ShardSettingsFile {
+  loudword: 'shard-settings';
+  toolVersion: string;
+  corpus: string;
+  configDir: string | null;
+  settings: EffectiveSettings;
+}
+
+const STEPS = ['settings', 'list', 'count', 'plan', 'sums', 'finish'] as const;
+type Step = (typeof STEPS)[number];
+
+const OPTIONS = {
+  settings: { type: 'string' },
+  key: { type: 'string' },
+  plan: { type: 'string' },
+  out: { type: 'string' },
+  'next-plan': { type: 'string' },
+} as const;
+
+/**
+ * `loudword shard <step>`: the steps of a review in shards, each a separate process a scheduler
+ * can run anywhere (Dask, a Slurm array, Spark's pipe()):
+ *   settings <corpus> [review options] --out S       resolve the settings once
+ *   list <corpus>                                    the shards: one JSON line {key, file} each
+ *   count <file> --key K --settings S --out P        round 1
+ *   plan P... --settings S --out PLAN                the merge
+ *   sums <file> --key K --settings S --plan PLAN --out P   round 2
+ *   finish SUMS... --settings S --plan PLAN --out REPORT [--next-plan NEXT]
+ * finish exits with NEEDS_SUMS after writing NEXT when the review needs the sums of more masks.
+ * Every output is written atomically.
+ */
+export async function runShardCommand(argv: readonly string[]): Promise<number> {
+  const step = argv[0] as Step | undefined;
+  if (step === undefined || !STEPS.includes(step)) throw new UsageError(`shard needs a step: ${STEPS.join(', ')}`);
+  if (step === 'settings') return writeSettings(argv.slice(1));
+  let parsed;
+  try {
+    parsed = parseNodeArgs({ args: [...argv.slice(1)], options: OPTIONS, allowPositionals: true, strict: true });
+  } catch (e) {
+    throw new UsageError(`shard ${step}: ${(e as Error).message}`);
+  }
+  const v = parsed.values;
+  const files = parsed.positionals;
+  const need = (name: keyof typeof OPTIONS): string => {
+    const value = v[name];
+    if (value === undefined || value === '') throw new UsageError(`shard ${step} needs --${name}`);
+    return value;
+  };
+  const one = (what: string): string => {
+    if (files.length !== 1) throw new UsageError(`shard ${step} takes one ${what}, got ${files.length}`);
+    return files[0]!;
+  };
+  if (step === 'list') {
+    for (const f of await listCorpusFiles(one('corpus'))) process.stdout.write(`${JSON.stringify({ key: f.key, file: f.path })}\n`);
+    return 0;
+  }
+  const shared = await readSettings(need('settings'));
+  const { settings } = shared;
+  switch (step) {
+    case 'count': {
+      const file = one('shard file');
+      await writeJson(need('out'), await countShard({ file, key: v.key ?? path.basename(file) }, settings));
+      return 0;
+    }
+    case 'plan': {
+      if (files.length === 0) throw new UsageError('shard plan needs the round-1 partials');
+      const partials = await Promise.all(files.map(async (file) => ({ partial: await readPartial<CountPartial>(file, 'count'), file })));
+      await writeJson(need('out'), await planReview({ corpus: shared.corpus, settings, configDir: shared.configDir, partials }));
+      return 0;
+    }
+    case 'sums': {
+      const file = one('shard file');
+      const plan = await readPartial<PlanPartial>(need('plan'), 'plan');
+      await writeJson(need('out'), await sumShard({ file, key: v.key ?? path.basename(file) }, plan, settings));
+      return 0;
+    }
+    case 'finish': {
+      const plan = await readPartial<PlanPartial>(need('plan'), 'plan');
+      const partials = await Promise.all(files.map(async (file) => ({ partial: await readPartial<SumsPartial>(file, 'sums'), file })));
+      const result = finishReview(plan, settings, partials);
+      if (result.done) {
+        await writeJson(need('out'), result.report);
+        return 0;
+      }
+      await writeJson(need('next-plan'), { ...plan, masks: result.masks, full: false });
+      return NEEDS_SUMS;
+    }
+  }
+}
+
+async function writeSettings(argv: readonly string[]): Promise<number> {
+  const options = parseArgs(['review', ...argv]);
+  if (options.out === null) throw new UsageError('shard settings needs --out');
+  const input = reviewInputOf(options);
+  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides);
+  const file: ShardSettingsFile = { loudword: 'shard-settings', toolVersion: LOUDWORD_VERSION, corpus: input.file, configDir, settings };
+  await writeJson(options.out, file);
+  return 0;
+}
+
+export async function readSettings(file: string): Promise<ShardSettingsFile> {
+  const value = JSON.parse(await readText(file)) as Partial<ShardSettingsFile>;
+  if (value.loudword !== 'shard-settings' || value.settings === undefined) throw new UserError('not a Loudword shard settings file', file, null);
+  if (value.toolVersion !== LOUDWORD_VERSION) {
+    throw new UserError(`written by Loudword ${String(value.toolVersion)}; this is ${LOUDWORD_VERSION}: run every shard step with one version`, file, null);
+  }
+  return value as ShardSettingsFile;
+}
+
+async function readPartial<T>(file: string, step: 'count' | 'plan' | 'sums'): Promise<T> {
+  return parsePartial(await readText(file), file, step) as T;
+}
+
+async function readText(file: string): Promise<string> {
+  try {
+    return await fs.readFile(file, 'utf8');
+  } catch (e) {
+    throw new UserError(`cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`, file, null);
+  }
+}
+
+function writeJson(file: string, value: unknown): Promise<void> {
+  return writeAtomically(file, JSON.stringify(value));
+}
