@@ -1,0 +1,77 @@
+// A review in shards equals the review in one process over the same files (issue 11 point 4).
+// Slow (two whole reviews of each corpus, the shard one reading every shard three times).
+// Corpora: Debian's `fortunes` package (package data, labelled by category), and generated
+// documents (seeded, no outside source). The reference is our own one-process review: the check
+// is that map (per shard) + merge gives the same Report — same sample, same suggestions, every
+// figure equal to 1e-12 (only the order in which shard subtotals are added differs).
+import { strict as assert } from 'node:assert';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { parquetWriteBuffer } from 'hyparquet-writer';
+import type { Report } from '../extension/src/protocol';
+import { loadSettings } from '../extension/src/engine/config/load-settings';
+import { startReview } from '../extension/src/engine/review/start-review';
+import { reviewShards } from '../extension/src/engine/shards/review-shards';
+import { reportDifferences } from './support/report-diff';
+import { fortuneDocs, generatedDocs, writeGzipJsonl, writeShards } from './support/shard-corpora';
+
+const OVERRIDES = { label: 'label', stopList: null, sample: { documents: 400 } };
+
+async function bothWays(corpus: string): Promise<{ one: Report; shards: Report }> {
+  const one = (await startReview({ file: corpus, configPath: null, overrides: OVERRIDES })).report;
+  const { settings, configDir } = await loadSettings(null, OVERRIDES);
+  const shards = await reviewShards({ corpus, settings, configDir });
+  return { one, shards };
+}
+
+function assertSame(one: Report, shards: Report, name: string): void {
+  const { differences, largest } = reportDifferences(one, shards);
+  console.log(`      ${name}: ${one.input.documents} documents, ${one.suggestions.length} suggestions, largest relative difference ${largest.toExponential(1)}`);
+  assert.deepEqual(differences, []);
+  assert.deepEqual(shards.suggestions, one.suggestions);
+  assert.deepEqual(shards.hubs.map((h) => h.doc), one.hubs.map((h) => h.doc));
+}
+
+describe('review in shards = review in one process', function () {
+  this.timeout(300_000);
+  let dir: string;
+  before(() => {
+    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-shards-'));
+  });
+  after(() => rmSync(dir, { recursive: true, force: true }));
+
+  it('Debian fortunes in 8 JSON Lines shards: the same Report', async () => {
+    const shardDir = path.join(dir, 'fortunes');
+    mkdirSync(shardDir);
+    writeShards(shardDir, fortuneDocs(150), 8);
+    const { one, shards } = await bothWays(path.join(shardDir, '*.jsonl'));
+    assert.ok(one.suggestions.length > 0, 'a corpus with loud terms to find');
+    assertSame(one, shards, 'fortunes');
+  });
+
+  it('generated data in 8 shards of three formats (JSON Lines, .jsonl.gz, Parquet): the same Report', async () => {
+    const shardDir = path.join(dir, 'generated');
+    mkdirSync(shardDir);
+    const docs = generatedDocs(2400, 11);
+    const files = writeShards(shardDir, docs, 8);
+    // Shard 6 as gzip, shard 7 as Parquet: the same documents in the same order.
+    const part6 = docs.filter((_, i) => i % 8 === 6);
+    writeGzipJsonl(path.join(shardDir, 'part-6.jsonl.gz'), part6);
+    rmSync(files[6]!);
+    const part7 = docs.filter((_, i) => i % 8 === 7);
+    const parquet = parquetWriteBuffer({
+      columnData: [
+        { name: 'text', data: part7.map((d) => d.text), type: 'STRING' },
+        { name: 'label', data: part7.map((d) => d.label), type: 'STRING' },
+      ],
+      rowGroupSize: 100,
+    });
+    writeFileSync(path.join(shardDir, 'part-7.parquet'), Buffer.from(parquet));
+    rmSync(files[7]!);
+    const { one, shards } = await bothWays(shardDir);
+    assert.equal(one.input.documents, 2400);
+    assertSame(one, shards, 'generated');
+  });
+
+});

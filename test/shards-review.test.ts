@@ -1,0 +1,64 @@
+// The merge of a review in shards: what it refuses and how errors name their shard (issue 11).
+// Corpus: generated documents (seeded; common practice, no source).
+import { strict as assert } from 'node:assert';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { loadSettings } from '../extension/src/engine/config/load-settings';
+import { countShard } from '../extension/src/engine/shards/count-shard';
+import { parsePartial } from '../extension/src/engine/shards/partials';
+import { planReview } from '../extension/src/engine/shards/plan-review';
+import { reviewShards } from '../extension/src/engine/shards/review-shards';
+import { isUserError, type UserError } from '../extension/src/engine/user-error';
+import { generatedDocs, writeShards } from './support/shard-corpora';
+
+const OVERRIDES = { label: 'label', stopList: null, sample: { documents: 400 } };
+
+describe('review in shards: merge checks and errors', function () {
+  this.timeout(300_000);
+  let dir: string;
+  before(() => {
+    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-shards-'));
+  });
+  after(() => rmSync(dir, { recursive: true, force: true }));
+
+  it('planReview refuses partials from other settings, and a partial from another version, naming the file', async () => {
+    const shardDir = path.join(dir, 'settings');
+    mkdirSync(shardDir);
+    const [a, b] = writeShards(shardDir, generatedDocs(60, 3), 2);
+    const one = await loadSettings(null, OVERRIDES);
+    const other = await loadSettings(null, { ...OVERRIDES, sample: { documents: 400, seed: 2 } });
+    const pa = await countShard({ file: a!, key: 'a' }, one.settings);
+    const pb = await countShard({ file: b!, key: 'b' }, other.settings);
+    await assert.rejects(
+      planReview({ corpus: shardDir, settings: one.settings, configDir: null, partials: [{ partial: pa, file: 'a.count.json' }, { partial: pb, file: 'b.count.json' }] }),
+      (e: unknown) => isUserError(e) && (e as UserError).file === 'b.count.json' && /other settings/.test(e.message),
+    );
+    const older = JSON.stringify({ ...pa, toolVersion: '0.0.1' });
+    assert.throws(() => parsePartial(older, 'old.json', 'count'), (e: unknown) => isUserError(e) && /written by Loudword 0\.0\.1/.test(e.message));
+    assert.throws(() => parsePartial(JSON.stringify(pa), 'x.json', 'sums'), /a "count" partial where a "sums" partial was expected/);
+  });
+
+  it('the merge does not depend on the order the partials arrive in', async () => {
+    const shardDir = path.join(dir, 'order');
+    mkdirSync(shardDir);
+    const files = writeShards(shardDir, generatedDocs(300, 5), 4);
+    const { settings } = await loadSettings(null, OVERRIDES);
+    const partials = await Promise.all(files.map(async (file) => ({ partial: await countShard({ file, key: path.basename(file) }, settings), file })));
+    const forward = await planReview({ corpus: shardDir, settings, configDir: null, partials });
+    const backward = await planReview({ corpus: shardDir, settings, configDir: null, partials: [...partials].reverse() });
+    assert.deepEqual(backward, forward);
+  });
+
+  it('an unparsable shard fails the review naming the shard and the line', async () => {
+    const shardDir = path.join(dir, 'broken');
+    mkdirSync(shardDir);
+    writeShards(shardDir, generatedDocs(80, 9), 3);
+    writeFileSync(path.join(shardDir, 'part-3.csv'), 'text,label\nfine words here,a\nmore words,b\n"an open quote that never closes,c\n');
+    const { settings } = await loadSettings(null, OVERRIDES);
+    await assert.rejects(
+      reviewShards({ corpus: shardDir, settings, configDir: null }),
+      (e: unknown) => isUserError(e) && (e as UserError).file === path.join(shardDir, 'part-3.csv') && (e as UserError).line === 4,
+    );
+  });
+});
