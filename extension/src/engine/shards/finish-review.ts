@@ -89,7 +89,7 @@ function addUp(plan: PlanPartial, partials: ReadonlyArray<{ partial: SumsPartial
   const s2 = new Float64Array(cols);
   const sxlogx = new Float64Array(cols);
   const df = new Uint32Array(cols);
-  let nonEmptyRows = 0;
+  let rowsWithWeight = 0;
   for (const shard of plan.shards) {
     let found: EncodedSums | null = null;
     let from = '';
@@ -114,9 +114,9 @@ function addUp(plan: PlanPartial, partials: ReadonlyArray<{ partial: SumsPartial
       sxlogx[col] += ax[i]!;
       df[col] += ad[i]!;
     }
-    nonEmptyRows += found.nonEmptyRows;
+    rowsWithWeight += found.rowsWithWeight;
   }
-  return { sums: { s1, s2, df, sxlogx }, nonEmptyRows };
+  return { sums: { s1, s2, df, sxlogx }, rowsWithWeight };
 }
 
 export type { EffectiveSettings };

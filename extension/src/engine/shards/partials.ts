@@ -88,7 +88,7 @@ export interface PlanPartial extends PartialHeader {
 }
 
 export interface EncodedSums {
-  nonEmptyRows: number;
+  rowsWithWeight: number;
   /** Columns with a non-zero df in this shard, ascending (the other sums are 0). */
   cols: string;
   s1: string;

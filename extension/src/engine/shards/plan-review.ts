@@ -67,7 +67,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
   if (terms.length === 0) throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', input.corpus);
   const index = new TermIndex(terms);
 
-  const sample = mergeSample(parts, shards, index, settings.sample.documents);
+  const sample = mergeSample(parts, shards, index, Float64Array.from(idf), settings.sample.documents);
 
   const projectDir = input.configDir ?? path.dirname(path.resolve(input.corpus));
   const tokenize = createTokenizer(settings.tokens);
@@ -98,7 +98,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
 }
 
 /**
- * The m candidates with the smallest keys that keep a term after pruning, in corpus order.
+ * The m candidates with the smallest keys that keep a weighted term after pruning, in corpus order.
  * Exact when every shard that had more candidates than it kept kept at least the ones below the
  * m-th chosen key — checked, because pruning may empty more candidates than the margin allows.
  */
@@ -106,6 +106,7 @@ function mergeSample(
   parts: ReadonlyArray<{ partial: CountPartial; file: string }>,
   shards: PlanPartial['shards'],
   index: TermIndex,
+  idf: Float64Array,
   size: number,
 ): PlanPartial['sample'] {
   interface Pick {
@@ -131,7 +132,9 @@ function mergeSample(
         cols.push(col);
         counts.push(c.counts[i]!);
       }
-      if (cols.length === 0) continue;
+      // A document with a direction: some kept term with a non-zero weight (idf ln(n/df) is 0
+      // for a term in every document), as matrix/rows-with-weight.ts decides for one process.
+      if (!cols.some((col) => idf[col] !== 0)) continue;
       picks.push({ key: c.key, file: partial.shard.key, line: c.line, doc: shards[s]!.offset + c.row, label: c.label, preview: c.preview, cols, counts });
     }
   }

@@ -40,5 +40,5 @@ export class ShardedLab extends DistanceLab {
 }
 
 function zeroSums(cols: number): MaskedTermSums {
-  return { sums: { s1: new Float64Array(cols), s2: new Float64Array(cols), df: new Uint32Array(cols), sxlogx: new Float64Array(cols) }, nonEmptyRows: 0 };
+  return { sums: { s1: new Float64Array(cols), s2: new Float64Array(cols), df: new Uint32Array(cols), sxlogx: new Float64Array(cols) }, rowsWithWeight: 0 };
 }

@@ -1,6 +1,7 @@
 import type { EffectiveSettings } from '../../protocol';
 import { countFile } from '../matrix/count-each-file';
 import type { CountMatrix, Csr } from '../matrix/csr';
+import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { weighWithIdf } from '../matrix/weigh';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
 import { termSums } from '../measures/term-sums';
@@ -35,9 +36,7 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
   });
   let full: EncodedSums | null = null;
   if (plan.full) {
-    let nonEmptyRows = 0;
-    for (let r = 0; r < weights.rows; r++) if (weights.indptr[r + 1]! > weights.indptr[r]!) nonEmptyRows++;
-    full = encodeSums({ sums: termSums(weights), nonEmptyRows });
+    full = encodeSums({ sums: termSums(weights), rowsWithWeight: rowsWithWeight(weights) });
   }
   return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, full };
 }
@@ -68,12 +67,12 @@ function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr {
 }
 
 /** Sparse: only the columns this shard touches. */
-function encodeSums({ sums, nonEmptyRows }: MaskedTermSums): EncodedSums {
+function encodeSums({ sums, rowsWithWeight: rows }: MaskedTermSums): EncodedSums {
   const cols: number[] = [];
   for (let c = 0; c < sums.df.length; c++) if (sums.df[c] !== 0 || sums.s1[c] !== 0) cols.push(c);
   const pick = (a: Float64Array): Float64Array => Float64Array.from(cols, (c) => a[c]!);
   return {
-    nonEmptyRows,
+    rowsWithWeight: rows,
     cols: encodeUint32(Uint32Array.from(cols)),
     s1: encodeFloat64(pick(sums.s1)),
     s2: encodeFloat64(pick(sums.s2)),
