@@ -17,8 +17,10 @@ Prints progress to stderr ("loudword: ..." lines) and, last on stdout, one JSON 
 import argparse
 import json
 import os
+import resource
 import subprocess
 import sys
+import time
 import uuid
 
 from distributed import Client, LocalCluster, as_completed
@@ -32,16 +34,20 @@ class ShardStepFailed(Exception):
 
 
 def run_step(node, loudword, args):
-    """A Dask task: one `loudword shard ...` process. Returns its exit status (0, or NEEDS_SUMS)."""
+    """A Dask task: one `loudword shard ...` process. Returns its exit status (0, or NEEDS_SUMS),
+    its wall time in seconds and the peak memory (RSS, MB) of the largest step this process ran."""
     program = os.environ.get("LOUDWORD_BIN", loudword)
+    start = time.monotonic()
     done = subprocess.run([node, program, "shard", *args], capture_output=True, text=True)
+    seconds = time.monotonic() - start
+    peak_mb = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss / 1024
     if done.returncode not in (0, NEEDS_SUMS):
         lines = [l for l in done.stderr.strip().splitlines() if l.strip()]
         message = lines[-1] if lines else f"exit status {done.returncode}"
         if message.startswith("loudword: "):
             message = message[len("loudword: "):]
         raise ShardStepFailed(message)
-    return done.returncode
+    return done.returncode, seconds, peak_mb
 
 
 def say(quiet, text):
@@ -49,7 +55,7 @@ def say(quiet, text):
         print(f"loudword: {text}", file=sys.stderr, flush=True)
 
 
-def run_round(client, name, node, loudword, commands, quiet):
+def run_round(client, name, node, loudword, commands, quiet, stats):
     """Submits one task per shard and waits for all, reporting progress as they finish."""
     token = uuid.uuid4().hex[:8]
     futures = [
@@ -57,22 +63,36 @@ def run_round(client, name, node, loudword, commands, quiet):
         for i, args in enumerate(commands)
     ]
     done = 0
+    started = time.monotonic()
+    seconds = []
     for future in as_completed(futures):
-        future.result()  # raises the step's ShardStepFailed here
+        _, took, peak_mb = future.result()  # raises the step's ShardStepFailed here
+        seconds.append(took)
+        stats["peakStepMB"] = max(stats.get("peakStepMB", 0), peak_mb)
         done += 1
         say(quiet, f"{name}: {done}/{len(commands)} shards")
+    stats.setdefault("rounds", []).append({"round": name, "wallSeconds": time.monotonic() - started,
+                                           "stepSeconds": sorted(seconds)})
 
 
-def review(client, workdir, node, loudword, quiet):
+def local_step(node, loudword, args, stats, name):
+    """A step run here (merge, finish), timed."""
+    status, seconds, peak_mb = run_step(node, loudword, args)
+    stats.setdefault("local", []).append({"step": name, "seconds": seconds})
+    stats["peakLocalMB"] = max(stats.get("peakLocalMB", 0), peak_mb)
+    return status
+
+
+def review(client, workdir, node, loudword, quiet, stats):
     settings = os.path.join(workdir, "settings.json")
     with open(os.path.join(workdir, "shards.json"), encoding="utf-8") as f:
         shards = json.load(f)
     counts = [os.path.join(workdir, f"count-{i}.json") for i in range(len(shards))]
     run_round(client, "round 1 (count)", node, loudword,
               [["count", s["file"], "--key", s["key"], "--settings", settings, "--out", out] for s, out in zip(shards, counts)],
-              quiet)
+              quiet, stats)
     plan = os.path.join(workdir, "plan-1.json")
-    run_step(node, loudword, ["plan", *counts, "--settings", settings, "--out", plan])
+    local_step(node, loudword, ["plan", *counts, "--settings", settings, "--out", plan], stats, "plan")
     say(quiet, "merged: vocabulary, idf and sample")
     report = os.path.join(workdir, "report.json")
     sums = []
@@ -80,10 +100,10 @@ def review(client, workdir, node, loudword, quiet):
         outs = [os.path.join(workdir, f"sums-{r}-{i}.json") for i in range(len(shards))]
         run_round(client, f"round {r + 1} (sums)", node, loudword,
                   [["sums", s["file"], "--key", s["key"], "--settings", settings, "--plan", plan, "--out", out] for s, out in zip(shards, outs)],
-                  quiet)
+                  quiet, stats)
         sums += outs
         next_plan = os.path.join(workdir, f"plan-{r + 1}.json")
-        status = run_step(node, loudword, ["finish", *sums, "--settings", settings, "--plan", plan, "--out", report, "--next-plan", next_plan])
+        status = local_step(node, loudword, ["finish", *sums, "--settings", settings, "--plan", plan, "--out", report, "--next-plan", next_plan], stats, "finish")
         if status == 0:
             return report
         plan = next_plan
@@ -108,11 +128,14 @@ def main():
         else:
             client = Client(a.scheduler, timeout=30)
         say(a.quiet, f"Dask: {len(client.scheduler_info()['workers'])} workers at {client.scheduler.address}")
+        stats = {}
         try:
-            report = review(client, a.workdir, a.node, a.loudword, a.quiet)
+            report = review(client, a.workdir, a.node, a.loudword, a.quiet, stats)
         finally:
             client.close()
-        print(json.dumps({"report": report}), flush=True)
+        with open(os.path.join(a.workdir, "stats.json"), "w", encoding="utf-8") as f:
+            json.dump(stats, f)
+        print(json.dumps({"report": report, "stats": stats}), flush=True)
         return 0
     except ShardStepFailed as e:
         print(json.dumps({"error": str(e)}), flush=True)
