@@ -69,6 +69,8 @@ export interface HubRow {
   doc: number;
   /** 1-based line in the source file where the document starts. */
   line: number;
+  /** The file (its path below the corpus root) when the corpus is many files; absent for one file. */
+  file?: string | undefined;
   kOccurrence: number;
   preview: string;
 }

@@ -12,14 +12,15 @@ export function renderHubList(hubs: readonly HubRow[], k: number, onReveal: ((li
   const list = el('ol', { className: 'lw-hubs', attrs: { 'aria-label': 'Hub documents' } });
   for (const hub of hubs.slice(0, MAX_ROWS)) {
     const parts = [
-      el('span', { className: 'lw-hub__line', text: `line ${formatCount(hub.line)}` }),
+      el('span', { className: 'lw-hub__line', text: hub.file === undefined ? `line ${formatCount(hub.line)}` : `${hub.file}:${hub.line}` }),
       el('span', { className: 'lw-hub__k', text: `in ${formatCount(hub.kOccurrence)} lists`, attrs: { title: `Appears in ${hub.kOccurrence} of the sampled ${k}-nearest-neighbour lists (mean is ${k})` } }),
       el('span', { className: 'lw-hub__preview', text: hub.preview }),
     ];
-    const row = onReveal
+    // A hub of a many-file corpus (a shards folder) is in a file the panel has no editor for.
+    const row = onReveal && hub.file === undefined
       ? el('button', { className: 'lw-hub', attrs: { type: 'button', 'data-line': hub.line, title: `Go to line ${hub.line}` } }, parts)
       : el('div', { className: 'lw-hub', attrs: { 'data-line': hub.line } }, parts);
-    if (onReveal) row.addEventListener('click', () => onReveal(hub.line));
+    if (onReveal && hub.file === undefined) row.addEventListener('click', () => onReveal(hub.line));
     list.append(el('li', {}, [row]));
   }
   return list;

@@ -87,6 +87,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     termReview,
     sample,
   });
+  if (source.places.keys.length > 1) nameHubFiles(report, source.places);
   timings[currentStage ?? 'what-if'] = Math.round(performance.now() - stageStart);
   report.timings = timings;
 
@@ -100,3 +101,11 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
 }
 
 
+
+/** In a corpus of many files, a hub's line means nothing without its file. */
+function nameHubFiles(report: Report, places: { keys: readonly string[]; documents: readonly number[] }): void {
+  const ends: number[] = [];
+  let end = 0;
+  for (const n of places.documents) ends.push((end += n));
+  for (const hub of report.hubs) hub.file = places.keys[ends.findIndex((e) => hub.doc < e)];
+}

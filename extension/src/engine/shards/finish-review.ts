@@ -79,7 +79,11 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, par
     sample,
   });
   // Hub rows were numbered by sample position; the Report numbers documents in the corpus.
-  for (const hub of report.hubs) hub.doc = s.docs[hub.doc]!;
+  const manyFiles = plan.shards.length > 1;
+  for (const hub of report.hubs) {
+    if (manyFiles) hub.file = s.files[hub.doc]!;
+    hub.doc = s.docs[hub.doc]!;
+  }
   return { done: true, report };
 }
 
