@@ -7,6 +7,7 @@ import { assembleReport } from '../review/assemble-report';
 import { sampleLabelIds, type ReviewSample } from '../review/choose-sample';
 import type { PreparedWeights } from '../review/prepare-weights';
 import { reviewTerms } from '../terms/review-terms';
+import type { TermCountStats } from '../terms/term-count-stats';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { UserError } from '../user-error';
 import { TermIndex } from '../what-if/term-index';
@@ -36,14 +37,14 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, par
 
   const idf = decodeFloat64(plan.idf);
   const s = plan.sample;
-  const counts: Csr = {
+  const sampleCounts: Csr = {
     rows: s.docs.length,
     cols,
     indptr: Uint32Array.from(s.indptr),
     indices: Uint32Array.from(s.indices),
     data: Float64Array.from(s.counts),
   };
-  const sampleRows = weighWithIdf(counts, idf, { ...settings.weighting, norm: 'l2' });
+  const sampleRows = weighWithIdf(sampleCounts, idf, { ...settings.weighting, norm: 'l2' });
   const identity = new Uint32Array(s.docs.length).map((_, i) => i);
   const labels = sampleLabelIds(identity, s.labels);
   const lab = new ShardedLab(sampleRows, settings.sample.k, settings.sample.seed, labels, masked, full);
@@ -52,7 +53,9 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, par
   const tokenize = createTokenizer(settings.tokens);
   const baseMask = index.mask(plan.stopList.terms);
   const baseline = lab.measure(baseMask, null);
-  const termReview = reviewTerms({ lab, baseMask, baseline, documents: plan.documents, idf, index, tokenize, settings });
+  const counts = addUpCounts(plan, partials, cols);
+  const previews = previewsOf(plan, partials);
+  const termReview = reviewTerms({ lab, baseMask, baseline, documents: plan.documents, idf, index, tokenize, settings, counts, previews });
   if (lab.missing.size > 0) return { done: false, masks: [...lab.missing].map(([id, columns]) => ({ id, columns })) };
 
   const source = { ...plan.input, skipped: { count: plan.input.skipped, examples: plan.input.skippedExamples ?? [] }, truncated: plan.input.truncated ?? null, fields: [] } as unknown as CorpusSource;
@@ -67,6 +70,7 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, par
     lines: Uint32Array.from(s.lines),
     labels: s.labels,
     previews: s.previews,
+    counts,
   };
   const sample: ReviewSample = { positions: identity, labels, emptyDocuments: 0 };
   const report = assembleReport({
@@ -123,4 +127,43 @@ function addUp(plan: PlanPartial, partials: ReadonlyArray<{ partial: SumsPartial
   return { sums: { s1, s2, df, sxlogx }, rowsWithWeight };
 }
 
-export type { EffectiveSettings };
+/** The raw-count statistics over all shards (sums of whole numbers: exact in any order). */
+function addUpCounts(plan: PlanPartial, partials: ReadonlyArray<{ partial: SumsPartial; file: string }>, cols: number): TermCountStats {
+  const total: TermCountStats = {
+    documents: 0,
+    totalTokens: 0,
+    sumLengthSq: 0,
+    df: new Float64Array(cols),
+    cf: new Float64Array(cols),
+    sumCountSq: new Float64Array(cols),
+    sumCountLength: new Float64Array(cols),
+  };
+  for (const shard of plan.shards) {
+    const part = partials.find((p) => p.partial.shard.key === shard.key && p.partial.counts !== null)?.partial.counts;
+    if (part === undefined || part === null) throw new UserError(`no first-round sums partial for shard "${shard.key}": run the sums step on every shard`);
+    total.documents += part.documents;
+    total.totalTokens += part.totalTokens;
+    total.sumLengthSq += part.sumLengthSq;
+    const c = decodeUint32(part.cols);
+    const fields = [
+      [total.df, decodeFloat64(part.df)],
+      [total.cf, decodeFloat64(part.cf)],
+      [total.sumCountSq, decodeFloat64(part.sumCountSq)],
+      [total.sumCountLength, decodeFloat64(part.sumCountLength)],
+    ] as const;
+    for (const [into, from] of fields) for (let i = 0; i < c.length; i++) into[c[i]!]! += from[i]!;
+  }
+  return total;
+}
+
+/**
+ * The documents' previews as the term review reads them: an array as long as the corpus, holding
+ * only the evenly spaced documents the opinion check looks at (plan.previewDocs).
+ */
+function previewsOf(plan: PlanPartial, partials: ReadonlyArray<{ partial: SumsPartial; file: string }>): string[] {
+  const previews: string[] = [];
+  previews.length = plan.documents;
+  for (const { partial } of partials) for (const p of partial.previews) previews[p.doc] = p.preview;
+  for (const doc of plan.previewDocs) if (previews[doc] === undefined) throw new UserError(`no preview of document ${doc}: run the sums step on every shard`);
+  return previews;
+}

@@ -80,9 +80,11 @@ export interface PlanPartial extends PartialHeader {
     indices: number[];
     counts: number[];
   };
-  /** Masks whose sums the next sums round computes; `full` adds the unmasked sums. */
+  /** Masks whose sums the next sums round computes; `full` adds the unmasked sums, the raw-count statistics and the previews. */
   masks: MaskRequest[];
   full: boolean;
+  /** Documents whose previews the opinion check reads (terms/review-terms.ts), ascending. */
+  previewDocs: number[];
   input: Omit<Report['input'], 'documents'>;
   stopList: { file: string | null; terms: string[]; unused: string[] };
 }
@@ -104,6 +106,22 @@ export interface SumsPartial extends PartialHeader {
   shard: { key: string; documents: number };
   masks: Array<{ id: string } & EncodedSums>;
   full: EncodedSums | null;
+  /** Raw-count statistics of the shard (terms/term-count-stats.ts), with `full`. */
+  counts: EncodedCountStats | null;
+  /** Previews of the plan's previewDocs that are in this shard, with `full`. */
+  previews: Array<{ doc: number; preview: string }>;
+}
+
+export interface EncodedCountStats {
+  documents: number;
+  totalTokens: number;
+  sumLengthSq: number;
+  /** Columns with a non-zero df in this shard, ascending. */
+  cols: string;
+  df: string;
+  cf: string;
+  sumCountSq: string;
+  sumCountLength: string;
 }
 
 export type AnyPartial = CountPartial | PlanPartial | SumsPartial;

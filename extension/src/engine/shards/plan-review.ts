@@ -7,6 +7,7 @@ import { idfOf } from '../matrix/weigh';
 import { compareRanked } from '../random/bottom-k';
 import { MAX_SKIPPED_EXAMPLES } from '../read/row-stream';
 import { loadStopList } from '../review/load-stop-list';
+import { OPINION_SAMPLE } from '../terms/review-terms';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { UserError } from '../user-error';
 import { TermIndex } from '../what-if/term-index';
@@ -92,9 +93,16 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     sample,
     masks: [{ id: maskId(base), columns: base }],
     full: true,
+    previewDocs: evenlySpacedDocuments(documents, OPINION_SAMPLE),
     input: mergedInput(input.corpus, parts.map((p) => p.partial)),
     stopList: { file: stopList.file, terms: stopList.terms, unused: stopList.entries.filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
   };
+}
+
+/** The positions terms/review-terms.ts's evenlySpaced picks from n documents. */
+function evenlySpacedDocuments(n: number, max: number): number[] {
+  if (n <= max) return Array.from({ length: n }, (_, i) => i);
+  return Array.from({ length: max }, (_, i) => Math.floor((i * n) / max));
 }
 
 /**

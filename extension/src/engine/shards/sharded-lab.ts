@@ -24,6 +24,10 @@ export class ShardedLab extends DistanceLab {
     super(sampleRows, new Uint32Array(sampleRows.rows).map((_, i) => i), k, seed, sampleLabels);
   }
 
+  protected override exactSums(removed: Uint8Array): MaskedTermSums {
+    return this.sums(removed);
+  }
+
   override sums(removed: Uint8Array): MaskedTermSums {
     const columns = maskColumns(removed);
     const id = maskId(columns);

@@ -5,10 +5,11 @@ import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { weighWithIdf } from '../matrix/weigh';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
 import { termSums } from '../measures/term-sums';
+import { termCountStats, type TermCountStats } from '../terms/term-count-stats';
 import { openCorpusFile } from '../read/open-corpus-file';
 import { UserError } from '../user-error';
 import type { ShardRef } from './count-shard';
-import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
+import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedCountStats, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
 
 /**
  * Round 2 of a distributed review, for one shard: reads and tokenises it again, weighs it with
@@ -28,17 +29,25 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
   if (built.counts.rows !== known.documents) {
     throw new UserError(`the shard changed since round 1: ${built.counts.rows} documents now, ${known.documents} then`, shard.file, null);
   }
-  const weights = weighWithIdf(inPlanColumns(built.counts, plan.terms), decodeFloat64(plan.idf), { ...settings.weighting, norm: 'l2' });
+  const counts = inPlanColumns(built.counts, plan.terms);
+  const weights = weighWithIdf(counts, decodeFloat64(plan.idf), { ...settings.weighting, norm: 'l2' });
   const masks = plan.masks.map((m) => {
     const removed = new Uint8Array(plan.terms.length);
     for (const c of m.columns) removed[c] = 1;
     return { id: m.id, ...encodeSums(maskedTermSums(weights, removed, true)) };
   });
   let full: EncodedSums | null = null;
+  let countStats: EncodedCountStats | null = null;
+  const previews: Array<{ doc: number; preview: string }> = [];
   if (plan.full) {
+    countStats = encodeCountStats(termCountStats(counts));
+    for (const doc of plan.previewDocs) {
+      const row = doc - known.offset;
+      if (row >= 0 && row < known.documents) previews.push({ doc, preview: built.previews[row] ?? '' });
+    }
     full = encodeSums({ sums: termSums(weights), rowsWithWeight: rowsWithWeight(weights) });
   }
-  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, full };
+  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, full, counts: countStats, previews };
 }
 
 /** The shard's counts re-indexed to the plan's columns; terms the merge pruned are dropped. */
@@ -78,5 +87,22 @@ function encodeSums({ sums, rowsWithWeight: rows }: MaskedTermSums): EncodedSums
     s2: encodeFloat64(pick(sums.s2)),
     sxlogx: encodeFloat64(pick(sums.sxlogx)),
     df: encodeUint32(Uint32Array.from(cols, (c) => sums.df[c]!)),
+  };
+}
+
+/** Sparse, like the sums: only the columns with documents in this shard. */
+function encodeCountStats(stats: TermCountStats): EncodedCountStats {
+  const cols: number[] = [];
+  for (let c = 0; c < stats.df.length; c++) if (stats.df[c] !== 0) cols.push(c);
+  const pick = (a: Float64Array): string => encodeFloat64(Float64Array.from(cols, (c) => a[c]!));
+  return {
+    documents: stats.documents,
+    totalTokens: stats.totalTokens,
+    sumLengthSq: stats.sumLengthSq,
+    cols: encodeUint32(Uint32Array.from(cols)),
+    df: pick(stats.df),
+    cf: pick(stats.cf),
+    sumCountSq: pick(stats.sumCountSq),
+    sumCountLength: pick(stats.sumCountLength),
   };
 }

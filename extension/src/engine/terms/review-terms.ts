@@ -39,7 +39,7 @@ export interface TermReview {
 }
 
 /** Documents read for the opinion check: enough for a share to ±0.05. */
-const OPINION_SAMPLE = 400;
+export const OPINION_SAMPLE = 400;
 /** Rows in the Report's term table beyond the suggested, stopped and protected ones. */
 const REPORT_ROWS = 2000;
 
@@ -119,6 +119,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   return { rows, suggestions, suggested, opinion, suggestedMask, verdict };
 }
 
+/** `max` texts at evenly spaced positions (positions ⌊i·n/max⌋; engine/shards/ fetches the same ones). */
 function evenlySpaced(texts: readonly string[], max: number): string[] {
   if (texts.length <= max) return [...texts];
   return Array.from({ length: max }, (_, i) => texts[Math.floor((i * texts.length) / max)]!);
