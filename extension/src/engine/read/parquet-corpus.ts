@@ -16,29 +16,27 @@ import { MAX_SKIPPED_EXAMPLES } from './row-stream';
  */
 export async function openParquetCorpus(file: string, options: ReadOptions = {}): Promise<CorpusSource> {
   const buffer = await fileBuffer(file);
-  let metadata: FileMetaData;
   try {
-    metadata = await parquetMetadataAsync(buffer);
-  } catch (e) {
-    await buffer.close();
-    throw new UserError(`not a readable Parquet file (${(e as Error).message})`, file, null);
-  }
-  const fields = parquetSchema(metadata).children.map((c) => c.element.name);
-  const labelField = options.labelField ? pickColumn(file, fields, options.labelField, 'label') : null;
-  let textField = options.textField ? pickColumn(file, fields, options.textField, 'text') : null;
-  const rows = Number(metadata.num_rows);
-  if (textField === null) {
-    const head = rows === 0 ? [] : await readRows(buffer, metadata, fields, 0, Math.min(rows, DETECT_ROWS));
-    const sample = head.map((r) => new Map(Object.entries(r)));
-    textField = detectTextField(fields, sample, labelField);
-    if (textField === null) {
-      await buffer.close();
-      throw new UserError(`found no text column among ${fields.map((f) => `"${f}"`).join(', ')}; name one with the text setting`, file, null);
+    let metadata: FileMetaData;
+    try {
+      metadata = await parquetMetadataAsync(buffer);
+    } catch (e) {
+      throw new UserError(`not a readable Parquet file (${(e as Error).message})`, file, null);
     }
+    const fields = parquetSchema(metadata).children.map((c) => c.element.name);
+    const labelField = options.labelField ? pickColumn(file, fields, options.labelField, 'label') : null;
+    let textField = options.textField ? pickColumn(file, fields, options.textField, 'text') : null;
+    const rows = Number(metadata.num_rows);
+    if (rows === 0) throw new UserError('no documents: the Parquet file has no rows', file, null);
+    if (textField === null) {
+      const head = await readRows(buffer, metadata, fields, 0, Math.min(rows, DETECT_ROWS));
+      textField = detectTextField(fields, head.map((r) => new Map(Object.entries(r))), labelField);
+      if (textField === null) throw new UserError(`found no text column among ${fields.map((f) => `"${f}"`).join(', ')}; name one with the text setting`, file, null);
+    }
+    return new ParquetCorpus(file, fields, textField, labelField, metadata);
+  } finally {
+    await buffer.close();
   }
-  await buffer.close();
-  if (rows === 0) throw new UserError('no documents: the Parquet file has no rows', file, null);
-  return new ParquetCorpus(file, fields, textField, labelField, metadata);
 }
 
 class ParquetCorpus implements CorpusSource {
