@@ -26,6 +26,7 @@ describe('package.json contributions', () => {
       [COMMAND_IDS.addAllSuggested]: 'Add all suggested terms',
       [COMMAND_IDS.exportHtmlReport]: 'Export HTML report',
       [COMMAND_IDS.openConfig]: 'Open config',
+      [COMMAND_IDS.toggleCorpusMarkers]: 'Show or hide loud-term markers',
     };
     const got = Object.fromEntries(pkg.contributes.commands.map((c) => [c.command, c.title]));
     assert.deepEqual(got, expected);

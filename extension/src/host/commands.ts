@@ -82,4 +82,10 @@ export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
   },
 
   [COMMAND_IDS.openConfig]: (ctx) => () => openConfig(ctx.extensionUri),
+
+  [COMMAND_IDS.toggleCorpusMarkers]: (ctx) => async () => {
+    if (ctx.markers === null) return;
+    const shown = await ctx.markers.toggle();
+    vscode.window.setStatusBarMessage(`Loudword: loud-term markers ${shown ? 'shown' : 'hidden'}`, 3000);
+  },
 };

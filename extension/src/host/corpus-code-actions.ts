@@ -1,4 +1,4 @@
-// Quick fixes on a reviewed corpus: "Add '<term>' to stop list" and "Add all N suggested
+// Quick fixes on a reviewed corpus: "Stop '<term>' — <its evidence>" and "Stop all N suggested
 // terms". Only inside the visible range and with a bounded count, so a million-line corpus
 // costs nothing off screen. The actions run commands; the corpus itself is never edited.
 import * as vscode from 'vscode';
@@ -41,7 +41,8 @@ export class CorpusCodeActions implements vscode.CodeActionProvider {
         }
       }
     }
-    return planCorpusActions(terms, review.report.suggestions, review.addedSinceReview).map((a) => {
+    const evidence = new Map(review.report.terms.map((t) => [t.term, { pullShare: t.pullShare, neighborLift: t.neighborLift }]));
+    return planCorpusActions(terms, review.report.suggestions, review.addedSinceReview, evidence).map((a) => {
       const action = new vscode.CodeAction(a.title, vscode.CodeActionKind.QuickFix);
       if (a.kind === 'addOne') {
         action.command = { command: COMMAND_IDS.addTermToStopList, title: a.title, arguments: [document.uri, a.term] };

@@ -28,6 +28,8 @@ export function activate(context: vscode.ExtensionContext): void {
     reviewAgain: async (r) => void (await ctx.review(r.uri, false)),
   });
   ctx.panel = panel;
+  const markers = new CorpusDecorations(store, context.workspaceState);
+  ctx.markers = markers;
   const onSave = new KeyedDebounce<string>(REVIEW_ON_SAVE_DELAY_MS);
   const fileOrUntitled: vscode.DocumentSelector = [{ scheme: 'file' }, { scheme: 'untitled' }];
 
@@ -40,7 +42,7 @@ export function activate(context: vscode.ExtensionContext): void {
     vscode.languages.registerCodeActionsProvider(fileOrUntitled, new CorpusCodeActions(store), { providedCodeActionKinds: CorpusCodeActions.providedCodeActionKinds }),
     vscode.languages.registerCodeActionsProvider({ scheme: 'file' }, new StopListCodeActions(), { providedCodeActionKinds: StopListCodeActions.providedCodeActionKinds }),
     new StopListDiagnostics(store),
-    new CorpusDecorations(store),
+    markers,
     new StatusHeadlineItem(store),
     vscode.window.onDidChangeActiveTextEditor(() => void ctx.updateActiveContext()),
     vscode.workspace.onDidCloseTextDocument((doc) => store.get(doc.uri)?.stopWorker()),

@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import * as vscode from 'vscode';
 import type { Report } from '../protocol';
 import type { CorpusReview } from './corpus-review';
+import type { CorpusDecorations } from './corpus-decorations';
 import type { DistanceReviewViewProvider } from './distance-review-view';
 import { exportHtmlReport } from './export-html-report';
 import { openAtLine, showReviewError } from './review-error-message';
@@ -13,6 +14,7 @@ import { WorkerFailure } from '../worker/review-worker-client';
 
 export class HostContext {
   panel: DistanceReviewViewProvider | null = null;
+  markers: CorpusDecorations | null = null;
 
   constructor(
     readonly extensionUri: vscode.Uri,

@@ -38,7 +38,7 @@ export const quickFixAddTerm = {
 
     await openFile(ctx.page, SAMPLE);
     await goToLine(ctx.page, at.line, at.column);
-    await applyQuickFix(ctx.page, `Add '${term}' to stop list`);
+    await applyQuickFix(ctx.page, `Stop '${term}' —`);
 
     await openFile(ctx.page, STOP_LIST);
     await waitUntil(`the edit adding "${term}" to reach ${STOP_LIST}`, () => ctx.page.$('.tabs-container .tab.active.dirty'), { timeout: 15000 });

@@ -9,4 +9,5 @@ export const COMMAND_IDS = {
   addAllSuggested: 'loudword.addAllSuggested',
   exportHtmlReport: 'loudword.exportHtmlReport',
   openConfig: 'loudword.openConfig',
+  toggleCorpusMarkers: 'loudword.toggleCorpusMarkers',
 } as const;
