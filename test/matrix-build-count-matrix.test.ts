@@ -144,6 +144,16 @@ describe('matrix/build-count-matrix', () => {
       }
     });
 
+    it('buildCountMatrix carries the over-long-run note back from the worker threads, the same as in-process', async () => {
+      const blob = 'QUJD+/'.repeat(400); // 2,400 characters without a space
+      const rows = Array.from({ length: 30 }, (_, i) => ({ text: i % 11 === 5 ? `doc ${i} ${blob}` : `doc ${i} plain words`, label: null, line: i + 1 }));
+      const inProcess = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 0, batchSize: 4 });
+      const threaded = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 2, batchSize: 4, workerScript: script });
+      assert.equal(inProcess.notes.length, 1);
+      assert.match(inProcess.notes[0]!, /^3 runs .* in 3 documents \(lines 6, 17, 28\)/);
+      assert.deepEqual(threaded.notes, inProcess.notes);
+    });
+
     it('buildCountMatrix falls back to in-process when the worker script is missing', async () => {
       const rows = readFortunes(20);
       const built = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 2, workerScript: join(dir, 'absent.js') });

@@ -4,6 +4,7 @@ import type { CorpusSource } from '../read/corpus-source';
 import { inProcessEncoder, workerEncoder, type BatchEncoder } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
+import { longRunNote } from '../tokenize/long-runs';
 import { compareCodePoints } from './compare-code-points';
 import type { CountMatrix } from './csr';
 import { documentPreview } from './document-preview';
@@ -16,6 +17,8 @@ export interface BuiltCorpus {
   labels: (string | null)[] | null;
   /** First 120 characters of each document, whitespace collapsed. */
   previews: string[];
+  /** What the Report's input notes should say about tokenising (over-long runs cut). */
+  notes: string[];
 }
 
 export interface BuildOptions {
@@ -52,6 +55,16 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
   const labels: (string | null)[] | null = source.labelField === null ? null : [];
   const previews: string[] = [];
   const inFlight: Promise<EncodedBatch>[] = [];
+  let longRuns = 0;
+  let longRunDocs = 0;
+  const longRunLines: number[] = [];
+  const take = (batch: EncodedBatch): void => {
+    const firstRow = counter.rows;
+    counter.add(batch);
+    longRuns += batch.longRuns;
+    longRunDocs += batch.longRunDocs.length;
+    for (const d of batch.longRunDocs) if (longRunLines.length < LINES_NAMED) longRunLines.push(lines.at(firstRow + d));
+  };
   try {
     for await (const rows of source.batches(options.batchSize ?? DEFAULT_BATCH)) {
       signal?.throwIfAborted();
@@ -68,21 +81,25 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
       p.catch(() => undefined); // awaited below in order; this only silences an early rejection
       inFlight.push(p);
       while (inFlight.length >= encoder.parallelism) {
-        counter.add(await inFlight.shift()!);
+        take(await inFlight.shift()!);
         onProgress?.(counter.rows);
         signal?.throwIfAborted();
       }
     }
     while (inFlight.length > 0) {
-      counter.add(await inFlight.shift()!);
+      take(await inFlight.shift()!);
       onProgress?.(counter.rows);
       signal?.throwIfAborted();
     }
   } finally {
     await encoder.close();
   }
-  return { counts: counter.finish(), lines: lines.toArray(), labels, previews };
+  const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
+  return { counts: counter.finish(), lines: lines.toArray(), labels, previews, notes };
 }
+
+/** Source lines named in a note before "…". */
+const LINES_NAMED = 5;
 
 class GrowingUint32 {
   private a = new Uint32Array(1024);
@@ -94,6 +111,9 @@ class GrowingUint32 {
       this.a = grown;
     }
     this.a[this.length++] = v;
+  }
+  at(i: number): number {
+    return this.a[i]!;
   }
   toArray(): Uint32Array {
     return this.a.slice(0, this.length);

@@ -32,7 +32,7 @@ export function assembleReport(p: ReportParts): Report {
       skipped: p.source.skipped.count,
       truncated: p.source.truncated ?? undefined,
       skippedExamples: p.source.skipped.examples.slice(0, 5),
-      notes: p.source.notes && p.source.notes.length > 0 ? [...p.source.notes] : undefined,
+      notes: notesOf(p),
     },
     settings: p.settings,
     vocabulary: { terms: p.prepared.terms.length, tokens, nonzeros: p.prepared.nonzeros, meanDocLength: documents > 0 ? tokens / documents : 0 },
@@ -44,6 +44,12 @@ export function assembleReport(p: ReportParts): Report {
     hubs: hubRows(p),
     stopList: { file: p.stopList.file, terms: p.stopList.terms.length, unused: p.stopList.unused },
   };
+}
+
+/** The reader's notes, then the tokenizer's; undefined when there are none. */
+function notesOf(p: ReportParts): string[] | undefined {
+  const notes = [...(p.source.notes ?? []), ...(p.prepared.notes ?? [])];
+  return notes.length > 0 ? notes : undefined;
 }
 
 function hubRows(p: ReportParts): HubRow[] {

@@ -27,6 +27,8 @@ export interface PreparedWeights {
   previews: string[];
   /** Exact raw-count sums per kept term (stop list not applied), for the suggestion rule. */
   counts: TermCountStats;
+  /** Notes from tokenising for the Report's input notes (over-long runs cut). */
+  notes: string[];
 }
 
 /**
@@ -70,5 +72,6 @@ export async function prepareWeights(
     labels: built.labels,
     previews: built.previews,
     counts: termCountStats(counts),
+    notes: built.notes,
   };
 }

@@ -1,4 +1,5 @@
 import type { WinkMethods } from 'wink-nlp';
+import { cutRun, isOverlongRun } from './long-runs';
 import { isWinkSpacing, WINK_SPLITTER } from './wink-splitter';
 
 /** Entries kept before the cache starts over; a bound on memory, not on correctness. */
@@ -33,12 +34,16 @@ const MAX_CACHED_CHUNKS = 200_000;
  *    yield at least one token; a chunk that is blank to String.prototype.trim (e.g. U+3000,
  *    which wink does not split on, can vanish inside its recursive tokenizer) might not, so a
  *    document with such a miss runs each miss through its own readDoc instead.
+ * 5. A chunk longer than MAX_RUN is replaced by its pieces (long-runs.ts), exactly what
+ *    whole-document wink sees once `cutLongRuns` has put a space at each cut; `onLongRun` is
+ *    called once per run cut.
  * The result is bound to `nlp`: the cache is valid only for that instance's lexeme cache.
  */
 export function chunkCachedUnigrams(
   nlp: WinkMethods,
   lowercase: boolean,
   termOf: (form: string, winkType: string) => string | null,
+  onLongRun: () => void = () => undefined,
 ): (text: string) => string[] {
   const its = nlp.its;
   // chunk → its one term, or null when that token is dropped by the settings.
@@ -91,30 +96,39 @@ export function chunkCachedUnigrams(
     return out;
   };
 
+  // Reused by every call (emptied first): the chunks wink must see and where their terms go in `out`.
+  const misses: string[] = [];
+  const missAt: number[] = [];
+  let blankMiss = false;
+  let out: string[] = [];
+  const visit = (chunk: string): void => {
+    const term = cache.get(chunk);
+    if (term !== undefined) {
+      if (term !== null) out.push(term);
+      return;
+    }
+    misses.push(chunk);
+    missAt.push(out.length);
+    if (chunk.trim() === '') blankMiss = true;
+  };
+
   return (text: string): string[] => {
     const pieces = text.split(WINK_SPLITTER);
-    const out: string[] = [];
-    let misses: string[] | null = null;
-    // Where each miss's terms go in `out`.
-    let missAt: number[] | null = null;
-    let blankMiss = false;
+    out = [];
+    misses.length = 0;
+    missAt.length = 0;
+    blankMiss = false;
     for (let p = 0; p < pieces.length; p++) {
       const chunk = pieces[p]!;
       if (chunk === '' || isWinkSpacing(chunk)) continue;
-      const term = cache.get(chunk);
-      if (term !== undefined) {
-        if (term !== null) out.push(term);
-        continue;
+      if (isOverlongRun(chunk)) {
+        onLongRun();
+        for (const piece of cutRun(chunk)) visit(piece);
+      } else {
+        visit(chunk);
       }
-      if (misses === null || missAt === null) {
-        misses = [];
-        missAt = [];
-      }
-      misses.push(chunk);
-      missAt.push(out.length);
-      if (chunk.trim() === '') blankMiss = true;
     }
-    if (misses === null || missAt === null) return out;
+    if (misses.length === 0) return out;
 
     let missTerms: string[][];
     if (blankMiss) {

@@ -1,11 +1,19 @@
 import type { WinkMethods } from 'wink-nlp';
 import { TOKEN_KINDS, type EffectiveSettings, type TokenKind } from '../../protocol';
 import { chunkCachedUnigrams } from './chunk-cached-unigrams';
+import { cutLongRuns } from './long-runs';
 import { createTermOf } from './term-of-token';
 import { winkInstance } from './wink-instance';
 import { winkSplitsLikeThis } from './wink-splitter';
 
 export type TokenSettings = EffectiveSettings['tokens'];
+
+/** A document → terms function that also counts the over-long runs it had to cut. */
+export interface Tokenizer {
+  (text: string): string[];
+  /** Runs without spaces longer than MAX_RUN cut into pieces so far (long-runs.ts). */
+  readonly longRunsCut: number;
+}
 
 const ALL_KINDS: ReadonlySet<TokenKind> = new Set<TokenKind>(TOKEN_KINDS);
 
@@ -54,19 +62,30 @@ export interface TokenizerEngine {
  * through a cache of whitespace-delimited chunks (see chunk-cached-unigrams.ts for why that is
  * exact). Bigrams need wink's sentence boundaries, which look across chunks, so they always go
  * through wink whole.
+ *
+ * A run without spaces longer than 1,000 characters (a base64 blob, a minified line) is cut into
+ * pieces of at most 256 before wink sees it, because wink's cost on one run grows with the square
+ * of its length; `longRunsCut` counts them (long-runs.ts).
  */
-export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine = {}): (text: string) => string[] {
+export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine = {}): Tokenizer {
   const { lowercase, minLength, ngrams } = settings;
   if (!Number.isInteger(minLength) || minLength < 0) throw new RangeError(`tokens.minLength must be a whole number ≥ 0, got ${minLength}`);
   if (ngrams !== 1 && ngrams !== 2) throw new RangeError(`tokens.ngrams must be 1 or 2, got ${String(ngrams)}`);
   for (const k of settings.kinds) if (!ALL_KINDS.has(k)) throw new RangeError(`unknown token kind "${k}"`);
   const nlp = engine.nlp ?? winkInstance(ngrams === 2 ? 'sentences' : 'tokens');
   const termOf = createTermOf(settings);
-  if (ngrams === 1 && engine.chunkCache !== false && winkSplitsLikeThis()) return chunkCachedUnigrams(nlp, lowercase, termOf);
+  let longRunsCut = 0;
+  const withCount = (f: (text: string) => string[]): Tokenizer =>
+    Object.defineProperty(f, 'longRunsCut', { get: () => longRunsCut }) as Tokenizer;
+  if (ngrams === 1 && engine.chunkCache !== false && winkSplitsLikeThis()) {
+    return withCount(chunkCachedUnigrams(nlp, lowercase, termOf, () => void longRunsCut++));
+  }
   const its = nlp.its;
 
-  return (text: string): string[] => {
-    const doc = nlp.readDoc(text);
+  return withCount((whole: string): string[] => {
+    const bounded = cutLongRuns(whole);
+    longRunsCut += bounded.runs;
+    const doc = nlp.readDoc(bounded.text);
     const tokens = doc.tokens();
     // Each out() walks every token, so skip the surface text when the normal form is used.
     const forms = (lowercase ? tokens.out(its.normal) : tokens.out()) as string[];
@@ -91,5 +110,5 @@ export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine
       if (sentenceOfKept[i] === sentenceOfKept[i - 1]) kept.push(`${kept[i - 1]} ${kept[i]}`);
     }
     return kept;
-  };
+  });
 }
