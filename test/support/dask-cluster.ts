@@ -33,7 +33,7 @@ export class DaskCluster {
 
   /** Process ids of the worker processes (not their nannies), as the scheduler knows them. */
   workerPids(): number[] {
-    const out = this.python(`print(json.dumps([w["pid"] for w in c.scheduler_info()["workers"].values()]))`, 30_000);
+    const out = this.python(`import os\nprint(json.dumps(list(c.run(os.getpid).values())))`, 30_000);
     return JSON.parse(out.trim().split('\n').pop()!) as number[];
   }
 
