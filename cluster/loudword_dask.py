@@ -23,7 +23,12 @@ import sys
 import time
 import uuid
 
-from distributed import Client, LocalCluster, as_completed
+try:
+    from distributed import Client, LocalCluster, as_completed
+except ImportError as missing:  # say what to install, in the driver's result line
+    print(json.dumps({"error": f"this Python has no Dask distributed ({missing}): install python3-distributed python3-dask, "
+                               "or point LOUDWORD_PYTHON at a Python that has it"}), flush=True)
+    sys.exit(1)
 
 NEEDS_SUMS = 10  # `shard finish`: the review needs another sums round (extension/src/cli/shard-command.ts)
 MAX_SUMS_ROUNDS = 6
