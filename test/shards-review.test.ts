@@ -50,6 +50,18 @@ describe('review in shards: merge checks and errors', function () {
     assert.deepEqual(backward, forward);
   });
 
+  it('planReview refuses to guess when pruning empties most sample candidates (the sample could not be exact)', async () => {
+    const shardDir = path.join(dir, 'pruned');
+    mkdirSync(shardDir);
+    // Nine documents in ten hold only "filler", which maxDf 0.5 prunes: their rows are empty.
+    const docs = Array.from({ length: 600 }, (_, i) => ({ text: i % 10 === 0 ? `rare${i} word${i % 7}` : 'filler filler', label: 'x' }));
+    const files = writeShards(shardDir, docs, 2);
+    const { settings } = await loadSettings(null, { ...OVERRIDES, sample: { documents: 40 } });
+    settings.prune.maxDf = 0.5;
+    const partials = await Promise.all(files.map(async (file) => ({ partial: await countShard({ file, key: path.basename(file) }, settings), file })));
+    await assert.rejects(planReview({ corpus: shardDir, settings, configDir: null, partials }), (e: unknown) => isUserError(e) && /pruning emptied too many/.test(e.message));
+  });
+
   it('an unparsable shard fails the review naming the shard and the line', async () => {
     const shardDir = path.join(dir, 'broken');
     mkdirSync(shardDir);

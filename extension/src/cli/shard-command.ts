@@ -85,8 +85,11 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
     }
     case 'plan': {
       if (files.length === 0) throw new UsageError('shard plan needs the round-1 partials');
-      const partials = await Promise.all(files.map(async (file) => ({ partial: await readPartial<CountPartial>(file, 'count'), file })));
-      await writeJson(need('out'), await planReview({ corpus: shared.corpus, settings, configDir: shared.configDir, partials }));
+      // One partial in memory at a time: the merge folds each in and lets it go.
+      async function* partials(): AsyncGenerator<{ partial: CountPartial; file: string }> {
+        for (const file of files) yield { partial: await readPartial<CountPartial>(file, 'count'), file };
+      }
+      await writeJson(need('out'), await planReview({ corpus: shared.corpus, settings, configDir: shared.configDir, partials: partials() }));
       return 0;
     }
     case 'sums': {

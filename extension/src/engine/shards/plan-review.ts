@@ -4,13 +4,14 @@ import type { EffectiveSettings } from '../../protocol';
 import { compareCodePoints } from '../matrix/compare-code-points';
 import { documentCount } from '../matrix/prune-terms';
 import { idfOf } from '../matrix/weigh';
-import { compareRanked } from '../random/bottom-k';
+import { BottomK, compareRanked, type Ranked } from '../random/bottom-k';
 import { MAX_SKIPPED_EXAMPLES } from '../read/row-stream';
 import { loadStopList } from '../review/load-stop-list';
 import { OPINION_SAMPLE } from '../terms/review-terms';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { UserError } from '../user-error';
 import { TermIndex } from '../what-if/term-index';
+import { candidateLimit } from './count-shard';
 import { checkSameSettings, encodeFloat64, header, maskColumns, maskId, settingsKey, type CountPartial, type PlanPartial } from './partials';
 
 export interface PlanInput {
@@ -19,36 +20,79 @@ export interface PlanInput {
   settings: EffectiveSettings;
   /** The folder loudword.json was found in (the stop list is relative to it), or null. */
   configDir: string | null;
-  partials: ReadonlyArray<{ partial: CountPartial; file: string }>;
+  /** Round-1 partials, read one at a time: each is folded in and let go. */
+  partials: AsyncIterable<{ partial: CountPartial; file: string }> | Iterable<{ partial: CountPartial; file: string }>;
+}
+
+/** What the merge keeps of a shard once its partial is folded in: a few numbers, not its vocabulary. */
+interface ShardSummary {
+  key: string;
+  file: string;
+  documents: number;
+  tokens: number;
+  input: CountPartial['input'];
+  shardFile: string;
+  /** The shard had more candidates than it kept; the highest it kept bounds what it left out. */
+  truncatedAbove: Ranked | null;
+  candidateLimit: number;
+}
+
+/** A candidate after its partial is let go: its terms by name. */
+interface HeldCandidate extends Ranked {
+  row: number;
+  label: string | null;
+  preview: string;
+  terms: string[];
+  counts: number[];
 }
 
 /**
  * The merge after round 1: the vocabulary (union of the shards' terms, code point order), df
  * summed, pruned by the df bounds, idf; the sample (the documents with the smallest place keys
- * among all candidates that keep a term); the stop list's columns. O(vocabulary + shards ×
- * candidates): no document is touched that is not a sample candidate.
+ * among all candidates that keep a weighted term); the stop list's columns. Partials are folded
+ * in one at a time, keeping the df of each term and the smallest candidates overall (a bottom-k
+ * of twice the sample), so memory is O(vocabulary + sample), whatever the number of shards.
  */
 export async function planReview(input: PlanInput): Promise<PlanPartial> {
   const { settings } = input;
-  if (input.partials.length === 0) throw new UserError('no round-1 partials to merge');
-  checkSameSettings(input.partials.map((p) => ({ header: p.partial, file: p.file })), settingsKey(settings));
-  const parts = [...input.partials].sort((a, b) => compareCodePoints(a.partial.shard.key, b.partial.shard.key));
-  for (let i = 1; i < parts.length; i++) {
-    if (parts[i]!.partial.shard.key === parts[i - 1]!.partial.shard.key) {
-      throw new UserError(`two round-1 partials for shard "${parts[i]!.partial.shard.key}" (${parts[i - 1]!.file} and this one)`, parts[i]!.file, null);
+  const expectedKey = settingsKey(settings);
+  const dfOf = new Map<string, number>();
+  const summaries = new Map<string, ShardSummary>();
+  const held = new BottomK<HeldCandidate>(candidateLimit(settings));
+  let candidatesSeen = 0;
+  for await (const { partial, file } of input.partials) {
+    checkSameSettings([{ header: partial, file }], expectedKey);
+    const earlier = summaries.get(partial.shard.key);
+    if (earlier !== undefined) throw new UserError(`two round-1 partials for shard "${partial.shard.key}" (${earlier.file} and this one)`, file, null);
+    for (let j = 0; j < partial.terms.length; j++) dfOf.set(partial.terms[j]!, (dfOf.get(partial.terms[j]!) ?? 0) + partial.df[j]!);
+    const last = partial.candidates[partial.candidates.length - 1];
+    summaries.set(partial.shard.key, {
+      key: partial.shard.key,
+      file,
+      documents: partial.documents,
+      tokens: partial.tokens,
+      input: partial.input,
+      shardFile: partial.shard.file,
+      truncatedAbove: partial.nonEmptyDocuments > partial.candidates.length && last !== undefined ? { key: last.key, file: partial.shard.key, line: last.line } : null,
+      candidateLimit: partial.candidateLimit,
+    });
+    for (const c of partial.candidates) {
+      candidatesSeen++;
+      const item = { key: c.key, file: partial.shard.key, line: c.line };
+      if (!held.admits(item)) continue;
+      held.push({ ...item, row: c.row, label: c.label, preview: c.preview, terms: c.terms.map((t) => partial.terms[t]!), counts: c.counts });
     }
   }
+  if (summaries.size === 0) throw new UserError('no round-1 partials to merge');
+  const parts = [...summaries.values()].sort((a, b) => compareCodePoints(a.key, b.key));
 
-  // Vocabulary and df: every shard's terms, summed.
-  const dfOf = new Map<string, number>();
   let documents = 0;
   let tokens = 0;
   const shards: PlanPartial['shards'] = [];
-  for (const { partial } of parts) {
-    shards.push({ key: partial.shard.key, documents: partial.documents, offset: documents });
-    documents += partial.documents;
-    tokens += partial.tokens;
-    for (let j = 0; j < partial.terms.length; j++) dfOf.set(partial.terms[j]!, (dfOf.get(partial.terms[j]!) ?? 0) + partial.df[j]!);
+  for (const part of parts) {
+    shards.push({ key: part.key, documents: part.documents, offset: documents });
+    documents += part.documents;
+    tokens += part.tokens;
   }
   if (documents === 0) throw new UserError('no documents with text were found', input.corpus);
   const allTerms = [...dfOf.keys()].sort(compareCodePoints);
@@ -68,7 +112,8 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
   if (terms.length === 0) throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', input.corpus);
   const index = new TermIndex(terms);
 
-  const sample = mergeSample(parts, shards, index, Float64Array.from(idf), settings.sample.documents);
+  const overall = candidatesSeen > held.size ? held.items()[held.size - 1]! : null;
+  const sample = mergeSample(held.items(), overall, parts, shards, index, Float64Array.from(idf), settings.sample.documents);
 
   const projectDir = input.configDir ?? path.dirname(path.resolve(input.corpus));
   const tokenize = createTokenizer(settings.tokens);
@@ -76,7 +121,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
   const base = maskColumns(index.mask(stopList.terms));
 
   const planId = createHash('sha256')
-    .update(JSON.stringify({ key: settingsKey(settings), shards, terms }))
+    .update(JSON.stringify({ key: expectedKey, shards, terms }))
     .digest('hex')
     .slice(0, 16);
   return {
@@ -94,7 +139,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     masks: [{ id: maskId(base), columns: base }],
     full: true,
     previewDocs: evenlySpacedDocuments(documents, OPINION_SAMPLE),
-    input: mergedInput(input.corpus, parts.map((p) => p.partial)),
+    input: mergedInput(input.corpus, parts),
     stopList: { file: stopList.file, terms: stopList.terms, unused: stopList.entries.filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
   };
 }
@@ -106,57 +151,44 @@ function evenlySpacedDocuments(n: number, max: number): number[] {
 }
 
 /**
- * The m candidates with the smallest keys that keep a weighted term after pruning, in corpus order.
- * Exact when every shard that had more candidates than it kept kept at least the ones below the
- * m-th chosen key — checked, because pruning may empty more candidates than the margin allows.
+ * The m held candidates with the smallest keys that keep a weighted term after pruning, in
+ * corpus order. Exact when nothing left out could rank below the m-th chosen: neither a
+ * candidate the merge let go (`overall`) nor a document a shard did not send (its
+ * `truncatedAbove`) — checked, because pruning may empty more candidates than the margin allows.
  */
 function mergeSample(
-  parts: ReadonlyArray<{ partial: CountPartial; file: string }>,
+  candidates: readonly HeldCandidate[],
+  overall: Ranked | null,
+  parts: readonly ShardSummary[],
   shards: PlanPartial['shards'],
   index: TermIndex,
   idf: Float64Array,
   size: number,
 ): PlanPartial['sample'] {
-  interface Pick {
-    key: number;
-    file: string;
-    line: number;
-    doc: number;
-    label: string | null;
-    preview: string;
-    cols: number[];
-    counts: number[];
-  }
-  const picks: Pick[] = [];
-  for (let s = 0; s < parts.length; s++) {
-    const { partial } = parts[s]!;
-    const columnOf = partial.terms.map((t) => index.column(t) ?? -1);
-    for (const c of partial.candidates) {
-      const cols: number[] = [];
-      const counts: number[] = [];
-      for (let i = 0; i < c.terms.length; i++) {
-        const col = columnOf[c.terms[i]!]!;
-        if (col < 0) continue;
-        cols.push(col);
-        counts.push(c.counts[i]!);
-      }
-      // A document with a direction: some kept term with a non-zero weight (idf ln(n/df) is 0
-      // for a term in every document), as matrix/rows-with-weight.ts decides for one process.
-      if (!cols.some((col) => idf[col] !== 0)) continue;
-      picks.push({ key: c.key, file: partial.shard.key, line: c.line, doc: shards[s]!.offset + c.row, label: c.label, preview: c.preview, cols, counts });
+  const offsetOf = new Map(shards.map((s) => [s.key, s.offset]));
+  const chosen: Array<HeldCandidate & { doc: number; cols: number[]; kept: number[] }> = [];
+  for (const c of candidates) {
+    if (chosen.length >= size) break;
+    const cols: number[] = [];
+    const kept: number[] = [];
+    for (let i = 0; i < c.terms.length; i++) {
+      const col = index.column(c.terms[i]!);
+      if (col === undefined) continue;
+      cols.push(col);
+      kept.push(c.counts[i]!);
     }
+    // A document with a direction: some kept term with a non-zero weight (idf ln(n/df) is 0
+    // for a term in every document), as matrix/rows-with-weight.ts decides for one process.
+    if (!cols.some((col) => idf[col] !== 0)) continue;
+    chosen.push({ ...c, doc: offsetOf.get(c.file)! + c.row, cols, kept });
   }
-  picks.sort(compareRanked);
-  const chosen = picks.slice(0, size);
   const last = chosen[chosen.length - 1];
-  for (const { partial, file } of parts) {
-    const truncated = partial.nonEmptyDocuments > partial.candidates.length;
-    if (!truncated) continue;
-    const highest = partial.candidates[partial.candidates.length - 1]!;
-    if (chosen.length < size || (last !== undefined && compareRanked(last, { key: highest.key, file: partial.shard.key, line: highest.line }) >= 0)) {
+  const bounds = [...parts.map((p) => ({ bound: p.truncatedAbove, file: p.file, limit: p.candidateLimit })), { bound: overall, file: null, limit: candidates.length }];
+  for (const { bound, file, limit } of bounds) {
+    if (bound === null) continue;
+    if (chosen.length < size || (last !== undefined && compareRanked(last, bound) >= 0)) {
       throw new UserError(
-        `pruning emptied too many of this shard's ${partial.candidateLimit} sample candidates to choose the sample exactly; ` +
-          `lower sample.documents or loosen prune.minDf/maxDf`,
+        `pruning emptied too many of the ${limit} sample candidates to choose the sample exactly; lower sample.documents or loosen prune.minDf/maxDf`,
         file,
         null,
       );
@@ -169,10 +201,10 @@ function mergeSample(
   for (const p of chosen) {
     // Global columns keep the shard's code point order, so a row's columns stay ascending.
     indices.push(...p.cols);
-    counts.push(...p.counts);
+    counts.push(...p.kept);
     indptr.push(indices.length);
   }
-  const labelled = parts[0]!.partial.input.labelField !== null;
+  const labelled = parts[0]!.input.labelField !== null;
   return {
     docs: chosen.map((p) => p.doc),
     files: chosen.map((p) => p.file),
@@ -186,7 +218,7 @@ function mergeSample(
 }
 
 /** The Report's input section, as a one-process review of the same files would write it. */
-function mergedInput(corpus: string, partials: readonly CountPartial[]): PlanPartial['input'] {
+function mergedInput(corpus: string, partials: readonly ShardSummary[]): PlanPartial['input'] {
   const first = partials[0]!;
   const notes = partials.length > 1 ? [`${partials.length} files read as one corpus`] : [];
   const skippedExamples: Array<{ line: number; reason: string }> = [];
@@ -196,18 +228,18 @@ function mergedInput(corpus: string, partials: readonly CountPartial[]): PlanPar
   for (const p of partials) {
     if (p.input.textField !== first.input.textField || p.input.labelField !== first.input.labelField) {
       throw new UserError(
-        `its text/label fields (${p.input.textField ?? 'none'}/${p.input.labelField ?? 'none'}) differ from shard ${first.shard.key}'s ` +
+        `its text/label fields (${p.input.textField ?? 'none'}/${p.input.labelField ?? 'none'}) differ from shard ${first.key}'s ` +
           `(${first.input.textField ?? 'none'}/${first.input.labelField ?? 'none'})`,
-        p.shard.file,
+        p.shardFile,
         null,
       );
     }
     formats.add(p.input.format);
     skipped += p.input.skipped;
     for (const e of p.input.skippedExamples) {
-      if (skippedExamples.length < MAX_SKIPPED_EXAMPLES) skippedExamples.push(partials.length > 1 ? { line: e.line, reason: `${p.shard.key}: ${e.reason}` } : e);
+      if (skippedExamples.length < MAX_SKIPPED_EXAMPLES) skippedExamples.push(partials.length > 1 ? { line: e.line, reason: `${p.key}: ${e.reason}` } : e);
     }
-    for (const note of p.input.notes) notes.push(partials.length > 1 ? `${p.shard.key}: ${note}` : note);
+    for (const note of p.input.notes) notes.push(partials.length > 1 ? `${p.key}: ${note}` : note);
     if (p.input.truncated !== null) truncated = p.input.truncated;
   }
   if (formats.size > 1) notes.push(`the files hold different formats (${[...formats].join(', ')}); each was read as its own`);
