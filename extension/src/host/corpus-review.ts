@@ -5,6 +5,7 @@ import * as path from 'node:path';
 import * as vscode from 'vscode';
 import type { Report } from '../protocol';
 import type { ReviewStage } from '../engine/review/review-api';
+import type { SettingsOverrides } from '../engine/config/settings-overrides';
 import { ReviewWorkerClient } from '../worker/review-worker-client';
 import { prepareReview } from './review-input';
 import { stageProgress } from './pure/stage-progress';
@@ -51,7 +52,7 @@ export class CorpusReview implements vscode.Disposable {
    * Runs a review with a cancellable progress notification. A review already running for this
    * corpus is cancelled first (its worker is stopped). Rejects with WorkerFailure.
    */
-  async run(doc: vscode.TextDocument | undefined, onStage: (stage: ReviewStage | null) => void): Promise<Report> {
+  async run(doc: vscode.TextDocument | undefined, onStage: (stage: ReviewStage | null) => void, extraOverrides: SettingsOverrides = {}): Promise<Report> {
     this.cancel();
     this.closed = false;
     this.cancelledByUser = false;
@@ -60,6 +61,8 @@ export class CorpusReview implements vscode.Disposable {
     this.runningVersion = doc?.version ?? -1;
     try {
       const prepared = await prepareReview(this.uri, doc);
+      // A column picked after a missing-field error wins over the settings for this review.
+      prepared.input.overrides = { ...prepared.input.overrides, ...extraOverrides };
       this.expectedStopList = prepared.stopListPath;
       this.configDir = prepared.configPath === null ? prepared.workspaceRoot : path.dirname(prepared.configPath);
       const report = await vscode.window.withProgress(

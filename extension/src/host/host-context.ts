@@ -11,6 +11,8 @@ import { openAtLine, showReviewError } from './review-error-message';
 import type { ReviewStore } from './review-store';
 import { addTermsToReviewStopList } from './stop-list-edits';
 import { WorkerFailure } from '../worker/review-worker-client';
+import type { SettingsOverrides } from '../engine/config/settings-overrides';
+import { pickMissingColumn } from './column-picker';
 
 export class HostContext {
   panel: DistanceReviewViewProvider | null = null;
@@ -25,14 +27,14 @@ export class HostContext {
    * Reviews the corpus at `uri` (its open document's text when unsaved); errors become
    * messages, never exceptions (the host must not crash).
    */
-  async review(uri: vscode.Uri, reveal: boolean): Promise<CorpusReview | null> {
+  async review(uri: vscode.Uri, reveal: boolean, overrides: SettingsOverrides = {}): Promise<CorpusReview | null> {
     const doc = vscode.workspace.textDocuments.find((d) => d.uri.toString() === uri.toString());
     const review = this.store.getOrCreate(uri);
     // A second click while the same text is being reviewed (a quick double click on the title
     // button) would only restart the work: the first run carries on.
     if (review.isRunning && review.runningVersion === (doc?.version ?? -1)) return null;
     try {
-      await review.run(doc, (stage) => this.panel?.busy(stage));
+      await review.run(doc, (stage) => this.panel?.busy(stage), overrides);
       this.store.focus(review);
       this.store.notify(review);
       await vscode.commands.executeCommand('setContext', 'loudword.hasReview', true);
@@ -44,6 +46,18 @@ export class HostContext {
         // Only the user's Cancel is reported; a run replaced by a newer one ends silently.
         if (review.cancelledByUser) void vscode.window.showInformationMessage('Loudword: Review cancelled.');
         return null;
+      }
+      // The text or label field is not in the file: offer its columns rather than only the error.
+      if (e instanceof WorkerFailure && e.kind === 'user' && Object.keys(overrides).length === 0) {
+        const picked = await pickMissingColumn(uri, e.message);
+        if (picked !== null) {
+          const again = await this.review(uri, reveal, picked);
+          if (again !== null) {
+            const [key, value] = Object.entries(picked)[0]!;
+            void vscode.window.showInformationMessage(`Loudword: reviewed with ${key} = ${JSON.stringify(value)}. To keep it, set "${key}": ${JSON.stringify(value)} in loudword.json.`);
+          }
+          return again;
+        }
       }
       void showReviewError(e);
       return null;

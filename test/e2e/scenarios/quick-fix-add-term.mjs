@@ -1,5 +1,6 @@
 // On a flagged term in the corpus, the quick fix adds it to stoplist.txt: the term once, the
-// comments kept; Undo in the stop list takes it out again; the corpus's bytes never change.
+// comments kept; the panel says it is out of date; Undo in the stop list takes it out again;
+// the corpus's bytes never change.
 import path from 'node:path';
 import { readFileSync } from 'node:fs';
 import { reviewCorpus, cliReportFor } from '../lib/review-corpus.mjs';
@@ -7,6 +8,7 @@ import { sha256 } from '../lib/cli-report.mjs';
 import { firstWordPosition } from '../lib/text-position.mjs';
 import { goToLine, applyQuickFix, openFile, saveActiveEditor, focusActiveEditor } from '../lib/workbench.mjs';
 import { waitUntil } from '../lib/wait-until.mjs';
+import { panelFrame } from '../lib/distance-review-panel.mjs';
 import { SAMPLE } from './review-from-palette.mjs';
 
 const STOP_LIST = 'stoplist.txt';
@@ -59,6 +61,16 @@ export const quickFixAddTerm = {
       }
       cursor = found + 1;
     }
+    // The panel now says its figures predate the stop-list change and offers a re-review.
+    const panel = await panelFrame(ctx.page);
+    const banner = await waitUntil('the panel to say the review is out of date', async () => {
+      const text = await panel.$eval('.lw-stale', (e) => e.textContent ?? '').catch(() => null);
+      return text !== null && text.includes(STOP_LIST) && text.includes('Review again') ? text : null;
+    }, { timeout: 15000 }).catch((e) => {
+      problems.push(e.message);
+      return null;
+    });
+    void banner;
     await ctx.screenshot();
 
     await focusActiveEditor(ctx.page);

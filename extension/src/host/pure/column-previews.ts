@@ -1,0 +1,60 @@
+// The columns (CSV/TSV) or keys (JSON Lines) of a corpus with a preview of their first values,
+// for the picker offered when the text or label field is missing. Reads only the start of the
+// text it is given. Pure: no editor types.
+import Papa from 'papaparse';
+
+export interface ColumnPreview {
+  name: string;
+  /** The first non-empty values, shortened. */
+  samples: string[];
+}
+
+const PREVIEW_ROWS = 3;
+const SAMPLE_CHARS = 60;
+
+function shorten(value: unknown): string {
+  const text = (typeof value === 'string' ? value : JSON.stringify(value) ?? '').replace(/\s+/g, ' ').trim();
+  return text.length > SAMPLE_CHARS ? `${text.slice(0, SAMPLE_CHARS - 1)}…` : text;
+}
+
+/** `head`: the first few kilobytes of the corpus; `format` as the Report names it. */
+export function columnPreviews(head: string, format: 'csv' | 'tsv' | 'jsonl'): ColumnPreview[] {
+  const text = head.replace(/^\uFEFF/, '');
+  if (format === 'jsonl') {
+    const byKey = new Map<string, string[]>();
+    for (const line of text.split(/\r?\n/).slice(0, 20)) {
+      let row: unknown;
+      try {
+        row = JSON.parse(line);
+      } catch {
+        continue;
+      }
+      if (typeof row !== 'object' || row === null || Array.isArray(row)) continue;
+      for (const [key, value] of Object.entries(row)) {
+        const list = byKey.get(key) ?? [];
+        if (list.length < PREVIEW_ROWS && value !== null && value !== '') list.push(shorten(value));
+        byKey.set(key, list);
+      }
+    }
+    return [...byKey].map(([name, samples]) => ({ name, samples }));
+  }
+  const parsed = Papa.parse<string[]>(text, { delimiter: format === 'tsv' ? '\t' : ',', preview: 1 + 20, skipEmptyLines: true });
+  const [header, ...rows] = parsed.data;
+  if (header === undefined) return [];
+  return header.map((name, c) => ({
+    name,
+    samples: rows
+      .map((r) => r[c] ?? '')
+      .filter((v) => v.trim() !== '')
+      .slice(0, PREVIEW_ROWS)
+      .map(shorten),
+  }));
+}
+
+/** Which field a review error says is missing: 'text', 'label', or null for other errors. */
+export function missingFieldRole(message: string): 'text' | 'label' | null {
+  const m = /^no (text|label) (?:field|column) "/.exec(message);
+  if (m) return m[1] as 'text' | 'label';
+  if (/^found no (?:column|key|text column)/.test(message)) return 'text';
+  return null;
+}
