@@ -18,6 +18,8 @@ interface XY {
 }
 interface TermPoint extends XY {
   term: string;
+  /** The lift itself when y was raised to the log axis's floor. */
+  lift?: number;
 }
 
 const SCATTER_OTHERS_MAX = 3000;
@@ -99,44 +101,69 @@ export function similarityConfig(baseline: Setting, current: Setting, theme: Cha
   };
 }
 
+/** Lift below this is drawn at it on the log axis (a lift of 0 has no logarithm); the tooltip keeps the value. */
+const LIFT_FLOOR = 0.01;
+
 export function pullLiftConfig(terms: readonly TermRow[], suggestions: ReadonlySet<string>, theme: ChartTheme): ChartConfiguration<'scatter', TermPoint[]> {
   const highlighted: TermPoint[] = [];
   const others: TermPoint[] = [];
+  let minX = Infinity;
+  let maxX = 0;
   for (const t of terms) {
     if (t.neighborLift === null || !Number.isFinite(t.neighborLift) || !(t.pullShare > 0)) continue;
-    const point = { x: t.pullShare, y: t.neighborLift, term: t.term };
+    const point = { x: t.pullShare, y: Math.max(LIFT_FLOOR, t.neighborLift), term: t.term, lift: t.neighborLift };
     if (suggestions.has(t.term)) highlighted.push(point);
     // The report lists terms loudest first, so the cap keeps the ones worth seeing.
     else if (others.length < SCATTER_OTHERS_MAX) others.push(point);
+    else continue;
+    minX = Math.min(minX, point.x);
+    maxX = Math.max(maxX, point.x);
   }
+  // Lift 1: the term's share of neighbour similarity equals its share of all-pair similarity,
+  // i.e. it does not help pick neighbours. Drawn as a dashed reference line across the plot.
+  const reference: TermPoint[] = maxX > 0 ? [{ x: minX, y: 1, term: '', lift: 1 }, { x: maxX, y: 1, term: '', lift: 1 }] : [];
   return {
     type: 'scatter',
     data: {
       datasets: [
-        { label: 'suggested', data: highlighted, backgroundColor: withAlpha(theme.suggested, 0.85), borderColor: theme.suggested, pointRadius: 3.5, pointHoverRadius: 5, order: 0 },
-        { label: 'other terms', data: others, backgroundColor: withAlpha(theme.other, 0.35), borderColor: withAlpha(theme.other, 0.35), pointRadius: 2, pointHoverRadius: 4, order: 1 },
+        { label: 'suggested', data: highlighted, backgroundColor: withAlpha(theme.suggested, 0.85), borderColor: theme.suggested, pointStyle: 'rectRot', pointRadius: 4.5, pointHoverRadius: 6, order: 0 },
+        // Grey at 0.35 alpha vanished on dark themes: a solid outline keeps the second series visible.
+        { label: 'other terms', data: others, backgroundColor: withAlpha(theme.other, 0.45), borderColor: withAlpha(theme.other, 0.9), borderWidth: 1, pointStyle: 'circle', pointRadius: 2.5, pointHoverRadius: 4, order: 1 },
+        { label: 'lift 1 (no neighbour signal)', data: reference, showLine: true, borderColor: theme.muted, borderDash: [5, 4], borderWidth: 1, pointRadius: 0, pointHitRadius: 0, order: 2 },
       ],
     },
     options: {
       ...common(theme),
       scales: {
         x: { ...axis(theme, 'pull share (log scale)'), type: 'logarithmic', ticks: { ...axis(theme, '').ticks, maxTicksLimit: 6, callback: logTick } },
-        y: { ...axis(theme, 'neighbour lift'), beginAtZero: true },
+        y: { ...axis(theme, 'neighbour lift (log scale)'), type: 'logarithmic', ticks: { ...axis(theme, '').ticks, callback: liftTick } },
       },
       plugins: {
         ...common(theme).plugins,
+        legend: { ...common(theme).plugins.legend, labels: { ...common(theme).plugins.legend.labels, usePointStyle: true } },
         tooltip: {
           ...common(theme).plugins.tooltip,
+          filter: (item: TooltipItem<'scatter'>) => (item.raw as TermPoint).term !== '',
           callbacks: {
             label: (item: TooltipItem<'scatter'>) => {
               const p = item.raw as TermPoint;
-              return `${p.term}: pull ${formatShare(p.x)}, lift ${formatRatio(p.y)}`;
+              return `${p.term}: pull ${formatShare(p.x)}, lift ${formatRatio(p.lift ?? p.y)}`;
             },
           },
         },
       },
     },
   };
+}
+
+/** Lift ticks at 0.01, 0.1, 1, 10 … and at 0.3 and 3, so the region around 1 is readable. */
+function liftTick(value: number | string): string | null {
+  const v = Number(value);
+  if (!(v > 0)) return null;
+  const e = Math.log10(v);
+  const mantissa = v / 10 ** Math.floor(e + 1e-9);
+  if (Math.abs(mantissa - 1) < 1e-6 || Math.abs(mantissa - 3) < 1e-6) return formatRatio(v);
+  return null;
 }
 
 /** Tick labels only at powers of ten, so the log axis does not crowd. */
