@@ -2,7 +2,8 @@ import { strict as assert } from 'node:assert';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
-import { ReviewWorkerClient, WorkerFailure } from '../extension/src/worker/review-worker-client';
+import { isCancelled, ReviewWorkerClient } from '../extension/src/worker/review-worker-client';
+import { UserError } from '../extension/src/engine/user-error';
 import { isHostToWorker, isWorkerToHost } from '../extension/src/worker/worker-protocol';
 
 // The bundled worker, as the extension runs it (npm test builds first).
@@ -91,8 +92,7 @@ describe('review worker round trip (dist/review-worker.js)', function () {
     const config = path.join(dir, 'loudword.json');
     writeFileSync(config, '{\n  "text": "message",\n  "sample": { "documents": "many" }\n}\n');
     await assert.rejects(client.review({ file: path.join(dir, 'tickets.csv'), configPath: config }), (e: unknown) => {
-      assert.ok(e instanceof WorkerFailure);
-      assert.equal(e.kind, 'user');
+      assert.ok(e instanceof UserError, String(e));
       assert.equal(e.file, config);
       assert.equal(e.line, 3);
       return true;
@@ -103,14 +103,14 @@ describe('review worker round trip (dist/review-worker.js)', function () {
 
   it('ReviewWorkerClient.review rejects a missing corpus as a user failure naming it', async () => {
     const missing = path.join(dir, 'missing.csv');
-    await assert.rejects(client.review({ file: missing, configPath: null }), (e: unknown) => e instanceof WorkerFailure && e.kind === 'user' && e.file === missing);
+    await assert.rejects(client.review({ file: missing, configPath: null }), (e: unknown) => e instanceof UserError && e.file === missing);
   });
 
   it('ReviewWorkerClient.review rejects as cancelled and stops the worker when aborted', async () => {
     const controller = new AbortController();
     const pending = client.review({ file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message' } }, () => controller.abort(), controller.signal);
-    await assert.rejects(pending, (e: unknown) => e instanceof WorkerFailure && e.kind === 'cancelled');
+    await assert.rejects(pending, (e: unknown) => isCancelled(e) && !(e instanceof UserError));
     assert.equal(client.hasSession, false);
-    await assert.rejects(client.whatIf([]), (e: unknown) => e instanceof WorkerFailure && e.kind === 'user');
+    await assert.rejects(client.whatIf([]), (e: unknown) => e instanceof UserError);
   });
 });

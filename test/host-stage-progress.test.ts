@@ -6,7 +6,7 @@ describe('stageProgress', () => {
   it('stageProgress spreads the six stages evenly over 0–100', () => {
     assert.equal(stageProgress('reading', 0), 0);
     assert.equal(stageProgress('tokenizing', 0.5), 25);
-    assert.equal(stageProgress('what-if', 1), 100);
+    assert.equal(stageProgress('writing report', 1), 100);
   });
 
   it('stageProgress clamps the fraction and treats NaN as 0', () => {

@@ -1,7 +1,8 @@
 // Whole-review invariants and edge cases (issue "Robustness and security"): generated corpora
 // must never crash the review, and the what-if must agree with the Report it came from.
 // Invariants follow from the definitions in docs/methods.md §3 (shares of a total sum to at most 1) and
-// from the what-if's contract (removing nothing changes nothing). Common practice, no source.
+// from the what-if's contract (the suggested figures are what applying the suggestions gives).
+// Common practice, no source.
 import { strict as assert } from 'node:assert';
 import { appendFileSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';

@@ -144,15 +144,16 @@ main(process.argv.slice(2)).then(
   },
   (error: unknown) => {
     const oneLine = asOneLine(error);
-    if (isUserError(error)) {
-      process.stderr.write(`loudword: ${escapeControls(error.describe())}\n`);
-      process.exitCode = EXIT.input;
-    } else if (error instanceof PathArgumentError) {
+    // Usage errors are user errors too; they are told apart first for their exit code.
+    if (error instanceof PathArgumentError) {
       process.stderr.write(`loudword: ${escapeControls(error.message)}\n`);
       process.exitCode = EXIT.usage;
     } else if (error instanceof UsageError) {
       process.stderr.write(`loudword: ${escapeControls(error.message)}\nRun \`loudword --help\` for the options.\n`);
       process.exitCode = EXIT.usage;
+    } else if (isUserError(error)) {
+      process.stderr.write(`loudword: ${escapeControls(error.describe())}\n`);
+      process.exitCode = EXIT.input;
     } else if (oneLine !== null) {
       process.stderr.write(`loudword: ${escapeControls(oneLine)}\n`);
       process.exitCode = EXIT.input;

@@ -1,6 +1,7 @@
 import { parseArgs as parseNodeArgs } from 'node:util';
 import type { CorpusFormatName } from '../protocol';
 import { schemaAt } from '../engine/config/settings-schema';
+import { UserError } from '../engine/user-error';
 
 export type OutputFormat = 'text' | 'json' | 'md' | 'html';
 
@@ -26,8 +27,11 @@ export interface CliOptions {
   workdir: string | null;
 }
 
-/** A mistake in the command line itself: the CLI prints it with the usage and exits 2. */
-export class UsageError extends Error {
+/**
+ * A mistake in the command line itself: a UserError like any other (one type for the user's
+ * mistakes), which the CLI prints with a pointer to --help and exit code 2.
+ */
+export class UsageError extends UserError {
   override name = 'UsageError';
 }
 

@@ -50,7 +50,8 @@ export class CorpusReview implements vscode.Disposable {
 
   /**
    * Runs a review with a cancellable progress notification. A review already running for this
-   * corpus is cancelled first (its worker is stopped). Rejects with WorkerFailure.
+   * corpus is cancelled first (its worker is stopped). Rejects with a UserError, an AbortError
+   * when cancelled, or a WorkerFailure (a bug).
    */
   async run(doc: vscode.TextDocument | undefined, onStage: (stage: ReviewStage | null) => void, extraOverrides: SettingsOverrides = {}): Promise<Report> {
     this.cancel();

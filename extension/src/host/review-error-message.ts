@@ -3,7 +3,7 @@
 // extension host must outlive any corpus.
 import * as vscode from 'vscode';
 import { isUserError } from '../engine/user-error';
-import { WorkerFailure } from '../worker/review-worker-client';
+import { isCancelled } from '../worker/review-worker-client';
 
 let channel: vscode.OutputChannel | undefined;
 
@@ -33,15 +33,13 @@ export async function openAtLine(file: string, line: number | null): Promise<voi
 
 export async function showReviewError(error: unknown): Promise<void> {
   try {
-    if (isUserError(error) || error instanceof WorkerFailure) {
-      if (error instanceof WorkerFailure && error.kind === 'cancelled') return;
-      if (isUserError(error) || error.kind === 'user') {
-        const open = error.line === null ? 'Open File' : `Go to Line ${error.line}`;
-        const buttons = error.file === null ? [] : [open];
-        const choice = await vscode.window.showErrorMessage(`Loudword: ${where(error.file, error.line)}${error.message}`, ...buttons);
-        if (choice === open && error.file !== null) await openAtLine(error.file, error.line);
-        return;
-      }
+    if (isCancelled(error)) return;
+    if (isUserError(error)) {
+      const open = error.line === null ? 'Open File' : `Go to Line ${error.line}`;
+      const buttons = error.file === null ? [] : [open];
+      const choice = await vscode.window.showErrorMessage(`Loudword: ${where(error.file, error.line)}${error.message}`, ...buttons);
+      if (choice === open && error.file !== null) await openAtLine(error.file, error.line);
+      return;
     }
     const e = error instanceof Error ? error : new Error(String(error));
     loudwordOutput().appendLine(`[${new Date().toISOString()}] ${e.stack ?? e.message}`);

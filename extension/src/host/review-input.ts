@@ -6,10 +6,9 @@ import * as vscode from 'vscode';
 import type { ReviewInput } from '../engine/review/review-api';
 import { editorDefaults } from './loudword-settings';
 import { confineToWorkspace } from '../engine/config/confine-to-workspace';
-import { isUserError } from '../engine/user-error';
+import { isUserError, UserError } from '../engine/user-error';
 import { configCandidates, editorOverrides, expectedStopListPath } from './pure/config-location';
 import { samePath } from './pure/same-path';
-import { WorkerFailure } from '../worker/review-worker-client';
 
 export interface PreparedReview {
   input: ReviewInput;
@@ -55,16 +54,16 @@ export function workspaceRootOf(uri: vscode.Uri): string | null {
 
 /**
  * Restricted mode: every path the config or settings name must stay inside the workspace
- * (symbolic links followed). Throws WorkerFailure, shown like any user error.
+ * (symbolic links followed). Throws a UserError.
  */
 export function confineForRestrictedMode(workspaceRoot: string | null, paths: ReadonlyArray<string | null>, blame: string | null): void {
   for (const p of paths) {
     if (p === null) continue;
-    if (workspaceRoot === null) throw new WorkerFailure(`This window is not trusted and has no workspace folder, so Loudword will not read ${p}.`, 'user', blame, null);
+    if (workspaceRoot === null) throw new UserError(`This window is not trusted and has no workspace folder, so Loudword will not read ${p}.`, blame, null);
     try {
       confineToWorkspace(workspaceRoot, p);
     } catch (e) {
-      if (isUserError(e)) throw new WorkerFailure(`${e.message}. Trust the workspace or move the file.`, 'user', blame, null);
+      if (isUserError(e)) throw new UserError(`${e.message}. Trust the workspace or move the file.`, blame, null);
       throw e;
     }
   }
@@ -89,7 +88,7 @@ export async function prepareReview(uri: vscode.Uri, doc: vscode.TextDocument | 
 
   const input: ReviewInput = { file: corpusFile, configPath, overrides, projectRoot: workspaceRoot };
   if (doc !== undefined && (doc.isDirty || doc.isUntitled || !onDisk)) input.text = doc.getText();
-  else if (!onDisk) throw new WorkerFailure('This document is neither on disk nor open in the editor; save it to a file first.', 'user');
+  else if (!onDisk) throw new UserError('This document is neither on disk nor open in the editor; save it to a file first.');
   if (stopListPath !== null) {
     const stopDoc = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && samePath(d.uri.fsPath, stopListPath));
     if (stopDoc?.isDirty) input.stopListText = stopDoc.getText();

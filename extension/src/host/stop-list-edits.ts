@@ -5,12 +5,11 @@ import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
 import { removeTermsFromStopList } from '../engine/stoplist/remove-terms-from-stop-list';
-import { WorkerFailure } from '../worker/review-worker-client';
 import type { CorpusReview } from './corpus-review';
 import { checkLineEdits, type LineEdit } from './pure/text-edit-ranges';
 import { confineForRestrictedMode, workspaceRootOf } from './review-input';
 import { confineStopListWrite } from '../engine/config/confine-to-workspace';
-import { isUserError } from '../engine/user-error';
+import { isUserError, UserError } from '../engine/user-error';
 
 export function toRange(edit: LineEdit): vscode.Range {
   return new vscode.Range(edit.start.line, edit.start.character, edit.end.line, edit.end.character);
@@ -28,14 +27,15 @@ async function fileExists(uri: vscode.Uri): Promise<boolean> {
 function stopListUriOf(review: CorpusReview): vscode.Uri {
   const file = review.stopListPath;
   if (file === null) {
-    throw new WorkerFailure('This project has no stop list file (loudword.json sets "stopList" to null); set one to add terms.', 'user');
+    throw new UserError('This project has no stop list file (loudword.json sets "stopList" to null); set one to add terms.');
   }
   if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRootOf(review.uri), [file], null);
   // Trusted or not, a stop list is only written inside the project (safety hook, issue 13).
   try {
     confineStopListWrite(workspaceRootOf(review.uri) ?? path.dirname(review.uri.fsPath), file);
   } catch (e) {
-    if (isUserError(e)) throw new WorkerFailure(e.message, 'user', null, null);
+    // Named without file and line: the stop list path is the problem, not a line in a file.
+    if (isUserError(e)) throw new UserError(e.message);
     throw e;
   }
   return vscode.Uri.file(file);

@@ -3,19 +3,36 @@
 import { Worker } from 'node:worker_threads';
 import type { Measures, Report } from '../protocol';
 import type { ReviewInput, ReviewStage } from '../engine/review/review-api';
+import { UserError } from '../engine/user-error';
 import { isWorkerToHost, type HostToWorker, type WorkerErrorMessage, type WorkerToHost } from './worker-protocol';
 
-/** A review or what-if that failed; `kind` and `file`/`line` come from the worker. */
+/**
+ * The review worker itself failed: a bug in the engine (the stack is the worker's) or a thread
+ * that died. A mistake in the user's files or settings is a UserError instead, and a cancelled
+ * review an AbortError, so the host handles every failure by its type, wherever it came from.
+ */
 export class WorkerFailure extends Error {
-  constructor(
-    message: string,
-    readonly kind: WorkerErrorMessage['kind'],
-    readonly file: string | null = null,
-    readonly line: number | null = null,
-  ) {
+  constructor(message: string, workerStack?: string) {
     super(message);
     this.name = 'WorkerFailure';
+    if (workerStack !== undefined) this.stack = workerStack;
   }
+}
+
+/** A cancelled review or what-if (the name AbortSignal uses, so one check covers both). */
+export function reviewCancelled(message = 'Review cancelled.'): Error {
+  return Object.assign(new Error(message), { name: 'AbortError' });
+}
+
+export function isCancelled(e: unknown): boolean {
+  return e instanceof Error && e.name === 'AbortError';
+}
+
+/** The error a failure of `kind` becomes on the host side. */
+function failureOf(kind: WorkerErrorMessage['kind'], message: string, file: string | null = null, line: number | null = null, stack?: string): Error {
+  if (kind === 'user') return new UserError(message, file, line);
+  if (kind === 'cancelled') return reviewCancelled(message);
+  return new WorkerFailure(message, stack);
 }
 
 interface Pending<T> { resolve(value: T): void; reject(error: Error): void }
@@ -40,7 +57,7 @@ export class ReviewWorkerClient {
    * a long synchronous step, and a stuck thread must not outlive the user's cancel.
    */
   review(input: ReviewInput, onStage?: (stage: ReviewStage, fraction: number) => void, signal?: AbortSignal): Promise<Report> {
-    if (signal?.aborted) return Promise.reject(new WorkerFailure('Review cancelled.', 'cancelled'));
+    if (signal?.aborted) return Promise.reject(reviewCancelled());
     const worker = this.ensureWorker();
     const runId = this.nextId++;
     return new Promise<Report>((resolve, reject) => {
@@ -59,7 +76,7 @@ export class ReviewWorkerClient {
   }
 
   whatIf(removed: readonly string[]): Promise<Measures> {
-    if (!this.hasSession) return Promise.reject(new WorkerFailure('The review behind this panel is no longer loaded; run "Review distances" again.', 'user'));
+    if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
     const requestId = this.nextId++;
     return new Promise<Measures>((resolve, reject) => {
@@ -74,7 +91,7 @@ export class ReviewWorkerClient {
     const worker = this.worker;
     this.worker = null;
     this.sessionReady = false;
-    this.rejectAll(new WorkerFailure(message, kind));
+    this.rejectAll(failureOf(kind, message));
     if (worker !== null) await worker.terminate();
   }
 
@@ -86,13 +103,13 @@ export class ReviewWorkerClient {
       if (this.worker !== worker) return;
       this.worker = null;
       this.sessionReady = false;
-      this.rejectAll(new WorkerFailure(`The review worker failed: ${e.message}`, 'internal'));
+      this.rejectAll(new WorkerFailure(`The review worker failed: ${e.message}`, e.stack));
     });
     worker.on('exit', (code) => {
       if (this.worker !== worker) return;
       this.worker = null;
       this.sessionReady = false;
-      this.rejectAll(new WorkerFailure(`The review worker stopped unexpectedly (exit code ${code}).`, 'internal'));
+      this.rejectAll(new WorkerFailure(`The review worker stopped unexpectedly (exit code ${code}).`));
     });
     this.worker = worker;
     this.updateRef();
@@ -141,7 +158,7 @@ export class ReviewWorkerClient {
         return;
       }
       case 'error': {
-        const failure = new WorkerFailure(m.message, m.kind, m.file, m.line);
+        const failure = failureOf(m.kind, m.message, m.file, m.line, m.stack);
         if (m.runId !== undefined) {
           const run = this.runs.get(m.runId);
           this.runs.delete(m.runId);

@@ -21,8 +21,8 @@ export interface ReviewInput {
   projectRoot?: string | null;
 }
 
-/** Named stages, in order, for progress reporting. */
-export type ReviewStage = 'reading' | 'tokenizing' | 'weighting' | 'measuring' | 'reviewing terms' | 'what-if';
+/** Named stages, in order, for progress reporting ('reviewing terms' includes the what-if checks of the suggestions; 'writing report' assembles the Report). */
+export type ReviewStage = 'reading' | 'tokenizing' | 'weighting' | 'measuring' | 'reviewing terms' | 'writing report';
 
 export interface ReviewHooks {
   onStage?(stage: ReviewStage, fraction: number): void;

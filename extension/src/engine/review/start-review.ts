@@ -77,7 +77,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     previews: prepared.previews,
   });
 
-  stage('what-if');
+  stage('writing report');
   const report: Report = assembleReport({
     settings,
     source,
@@ -88,7 +88,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     sample,
   });
   if (source.places.keys.length > 1) nameHubFiles(report, source.places);
-  timings[currentStage ?? 'what-if'] = Math.round(performance.now() - stageStart);
+  timings[currentStage ?? 'writing report'] = Math.round(performance.now() - stageStart);
   report.timings = timings;
 
   return {

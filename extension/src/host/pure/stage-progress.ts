@@ -2,7 +2,7 @@
 // reports stages in a fixed order with a fraction within the stage.
 import type { ReviewStage } from '../../engine/review/review-api';
 
-const ORDER: readonly ReviewStage[] = ['reading', 'tokenizing', 'weighting', 'measuring', 'reviewing terms', 'what-if'];
+const ORDER: readonly ReviewStage[] = ['reading', 'tokenizing', 'weighting', 'measuring', 'reviewing terms', 'writing report'];
 
 /** Percent done (0–100) at `fraction` (0–1) of the way through `stage`. */
 export function stageProgress(stage: ReviewStage, fraction: number): number {
