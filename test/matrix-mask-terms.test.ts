@@ -4,30 +4,7 @@ import type { CountMatrix, Csr } from '../extension/src/engine/matrix/csr';
 import { maskTerms } from '../extension/src/engine/matrix/mask-terms';
 import { pruneTerms } from '../extension/src/engine/matrix/prune-terms';
 import { weigh, type WeightingSettings } from '../extension/src/engine/matrix/weigh';
-
-function countMatrix(dense: number[][], cols: number): CountMatrix {
-  const indptr = [0];
-  const indices: number[] = [];
-  const data: number[] = [];
-  for (const row of dense) {
-    row.forEach((c, j) => {
-      if (c !== 0) {
-        indices.push(j);
-        data.push(c);
-      }
-    });
-    indptr.push(indices.length);
-  }
-  return {
-    rows: dense.length,
-    cols,
-    indptr: Uint32Array.from(indptr),
-    indices: Uint32Array.from(indices),
-    data: Float64Array.from(data),
-    terms: Array.from({ length: cols }, (_, j) => `t${String(j).padStart(3, '0')}`),
-    tokensPerDoc: Uint32Array.from(dense.map((r) => r.reduce((a, b) => a + b, 0))),
-  };
-}
+import { countMatrix } from './matrix-fixtures';
 
 function rowEntries(m: Csr, terms: readonly string[], r: number): Map<string, number> {
   const out = new Map<string, number>();

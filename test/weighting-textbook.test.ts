@@ -1,31 +1,7 @@
 import { strict as assert } from 'node:assert';
 import type { CountMatrix, Csr } from '../extension/src/engine/matrix/csr';
 import { weigh } from '../extension/src/engine/matrix/weigh';
-
-function countMatrix(dense: number[][]): CountMatrix {
-  const indptr = [0];
-  const indices: number[] = [];
-  const data: number[] = [];
-  for (const row of dense) {
-    row.forEach((c, j) => {
-      if (c !== 0) {
-        indices.push(j);
-        data.push(c);
-      }
-    });
-    indptr.push(indices.length);
-  }
-  const cols = dense[0]?.length ?? 0;
-  return {
-    rows: dense.length,
-    cols,
-    indptr: Uint32Array.from(indptr),
-    indices: Uint32Array.from(indices),
-    data: Float64Array.from(data),
-    terms: Array.from({ length: cols }, (_, j) => `t${j}`),
-    tokensPerDoc: Uint32Array.from(dense.map((r) => r.reduce((a, b) => a + b, 0))),
-  };
-}
+import { countMatrix } from './matrix-fixtures';
 
 function denseRow(m: Csr, r: number): number[] {
   const out = new Array<number>(m.cols).fill(0);
