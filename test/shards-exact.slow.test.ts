@@ -54,6 +54,8 @@ describe('review in shards = review in one process', function () {
     const shardDir = path.join(dir, 'generated');
     mkdirSync(shardDir);
     const docs = generatedDocs(2400, 11);
+    // One document with a run far over the tokenizer's limit, so both paths must carry its note.
+    docs[5] = { text: `${'x'.repeat(3000)} t0w1 com2`, label: docs[5]!.label };
     const files = writeShards(shardDir, docs, 8);
     // Shard 6 as gzip, shard 7 as Parquet: the same documents in the same order.
     const part6 = docs.filter((_, i) => i % 8 === 6);
@@ -71,6 +73,7 @@ describe('review in shards = review in one process', function () {
     rmSync(files[7]!);
     const { one, shards } = await bothWays(shardDir);
     assert.equal(one.input.documents, 2400);
+    assert.ok((one.input.notes ?? []).some((n) => /longer than 1,000 characters/.test(n)), `a note on the over-long run: ${JSON.stringify(one.input.notes)}`);
     assertSame(one, shards, 'generated');
   });
 

@@ -27,7 +27,7 @@ export interface PreparedWeights {
   previews: string[];
   /** Exact raw-count sums per kept term (stop list not applied), for the suggestion rule. */
   counts: TermCountStats;
-  /** Notes from tokenising for the Report's input notes (over-long runs cut); the sharded path has none yet. */
+  /** Notes from tokenising for the Report's input notes (over-long runs cut). */
   notes?: string[];
 }
 

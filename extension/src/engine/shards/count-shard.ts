@@ -78,6 +78,7 @@ export async function countShard(shard: ShardRef, settings: EffectiveSettings): 
       notes: [...(source.notes ?? [])],
       truncated: source.truncated,
     },
+    tokenizerNotes: built.notes,
     terms: [...counts.terms],
     df,
     candidates,

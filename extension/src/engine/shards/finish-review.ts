@@ -71,6 +71,7 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, par
     labels: s.labels,
     previews: s.previews,
     counts,
+    notes: plan.tokenizerNotes,
   };
   const sample: ReviewSample = { positions: identity, labels, emptyDocuments: 0 };
   const report = assembleReport({

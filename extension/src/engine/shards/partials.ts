@@ -44,6 +44,8 @@ export interface CountPartial extends PartialHeader {
   /** Documents with at least one term before pruning: those the sample may draw. */
   nonEmptyDocuments: number;
   input: { format: Report['input']['format']; textField: string | null; labelField: string | null; skipped: number; skippedExamples: Array<{ line: number; reason: string }>; notes: string[]; truncated: { bytesRead: number; limitBytes: number } | null };
+  /** What tokenising had to say (over-long runs cut), as one process reports it after the reader's notes. */
+  tokenizerNotes: string[];
   /** The shard's terms in code point order, with their document frequency. */
   terms: string[];
   df: number[];
@@ -86,6 +88,7 @@ export interface PlanPartial extends PartialHeader {
   /** Documents whose previews the opinion check reads (terms/review-terms.ts), ascending. */
   previewDocs: number[];
   input: Omit<Report['input'], 'documents'>;
+  tokenizerNotes: string[];
   stopList: { file: string | null; terms: string[]; unused: string[] };
 }
 

@@ -31,6 +31,7 @@ interface ShardSummary {
   documents: number;
   tokens: number;
   input: CountPartial['input'];
+  tokenizerNotes: string[];
   shardFile: string;
   /** The shard had more candidates than it kept; the highest it kept bounds what it left out. */
   truncatedAbove: Ranked | null;
@@ -72,6 +73,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
       documents: partial.documents,
       tokens: partial.tokens,
       input: partial.input,
+      tokenizerNotes: partial.tokenizerNotes ?? [],
       shardFile: partial.shard.file,
       truncatedAbove: partial.nonEmptyDocuments > partial.candidates.length && last !== undefined ? { key: last.key, file: partial.shard.key, line: last.line } : null,
       candidateLimit: partial.candidateLimit,
@@ -140,6 +142,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     full: true,
     previewDocs: evenlySpacedDocuments(documents, OPINION_SAMPLE),
     input: mergedInput(input.corpus, parts),
+    tokenizerNotes: parts.flatMap((p) => p.tokenizerNotes),
     stopList: { file: stopList.file, terms: stopList.terms, unused: stopList.entries.filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
   };
 }
