@@ -10,7 +10,8 @@ import { exportHtmlReport } from './export-html-report';
 import { openAtLine, showReviewError } from './review-error-message';
 import type { ReviewStore } from './review-store';
 import { addTermsToReviewStopList } from './stop-list-edits';
-import { WorkerFailure } from '../worker/review-worker-client';
+import { isCancelled } from '../worker/review-worker-client';
+import { isUserError } from '../engine/user-error';
 import type { SettingsOverrides } from '../engine/config/settings-overrides';
 import { pickMissingColumn } from './column-picker';
 
@@ -42,13 +43,13 @@ export class HostContext {
       if (reveal) await this.panel?.reveal();
       return review;
     } catch (e) {
-      if (e instanceof WorkerFailure && e.kind === 'cancelled') {
+      if (isCancelled(e)) {
         // Only the user's Cancel is reported; a run replaced by a newer one ends silently.
         if (review.cancelledByUser) void vscode.window.showInformationMessage('Loudword: Review cancelled.');
         return null;
       }
       // The text or label field is not in the file: offer its columns rather than only the error.
-      if (e instanceof WorkerFailure && e.kind === 'user' && Object.keys(overrides).length === 0) {
+      if (isUserError(e) && Object.keys(overrides).length === 0) {
         const picked = await pickMissingColumn(uri, e.message);
         if (picked !== null) {
           const again = await this.review(uri, reveal, picked);
