@@ -9,6 +9,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync, mkdirSync } from 'nod
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { tsImport } from 'tsx/esm/api';
 
 const root = path.join(path.dirname(fileURLToPath(import.meta.url)), '..');
 const arg = (name, fallback) => {
@@ -19,16 +20,8 @@ const DOCS = arg('docs', 1_000_000);
 const SHARDS = arg('shards', 16);
 const WORKERS = arg('workers', 2);
 
-function mulberry32(seed) {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The engine's own seeded generator (one mulberry32 in the project), loaded through tsx.
+const { mulberry32 } = await tsImport('../extension/src/engine/random/seeded-random.ts', import.meta.url);
 
 function generate(dir) {
   const random = mulberry32(2026);

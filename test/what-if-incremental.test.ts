@@ -13,20 +13,12 @@ import { selectRows } from '../extension/src/engine/matrix/select-rows';
 import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
 import { IncrementalGram } from '../extension/src/engine/what-if/incremental-gram';
 import { IncrementalTermSums } from '../extension/src/engine/what-if/incremental-term-sums';
+import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 
 const TOLERANCE = 1e-12;
 
-/** Small seeded generator (mulberry32, common practice, no source) so failures replay. */
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The engine's seeded generator, so failures replay. */
+const generator = mulberry32;
 
 /**
  * Unit rows over `cols` terms shaped like text: a few terms in most rows (the loud ones a user
