@@ -29,6 +29,14 @@ export const STRONG_SENTIMENT = 0.25;
  */
 export const OPINION_SHARE = 0.45;
 
+/**
+ * Only documents this short (mean kept tokens) can read as opinion text: the check reads each
+ * document's first 120 characters, a fair part of a short review but only the greeting of a
+ * speech or a report (State of the Union openings read as 47% "opinion", their full text far
+ * less). The issue's case is short opinion text; 250 tokens is about a long review.
+ */
+export const SHORT_DOCUMENT_TOKENS = 250;
+
 let instance: WinkMethods | null = null;
 function sentimentInstance(): WinkMethods {
   if (instance === null) {

@@ -6,7 +6,7 @@ import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, type Decision } from './choose-suggestions';
 import { explainTerm } from './explain-term';
 import { judgeSuggestions } from './judge-suggestions';
-import { OPINION_SHARE, opinionShare } from './opinion-check';
+import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS, opinionShare } from './opinion-check';
 import { priorColumns, protectedColumns } from './prior-columns';
 import type { TermCountStats } from './term-count-stats';
 import { termScores, type TermScores } from './term-scores';
@@ -56,7 +56,8 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const protect = protectedColumns(index, tokenize, settings.suggest.protect);
   // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
   const share = opinionShare(evenlySpaced(input.previews, OPINION_SAMPLE));
-  const opinionText = share >= OPINION_SHARE;
+  const meanLength = counts.documents > 0 ? counts.totalTokens / counts.documents : 0;
+  const opinionText = share >= OPINION_SHARE && meanLength <= SHORT_DOCUMENT_TOKENS;
   const decisions = chooseSuggestions({
     stats: counts,
     prior,
