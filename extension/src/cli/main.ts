@@ -99,6 +99,11 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   if (!o.dryRun) await replaceStopList(list, result.bytes);
   const verb = o.dryRun ? 'Would add' : 'Added';
   await say(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n${leftOut}`);
+  if (o.dryRun) {
+    // The lines exactly as they would be written, and where: nothing has changed yet.
+    const where = result.afterLine === 0 ? 'as its first lines' : `after line ${result.afterLine}`;
+    await say(`Lines that would be appended to ${file} ${where}:\n${result.newLines.map((l) => `  + ${l}`).join('\n')}\n`);
+  }
   return EXIT.ok;
 }
 

@@ -3,7 +3,7 @@
 // WorkspaceEdit, so the user can undo them. The corpus file is never edited.
 import * as path from 'node:path';
 import * as vscode from 'vscode';
-import { addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
+import { ADDED_TERMS_HEADING, addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
 import { removeTermsFromStopList } from '../engine/stoplist/remove-terms-from-stop-list';
 import type { CorpusReview } from './corpus-review';
 import { checkLineEdits, type LineEdit } from './pure/text-edit-ranges';
@@ -53,7 +53,7 @@ export async function addTermsToReviewStopList(review: CorpusReview, terms: read
   } else {
     edit.createFile(uri, { ignoreIfExists: true });
   }
-  const result = addTermsToStopList(text, [...terms]);
+  const result = addTermsToStopList(text, [...terms], { heading: ADDED_TERMS_HEADING });
   if (result.edit === null || result.added.length === 0) return { added: [], stopList: uri };
   const [checked] = checkLineEdits([result.edit], text);
   edit.replace(uri, toRange(checked!), checked!.newText);

@@ -153,16 +153,23 @@ export interface AppendResult {
   unrepresentable: string[];
   /** The whole new file, byte for byte: the old bytes, then the new lines. */
   bytes: Buffer;
+  /** The lines appended (heading comment included), and the 1-based line they follow (0: none). */
+  newLines: string[];
+  afterLine: number;
 }
 
 /** The new bytes of `list` with `terms` appended (no write). The old bytes are a prefix, unchanged. */
 export function appendTerms(list: StopListFile, terms: readonly string[]): AppendResult {
   const unrepresentable = terms.filter((t) => encodeFor(list.encoding, t) === null);
   const result = addTermsToStopList(list.text, terms.filter((t) => !unrepresentable.includes(t)));
-  if (result.added.length === 0) return { added: [], unrepresentable, bytes: list.bytes };
-  const tail = encodeFor(list.encoding, result.text.slice(list.text.length));
+  const filled = list.text.split(/\r\n|\r|\n/);
+  const afterLine = filled[filled.length - 1] === '' ? filled.length - 1 : filled.length;
+  if (result.added.length === 0) return { added: [], unrepresentable, bytes: list.bytes, newLines: [], afterLine };
+  const tailText = result.text.slice(list.text.length);
+  const tail = encodeFor(list.encoding, tailText);
   if (tail === null) throw new Error('appendTerms: a line break or term has no byte in the encoding'); // filtered above
-  return { added: result.added, unrepresentable, bytes: Buffer.concat([list.bytes, tail]) };
+  const newLines = tailText.split(/\r\n|\r|\n/).filter((l, i, all) => !(i === 0 && l === '' && afterLine === filled.length) && !(i === all.length - 1 && l === ''));
+  return { added: result.added, unrepresentable, bytes: Buffer.concat([list.bytes, tail]), newLines, afterLine };
 }
 
 /** Test seam: runs after the new file is written and before the concurrent-change check. */
