@@ -8,6 +8,6 @@ import { deadStopEntry } from './scenarios/dead-stop-entry.mjs';
 import { htmlPayloadCorpus } from './scenarios/html-payload-corpus.mjs';
 import { malformedCorpus } from './scenarios/malformed-corpus.mjs';
 import { exportHtmlReport } from './scenarios/export-html-report.mjs';
-import { whatIfLatency, whatIfLatency100k } from './scenarios/what-if-latency.mjs';
+import { cancelReview, whatIfLatency, whatIfLatency100k } from './scenarios/what-if-latency.mjs';
 
-export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, whatIfLatency, whatIfLatency100k];
+export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, whatIfLatency, cancelReview, whatIfLatency100k];

@@ -8,6 +8,8 @@ import { execFileSync } from 'node:child_process';
 import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { reviewCorpus } from '../lib/review-corpus.mjs';
+import { openFile, runCommand, notificationTexts } from '../lib/workbench.mjs';
+import { waitUntil } from '../lib/wait-until.mjs';
 import { named } from '../lib/wait-until.mjs';
 import { SAMPLE } from './review-from-palette.mjs';
 
@@ -73,17 +75,44 @@ export const whatIfLatency = {
   },
 };
 
+/** The bench's 100k corpus (cached in test/bench/data) in the workspace, with its own loudword.json. */
+function placeBenchCorpus(ctx) {
+  const generated = execFileSync(process.execPath, [path.join(ctx.repo, 'test', 'bench', 'generate-corpus.mjs'), '--size', '100k', '--seed', '1'], { encoding: 'utf8' });
+  const { file } = JSON.parse(generated.trim().split('\n').pop());
+  const dir = path.join(ctx.workspace, 'bench100k');
+  mkdirSync(dir, { recursive: true });
+  copyFileSync(file, path.join(dir, BENCH));
+  writeFileSync(path.join(dir, 'loudword.json'), JSON.stringify({ text: 'text', label: 'topic', stopList: null }, null, 2));
+}
+
+const BENCH = 'corpus-100k.csv';
+
+export const cancelReview = {
+  name: 'Cancel on the progress notification stops the review and says "Review cancelled"',
+  slug: 'cancel-review',
+  async run(ctx) {
+    placeBenchCorpus(ctx);
+    await openFile(ctx.page, BENCH);
+    await runCommand(ctx.page, 'Loudword: Review distances');
+    const cancel = await waitUntil('the progress notification with Cancel', async () => {
+      for (const toast of await ctx.page.$$('.notifications-toasts .notification-toast')) {
+        const text = await toast.$eval('.notification-list-item-message', (e) => e.textContent ?? '').catch(() => '');
+        if (!text.includes(`reviewing ${BENCH}`)) continue;
+        for (const b of await toast.$$('.monaco-button')) if (((await b.textContent()) ?? '').trim() === 'Cancel') return b;
+      }
+      return null;
+    }, { timeout: 30000 });
+    await cancel.click();
+    await waitUntil('"Review cancelled" in a notification', async () => (await notificationTexts(ctx.page)).some((t) => t.includes('Review cancelled')), { timeout: 20000 });
+    await ctx.screenshot();
+  },
+};
+
 export const whatIfLatency100k = {
   name: 'what-if latency: click → strip updated, on 100k documents (printed)',
   slug: 'what-if-latency-100k',
   async run(ctx) {
-    // The bench's corpus (cached in test/bench/data), in a folder with its own loudword.json.
-    const generated = execFileSync(process.execPath, [path.join(ctx.repo, 'test', 'bench', 'generate-corpus.mjs'), '--size', '100k', '--seed', '1'], { encoding: 'utf8' });
-    const { file } = JSON.parse(generated.trim().split('\n').pop());
-    const dir = path.join(ctx.workspace, 'bench100k');
-    mkdirSync(dir, { recursive: true });
-    copyFileSync(file, path.join(dir, 'corpus-100k.csv'));
-    writeFileSync(path.join(dir, 'loudword.json'), JSON.stringify({ text: 'text', label: 'topic', stopList: null }, null, 2));
-    await measure(ctx, 'corpus-100k.csv', 'corpus-100k.csv, 100,000 documents');
+    placeBenchCorpus(ctx);
+    await measure(ctx, BENCH, `${BENCH}, 100,000 documents`);
   },
 };
