@@ -6,27 +6,7 @@ import { constants } from 'node:fs';
 import { open, rename, stat, unlink, writeFile } from 'node:fs/promises';
 import * as path from 'node:path';
 import { UserError } from '../engine/user-error';
-
-export function writeErrorMessage(e: unknown): string {
-  const code = (e as NodeJS.ErrnoException).code;
-  switch (code) {
-    case 'ENOSPC':
-      return 'the disk is full';
-    case 'EDQUOT':
-      return 'the disk quota is used up';
-    case 'EACCES':
-    case 'EPERM':
-      return 'permission denied';
-    case 'EROFS':
-      return 'read-only file system';
-    case 'EPIPE':
-      return 'the reader closed the pipe before all output was written';
-    case 'EISDIR':
-      return 'it is a directory';
-    default:
-      return code ?? (e as Error).message;
-  }
-}
+import { writeErrorMessage } from '../engine/read/regular-file';
 
 /** A plain description of a file system error, for a one-line message after the path. */
 export function describeSystemError(e: NodeJS.ErrnoException): string {

@@ -8,16 +8,24 @@ import { medianOf } from './quantile';
  * `nearest` holds each row's best similarity (NaN for rows without neighbours).
  */
 export function neighborStandout(sims: Float64Array, m: number, valid: Uint8Array, nearest: Float64Array): number | null {
+  const perQuery = standoutPerQuery(sims, m, valid, nearest);
   const z = new Float64Array(m);
   let count = 0;
+  for (let i = 0; i < m; i++) if (!Number.isNaN(perQuery[i]!)) z[count++] = perQuery[i]!;
+  return count === 0 ? null : medianOf(z, count);
+}
+
+/** Each query's z-score (see neighborStandout); NaN where a query has none. */
+export function standoutPerQuery(sims: Float64Array, m: number, valid: Uint8Array, nearest: Float64Array): Float64Array {
+  const z = new Float64Array(m).fill(Number.NaN);
   for (let i = 0; i < m; i++) {
-    if (!valid[i] || Number.isNaN(nearest[i])) continue;
+    if (!valid[i] || Number.isNaN(nearest[i]!)) continue;
     let sum = 0;
     let n = 0;
     const base = i * m;
     for (let j = 0; j < m; j++) {
       if (j === i || !valid[j]) continue;
-      sum += sims[base + j];
+      sum += sims[base + j]!;
       n++;
     }
     if (n < 2) continue;
@@ -27,14 +35,13 @@ export function neighborStandout(sims: Float64Array, m: number, valid: Uint8Arra
     let sumSq = 0;
     for (let j = 0; j < m; j++) {
       if (j === i || !valid[j]) continue;
-      const dev = sims[base + j] - mean;
+      const dev = sims[base + j]! - mean;
       sumSq += dev * dev;
     }
-    const variance = sumSq / n;
-    const sd = Math.sqrt(variance);
+    const sd = Math.sqrt(sumSq / n);
     // Relative guard: a spread at rounding level is no spread.
     if (!(sd > 1e-12 * Math.max(1, Math.abs(mean)))) continue;
-    z[count++] = (nearest[i] - mean) / sd;
+    z[i] = (nearest[i]! - mean) / sd;
   }
-  return count === 0 ? null : medianOf(z, count);
+  return z;
 }

@@ -97,3 +97,25 @@ export function formatBytes(n: number): string {
   }
   return `${v >= 100 ? Math.round(v) : v.toFixed(1)} ${units[u]}`;
 }
+
+/** Message for an fs error code when writing (a report, a stop list): what went wrong, in words. */
+export function writeErrorMessage(e: unknown): string {
+  const code = (e as NodeJS.ErrnoException).code;
+  switch (code) {
+    case 'ENOSPC':
+      return 'the disk is full';
+    case 'EDQUOT':
+      return 'the disk quota is used up';
+    case 'EACCES':
+    case 'EPERM':
+      return 'permission denied';
+    case 'EROFS':
+      return 'read-only file system';
+    case 'EPIPE':
+      return 'the reader closed the pipe before all output was written';
+    case 'EISDIR':
+      return 'it is a directory';
+    default:
+      return code ?? (e as Error).message;
+  }
+}

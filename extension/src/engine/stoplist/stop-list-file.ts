@@ -5,7 +5,7 @@ import { chown, open, readFile, realpath, rename, unlink } from 'node:fs/promise
 import * as path from 'node:path';
 import { UserError } from '../user-error';
 import { decodeWindows1252 } from '../read/windows-1252';
-import { formatBytes, readErrorMessage, readRegularFile } from '../read/regular-file';
+import { formatBytes, readErrorMessage, readRegularFile, writeErrorMessage } from '../read/regular-file';
 import { addTermsToStopList } from './add-terms-to-stop-list';
 
 // The stop list is the user's file: Loudword adds lines at its end and keeps every existing
@@ -195,7 +195,7 @@ export async function replaceStopList(list: StopListFile, bytes: Buffer, hooks: 
   try {
     handle = await open(temp, constants.O_WRONLY | constants.O_CREAT | constants.O_EXCL, list.stat === null ? 0o666 : list.stat.mode & 0o7777);
   } catch (e) {
-    throw new UserError(`cannot create a new file beside the stop list in ${path.dirname(real)} (${describeWriteError(e)}); nothing was changed`, file, null);
+    throw new UserError(`cannot create a new file beside the stop list in ${path.dirname(real)} (${writeErrorMessage(e)}); nothing was changed`, file, null);
   }
   let renamed = false;
   try {
@@ -203,7 +203,7 @@ export async function replaceStopList(list: StopListFile, bytes: Buffer, hooks: 
       await handle.writeFile(bytes);
       await handle.sync();
     } catch (e) {
-      throw new UserError(`cannot write the new stop list (${describeWriteError(e)}); nothing was changed`, file, null);
+      throw new UserError(`cannot write the new stop list (${writeErrorMessage(e)}); nothing was changed`, file, null);
     } finally {
       await handle.close();
     }
@@ -242,22 +242,5 @@ async function assertUnchangedSinceRead(list: StopListFile, real: string): Promi
   if (changed) {
     const what = now === null ? 'was deleted' : list.exists ? `was changed by someone else (${formatBytes(list.bytes.length)} when read, ${formatBytes(now.length)} now)` : 'was created by someone else';
     throw new UserError(`the stop list ${what} while Loudword worked; nothing was written. Run the command again`, list.file, null);
-  }
-}
-
-function describeWriteError(e: unknown): string {
-  const code = (e as NodeJS.ErrnoException).code;
-  switch (code) {
-    case 'ENOSPC':
-      return 'the disk is full';
-    case 'EDQUOT':
-      return 'the disk quota is used up';
-    case 'EACCES':
-    case 'EPERM':
-      return 'permission denied';
-    case 'EROFS':
-      return 'read-only file system';
-    default:
-      return code ?? (e as Error).message;
   }
 }

@@ -1,6 +1,7 @@
 import type { Csr } from '../matrix/csr';
 import { validRowsFromGram } from '../measures/gram-distances';
 import { knnFromSimilarities, NO_NEIGHBOR } from '../measures/knn';
+import { standoutPerQuery } from '../measures/neighbor-standout';
 import { sampleSimilarities } from '../measures/sample-similarity';
 
 /**
@@ -21,28 +22,8 @@ export function perQueryQuality(rows: Csr, k: number, labels: Int32Array | null)
   const gram = sampleSimilarities(rows, identity);
   const valid = validRowsFromGram(gram, m);
   const knn = knnFromSimilarities(gram, m, k, valid);
-  const standout = new Float64Array(m).fill(Number.NaN);
-  for (let i = 0; i < m; i++) {
-    const nearest = knn.sims[i * k]!;
-    if (!valid[i] || Number.isNaN(nearest)) continue;
-    let sum = 0;
-    let n = 0;
-    for (let j = 0; j < m; j++) {
-      if (j === i || !valid[j]) continue;
-      sum += gram[i * m + j]!;
-      n++;
-    }
-    if (n < 2) continue;
-    const mean = sum / n;
-    let sumSq = 0;
-    for (let j = 0; j < m; j++) {
-      if (j === i || !valid[j]) continue;
-      const dev = gram[i * m + j]! - mean;
-      sumSq += dev * dev;
-    }
-    const sd = Math.sqrt(sumSq / n);
-    if (sd > 1e-12 * Math.max(1, Math.abs(mean))) standout[i] = (nearest - mean) / sd;
-  }
+  const nearest = Float64Array.from({ length: m }, (_, i) => knn.sims[i * k]!);
+  const standout = standoutPerQuery(gram, m, valid, nearest);
   let precision: Float64Array | null = null;
   if (labels !== null) {
     precision = new Float64Array(m).fill(Number.NaN);
