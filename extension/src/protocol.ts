@@ -130,7 +130,8 @@ export interface EffectiveSettings {
   text: string | null;
   label: string | null;
   stopList: string | null;
-  tokens: { lowercase: boolean; minLength: number; kinds: TokenKind[]; stem: boolean; ngrams: 1 | 2 };
+  /** tokenizer: "wink" (wink-nlp, typed tokens) or "pattern" (a scikit-learn token_pattern; kinds then do not apply). */
+  tokens: { lowercase: boolean; minLength: number; kinds: TokenKind[]; stem: boolean; ngrams: 1 | 2; tokenizer: 'wink' | 'pattern'; pattern: string };
   weighting: { tf: 'raw' | 'sublinear' | 'binary'; idf: 'smooth' | 'plain' | 'plainPlusOne' | 'none'; norm: 'l2' | 'l1' | 'none' };
   prune: { minDf: number; maxDf: number };
   sample: { documents: number; k: number; seed: number };

@@ -2,11 +2,13 @@ import type { WinkMethods } from 'wink-nlp';
 import { TOKEN_KINDS, type EffectiveSettings, type TokenKind } from '../../protocol';
 import { chunkCachedUnigrams } from './chunk-cached-unigrams';
 import { cutLongRuns } from './long-runs';
+import { compileTokenPattern, patternTokens, SKLEARN_TOKEN_PATTERN } from './pattern-tokenizer';
 import { createTermOf } from './term-of-token';
-import { winkInstance } from './wink-instance';
+import { winkInstance, winkStemmer } from './wink-instance';
 import { winkSplitsLikeThis } from './wink-splitter';
 
-export type TokenSettings = EffectiveSettings['tokens'];
+/** The token settings; `tokenizer` defaults to "wink" and `pattern` to scikit-learn's default. */
+export type TokenSettings = Omit<EffectiveSettings['tokens'], 'tokenizer' | 'pattern'> & Partial<Pick<EffectiveSettings['tokens'], 'tokenizer' | 'pattern'>>;
 
 /** A document → terms function that also counts the over-long runs it had to cut. */
 export interface Tokenizer {
@@ -72,6 +74,8 @@ export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine
   if (!Number.isInteger(minLength) || minLength < 0) throw new RangeError(`tokens.minLength must be a whole number ≥ 0, got ${minLength}`);
   if (ngrams !== 1 && ngrams !== 2) throw new RangeError(`tokens.ngrams must be 1 or 2, got ${String(ngrams)}`);
   for (const k of settings.kinds) if (!ALL_KINDS.has(k)) throw new RangeError(`unknown token kind "${k}"`);
+  if (settings.tokenizer === 'pattern') return patternTokenizer(settings);
+  if (settings.tokenizer !== undefined && settings.tokenizer !== 'wink') throw new RangeError(`tokens.tokenizer must be "wink" or "pattern", got ${String(settings.tokenizer)}`);
   const nlp = engine.nlp ?? winkInstance(ngrams === 2 ? 'sentences' : 'tokens');
   const termOf = createTermOf(settings);
   let longRunsCut = 0;
@@ -111,4 +115,43 @@ export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine
     }
     return kept;
   });
+}
+
+/**
+ * tokenizer "pattern": scikit-learn's analyzer (lowercase, then re.findall of token_pattern, then
+ * word n-grams over the whole document: each pair of adjacent tokens joined by one space, after
+ * the unigrams). minLength and stem apply as with wink (stem to tokens with a letter); kinds do not
+ * (a pattern has no kinds). Linear in the text: no run needs cutting.
+ */
+function patternTokenizer(settings: TokenSettings): Tokenizer {
+  const { regex, group } = compileTokenPattern(settings.pattern ?? SKLEARN_TOKEN_PATTERN);
+  const tokensOf = patternTokens(regex, group, settings.lowercase);
+  const { minLength, ngrams } = settings;
+  const stemmer = settings.stem ? winkStemmer() : null;
+  const HAS_LETTER = /\p{L}/u;
+  const tokenize = (text: string): string[] => {
+    let kept = tokensOf(text);
+    if (minLength > 1 || stemmer !== null) {
+      const out: string[] = [];
+      for (const t of kept) {
+        if (minLength > 1 && codePoints(t) < minLength) continue;
+        out.push(stemmer !== null && HAS_LETTER.test(t) ? stemmer(t) : t);
+      }
+      kept = out;
+    }
+    if (ngrams !== 2) return kept;
+    const unigrams = kept.length;
+    for (let i = 1; i < unigrams; i++) kept.push(`${kept[i - 1]} ${kept[i]}`);
+    return kept;
+  };
+  return Object.defineProperty(tokenize, 'longRunsCut', { get: () => 0 }) as Tokenizer;
+}
+
+function codePoints(s: string): number {
+  let n = s.length;
+  for (let i = 0; i < s.length; i++) {
+    const c = s.charCodeAt(i);
+    if (c >= 0xd800 && c <= 0xdbff) n--;
+  }
+  return n;
 }

@@ -1,0 +1,76 @@
+import { strict as assert } from 'node:assert';
+import { mulberry32 } from '../extension/src/engine/random/seeded-random';
+import { createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
+import { translatePythonPattern } from '../extension/src/engine/tokenize/pattern-tokenizer';
+import { UserError } from '../extension/src/engine/user-error';
+import { requireSklearn } from './reference/run-sklearn';
+import { assertSameTokens, base, sklearnTokens } from './support/sklearn-analyzer';
+
+// tokens.tokenizer "pattern" must give the tokens scikit-learn's analyzer gives
+// (CountVectorizer(...).build_analyzer(), Debian's python3-sklearn), token for token.
+
+/**
+ * Seeded text from pieces that test where Python's and JavaScript's ideas of a word character
+ * could part (our choice of cases, no source): accents precomposed and decomposed (combining
+ * marks are not \w in Python), CJK, Hangul, Devanagari and Thai (marks inside words), Arabic and
+ * Hebrew, digits of other scripts, superscripts and fractions (No), Roman numerals (Nl),
+ * underscores, apostrophes, hyphens, emoji, case pairs with special lowercasing (İ, Σ at a word's
+ * end, ẞ), and odd spaces.
+ */
+function unicodeDocs(n: number, seed: number): string[] {
+  const pieces = [
+    'café', 'cafe\u0301', 'naïve', 'nai\u0308ve', 'Ångström', 'A\u030angstro\u0308m', 'Ærøskøbing', 'straße', 'STRASSE', 'ẞ', 'İstanbul', 'ΟΔΥΣΣΕΥΣ', 'Σίσυφος', 'ΣΑΣ',
+    '東京', '日本語のテキスト', '中文分词', '한국어', 'हिन्दी', 'ภาษาไทย', 'العربية', 'עברית', 'Привет', 'ǅemal', 'ﬁle',
+    '٣٤٥', '१२३', '１２３', 'x²', '½', 'Ⅻ', 'ⅻ', '㉑', '3.14', '1,000', '2024-01-01', 'snake_case', '__init__', '_', 'a_b',
+    "don't", "it's", 'well-known', 'e-mail', 'a', 'I', 'x', 'ab', 'AB', '😀', '👍🏽', '#tag', '@user', 'https://example.com/a_b?c=1', 'user@example.com',
+    '\u200b', 'a\u200db', 'x\u00ady', '\u2060',
+  ];
+  const seps = [' ', ' ', ' ', '  ', '\n', '\t', ', ', '. ', '; ', '', '\u00a0', '\u3000', '\u2009', '-', '/', '(', ')'];
+  const random = mulberry32(seed);
+  const docs: string[] = [];
+  for (let d = 0; d < n; d++) {
+    let s = '';
+    const len = 1 + Math.floor(random() * 30);
+    for (let i = 0; i < len; i++) s += pieces[Math.floor(random() * pieces.length)]! + seps[Math.floor(random() * seps.length)]!;
+    docs.push(s);
+  }
+  return docs;
+}
+
+describe('tokenize: tokenizer "pattern" equals scikit-learn\'s analyzer', function () {
+  this.timeout(300_000);
+  before(() => requireSklearn());
+
+  // Debian fortunes are compared in tokenize-pattern.slow.test.ts (~25 s).
+  const unicode = unicodeDocs(3000, 20261202);
+
+  for (const [name, docs] of [['generated Unicode text (3,000 documents, seed 20261202)', unicode]] as const) {
+    it(`${name}: default token_pattern, lowercase, unigrams`, () => {
+      assertSameTokens(createTokenizer(base), sklearnTokens(docs, { lowercase: true, ngram_range: [1, 1] }), docs);
+    });
+    it(`${name}: default token_pattern, case kept, unigrams and bigrams`, () => {
+      assertSameTokens(createTokenizer({ ...base, lowercase: false, ngrams: 2 }), sklearnTokens(docs, { lowercase: false, ngram_range: [1, 2] }), docs);
+    });
+  }
+
+  it('user patterns in Python syntax: \\w+ with \\b, a class with \\d, a capturing group (the group is the token)', () => {
+    const docs = unicode.slice(0, 500);
+    for (const pattern of ['(?u)\\b\\w+\\b', '[\\w\\-]{3,}', '\\d+|[a-zé]{2,}', '#?(\\w\\w+)', '\\b[a-zA-Z]{3,}\\b', '\\B\\w\\w\\B']) {
+      assertSameTokens(createTokenizer({ ...base, pattern }), sklearnTokens(docs, { token_pattern: pattern, lowercase: true, ngram_range: [1, 1] }), docs);
+    }
+  });
+
+  it('translatePythonPattern: \\w is [\\p{L}\\p{N}_], a leading (?u) is dropped; bad patterns are UserErrors naming tokens.pattern', () => {
+    assert.equal(translatePythonPattern('(?u)\\w\\w+'), '[\\p{L}\\p{N}_][\\p{L}\\p{N}_]+');
+    assert.equal(translatePythonPattern('[\\w\\-]+'), '[\\p{L}\\p{N}_\\-]+');
+    assert.throws(() => createTokenizer({ ...base, pattern: '(' }), (e: unknown) => e instanceof UserError && /^tokens\.pattern: /.test(e.message));
+    assert.throws(() => createTokenizer({ ...base, pattern: '(a)(b)' }), (e: unknown) => e instanceof UserError && /2 capturing groups/.test(e.message));
+    assert.throws(() => createTokenizer({ ...base, pattern: '(?i)abc' }), (e: unknown) => e instanceof UserError && /inline flags/.test(e.message));
+  });
+
+  it('minLength and stem apply to pattern tokens as to wink words; kinds do not', () => {
+    const t = createTokenizer({ ...base, minLength: 3, stem: true, kinds: ['number'] });
+    // Porter stems (wink's stemmer): "running" → "run", "cats" → "cat"; "ab" is under 3 code points.
+    assert.deepEqual(t('Running cats ab 2024'), ['run', 'cat', '2024']);
+  });
+});
