@@ -1,4 +1,4 @@
-import { NO_NEIGHBOR } from './knn';
+import { NO_NEIGHBOR, TIE_TOLERANCE } from './knn';
 
 /**
  * Hubness from k-occurrences (Radovanović, Nanopoulos & Ivanović 2010, "Hubs in space:
@@ -10,6 +10,39 @@ export function kOccurrence(neighbors: Uint32Array, m: number, k: number): Uint3
   for (let p = 0; p < m * k; p++) {
     const j = neighbors[p];
     if (j !== NO_NEIGHBOR) counts[j]++;
+  }
+  return counts;
+}
+
+/**
+ * N_k when similarities tie at a row's k-th place. The k-NN lists break ties to the lower
+ * position, so with all-identical documents the first k documents were everyone's neighbours
+ * and the review reported k hubs that were an artefact of the order. Here a row whose k-th
+ * similarity is shared by more candidates than it has slots left gives each of the tied
+ * candidates an equal share of those slots: the expected N_k under a uniformly random tie-break.
+ * Without such ties this is exactly kOccurrence. O(m) per row, on the m×m sample matrix.
+ */
+export function tieAwareKOccurrence(gram: Float64Array, m: number, k: number, neighbors: Uint32Array, neighborSims: Float64Array, valid: Uint8Array): Float64Array {
+  const counts = new Float64Array(m);
+  for (let i = 0; i < m; i++) {
+    let filled = 0;
+    while (filled < k && neighbors[i * k + filled] !== NO_NEIGHBOR) filled++;
+    if (filled === 0) continue;
+    const last = neighborSims[i * k + filled - 1]!;
+    const tol = TIE_TOLERANCE * Math.max(1, Math.abs(last));
+    const tied = (s: number): boolean => Math.abs(s - last) <= tol;
+    let firm = 0; // list entries clearly better than the last one: always neighbours
+    for (let r = 0; r < filled; r++) {
+      const j = neighbors[i * k + r]!;
+      if (tied(neighborSims[i * k + r]!)) continue;
+      counts[j] += 1;
+      firm++;
+    }
+    const slots = filled - firm;
+    let group = 0;
+    for (let j = 0; j < m; j++) if (j !== i && valid[j] && tied(gram[i * m + j]!)) group++;
+    const share = slots / Math.max(group, slots);
+    for (let j = 0; j < m; j++) if (j !== i && valid[j] && tied(gram[i * m + j]!)) counts[j] += share;
   }
   return counts;
 }
@@ -28,7 +61,7 @@ export interface HubnessSummary {
  * orphan would report the stop list's side effect as hubness. null with fewer than 3 valid rows
  * (skewness is reported as 0 when every N_k is equal: no spread, no hubs).
  */
-export function hubnessSummary(counts: Uint32Array, valid: Uint8Array, k: number): HubnessSummary | null {
+export function hubnessSummary(counts: ArrayLike<number>, valid: Uint8Array, k: number): HubnessSummary | null {
   let n = 0;
   let sum = 0;
   let hubs = 0;
@@ -36,9 +69,10 @@ export function hubnessSummary(counts: Uint32Array, valid: Uint8Array, k: number
   for (let i = 0; i < counts.length; i++) {
     if (!valid[i]) continue;
     n++;
-    sum += counts[i];
-    if (counts[i] > 2 * k) hubs++;
-    if (counts[i] === 0) orphans++;
+    const c = counts[i]!;
+    sum += c;
+    if (c > 2 * k + 1e-9) hubs++;
+    if (c < 1e-9) orphans++;
   }
   if (n < 3) return null;
   const mean = sum / n;
@@ -46,13 +80,14 @@ export function hubnessSummary(counts: Uint32Array, valid: Uint8Array, k: number
   let m3 = 0;
   for (let i = 0; i < counts.length; i++) {
     if (!valid[i]) continue;
-    const d = counts[i] - mean;
+    const d = counts[i]! - mean;
     m2 += d * d;
     m3 += d * d * d;
   }
   m2 /= n;
   m3 /= n;
-  const skewness = m2 > 0 ? m3 / Math.pow(m2, 1.5) : 0;
+  // Shares of tied slots leave rounding noise in an otherwise flat N_k: that is no spread.
+  const skewness = m2 > 1e-12 * Math.max(1, mean * mean) ? m3 / Math.pow(m2, 1.5) : 0;
   return { skewness, hubs, orphans };
 }
 
@@ -60,10 +95,10 @@ export function hubnessSummary(counts: Uint32Array, valid: Uint8Array, k: number
  * Positions of the `count` most frequent neighbours with N_k > 0, highest first, ties to the
  * lower position (stable sort).
  */
-export function topHubPositions(counts: Uint32Array, count: number): Uint32Array {
+export function topHubPositions(counts: ArrayLike<number>, count: number): Uint32Array {
   const positions: number[] = [];
-  for (let i = 0; i < counts.length; i++) if (counts[i] > 0) positions.push(i);
-  positions.sort((a, b) => counts[b] - counts[a] || a - b);
+  for (let i = 0; i < counts.length; i++) if (counts[i]! > 0) positions.push(i);
+  positions.sort((a, b) => counts[b]! - counts[a]! || a - b);
   return Uint32Array.from(positions.slice(0, count));
 }
 
@@ -71,11 +106,11 @@ export function topHubPositions(counts: Uint32Array, count: number): Uint32Array
  * Histogram of N_k over valid rows: out[i] rows have N_k = i for i < lastBin, and out[lastBin]
  * rows have N_k ≥ lastBin.
  */
-export function kOccurrenceHistogram(counts: Uint32Array, valid: Uint8Array, lastBin: number): number[] {
+export function kOccurrenceHistogram(counts: ArrayLike<number>, valid: Uint8Array, lastBin: number): number[] {
   const out: number[] = new Array(lastBin + 1).fill(0);
   for (let i = 0; i < counts.length; i++) {
     if (!valid[i]) continue;
-    out[Math.min(counts[i], lastBin)]++;
+    out[Math.min(Math.round(counts[i]!), lastBin)]++;
   }
   return out;
 }

@@ -2,7 +2,7 @@ import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { distancesFromGram, validRowsFromGram } from './gram-distances';
-import { hubnessSummary, kOccurrence, kOccurrenceHistogram, topHubPositions } from './hubness';
+import { hubnessSummary, kOccurrenceHistogram, tieAwareKOccurrence, topHubPositions } from './hubness';
 import { iidEquivalentDimension } from './iid-equivalent-dimension';
 import { knnFromSimilarities, neighborDistances } from './knn';
 import { knnTermMass } from './knn-term-mass';
@@ -57,7 +57,8 @@ export interface MeasureDistancesResult {
   /** m×k cosines matching `neighbors`, descending; NaN where none. */
   neighborSims: Float64Array;
   /** N_k per sample position. */
-  kOccurrence: Uint32Array;
+  /** Expected N_k (ties at the k-th place share their slots), so not always whole. */
+  kOccurrence: Float64Array;
   /** Up to TOP_HUBS sample positions by N_k, highest first. */
   hubPositions: Uint32Array;
   /** Per term: similarity inside k-NN pairs, each unordered pair once (for the neighbour lift). */
@@ -99,7 +100,8 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   const standout = neighborStandout(gram, m, valid, nearest);
   const similarity = similarityHistograms(gram, m, valid, nearest);
 
-  const counts = kOccurrence(knn.neighbors, m, k);
+  // Ties at the k-th place share their slots (all-identical documents are no hubs): safety hook.
+  const counts = tieAwareKOccurrence(gram, m, k, knn.neighbors, knn.sims, valid);
   const hubness = hubnessSummary(counts, valid, k);
   const termKnnMass = knnTermMass(X, sample, knn.neighbors, k);
 

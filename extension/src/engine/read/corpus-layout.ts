@@ -18,6 +18,8 @@ export interface CorpusLayout {
   /** Column positions for CSV/TSV; -1 where there is none. */
   textIndex: number;
   labelIndex: number;
+  /** CSV/TSV: whether '"' quotes fields (always for CSV; for TSV only when the head shows it). */
+  quoted: boolean;
   notes: string[];
   /** Data rows the detection saw; 0 with an incomplete head means a longer head may help. */
   sampled: number;
@@ -52,14 +54,15 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
       if (options.textField != null || options.labelField != null) {
         notes.push('plain text has one document per line and no fields: the text and label settings were ignored');
       }
-      return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, notes, sampled: 1 };
+      return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, quoted: false, notes, sampled: 1 };
     case 'parquet':
       throw new UserError('this is not a Parquet file (name it .parquet, or choose another format)', file, null);
   }
 }
 
 function tableLayout(file: string, head: string, headComplete: boolean, format: 'csv' | 'tsv', delimiter: string, options: ReadOptions): CorpusLayout {
-  const splitter = new CsvRecordSplitter(delimiter, file);
+  const quoted = format === 'csv' || tsvUsesQuotes(head);
+  const splitter = new CsvRecordSplitter(delimiter, file, quoted);
   let header: string[] | null = null;
   let headerLine = 1;
   const sample: Array<Map<string, unknown>> = [];
@@ -85,9 +88,15 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
 
   const labelField = pickField(file, fields, options.labelField ?? null, 'label', headerLine);
   let textField = pickField(file, fields, options.textField ?? null, 'text', headerLine);
-  textField ??= detectTextField(fields, sample, labelField) ?? firstFieldWithoutSample(fields, sample.length, labelField);
+  textField ??=
+    detectTextField(fields, sample, labelField) ??
+    (sample.length > 0 ? null : headComplete ? firstField(fields, labelField) : fieldBeingCut(file, head, delimiter, quoted, fields, labelField, headerLine));
   if (textField === null) {
     throw new UserError(`found no column with text; name one with the text setting (columns: ${list(fields)})`, file, headerLine);
+  }
+  const notes = duplicateColumnNotes(fields, textField, labelField);
+  if (format === 'tsv' && !quoted && /(^|\t)"/m.test(head)) {
+    notes.push('TSV read without quoting (IANA text/tab-separated-values): a field that starts with a quote is text, quote included');
   }
   return {
     format,
@@ -97,7 +106,8 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
     labelField,
     textIndex: fields.indexOf(textField),
     labelIndex: labelField === null ? -1 : fields.indexOf(labelField),
-    notes: [],
+    quoted,
+    notes,
     sampled: sample.length,
   };
 }
@@ -143,13 +153,97 @@ function jsonlLayout(file: string, head: string, headComplete: boolean, options:
   if (textField === null) {
     throw new UserError(`found no key with text; name one with the text setting (keys: ${list(fields)})`, file, null);
   }
-  return { format: 'jsonl', delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, notes: [], sampled: sample.length };
+  return { format: 'jsonl', delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, quoted: false, notes: [], sampled: sample.length };
 }
 
-/** A head holding one record longer than itself has no sample: take the first candidate field rather than fail. */
-function firstFieldWithoutSample(fields: readonly string[], sampled: number, exclude: string | null): string | null {
-  if (sampled > 0) return null;
+/**
+ * A head that holds no complete data record (the first record is longer than MAX_HEAD_BYTES)
+ * still shows which field is long: the one the head ends inside. Taking the first column instead
+ * picked "id" for a 70 MB first record. If the cut field is the label or the first record is
+ * not even begun, the user must name the text field.
+ */
+function fieldBeingCut(file: string, head: string, delimiter: string, quoted: boolean, fields: readonly string[], label: string | null, headerLine: number): string | null {
+  const name = fields[fieldIndexAtEnd(head, delimiter, quoted)];
+  if (name === undefined || name === label) {
+    throw new UserError(
+      `found no column with text in a sample: the first record is too long to sample (over ${Math.max(1, Math.round(head.length / 1024 / 1024))} Mi characters); name the text column with the text setting (columns: ${list(fields)})`,
+      file,
+      headerLine,
+    );
+  }
+  return name;
+}
+
+/**
+ * The 0-based field the text ends inside, counting from the start of the last record (RFC 4180:
+ * delimiters and line breaks inside quotes do not count). -1 when the text ends in the header.
+ */
+function fieldIndexAtEnd(text: string, delimiter: string, quoted: boolean): number {
+  let inQuotes = false;
+  let records = 0;
+  let field = 0;
+  let fieldStart = true;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (inQuotes) {
+      if (c === '"') {
+        if (text[i + 1] === '"') i++;
+        else inQuotes = false;
+      }
+      continue;
+    }
+    if (quoted && c === '"' && fieldStart) inQuotes = true;
+    else if (c === delimiter) {
+      field++;
+      fieldStart = true;
+      continue;
+    } else if (c === '\n') {
+      records++;
+      field = 0;
+      fieldStart = true;
+      continue;
+    }
+    fieldStart = false;
+  }
+  return records === 0 ? -1 : field;
+}
+
+/** No row had the header's width (mixed delimiters): the read then names the bad rows. */
+function firstField(fields: readonly string[], exclude: string | null): string | null {
   return fields.find((f) => f !== exclude) ?? null;
+}
+
+/** Two columns of one name: only the first is read, so say so, naming them (1-based). */
+function duplicateColumnNotes(fields: readonly string[], textField: string, labelField: string | null): string[] {
+  const positions = new Map<string, number[]>();
+  fields.forEach((f, i) => positions.set(f, [...(positions.get(f) ?? []), i + 1]));
+  const notes: string[] = [];
+  for (const [name, at] of positions) {
+    if (at.length < 2) continue;
+    const role = name === textField ? ' (the text field)' : name === labelField ? ' (the label field)' : '';
+    notes.push(`columns ${at.join(' and ')} are both named "${name}"${role}; only column ${at[0]} is read — rename one to read the other`);
+  }
+  return notes;
+}
+
+/**
+ * Whether a TSV file quotes its fields. IANA's text/tab-separated-values has no quoting, but
+ * spreadsheet exports quote fields holding tabs or line breaks. Quoting is assumed only when
+ * the head has fields that are whole quoted fields ("…", inner quotes doubled) and no field that
+ * starts with a quote and then breaks the rule ("Best" pizza): an inch mark is text.
+ */
+export function tsvUsesQuotes(head: string): boolean {
+  let whole = 0;
+  let broken = 0;
+  for (const line of head.split('\n', 5000)) {
+    for (const field of line.split('\t')) {
+      if (field.charCodeAt(0) !== 0x22) continue;
+      if (/^"(?:[^"]|"")*"$/.test(field)) whole++;
+      else if (field.indexOf('"', 1) >= 0) broken++;
+      // else: opens a quoted field that goes on to the next line (or a lone quote): no evidence.
+    }
+  }
+  return whole > 0 && broken === 0;
 }
 
 function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null): string | null {

@@ -20,11 +20,15 @@ export class CsvRecordSplitter {
   private attemptAt = 0;
   private line = 1;
 
+  /** `quoted` false: no field is quoted (TSV as IANA text/tab-separated-values defines it). */
   constructor(
     delimiter: string,
     private readonly file: string,
+    quoted = true,
   ) {
-    this.parser = new Papa.Parser({ delimiter, newline: '\n', quoteChar: '"', escapeChar: '"', comments: false });
+    // papaparse always has a quote character; U+FFFF is a Unicode noncharacter, absent from text.
+    const quote = quoted ? '"' : '\uffff';
+    this.parser = new Papa.Parser({ delimiter, newline: '\n', quoteChar: quote, escapeChar: quote, comments: false });
   }
 
   push(chunk: string, emit: EmitRecord): void {

@@ -1,6 +1,6 @@
 import { isUtf8 } from 'node:buffer';
 import { UserError } from '../user-error';
-import { completeUtf8Length } from './utf8-boundary';
+import { completeUtf8Length, utf8Census } from './utf8-boundary';
 
 export type CorpusEncoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252';
 
@@ -23,10 +23,12 @@ export const BINARY_PROBE_BYTES = 64 * 1024;
  */
 export function detectEncoding(head: Uint8Array, file: string, headIsWholeFile: boolean): DetectedEncoding {
   if (head.length >= 3 && head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf) {
+    // A BOM does not make the rest text: binary after it is still binary.
+    refuseBinary(head.subarray(3, 3 + BINARY_PROBE_BYTES), 3, file, 'after its UTF-8 byte-order mark');
     return { encoding: 'utf-8', bomLength: 3, note: null };
   }
-  if (head.length >= 2 && head[0] === 0xff && head[1] === 0xfe) return { encoding: 'utf-16le', bomLength: 2, note: null };
-  if (head.length >= 2 && head[0] === 0xfe && head[1] === 0xff) return { encoding: 'utf-16be', bomLength: 2, note: null };
+  if (head.length >= 2 && head[0] === 0xff && head[1] === 0xfe) return utf16(head, 'utf-16le', file);
+  if (head.length >= 2 && head[0] === 0xfe && head[1] === 0xff) return utf16(head, 'utf-16be', file);
 
   const probe = head.subarray(0, BINARY_PROBE_BYTES);
   const nul = probe.indexOf(0);
@@ -39,6 +41,9 @@ export function detectEncoding(head: Uint8Array, file: string, headIsWholeFile: 
   }
   const checked = headIsWholeFile ? head : head.subarray(0, completeUtf8Length(head));
   if (isUtf8(checked)) return { encoding: 'utf-8', bomLength: 0, note: null };
+  // Plainly UTF-8 with a few stray bytes: stays UTF-8 (the decoder notes the bytes and their line).
+  const census = utf8Census(checked);
+  if (census.validMultiByte > census.invalid) return { encoding: 'utf-8', bomLength: 0, note: null };
   const bad = firstInvalidUtf8Offset(checked);
   return {
     encoding: 'windows-1252',
@@ -59,4 +64,35 @@ export function firstInvalidUtf8Offset(bytes: Uint8Array): number {
     else hi = mid;
   }
   return completeUtf8Length(bytes.subarray(0, lo));
+}
+
+function refuseBinary(probe: Uint8Array, base: number, file: string, where: string): void {
+  const nul = probe.indexOf(0);
+  if (nul >= 0) {
+    throw new UserError(`looks like a binary file (a NUL byte at offset ${base + nul}, ${where}); a corpus must be text`, file, null);
+  }
+}
+
+/**
+ * UTF-16 with a BOM. Text has no U+0000 and no unpaired surrogate; binary bytes after FF FE
+ * decode into both soon, so a few in the first 64 KiB mean binary (common practice, no source).
+ */
+function utf16(head: Uint8Array, encoding: 'utf-16le' | 'utf-16be', file: string): DetectedEncoding {
+  const probe = head.subarray(2, 2 + BINARY_PROBE_BYTES);
+  const units = probe.length >> 1;
+  let nulUnits = 0;
+  let loneSurrogates = 0;
+  for (let i = 0; i < units; i++) {
+    const u = encoding === 'utf-16le' ? probe[2 * i]! | (probe[2 * i + 1]! << 8) : (probe[2 * i]! << 8) | probe[2 * i + 1]!;
+    if (u === 0) nulUnits++;
+    else if (u >= 0xd800 && u <= 0xdbff) {
+      const next = i + 1 < units ? (encoding === 'utf-16le' ? probe[2 * i + 2]! | (probe[2 * i + 3]! << 8) : (probe[2 * i + 2]! << 8) | probe[2 * i + 3]!) : 0xdc00;
+      if (next >= 0xdc00 && next <= 0xdfff) i++;
+      else loneSurrogates++;
+    } else if (u >= 0xdc00 && u <= 0xdfff) loneSurrogates++;
+  }
+  if (nulUnits + loneSurrogates > 0) {
+    throw new UserError(`looks like a binary file (${nulUnits} NUL and ${loneSurrogates} unpaired surrogate code units after its UTF-16 byte-order mark); a corpus must be text`, file, null);
+  }
+  return { encoding, bomLength: 2, note: null };
 }

@@ -42,7 +42,7 @@ export async function openCorpus(file: string, options: ReadOptions = {}): Promi
     const encoding = detectEncoding(headBytes, file, headIsAll && end === size);
     if (size <= encoding.bomLength) throw new UserError('the file is empty (only a byte-order mark)', file, null);
     const decoder = new ChunkDecoder(encoding.encoding, encoding.bomLength);
-    const head = new NewlineNormalizer().push(decoder.decode(headBytes.subarray(encoding.bomLength), headIsAll), headIsAll);
+    const head = new NewlineNormalizer().push(decoder.decode(headBytes.subarray(encoding.bomLength), headIsAll, headIsAll && end < size), headIsAll);
     const mayGrow = !headIsAll && headLength < MAX_HEAD_BYTES;
     const layout = tryLayout(file, head, headIsAll, mayGrow, options);
     // A head that ends inside the first records (very long documents) says too little: read more.
@@ -53,7 +53,7 @@ export async function openCorpus(file: string, options: ReadOptions = {}): Promi
     const baseNotes = encoding.note === null ? [] : [encoding.note];
     const cut = end < size ? { bytesRead: end, limitBytes: limitBytes as number } : null;
     const chunkBytes = checkChunkBytes(options.chunkBytes);
-    return new StreamedCorpus(file, layout, baseNotes, cut, (notes) => fileTextChunks(file, encoding, end, notes, chunkBytes));
+    return new StreamedCorpus(file, layout, baseNotes, cut, (notes) => fileTextChunks(file, encoding, end, notes, chunkBytes, end < size));
   }
 }
 

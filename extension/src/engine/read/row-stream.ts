@@ -49,7 +49,7 @@ export function createRowSink(file: string, layout: CorpusLayout, state: PassSta
 }
 
 function tableSink(file: string, layout: CorpusLayout, skip: (line: number, reason: string) => void, accept: Emit): RowSink {
-  const splitter = new CsvRecordSplitter(layout.delimiter ?? ',', file);
+  const splitter = new CsvRecordSplitter(layout.delimiter ?? ',', file, layout.quoted);
   const width = layout.fields.length;
   const { textIndex, labelIndex } = layout;
   let headerSeen = false;
@@ -87,12 +87,13 @@ function jsonlRow(
     return skip(line, parsed.reason);
   }
   const key = layout.textField as string;
-  const value = scalarText(parsed.object[key]);
+  // Own keys only: a document without "constructor" must not read Object.prototype's.
+  const value = scalarText(ownValue(parsed.object, key));
   if ('reason' in value) return skip(line, `"${key}" ${value.reason}`);
   if (value.text.trim() === '') return skip(line, `empty text in "${key}"`);
   let label: string | null = null;
   if (layout.labelField !== null) {
-    const raw = parsed.object[layout.labelField];
+    const raw = ownValue(parsed.object, layout.labelField);
     if (raw !== undefined && raw !== null) {
       const l = scalarText(raw);
       if ('reason' in l) return skip(line, `"${layout.labelField}" ${l.reason}`);
@@ -100,6 +101,10 @@ function jsonlRow(
     }
   }
   accept({ text: value.text, label, line });
+}
+
+function ownValue(object: Record<string, unknown>, key: string): unknown {
+  return Object.hasOwn(object, key) ? object[key] : undefined;
 }
 
 function lineSink(onLine: (text: string, line: number) => void, skip: (line: number, reason: string) => void): RowSink {

@@ -6,13 +6,14 @@ import { NewlineNormalizer } from './newline-normalizer';
 /** Bytes per read: large enough that per-chunk overhead vanishes, small enough to stay flat in memory. */
 export const CHUNK_BYTES = 1024 * 1024;
 
-/** LF-normalised text of bytes [bom, end) of a file, decoded chunk by chunk. */
+/** LF-normalised text of bytes [bom, end) of a file, decoded chunk by chunk; `cut`: `end` is a size limit, not the file's end. */
 export async function* fileTextChunks(
   file: string,
   encoding: DetectedEncoding,
   end: number,
   notes: string[],
   chunkBytes = CHUNK_BYTES,
+  cut = false,
 ): AsyncGenerator<string> {
   const decoder = new ChunkDecoder(encoding.encoding, encoding.bomLength);
   const newlines = new NewlineNormalizer();
@@ -27,7 +28,7 @@ export async function* fileTextChunks(
       stream.destroy();
     }
   }
-  const tail = newlines.push(decoder.decode(new Uint8Array(0), true), true);
+  const tail = newlines.push(decoder.decode(new Uint8Array(0), true, cut), true);
   if (tail.length > 0) yield tail;
   notes.push(...decoder.notes);
 }

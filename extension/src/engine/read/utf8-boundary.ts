@@ -1,3 +1,5 @@
+import { isUtf8 } from 'node:buffer';
+
 /**
  * Length of the longest prefix that does not end inside a multi-byte UTF-8 sequence, so a chunk
  * can be decoded now and its last 1–3 bytes carried to the next chunk. Lead-byte ranges per
@@ -12,4 +14,28 @@ export function completeUtf8Length(bytes: Uint8Array): number {
     return need > back ? n - back : n;
   }
   return n;
+}
+
+/** Well-formed multi-byte UTF-8 sequences and bytes that belong to none (RFC 3629 §4). */
+export function utf8Census(b: Uint8Array): { validMultiByte: number; invalid: number; firstInvalid: number } {
+  let validMultiByte = 0;
+  let invalid = 0;
+  let firstInvalid = -1;
+  for (let i = 0; i < b.length; ) {
+    const c = b[i]!;
+    if (c < 0x80) {
+      i++;
+      continue;
+    }
+    const need = c >= 0xc2 && c <= 0xdf ? 1 : c >= 0xe0 && c <= 0xef ? 2 : c >= 0xf0 && c <= 0xf4 ? 3 : -1;
+    if (need > 0 && i + need < b.length && isUtf8(b.subarray(i, i + need + 1))) {
+      validMultiByte++;
+      i += need + 1;
+    } else {
+      if (firstInvalid < 0) firstInvalid = i;
+      invalid++;
+      i++;
+    }
+  }
+  return { validMultiByte, invalid, firstInvalid: Math.max(0, firstInvalid) };
 }

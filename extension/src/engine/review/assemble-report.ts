@@ -58,7 +58,7 @@ function hubRows(p: ReportParts): HubRow[] {
   for (let i = 0; i < hubPositions.length && rows.length < HUBS_IN_REPORT; i++) {
     const position = hubPositions[i]!;
     const doc = p.sample.positions[position]!;
-    rows.push({ doc, line: p.prepared.lines[doc]!, kOccurrence: kOccurrence[position]!, preview: p.prepared.previews[doc] ?? '' });
+    rows.push({ doc, line: p.prepared.lines[doc]!, kOccurrence: Math.round(kOccurrence[position]! * 100) / 100, preview: p.prepared.previews[doc] ?? '' });
   }
   return rows;
 }

@@ -5,6 +5,7 @@ import { chown, open, readFile, realpath, rename, unlink } from 'node:fs/promise
 import * as path from 'node:path';
 import { UserError } from '../user-error';
 import { decodeWindows1252 } from '../read/windows-1252';
+import { utf8Census } from '../read/utf8-boundary';
 import { formatBytes, readErrorMessage, readRegularFile, writeErrorMessage } from '../read/regular-file';
 import { addTermsToStopList } from './add-terms-to-stop-list';
 
@@ -76,29 +77,6 @@ function decodeStopList(bytes: Buffer, file: string): Pick<StopListFile, 'encodi
     return { encoding: 'utf-8', bomLength, text: body.toString('utf8'), note: `line ${line}: ${invalid} byte(s) that are not UTF-8, read as U+FFFD` };
   }
   return { encoding: 'windows-1252', bomLength, text: decodeWindows1252(body), note: null };
-}
-
-/** Counts well-formed multi-byte UTF-8 sequences and bytes that belong to none (RFC 3629 §4). */
-function utf8Census(b: Uint8Array): { validMultiByte: number; invalid: number; firstInvalid: number } {
-  let validMultiByte = 0;
-  let invalid = 0;
-  let firstInvalid = -1;
-  for (let i = 0; i < b.length; ) {
-    const c = b[i]!;
-    const need = c < 0x80 ? 0 : c >= 0xc2 && c <= 0xdf ? 1 : c >= 0xe0 && c <= 0xef ? 2 : c >= 0xf0 && c <= 0xf4 ? 3 : -1;
-    let ok = need >= 0 && i + need < b.length;
-    for (let k = 1; ok && k <= need; k++) ok = (b[i + k]! & 0xc0) === 0x80;
-    if (ok && need > 0 && isUtf8(b.subarray(i, i + need + 1))) {
-      validMultiByte++;
-      i += need + 1;
-    } else if (ok && need === 0) i++;
-    else {
-      if (firstInvalid < 0) firstInvalid = i;
-      invalid++;
-      i++;
-    }
-  }
-  return { validMultiByte, invalid, firstInvalid: Math.max(0, firstInvalid) };
 }
 
 function swap16(b: Uint8Array): Buffer {
