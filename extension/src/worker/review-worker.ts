@@ -37,6 +37,10 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
     controller.signal.throwIfAborted();
     session = next;
     post({ type: 'report', runId, report: next.report });
+    // While the reader looks at the Report, build what the first toggle would otherwise pay for.
+    setImmediate(() => {
+      if (session === next) next.prepareWhatIf?.();
+    });
   } catch (e) {
     post({ ...errorMessage(e, controller), runId });
   } finally {

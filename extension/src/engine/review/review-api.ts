@@ -38,4 +38,6 @@ export interface ReviewSession {
   readonly report: Report;
   /** Measures with the baseline stop list plus `removed`; O(nnz) plus the sampled measures. */
   whatIf(removed: readonly string[]): Measures;
+  /** Builds the column postings the first incremental what-if needs (optional; idle time). */
+  prepareWhatIf?(): void;
 }

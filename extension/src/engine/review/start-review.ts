@@ -97,6 +97,9 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
       const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
       return lab.measureIncrementally(mask, baseline.neighbors).measures;
     },
+    prepareWhatIf() {
+      lab.prepareToggles();
+    },
   };
 }
 

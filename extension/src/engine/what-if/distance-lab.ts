@@ -102,6 +102,11 @@ export class DistanceLab {
     });
   }
 
+  /** Builds the column postings toggles walk, so the first toggle does not pay for them. */
+  prepareToggles(): void {
+    this.exact.prepare();
+  }
+
   /** Column mask with `base` plus `extra` columns set. */
   static union(base: Uint8Array, extra: Iterable<number>): Uint8Array {
     const mask = base.slice();

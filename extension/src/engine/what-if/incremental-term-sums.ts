@@ -208,6 +208,11 @@ export class IncrementalTermSums {
     }
   }
 
+  /** Builds the column postings ahead of the first incremental step. */
+  prepare(): void {
+    this.columnPostings();
+  }
+
   /** Row ids per column, ascending: the column-major copy the toggles walk. */
   private columnPostings(): { start: Uint32Array; rows: Uint32Array } {
     if (this.postings !== null) return this.postings;
