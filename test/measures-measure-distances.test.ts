@@ -55,6 +55,24 @@ describe('measures/measure-distances', () => {
     assert.equal(sim.nearest.reduce((a, b) => a + b, 0), valid);
     assert.equal(measures.distributions.kOccurrence.length, 3 * k + 1);
     assert.equal(measures.distributions.kOccurrence.reduce((a, b) => a + b, 0), valid);
+    // The figures are wired to the right inputs: neighbour standout and the iid-equivalent
+    // dimension recomputed by brute force from the dense rows (docs/methods.md §4 definitions).
+    const validRows = Array.from(sample).filter((r) => rows[r]!.some((v) => v !== 0));
+    const z: number[] = [];
+    const distances: number[] = [];
+    for (const a of validRows) {
+      const sims = validRows.filter((b) => b !== a).map((b) => dot(rows[a]!, rows[b]!));
+      const mean = sims.reduce((x, y) => x + y, 0) / sims.length;
+      const sd = Math.sqrt(sims.reduce((x, y) => x + (y - mean) ** 2, 0) / sims.length);
+      if (sd > 1e-12) z.push((Math.max(...sims) - mean) / sd);
+      for (const b of validRows) if (b > a) distances.push(Math.sqrt(Math.max(0, 2 - 2 * dot(rows[a]!, rows[b]!))));
+    }
+    z.sort((x, y) => x - y);
+    const median = z.length % 2 === 1 ? z[(z.length - 1) / 2]! : (z[z.length / 2 - 1]! + z[z.length / 2]!) / 2;
+    assert.ok(Math.abs(measures.neighborStandout! - median) < 1e-9, `standout ${measures.neighborStandout} vs ${median}`);
+    const dMean = distances.reduce((x, y) => x + y, 0) / distances.length;
+    const cv = Math.sqrt(distances.reduce((x, y) => x + (y - dMean) ** 2, 0) / distances.length) / dMean;
+    assert.ok(Math.abs(measures.iidEquivalentDimension! - 1 / (2 * cv * cv)) < 1e-6, `iid ${measures.iidEquivalentDimension} vs ${1 / (2 * cv * cv)}`);
     const cum = measures.distributions.cumulativeMass;
     assert.equal(cum.length, cols);
     assert.ok(Math.abs(cum[9]! - measures.topTermsMassShare.top10) < 1e-12);
