@@ -9,6 +9,9 @@ import { countShard } from '../extension/src/engine/shards/count-shard';
 import { parsePartial } from '../extension/src/engine/shards/partials';
 import { planReview } from '../extension/src/engine/shards/plan-review';
 import { reviewShards } from '../extension/src/engine/shards/review-shards';
+import { finishReview } from '../extension/src/engine/shards/finish-review';
+import { sumShard } from '../extension/src/engine/shards/sum-shard';
+import { SumsTotals } from '../extension/src/engine/shards/sums-totals';
 import { isUserError, type UserError } from '../extension/src/engine/user-error';
 import { generatedDocs, writeShards } from './support/shard-corpora';
 
@@ -60,6 +63,20 @@ describe('review in shards: merge checks and errors', function () {
     settings.prune.maxDf = 0.5;
     const partials = await Promise.all(files.map(async (file) => ({ partial: await countShard({ file, key: path.basename(file) }, settings), file })));
     await assert.rejects(planReview({ corpus: shardDir, settings, configDir: null, partials }), (e: unknown) => isUserError(e) && /pruning emptied too many/.test(e.message));
+  });
+
+  it('SumsTotals refuses a second partial for a shard and names a shard whose sums are missing', async () => {
+    const shardDir = path.join(dir, 'totals');
+    mkdirSync(shardDir);
+    const files = writeShards(shardDir, generatedDocs(120, 8), 2);
+    const { settings } = await loadSettings(null, OVERRIDES);
+    const partials = await Promise.all(files.map(async (file) => ({ partial: await countShard({ file, key: path.basename(file) }, settings), file })));
+    const plan = await planReview({ corpus: shardDir, settings, configDir: null, partials });
+    const first = await sumShard({ file: files[0]!, key: 'part-0.jsonl' }, plan, settings);
+    const totals = new SumsTotals(plan, settings);
+    totals.add(first, 'sums-0.json');
+    assert.throws(() => totals.add(first, 'again.json'), (e: unknown) => isUserError(e) && (e as UserError).file === 'again.json' && /two sums partials for shard "part-0.jsonl"/.test(e.message));
+    assert.throws(() => finishReview(plan, settings, totals), /no sums partial for shard "part-1.jsonl"/);
   });
 
   it('an unparsable shard fails the review naming the shard and the line', async () => {

@@ -10,6 +10,7 @@ import { finishReview } from '../engine/shards/finish-review';
 import { parsePartial, type CountPartial, type PlanPartial, type SumsPartial } from '../engine/shards/partials';
 import { planReview } from '../engine/shards/plan-review';
 import { sumShard } from '../engine/shards/sum-shard';
+import { SumsTotals } from '../engine/shards/sums-totals';
 import { UserError } from '../engine/user-error';
 import { parseArgs, UsageError } from './parse-args';
 import { reviewInputOf } from './review-input-of';
@@ -100,8 +101,10 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
     }
     case 'finish': {
       const plan = await readPartial<PlanPartial>(need('plan'), 'plan');
-      const partials = await Promise.all(files.map(async (file) => ({ partial: await readPartial<SumsPartial>(file, 'sums'), file })));
-      const result = finishReview(plan, settings, partials);
+      // One partial in memory at a time, added into the totals and let go.
+      const totals = new SumsTotals(plan, settings);
+      for (const file of files) totals.add(await readPartial<SumsPartial>(file, 'sums'), file);
+      const result = finishReview(plan, settings, totals);
       if (result.done) {
         await writeJson(need('out'), result.report);
         return 0;

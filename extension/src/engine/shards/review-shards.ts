@@ -2,9 +2,9 @@ import type { EffectiveSettings, Report } from '../../protocol';
 import { listCorpusFiles } from '../read/corpus-files';
 import { countShard, type ShardRef } from './count-shard';
 import { finishReview } from './finish-review';
-import type { SumsPartial } from './partials';
 import { planReview } from './plan-review';
 import { sumShard } from './sum-shard';
+import { SumsTotals } from './sums-totals';
 
 /** Rounds of sums a review may ask for before giving up (the current method needs two). */
 export const MAX_SUMS_ROUNDS = 6;
@@ -30,13 +30,13 @@ export async function reviewShards(options: ShardedReviewOptions): Promise<Repor
     options.onStep?.('count', counted.length, shards.length);
   }
   let plan = await planReview({ corpus: options.corpus, settings, configDir: options.configDir, partials: counted });
-  const sums: Array<{ partial: SumsPartial; file: string }> = [];
+  const totals = new SumsTotals(plan, settings);
   for (let round = 1; round <= MAX_SUMS_ROUNDS; round++) {
-    for (const shard of shards) {
-      sums.push({ partial: await sumShard(shard, plan, settings), file: shard.file });
-      options.onStep?.(`sums ${round}`, sums.length - (round - 1) * shards.length, shards.length);
+    for (let i = 0; i < shards.length; i++) {
+      totals.add(await sumShard(shards[i]!, plan, settings), shards[i]!.file);
+      options.onStep?.(`sums ${round}`, i + 1, shards.length);
     }
-    const result = finishReview(plan, settings, sums);
+    const result = finishReview(plan, settings, totals);
     if (result.done) return result.report;
     plan = { ...plan, masks: result.masks, full: false };
   }
