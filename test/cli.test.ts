@@ -95,7 +95,7 @@ describe('loudword CLI', function () {
     assert.match(missing.stderr, /nope\.csv/);
     const wrong = run(['review', 'support-tickets.csv', '--format', 'pdf'], dir);
     assert.equal(wrong.code, 2);
-    assert.match(wrong.stderr, /--format must be one of/);
+    assert.match(wrong.stderr, /--format: must be one of/);
   });
 
   it('an invalid loudword.json exits 1 naming the file and line', () => {

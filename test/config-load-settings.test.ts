@@ -54,7 +54,46 @@ describe('loadSettings', () => {
     badInputCases++;
     await assert.rejects(loadSettings(null, { sample: { documents: 10, k: 10 } }), (e: unknown) => e instanceof UserError && /sample.k/.test(e.message));
     badInputCases++;
-    await assert.rejects(loadSettings(null, { sample: { k: 0 } }), (e: unknown) => e instanceof UserError && e.file === '(overrides)');
+    await assert.rejects(loadSettings(null, { sample: { k: 0 } }, { overridesFrom: { from: 'command-line flag', names: { 'sample.k': '--k' } } }), (e: unknown) => e instanceof UserError && /^--k must be an integer from 1 to 100, got 0 \(command-line flag\)$/.test(e.message));
+    badInputCases++;
+  });
+
+  it('loadSettings layers defaults < editor settings < loudword.json < flags and says where each setting came from', async () => {
+    const sub = path.join(dir, 'layers');
+    mkdirSync(sub);
+    writeFileSync(path.join(sub, 'loudword.json'), '{\n  "label": "topic",\n  "sample": {\n    "k": 5\n  }\n}\n');
+    const editor = { values: { sample: { documents: 300, k: 20 } }, from: 'editor setting' as const, names: { 'sample.documents': 'loudword.sampleSize', 'sample.k': 'loudword.neighbors' } };
+    const loaded = await loadSettings(path.join(sub, 'loudword.json'), { sample: { seed: 7 } }, { editor, overridesFrom: { from: 'command-line flag', names: { 'sample.seed': '--seed' } } });
+    assert.deepEqual(loaded.settings.sample, { documents: 300, k: 5, seed: 7 });
+    assert.deepEqual(loaded.sources, {
+      'sample.documents': { from: 'editor setting', where: 'loudword.sampleSize' },
+      'sample.k': { from: 'loudword.json', where: `${path.join(sub, 'loudword.json')}:4` },
+      label: { from: 'loudword.json', where: `${path.join(sub, 'loudword.json')}:2` },
+      'sample.seed': { from: 'command-line flag', where: '--seed' },
+    });
+  });
+
+  it('loadSettings resolves the default stop list beside the config, else beside the corpus; a flag’s against the working directory', async () => {
+    const proj = path.join(dir, 'stops');
+    mkdirSync(path.join(proj, 'data'), { recursive: true });
+    writeFileSync(path.join(proj, 'loudword.json'), '{}');
+    const corpus = path.join(proj, 'data', 'c.csv');
+    assert.equal((await loadSettings(path.join(proj, 'loudword.json'), {}, { corpusFile: corpus })).stopListPath, path.join(proj, 'stoplist.txt'));
+    assert.equal((await loadSettings(null, {}, { corpusFile: corpus })).stopListPath, path.join(proj, 'data', 'stoplist.txt'));
+    assert.equal((await loadSettings(null, { stopList: 'x.txt' }, { corpusFile: corpus, baseDir: dir })).stopListPath, path.join(dir, 'x.txt'));
+    assert.equal((await loadSettings(null, { stopList: null }, { corpusFile: corpus })).stopListPath, null);
+  });
+
+  it('loadSettings: k not below the sample size names both places', async () => {
+    const sub = path.join(dir, 'kdocs');
+    mkdirSync(sub);
+    const file = path.join(sub, 'loudword.json');
+    writeFileSync(file, '{\n "sample": {\n  "k": 50\n }\n}');
+    await assert.rejects(loadSettings(file, { sample: { documents: 40 } }, { overridesFrom: { from: 'command-line flag', names: { 'sample.documents': '--sample' } } }), (e: unknown) => {
+      assert.ok(e instanceof UserError);
+      assert.equal(e.describe(), `${file}:3: "sample.k" (50) must be smaller than --sample (40)`);
+      return true;
+    });
     badInputCases++;
   });
 });

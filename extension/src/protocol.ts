@@ -117,6 +117,24 @@ export interface Report {
   /** The stop list in force for the baseline (from the project's stop list file). */
   stopList: { file: string | null; terms: number; unused: string[] };
   timings?: Record<string, number> | undefined;
+  /** Which loudword.json the review read and where each setting came from. */
+  provenance?: SettingsProvenance | undefined;
+}
+
+/** Where a setting's value came from; later ones win: default < editor setting < loudword.json < command-line flag. */
+export type SettingSourceKind = 'default' | 'editor setting' | 'loudword.json' | 'command-line flag';
+
+export interface SettingsProvenance {
+  /**
+   * The loudword.json read (absolute), or null. `how`: given (--config), nearest (found from the
+   * corpus's folder up to the project root), none (none found), ignored (--no-config).
+   */
+  config: { file: string | null; how: 'given' | 'nearest' | 'none' | 'ignored' };
+  /**
+   * Every setting not at its default, by dotted key ("sample.k"): where it came from and where
+   * exactly ("/p/loudword.json:4", "--k", "loudword.neighbors").
+   */
+  sources: Record<string, { from: SettingSourceKind; where: string }>;
 }
 
 export type CorpusFormatName = 'csv' | 'tsv' | 'jsonl' | 'text' | 'parquet';

@@ -1,4 +1,5 @@
 import type { Report } from '../protocol';
+import { provenanceLine } from './format-provenance';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 
@@ -26,6 +27,8 @@ export function formatText(report: Report): string {
   for (const s of input.skippedExamples ?? []) out.push(`Skipped line ${s.line}: ${s.reason}`);
   if (input.truncated) out.push(`Read only the first ${input.truncated.bytesRead} bytes (limit ${input.truncated.limitBytes}).`);
   out.push(`Stop list: ${report.stopList.file ?? 'none'} (${report.stopList.terms} terms${report.stopList.unused.length ? `, ${report.stopList.unused.length} never occur` : ''})`);
+  const provenance = provenanceLine(report);
+  if (provenance !== null) out.push(provenance);
   out.push(`Sample: ${baseline.sample.documents} documents, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);
   out.push('');
 

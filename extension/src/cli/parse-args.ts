@@ -51,6 +51,8 @@ export interface OptionSpec {
   /** The value's placeholder in the usage ("FILE"); absent for a switch. */
   value?: string;
   check?: ValueKind;
+  /** The loudword.json key this flag overrides ("sample.k"), for messages and Report.provenance. */
+  setting?: string;
   help: string;
 }
 
@@ -61,17 +63,17 @@ export const COMMANDS = [
 ] as const;
 
 export const OPTIONS: readonly OptionSpec[] = [
-  { flag: 'text', field: 'text', value: 'FIELD', check: { kind: 'name' }, help: 'column or key holding the text (default: the one with the longest texts)' },
-  { flag: 'label', field: 'label', value: 'FIELD', check: { kind: 'name' }, help: 'column or key with a class label; enables label precision@k' },
-  { flag: 'config', field: 'config', value: 'FILE', check: { kind: 'name' }, help: 'loudword.json to read (default: loudword.json beside the corpus, then in the current folder)' },
+  { flag: 'text', setting: 'text', field: 'text', value: 'FIELD', check: { kind: 'name' }, help: 'column or key holding the text (default: the one with the longest texts)' },
+  { flag: 'label', setting: 'label', field: 'label', value: 'FIELD', check: { kind: 'name' }, help: 'column or key with a class label; enables label precision@k' },
+  { flag: 'config', field: 'config', value: 'FILE', check: { kind: 'name' }, help: 'loudword.json to read (default: the nearest one from the corpus folder up to the project root)' },
   { flag: 'no-config', field: 'noConfig', help: 'ignore any loudword.json' },
-  { flag: 'stoplist', field: 'stopList', value: 'FILE', check: { kind: 'name' }, help: 'the stop list file (default: "stopList" of the config, else stoplist.txt)' },
-  { flag: 'input-format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: ['csv', 'tsv', 'jsonl', 'text', 'parquet'] }, help: 'how to read the corpus (default: from the file name and content)' },
+  { flag: 'stoplist', setting: 'stopList', field: 'stopList', value: 'FILE', check: { kind: 'name' }, help: 'the stop list file (default: "stopList" of the config, else stoplist.txt)' },
+  { flag: 'input-format', setting: 'format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: ['csv', 'tsv', 'jsonl', 'text', 'parquet'] }, help: 'how to read the corpus (default: from the file name and content)' },
   { flag: 'format', field: 'format', value: 'F', check: { kind: 'choice', choices: ['text', 'json', 'md', 'html'] }, help: 'output; json prints the Report (default text)' },
   { flag: 'out', field: 'out', value: 'FILE', check: { kind: 'name' }, help: 'write the output to FILE instead of standard output' },
-  { flag: 'sample', field: 'sample', value: 'N', check: { kind: 'count', setting: ['sample', 'documents'] }, help: 'documents in the seeded sample for the neighbour measures' },
-  { flag: 'k', field: 'k', value: 'N', check: { kind: 'count', setting: ['sample', 'k'] }, help: 'neighbours per document' },
-  { flag: 'seed', field: 'seed', value: 'N', check: { kind: 'count', setting: ['sample', 'seed'] }, help: 'sample seed' },
+  { flag: 'sample', setting: 'sample.documents', field: 'sample', value: 'N', check: { kind: 'count', setting: ['sample', 'documents'] }, help: 'documents in the seeded sample for the neighbour measures' },
+  { flag: 'k', setting: 'sample.k', field: 'k', value: 'N', check: { kind: 'count', setting: ['sample', 'k'] }, help: 'neighbours per document' },
+  { flag: 'seed', setting: 'sample.seed', field: 'seed', value: 'N', check: { kind: 'count', setting: ['sample', 'seed'] }, help: 'sample seed' },
   { flag: 'dask', field: 'dask', value: 'ADDR', check: { kind: 'name' }, help: 'run the review as shard steps on a Dask cluster (tcp://host:8786), or "local" for a LocalCluster here; the corpus is a glob or a folder of shards' },
   { flag: 'workdir', field: 'workdir', value: 'DIR', check: { kind: 'name' }, help: 'with --dask: the folder for the partial files, readable and writable by every worker (default: a new temporary folder)' },
   { flag: 'fail-on-suggestions', field: 'failOnSuggestions', help: 'exit with status 3 when terms are suggested (for CI)' },
@@ -80,6 +82,9 @@ export const OPTIONS: readonly OptionSpec[] = [
   { flag: 'help', short: 'h', field: 'command', help: 'this help' },
   { flag: 'version', short: 'v', field: 'command', help: 'the version' },
 ];
+
+/** "sample.k" → "--k": the flag that overrides each loudword.json key. */
+export const FLAG_OF_SETTING: Readonly<Record<string, string>> = Object.fromEntries(OPTIONS.filter((o) => o.setting !== undefined).map((o) => [o.setting!, `--${o.flag}`]));
 
 /** The bounds and default of the loudword.json key a number flag stands for. */
 export function countBounds(setting: readonly string[]): { min: number; max: number; default: number } {

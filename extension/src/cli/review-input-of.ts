@@ -1,8 +1,8 @@
 import * as path from 'node:path';
 import type { SettingsOverrides } from '../engine/config/settings-overrides';
 import type { ReviewInput } from '../engine/review/review-api';
-import { findConfig } from './find-config';
-import type { CliOptions } from './parse-args';
+import { findConfig } from '../engine/config/find-config';
+import { FLAG_OF_SETTING, type CliOptions } from './parse-args';
 
 /** What the review options on the command line ask for: the corpus, the config and the overrides. */
 export function reviewInputOf(o: CliOptions): ReviewInput {
@@ -16,7 +16,9 @@ export function reviewInputOf(o: CliOptions): ReviewInput {
   if (o.sample !== null) overrides.sample!.documents = o.sample;
   if (o.k !== null) overrides.sample!.k = o.k;
   if (o.seed !== null) overrides.sample!.seed = o.seed;
-  const configPath = o.noConfig ? null : o.config ?? findConfig(file, process.cwd());
-  return { file, configPath, overrides };
+  // One rule with the editor: the nearest loudword.json from the corpus's folder up (engine/config/find-config.ts).
+  const configPath = o.noConfig ? null : o.config ?? findConfig(file);
+  const configHow = o.noConfig ? 'ignored' : o.config !== null ? 'given' : configPath !== null ? 'nearest' : 'none';
+  return { file, configPath, configHow, overrides, overridesFrom: { from: 'command-line flag', names: FLAG_OF_SETTING } };
 }
 

@@ -8,6 +8,8 @@ export class UserError extends Error {
     message: string,
     readonly file: string | null = null,
     readonly line: number | null = null,
+    /** The setting the input disagrees with ("label"), so the message can say where it was set. */
+    readonly setting: string | null = null,
   ) {
     super(message);
     this.name = 'UserError';

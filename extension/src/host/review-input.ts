@@ -7,8 +7,10 @@ import type { ReviewInput } from '../engine/review/review-api';
 import { editorDefaults } from './loudword-settings';
 import { confineToWorkspace } from '../engine/config/confine-to-workspace';
 import { isUserError, UserError } from '../engine/user-error';
-import { configCandidates, editorOverrides, expectedStopListPath } from './pure/config-location';
 import { samePath } from './pure/same-path';
+import { editorSettingsLayer } from './pure/config-location';
+import { findConfig as findNearestConfig } from '../engine/config/find-config';
+import { loadSettings } from '../engine/config/load-settings';
 
 export interface PreparedReview {
   input: ReviewInput;
@@ -18,33 +20,9 @@ export interface PreparedReview {
   workspaceRoot: string | null;
 }
 
-async function exists(file: string): Promise<boolean> {
-  try {
-    await vscode.workspace.fs.stat(vscode.Uri.file(file));
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-/** The nearest loudword.json, or null. */
+/** The nearest loudword.json by the engine's rule (the same as the CLI's), or null. */
 export async function findConfig(corpusFile: string, workspaceRoot: string | null): Promise<string | null> {
-  for (const candidate of configCandidates(corpusFile, workspaceRoot)) {
-    if (await exists(candidate)) return candidate;
-  }
-  return null;
-}
-
-/** Parses leniently: a broken file is reported by the engine with its line, not here. */
-async function readConfigJson(configPath: string | null): Promise<unknown> {
-  if (configPath === null) return {};
-  try {
-    const open = vscode.workspace.textDocuments.find((d) => d.uri.scheme === 'file' && d.uri.fsPath === configPath);
-    const text = open ? open.getText() : Buffer.from(await vscode.workspace.fs.readFile(vscode.Uri.file(configPath))).toString('utf8');
-    return JSON.parse(text) as unknown;
-  } catch {
-    return {};
-  }
+  return findNearestConfig(corpusFile, workspaceRoot);
 }
 
 export function workspaceRootOf(uri: vscode.Uri): string | null {
@@ -80,13 +58,15 @@ export async function prepareReview(uri: vscode.Uri, doc: vscode.TextDocument | 
   const configPath = onDisk || workspaceRoot !== null
     ? await findConfig(onDisk ? corpusFile : path.join(workspaceRoot ?? '', 'corpus'), workspaceRoot)
     : null;
-  const configJson = await readConfigJson(configPath);
-  const overrides = editorOverrides(editorDefaults(uri), configJson, workspaceRoot ?? path.dirname(corpusFile));
-  const stopListPath = expectedStopListPath(configPath, configJson, overrides);
+  if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRoot, [configPath], configPath);
+  // The engine reads and checks loudword.json (the host never parses it) and says which stop
+  // list the review will use, before it runs, to hand the worker an unsaved buffer.
+  const editorSettings = editorSettingsLayer(editorDefaults(uri), workspaceRoot ?? path.dirname(corpusFile));
+  const { stopListPath } = await loadSettings(configPath, {}, { corpusFile, editor: editorSettings, projectRoot: workspaceRoot });
 
-  if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRoot, [configPath, stopListPath], configPath);
+  if (!vscode.workspace.isTrusted) confineForRestrictedMode(workspaceRoot, [stopListPath], configPath);
 
-  const input: ReviewInput = { file: corpusFile, configPath, overrides, projectRoot: workspaceRoot };
+  const input: ReviewInput = { file: corpusFile, configPath, configHow: configPath === null ? 'none' : 'nearest', editorSettings, projectRoot: workspaceRoot };
   if (doc !== undefined && (doc.isDirty || doc.isUntitled || !onDisk)) input.text = doc.getText();
   else if (!onDisk) throw new UserError('This document is neither on disk nor open in the editor; save it to a file first.');
   if (stopListPath !== null) {

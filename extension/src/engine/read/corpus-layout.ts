@@ -251,7 +251,7 @@ function pickField(file: string, fields: readonly string[], wanted: string | nul
   if (fields.includes(wanted)) return wanted;
   const alt = fields.find((f) => f.toLowerCase() === wanted.toLowerCase());
   const hint = alt === undefined ? '' : ` (did you mean "${alt}"?)`;
-  throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}`, file, line);
+  throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}`, file, line, role);
 }
 
 function list(fields: readonly string[]): string {

@@ -1,4 +1,5 @@
-import type { Measures, Report } from '../../protocol';
+import type { Measures, Report, SettingsProvenance } from '../../protocol';
+import type { SettingsLayer } from '../config/load-settings';
 import type { SettingsOverrides } from '../config/settings-overrides';
 
 export interface ReviewInput {
@@ -13,12 +14,19 @@ export interface ReviewInput {
    * unsaved buffer here).
    */
   stopListText?: string;
+  /** Settings that win over loudword.json (command-line flags unless overridesFrom says otherwise). */
   overrides?: SettingsOverrides;
   /**
    * The workspace folder in the editor: paths loudword.json names must stay inside it. Without
    * it (the CLI) they must stay inside the config's own folder.
    */
   projectRoot?: string | null;
+  /** Who gives `overrides` and what their keys are called ("sample.k" → "--k"), for messages and the Report. */
+  overridesFrom?: Omit<SettingsLayer, 'values'>;
+  /** Editor settings standing in for loudword.json keys: loudword.json wins over them. */
+  editorSettings?: SettingsLayer;
+  /** How configPath was chosen, for Report.provenance (default: given, or none when null). */
+  configHow?: SettingsProvenance['config']['how'];
 }
 
 /** Named stages, in order, for progress reporting ('reviewing terms' includes the what-if checks of the suggestions; 'writing report' assembles the Report). */

@@ -1,5 +1,6 @@
 import * as path from 'node:path';
 import type { Report } from '../../protocol';
+import { blameSetting } from '../config/blame-setting';
 import { loadSettings } from '../config/load-settings';
 import { openCorpusFromText } from '../read/open-corpus';
 import { isManyFilesInput } from '../read/corpus-files';
@@ -33,7 +34,13 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   };
 
   stage('reading');
-  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides, { projectRoot: input.projectRoot ?? null });
+  const loaded = await loadSettings(input.configPath ?? null, input.overrides, {
+    corpusFile: input.file,
+    projectRoot: input.projectRoot ?? null,
+    ...(input.editorSettings !== undefined ? { editor: input.editorSettings } : {}),
+    ...(input.overridesFrom !== undefined ? { overridesFrom: input.overridesFrom } : {}),
+  });
+  const { settings } = loaded;
   const readOptions = {
     format: settings.format,
     textField: settings.text,
@@ -43,13 +50,17 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   // A glob or a folder is many files (each shard is read as it comes; no one snapshot covers them).
   const manyFiles = input.text === undefined && (await isManyFilesInput(input.file));
   const snapshot = input.text === undefined && !manyFiles ? await FileSnapshot.take(input.file) : null;
-  const source =
-    input.text !== undefined
-      ? withPlaces(openCorpusFromText(input.file, input.text, readOptions), path.basename(input.file))
-      : await openCorpusInput(input.file, readOptions);
-  const projectDir = configDir ?? path.dirname(path.resolve(input.file));
+  let source;
+  try {
+    source =
+      input.text !== undefined
+        ? withPlaces(openCorpusFromText(input.file, input.text, readOptions), path.basename(input.file))
+        : await openCorpusInput(input.file, readOptions);
+  } catch (e) {
+    throw blameSetting(e, settings, loaded.sources);
+  }
   const tokenize = createTokenizer(settings.tokens);
-  const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, tokenize, settings.tokens.lowercase);
+  const stopList = await loadStopList(loaded.stopListPath, path.dirname(path.resolve(input.file)), input.stopListText, tokenize, settings.tokens.lowercase);
 
   stage('tokenizing');
   const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal);
@@ -90,6 +101,11 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   if (source.places.keys.length > 1) nameHubFiles(report, source.places);
   timings[currentStage ?? 'writing report'] = Math.round(performance.now() - stageStart);
   report.timings = timings;
+  const configFile = input.configPath == null ? null : path.resolve(input.configPath);
+  report.provenance = {
+    config: { file: configFile, how: input.configHow ?? (configFile === null ? 'none' : 'given') },
+    sources: loaded.sources,
+  };
 
   return {
     report,
