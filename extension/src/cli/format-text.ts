@@ -1,5 +1,6 @@
 import type { Report } from '../protocol';
 import { provenanceLine } from './format-provenance';
+import { count, verb, wrapLines } from './text-layout';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 
@@ -20,13 +21,13 @@ export function formatText(report: Report): string {
     out.push('');
   }
   out.push(
-    `${input.documents} documents, ${vocabulary.terms} terms, ${vocabulary.tokens} tokens ` +
-      `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${input.skipped} rows skipped`,
+    `${count(input.documents, 'document')}, ${count(vocabulary.terms, 'term')}, ${count(vocabulary.tokens, 'token')} ` +
+      `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${count(input.skipped, 'row')} skipped`,
   );
   for (const note of input.notes ?? []) out.push(`Note: ${note}`);
   for (const s of input.skippedExamples ?? []) out.push(`Skipped line ${s.line}: ${s.reason}`);
   if (input.truncated) out.push(`Read only the first ${input.truncated.bytesRead} bytes (limit ${input.truncated.limitBytes}).`);
-  out.push(`Stop list: ${report.stopList.file ?? 'none'} (${report.stopList.terms} terms${report.stopList.unused.length ? `, ${report.stopList.unused.length} never occur` : ''})`);
+  out.push(`Stop list: ${report.stopList.file ?? 'none'} (${count(report.stopList.terms, 'term')}${report.stopList.unused.length ? `, ${report.stopList.unused.length} never ${verb(report.stopList.unused.length, 'occurs', 'occur')}` : ''})`);
   const provenance = provenanceLine(report);
   if (provenance !== null) out.push(provenance);
   out.push(`Sample: ${baseline.sample.documents} documents, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);
@@ -48,7 +49,7 @@ export function formatText(report: Report): string {
     out.push('No stop terms suggested (see the verdict above for why).');
   }
   out.push('');
-  out.push('Loudest terms (pull share = share of all-pair similarity; lift = share among neighbours ÷ pull share):');
+  out.push('Loudest terms (pull share = share of all-pair similarity; lift = neighbour share ÷ pull share):');
   for (const t of report.terms.slice(0, TERMS_SHOWN)) {
     const lift = t.neighborLift === null ? '–' : t.neighborLift.toFixed(2);
     out.push(`  ${t.term.padEnd(16)} ${t.status.padEnd(9)} pull ${(t.pullShare * 100).toFixed(2).padStart(6)}%  lift ${lift.padStart(5)}  ${t.why}`);
@@ -64,5 +65,5 @@ export function formatText(report: Report): string {
     out.push('');
     out.push(`Next: review the suggestions, then \`loudword apply ${input.file}\` adds them to ${report.stopList.file ?? 'the stop list file'}.`);
   }
-  return out.join('\n') + '\n';
+  return wrapLines(out).join('\n') + '\n';
 }

@@ -13,6 +13,8 @@ import { checkWriteTarget, PathArgumentError, type NamedInput } from './output-p
 import { UserError } from '../engine/user-error';
 import { lineOfKey } from '../engine/config/confine-to-workspace';
 import { USAGE } from './usage';
+import { progressLine, type ProgressLine } from './progress-line';
+import { count } from './text-layout';
 import { escapeControls, escapeJsonControls } from './terminal-text';
 import { describeSystemError, guardStdout, writeOutputFile, writeStdout } from './write-output';
 import { reviewInputOf } from './review-input-of';
@@ -20,6 +22,9 @@ import { runShardCommand } from './shard-command';
 import { reviewWithDask } from './review-with-dask';
 
 const EXIT = { ok: 0, input: 1, usage: 2, suggestions: 3, internal: 4 } as const;
+
+/** The progress line on a terminal, wiped before any message (cli/progress-line.ts). */
+let progress: ProgressLine | null = null;
 
 /** The corpus being reviewed, for a message about an error that names no file. */
 let currentCorpus: string | null = null;
@@ -50,7 +55,9 @@ async function main(argv: readonly string[]): Promise<number> {
   ];
   if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: options.stopList }]);
   if (options.command === 'apply' && options.stopList !== null) checkWriteTarget('--stoplist', options.stopList, inputs);
-  const report = options.dask !== null ? await reviewWithDask(options, options.dask) : (await startReview(input, { onStage: progressPrinter(options) })).report;
+  progress = progressLine(process.stderr, !options.quiet);
+  const report = options.dask !== null ? await reviewWithDask(options, options.dask) : (await startReview(input, { onStage: (stage) => progress?.stage(escapeControls(stage)) })).report;
+  progress.clear();
   if (options.command === 'apply') return applySuggestions(report, options, inputs);
 
   if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: report.stopList.file }]);
@@ -90,15 +97,15 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   const list = await readStopList(file);
   const result = appendTerms(list, report.suggestions);
   const leftOut = result.unrepresentable.length > 0
-    ? `Left out ${result.unrepresentable.length} terms that ${file} (${list.encoding}) cannot hold: ${result.unrepresentable.join(', ')}\n`
+    ? `Left out ${count(result.unrepresentable.length, 'term')} that ${file} (${list.encoding}) cannot hold: ${result.unrepresentable.join(', ')}\n`
     : '';
   if (result.added.length === 0) {
-    await say(leftOut || `All ${report.suggestions.length} suggestions are already in ${file}.\n`);
+    await say(leftOut || `${report.suggestions.length === 1 ? 'The suggestion is' : `All ${report.suggestions.length} suggestions are`} already in ${file}.\n`);
     return EXIT.ok;
   }
   if (!o.dryRun) await replaceStopList(list, result.bytes);
   const verb = o.dryRun ? 'Would add' : 'Added';
-  await say(`${verb} ${result.added.length} terms to ${file}: ${result.added.join(', ')}\n${leftOut}`);
+  await say(`${verb} ${count(result.added.length, 'term')} to ${file}: ${result.added.join(', ')}\n${leftOut}`);
   if (o.dryRun) {
     // The lines exactly as they would be written, and where: nothing has changed yet.
     const where = result.afterLine === 0 ? 'as its first lines' : `after line ${result.afterLine}`;
@@ -138,16 +145,12 @@ function asOneLine(error: unknown): string | null {
   return null;
 }
 
-function progressPrinter(o: CliOptions): ((stage: string) => void) | undefined {
-  if (o.quiet || !process.stderr.isTTY) return undefined;
-  return (stage) => process.stderr.write(`loudword: ${escapeControls(stage)}…\n`);
-}
-
 main(process.argv.slice(2)).then(
   (code) => {
     process.exitCode = code;
   },
   (error: unknown) => {
+    progress?.clear();
     const oneLine = asOneLine(error);
     // Usage errors are user errors too; they are told apart first for their exit code.
     if (error instanceof PathArgumentError) {
