@@ -24,7 +24,9 @@ describe('verdict in the CLI outputs', () => {
     const lines = text.split('\n');
     const at = lines.findIndex((l) => l.startsWith('Verdict: the suggested list helps. The suggested list (3 terms) raises'));
     assert.ok(at > 0 && at <= 2, text.slice(0, 400));
-    assert.match(lines[at + 1]!, /^ {2}But: Hubness skew rose/);
+    // The verdict wraps at 100 characters (continuation lines indented 4); the caveat follows it.
+    const next = lines.slice(at + 1).find((l) => !l.startsWith('    '));
+    assert.match(next!, /^ {2}But: Hubness skew rose/);
     assert.ok(at < lines.findIndex((l) => l.startsWith('measure')));
   });
 
