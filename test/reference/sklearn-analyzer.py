@@ -1,7 +1,9 @@
 """Tokens of each document as scikit-learn's analyzer makes them (the reference for
-tokens.tokenizer "pattern"). stdin: JSON {"docs": [...], "token_pattern": str|null,
-"lowercase": bool, "ngram_range": [lo, hi]}; stdout: JSON {"sklearn": version, "tokens": [[...]]}.
-Uses CountVectorizer(...).build_analyzer(), the function fit_transform applies to each document."""
+tokens.tokenizer "pattern"). stdin: JSON {"docs": [...], "jobs": [{"token_pattern": str|null,
+"lowercase": bool, "ngram_range": [lo, hi]}, ...]}; stdout: JSON {"sklearn": version,
+"tokens": [[[...] per document] per job]}. Uses CountVectorizer(...).build_analyzer(), the
+function fit_transform applies to each document. One process for many jobs: importing
+scikit-learn takes seconds."""
 import json
 import sys
 
@@ -9,8 +11,11 @@ import sklearn
 from sklearn.feature_extraction.text import CountVectorizer
 
 request = json.load(sys.stdin)
-options = {"lowercase": request["lowercase"], "ngram_range": tuple(request["ngram_range"])}
-if request.get("token_pattern") is not None:
-    options["token_pattern"] = request["token_pattern"]
-analyze = CountVectorizer(**options).build_analyzer()
-json.dump({"sklearn": sklearn.__version__, "tokens": [analyze(d) for d in request["docs"]]}, sys.stdout, ensure_ascii=False)
+answers = []
+for job in request["jobs"]:
+    options = {"lowercase": job["lowercase"], "ngram_range": tuple(job["ngram_range"])}
+    if job.get("token_pattern") is not None:
+        options["token_pattern"] = job["token_pattern"]
+    analyze = CountVectorizer(**options).build_analyzer()
+    answers.append([analyze(d) for d in request["docs"]])
+json.dump({"sklearn": sklearn.__version__, "tokens": answers}, sys.stdout, ensure_ascii=False)

@@ -9,14 +9,25 @@ import { PYTHON } from '../reference/run-sklearn';
 // Helpers for comparing tokens.tokenizer "pattern" with scikit-learn's analyzer
 // (test/reference/sklearn-analyzer.py, Debian's python3-sklearn).
 
-export function sklearnTokens(docs: string[], options: { token_pattern?: string; lowercase: boolean; ngram_range: [number, number] }): string[][] {
+export interface AnalyzerJob {
+  token_pattern?: string;
+  lowercase: boolean;
+  ngram_range: [number, number];
+}
+
+/** scikit-learn's analyzer output for each job (one Python process for all of them). */
+export function sklearnTokensMany(docs: string[], jobs: AnalyzerJob[]): string[][][] {
   const run = spawnSync(PYTHON, [join(__dirname, '..', 'reference', 'sklearn-analyzer.py')], {
-    input: JSON.stringify({ docs, token_pattern: options.token_pattern ?? null, lowercase: options.lowercase, ngram_range: options.ngram_range }),
+    input: JSON.stringify({ docs, jobs: jobs.map((j) => ({ ...j, token_pattern: j.token_pattern ?? null })) }),
     encoding: 'utf8',
     maxBuffer: 1 << 30,
   });
   if (run.status !== 0) throw new Error(`sklearn-analyzer.py failed: ${run.stderr}`);
-  return (JSON.parse(run.stdout) as { tokens: string[][] }).tokens;
+  return (JSON.parse(run.stdout) as { tokens: string[][][] }).tokens;
+}
+
+export function sklearnTokens(docs: string[], job: AnalyzerJob): string[][] {
+  return sklearnTokensMany(docs, [job])[0]!;
 }
 
 export function assertSameTokens(ours: (t: string) => string[], theirs: string[][], docs: string[]): void {
