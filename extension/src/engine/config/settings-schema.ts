@@ -1,4 +1,4 @@
-import Ajv from 'ajv';
+import type { ValidateFunction } from 'ajv';
 import schemaJson from '../../../../loudword.schema.json';
 
 /** A node of loudword.schema.json (JSON Schema draft-07), as far as this module reads it. */
@@ -26,8 +26,20 @@ export interface SchemaNode {
  */
 export const SETTINGS_SCHEMA = schemaJson as unknown as SchemaNode;
 
-// allowUnionTypes: "type": ["string", "null"] is how the schema says "or null".
-const validate = new Ajv({ allowUnionTypes: true }).compile(schemaJson);
+let compiled: ValidateFunction | null = null;
+
+/**
+ * The compiled schema, built on first use: loading and compiling ajv costs ~0.3 s, which
+ * `loudword --help`, `--version` and a command-line mistake should not pay.
+ */
+function validator(): ValidateFunction {
+  if (compiled === null) {
+    const Ajv = (require('ajv') as typeof import('ajv')).default;
+    // allowUnionTypes: "type": ["string", "null"] is how the schema says "or null".
+    compiled = new Ajv({ allowUnionTypes: true }).compile(schemaJson);
+  }
+  return compiled;
+}
 
 /** One thing wrong with a settings value: where (keys and item indexes) and what, in words. */
 export interface SettingsProblem {
@@ -57,6 +69,7 @@ export function settingName(path: ReadonlyArray<string | number>): string {
  * `name` words the setting for the message (a key, a command-line flag, an editor setting).
  */
 export function checkSettings(value: unknown, name: (path: ReadonlyArray<string | number>) => string = settingName): SettingsProblem | null {
+  const validate = validator();
   if (validate(value)) return null;
   // Ajv stops at the first failing keyword; for anyOf it lists each branch, then the anyOf itself.
   const error = validate.errors![validate.errors!.length - 1]!;
