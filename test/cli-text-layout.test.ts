@@ -5,6 +5,7 @@ import assert from 'node:assert/strict';
 import { progressLine } from '../extension/src/cli/progress-line';
 import { count, verb, wrapLines } from '../extension/src/cli/text-layout';
 import { formatText } from '../extension/src/cli/format-text';
+import { formatMarkdown } from '../extension/src/cli/format-markdown';
 import type { Report } from '../extension/src/protocol';
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
@@ -44,6 +45,15 @@ describe('formatText layout', () => {
     assert.match(text, /1 never occurs\)/);
     assert.match(text, /; 1 row skipped/);
     assert.doesNotMatch(text, /\b1 (terms|rows|documents)\b/);
+  });
+
+  it('formatText and formatMarkdown say which config was read and where the settings came from', () => {
+    const withProvenance: Report = {
+      ...report,
+      provenance: { config: { file: '/p/loudword.json', how: 'nearest' }, sources: { label: { from: 'loudword.json', where: '/p/loudword.json:3' }, 'sample.k': { from: 'command-line flag', where: '--k' } } },
+    };
+    assert.match(formatText(withProvenance), /^Config: \/p\/loudword\.json \(nearest to the corpus\): label; flags: --k$/m);
+    assert.match(formatMarkdown(withProvenance), /^Config: \/p\/loudword\.json \(nearest to the corpus\): label; flags: --k$/m);
   });
 });
 

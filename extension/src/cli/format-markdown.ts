@@ -1,6 +1,8 @@
 import type { Report } from '../protocol';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
+import { provenanceLine } from './format-provenance';
+import { count } from './text-layout';
 
 const TERMS_SHOWN = 30;
 
@@ -22,8 +24,10 @@ export function formatMarkdown(report: Report): string {
     for (const c of verdict.caveats) out.push(`- ${cell(c)}`);
     if (verdict.caveats.length > 0) out.push('');
   }
-  out.push(`${input.documents} documents · ${vocabulary.terms} terms · ${vocabulary.tokens} tokens · sample ${baseline.sample.documents} (k = ${baseline.sample.k}, seed ${baseline.sample.seed})`);
+  out.push(`${count(input.documents, 'document')} · ${count(vocabulary.terms, 'term')} · ${count(vocabulary.tokens, 'token')} · sample ${baseline.sample.documents} (k = ${baseline.sample.k}, seed ${baseline.sample.seed})`);
   out.push('');
+  const provenance = provenanceLine(report);
+  if (provenance !== null) out.push(cell(provenance), '');
   out.push('| measure | current | with suggestions | |');
   out.push('|---|---:|---:|---|');
   for (const spec of measureCatalog) {
