@@ -149,6 +149,11 @@ echo "e2e: extension installed by $installed"
 [[ -d "$REPO/samples" ]] && cp -R "$REPO/samples/." "$WORKSPACE/"
 cp -R "$REPO/test/e2e/fixtures/." "$WORKSPACE/"
 rm -f "$WORKSPACE/.keep"
+# The bench's 100k corpus (what-if latency, cancel): created before the editor starts so that
+# quick open indexes it; its own loudword.json names its columns.
+mkdir -p "$WORKSPACE/bench100k"
+node "$REPO/test/bench/generate-corpus.mjs" --size 100k --seed 1 --out "$WORKSPACE/bench100k/corpus-100k.csv" >/dev/null
+printf '{ "text": "text", "label": "topic", "stopList": null }\n' >"$WORKSPACE/bench100k/loudword.json"
 # Quiet editor: no welcome page, no trust prompt, no tips or AI side bar that would steal focus.
 cat > "$USER_DATA/User/settings.json" <<'JSON'
 {

@@ -80,9 +80,11 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
     // A store change that leaves the Report as it was (a stop-list edit, say) must not redraw the
     // page and lose the reader's toggles: only the out-of-date state is sent then.
     if (this.shown !== review || this.shownReport !== review.report) {
+      // Recorded only when the page got it: a Report sent before the page is ready is dropped,
+      // and must go out again when it says 'ready'.
+      if (!this.post({ type: 'showReport', report: review.report })) return;
       this.shown = review;
       this.shownReport = review.report;
-      this.post({ type: 'showReport', report: review.report });
     }
     this.post({ type: 'stale', reason: review.staleReason, added: [...review.addedSinceReview] });
   }
@@ -92,9 +94,11 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
     return this.shown === null || this.shownReport === null ? null : { review: this.shown, report: this.shownReport };
   }
 
-  private post(message: HostToWebview): void {
-    if (this.view === null || !this.ready) return;
+  /** Sends `message` to the page; false when there is no ready page to take it. */
+  private post(message: HostToWebview): boolean {
+    if (this.view === null || !this.ready) return false;
     void this.view.webview.postMessage(message);
+    return true;
   }
 
   private async receive(message: unknown): Promise<void> {
@@ -102,6 +106,9 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
     const m: WebviewToHost = message;
     if (m.type === 'ready') {
       this.ready = true;
+      // A (re)loaded page holds nothing yet, whatever was sent to an earlier one.
+      this.shown = null;
+      this.shownReport = null;
       this.showFocused();
       return;
     }

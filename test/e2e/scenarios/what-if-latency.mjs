@@ -4,9 +4,6 @@
 // number (timings belong to the bench): the median of the clicks that needed the engine.
 // Issue 10's target: ≤ 100 ms median at 100k documents. Runs on the sample and on a 100k
 // corpus from the bench generator (same seed as `npm run bench`).
-import { execFileSync } from 'node:child_process';
-import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
-import path from 'node:path';
 import { reviewCorpus } from '../lib/review-corpus.mjs';
 import { openFile, runCommand, notificationTexts } from '../lib/workbench.mjs';
 import { waitUntil } from '../lib/wait-until.mjs';
@@ -75,23 +72,13 @@ export const whatIfLatency = {
   },
 };
 
-/** The bench's 100k corpus (cached in test/bench/data) in the workspace, with its own loudword.json. */
-function placeBenchCorpus(ctx) {
-  const generated = execFileSync(process.execPath, [path.join(ctx.repo, 'test', 'bench', 'generate-corpus.mjs'), '--size', '100k', '--seed', '1'], { encoding: 'utf8' });
-  const { file } = JSON.parse(generated.trim().split('\n').pop());
-  const dir = path.join(ctx.workspace, 'bench100k');
-  mkdirSync(dir, { recursive: true });
-  copyFileSync(file, path.join(dir, BENCH));
-  writeFileSync(path.join(dir, 'loudword.json'), JSON.stringify({ text: 'text', label: 'topic', stopList: null }, null, 2));
-}
-
+/** The bench's 100k corpus; run.sh puts it in the workspace (bench100k/) before the editor starts. */
 const BENCH = 'corpus-100k.csv';
 
 export const cancelReview = {
   name: 'Cancel on the progress notification stops the review and says "Review cancelled"',
   slug: 'cancel-review',
   async run(ctx) {
-    placeBenchCorpus(ctx);
     await openFile(ctx.page, BENCH);
     await runCommand(ctx.page, 'Loudword: Review distances');
     const cancel = await waitUntil('the progress notification with Cancel', async () => {
@@ -112,7 +99,6 @@ export const whatIfLatency100k = {
   name: 'what-if latency: click → strip updated, on 100k documents (printed)',
   slug: 'what-if-latency-100k',
   async run(ctx) {
-    placeBenchCorpus(ctx);
     await measure(ctx, BENCH, `${BENCH}, 100,000 documents`);
   },
 };
