@@ -29,14 +29,16 @@ describe('no network access', function () {
     assert.deepEqual(offenders, []);
   });
 
-  it('the extension host, webview and tokenizer bundles contain no network API at all', () => {
-    for (const bundle of ['extension.js', 'webview.js', 'tokenize-worker.js']) {
+  it('the webview and tokenizer bundles contain no network API at all', () => {
+    for (const bundle of ['webview.js', 'tokenize-worker.js']) {
       assert.doesNotMatch(readFileSync(path.join(root, 'dist', bundle), 'utf8'), NETWORK_API, bundle);
     }
   });
 
-  it('the CLI/worker bundles reach XMLHttpRequest only inside papaparse\'s download streamer, which we never enable', () => {
-    for (const bundle of ['cli.js', 'review-worker.js']) {
+  // The host reads a few rows with papaparse for the column picker, so it carries the same
+  // streamer as the CLI; the check below holds it to papaparse's download code path.
+  it('the host, CLI and worker bundles reach XMLHttpRequest only inside papaparse\'s download streamer, which we never enable', () => {
+    for (const bundle of ['extension.js', 'cli.js', 'review-worker.js']) {
       const lines = readFileSync(path.join(root, 'dist', bundle), 'utf8').split('\n');
       const hits = lines.flatMap((l, i) => (NETWORK_API.test(l) ? [i] : []));
       for (const i of hits) assert.match(lines.slice(Math.max(0, i - 30), i).join('\n'), /RemoteChunkSize/, `${bundle}:${i + 1}`);
