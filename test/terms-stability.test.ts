@@ -45,6 +45,7 @@ describe('suggestions are self-consistent (demo corpus)', function () {
     const second = await review(list);
     assert.deepEqual(second.suggestions, []);
     assert.equal(second.verdict?.outcome, 'nothing suggested');
+    assert.match(second.verdict.headline, new RegExp(`^Nothing more to suggest: the ${first.suggestions.length} terms the rule would pick are already on the stop list`));
     const findings = stopListFindings(list, second).filter((f) => f.kind === 'neighborSignal');
     assert.deepEqual(findings.map((f) => f.term), []);
     for (const t of second.terms.filter((row) => row.status === 'stopped')) assert.equal(t.ruleWouldSuggest, true, t.term);

@@ -14,6 +14,8 @@ export interface JudgeInput {
   baseline: Measures;
   suggested: Measures;
   opinion: { share: number; opinionText: boolean };
+  /** Stopped terms the rule would suggest too: after `apply`, the reason nothing is new. */
+  agreedStopped: number;
 }
 
 const f2 = (x: number): string => x.toFixed(2);
@@ -35,7 +37,9 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   if (suggestions.length === 0) {
     return {
       outcome: 'nothing suggested',
-      headline: opinion.opinionText
+      headline: input.agreedStopped > 0
+        ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`
+        : opinion.opinionText
         ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
         : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
       estimate: null,

@@ -116,7 +116,9 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   rows.sort((a, b) => b.loudness - a.loudness || b.pullShare - a.pullShare);
   const suggestions = accepted.map((c) => index.terms[c]!);
   const opinion = { share, opinionText };
-  const verdict = judgeSuggestions({ lab, baseMask, suggestedMask, suggestions, baseline: baseline.measures, suggested: suggested.measures, opinion });
+  let agreedStopped = 0;
+  for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
+  const verdict = judgeSuggestions({ lab, baseMask, suggestedMask, suggestions, baseline: baseline.measures, suggested: suggested.measures, opinion, agreedStopped });
   return { rows, suggestions, suggested, opinion, suggestedMask, verdict };
 }
 
