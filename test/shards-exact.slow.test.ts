@@ -10,7 +10,7 @@ import * as os from 'node:os';
 import * as path from 'node:path';
 import { parquetWriteBuffer } from 'hyparquet-writer';
 import type { Report } from '../extension/src/protocol';
-import { loadSettings } from '../extension/src/engine/config/load-settings';
+import { loadReviewSettings, provenanceOf } from '../extension/src/engine/review/review-settings';
 import { startReview } from '../extension/src/engine/review/start-review';
 import { reviewShards } from '../extension/src/engine/shards/review-shards';
 import { reportDifferences } from './support/report-diff';
@@ -19,9 +19,10 @@ import { fortuneDocs, generatedDocs, writeGzipJsonl, writeShards } from './suppo
 const OVERRIDES = { label: 'label', stopList: null, sample: { documents: 400 } };
 
 async function bothWays(corpus: string): Promise<{ one: Report; shards: Report }> {
-  const one = (await startReview({ file: corpus, configPath: null, overrides: OVERRIDES })).report;
-  const { settings, configDir } = await loadSettings(null, OVERRIDES);
-  const shards = await reviewShards({ corpus, settings, configDir });
+  const input = { file: corpus, configPath: null, overrides: OVERRIDES };
+  const one = (await startReview(input)).report;
+  const { settings, configDir, sources } = await loadReviewSettings(input);
+  const shards = await reviewShards({ corpus, settings, configDir, provenance: provenanceOf(input, sources) });
   return { one, shards };
 }
 

@@ -3,7 +3,7 @@ import { existsSync, promises as fs } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import type { Report } from '../protocol';
-import { loadSettings } from '../engine/config/load-settings';
+import { loadReviewSettings, provenanceOf } from '../engine/review/review-settings';
 import { listCorpusFiles } from '../engine/read/corpus-files';
 import { LOUDWORD_VERSION } from '../engine/review/version';
 import { UserError } from '../engine/user-error';
@@ -23,14 +23,15 @@ const PYTHON = process.env.LOUDWORD_PYTHON ?? '/usr/bin/python3';
  */
 export async function reviewWithDask(o: CliOptions, scheduler: string): Promise<Report> {
   const input = reviewInputOf(o);
-  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides);
+  const { settings, configDir, sources } = await loadReviewSettings(input);
+  const provenance = provenanceOf(input, sources);
   const shards = await listCorpusFiles(input.file);
   const packageRoot = findPackageRoot();
   const workdir = o.workdir ?? (await fs.mkdtemp(path.join(os.tmpdir(), 'loudword-dask-')));
   const ownWorkdir = o.workdir === null;
   try {
     await fs.mkdir(workdir, { recursive: true });
-    const shared: ShardSettingsFile = { loudword: 'shard-settings', toolVersion: LOUDWORD_VERSION, corpus: input.file, configDir, settings };
+    const shared: ShardSettingsFile = { loudword: 'shard-settings', toolVersion: LOUDWORD_VERSION, corpus: input.file, configDir, settings, provenance };
     await writeAtomically(path.join(workdir, 'settings.json'), JSON.stringify(shared));
     await writeAtomically(path.join(workdir, 'shards.json'), JSON.stringify(shards.map((s) => ({ key: s.key, file: path.resolve(s.path) }))));
     const args = [

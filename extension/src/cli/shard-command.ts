@@ -1,8 +1,8 @@
 import { promises as fs } from 'node:fs';
 import * as path from 'node:path';
 import { parseArgs as parseNodeArgs } from 'node:util';
-import type { EffectiveSettings } from '../protocol';
-import { loadSettings } from '../engine/config/load-settings';
+import type { EffectiveSettings, SettingsProvenance } from '../protocol';
+import { loadReviewSettings, provenanceOf } from '../engine/review/review-settings';
 import { listCorpusFiles } from '../engine/read/corpus-files';
 import { LOUDWORD_VERSION } from '../engine/review/version';
 import { countShard } from '../engine/shards/count-shard';
@@ -26,6 +26,8 @@ export interface ShardSettingsFile {
   corpus: string;
   configDir: string | null;
   settings: EffectiveSettings;
+  /** Where the settings came from, for the finished Report (as one process would say it). */
+  provenance: SettingsProvenance;
 }
 
 const STEPS = ['settings', 'list', 'count', 'plan', 'sums', 'finish'] as const;
@@ -106,6 +108,7 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
       for (const file of files) totals.add(await readPartial<SumsPartial>(file, 'sums'), file);
       const result = finishReview(plan, settings, totals);
       if (result.done) {
+        result.report.provenance = shared.provenance;
         await writeJson(need('out'), result.report);
         return 0;
       }
@@ -119,8 +122,9 @@ async function writeSettings(argv: readonly string[]): Promise<number> {
   const options = parseArgs(['review', ...argv]);
   if (options.out === null) throw new UsageError('shard settings needs --out');
   const input = reviewInputOf(options);
-  const { settings, configDir } = await loadSettings(input.configPath ?? null, input.overrides);
-  const file: ShardSettingsFile = { loudword: 'shard-settings', toolVersion: LOUDWORD_VERSION, corpus: input.file, configDir, settings };
+  const { settings, configDir, sources } = await loadReviewSettings(input);
+  const provenance = provenanceOf(input, sources);
+  const file: ShardSettingsFile = { loudword: 'shard-settings', toolVersion: LOUDWORD_VERSION, corpus: input.file, configDir, settings, provenance };
   await writeJson(options.out, file);
   return 0;
 }

@@ -1,13 +1,13 @@
 import * as path from 'node:path';
 import type { Report } from '../../protocol';
 import { blameSetting } from '../config/blame-setting';
-import { loadSettings } from '../config/load-settings';
 import { openCorpusFromText } from '../read/open-corpus';
 import { isManyFilesInput } from '../read/corpus-files';
 import { openCorpusInput, withPlaces } from '../read/many-files-corpus';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { DistanceLab } from '../what-if/distance-lab';
 import { FileSnapshot } from './file-snapshot';
+import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
@@ -34,12 +34,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   };
 
   stage('reading');
-  const loaded = await loadSettings(input.configPath ?? null, input.overrides, {
-    corpusFile: input.file,
-    projectRoot: input.projectRoot ?? null,
-    ...(input.editorSettings !== undefined ? { editor: input.editorSettings } : {}),
-    ...(input.overridesFrom !== undefined ? { overridesFrom: input.overridesFrom } : {}),
-  });
+  const loaded = await loadReviewSettings(input);
   const { settings } = loaded;
   const readOptions = {
     format: settings.format,
@@ -101,11 +96,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   if (source.places.keys.length > 1) nameHubFiles(report, source.places);
   timings[currentStage ?? 'writing report'] = Math.round(performance.now() - stageStart);
   report.timings = timings;
-  const configFile = input.configPath == null ? null : path.resolve(input.configPath);
-  report.provenance = {
-    config: { file: configFile, how: input.configHow ?? (configFile === null ? 'none' : 'given') },
-    sources: loaded.sources,
-  };
+  report.provenance = provenanceOf(input, loaded.sources);
 
   return {
     report,

@@ -1,4 +1,4 @@
-import type { EffectiveSettings, Report } from '../../protocol';
+import type { EffectiveSettings, Report, SettingsProvenance } from '../../protocol';
 import { listCorpusFiles } from '../read/corpus-files';
 import { countShard, type ShardRef } from './count-shard';
 import { finishReview } from './finish-review';
@@ -13,6 +13,8 @@ export interface ShardedReviewOptions {
   corpus: string;
   settings: EffectiveSettings;
   configDir: string | null;
+  /** Where the settings came from (Report.provenance), as the caller resolved them. */
+  provenance?: SettingsProvenance;
   onStep?(step: string, done: number, total: number): void;
 }
 
@@ -37,7 +39,10 @@ export async function reviewShards(options: ShardedReviewOptions): Promise<Repor
       options.onStep?.(`sums ${round}`, i + 1, shards.length);
     }
     const result = finishReview(plan, settings, totals);
-    if (result.done) return result.report;
+    if (result.done) {
+      if (options.provenance !== undefined) result.report.provenance = options.provenance;
+      return result.report;
+    }
     plan = { ...plan, masks: result.masks, full: false };
   }
   throw new Error(`the review still needed more sums after ${MAX_SUMS_ROUNDS} rounds`);
