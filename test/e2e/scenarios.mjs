@@ -21,10 +21,10 @@ mkdirSync(screenshotsDir, { recursive: true });
 process.on('unhandledRejection', (e) => console.log(`  (unhandled rejection: ${String(e?.message ?? e).split('\n')[0]})`));
 
 // A scenario that hangs must not hold the whole run: each gets this long, then counts as failed.
-const SCENARIO_TIMEOUT_MS = 150000;
+const SCENARIO_TIMEOUT_MS = 300000; // the 100k what-if scenario reviews 100k documents first (~150 s on a busy 2-core machine)
 // The whole e2e run must stay well inside 20 minutes on a fresh 2-core machine, editor install
 // included: past this budget the remaining scenarios are reported as failed without running.
-const RUN_BUDGET_MS = 10 * 60 * 1000;
+const RUN_BUDGET_MS = 15 * 60 * 1000;
 const runStarted = Date.now();
 
 // launchServer rather than launch: playwright starts chromium in a process group of its own, and
