@@ -29,17 +29,35 @@ export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean)
     for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
     if (!(norm2 > 0)) continue;
     rowsWithWeight++;
-    const scale = 1 / Math.sqrt(norm2);
-    for (let p = start; p < end; p++) {
-      const t = indices[p]!;
-      if (removed[t] !== 0) continue;
-      const x = data[p]! * scale;
-      if (x === 0) continue;
-      s1[t] += x;
-      s2[t] += x * x;
-      df[t]++;
-      if (withSpread && x > 0) sxlogx[t] += x * Math.log(x);
-    }
+    addKeptRow({ s1, s2, df }, X, start, end, removed, 1 / Math.sqrt(norm2), withSpread ? sxlogx : null);
   }
   return { sums: { s1, s2, df, sxlogx }, rowsWithWeight };
+}
+
+/**
+ * Adds one row's kept weights (entries start..end of X), times `scale`, into the sums; with
+ * `sxlogx`, also Σ x ln x for the spread. Shared by the full sums here and the what-if's
+ * incremental ones, so both add the same numbers in the same order.
+ */
+export function addKeptRow(
+  sums: { s1: Float64Array; s2: Float64Array; df: Uint32Array },
+  X: Pick<Csr, 'indices' | 'data'>,
+  start: number,
+  end: number,
+  removed: Uint8Array,
+  scale: number,
+  sxlogx: Float64Array | null = null,
+): void {
+  const { indices, data } = X;
+  const { s1, s2, df } = sums;
+  for (let p = start; p < end; p++) {
+    const t = indices[p]!;
+    if (removed[t] !== 0) continue;
+    const x = data[p]! * scale;
+    if (x === 0) continue;
+    s1[t] += x;
+    s2[t] += x * x;
+    df[t]++;
+    if (sxlogx !== null && x > 0) sxlogx[t] += x * Math.log(x);
+  }
 }

@@ -1,5 +1,5 @@
 import type { Csr } from '../matrix/csr';
-import type { MaskedTermSums } from '../measures/masked-term-sums';
+import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
 
 /**
  * The exact term sums of a what-if (S1, S2, df over every document, each row renormalised after
@@ -195,17 +195,7 @@ export class IncrementalTermSums {
 
   /** Adds one row's kept weights, scaled, to the sums. */
   private addRow(start: number, end: number, removed: Uint8Array, scale: number): void {
-    const { indices, data } = this.weights;
-    const { s1, s2, df } = this;
-    for (let p = start; p < end; p++) {
-      const t = indices[p]!;
-      if (removed[t] !== 0) continue;
-      const x = data[p]! * scale;
-      if (x === 0) continue;
-      s1[t] += x;
-      s2[t] += x * x;
-      df[t]++;
-    }
+    addKeptRow({ s1: this.s1, s2: this.s2, df: this.df }, this.weights, start, end, removed, scale);
   }
 
   /** Builds the column postings ahead of the first incremental step. */
