@@ -93,8 +93,11 @@ def review(client, workdir, node, loudword, quiet, stats):
     with open(os.path.join(workdir, "shards.json"), encoding="utf-8") as f:
         shards = json.load(f)
     counts = [os.path.join(workdir, f"count-{i}.json") for i in range(len(shards))]
+    # Round 1 keeps each shard's token counts; the sums rounds read them instead of tokenising again.
+    kept = [os.path.join(workdir, f"counts-{i}.bin") for i in range(len(shards))]
     run_round(client, "round 1 (count)", node, loudword,
-              [["count", s["file"], "--key", s["key"], "--settings", settings, "--out", out] for s, out in zip(shards, counts)],
+              [["count", s["file"], "--key", s["key"], "--settings", settings, "--out", out, "--counts", k]
+               for s, out, k in zip(shards, counts, kept)],
               quiet, stats)
     plan = os.path.join(workdir, "plan-1.json")
     local_step(node, loudword, ["plan", *counts, "--settings", settings, "--out", plan], stats, "plan")
@@ -104,7 +107,8 @@ def review(client, workdir, node, loudword, quiet, stats):
     for r in range(1, MAX_SUMS_ROUNDS + 1):
         outs = [os.path.join(workdir, f"sums-{r}-{i}.json") for i in range(len(shards))]
         run_round(client, f"round {r + 1} (sums)", node, loudword,
-                  [["sums", s["file"], "--key", s["key"], "--settings", settings, "--plan", plan, "--out", out] for s, out in zip(shards, outs)],
+                  [["sums", s["file"], "--key", s["key"], "--settings", settings, "--plan", plan, "--out", out, "--counts", k]
+                   for s, out, k in zip(shards, outs, kept)],
                   quiet, stats)
         sums += outs
         next_plan = os.path.join(workdir, f"plan-{r + 1}.json")

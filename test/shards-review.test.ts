@@ -1,12 +1,13 @@
 // The merge of a review in shards: what it refuses and how errors name their shard (issue 11).
 // Corpus: generated documents (seeded; common practice, no source).
 import { strict as assert } from 'node:assert';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { loadSettings } from '../extension/src/engine/config/load-settings';
-import { countShard } from '../extension/src/engine/shards/count-shard';
-import { parsePartial } from '../extension/src/engine/shards/partials';
+import { countShard, countShardKeeping } from '../extension/src/engine/shards/count-shard';
+import { parsePartial, settingsKey } from '../extension/src/engine/shards/partials';
+import { readShardCounts, shardCountsOrigin, writeShardCounts } from '../extension/src/engine/shards/shard-counts';
 import { planReview } from '../extension/src/engine/shards/plan-review';
 import { reviewShards } from '../extension/src/engine/shards/review-shards';
 import { finishReview } from '../extension/src/engine/shards/finish-review';
@@ -89,5 +90,30 @@ describe('review in shards: merge checks and errors', function () {
       reviewShards({ corpus: shardDir, settings, configDir: null }),
       (e: unknown) => isUserError(e) && (e as UserError).file === path.join(shardDir, 'part-3.csv') && (e as UserError).line === 4,
     );
+  });
+
+  it('counts kept by round 1 give the sums of a second tokenisation, bit for bit, and are ignored once the shard changes', async () => {
+    const shardDir = path.join(dir, 'kept');
+    mkdirSync(shardDir);
+    const files = writeShards(shardDir, generatedDocs(300, 12), 2);
+    const { settings } = await loadSettings(null, OVERRIDES);
+    const shard = { file: files[0]!, key: 'part-0.jsonl' };
+    const origin = await shardCountsOrigin(shard.file, shard.key, settingsKey(settings));
+    const { partial, kept } = await countShardKeeping(shard, settings);
+    const countsFile = path.join(dir, 'kept-0.bin');
+    await writeShardCounts(countsFile, kept, origin);
+    const other = await countShard({ file: files[1]!, key: 'part-1.jsonl' }, settings);
+    const plan = await planReview({ corpus: shardDir, settings, configDir: null, partials: [{ partial, file: 'c0' }, { partial: other, file: 'c1' }] });
+    const reread = await readShardCounts(countsFile, origin);
+    assert.ok(reread !== null);
+    assert.deepEqual(reread.counts.terms, kept.counts.terms);
+    assert.deepEqual(await sumShard(shard, plan, settings, reread), await sumShard(shard, plan, settings));
+    // Another settings key, or the file touched since round 1: the kept counts are not used.
+    assert.equal(await readShardCounts(countsFile, { ...origin, settingsKey: 'another' }), null);
+    utimesSync(shard.file, new Date(), new Date(Date.now() + 5000));
+    assert.equal(await readShardCounts(countsFile, await shardCountsOrigin(shard.file, shard.key, settingsKey(settings))), null);
+    assert.equal(await readShardCounts(path.join(dir, 'missing.bin'), origin), null);
+    writeFileSync(countsFile, 'not counts');
+    await assert.rejects(readShardCounts(countsFile, origin), (e: unknown) => isUserError(e) && /not a file of Loudword shard counts/.test(e.message));
   });
 });

@@ -5,9 +5,10 @@ import type { EffectiveSettings, SettingsProvenance } from '../protocol';
 import { loadReviewSettings, provenanceOf } from '../engine/review/review-settings';
 import { listCorpusFiles } from '../engine/read/corpus-files';
 import { LOUDWORD_VERSION } from '../engine/review/version';
-import { countShard } from '../engine/shards/count-shard';
+import { countShard, countShardKeeping } from '../engine/shards/count-shard';
 import { finishReview } from '../engine/shards/finish-review';
-import { parsePartial, type CountPartial, type PlanPartial, type SumsPartial } from '../engine/shards/partials';
+import { parsePartial, settingsKey, type CountPartial, type PlanPartial, type SumsPartial } from '../engine/shards/partials';
+import { readShardCounts, shardCountsOrigin, writeShardCounts } from '../engine/shards/shard-counts';
 import { planReview } from '../engine/shards/plan-review';
 import { sumShard } from '../engine/shards/sum-shard';
 import { SumsTotals } from '../engine/shards/sums-totals';
@@ -39,6 +40,7 @@ const OPTIONS = {
   plan: { type: 'string' },
   out: { type: 'string' },
   'next-plan': { type: 'string' },
+  counts: { type: 'string' },
 } as const;
 
 /**
@@ -46,11 +48,14 @@ const OPTIONS = {
  * can run anywhere (Dask, a Slurm array, Spark's pipe()):
  *   settings <corpus> [review options] --out S       resolve the settings once
  *   list <corpus>                                    the shards: one JSON line {key, file} each
- *   count <file> --key K --settings S --out P        round 1
+ *   count <file> --key K --settings S --out P [--counts C]   round 1 (C: keep the shard's counts)
  *   plan P... --settings S --out PLAN                the merge
- *   sums <file> --key K --settings S --plan PLAN --out P   round 2
+ *   sums <file> --key K --settings S --plan PLAN --out P [--counts C]   round 2 (C: use the kept counts)
  *   finish SUMS... --settings S --plan PLAN --out REPORT [--next-plan NEXT]
  * finish exits with NEEDS_SUMS after writing NEXT when the review needs the sums of more masks.
+ * With --counts, round 1 writes the shard's token counts (engine/shards/shard-counts.ts) before its
+ * partial, and every sums round reads them instead of tokenising the shard again; counts that are
+ * missing, or from another state of the file or other settings, are ignored (the shard is read again).
  * Every output is written atomically.
  */
 export async function runShardCommand(argv: readonly string[]): Promise<number> {
@@ -83,7 +88,16 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
   switch (step) {
     case 'count': {
       const file = one('shard file');
-      await writeJson(need('out'), await countShard({ file, key: v.key ?? path.basename(file) }, settings));
+      const shard = { file, key: v.key ?? path.basename(file) };
+      if (v.counts === undefined) {
+        await writeJson(need('out'), await countShard(shard, settings));
+        return 0;
+      }
+      const out = need('out');
+      const origin = await shardCountsOrigin(file, shard.key, settingsKey(settings)).catch(() => null);
+      const { partial, kept } = await countShardKeeping(shard, settings);
+      if (origin !== null) await writeShardCounts(v.counts, kept, origin);
+      await writeJson(out, partial);
       return 0;
     }
     case 'plan': {
@@ -97,8 +111,11 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
     }
     case 'sums': {
       const file = one('shard file');
+      const shard = { file, key: v.key ?? path.basename(file) };
       const plan = await readPartial<PlanPartial>(need('plan'), 'plan');
-      await writeJson(need('out'), await sumShard({ file, key: v.key ?? path.basename(file) }, plan, settings));
+      const origin = v.counts === undefined ? null : await shardCountsOrigin(file, shard.key, settingsKey(settings)).catch(() => null);
+      const kept = origin === null ? null : await readShardCounts(v.counts!, origin);
+      await writeJson(need('out'), await sumShard(shard, plan, settings, kept));
       return 0;
     }
     case 'finish': {

@@ -4,6 +4,7 @@ import { BottomK, type Ranked } from '../random/bottom-k';
 import { hashFileKey, placeKey } from '../random/place-hash';
 import { openCorpusFile } from '../read/open-corpus-file';
 import { header, type CountPartial, type SampleCandidate } from './partials';
+import type { ShardCounts } from './shard-counts';
 
 export interface ShardRef {
   /** Path to read. */
@@ -26,6 +27,11 @@ export function candidateLimit(settings: EffectiveSettings): number {
  * place keys (the sample candidates) with their raw counts. Everything the merge adds up.
  */
 export async function countShard(shard: ShardRef, settings: EffectiveSettings): Promise<CountPartial> {
+  return (await countShardKeeping(shard, settings)).partial;
+}
+
+/** Round 1, also handing back the shard's counts, so the sums rounds need not tokenise it again (shard-counts.ts). */
+export async function countShardKeeping(shard: ShardRef, settings: EffectiveSettings): Promise<{ partial: CountPartial; kept: ShardCounts }> {
   const source = await openCorpusFile(shard.file, {
     format: settings.format,
     textField: settings.text,
@@ -62,7 +68,7 @@ export async function countShard(shard: ShardRef, settings: EffectiveSettings): 
       counts: Array.from(counts.data.subarray(start, end)),
     };
   });
-  return {
+  const partial: CountPartial = {
     ...header('count', settings),
     step: 'count',
     shard: { key: shard.key, file: shard.file },
@@ -84,4 +90,5 @@ export async function countShard(shard: ShardRef, settings: EffectiveSettings): 
     candidates,
     candidateLimit: candidateLimit(settings),
   };
+  return { partial, kept: { counts, previews } };
 }

@@ -9,23 +9,24 @@ import { termCountStats, type TermCountStats } from '../terms/term-count-stats';
 import { openCorpusFile } from '../read/open-corpus-file';
 import { UserError } from '../user-error';
 import type { ShardRef } from './count-shard';
+import type { ShardCounts } from './shard-counts';
 import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedCountStats, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
 
 /**
- * Round 2 of a distributed review, for one shard: reads and tokenises it again, weighs it with
+ * Round 2 of a distributed review, for one shard: takes the counts round 1 kept (`kept`, see
+ * shard-counts.ts) or else reads and tokenises the shard again, weighs them with
  * the merged vocabulary and idf, and adds up the exact term sums (docs/methods.md §3) under each
  * mask the plan asks for, in one pass per mask over the shard's non-zeros. Each row is weighted
  * and renormalised exactly as the one-process review weighs it, so the sums differ from its sums
  * only in the order the shards' subtotals are added.
  */
-export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: EffectiveSettings): Promise<SumsPartial> {
+export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: EffectiveSettings, kept: ShardCounts | null = null): Promise<SumsPartial> {
   if (plan.settingsKey !== settingsKey(settings)) {
     throw new UserError('the plan was made with other settings: every shard step must use the same loudword.json and options', shard.file, null);
   }
   const known = plan.shards.find((s) => s.key === shard.key);
   if (known === undefined) throw new UserError(`shard "${shard.key}" is not in the plan (${plan.shards.length} shards)`, shard.file, null);
-  const source = await openCorpusFile(shard.file, { format: settings.format, textField: settings.text, labelField: settings.label, maxBytes: settings.limits.maxBytes });
-  const built = await countFile(source, settings.tokens);
+  const built = kept ?? (await countFile(await openCorpusFile(shard.file, { format: settings.format, textField: settings.text, labelField: settings.label, maxBytes: settings.limits.maxBytes }), settings.tokens));
   if (built.counts.rows !== known.documents) {
     throw new UserError(`the shard changed since round 1: ${built.counts.rows} documents now, ${known.documents} then`, shard.file, null);
   }
