@@ -4,8 +4,10 @@
 Called by `loudword review '<glob>' --dask ADDR` (extension/src/cli/review-with-dask.ts), which has
 already written WORKDIR/settings.json (the settings, resolved once) and WORKDIR/shards.json (the
 shard files). Round 1 (`loudword shard count`) and the sums rounds (`loudword shard sums`) run as
-Dask tasks, one per shard, each a `node bin/loudword.js shard ...` process on a worker that writes
-its partial into WORKDIR atomically; the merge (`shard plan`) and `shard finish` run here. A worker
+Dask tasks, one per shard; each task hands its step to its worker's `node bin/loudword.js shard
+serve` process (one per worker, kept between tasks), which writes the partial into WORKDIR
+atomically. Round 1 also keeps each shard's token counts in WORKDIR, so the sums rounds do not
+tokenise again. The merge (`shard plan`) and `shard finish` run here. A worker
 that dies mid-task has its task rerun elsewhere by the scheduler; a step that fails on its input
 (an unparsable shard) fails the review with the step's own message, naming shard and line.
 
@@ -39,11 +41,52 @@ class ShardStepFailed(Exception):
 
 
 def run_step(node, loudword, args):
-    """A Dask task: one `loudword shard ...` process. Returns its exit status (0, or NEEDS_SUMS),
-    its wall time in seconds and the peak memory (RSS, MB) of the largest step this process ran."""
+    """A Dask task: one shard step, run by this worker's `loudword shard serve` process (started on
+    the worker's first step and kept, so a step pays neither Node's start-up nor loading the
+    tokeniser's model). Returns the step's exit status (0, or NEEDS_SUMS), its wall time in seconds,
+    the peak memory (RSS, MB) of the worker's Node process so far, and the worker's address."""
+    import json as json_
+    import subprocess as subprocess_
+    import threading
+    from distributed import get_worker
+
+    def die_with_worker():
+        # Linux: the Node process is killed when the worker that started it dies (prctl PR_SET_PDEATHSIG).
+        try:
+            import ctypes
+            import signal
+            ctypes.CDLL("libc.so.6", use_errno=True).prctl(1, signal.SIGKILL)
+        except (OSError, AttributeError):
+            pass
+
     program = os.environ.get("LOUDWORD_BIN", loudword)
+    worker = get_worker()
+    servers = worker.__dict__.setdefault("_loudword_servers", {})
+    key = (threading.get_ident(), node, program)
+    server = servers.get(key)
+    if server is None or server.poll() is not None:
+        server = subprocess_.Popen([node, program, "shard", "serve"], stdin=subprocess_.PIPE, stdout=subprocess_.PIPE,
+                                   text=True, preexec_fn=die_with_worker)
+        servers[key] = server
     start = time.monotonic()
-    done = subprocess.run([node, program, "shard", *args], capture_output=True, text=True)
+    server.stdin.write(json_.dumps({"args": args}) + "\n")
+    server.stdin.flush()
+    line = server.stdout.readline()
+    seconds = time.monotonic() - start
+    if not line:
+        servers.pop(key, None)
+        raise ShardStepFailed(f"the worker's Node process ended during `shard {args[0]}` (exit status {server.wait()})")
+    reply = json_.loads(line)
+    if reply["status"] not in (0, NEEDS_SUMS):
+        raise ShardStepFailed(reply.get("message") or f"exit status {reply['status']}")
+    return reply["status"], seconds, reply["peakMB"], worker.address
+
+
+def run_step_here(node, loudword, args):
+    """A step run by the driver (merge, finish): its own `loudword shard ...` process. Returns its
+    exit status (0, or NEEDS_SUMS), its wall time in seconds and its peak memory (RSS, MB)."""
+    start = time.monotonic()
+    done = subprocess.run([node, loudword, "shard", *args], capture_output=True, text=True)
     seconds = time.monotonic() - start
     peak_mb = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss / 1024
     if done.returncode not in (0, NEEDS_SUMS):
@@ -71,9 +114,11 @@ def run_round(client, name, node, loudword, commands, quiet, stats):
     started = time.monotonic()
     seconds = []
     for future in as_completed(futures):
-        _, took, peak_mb = future.result()  # raises the step's ShardStepFailed here
+        _, took, peak_mb, worker = future.result()  # raises the step's ShardStepFailed here
         seconds.append(took)
-        stats["peakStepMB"] = max(stats.get("peakStepMB", 0), peak_mb)
+        stats["peakStepMB"] = max(stats.get("peakStepMB", 0), peak_mb)  # the largest worker's Node process
+        peaks = stats.setdefault("workerPeakMB", {})
+        peaks[worker] = max(peaks.get(worker, 0), peak_mb)
         done += 1
         say(quiet, f"{name}: {done}/{len(commands)} shards")
     stats.setdefault("rounds", []).append({"round": name, "wallSeconds": time.monotonic() - started,
@@ -82,7 +127,7 @@ def run_round(client, name, node, loudword, commands, quiet, stats):
 
 def local_step(node, loudword, args, stats, name):
     """A step run here (merge, finish), timed."""
-    status, seconds, peak_mb = run_step(node, loudword, args)
+    status, seconds, peak_mb = run_step_here(node, loudword, args)
     stats.setdefault("local", []).append({"step": name, "seconds": seconds})
     stats["peakLocalMB"] = max(stats.get("peakLocalMB", 0), peak_mb)
     return status

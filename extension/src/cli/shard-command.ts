@@ -1,5 +1,6 @@
 import { promises as fs } from 'node:fs';
 import * as path from 'node:path';
+import { createInterface } from 'node:readline';
 import { parseArgs as parseNodeArgs } from 'node:util';
 import type { EffectiveSettings, SettingsProvenance } from '../protocol';
 import { loadReviewSettings, provenanceOf } from '../engine/review/review-settings';
@@ -12,7 +13,7 @@ import { readShardCounts, shardCountsOrigin, writeShardCounts } from '../engine/
 import { planReview } from '../engine/shards/plan-review';
 import { sumShard } from '../engine/shards/sum-shard';
 import { SumsTotals } from '../engine/shards/sums-totals';
-import { UserError } from '../engine/user-error';
+import { isUserError, UserError } from '../engine/user-error';
 import { parseArgs, UsageError } from './parse-args';
 import { reviewInputOf } from './review-input-of';
 import { writeAtomically } from './write-atomically';
@@ -31,7 +32,7 @@ export interface ShardSettingsFile {
   provenance: SettingsProvenance;
 }
 
-const STEPS = ['settings', 'list', 'count', 'plan', 'sums', 'finish'] as const;
+const STEPS = ['settings', 'list', 'count', 'plan', 'sums', 'finish', 'serve'] as const;
 type Step = (typeof STEPS)[number];
 
 const OPTIONS = {
@@ -57,11 +58,19 @@ const OPTIONS = {
  * partial, and every sums round reads them instead of tokenising the shard again; counts that are
  * missing, or from another state of the file or other settings, are ignored (the shard is read again).
  * Every output is written atomically.
+ *   serve                                            run steps one after another, asked on stdin
+ * `serve` is for drivers that run many steps on one machine (cluster/loudword_dask.py keeps one per
+ * Dask worker): it reads one JSON line per step, {"args": ["count", …]}, runs it as the command
+ * would, and answers one JSON line {"status", "message"?, "seconds", "peakMB"}; status is the
+ * command's exit status (1 for a mistake in the input, 3 for an internal error, after which it
+ * exits). It saves each step Node's start-up and loading the tokeniser's model. It ends at the
+ * end of its input.
  */
 export async function runShardCommand(argv: readonly string[]): Promise<number> {
   const step = argv[0] as Step | undefined;
   if (step === undefined || !STEPS.includes(step)) throw new UsageError(`shard needs a step: ${STEPS.join(', ')}`);
   if (step === 'settings') return writeSettings(argv.slice(1));
+  if (step === 'serve') return serve();
   let parsed;
   try {
     parsed = parseNodeArgs({ args: [...argv.slice(1)], options: OPTIONS, allowPositionals: true, strict: true });
@@ -133,6 +142,40 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
       return NEEDS_SUMS;
     }
   }
+}
+
+async function serve(): Promise<number> {
+  const lines = createInterface({ input: process.stdin, crlfDelay: Infinity });
+  const answer = (reply: object): void => void process.stdout.write(`${JSON.stringify(reply)}\n`);
+  for await (const line of lines) {
+    if (line.trim() === '') continue;
+    const start = performance.now();
+    const done = (status: number, message?: string): void =>
+      answer({ status, ...(message === undefined ? {} : { message }), seconds: (performance.now() - start) / 1000, peakMB: process.resourceUsage().maxRSS / 1024 });
+    let args: unknown;
+    try {
+      args = (JSON.parse(line) as { args?: unknown }).args;
+    } catch {
+      args = undefined;
+    }
+    if (!Array.isArray(args) || !args.every((a) => typeof a === 'string') || ['list', 'serve'].includes(args[0] as string)) {
+      done(2, `shard serve: each line must be {"args": ["count" | "plan" | "sums" | "finish" | "settings", …]}`);
+      continue;
+    }
+    try {
+      done(await runShardCommand(args as string[]));
+    } catch (e) {
+      const code = (e as NodeJS.ErrnoException).code;
+      if (e instanceof UsageError) done(2, e.message);
+      else if (isUserError(e)) done(1, e.describe());
+      else if (typeof code === 'string' && /^E[A-Z]+$/.test(code)) done(1, `${(e as NodeJS.ErrnoException).path ?? '(unknown file)'}: ${(e as Error).message}`);
+      else {
+        done(3, `internal error — please report it with the input that caused it.\n${(e as Error)?.stack ?? String(e)}`);
+        return 3;
+      }
+    }
+  }
+  return 0;
 }
 
 async function writeSettings(argv: readonly string[]): Promise<number> {
