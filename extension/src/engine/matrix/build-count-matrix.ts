@@ -118,72 +118,53 @@ class GrowingUint32 {
   toArray(): Uint32Array {
     return this.a.slice(0, this.length);
   }
+  /** The filled part, without a copy (valid until the next push). */
+  view(): Uint32Array {
+    return this.a.subarray(0, this.length);
+  }
 }
 
-/** Turns encoded batches into CSR rows with provisional (first-seen) term ids. */
+/**
+ * Turns encoded batches into CSR rows. Each batch's columns are its coder's ids, mapped to
+ * provisional (first-seen) global ids through one table per coder; the rows are kept as the
+ * batches' own arrays until `finish` writes the matrix once at its final size (no doubling
+ * copies, and a part is let go as soon as it is written).
+ */
 class CountAccumulator {
   private readonly idOf = new Map<string, number>();
   private readonly terms: string[] = [];
-  private indptr = new Uint32Array(1025);
-  private indices = new Uint32Array(4096);
-  private data = new Float64Array(4096);
-  private tokensPerDoc = new Uint32Array(1024);
-  private countOf = new Uint32Array(1024); // scratch, indexed by term id, all zero between rows
-  private touched = new Uint32Array(256);
+  private readonly globalOf = new Map<number, GrowingUint32>();
+  private parts: { rowEnds: Uint32Array; cols: Uint32Array; counts: Uint32Array }[] = [];
+  private readonly tokensPerDoc = new GrowingUint32();
+  private nonzeros = 0;
   rows = 0;
 
   add(batch: EncodedBatch): void {
-    const globalOf = new Uint32Array(batch.terms.length);
-    for (let i = 0; i < batch.terms.length; i++) {
-      const t = batch.terms[i]!;
+    let globalOf = this.globalOf.get(batch.stream);
+    if (globalOf === undefined) {
+      globalOf = new GrowingUint32();
+      this.globalOf.set(batch.stream, globalOf);
+    }
+    if (globalOf.length !== batch.firstNewId) throw new Error(`count matrix: batch of stream ${batch.stream} starts at term ${batch.firstNewId}, expected ${globalOf.length}`);
+    for (const t of batch.newTerms) {
       let id = this.idOf.get(t);
       if (id === undefined) {
         id = this.terms.length;
         this.idOf.set(t, id);
         this.terms.push(t);
       }
-      globalOf[i] = id;
+      globalOf.push(id);
     }
-    if (this.countOf.length < this.terms.length) this.countOf = grownTo(this.countOf, this.terms.length);
-    const { docEnds, ids } = batch;
-    let start = 0;
-    for (let d = 0; d < docEnds.length; d++) {
-      const end = docEnds[d];
-      this.addRow(ids, start, end, globalOf);
-      start = end;
-    }
+    const map = globalOf.view();
+    const cols = batch.cols;
+    for (let k = 0; k < cols.length; k++) cols[k] = map[cols[k]!]!;
+    this.parts.push({ rowEnds: batch.rowEnds, cols, counts: batch.counts });
+    for (let d = 0; d < batch.tokens.length; d++) this.tokensPerDoc.push(batch.tokens[d]!);
+    this.rows += batch.rowEnds.length;
+    this.nonzeros += cols.length;
   }
 
-  private addRow(ids: Uint32Array, start: number, end: number, globalOf: Uint32Array): void {
-    const countOf = this.countOf;
-    if (this.touched.length < end - start) this.touched = grownTo(this.touched, end - start);
-    const touched = this.touched;
-    let distinct = 0;
-    for (let k = start; k < end; k++) {
-      const g = globalOf[ids[k]];
-      if (countOf[g] === 0) touched[distinct++] = g;
-      countOf[g]++;
-    }
-    const r = this.rows;
-    if (r + 2 > this.indptr.length) this.indptr = grownTo(this.indptr, r + 2);
-    if (r + 1 > this.tokensPerDoc.length) this.tokensPerDoc = grownTo(this.tokensPerDoc, r + 1);
-    let at = this.indptr[r];
-    if (at + distinct > this.indices.length) {
-      this.indices = grownTo(this.indices, at + distinct);
-      this.data = grownTo(this.data, at + distinct);
-    }
-    for (let i = 0; i < distinct; i++) {
-      const g = touched[i];
-      this.indices[at] = g;
-      this.data[at++] = countOf[g];
-      countOf[g] = 0;
-    }
-    this.indptr[r + 1] = at;
-    this.tokensPerDoc[r] = end - start;
-    this.rows = r + 1;
-  }
-
-  /** Renumbers columns in code point order and sorts each row's column ids. */
+  /** Numbers columns in code point order and writes each row with its column ids ascending. */
   finish(): CountMatrix {
     const cols = this.terms.length;
     const order = new Uint32Array(cols);
@@ -193,35 +174,38 @@ class CountAccumulator {
     const rank = new Uint32Array(cols);
     const sortedTerms = new Array<string>(cols);
     for (let j = 0; j < cols; j++) {
-      rank[order[j]] = j;
-      sortedTerms[j] = terms[order[j]]!;
+      rank[order[j]!] = j;
+      sortedTerms[j] = terms[order[j]!]!;
     }
     const rows = this.rows;
-    const total = this.indptr[rows];
-    const indptr = this.indptr.slice(0, rows + 1);
-    const indices = this.indices.slice(0, total);
-    const data = this.data.slice(0, total);
-    // Sort each row in place: scatter counts by new column id, sort the ids natively, gather.
-    const scratch = new Float64Array(cols);
-    for (let r = 0; r < rows; r++) {
-      const s = indptr[r];
-      const e = indptr[r + 1];
-      for (let k = s; k < e; k++) {
-        const c = rank[indices[k]];
-        indices[k] = c;
-        scratch[c] = data[k];
+    const indptr = new Uint32Array(rows + 1);
+    const indices = new Uint32Array(this.nonzeros);
+    const data = new Float64Array(this.nonzeros);
+    // Each row: write the new column ids, sort them natively, then gather the counts through a
+    // scratch indexed by column (all of a row's columns are distinct).
+    const scratch = new Uint32Array(cols);
+    let r = 0;
+    let at = 0;
+    const parts = this.parts;
+    this.parts = [];
+    for (let p = 0; p < parts.length; p++) {
+      const { rowEnds, cols: partCols, counts } = parts[p]!;
+      parts[p] = EMPTY_PART;
+      let k = 0;
+      for (let d = 0; d < rowEnds.length; d++) {
+        const s = at;
+        for (const end = rowEnds[d]!; k < end; k++) {
+          const c = rank[partCols[k]!]!;
+          indices[at++] = c;
+          scratch[c] = counts[k]!;
+        }
+        if (at - s > 1) indices.subarray(s, at).sort();
+        for (let e = s; e < at; e++) data[e] = scratch[indices[e]!]!;
+        indptr[++r] = at;
       }
-      indices.subarray(s, e).sort();
-      for (let k = s; k < e; k++) data[k] = scratch[indices[k]];
     }
-    return { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.slice(0, rows) };
+    return { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() };
   }
 }
 
-function grownTo<T extends Uint32Array | Float64Array>(a: T, needed: number): T {
-  let size = Math.max(1, a.length);
-  while (size < needed) size *= 2;
-  const grown = new (a.constructor as new (n: number) => T)(size);
-  grown.set(a);
-  return grown;
-}
+const EMPTY_PART = { rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };

@@ -1,8 +1,7 @@
 import type { CorpusSource } from '../read/corpus-source';
 import type { FileByFileSource } from '../read/many-files-corpus';
-import type { BatchEncoder } from '../tokenize/batch-encoder';
-import { createTokenizer, type TokenSettings } from '../tokenize/create-tokenizer';
-import { encodeBatch } from '../tokenize/encode-batch';
+import { coderEncoder, type BatchEncoder } from '../tokenize/batch-encoder';
+import { createTermCoder, type TokenSettings } from '../tokenize/create-tokenizer';
 import { freshWinkInstance } from '../tokenize/wink-instance';
 import { buildCountMatrix, type BuiltCorpus } from './build-count-matrix';
 import { compareCodePoints } from './compare-code-points';
@@ -15,12 +14,7 @@ import { compareCodePoints } from './compare-code-points';
  * count the same whether one process reads them all or each shard step reads one.
  */
 export function freshFileEncoder(tokens: TokenSettings): BatchEncoder {
-  const tokenize = createTokenizer(tokens, { nlp: freshWinkInstance(tokens.ngrams === 2 ? 'sentences' : 'tokens') });
-  return {
-    parallelism: 1,
-    encode: (texts) => Promise.resolve().then(() => encodeBatch(tokenize, texts)),
-    close: () => Promise.resolve(),
-  };
+  return coderEncoder(createTermCoder(tokens, { nlp: freshWinkInstance(tokens.ngrams === 2 ? 'sentences' : 'tokens') }));
 }
 
 /** Counts one file of a many-file corpus (one shard) with a fresh tokeniser. */

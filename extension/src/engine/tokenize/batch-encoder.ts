@@ -1,7 +1,8 @@
 import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
-import { createTokenizer, type TokenSettings } from './create-tokenizer';
-import { encodeBatch, type EncodedBatch } from './encode-batch';
+import { createTermCoder, type TokenSettings } from './create-tokenizer';
+import { batchEncoding, type EncodedBatch } from './encode-batch';
+import type { TermCoder } from './term-coder';
 import type { TokenizeReply, TokenizeRequest } from './tokenize-messages';
 
 /** Tokenises batches of texts, in this thread or in a pool of worker threads. */
@@ -13,10 +14,15 @@ export interface BatchEncoder {
 }
 
 export function inProcessEncoder(tokens: TokenSettings): BatchEncoder {
-  const tokenize = createTokenizer(tokens);
+  return coderEncoder(createTermCoder(tokens));
+}
+
+/** Batches encoded in this thread by `coder`, one after another (stream 0). */
+export function coderEncoder(coder: TermCoder): BatchEncoder {
+  const encodeBatch = batchEncoding(coder);
   return {
     parallelism: 1,
-    encode: (texts) => Promise.resolve().then(() => encodeBatch(tokenize, texts)),
+    encode: (texts) => Promise.resolve().then(() => encodeBatch(texts)),
     close: () => Promise.resolve(),
   };
 }
@@ -24,7 +30,8 @@ export function inProcessEncoder(tokens: TokenSettings): BatchEncoder {
 /**
  * A pool of `workers` threads running `script` (dist/tokenize-worker.js), or null when the
  * script is not there (e.g. tests run from source under tsx) so the caller falls back to
- * in-process. Batches go round-robin; each worker answers in the order it was asked.
+ * in-process. Batches go round-robin; each worker answers in the order it was asked, and its
+ * term ids are its own (the batch's `stream` is the worker's number).
  */
 export function workerEncoder(tokens: TokenSettings, workers: number, script: string): BatchEncoder | null {
   if (workers < 1 || !existsSync(script)) return null;
@@ -48,7 +55,7 @@ export function workerEncoder(tokens: TokenSettings, workers: number, script: st
       const p = pending.get(reply.seq);
       if (p === undefined) return;
       pending.delete(reply.seq);
-      if (reply.batch !== null) p.resolve(reply.batch);
+      if (reply.batch !== null) p.resolve({ ...reply.batch, stream: w });
       else p.reject(new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
     });
     worker.on('error', (e) => failAll(w, e));

@@ -4,6 +4,7 @@ import { chunkCachedUnigrams } from './chunk-cached-unigrams';
 import { cutLongRuns } from './long-runs';
 import { compileTokenPattern, patternTokens, SKLEARN_TOKEN_PATTERN } from './pattern-tokenizer';
 import { createTermOf } from './term-of-token';
+import { decodingTokenizer, internedCoder, type TermCoder } from './term-coder';
 import { winkInstance, winkStemmer } from './wink-instance';
 import { winkSplitsLikeThis } from './wink-splitter';
 
@@ -70,20 +71,40 @@ export interface TokenizerEngine {
  * of its length; `longRunsCut` counts them (long-runs.ts).
  */
 export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine = {}): Tokenizer {
-  const { lowercase, minLength, ngrams } = settings;
+  const coder = chunkCoder(settings, engine);
+  return coder !== null ? decodingTokenizer(coder) : wholeDocumentTokenizer(settings, engine);
+}
+
+/**
+ * The same tokenizer as term ids (term-coder.ts): the unigram wink path encodes straight from
+ * its chunk cache to ids; the other paths intern the strings `createTokenizer` gives.
+ */
+export function createTermCoder(settings: TokenSettings, engine: TokenizerEngine = {}): TermCoder {
+  return chunkCoder(settings, engine) ?? internedCoder(wholeDocumentTokenizer(settings, engine));
+}
+
+/** Checks the settings; the chunk-cached coder when they allow it, else null. */
+function chunkCoder(settings: TokenSettings, engine: TokenizerEngine): TermCoder | null {
+  const { minLength, ngrams } = settings;
   if (!Number.isInteger(minLength) || minLength < 0) throw new RangeError(`tokens.minLength must be a whole number ≥ 0, got ${minLength}`);
   if (ngrams !== 1 && ngrams !== 2) throw new RangeError(`tokens.ngrams must be 1 or 2, got ${String(ngrams)}`);
   for (const k of settings.kinds) if (!ALL_KINDS.has(k)) throw new RangeError(`unknown token kind "${k}"`);
+  if (settings.tokenizer !== undefined && settings.tokenizer !== 'wink' && settings.tokenizer !== 'pattern') {
+    throw new RangeError(`tokens.tokenizer must be "wink" or "pattern", got ${String(settings.tokenizer)}`);
+  }
+  if (settings.tokenizer === 'pattern' || ngrams !== 1 || engine.chunkCache === false || !winkSplitsLikeThis()) return null;
+  return chunkCachedUnigrams(engine.nlp ?? winkInstance('tokens'), settings.lowercase, createTermOf(settings));
+}
+
+/** Every path but the chunk-cached one: the pattern tokenizer, or whole documents through wink. */
+function wholeDocumentTokenizer(settings: TokenSettings, engine: TokenizerEngine): Tokenizer {
   if (settings.tokenizer === 'pattern') return patternTokenizer(settings);
-  if (settings.tokenizer !== undefined && settings.tokenizer !== 'wink') throw new RangeError(`tokens.tokenizer must be "wink" or "pattern", got ${String(settings.tokenizer)}`);
+  const { lowercase, ngrams } = settings;
   const nlp = engine.nlp ?? winkInstance(ngrams === 2 ? 'sentences' : 'tokens');
   const termOf = createTermOf(settings);
   let longRunsCut = 0;
   const withCount = (f: (text: string) => string[]): Tokenizer =>
     Object.defineProperty(f, 'longRunsCut', { get: () => longRunsCut }) as Tokenizer;
-  if (ngrams === 1 && engine.chunkCache !== false && winkSplitsLikeThis()) {
-    return withCount(chunkCachedUnigrams(nlp, lowercase, termOf, () => void longRunsCut++));
-  }
   const its = nlp.its;
 
   return withCount((whole: string): string[] => {

@@ -1,49 +1,78 @@
+import { IdList } from './id-list';
+import type { TermCoder } from './term-coder';
+
 /**
- * A batch of tokenised documents in a form that crosses a thread boundary cheaply: each distinct
- * term once, and the documents as runs of batch-local term ids. Document d's ids are
- * ids[docEnds[d-1] .. docEnds[d]) (docEnds[-1] = 0).
+ * A batch of tokenised documents, already counted, in a form that crosses a thread boundary
+ * cheaply (typed arrays, transferred): document d's distinct terms are
+ * cols[rowEnds[d-1] .. rowEnds[d]) (rowEnds[-1] = 0) with their counts, in first-use order.
+ * Column ids are the coder's own term ids, which stay valid from batch to batch, so a batch
+ * carries only the terms its coder met for the first time (`newTerms`, ids `firstNewId`, …).
  */
 export interface EncodedBatch {
-  terms: string[];
-  docEnds: Uint32Array;
-  ids: Uint32Array;
+  /** Which coder made it: the ids are that coder's (set by the BatchEncoder). */
+  stream: number;
+  firstNewId: number;
+  newTerms: string[];
+  rowEnds: Uint32Array;
+  cols: Uint32Array;
+  counts: Uint32Array;
+  /** Terms per document, repeats included. */
+  tokens: Uint32Array;
   /** Batch-local indices of the documents that had an over-long run cut (long-runs.ts). */
   longRunDocs: number[];
   /** How many runs were cut in the batch. */
   longRuns: number;
 }
 
-/** Tokenises `texts` and encodes them; the same code runs in-process and in the worker. */
-export function encodeBatch(tokenize: ((text: string) => string[]) & { readonly longRunsCut?: number }, texts: readonly string[]): EncodedBatch {
-  const idOf = new Map<string, number>();
-  const terms: string[] = [];
-  const docEnds = new Uint32Array(texts.length);
-  let ids = new Uint32Array(Math.max(64, texts.length * 16));
-  let used = 0;
-  const longRunDocs: number[] = [];
-  const runsBefore = tokenize.longRunsCut ?? 0;
-  let runsSeen = runsBefore;
-  for (let d = 0; d < texts.length; d++) {
-    const tokens = tokenize(texts[d]);
-    if ((tokenize.longRunsCut ?? 0) !== runsSeen) {
-      runsSeen = tokenize.longRunsCut ?? 0;
-      longRunDocs.push(d);
-    }
-    if (used + tokens.length > ids.length) {
-      const grown = new Uint32Array(Math.max(ids.length * 2, used + tokens.length));
-      grown.set(ids.subarray(0, used));
-      ids = grown;
-    }
-    for (const t of tokens) {
-      let id = idOf.get(t);
-      if (id === undefined) {
-        id = terms.length;
-        idOf.set(t, id);
-        terms.push(t);
+/**
+ * The batch step of a coder (in-process and in the worker alike): encode each text, count its
+ * terms, and name the terms that are new since the previous batch. Keeps its scratch between
+ * batches.
+ */
+export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => EncodedBatch {
+  const ids = new IdList(1 << 16);
+  let countOf = new Uint32Array(1024); // by term id; all zero between documents
+  let termsSent = 0;
+  return (texts) => {
+    const rowEnds = new Uint32Array(texts.length);
+    const tokens = new Uint32Array(texts.length);
+    const cols = new IdList(texts.length * 64);
+    const counts = new IdList(texts.length * 64);
+    const longRunDocs: number[] = [];
+    const runsBefore = coder.longRunsCut;
+    let runsSeen = runsBefore;
+    for (let d = 0; d < texts.length; d++) {
+      ids.length = 0;
+      coder.encode(texts[d]!, ids);
+      if (coder.longRunsCut !== runsSeen) {
+        runsSeen = coder.longRunsCut;
+        longRunDocs.push(d);
       }
-      ids[used++] = id;
+      if (countOf.length < coder.terms.length) {
+        const grown = new Uint32Array(Math.max(coder.terms.length, countOf.length * 2));
+        grown.set(countOf);
+        countOf = grown;
+      }
+      const a = ids.array;
+      const n = ids.length;
+      const first = cols.length;
+      for (let k = 0; k < n; k++) {
+        const id = a[k]!;
+        if (countOf[id]++ === 0) cols.push(id);
+      }
+      const c = cols.array;
+      counts.reserve(cols.length - first);
+      for (let k = first; k < cols.length; k++) {
+        const id = c[k]!;
+        counts.push(countOf[id]!);
+        countOf[id] = 0;
+      }
+      rowEnds[d] = cols.length;
+      tokens[d] = n;
     }
-    docEnds[d] = used;
-  }
-  return { terms, docEnds, ids: ids.slice(0, used), longRunDocs, longRuns: runsSeen - runsBefore };
+    const newTerms = coder.terms.slice(termsSent);
+    const firstNewId = termsSent;
+    termsSent = coder.terms.length;
+    return { stream: 0, firstNewId, newTerms, rowEnds, cols: cols.slice(), counts: counts.slice(), tokens, longRunDocs, longRuns: runsSeen - runsBefore };
+  };
 }
