@@ -3,6 +3,8 @@ import { KJV_CHAPTERS } from './kjv-chapters';
 import type { DevCorpus } from './labelled-corpus';
 import { MAN_PAGES } from './man-pages';
 import { PACKAGE_DESCRIPTIONS } from './package-descriptions';
+import { RATED_SENTENCES } from './rated-sentences';
+import { REUTERS_SAMPLE } from './reuters-sample';
 import { SOTU } from './sotu';
 import { SPAM_ASSASSIN } from './spam-assassin';
 
@@ -21,4 +23,4 @@ export const FORTUNES: DevCorpus = {
 };
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
-export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS];
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE];

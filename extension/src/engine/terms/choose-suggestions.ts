@@ -6,7 +6,7 @@ import type { TermCountStats } from './term-count-stats';
 /** Why a term is suggested, or why a term the rules looked at is kept. */
 export type Decision =
   | { suggested: true; reason: 'everywhere' | 'grammar' | 'markup'; signal: TermSignal; cls: PriorClass | null }
-  | { suggested: false; reason: 'bursty' | 'opinion' | 'protected'; signal: TermSignal; cls: PriorClass | null };
+  | { suggested: false; reason: 'bursty' | 'opinion' | 'protected' | 'format'; signal: TermSignal; cls: PriorClass | null };
 
 /**
  * Above this document fraction a term is suggested whatever it is: the max_df = 0.5 practice
@@ -18,18 +18,23 @@ export const EVERYWHERE = 0.5;
  * word (b − Z·se > the median burstiness of the terms outside the prior that are in at least
  * CONTENT_DF of the documents): the corpus shows it clusters like its topic words do. Relative,
  * because how bursty words are depends on how mixed the corpus is (docs/methods.md §9).
- * Z = 2 is the usual two standard errors; CONTENT_DF keeps one-off words out of the median.
- * FALLBACK_LIMIT is used when no content term qualifies.
+ * Z = 2 is the usual two standard errors; CONTENT_DF keeps one-off words out of the median, and
+ * CONTENT_MIN_DOCS does so in a small corpus, where 1% is a single document: a word seen in one
+ * or two documents has no measurable burstiness (its estimate is about −2μ/Σμ², below zero), and
+ * a median over mostly such words falls below the Poisson value 0, so that every grammar word
+ * looked "bursty" (docs/methods.md §9). FALLBACK_LIMIT is used when no content term qualifies.
  */
 export const BURST_Z = 2;
 export const CONTENT_DF = 0.01;
+export const CONTENT_MIN_DOCS = 3;
 export const FALLBACK_LIMIT = 1;
 
-/** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents. */
+/** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents (and at least CONTENT_MIN_DOCS). */
 export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<number, PriorClass>): number {
   const values: number[] = [];
+  const minDocs = Math.max(CONTENT_MIN_DOCS, CONTENT_DF * stats.documents);
   for (let c = 0; c < stats.df.length; c++) {
-    if (prior.has(c) || stats.documents === 0 || stats.df[c]! / stats.documents < CONTENT_DF) continue;
+    if (prior.has(c) || stats.documents === 0 || stats.df[c]! < minDocs) continue;
     const b = termSignal(stats, c).burstiness;
     if (Number.isFinite(b)) values.push(b);
   }
@@ -59,8 +64,12 @@ export interface ChoiceInput {
  * seed, and stopping one term by hand changes no other term's decision.
  * - Any term in more than half the documents is suggested (but on opinion text, not a negation,
  *   degree or contrast word).
- * - A prior word (closed-class, markup residue) is suggested unless the corpus shows it is
- *   burstier than its typical content word (it then carries a topic here).
+ * - A closed-class word of the prior is suggested unless the corpus shows it is burstier than its
+ *   typical content word (it then carries a topic here).
+ * - Markup residue (tag and entity names, pieces of web addresses) is suggested on opinion text
+ *   only. On topic text it is kept unless in more than half the documents: there, the markup
+ *   marks a kind of document (HTML mail against plain mail), which can be the very thing that
+ *   separates the topics, and where no markup is left the names are ordinary words ("net", "span").
  * - On opinion text, the meaning-bearing prior words are kept and only markup residue, the
  *   grammar words in more than half the documents, and nothing else is suggested.
  * Returns a decision for every column the rules looked at; the rest are plain kept terms.
@@ -93,9 +102,13 @@ export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
       out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
       continue;
     }
+    if (cls === 'markup') {
+      out.set(c, { suggested: false, reason: 'format', signal, cls });
+      continue;
+    }
     const bursty = signal.burstiness - BURST_Z * signal.burstinessSe > limit;
     if (bursty) out.set(c, { suggested: false, reason: 'bursty', signal, cls });
-    else out.set(c, { suggested: true, reason: cls === 'markup' ? 'markup' : 'grammar', signal, cls });
+    else out.set(c, { suggested: true, reason: 'grammar', signal, cls });
   }
   return out;
 }

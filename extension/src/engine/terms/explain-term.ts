@@ -54,6 +54,8 @@ export function explainTerm(row: TermRow, documents: number, decision: Decision 
         return `${kind ?? 'word'} ${inDocs}: this corpus reads as opinion text, where such words carry the opinion`;
       case 'protected':
         return `protected by "suggest.protect"`;
+      case 'format':
+        return `${kind ?? 'markup residue'} ${inDocs}: in topic text markup can mark the kind of document (HTML or plain), which may be what separates the topics, so it is suggested only in opinion text or above half the documents`;
     }
   };
   switch (row.status) {
