@@ -68,6 +68,12 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
 /** Counts a many-file corpus file by file, each with a fresh tokeniser, as its shards would be. */
 export async function countEachFile(source: FileByFileSource, tokens: TokenSettings, signal?: AbortSignal): Promise<BuiltCorpus> {
   const parts: BuiltCorpus[] = [];
-  for await (const file of source.eachFile()) parts.push(await countFile(file.source, tokens, signal));
+  const keys: string[] = [];
+  for await (const file of source.eachFile()) {
+    parts.push(await countFile(file.source, tokens, signal));
+    keys.push(file.key);
+  }
+  // A tokeniser's note names lines of its file: with more than one file, it names the file too.
+  if (parts.length > 1) parts.forEach((p, i) => (p.notes = p.notes.map((note) => `${keys[i]}: ${note}`)));
   return concatCounts(parts);
 }

@@ -22,6 +22,8 @@ export interface PlanInput {
   configDir: string | null;
   /** Round-1 partials, read one at a time: each is folded in and let go. */
   partials: AsyncIterable<{ partial: CountPartial; file: string }> | Iterable<{ partial: CountPartial; file: string }>;
+  /** The stop list's text instead of its file (the editor's unsaved buffer). */
+  stopListText?: string;
 }
 
 /** What the merge keeps of a shard once its partial is folded in: a few numbers, not its vocabulary. */
@@ -119,7 +121,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
 
   const projectDir = input.configDir ?? path.dirname(path.resolve(input.corpus));
   const tokenize = createTokenizer(settings.tokens);
-  const stopList = await loadStopList(settings.stopList, projectDir, undefined, tokenize, settings.tokens.lowercase);
+  const stopList = await loadStopList(settings.stopList, projectDir, input.stopListText, tokenize, settings.tokens.lowercase);
   const base = maskColumns(index.mask(stopList.terms));
 
   const planId = createHash('sha256')
@@ -142,7 +144,8 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     full: true,
     previewDocs: evenlySpacedDocuments(documents, OPINION_SAMPLE),
     input: mergedInput(input.corpus, parts),
-    tokenizerNotes: parts.flatMap((p) => p.tokenizerNotes),
+    // As one process says them (matrix/count-each-file.ts): with more than one shard, each names its file.
+    tokenizerNotes: parts.flatMap((p) => (parts.length > 1 ? p.tokenizerNotes.map((note) => `${p.key}: ${note}`) : p.tokenizerNotes)),
     stopList: { file: stopList.file, terms: stopList.terms, unused: stopList.entries.filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
   };
 }
