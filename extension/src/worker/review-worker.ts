@@ -3,13 +3,15 @@
 // session so the panel's what-if toggles are answered without re-reading the corpus.
 import { parentPort } from 'node:worker_threads';
 import { startReview } from '../engine/review/start-review';
-import type { ReviewSession } from '../engine/review/review-api';
+import type { ReviewSession, ReviewStage } from '../engine/review/review-api';
+import { isManyFilesInput } from '../engine/read/corpus-files';
+import { reviewShardsInThreads, type ThreadedShardsSession } from '../engine/shards/review-in-threads';
 import { isUserError } from '../engine/user-error';
 import { isHostToWorker, type HostToWorker, type WorkerErrorMessage, type WorkerToHost } from './worker-protocol';
 
 interface Running { runId: number; controller: AbortController }
 
-let session: ReviewSession | null = null;
+let session: ReviewSession | ThreadedShardsSession | null = null;
 let running: Running | null = null;
 
 function post(message: WorkerToHost): void {
@@ -30,16 +32,17 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
   const controller = new AbortController();
   running = { runId, controller };
   try {
-    const next = await startReview(input.input, {
-      signal: controller.signal,
-      onStage: (stage, fraction) => post({ type: 'stage', runId, stage, fraction }),
-    });
+    const hooks = { signal: controller.signal, onStage: (stage: ReviewStage, fraction: number) => post({ type: 'stage', runId, stage, fraction }) };
+    // A folder or glob of shards is reviewed in shards on worker threads (engine/shards/review-in-threads.ts; dask's hook).
+    const shards = input.input.text === undefined && (await isManyFilesInput(input.input.file));
+    const next = shards ? await reviewShardsInThreads(input.input, hooks) : await startReview(input.input, hooks);
     controller.signal.throwIfAborted();
+    if (session !== null && 'close' in session) void session.close();
     session = next;
     post({ type: 'report', runId, report: next.report });
     // While the reader looks at the Report, build what the first toggle would otherwise pay for.
     setImmediate(() => {
-      if (session === next) next.prepareWhatIf?.();
+      if (session === next && 'prepareWhatIf' in next) next.prepareWhatIf?.();
     });
   } catch (e) {
     post({ ...errorMessage(e, controller), runId });
@@ -48,13 +51,13 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
   }
 }
 
-function whatIf(requestId: number, removed: string[]): void {
+async function whatIf(requestId: number, removed: string[]): Promise<void> {
   if (session === null) {
     post({ type: 'error', kind: 'user', message: 'No finished review to ask a what-if of; run "Review distances" first.', file: null, line: null, requestId });
     return;
   }
   try {
-    post({ type: 'whatIfResult', requestId, removed, measures: session.whatIf(removed) });
+    post({ type: 'whatIfResult', requestId, removed, measures: await session.whatIf(removed) });
   } catch (e) {
     post({ ...errorMessage(e, null), requestId });
   }
@@ -70,7 +73,7 @@ parentPort?.on('message', (message: unknown) => {
       void review(message.runId, message);
       return;
     case 'whatIf':
-      whatIf(message.requestId, message.removed);
+      void whatIf(message.requestId, message.removed);
       return;
   }
 });

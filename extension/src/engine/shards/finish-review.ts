@@ -12,7 +12,15 @@ import { decodeFloat64, type MaskRequest, type PlanPartial } from './partials';
 import type { SumsTotals } from './sums-totals';
 import { ShardedLab } from './sharded-lab';
 
-export type FinishResult = { done: true; report: Report } | { done: false; masks: MaskRequest[] };
+/** What a finished review keeps to answer what-ifs: the sample's lab, the baseline's neighbours, the stop list's mask. */
+export interface FinishedLab {
+  lab: ShardedLab;
+  index: TermIndex;
+  baseMask: Uint8Array;
+  baselineNeighbors: Uint32Array;
+}
+
+export type FinishResult = { done: true; report: Report; finished: FinishedLab } | { done: false; masks: MaskRequest[] };
 
 /**
  * The last step: from the shards' sums added up (SumsTotals), measures the baseline on the
@@ -79,5 +87,5 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, tot
     if (manyFiles) hub.file = s.files[hub.doc]!;
     hub.doc = s.docs[hub.doc]!;
   }
-  return { done: true, report };
+  return { done: true, report, finished: { lab, index, baseMask, baselineNeighbors: baseline.neighbors } };
 }

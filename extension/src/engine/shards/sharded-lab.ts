@@ -1,7 +1,7 @@
 import type { Csr } from '../matrix/csr';
 import type { MaskedTermSums } from '../measures/masked-term-sums';
 import { DistanceLab } from '../what-if/distance-lab';
-import { maskColumns, maskId } from './partials';
+import { maskColumns, maskId, type MaskRequest } from './partials';
 
 /**
  * A DistanceLab for a review spread over shards: it holds only the sampled rows, and answers the
@@ -18,7 +18,7 @@ export class ShardedLab extends DistanceLab {
     k: number,
     seed: number,
     sampleLabels: Int32Array | null,
-    private readonly masked: ReadonlyMap<string, MaskedTermSums>,
+    private readonly masked: Map<string, MaskedTermSums>,
     private readonly full: MaskedTermSums | null,
   ) {
     super(sampleRows, new Uint32Array(sampleRows.rows).map((_, i) => i), k, seed, sampleLabels);
@@ -35,6 +35,18 @@ export class ShardedLab extends DistanceLab {
     if (known !== undefined) return known;
     this.missing.set(id, columns);
     return zeroSums(this.weights.cols);
+  }
+
+  /** The columns of `removed` and their mask id, if no round has computed their sums yet. */
+  unknown(removed: Uint8Array): MaskRequest | null {
+    const columns = maskColumns(removed);
+    const id = maskId(columns);
+    return this.masked.has(id) ? null : { id, columns };
+  }
+
+  /** Sums a later round computed (a what-if's mask). */
+  learn(id: string, sums: MaskedTermSums): void {
+    this.masked.set(id, sums);
   }
 
   override fullSums(): MaskedTermSums {

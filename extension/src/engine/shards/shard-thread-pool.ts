@@ -1,0 +1,92 @@
+import { existsSync, promises as fs } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { Worker } from 'node:worker_threads';
+import type { EffectiveSettings } from '../../protocol';
+import { UserError } from '../user-error';
+import type { ShardRef } from './count-shard';
+import type { CountPartial, PlanPartial, SumsPartial } from './partials';
+import type { ShardRunner } from './review-shards';
+
+type TaskBody = { shard: ShardRef; countsFile: string } & ({ step: 'count' } | { step: 'sums'; plan: PlanPartial });
+export type ShardTask = TaskBody & { id: number };
+export type ShardTaskReply =
+  | { id: number; partial: CountPartial | SumsPartial }
+  | { id: number; error: { user: boolean; message: string; file: string | null; line: number | null; stack?: string } };
+
+/**
+ * Shard steps on worker threads (dist/shard-thread.js): round 1 and the sums rounds of a review
+ * in shards, `threads` at a time, for the editor, where a folder of shards is reviewed on this
+ * machine. Round 1 keeps each shard's counts in a file of a temporary folder (removed by close),
+ * so memory holds one shard per thread, not the corpus. Null when the thread script is missing
+ * (sources run without a build); the caller then runs the steps in its own thread.
+ */
+export async function shardThreadPool(settings: EffectiveSettings, threads: number, script: string): Promise<ShardRunner | null> {
+  if (threads < 1 || !existsSync(script)) return null;
+  const folder = await fs.mkdtemp(path.join(os.tmpdir(), 'loudword-shards-'));
+  const idle: Worker[] = [];
+  const waiting: Array<(w: Worker) => void> = [];
+  const pending = new Map<number, { resolve(p: CountPartial | SumsPartial): void; reject(e: Error): void }>();
+  const all: Worker[] = [];
+  let failure: Error | null = null;
+  let seq = 0;
+  for (let t = 0; t < threads; t++) {
+    const worker = new Worker(script, { workerData: { settings } });
+    worker.on('message', (reply: ShardTaskReply) => {
+      const p = pending.get(reply.id);
+      if (p === undefined) return;
+      pending.delete(reply.id);
+      release(worker);
+      if ('partial' in reply) p.resolve(reply.partial);
+      else if (reply.error.user) p.reject(new UserError(reply.error.message, reply.error.file, reply.error.line));
+      else p.reject(Object.assign(new Error(`shard thread: ${reply.error.message}`), { stack: reply.error.stack }));
+    });
+    const fail = (e: Error): void => {
+      failure ??= e;
+      for (const [, p] of pending) p.reject(e);
+      pending.clear();
+    };
+    worker.on('error', fail);
+    worker.on('exit', (code) => {
+      if (code !== 0) fail(new Error(`shard thread exited with code ${code}`));
+    });
+    all.push(worker);
+    idle.push(worker);
+  }
+  function release(worker: Worker): void {
+    const next = waiting.shift();
+    if (next !== undefined) next(worker);
+    else idle.push(worker);
+  }
+  const acquire = (): Promise<Worker> => {
+    const w = idle.pop();
+    return w !== undefined ? Promise.resolve(w) : new Promise((resolve) => waiting.push(resolve));
+  };
+  const countsFiles = new Map<string, string>();
+  const countsFileOf = (shard: ShardRef): string => {
+    let file = countsFiles.get(shard.key);
+    if (file === undefined) countsFiles.set(shard.key, (file = path.join(folder, `counts-${countsFiles.size}.bin`)));
+    return file;
+  };
+  async function run<T extends CountPartial | SumsPartial>(task: TaskBody): Promise<T> {
+    if (failure !== null) throw failure;
+    const worker = await acquire();
+    const id = seq++;
+    return new Promise<T>((resolve, reject) => {
+      pending.set(id, { resolve: resolve as (p: CountPartial | SumsPartial) => void, reject });
+      worker.postMessage({ ...task, id });
+    });
+  }
+  return {
+    parallelism: threads,
+    count: (shard) => run<CountPartial>({ step: 'count', shard, countsFile: countsFileOf(shard) }),
+    sums: (shard, plan) => run<SumsPartial>({ step: 'sums', shard, plan, countsFile: countsFileOf(shard) }),
+    async close() {
+      failure ??= new Error('the shard threads were closed');
+      for (const [, p] of pending) p.reject(failure);
+      pending.clear();
+      await Promise.all(all.map((w) => w.terminate()));
+      await fs.rm(folder, { recursive: true, force: true });
+    },
+  };
+}

@@ -1,0 +1,60 @@
+// The editor's review of a shards folder (issue 11 point 6): the built review worker
+// (dist/review-worker.js, as the extension runs it) reviews a folder in shards on worker threads
+// (dist/shard-thread.js) and must give the one-process Report, and what-ifs equal to one
+// process's. Corpus: generated documents (seeded; common practice, no source). The reference is
+// our own one-process review (startReview): the check is that map + merge on threads changes nothing.
+import { strict as assert } from 'node:assert';
+import { existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { startReview } from '../extension/src/engine/review/start-review';
+import { reviewShardsInThreads } from '../extension/src/engine/shards/review-in-threads';
+import { ReviewWorkerClient } from '../extension/src/worker/review-worker-client';
+import { reportDifferences } from './support/report-diff';
+import { generatedDocs, writeShards } from './support/shard-corpora';
+
+const DIST = path.resolve(__dirname, '..', 'dist');
+const OVERRIDES = { label: 'label', stopList: null, sample: { documents: 300 } };
+
+describe('a shards folder reviewed in the editor: shard steps on worker threads', function () {
+  this.timeout(300_000);
+  let dir = '';
+  before(() => {
+    assert.ok(existsSync(path.join(DIST, 'shard-thread.js')), 'dist/shard-thread.js is missing: run npm run build first');
+    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-shard-threads-'));
+    writeShards(dir, generatedDocs(1200, 17), 5);
+  });
+  after(() => rmSync(dir, { recursive: true, force: true }));
+
+  it('the review worker gives the one-process Report and the same what-ifs', async () => {
+    const one = await startReview({ file: dir, configPath: null, overrides: OVERRIDES });
+    assert.ok(one.report.suggestions.length > 0, 'a corpus with loud terms to find');
+    const client = new ReviewWorkerClient(path.join(DIST, 'review-worker.js'));
+    const stages: string[] = [];
+    try {
+      const report = await client.review({ file: dir, configPath: null, overrides: OVERRIDES }, (stage) => stages.push(stage));
+      const { differences, largest } = reportDifferences(one.report, report);
+      console.log(`      ${one.report.input.documents} documents in 5 shards: largest relative difference ${largest.toExponential(1)}; stages ${[...new Set(stages)].join(' → ')}`);
+      assert.deepEqual(differences, []);
+      assert.deepEqual(report.suggestions, one.report.suggestions);
+      // A stop list no round has summed yet (its sums need one more round on the threads), then one it has.
+      for (const removed of [one.report.suggestions.slice(0, 2), one.report.suggestions]) {
+        const got = await client.whatIf(removed);
+        const want = one.whatIf(removed);
+        assert.deepEqual(reportDifferences(want, got).differences, [], `what-if ${JSON.stringify(removed)}`);
+      }
+    } finally {
+      await client.terminate();
+    }
+  });
+
+  it('threads that are closed remove the folder of kept counts', async () => {
+    const before = new Set(readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-')));
+    const session = await reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js'));
+    const during = readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-') && !before.has(n));
+    assert.equal(during.length, 1, 'one folder of kept counts while the session lives');
+    assert.ok(readdirSync(path.join(os.tmpdir(), during[0]!)).length === 5, 'the counts of each of the 5 shards');
+    await session.close();
+    assert.equal(existsSync(path.join(os.tmpdir(), during[0]!)), false);
+  });
+});
