@@ -38,7 +38,7 @@ describe('no network access', function () {
   // The host reads a few rows with papaparse for the column picker, so it carries the same
   // streamer as the CLI; the check below holds it to papaparse's download code path.
   it('the host, CLI and worker bundles reach XMLHttpRequest only inside papaparse\'s download streamer, which we never enable', () => {
-    for (const bundle of ['extension.js', 'cli.js', 'review-worker.js']) {
+    for (const bundle of ['extension.js', 'cli.js', 'review-worker.js', 'shard-thread.js']) {
       const lines = readFileSync(path.join(root, 'dist', bundle), 'utf8').split('\n');
       const hits = lines.flatMap((l, i) => (NETWORK_API.test(l) ? [i] : []));
       for (const i of hits) assert.match(lines.slice(Math.max(0, i - 30), i).join('\n'), /RemoteChunkSize/, `${bundle}:${i + 1}`);
