@@ -87,6 +87,15 @@ function assertClose(got: unknown, want: unknown, path: string): void {
   }
 }
 
+/** The incremental sums against maskedTermSums of the same mask. */
+function assertSumsMatch(got: ReturnType<IncrementalTermSums['at']>, X: Csr, mask: Uint8Array): void {
+  const want = maskedTermSums(X, mask, false);
+  assert.equal(got.rowsWithWeight, want.rowsWithWeight);
+  assert.deepEqual([...got.sums.df], [...want.sums.df]);
+  assertClose(got.sums.s1, want.sums.s1, 's1');
+  assertClose(got.sums.s2, want.sums.s2, 's2');
+}
+
 /** A toggle sequence a user or the suggestion search might make: mostly single flips of common terms. */
 function toggleSequence(cols: number, steps: number, random: () => number): Uint8Array[] {
   const masks: Uint8Array[] = [];
@@ -104,6 +113,37 @@ function toggleSequence(cols: number, steps: number, random: () => number): Uint
   return masks;
 }
 
+/** The rows with column 0 added to every one (renormalised): a term in every document, like "the". */
+function everywhere(X: Csr): Csr {
+  const indptr = new Uint32Array(X.rows + 1);
+  const indices: number[] = [];
+  const data: number[] = [];
+  for (let r = 0; r < X.rows; r++) {
+    const entries = new Map<number, number>([[0, 0.3]]);
+    for (let p = X.indptr[r]!; p < X.indptr[r + 1]!; p++) entries.set(X.indices[p]!, (entries.get(X.indices[p]!) ?? 0) + X.data[p]!);
+    const sorted = [...entries.entries()].sort((a, b) => a[0] - b[0]);
+    const norm = Math.hypot(...sorted.map((e) => e[1]));
+    for (const [t, w] of sorted) {
+      indices.push(t);
+      data.push(w / norm);
+    }
+    indptr[r + 1] = indices.length;
+  }
+  return { rows: X.rows, cols: X.cols, indptr, indices: Uint32Array.from(indices), data: Float64Array.from(data) };
+}
+
+/** Columns to flip one at a time: the term in every row often, and each pick repeated now and then (on, then straight back off). */
+function singleToggles(cols: number, steps: number, random: () => number): number[] {
+  const out: number[] = [];
+  while (out.length < steps) {
+    const u = random();
+    const t = u < 0.25 ? 0 : Math.min(cols - 1, Math.floor(cols * u * u));
+    out.push(t);
+    if (random() < 0.3) out.push(t);
+  }
+  return out;
+}
+
 describe('incremental what-if', () => {
   it('IncrementalTermSums.at equals maskedTermSums after every step of random toggle sequences', () => {
     for (let seed = 1; seed <= 6; seed++) {
@@ -112,13 +152,8 @@ describe('incremental what-if', () => {
       const sums = new IncrementalTermSums(X);
       let incremental = 0;
       for (const mask of toggleSequence(X.cols, 80, random)) {
-        const got = sums.at(mask);
+        assertSumsMatch(sums.at(mask), X, mask);
         if (sums.lastStep.kind === 'incremental') incremental++;
-        const want = maskedTermSums(X, mask, false);
-        assert.equal(got.rowsWithWeight, want.rowsWithWeight);
-        assert.deepEqual([...got.sums.df], [...want.sums.df]);
-        assertClose(got.sums.s1, want.sums.s1, 's1');
-        assertClose(got.sums.s2, want.sums.s2, 's2');
       }
       // Otherwise the test would only exercise the full pass.
       assert.ok(incremental > 20, `only ${incremental} incremental steps`);
@@ -143,6 +178,43 @@ describe('incremental what-if', () => {
         }
       }
       assert.ok(incremental > 20, `only ${incremental} incremental steps`);
+    }
+  });
+
+  it('IncrementalTermSums.at: one term toggled at a time (a panel click), the same term twice, a term in every row', () => {
+    for (let seed = 1; seed <= 4; seed++) {
+      const random = generator(500 + seed);
+      const X = everywhere(textLikeRows(400, 60, random));
+      const sums = new IncrementalTermSums(X);
+      const mask = new Uint8Array(X.cols);
+      sums.at(mask, false);
+      let incremental = 0;
+      for (const t of singleToggles(X.cols, 60, random)) {
+        mask[t] = mask[t] === 0 ? 1 : 0;
+        assertSumsMatch(sums.at(mask), X, mask);
+        if (sums.lastStep.kind === 'incremental') incremental++;
+      }
+      assert.ok(incremental > 20, `only ${incremental} incremental steps`);
+    }
+  });
+
+  it('DistanceLab.whatIf (a panel toggle) equals the full measures along single toggles, repeats and a term in every row', () => {
+    for (let seed = 1; seed <= 3; seed++) {
+      const random = generator(2000 + seed);
+      const X = everywhere(textLikeRows(500, 40, random));
+      const sample = Uint32Array.from({ length: 100 }, (_, i) => i * 5);
+      const labels = Int32Array.from(sample, () => Math.floor(random() * 3));
+      const k = 5;
+      const lab = new DistanceLab(X, sample, k, seed, labels);
+      const reference = new DistanceLab(X, sample, k, seed, labels);
+      const mask = new Uint8Array(X.cols);
+      const baseline = lab.measure(mask, null);
+      for (const t of singleToggles(X.cols, 30, random)) {
+        mask[t] = mask[t] === 0 ? 1 : 0;
+        const got = lab.whatIf(mask, baseline.neighbors);
+        const want = reference.measure(mask, baseline.neighbors).measures;
+        assertClose(got, want, 'measures');
+      }
     }
   });
 

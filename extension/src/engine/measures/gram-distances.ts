@@ -26,18 +26,27 @@ export const SAME_POINT = 1e-12;
 
 /** Overwrites the Gram matrix with distances (the diagonal becomes 0) and returns it. */
 export function distancesFromGram(gram: Float64Array, m: number): Float64Array {
-  const norms = new Float64Array(m);
-  for (let i = 0; i < m; i++) norms[i] = gram[i * m + i];
-  for (let i = 0; i < m; i++) {
-    const base = i * m;
-    const ni = norms[i];
-    for (let j = 0; j < m; j++) {
-      const sq = ni + norms[j] - 2 * gram[base + j];
-      // Identical rows give ±1e-16 from rounding, and its square root (1e-8) would be noise that
-      // ratio measures (TwoNN's r2/r1) blow up; below SAME_POINT they are the same point.
-      gram[base + j] = sq > SAME_POINT * (ni + norms[j]) ? Math.sqrt(sq) : 0;
-    }
-    gram[base + i] = 0;
-  }
+  const norms = diagonalOf(gram, m);
+  for (let i = 0; i < m; i++) rowToDistances(gram, i, m, norms);
   return gram;
+}
+
+/** The diagonal of an m×m matrix (the squared norms, before rows become distances). */
+export function diagonalOf(gram: Float64Array, m: number): Float64Array {
+  const norms = new Float64Array(m);
+  for (let i = 0; i < m; i++) norms[i] = gram[i * m + i]!;
+  return norms;
+}
+
+/** Row i of the Gram matrix turned into distances in place (see distancesFromGram). */
+export function rowToDistances(gram: Float64Array, i: number, m: number, norms: Float64Array): void {
+  const base = i * m;
+  const ni = norms[i]!;
+  for (let j = 0; j < m; j++) {
+    const sq = ni + norms[j]! - 2 * gram[base + j]!;
+    // Identical rows give ±1e-16 from rounding, and its square root (1e-8) would be noise that
+    // ratio measures (TwoNN's r2/r1) blow up; below SAME_POINT they are the same point.
+    gram[base + j] = sq > SAME_POINT * (ni + norms[j]!) ? Math.sqrt(sq) : 0;
+  }
+  gram[base + i] = 0;
 }

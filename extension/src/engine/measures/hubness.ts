@@ -24,27 +24,42 @@ export function kOccurrence(neighbors: Uint32Array, m: number, k: number): Uint3
  */
 export function tieAwareKOccurrence(gram: Float64Array, m: number, k: number, neighbors: Uint32Array, neighborSims: Float64Array, valid: Uint8Array): Float64Array {
   const counts = new Float64Array(m);
-  for (let i = 0; i < m; i++) {
-    let filled = 0;
-    while (filled < k && neighbors[i * k + filled] !== NO_NEIGHBOR) filled++;
-    if (filled === 0) continue;
-    const last = neighborSims[i * k + filled - 1]!;
-    const tol = TIE_TOLERANCE * Math.max(1, Math.abs(last));
-    const tied = (s: number): boolean => Math.abs(s - last) <= tol;
-    let firm = 0; // list entries clearly better than the last one: always neighbours
-    for (let r = 0; r < filled; r++) {
-      const j = neighbors[i * k + r]!;
-      if (tied(neighborSims[i * k + r]!)) continue;
-      counts[j] += 1;
-      firm++;
-    }
-    const slots = filled - firm;
-    let group = 0;
-    for (let j = 0; j < m; j++) if (j !== i && valid[j] && tied(gram[i * m + j]!)) group++;
-    const share = slots / Math.max(group, slots);
-    for (let j = 0; j < m; j++) if (j !== i && valid[j] && tied(gram[i * m + j]!)) counts[j] += share;
-  }
+  const tied = new Uint32Array(m);
+  for (let i = 0; i < m; i++) addKOccurrenceOfRow(gram, i, m, k, neighbors, neighborSims, valid, counts, tied);
   return counts;
+}
+
+/** Row i's share of N_k (see tieAwareKOccurrence) added to `counts`; `tied` is m entries of scratch. */
+export function addKOccurrenceOfRow(
+  gram: Float64Array,
+  i: number,
+  m: number,
+  k: number,
+  neighbors: Uint32Array,
+  neighborSims: Float64Array,
+  valid: Uint8Array,
+  counts: Float64Array,
+  tied: Uint32Array,
+): void {
+  let filled = 0;
+  while (filled < k && neighbors[i * k + filled] !== NO_NEIGHBOR) filled++;
+  if (filled === 0) return;
+  const last = neighborSims[i * k + filled - 1]!;
+  const tol = TIE_TOLERANCE * Math.max(1, Math.abs(last));
+  let firm = 0; // list entries clearly better than the last one: always neighbours
+  for (let r = 0; r < filled; r++) {
+    const j = neighbors[i * k + r]!;
+    if (Math.abs(neighborSims[i * k + r]! - last) <= tol) continue;
+    counts[j] += 1;
+    firm++;
+  }
+  const slots = filled - firm;
+  // One pass over the row collects the tied candidates.
+  let group = 0;
+  const base = i * m;
+  for (let j = 0; j < m; j++) if (j !== i && valid[j] && Math.abs(gram[base + j]! - last) <= tol) tied[group++] = j;
+  const share = slots / Math.max(group, slots);
+  for (let g = 0; g < group; g++) counts[tied[g]!] += share;
 }
 
 export interface HubnessSummary {

@@ -42,34 +42,52 @@ export const TIE_TOLERANCE = 1e-12;
 function selectNearest(values: Float64Array, m: number, k: number, valid: Uint8Array): KnnLists {
   if (!Number.isInteger(k) || k < 1) throw new RangeError(`k must be a positive integer, got ${k}`);
   if (values.length !== m * m) throw new RangeError(`expected an ${m}×${m} matrix, got ${values.length} entries`);
-  const neighbors = new Uint32Array(m * k).fill(NO_NEIGHBOR);
-  const out = new Float64Array(m * k).fill(NaN);
-  const bestScore = new Float64Array(k);
-  const bestPos = new Uint32Array(k);
-  for (let i = 0; i < m; i++) {
-    if (!valid[i]) continue;
-    let filled = 0;
-    const base = i * m;
-    for (let j = 0; j < m; j++) {
-      if (j === i || !valid[j]) continue;
-      const s = values[base + j];
-      if (filled === k && !(s > clearlyAbove(bestScore[k - 1]))) continue;
-      // Shift clearly worse entries down; equal scores stay ahead (lower position wins).
-      let slot = filled < k ? filled++ : k - 1;
-      while (slot > 0 && s > clearlyAbove(bestScore[slot - 1])) {
-        bestScore[slot] = bestScore[slot - 1];
-        bestPos[slot] = bestPos[slot - 1];
-        slot--;
-      }
-      bestScore[slot] = s;
-      bestPos[slot] = j;
+  const lists = emptyKnnLists(m, k);
+  const best = nearestScratch(k);
+  for (let i = 0; i < m; i++) if (valid[i]) nearestOfRow(values, i, m, k, valid, lists, best);
+  return lists;
+}
+
+/** m×k lists with no neighbour anywhere yet. */
+export function emptyKnnLists(m: number, k: number): KnnLists {
+  return { neighbors: new Uint32Array(m * k).fill(NO_NEIGHBOR), sims: new Float64Array(m * k).fill(NaN) };
+}
+
+/** Working space of nearestOfRow for one k. */
+export function nearestScratch(k: number): { score: Float64Array; pos: Uint32Array } {
+  return { score: new Float64Array(k), pos: new Uint32Array(k) };
+}
+
+/**
+ * Row i's k nearest (the rule of knnFromSimilarities) written into `lists`; the row's other
+ * measures (engine/measures/measure-sample-rows.ts) run on the same row while it is in cache.
+ */
+export function nearestOfRow(values: Float64Array, i: number, m: number, k: number, valid: Uint8Array, lists: KnnLists, best: { score: Float64Array; pos: Uint32Array }): void {
+  const bestScore = best.score;
+  const bestPos = best.pos;
+  let filled = 0;
+  // What a candidate must beat once the list is full (kept, not recomputed per candidate).
+  let bar = -Infinity;
+  const base = i * m;
+  for (let j = 0; j < m; j++) {
+    if (j === i || !valid[j]) continue;
+    const s = values[base + j]!;
+    if (filled === k && !(s > bar)) continue;
+    // Shift clearly worse entries down; equal scores stay ahead (lower position wins).
+    let slot = filled < k ? filled++ : k - 1;
+    while (slot > 0 && s > clearlyAbove(bestScore[slot - 1]!)) {
+      bestScore[slot] = bestScore[slot - 1]!;
+      bestPos[slot] = bestPos[slot - 1]!;
+      slot--;
     }
-    for (let r = 0; r < filled; r++) {
-      neighbors[i * k + r] = bestPos[r];
-      out[i * k + r] = bestScore[r];
-    }
+    bestScore[slot] = s;
+    bestPos[slot] = j;
+    if (filled === k) bar = clearlyAbove(bestScore[k - 1]!);
   }
-  return { neighbors, sims: out };
+  for (let r = 0; r < filled; r++) {
+    lists.neighbors[i * k + r] = bestPos[r]!;
+    lists.sims[i * k + r] = bestScore[r]!;
+  }
 }
 
 /** The least score that beats `score` rather than ties with it. */

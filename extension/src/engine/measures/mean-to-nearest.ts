@@ -8,27 +8,43 @@
  * null when fewer than one valid query with a valid partner exists or every D_min is 0.
  */
 export function meanToNearest(dist: Float64Array, m: number, valid: Uint8Array): number | null {
-  let sumMean = 0;
-  let sumMin = 0;
-  let queries = 0;
-  for (let i = 0; i < m; i++) {
-    if (!valid[i]) continue;
-    let dMin = Infinity;
-    let sum = 0;
-    let count = 0;
-    const base = i * m;
-    for (let j = 0; j < m; j++) {
-      if (j === i || !valid[j]) continue;
-      const d = dist[base + j];
-      sum += d;
-      count++;
-      if (d < dMin) dMin = d;
-    }
-    if (count === 0) continue;
-    sumMean += sum / count;
-    sumMin += dMin;
-    queries++;
+  const acc = meanToNearestSums();
+  for (let i = 0; i < m; i++) addMeanToNearestRow(dist, i, m, valid, acc);
+  return meanToNearestOf(acc);
+}
+
+/** Running sums of meanToNearest over queries. */
+export interface MeanToNearestSums {
+  sumMean: number;
+  sumMin: number;
+  queries: number;
+}
+
+export function meanToNearestSums(): MeanToNearestSums {
+  return { sumMean: 0, sumMin: 0, queries: 0 };
+}
+
+/** Adds query i's mean and nearest distance (rows in order, so the sums are summed as in one loop). */
+export function addMeanToNearestRow(dist: Float64Array, i: number, m: number, valid: Uint8Array, acc: MeanToNearestSums): void {
+  if (!valid[i]) return;
+  let dMin = Infinity;
+  let sum = 0;
+  let count = 0;
+  const base = i * m;
+  for (let j = 0; j < m; j++) {
+    if (j === i || !valid[j]) continue;
+    const d = dist[base + j]!;
+    sum += d;
+    count++;
+    if (d < dMin) dMin = d;
   }
-  if (queries === 0 || !(sumMin > 0)) return null;
-  return sumMean / sumMin;
+  if (count === 0) return;
+  acc.sumMean += sum / count;
+  acc.sumMin += dMin;
+  acc.queries++;
+}
+
+export function meanToNearestOf(acc: MeanToNearestSums): number | null {
+  if (acc.queries === 0 || !(acc.sumMin > 0)) return null;
+  return acc.sumMean / acc.sumMin;
 }

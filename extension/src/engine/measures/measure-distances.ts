@@ -1,20 +1,14 @@
 import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
-import { distancesFromGram, validRowsFromGram } from './gram-distances';
-import { hubnessSummary, kOccurrenceHistogram, tieAwareKOccurrence, topHubPositions } from './hubness';
-import { iidEquivalentDimension } from './iid-equivalent-dimension';
-import { knnFromSimilarities, neighborDistances } from './knn';
+import { validRowsFromGram } from './gram-distances';
+import { hubnessSummary, kOccurrenceHistogram, topHubPositions } from './hubness';
 import { knnTermMass } from './knn-term-mass';
 import { labelPrecisionAtK } from './label-precision';
-import { meanToNearest } from './mean-to-nearest';
+import { measureSampleRows } from './measure-sample-rows';
 import { mleDimension } from './mle-dimension';
-import { neighborStandout } from './neighbor-standout';
 import { neighborTurnover } from './neighbor-turnover';
-import { radiusSlack } from './radius-slack';
-import { relativeContrast } from './relative-contrast';
 import { sampleSimilarities } from './sample-similarity';
-import { similarityHistograms } from './similarity-histograms';
 import { cumulativeMassShare, pairMass, termSums, type PairMass, type TermSums } from './term-sums';
 import { twoNN } from './two-nn';
 
@@ -73,60 +67,88 @@ export interface MeasureDistancesResult {
  * in place once the similarity-based measures are done, so peak memory is one m×m array.
  */
 export function measureDistances(X: Csr, options: MeasureDistancesOptions): MeasureDistancesResult {
-  const { sample, k, seed, labels, baselineNeighbors } = options;
-  const m = sample.length;
+  const { sample, k } = options;
+  if (options.gram !== undefined && options.gram.length !== sample.length * sample.length) {
+    throw new RangeError(`measureDistances: gram is not ${sample.length}×${sample.length}`);
+  }
+  const core = measuresFromGram({
+    ...options,
+    sums: options.sums ?? termSums(X),
+    rowsWithWeight: options.rowsWithWeight ?? rowsWithWeight(X),
+    gram: options.gram ?? sampleSimilarities(X, sample),
+    rowOf: (i) => sample[i]!,
+  });
+  return {
+    ...core,
+    hubPositions: topHubPositions(core.kOccurrence, TOP_HUBS),
+    termKnnMass: knnTermMass(X, sample, core.neighbors, k),
+  };
+}
+
+export interface MeasuresFromGramOptions {
+  k: number;
+  seed: number;
+  labels: Int32Array | null;
+  baselineNeighbors: Uint32Array | null;
+  /** Exact term sums of the whole (masked) corpus, and its rows with any weight. */
+  sums: TermSums;
+  rowsWithWeight: number;
+  /** The sample's m×m cosines; overwritten with distances. */
+  gram: Float64Array;
+  /** The document behind sample position i, for error messages. */
+  rowOf?: (i: number) => number;
+}
+
+export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions' | 'termKnnMass'>;
+
+/**
+ * The Measures from exact sums and the sample's cosines alone: what the panel's what-if needs
+ * per toggle (its sums and cosines are kept up to date by engine/what-if/), without the per-term
+ * k-NN mass and hub list that only the Report's suggestions use. measureDistances adds those.
+ */
+export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFromGramResult {
+  const { k, seed, labels, baselineNeighbors, gram } = options;
+  const m = Math.round(Math.sqrt(gram.length));
+  if (m * m !== gram.length) throw new RangeError(`measuresFromGram: gram of ${gram.length} entries is not square`);
   if (!Number.isInteger(k) || k < 1) throw new RangeError(`measureDistances: k must be a positive integer, got ${k}`);
   if (labels !== null && labels.length !== m) throw new RangeError(`measureDistances: ${labels.length} labels for a sample of ${m}`);
   if (baselineNeighbors !== null && baselineNeighbors.length !== m * k) {
     throw new RangeError(`measureDistances: baseline neighbours are not ${m}×${k}`);
   }
 
-  const sums = options.sums ?? termSums(X);
-  const mass = pairMass(sums, options.rowsWithWeight ?? rowsWithWeight(X));
-
-  if (options.gram !== undefined && options.gram.length !== m * m) throw new RangeError(`measureDistances: gram is not ${m}×${m}`);
-  const gram = options.gram ?? sampleSimilarities(X, sample);
+  const mass = pairMass(options.sums, options.rowsWithWeight);
   const valid = validRowsFromGram(gram, m);
   for (let i = 0; i < m; i++) {
     const sq = gram[i * m + i];
     if (valid[i] && Math.abs(sq - 1) > UNIT_TOLERANCE) {
-      throw new RangeError(`measureDistances: row ${sample[i]} has squared norm ${sq}; rows must be l2-normalised`);
+      const row = options.rowOf?.(i) ?? i;
+      throw new RangeError(`measureDistances: row ${row} has squared norm ${sq}; rows must be l2-normalised`);
     }
   }
 
-  const knn = knnFromSimilarities(gram, m, k, valid);
-  const nearest = new Float64Array(m);
-  for (let i = 0; i < m; i++) nearest[i] = knn.sims[i * k];
-  const standout = neighborStandout(gram, m, valid, nearest);
-  const similarity = similarityHistograms(gram, m, valid, nearest);
-
-  // Ties at the k-th place share their slots (all-identical documents are no hubs): safety hook.
-  const counts = tieAwareKOccurrence(gram, m, k, knn.neighbors, knn.sims, valid);
+  const rows = measureSampleRows(gram, m, k, valid);
+  const { knn, kOccurrence: counts } = rows;
   const hubness = hubnessSummary(counts, valid, k);
-  const termKnnMass = knnTermMass(X, sample, knn.neighbors, k);
 
   // One sort of the term masses serves the chart and both top-term shares.
   const cumulativeMass = cumulativeMassShare(mass.perTerm, mass.total, CUMULATIVE_MASS_TERMS);
   const shareOfTop = (count: number) => (cumulativeMass.length === 0 ? 0 : cumulativeMass[Math.min(count, cumulativeMass.length) - 1]);
 
-  const dist = distancesFromGram(gram, m);
-  const nnDist = neighborDistances(dist, m, knn.neighbors, k);
-
   const measures: Measures = {
     sample: { documents: m, k, seed },
     backgroundSimilarity: mass.backgroundSimilarity,
-    neighborStandout: standout,
-    contrast: relativeContrast(dist, m, valid),
-    meanToNearest: meanToNearest(dist, m, valid),
-    iidEquivalentDimension: iidEquivalentDimension(dist, m, valid),
+    neighborStandout: rows.standout,
+    contrast: rows.contrast,
+    meanToNearest: rows.meanToNearest,
+    iidEquivalentDimension: rows.iidEquivalentDimension,
     hubness,
-    intrinsicDimension: { twoNN: twoNN(nnDist, m, k), mle: mleDimension(nnDist, m, k) },
-    radiusSlack: radiusSlack(dist, m, valid, k),
+    intrinsicDimension: { twoNN: twoNN(rows.nnDist, m, k), mle: mleDimension(rows.nnDist, m, k) },
+    radiusSlack: rows.radiusSlack,
     topTermsMassShare: { top10: shareOfTop(10), top100: shareOfTop(100) },
     labelPrecisionAtK: labels === null ? null : labelPrecisionAtK(knn.neighbors, labels, k),
     neighborTurnover: baselineNeighbors === null ? null : neighborTurnover(baselineNeighbors, knn.neighbors, m, k),
     distributions: {
-      similarity,
+      similarity: rows.similarity,
       // Bins 0..3k: the mean is k, and anything past 3k is a hub by any reading.
       kOccurrence: kOccurrenceHistogram(counts, valid, 3 * k),
       cumulativeMass,
@@ -138,9 +160,6 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
     neighbors: knn.neighbors,
     neighborSims: knn.sims,
     kOccurrence: counts,
-    hubPositions: topHubPositions(counts, TOP_HUBS),
-    termKnnMass,
     pairMass: mass,
   };
 }
-

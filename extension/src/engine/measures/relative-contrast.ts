@@ -17,25 +17,32 @@ export interface ContrastSummary {
  */
 export function relativeContrastPerQuery(dist: Float64Array, m: number, valid: Uint8Array): Float64Array {
   const rc = new Float64Array(m).fill(NaN);
-  for (let i = 0; i < m; i++) {
-    if (!valid[i]) continue;
-    let dMin = Infinity;
-    let dMax = -Infinity;
-    const base = i * m;
-    for (let j = 0; j < m; j++) {
-      if (j === i || !valid[j]) continue;
-      const d = dist[base + j];
-      if (d < dMin) dMin = d;
-      if (d > dMax) dMax = d;
-    }
-    if (dMin > 0 && dMin < Infinity) rc[i] = (dMax - dMin) / dMin;
-  }
+  for (let i = 0; i < m; i++) rc[i] = contrastOfRow(dist, i, m, valid);
   return rc;
+}
+
+/** Row i's RC (NaN where left out, see relativeContrastPerQuery). */
+export function contrastOfRow(dist: Float64Array, i: number, m: number, valid: Uint8Array): number {
+  if (!valid[i]) return NaN;
+  let dMin = Infinity;
+  let dMax = -Infinity;
+  const base = i * m;
+  for (let j = 0; j < m; j++) {
+    if (j === i || !valid[j]) continue;
+    const d = dist[base + j]!;
+    if (d < dMin) dMin = d;
+    if (d > dMax) dMax = d;
+  }
+  return dMin > 0 && dMin < Infinity ? (dMax - dMin) / dMin : NaN;
 }
 
 /** Median, 10th and 90th percentile of RC over the queries that have one; null if none. */
 export function relativeContrast(dist: Float64Array, m: number, valid: Uint8Array): ContrastSummary | null {
-  const perQuery = relativeContrastPerQuery(dist, m, valid);
+  return contrastSummary(relativeContrastPerQuery(dist, m, valid));
+}
+
+/** The summary of per-query RC values (NaN = none). */
+export function contrastSummary(perQuery: Float64Array): ContrastSummary | null {
   const kept = perQuery.filter((v) => !Number.isNaN(v)).sort();
   if (kept.length === 0) return null;
   return { median: quantileSorted(kept, 0.5), p10: quantileSorted(kept, 0.1), p90: quantileSorted(kept, 0.9) };

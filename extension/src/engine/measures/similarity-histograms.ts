@@ -22,17 +22,23 @@ export function similarityHistograms(sims: Float64Array, m: number, valid: Uint8
   const counts = new Float64Array(bins);
   for (let i = 0; i < m; i++) {
     if (!valid[i]) continue;
-    const base = i * m;
-    for (let j = i + 1; j < m; j++) {
-      if (valid[j]) counts[binOf(sims[base + j], bins)]++;
-    }
+    binPairsOfRow(sims, i, m, valid, counts);
     if (!Number.isNaN(nearest[i])) near[binOf(nearest[i], bins)]++;
   }
   for (let b = 0; b < bins; b++) pairs[b] = counts[b];
   return { start: 0, binWidth: 1 / bins, pairs, nearest: near };
 }
 
-function binOf(s: number, bins: number): number {
+/** Adds row i's pairs with the rows after it (each unordered pair once) to `counts` (its length = bins). */
+export function binPairsOfRow(sims: Float64Array, i: number, m: number, valid: Uint8Array, counts: Float64Array): void {
+  const bins = counts.length;
+  const base = i * m;
+  for (let j = i + 1; j < m; j++) {
+    if (valid[j]) counts[binOf(sims[base + j]!, bins)]++;
+  }
+}
+
+export function binOf(s: number, bins: number): number {
   const b = Math.floor(s * bins);
   return b < 0 ? 0 : b >= bins ? bins - 1 : b;
 }

@@ -102,7 +102,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     report,
     whatIf(removed: readonly string[]) {
       const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
-      return lab.measureIncrementally(mask, baseline.neighbors).measures;
+      return lab.whatIf(mask, baseline.neighbors);
     },
     prepareWhatIf() {
       lab.prepareToggles();

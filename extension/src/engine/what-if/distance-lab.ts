@@ -2,7 +2,8 @@ import type { Csr } from '../matrix/csr';
 import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
 import { selectRows } from '../matrix/select-rows';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
-import { measureDistances } from '../measures/measure-distances';
+import { measureDistances, measuresFromGram } from '../measures/measure-distances';
+import type { Measures } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { termSums } from '../measures/term-sums';
 import { IncrementalGram } from './incremental-gram';
@@ -85,6 +86,17 @@ export class DistanceLab {
    */
   measureIncrementally(removed: Uint8Array, baselineNeighbors: Uint32Array | null): DistanceResult {
     return this.measureFrom(removed, baselineNeighbors, true);
+  }
+
+  /**
+   * The panel's toggle: the Measures alone (no per-term k-NN mass, no hub list), reached from
+   * the previous call's state like measureIncrementally and equal to `measure(removed).measures`
+   * to ~1e-12. The masked sample is never written: the kept cosines are all it needs.
+   */
+  whatIf(removed: Uint8Array, baselineNeighbors: Uint32Array | null): Measures {
+    const { sums, rowsWithWeight } = this.exactSums(removed, true);
+    const gram = this.gram.at(removed, true);
+    return measuresFromGram({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, sums, rowsWithWeight, gram }).measures;
   }
 
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {

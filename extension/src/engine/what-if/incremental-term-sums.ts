@@ -99,6 +99,7 @@ export class IncrementalTermSums {
         for (const t of changed) rowsTouched += postings.start[t + 1]! - postings.start[t]!;
         const estimate = rowsTouched * (nnz / Math.max(1, X.rows));
         if (estimate >= nnz || this.updatedEntries + estimate > REBUILD_AFTER * nnz) this.full(removed);
+        else if (changed.length === 1) this.updateOne(changed[0]!, removed);
         else this.update(changed, removed);
       }
     }
@@ -131,7 +132,7 @@ export class IncrementalTermSums {
 
   private update(changed: number[], removed: Uint8Array): void {
     const { indptr, indices, data } = this.weights;
-    const { s1, s2, df, mask } = this;
+    const { mask } = this;
     const postings = this.columnPostings();
     if (++this.stamp === 0xffffffff) {
       this.rowStamp.fill(0);
@@ -162,28 +163,7 @@ export class IncrementalTermSums {
           const w = data[p]!;
           if (w === 0) continue;
           const u = indices[p]!;
-          const before = wasKept && mask[u] === 0;
-          const after = isKept && removed[u] === 0;
-          if (before && after) {
-            const xo = w * invOld;
-            const xn = w * invNew;
-            s1[u] += xn - xo;
-            s2[u] += xn * xn - xo * xo;
-          } else if (before) {
-            if (--df[u] === 0) {
-              s1[u] = 0;
-              s2[u] = 0;
-            } else {
-              const xo = w * invOld;
-              s1[u] -= xo;
-              s2[u] -= xo * xo;
-            }
-          } else if (after) {
-            const xn = w * invNew;
-            df[u]++;
-            s1[u] += xn;
-            s2[u] += xn * xn;
-          }
+          this.move(u, w, wasKept && mask[u] === 0, isKept && removed[u] === 0, invOld, invNew);
         }
       }
     }
@@ -191,6 +171,82 @@ export class IncrementalTermSums {
     this.updatedEntries += entries;
     this.exact = false;
     this.lastStep = { kind: 'incremental', entries };
+  }
+
+  /**
+   * One toggled term, the panel's usual click: a row holding t gets its new kept norm from the
+   * old one ± w_t² (w_t found by a binary search of the row's sorted columns) instead of a pass
+   * over the row, and one pass then moves its other kept terms to the new scale. Where stopping
+   * t removes more than half of a row's kept norm the subtraction would lose digits, so that
+   * row's norm is summed afresh, as is one that empties (its norm must be exactly 0).
+   */
+  private updateOne(t: number, removed: Uint8Array): void {
+    const { indptr, indices, data } = this.weights;
+    const { mask, rowNorm2 } = this;
+    const postings = this.columnPostings();
+    const stopping = removed[t] !== 0;
+    let entries = 0;
+    for (let q = postings.start[t]!, qEnd = postings.start[t + 1]!; q < qEnd; q++) {
+      const r = postings.rows[q]!;
+      const start = indptr[r]!;
+      const end = indptr[r + 1]!;
+      entries += end - start;
+      const at = columnIn(indices, start, end, t);
+      const wt = data[at]!;
+      if (wt === 0) continue;
+      const oldNorm2 = rowNorm2[r]!;
+      let norm2 = stopping ? oldNorm2 - wt * wt : oldNorm2 + wt * wt;
+      if (stopping && !(norm2 > 0.5 * oldNorm2)) {
+        norm2 = 0;
+        for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
+      }
+      rowNorm2[r] = norm2;
+      const wasKept = oldNorm2 > 0;
+      const isKept = norm2 > 0;
+      this.rowsWithWeight += (isKept ? 1 : 0) - (wasKept ? 1 : 0);
+      const invOld = wasKept ? 1 / Math.sqrt(oldNorm2) : 0;
+      const invNew = isKept ? 1 / Math.sqrt(norm2) : 0;
+      // t itself comes or goes; every other kept term of the row moves to the new scale.
+      for (let p = start; p < end; p++) {
+        const u = indices[p]!;
+        const w = data[p]!;
+        if (w === 0) continue;
+        if (u === t) this.move(u, w, stopping, !stopping && isKept, invOld, invNew);
+        else if (mask[u] === 0) this.move(u, w, wasKept, isKept, invOld, invNew);
+      }
+    }
+    mask[t] = stopping ? 1 : 0;
+    this.updatedEntries += entries;
+    this.exact = false;
+    this.lastStep = { kind: 'incremental', entries };
+  }
+
+  /**
+   * Swaps one entry's old contribution (weight w at scale invOld, if `before` it counted) for its
+   * new one (at invNew, if `after`): kept terms move by the difference, toggled ones come or go.
+   */
+  private move(u: number, w: number, before: boolean, after: boolean, invOld: number, invNew: number): void {
+    const { s1, s2, df } = this;
+    if (before && after) {
+      const xo = w * invOld;
+      const xn = w * invNew;
+      s1[u] += xn - xo;
+      s2[u] += xn * xn - xo * xo;
+    } else if (before) {
+      if (--df[u] === 0) {
+        s1[u] = 0;
+        s2[u] = 0;
+      } else {
+        const xo = w * invOld;
+        s1[u] -= xo;
+        s2[u] -= xo * xo;
+      }
+    } else if (after) {
+      const xn = w * invNew;
+      df[u]++;
+      s1[u] += xn;
+      s2[u] += xn * xn;
+    }
   }
 
   /** Adds one row's kept weights, scaled, to the sums. */
@@ -223,6 +279,18 @@ export class IncrementalTermSums {
 
 /** Incremental updates may visit this many times nnz entries before one full pass resets drift. */
 const REBUILD_AFTER = 16;
+
+/** Position of column t in a row's ascending columns indices[start..end) (t must be there). */
+function columnIn(indices: Uint32Array, start: number, end: number, t: number): number {
+  let lo = start;
+  let hi = end - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (indices[mid]! < t) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
 
 /** Whether two column masks stop the same columns (the first `b.length` of `a`). */
 export function sameMask(a: Uint8Array, b: Uint8Array): boolean {
