@@ -181,8 +181,10 @@ class CountAccumulator {
     const indptr = new Uint32Array(rows + 1);
     const indices = new Uint32Array(this.nonzeros);
     const data = new Float64Array(this.nonzeros);
-    // Each row: write the new column ids, sort them natively, then gather the counts through a
-    // scratch indexed by column (all of a row's columns are distinct).
+    // Each row: write the new column ids with their counts, then sort the pair by column. Rows of
+    // text are short (~100 distinct terms), where an insertion sort of the two arrays together is
+    // ~2× faster than a native sort of a subarray (which allocates a view per row); a long row is
+    // sorted natively and its counts gathered through a scratch indexed by column.
     const scratch = new Uint32Array(cols);
     let r = 0;
     let at = 0;
@@ -194,18 +196,37 @@ class CountAccumulator {
       let k = 0;
       for (let d = 0; d < rowEnds.length; d++) {
         const s = at;
-        for (const end = rowEnds[d]!; k < end; k++) {
-          const c = rank[partCols[k]!]!;
-          indices[at++] = c;
-          scratch[c] = counts[k]!;
+        const end = rowEnds[d]!;
+        if (end - k <= SHORT_ROW) {
+          for (; k < end; k++) {
+            const c = rank[partCols[k]!]!;
+            const v = counts[k]!;
+            let j = at++;
+            while (j > s && indices[j - 1]! > c) {
+              indices[j] = indices[j - 1]!;
+              data[j] = data[j - 1]!;
+              j--;
+            }
+            indices[j] = c;
+            data[j] = v;
+          }
+        } else {
+          for (; k < end; k++) {
+            const c = rank[partCols[k]!]!;
+            indices[at++] = c;
+            scratch[c] = counts[k]!;
+          }
+          indices.subarray(s, at).sort();
+          for (let e = s; e < at; e++) data[e] = scratch[indices[e]!]!;
         }
-        if (at - s > 1) indices.subarray(s, at).sort();
-        for (let e = s; e < at; e++) data[e] = scratch[indices[e]!]!;
         indptr[++r] = at;
       }
     }
     return { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() };
   }
 }
+
+/** Rows up to this many distinct terms are sorted by insertion (see `finish`). */
+const SHORT_ROW = 128;
 
 const EMPTY_PART = { rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };

@@ -65,6 +65,12 @@ export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneRes
     }
   }
 
+  const unusedStopTerms: string[] = [];
+  for (const t of options.stopTerms) if (!seen.has(t)) unusedStopTerms.push(t);
+  if (terms.length === counts.cols) {
+    // Nothing dropped (the default bounds keep every term): the matrix as it is, not a copy.
+    return { counts, prunedByDf, stopped, unusedStopTerms };
+  }
   let kept = 0;
   for (let k = 0; k < total; k++) if (newCol[counts.indices[k]] >= 0) kept++;
   const indptr = new Uint32Array(n + 1);
@@ -80,8 +86,6 @@ export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneRes
     }
     indptr[r + 1] = at;
   }
-  const unusedStopTerms: string[] = [];
-  for (const t of options.stopTerms) if (!seen.has(t)) unusedStopTerms.push(t);
   return {
     counts: { rows: n, cols: terms.length, indptr, indices, data, terms, tokensPerDoc: counts.tokensPerDoc },
     prunedByDf,

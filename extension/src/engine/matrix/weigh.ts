@@ -40,10 +40,14 @@ export function weighWithIdf(counts: Csr, idf: Float64Array, weighting: Weightin
   const total = counts.indptr[n];
   const data = new Float64Array(total);
   const tf = weighting.tf;
-  for (let k = 0; k < total; k++) {
-    const c = counts.data[k];
-    const t = c === 0 ? 0 : tf === 'raw' ? c : tf === 'sublinear' ? 1 + Math.log(c) : 1;
-    data[k] = t * idf[counts.indices[k]];
+  const { data: c, indices } = counts;
+  // One loop per tf kind, so the hot loop does not compare strings per entry.
+  if (tf === 'raw') {
+    for (let k = 0; k < total; k++) data[k] = c[k] * idf[indices[k]];
+  } else if (tf === 'sublinear') {
+    for (let k = 0; k < total; k++) data[k] = (c[k] === 0 ? 0 : 1 + Math.log(c[k])) * idf[indices[k]];
+  } else {
+    for (let k = 0; k < total; k++) data[k] = (c[k] === 0 ? 0 : 1) * idf[indices[k]];
   }
   const weights: Csr = { rows: n, cols: counts.cols, indptr: counts.indptr, indices: counts.indices, data };
   normalizeRows(weights.indptr, data, n, weighting.norm);

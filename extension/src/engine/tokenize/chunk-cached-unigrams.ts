@@ -1,5 +1,5 @@
 import type { WinkMethods } from 'wink-nlp';
-import { ChunkTable, FNV_OFFSET, FNV_PRIME, hashOf } from './chunk-table';
+import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME, hashOf } from './chunk-table';
 import type { IdList } from './id-list';
 import { cutRun, MAX_RUN } from './long-runs';
 import { Vocabulary, type TermCoder } from './term-coder';
@@ -42,9 +42,12 @@ const MULTI = -4; // MULTI - k: the ids in multis[k]
  *    state unchanged. Such a chunk is cached *conditionally*: only when, after its wink run, the
  *    chunk is not a lexeme (`isLexeme`), and the entry is dropped (REDO) as soon as a wink run
  *    emits a token whose text or lowercase (the two strings `cache.add` registers) is the
- *    chunk — the only way a string becomes a lexeme. Misses run after the document's scan, so
- *    a conditional entry met after a miss in the same document is treated as a miss (wink sees
- *    it in order, after whatever the earlier miss makes a lexeme). These are ~13% of the chunks of English
+ *    chunk — the only way a string becomes a lexeme. Misses wait to be run together, so when a
+ *    conditional entry comes after a pending miss that might do that, the misses are run first
+ *    (`flush`) and the entry is looked up again. (A plain word that is no lexeme cannot: wink
+ *    emits it as it is, letters only, and adds it and its lowercase.) When the word and the sign
+ *    are both cached for good, even the first occurrence skips wink (`composeWordRP`, which
+ *    checks that wink would add no lexeme). These are ~13% of the chunks of English
  *    text (every word before a comma or full stop); the rest of wink's categories are either
  *    single tokens (point 3) or go through lookups of their parts (left to wink every time).
  * 5. The chunks not in the cache ("misses") go through one readDoc, joined by single spaces
@@ -74,7 +77,7 @@ export function chunkCachedUnigrams(
   let conditionals = 0;
   // Any document of `nlp` answers isLexeme from the instance's one lexeme cache.
   const lexemes = nlp.readDoc('');
-  const isWordRP = wordRPTest();
+  const { isWord, isWordRP } = categoryTests();
 
   const store = (chunk: string, value: number): void => {
     if (!table.set(chunk, value)) {
@@ -96,7 +99,7 @@ export function chunkCachedUnigrams(
   const remember = (chunk: string, values: readonly string[], from: number, to: number, ids: readonly number[]): void => {
     if (to - from === 1 && values[from] === chunk) {
       store(chunk, ids.length === 1 ? ids[0]! : DROPPED);
-    } else if (isWordRP(chunk) && !lexemes.isLexeme(chunk)) {
+    } else if (isWordRP(chunk) && lexemeEntry(chunk) === null) {
       multis.push(Uint32Array.from(ids));
       conditional.push(true);
       conditionals++;
@@ -117,6 +120,51 @@ export function chunkCachedUnigrams(
       }
     }
   };
+
+  /**
+   * Point 4 without wink: a wordRP chunk whose word and sign are both cached for good is, the
+   * first time too, the word's token then the sign's, provided wink would add nothing: the
+   * chunk is no lexeme, the word and the sign are lexemes that are not contractions (their
+   * cached token came from the lexeme itself, so `_addToken` gives the same one), and the word's
+   * lowercase is a lexeme already. Appends the ids and caches them conditionally; false (nothing
+   * done) when any of that does not hold. Not while a pending miss might change any of it.
+   */
+  const composeWordRP = (text: string, start: number, end: number, out: IdList): boolean => {
+    const chunk = text.slice(start, end);
+    if (!isWordRP(chunk) || lexemeEntry(chunk) !== null) return false;
+    const w = chunk.slice(0, -1);
+    const p = chunk.slice(-1);
+    if (lexemeEntry(w)?.length !== 1 || lexemeEntry(p)?.length !== 1) return false;
+    const word = cachedForGood(w);
+    if (word < 0 && word !== DROPPED) return false;
+    const sign = cachedForGood(p);
+    if (sign < 0 && sign !== DROPPED) return false;
+    const lower = w.toLowerCase();
+    if (lower !== w && lexemeEntry(lower) === null) return false;
+    if (p.toLowerCase() !== p && lexemeEntry(p.toLowerCase()) === null) return false;
+    const ids: number[] = [];
+    if (word >= 0) ids.push(word);
+    if (sign >= 0) ids.push(sign);
+    for (const id of ids) out.push(id);
+    multis.push(Uint32Array.from(ids));
+    conditional.push(true);
+    conditionals++;
+    store(chunk, MULTI - (multis.length - 1));
+    return true;
+  };
+  /**
+   * The table's value for `lexeme` (a string wink already knows), running wink on it alone first
+   * when the table has none: wink's only step for a lexeme is the lookup, so that run changes
+   * nothing in wink and caches it (point 3). A sign such as "." is seldom a chunk of its own.
+   */
+  const cachedForGood = (lexeme: string): number => {
+    const v = table.getKey(lexeme);
+    if (v !== ABSENT) return v;
+    runJoined([lexeme]);
+    return table.getKey(lexeme);
+  };
+  /** wink's `cache.lookup`: null, or [lexeme index], or 4 numbers per part of a contraction. */
+  const lexemeEntry = (text: string): readonly number[] | null => lexemes.isLexeme(text) as unknown as readonly number[] | null;
 
   /** Runs wink once on the chunks joined by single spaces; element k holds chunk k's term ids. */
   const runJoined = (chunks: readonly string[]): number[][] => {
@@ -160,22 +208,60 @@ export function chunkCachedUnigrams(
   const misses: string[] = [];
   const missAt: number[] = [];
   let blankMiss = false;
+  // Pending misses that might make a conditional entry's chunk a lexeme (see `visit`).
+  let unsafeMisses = 0;
   let longRunsCut = 0;
 
   /** Appends the cached ids of text[start, end), or notes it as a miss. */
   const visit = (text: string, start: number, end: number, hash: number, out: IdList): void => {
-    const v = table.get(text, start, end, hash);
+    let v = table.get(text, start, end, hash);
+    if (v <= MULTI && unsafeMisses > 0 && conditional[MULTI - v]) {
+      // An earlier miss of this document may make this chunk a lexeme: wink sees the misses first.
+      flush(out);
+      v = table.get(text, start, end, hash);
+    }
     if (v >= 0) {
       out.push(v);
-    } else if (v <= MULTI && !(misses.length > 0 && conditional[MULTI - v])) {
+    } else if (v <= MULTI) {
       const ids = multis[MULTI - v]!;
       for (let i = 0; i < ids.length; i++) out.push(ids[i]!);
     } else if (v !== DROPPED) {
+      if (v === ABSENT && unsafeMisses === 0 && end - start > 2 && composeWordRP(text, start, end, out)) return;
       const chunk = text.slice(start, end);
       misses.push(chunk);
       missAt.push(out.length);
       if (chunk.trim() === '') blankMiss = true;
+      // A plain word that is no lexeme yet comes out of wink as itself, so it cannot make a
+      // string with a trailing sign a lexeme; anything else might.
+      if (!isWord(chunk) || lexemeEntry(chunk) !== null) unsafeMisses++;
     }
+  };
+
+  /** Runs the pending misses through wink and splices their ids in at their places in `out`. */
+  const flush = (out: IdList): void => {
+    if (misses.length === 0) return;
+    let missIds: number[][];
+    if (blankMiss) {
+      missIds = [];
+      for (const m of misses) missIds.push(runJoined([m])[0]!);
+    } else {
+      missIds = runJoined(misses);
+    }
+    const first = missAt[0]!;
+    const after = out.slice(first);
+    out.length = first;
+    let from = first;
+    for (let k = 0; k < misses.length; k++) {
+      const at = missAt[k]!;
+      for (let j = from; j < at; j++) out.push(after[j - first]!);
+      for (const id of missIds[k]!) out.push(id);
+      from = at;
+    }
+    for (let j = from - first; j < after.length; j++) out.push(after[j]!);
+    misses.length = 0;
+    missAt.length = 0;
+    blankMiss = false;
+    unsafeMisses = 0;
   };
 
   const visitLongRun = (text: string, start: number, end: number, out: IdList): void => {
@@ -184,10 +270,10 @@ export function chunkCachedUnigrams(
   };
 
   const encode = (text: string, out: IdList): void => {
-    const docStart = out.length;
     misses.length = 0;
     missAt.length = 0;
     blankMiss = false;
+    unsafeMisses = 0;
     const n = text.length;
     let i = 0;
     while (i < n) {
@@ -210,26 +296,7 @@ export function chunkCachedUnigrams(
       if (want === OTHER && i - start > MAX_RUN) visitLongRun(text, start, i, out);
       else visit(text, start, i, h, out);
     }
-    if (misses.length === 0) return;
-
-    let missIds: number[][];
-    if (blankMiss) {
-      missIds = [];
-      for (const m of misses) missIds.push(runJoined([m])[0]!);
-    } else {
-      missIds = runJoined(misses);
-    }
-    // Splice the misses' ids in at their places among the hits.
-    const hits = out.slice(docStart);
-    out.length = docStart;
-    let from = 0;
-    for (let k = 0; k < misses.length; k++) {
-      const at = missAt[k]! - docStart;
-      for (let j = from; j < at; j++) out.push(hits[j]!);
-      for (const id of missIds[k]!) out.push(id);
-      from = at;
-    }
-    for (let j = from; j < hits.length; j++) out.push(hits[j]!);
+    flush(out);
   };
 
   return {
@@ -264,20 +331,21 @@ const SPLIT_CLASS: Uint8Array = (() => {
 })();
 
 /**
- * wink's wordRP test (point 4): the model's second category pattern, given that the first
- * (plain letters) does not match. Read from the model so it follows it; null-safe on a model
- * without that layout (then nothing is cached conditionally).
+ * wink's first two category tests (point 4), read from the model so they follow it: a plain
+ * word (letters only) and wordRP (letters then one sign; the first test cannot also match).
+ * When the model does not have that layout, nothing is cached conditionally.
  */
-function wordRPTest(): (chunk: string) => boolean {
+function categoryTests(): { isWord(chunk: string): boolean; isWordRP(chunk: string): boolean } {
+  const none = { isWord: () => false, isWordRP: () => false };
   try {
     const model = require('wink-eng-lite-web-model/dist/languages/cur/models/eng-core-web-model.json') as { trex?: { ltc?: [string, string, number][] } };
     const ltc = model.trex?.ltc;
     // 1 = word, 15 = wordRP in wink-nlp 2.4's categories (src/constants.js is not exported).
-    if (ltc === undefined || ltc.length < 2 || ltc[0]![2] !== 1 || ltc[1]![2] !== 15) return () => false;
+    if (ltc === undefined || ltc.length < 2 || ltc[0]![2] !== 1 || ltc[1]![2] !== 15) return none;
     const word = new RegExp(ltc[0]![0], ltc[0]![1]);
     const wordRP = new RegExp(ltc[1]![0], ltc[1]![1]);
-    return (chunk) => wordRP.test(chunk) && !word.test(chunk);
+    return { isWord: (chunk) => word.test(chunk), isWordRP: (chunk) => wordRP.test(chunk) && !word.test(chunk) };
   } catch {
-    return () => false;
+    return none;
   }
 }
