@@ -182,7 +182,7 @@ export class IncrementalTermSums {
    */
   private updateOne(t: number, removed: Uint8Array): void {
     const { indptr, indices, data } = this.weights;
-    const { mask, rowNorm2 } = this;
+    const { s1, s2, mask, rowNorm2 } = this;
     const postings = this.columnPostings();
     const stopping = removed[t] !== 0;
     let entries = 0;
@@ -207,12 +207,25 @@ export class IncrementalTermSums {
       const invOld = wasKept ? 1 / Math.sqrt(oldNorm2) : 0;
       const invNew = isKept ? 1 / Math.sqrt(norm2) : 0;
       // t itself comes or goes; every other kept term of the row moves to the new scale.
-      for (let p = start; p < end; p++) {
-        const u = indices[p]!;
-        const w = data[p]!;
-        if (w === 0) continue;
-        if (u === t) this.move(u, w, stopping, !stopping && isKept, invOld, invNew);
-        else if (mask[u] === 0) this.move(u, w, wasKept, isKept, invOld, invNew);
+      this.move(t, wt, stopping, !stopping && isKept, invOld, invNew);
+      if (wasKept && isKept) {
+        // The usual case, in a loop of its own: x_new − x_old = w·(inv_new − inv_old) and
+        // x_new² − x_old² = w²·(inv_new² − inv_old²), two multiply-adds per entry.
+        const d1 = invNew - invOld;
+        const d2 = 1 / norm2 - 1 / oldNorm2;
+        for (let p = start; p < end; p++) {
+          const u = indices[p]!;
+          if (u === t || mask[u] !== 0) continue;
+          const w = data[p]!;
+          s1[u] += w * d1;
+          s2[u] += w * w * d2;
+        }
+      } else {
+        for (let p = start; p < end; p++) {
+          const u = indices[p]!;
+          const w = data[p]!;
+          if (u !== t && w !== 0 && mask[u] === 0) this.move(u, w, wasKept, isKept, invOld, invNew);
+        }
       }
     }
     mask[t] = stopping ? 1 : 0;
