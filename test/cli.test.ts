@@ -59,6 +59,15 @@ describe('loudword CLI', function () {
     assert.match(md.stdout, /\| measure \| current \| with suggestions \|/);
   });
 
+  it('apply --dry-run prints the lines it would append and after which line, heading first, and changes nothing', () => {
+    const list = path.join(dir, 'dry-run-stop.txt');
+    writeFileSync(list, '# my own words\nfoo\n');
+    const r = run(['apply', 'support-tickets.csv', '--sample', '300', '--stoplist', 'dry-run-stop.txt', '--dry-run'], dir);
+    assert.equal(r.code, 0, r.stderr);
+    assert.equal(readFileSync(list, 'utf8'), '# my own words\nfoo\n');
+    assert.match(r.stdout + r.stderr, /appended to \S*dry-run-stop\.txt after line 2:\n {2}\+ \n {2}\+ # added by Loudword\n {2}\+ \S/);
+  });
+
   it('apply adds the suggestions to the stop list once, keeping comments and order', () => {
     const before = readFileSync(path.join(dir, 'stoplist.txt'), 'utf8');
     const first = run(['apply', 'support-tickets.csv', '--sample', '300'], dir);
@@ -67,6 +76,8 @@ describe('loudword CLI', function () {
     assert.ok(after.startsWith(before), 'existing lines and comments are kept in place');
     const lines = after.split('\n').filter((l) => l && !l.startsWith('#'));
     assert.equal(new Set(lines).size, lines.length, 'no duplicates');
+    // New terms under a comment line of their own, as the editor writes them (issue 10).
+    assert.ok(after.slice(before.length).startsWith('\n# added by Loudword\n'), JSON.stringify(after.slice(before.length, before.length + 60)));
     const second = run(['apply', 'support-tickets.csv', '--sample', '300'], dir);
     assert.equal(second.code, 0, second.stderr);
     const again = readFileSync(path.join(dir, 'stoplist.txt'), 'utf8');
@@ -74,6 +85,8 @@ describe('loudword CLI', function () {
     const lines2 = again.split('\n').filter((l) => l && !l.startsWith('#'));
     assert.equal(new Set(lines2).size, lines2.length);
     assert.ok(again.startsWith(after));
+    // A second apply adds below the heading already there, never a second one.
+    assert.equal(again.split('# added by Loudword').length, 2);
   });
 
   it('the corpus file is never modified', () => {

@@ -136,10 +136,13 @@ export interface AppendResult {
   afterLine: number;
 }
 
-/** The new bytes of `list` with `terms` appended (no write). The old bytes are a prefix, unchanged. */
-export function appendTerms(list: StopListFile, terms: readonly string[]): AppendResult {
+/**
+ * The new bytes of `list` with `terms` appended (no write). The old bytes are a prefix, unchanged.
+ * `heading` as in addTermsToStopList: `loudword apply` passes ADDED_TERMS_HEADING, like the editor.
+ */
+export function appendTerms(list: StopListFile, terms: readonly string[], options: { heading?: string } = {}): AppendResult {
   const unrepresentable = terms.filter((t) => encodeFor(list.encoding, t) === null);
-  const result = addTermsToStopList(list.text, terms.filter((t) => !unrepresentable.includes(t)));
+  const result = addTermsToStopList(list.text, terms.filter((t) => !unrepresentable.includes(t)), options);
   const filled = list.text.split(/\r\n|\r|\n/);
   const afterLine = filled[filled.length - 1] === '' ? filled.length - 1 : filled.length;
   if (result.added.length === 0) return { added: [], unrepresentable, bytes: list.bytes, newLines: [], afterLine };
