@@ -4,7 +4,7 @@
 // process's. Corpus: generated documents (seeded; common practice, no source). The reference is
 // our own one-process review (startReview): the check is that map + merge on threads changes nothing.
 import { strict as assert } from 'node:assert';
-import { existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
@@ -48,7 +48,7 @@ describe('a shards folder reviewed in the editor: shard steps on worker threads'
     }
   });
 
-  it('threads that are closed remove the folder of kept counts', async () => {
+  it('threads that are closed remove the folder of kept counts, and a new pool removes folders of ended processes', async () => {
     const before = new Set(readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-')));
     const session = await reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js'));
     const during = readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-') && !before.has(n));
@@ -56,5 +56,11 @@ describe('a shards folder reviewed in the editor: shard steps on worker threads'
     assert.ok(readdirSync(path.join(os.tmpdir(), during[0]!)).length === 5, 'the counts of each of the 5 shards');
     await session.close();
     assert.equal(existsSync(path.join(os.tmpdir(), during[0]!)), false);
+    // A folder left by a process that has ended is removed when the next pool starts.
+    const orphan = path.join(os.tmpdir(), 'loudword-shards-999999999-test');
+    mkdirSync(orphan, { recursive: true });
+    const next = await reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js'));
+    await next.close();
+    assert.equal(existsSync(orphan), false, 'the orphan folder is removed');
   });
 });

@@ -9,5 +9,6 @@ import { htmlPayloadCorpus } from './scenarios/html-payload-corpus.mjs';
 import { malformedCorpus } from './scenarios/malformed-corpus.mjs';
 import { exportHtmlReport } from './scenarios/export-html-report.mjs';
 import { cancelReview, whatIfLatency, whatIfLatency100k } from './scenarios/what-if-latency.mjs';
+import { reviewShardsFolder } from './scenarios/review-shards-folder.mjs';
 
-export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, whatIfLatency, cancelReview, whatIfLatency100k];
+export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, reviewShardsFolder, whatIfLatency, cancelReview, whatIfLatency100k];

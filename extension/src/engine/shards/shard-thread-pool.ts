@@ -9,6 +9,25 @@ import type { CountPartial, PlanPartial, SumsPartial } from './partials';
 import type { ShardRunner } from './review-shards';
 
 type TaskBody = { shard: ShardRef; countsFile: string } & ({ step: 'count' } | { step: 'sums'; plan: PlanPartial });
+const PREFIX = 'loudword-shards-';
+
+/**
+ * Folders of kept counts whose process has ended (an editor closed while a review's threads
+ * lived: a terminated thread runs no cleanup) are removed when the next pool starts.
+ */
+async function removeOrphans(): Promise<void> {
+  const names = await fs.readdir(os.tmpdir()).catch(() => [] as string[]);
+  for (const name of names) {
+    const pid = /^loudword-shards-(\d+)-/.exec(name)?.[1];
+    if (pid === undefined || Number(pid) === process.pid) continue;
+    try {
+      process.kill(Number(pid), 0);
+    } catch (e) {
+      if ((e as NodeJS.ErrnoException).code === 'ESRCH') await fs.rm(path.join(os.tmpdir(), name), { recursive: true, force: true }).catch(() => undefined);
+    }
+  }
+}
+
 export type ShardTask = TaskBody & { id: number };
 export type ShardTaskReply =
   | { id: number; partial: CountPartial | SumsPartial }
@@ -23,7 +42,8 @@ export type ShardTaskReply =
  */
 export async function shardThreadPool(settings: EffectiveSettings, threads: number, script: string): Promise<ShardRunner | null> {
   if (threads < 1 || !existsSync(script)) return null;
-  const folder = await fs.mkdtemp(path.join(os.tmpdir(), 'loudword-shards-'));
+  await removeOrphans();
+  const folder = await fs.mkdtemp(path.join(os.tmpdir(), `${PREFIX}${process.pid}-`));
   const idle: Worker[] = [];
   const waiting: Array<(w: Worker) => void> = [];
   const pending = new Map<number, { resolve(p: CountPartial | SumsPartial): void; reject(e: Error): void }>();

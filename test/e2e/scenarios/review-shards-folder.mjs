@@ -1,0 +1,57 @@
+// A folder of shards reviewed from the explorer's context menu (issue 11 point 6): right-click
+// the folder, "Review distances"; the review worker runs the shard steps on worker threads and
+// the panel shows the merged Report, whose figures must equal the CLI's one-process Report of the
+// same folder. Corpus: the first 1,200 tickets of the sample (samples/support-tickets.csv, the
+// project's own generated data) as 4 JSON Lines shards (fixtures/ticket-shards/).
+import path from 'node:path';
+import { cliReport } from '../lib/cli-report.mjs';
+import { panelShowing, readFacts, readTiles, headlineMeasures } from '../lib/distance-review-panel.mjs';
+import { assertShows } from '../lib/shown-number.mjs';
+import { waitForCommand } from '../lib/workbench.mjs';
+import { waitUntil } from '../lib/wait-until.mjs';
+
+const FOLDER = 'ticket-shards';
+
+export const reviewShardsFolder = {
+  name: 'review a shards folder from the explorer context menu: figures equal the CLI JSON',
+  slug: 'review-shards-folder',
+  async run(ctx) {
+    const { page } = ctx;
+    const cli = cliReport(ctx.repo, path.join(ctx.workspace, FOLDER), path.join(ctx.workspace, 'loudword.json'));
+    cli.catch(() => {});
+    await waitForCommand(page, 'Loudword: Review distances');
+    const row = await waitUntil(`the folder ${FOLDER} in the explorer`, () => page.$(`.explorer-folders-view .monaco-list-row[aria-label^="${FOLDER}"]`), { timeout: 30000 });
+    await row.click({ button: 'right' });
+    const item = await waitUntil('"Review distances" in the explorer context menu', async () => {
+      for (const handle of await page.$$('.monaco-menu .action-item .action-label')) {
+        if (((await handle.textContent()) ?? '').trim() === 'Review distances') return handle;
+      }
+      return null;
+    }, { timeout: 15000 });
+    await item.click();
+    const frame = await panelShowing(page, FOLDER, 240000);
+    const report = await cli;
+    const facts = await readFacts(frame);
+    const tiles = await readTiles(frame);
+    const problems = [];
+    const check = (fn) => {
+      try {
+        fn();
+      } catch (e) {
+        problems.push(e.message);
+      }
+    };
+    check(() => assertShows(facts.documents ?? '', report.input.documents, 'documents'));
+    check(() => assertShows(facts.terms ?? '', report.vocabulary.terms, 'terms'));
+    for (const [id, value] of Object.entries(headlineMeasures)) {
+      const tile = tiles[id];
+      if (!tile) {
+        problems.push(`no tile for ${id}`);
+        continue;
+      }
+      check(() => assertShows(tile.baseline ?? '', value(report.baseline), `${id} baseline`));
+      check(() => assertShows(tile.suggested ?? '', value(report.suggested), `${id} with suggestions`));
+    }
+    if (problems.length > 0) throw new Error(problems.join('; '));
+  },
+};
