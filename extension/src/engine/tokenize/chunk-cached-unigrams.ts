@@ -44,8 +44,7 @@ const MULTI = -4; // MULTI - k: the ids in multis[k]
  *    emits a token whose text or lowercase (the two strings `cache.add` registers) is the
  *    chunk — the only way a string becomes a lexeme. Misses wait to be run together, so when a
  *    conditional entry comes after a pending miss that might do that, the misses are run first
- *    (`flush`) and the entry is looked up again. (A plain word that is no lexeme cannot: wink
- *    emits it as it is, letters only, and adds it and its lowercase.) When the word and the sign
+ *    (`flush`) and the entry is looked up again (`cannotMakeWordRPLexeme` says which can't). When the word and the sign
  *    are both cached for good, even the first occurrence skips wink (`composeWordRP`, which
  *    checks that wink would add no lexeme). These are ~13% of the chunks of English
  *    text (every word before a comma or full stop); the rest of wink's categories are either
@@ -120,6 +119,15 @@ export function chunkCachedUnigrams(
       }
     }
   };
+
+  /**
+   * True when wink, whatever its state, cannot turn `chunk` into a token shaped like a word with
+   * a trailing sign (so it cannot make a conditional entry's chunk a lexeme): a plain word is
+   * looked up (adding nothing) or added as it is, letters only; a wordRP chunk is looked up or
+   * split into its letters and its sign; a chunk without letters only ever adds substrings of
+   * itself (with their lowercase), and a wordRP string has letters. Anything else might.
+   */
+  const cannotMakeWordRPLexeme = (chunk: string): boolean => isWord(chunk) || isWordRP(chunk) || !WORDRP_LETTER.test(chunk);
 
   /**
    * Point 4 without wink: a wordRP chunk whose word and sign are both cached for good is, the
@@ -204,9 +212,14 @@ export function chunkCachedUnigrams(
     return out;
   };
 
-  // Reused by every call (emptied first): the chunks wink must see and where their terms go.
+  // The chunks wink must see, where their terms go in `out` and which document they are in;
+  // emptied by each flush. They wait across documents, so one readDoc serves many of them.
   const misses: string[] = [];
   const missAt: number[] = [];
+  const missDoc: number[] = [];
+  // The batch being encoded (set by encodeAll): `visit` may have to flush mid-batch.
+  let docEnds: Uint32Array = new Uint32Array(0);
+  let doc = 0;
   let blankMiss = false;
   // Pending misses that might make a conditional entry's chunk a lexeme (see `visit`).
   let unsafeMisses = 0;
@@ -230,14 +243,16 @@ export function chunkCachedUnigrams(
       const chunk = text.slice(start, end);
       misses.push(chunk);
       missAt.push(out.length);
+      missDoc.push(doc);
       if (chunk.trim() === '') blankMiss = true;
-      // A plain word that is no lexeme yet comes out of wink as itself, so it cannot make a
-      // string with a trailing sign a lexeme; anything else might.
-      if (!isWord(chunk) || lexemeEntry(chunk) !== null) unsafeMisses++;
+      if (!cannotMakeWordRPLexeme(chunk)) unsafeMisses++;
     }
   };
 
-  /** Runs the pending misses through wink and splices their ids in at their places in `out`. */
+  /**
+   * Runs the pending misses through wink, splices their ids in at their places in `out`, and
+   * moves the ends of the documents already finished by the ids inserted at or before them.
+   */
   const flush = (out: IdList): void => {
     if (misses.length === 0) return;
     let missIds: number[][];
@@ -258,8 +273,14 @@ export function chunkCachedUnigrams(
       from = at;
     }
     for (let j = from - first; j < after.length; j++) out.push(after[j]!);
+    let added = 0;
+    for (let d = missDoc[0]!, k = 0; d < doc; d++) {
+      while (k < misses.length && missDoc[k]! <= d) added += missIds[k++]!.length;
+      docEnds[d] += added;
+    }
     misses.length = 0;
     missAt.length = 0;
+    missDoc.length = 0;
     blankMiss = false;
     unsafeMisses = 0;
   };
@@ -269,11 +290,25 @@ export function chunkCachedUnigrams(
     for (const piece of cutRun(text.slice(start, end))) visit(piece, 0, piece.length, hashOf(piece, 0, piece.length), out);
   };
 
-  const encode = (text: string, out: IdList): void => {
+  const encodeAll = (texts: readonly string[], out: IdList, ends: Uint32Array, longRunDocs: number[]): void => {
     misses.length = 0;
     missAt.length = 0;
+    missDoc.length = 0;
     blankMiss = false;
     unsafeMisses = 0;
+    docEnds = ends;
+    for (doc = 0; doc < texts.length; doc++) {
+      const runsBefore = longRunsCut;
+      scan(texts[doc]!, out);
+      if (longRunsCut !== runsBefore) longRunDocs.push(doc);
+      docEnds[doc] = out.length;
+    }
+    flush(out);
+    docEnds = new Uint32Array(0);
+  };
+
+  /** Visits every chunk of `text`, as `text.split(wink's splitter)` would cut it. */
+  const scan = (text: string, out: IdList): void => {
     const n = text.length;
     let i = 0;
     while (i < n) {
@@ -296,17 +331,19 @@ export function chunkCachedUnigrams(
       if (want === OTHER && i - start > MAX_RUN) visitLongRun(text, start, i, out);
       else visit(text, start, i, h, out);
     }
-    flush(out);
   };
 
   return {
-    encode,
+    encodeAll,
     terms: vocabulary.terms,
     get longRunsCut() {
       return longRunsCut;
     },
   };
 }
+
+/** Every letter wink's word patterns know (their class, case-insensitive) and more: any Latin letter or mark. */
+const WORDRP_LETTER = /[a-z\u00c0-\u024f\u0300-\u036f\u1e00-\u1eff\u2060]/i;
 
 const OTHER = 0;
 const SPACING = 1;

@@ -4,17 +4,27 @@ export const ABSENT = -1;
 /** Entries kept before the table starts over; a bound on memory, not on correctness. */
 const MAX_ENTRIES = 1 << 20;
 
+// One slot is four int32s side by side (one cache line holds four slots): the key's hash, the
+// value, and where the key's UTF-16 code units sit in `chars` (offset, length).
+const HASH = 0;
+const VALUE = 1;
+const OFFSET = 2;
+const LENGTH = 3;
+const SLOT = 4;
+
 /**
  * A hash table from chunks of text to int32 values, looked up by (text, start, end) without
  * cutting the chunk out of its document: the tokenizer's hot loop sees ~90 chunks per document
  * and nearly all are hits, so a substring and a Map lookup per chunk (as `text.split()` then
- * `Map.get` would cost) is the larger part of the work. Open addressing over typed arrays; the
- * hash is FNV-1a over UTF-16 code units, computed by the caller while it scans the chunk.
+ * `Map.get` would cost) is the larger part of the work. Open addressing; the keys' code units
+ * are copied into one Uint16Array, so a lookup touches its slot and the key's code units and no
+ * string object. The hash is FNV-1a over UTF-16 code units, computed by the caller while it
+ * scans the chunk (`hashOf` gives the same).
  */
 export class ChunkTable {
-  private keys: (string | undefined)[] = [];
-  private hashes = new Int32Array(0);
-  private values = new Int32Array(0);
+  private slots = new Int32Array(0);
+  private chars = new Uint16Array(0);
+  private used = 0; // code units of `chars` in use
   private mask = 0;
   size = 0;
 
@@ -25,26 +35,27 @@ export class ChunkTable {
   /** Forgets every entry (when MAX_ENTRIES is reached; the caller is told by `set`'s result). */
   clear(): void {
     const capacity = 1 << 16;
-    this.keys = new Array<string | undefined>(capacity);
-    this.hashes = new Int32Array(capacity);
-    this.values = new Int32Array(capacity).fill(ABSENT);
+    this.slots = new Int32Array(capacity * SLOT);
+    for (let s = 0; s < capacity; s++) this.slots[s * SLOT + VALUE] = ABSENT;
+    this.chars = new Uint16Array(1 << 18);
+    this.used = 0;
     this.mask = capacity - 1;
     this.size = 0;
   }
 
   /** The value stored for text[start, end) whose FNV-1a hash is `hash`, or ABSENT. */
   get(text: string, start: number, end: number, hash: number): number {
-    const { keys, hashes, values, mask } = this;
+    const { slots, chars, mask } = this;
     const length = end - start;
     for (let slot = hash & mask; ; slot = (slot + 1) & mask) {
-      const v = values[slot]!;
+      const at = slot * SLOT;
+      const v = slots[at + VALUE]!;
       if (v === ABSENT) return ABSENT;
-      if (hashes[slot] !== hash) continue;
-      const key = keys[slot]!;
-      if (key.length !== length) continue;
-      let j = 0;
-      while (j < length && key.charCodeAt(j) === text.charCodeAt(start + j)) j++;
-      if (j === length) return v;
+      if (slots[at + HASH] !== hash || slots[at + LENGTH] !== length) continue;
+      const offset = slots[at + OFFSET]! - start;
+      let j = start;
+      while (j < end && chars[offset + j] === text.charCodeAt(j)) j++;
+      if (j === end) return v;
     }
   }
 
@@ -54,50 +65,64 @@ export class ChunkTable {
   }
 
   /**
-   * Stores `value` (≥ -0x7fffffff, never ABSENT) for `key`, replacing an earlier one. Returns
-   * false when the table was full and has been cleared first, so the caller can drop what its
-   * values point to.
+   * Stores `value` (never ABSENT) for `key`, replacing an earlier one. Returns false when the
+   * table was full and has been cleared first, so the caller can drop what its values point to.
    */
   set(key: string, value: number): boolean {
     const hash = hashOf(key, 0, key.length);
-    for (let slot = hash & this.mask; ; slot = (slot + 1) & this.mask) {
-      const v = this.values[slot]!;
-      if (v === ABSENT) break;
-      if (this.hashes[slot] === hash && this.keys[slot] === key) {
-        this.values[slot] = value;
-        return true;
-      }
+    const slot = this.find(key, hash);
+    if (this.slots[slot * SLOT + VALUE] !== ABSENT) {
+      this.slots[slot * SLOT + VALUE] = value;
+      return true;
     }
     let kept = true;
     if (this.size >= MAX_ENTRIES) {
       this.clear();
       kept = false;
-    } else if ((this.size + 1) * 2 > this.values.length) {
-      this.rehash(this.values.length * 2);
+    } else if ((this.size + 1) * 2 > this.mask + 1) {
+      this.rehash((this.mask + 1) * 2);
     }
-    let slot = hash & this.mask;
-    while (this.values[slot] !== ABSENT) slot = (slot + 1) & this.mask;
-    // A long key cut from a document would keep the whole document alive; store a copy.
-    this.keys[slot] = key.length >= 13 ? (key + ' ').slice(0, -1) : key;
-    this.hashes[slot] = hash;
-    this.values[slot] = value;
+    if (this.used + key.length > this.chars.length) {
+      let size = this.chars.length * 2;
+      while (size < this.used + key.length) size *= 2;
+      const grown = new Uint16Array(size);
+      grown.set(this.chars.subarray(0, this.used));
+      this.chars = grown;
+    }
+    for (let i = 0; i < key.length; i++) this.chars[this.used + i] = key.charCodeAt(i);
+    const at = this.find(key, hash) * SLOT;
+    this.slots[at + HASH] = hash;
+    this.slots[at + VALUE] = value;
+    this.slots[at + OFFSET] = this.used;
+    this.slots[at + LENGTH] = key.length;
+    this.used += key.length;
     this.size++;
     return kept;
   }
 
+  /** The slot holding `key`, or the empty slot where it would go. */
+  private find(key: string, hash: number): number {
+    for (let slot = hash & this.mask; ; slot = (slot + 1) & this.mask) {
+      const at = slot * SLOT;
+      if (this.slots[at + VALUE] === ABSENT) return slot;
+      if (this.slots[at + HASH] !== hash || this.slots[at + LENGTH] !== key.length) continue;
+      const offset = this.slots[at + OFFSET]!;
+      let j = 0;
+      while (j < key.length && this.chars[offset + j] === key.charCodeAt(j)) j++;
+      if (j === key.length) return slot;
+    }
+  }
+
   private rehash(capacity: number): void {
-    const { keys, hashes, values } = this;
-    this.keys = new Array<string | undefined>(capacity);
-    this.hashes = new Int32Array(capacity);
-    this.values = new Int32Array(capacity).fill(ABSENT);
+    const old = this.slots;
+    this.slots = new Int32Array(capacity * SLOT);
+    for (let s = 0; s < capacity; s++) this.slots[s * SLOT + VALUE] = ABSENT;
     this.mask = capacity - 1;
-    for (let i = 0; i < values.length; i++) {
-      if (values[i] === ABSENT) continue;
-      let slot = hashes[i]! & this.mask;
-      while (this.values[slot] !== ABSENT) slot = (slot + 1) & this.mask;
-      this.keys[slot] = keys[i];
-      this.hashes[slot] = hashes[i]!;
-      this.values[slot] = values[i]!;
+    for (let at = 0; at < old.length; at += SLOT) {
+      if (old[at + VALUE] === ABSENT) continue;
+      let slot = old[at + HASH]! & this.mask;
+      while (this.slots[slot * SLOT + VALUE] !== ABSENT) slot = (slot + 1) & this.mask;
+      this.slots.set(old.subarray(at, at + SLOT), slot * SLOT);
     }
   }
 }

@@ -38,25 +38,22 @@ export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => E
     const tokens = new Uint32Array(texts.length);
     const cols = new IdList(texts.length * 64);
     const counts = new IdList(texts.length * 64);
+    const docEnds = new Uint32Array(texts.length);
     const longRunDocs: number[] = [];
     const runsBefore = coder.longRunsCut;
-    let runsSeen = runsBefore;
+    ids.length = 0;
+    coder.encodeAll(texts, ids, docEnds, longRunDocs);
+    if (countOf.length < coder.terms.length) {
+      const grown = new Uint32Array(Math.max(coder.terms.length, countOf.length * 2));
+      grown.set(countOf);
+      countOf = grown;
+    }
+    const a = ids.array;
+    let start = 0;
     for (let d = 0; d < texts.length; d++) {
-      ids.length = 0;
-      coder.encode(texts[d]!, ids);
-      if (coder.longRunsCut !== runsSeen) {
-        runsSeen = coder.longRunsCut;
-        longRunDocs.push(d);
-      }
-      if (countOf.length < coder.terms.length) {
-        const grown = new Uint32Array(Math.max(coder.terms.length, countOf.length * 2));
-        grown.set(countOf);
-        countOf = grown;
-      }
-      const a = ids.array;
-      const n = ids.length;
+      const end = docEnds[d]!;
       const first = cols.length;
-      for (let k = 0; k < n; k++) {
+      for (let k = start; k < end; k++) {
         const id = a[k]!;
         if (countOf[id]++ === 0) cols.push(id);
       }
@@ -68,11 +65,12 @@ export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => E
         countOf[id] = 0;
       }
       rowEnds[d] = cols.length;
-      tokens[d] = n;
+      tokens[d] = end - start;
+      start = end;
     }
     const newTerms = coder.terms.slice(termsSent);
     const firstNewId = termsSent;
     termsSent = coder.terms.length;
-    return { stream: 0, firstNewId, newTerms, rowEnds, cols: cols.slice(), counts: counts.slice(), tokens, longRunDocs, longRuns: runsSeen - runsBefore };
+    return { stream: 0, firstNewId, newTerms, rowEnds, cols: cols.slice(), counts: counts.slice(), tokens, longRunDocs, longRuns: coder.longRunsCut - runsBefore };
   };
 }
