@@ -11,7 +11,7 @@ function withVerdict(): Report {
   const report = JSON.parse(readFileSync(path.join(__dirname, 'fixtures', 'report-small.json'), 'utf8')) as Report;
   report.verdict = {
     outcome: 'helps',
-    headline: 'The suggested list (3 terms) raises label precision@10 (0.800 → 0.850, +0.050; 95% interval +0.020 to +0.080 over 200 sampled documents).',
+    headline: 'These 3 terms raise label precision@10 (0.800 → 0.850, +0.050; 95% interval +0.020 to +0.080 over 200 sampled documents).',
     estimate: { measure: 'label precision@10', change: 0.05, low: 0.02, high: 0.08, draws: 400, method: 'bootstrap' },
     caveats: [{ measure: 'hubness', sentence: 'Hubness skew rose (1.20 → 1.40): look at the hub list.' }],
   };
@@ -22,7 +22,7 @@ describe('verdict in the CLI outputs', () => {
   it('formatText: the verdict and its caveats come right after the title, before the measures', () => {
     const text = formatText(withVerdict());
     const lines = text.split('\n');
-    const at = lines.findIndex((l) => l.startsWith('Verdict: the suggested list helps. The suggested list (3 terms) raises'));
+    const at = lines.findIndex((l) => l.startsWith('Verdict: the suggested list helps. These 3 terms raise'));
     assert.ok(at > 0 && at <= 2, text.slice(0, 400));
     // The verdict wraps at 100 characters (continuation lines indented 4); the caveat follows it.
     const next = lines.slice(at + 1).find((l) => !l.startsWith('    '));
@@ -32,7 +32,7 @@ describe('verdict in the CLI outputs', () => {
 
   it('formatMarkdown: the verdict is the first paragraph under the heading, caveats as a list', () => {
     const md = formatMarkdown(withVerdict()).split('\n');
-    assert.match(md[2]!, /^\*\*Verdict: the suggested list helps\.\*\* The suggested list \(3 terms\) raises/);
+    assert.match(md[2]!, /^\*\*Verdict: the suggested list helps\.\*\* These 3 terms raise/);
     assert.match(md[4]!, /^- Hubness skew rose/);
   });
 });

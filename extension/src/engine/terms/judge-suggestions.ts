@@ -53,7 +53,11 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const boot = useLabels
     ? pairedBootstrap(before.precision!, after.precision!, 'mean', VERDICT_DRAWS, lab.seed)
     : pairedBootstrap(before.standout, after.standout, 'median', VERDICT_DRAWS, lab.seed);
-  const list = `The suggested list (${suggestions.length} term${suggestions.length === 1 ? '' : 's'})`;
+  // The CLI and the panel put "the suggested list helps/hurts" before the headline, so the
+  // headline names the terms instead of repeating "the suggested list"; verbs agree with it.
+  const one = suggestions.length === 1;
+  const list = one ? 'This one term' : `These ${suggestions.length} terms`;
+  const agree = (singular: string, plural: string): string => (one ? singular : plural);
   if (boot === null) {
     return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats };
   }
@@ -65,11 +69,12 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   let headline: string;
   if (useLabels) {
     const from = `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
-    const verb = outcome === 'helps' ? 'raises' : outcome === 'hurts' ? 'lowers' : 'does not clearly change';
+    const verb = outcome === 'helps' ? agree('raises', 'raise') : outcome === 'hurts' ? agree('lowers', 'lower') : agree('does', 'do') + ' not clearly change';
     headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, 3)}; ${interval}). The list was chosen without the labels, so every sampled document is held out.`;
     if (outcome === 'no clear change') headline += ' A difference this small needs a larger sample (sample.documents) to resolve.';
   } else {
-    const verb = outcome === 'helps' ? 'makes nearest neighbours stand out more' : outcome === 'hurts' ? 'makes nearest neighbours stand out less' : 'does not clearly change how much nearest neighbours stand out';
+    const make = agree('makes', 'make');
+    const verb = outcome === 'helps' ? `${make} nearest neighbours stand out more` : outcome === 'hurts' ? `${make} nearest neighbours stand out less` : `${agree('does', 'do')} not clearly change how much nearest neighbours stand out`;
     headline = `${list} ${verb}: ${measure} ${signed(boot.change, 2)} (${interval}). Without labels this is a proxy for neighbour quality; pass --label to measure precision.`;
   }
   if (opinion.opinionText) {
