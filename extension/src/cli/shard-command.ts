@@ -146,7 +146,10 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
 
 async function serve(): Promise<number> {
   const lines = createInterface({ input: process.stdin, crlfDelay: Infinity });
-  const answer = (reply: object): void => void process.stdout.write(`${JSON.stringify(reply)}\n`);
+  // Standard output carries only the answers: anything else a step prints goes to standard error.
+  const stdout = process.stdout.write.bind(process.stdout);
+  process.stdout.write = process.stderr.write.bind(process.stderr) as typeof process.stdout.write;
+  const answer = (reply: object): void => void stdout(`${JSON.stringify(reply)}\n`);
   for await (const line of lines) {
     if (line.trim() === '') continue;
     const start = performance.now();
