@@ -4,12 +4,13 @@
 // process's. Corpus: generated documents (seeded; common practice, no source). The reference is
 // our own one-process review (startReview): the check is that map + merge on threads changes nothing.
 import { strict as assert } from 'node:assert';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
 import { reviewShardsInThreads } from '../extension/src/engine/shards/review-in-threads';
 import { ReviewWorkerClient } from '../extension/src/worker/review-worker-client';
+import { isUserError, type UserError } from '../extension/src/engine/user-error';
 import { reportDifferences } from './support/report-diff';
 import { generatedDocs, writeShards } from './support/shard-corpora';
 
@@ -62,5 +63,26 @@ describe('a shards folder reviewed in the editor: shard steps on worker threads'
     const next = await reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js'));
     await next.close();
     assert.equal(existsSync(orphan), false, 'the orphan folder is removed');
+  });
+
+  it('a shard that cannot be parsed fails the review naming shard and line, and a cancel stops it; neither leaves kept counts', async () => {
+    const broken = mkdtempSync(path.join(os.tmpdir(), 'loudword-shard-threads-broken-'));
+    try {
+      writeShards(broken, generatedDocs(300, 5), 3);
+      writeFileSync(path.join(broken, 'part-3.csv'), 'text,label\nfine words here,a\nmore words,b\n"an open quote that never closes,c\n');
+      const ours = (): string[] => readdirSync(os.tmpdir()).filter((n) => n.startsWith(`loudword-shards-${process.pid}-`));
+      const before = ours().length;
+      await assert.rejects(
+        reviewShardsInThreads({ file: broken, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js')),
+        (e: unknown) => isUserError(e) && (e as UserError).file === path.join(broken, 'part-3.csv') && (e as UserError).line === 4,
+      );
+      assert.equal(ours().length, before, 'the failed review removed its kept counts');
+      const controller = new AbortController();
+      const cancelled = reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, { signal: controller.signal, onStage: (stage) => stage === 'tokenizing' && controller.abort() }, path.join(DIST, 'shard-thread.js'));
+      await assert.rejects(cancelled, (e: unknown) => (e as Error).name === 'AbortError');
+      assert.equal(ours().length, before, 'the cancelled review removed its kept counts');
+    } finally {
+      rmSync(broken, { recursive: true, force: true });
+    }
   });
 });
