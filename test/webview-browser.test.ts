@@ -225,6 +225,33 @@ describe('webview in Chromium', function () {
       assert.deepEqual(seen.errors, []);
     });
 
+    it('says which config and stop list were used and where each setting came from, one click away', async () => {
+      const report: Report = {
+        ...fixture('report-small.json'),
+        stopList: { file: '/work/project/lists/stoplist.txt', terms: 41, unused: [] },
+        provenance: {
+          config: { file: '/work/project/loudword.json', how: 'nearest' },
+          sources: {
+            'sample.k': { from: 'command-line flag', where: '--k' },
+            label: { from: 'loudword.json', where: '/work/project/loudword.json:3' },
+            'sample.documents': { from: 'editor setting', where: 'loudword.sampleSize' },
+          },
+        },
+      };
+      const { page, seen } = await openStandalone(report);
+      const details = page.locator('.lw-provenance');
+      assert.equal(await details.locator('summary').textContent(), 'Settings from loudword.json (nearest to the corpus); stop list stoplist.txt');
+      assert.equal(await details.getAttribute('open'), null, 'closed until clicked');
+      await details.locator('summary').click();
+      const row = (key: string) => details.locator(`tr[data-setting="${key}"] td`).allTextContents();
+      // Values from the fixture's settings (sample.k 10, label "topic", sample.documents 2000).
+      assert.deepEqual(await row('sample.k'), ['sample.k', String(report.settings.sample.k), 'command-line flag', '--k']);
+      assert.deepEqual(await row('label'), ['label', String(report.settings.label), 'loudword.json', '/work/project/loudword.json:3']);
+      assert.deepEqual(await row('sample.documents'), ['sample.documents', String(report.settings.sample.documents), 'editor setting', 'loudword.sampleSize']);
+      assert.match((await details.textContent()) ?? '', /Stop list: \/work\/project\/lists\/stoplist\.txt \(41 terms\)/);
+      assert.deepEqual(seen.errors, []);
+    });
+
     it('shows 500 rows of a 20,000-term report and 500 more on request', async () => {
       const report = fixture('report-small.json');
       const many: TermRow[] = Array.from({ length: 20000 }, (_, i) => ({

@@ -37,6 +37,8 @@ export function renderReportHeader(report: Report, actions: readonly HTMLElement
         : el('p', { className: 'lw-note', text: summary }),
     );
   }
+  const provenance = renderProvenance(report);
+  if (provenance !== null) notes.unshift(provenance);
   return el('header', { className: 'lw-header' }, [
     el('div', { className: 'lw-header__top' }, [
       el('div', { className: 'lw-header__title' }, [
@@ -48,6 +50,65 @@ export function renderReportHeader(report: Report, actions: readonly HTMLElement
     el('dl', { className: 'lw-facts' }, facts),
     ...notes,
   ]);
+}
+
+const HOW: Record<NonNullable<Report['provenance']>['config']['how'], string> = {
+  given: 'given',
+  nearest: 'nearest to the corpus',
+  none: 'none found',
+  ignored: 'ignored',
+};
+
+/**
+ * Which loudword.json and stop list the review used, and where each setting not at its default
+ * came from (the file's line, a flag, an editor setting), one click away: the summary line says
+ * the config and the stop list, the table the rest. Null for a Report without provenance.
+ */
+export function renderProvenance(report: Report): HTMLElement | null {
+  const p = report.provenance;
+  if (p === undefined) return null;
+  const config = p.config.file === null ? `no loudword.json (${HOW[p.config.how]})` : `${baseName(p.config.file)} (${HOW[p.config.how]})`;
+  const stop = report.stopList.file === null ? 'no stop list' : `stop list ${baseName(report.stopList.file)}`;
+  const keys = Object.keys(p.sources).sort();
+  const rows = keys.map((key) => {
+    const source = p.sources[key]!;
+    return el('tr', { attrs: { 'data-setting': key } }, [
+      el('td', { className: 'lw-provenance__key', text: key }),
+      el('td', { className: 'lw-provenance__value', text: settingValue(report.settings, key) }),
+      el('td', { text: source.from }),
+      el('td', { className: 'lw-provenance__where', text: source.where, attrs: { title: source.where } }),
+    ]);
+  });
+  return el('details', { className: 'lw-note lw-provenance' }, [
+    el('summary', { text: `Settings from ${config}; ${stop}` }),
+    el('p', {}, [
+      'Config: ',
+      el('span', { className: 'lw-provenance__path', text: p.config.file ?? HOW[p.config.how] }),
+      el('br', {}),
+      'Stop list: ',
+      el('span', { className: 'lw-provenance__path', text: report.stopList.file ?? 'none' }),
+      ` (${formatCount(report.stopList.terms)} term${report.stopList.terms === 1 ? '' : 's'})`,
+    ]),
+    keys.length === 0
+      ? el('p', { text: 'Every setting is at its default.' })
+      : el('table', { className: 'lw-provenance__table' }, [
+          el('thead', {}, [el('tr', {}, ['setting', 'value', 'from', 'where'].map((h) => el('th', { text: h })))]),
+          el('tbody', {}, rows),
+        ]),
+    keys.length === 0 ? null : el('p', { text: 'Every other setting is at its default.' }),
+  ]);
+}
+
+function baseName(file: string): string {
+  return file.split(/[\\/]/).pop() || file;
+}
+
+/** A setting's value by dotted key ("sample.k") as the review used it. */
+function settingValue(settings: Report['settings'], key: string): string {
+  let at: unknown = settings;
+  for (const part of key.split('.')) at = at !== null && typeof at === 'object' ? (at as Record<string, unknown>)[part] : undefined;
+  if (at === undefined) return '';
+  return typeof at === 'string' ? at : JSON.stringify(at);
 }
 
 function fact(name: string, value: string): HTMLElement {
