@@ -31,19 +31,25 @@ function common(theme: ChartTheme) {
     animation: false as const,
     normalized: true,
     plugins: {
+      // One legend for every chart: each series by its own marker (circle = the review's
+      // baseline, diamond = the setting compared with it), not the library's filled boxes.
       legend: {
         position: 'bottom' as const,
-        labels: { color: theme.foreground, boxWidth: 14, boxHeight: 8, padding: 10, font: { family: theme.fontFamily, size: theme.fontSize } },
+        labels: { color: theme.foreground, usePointStyle: true, pointStyleWidth: 14, boxHeight: 8, padding: 10, font: { family: theme.fontFamily, size: theme.fontSize } },
       },
       tooltip: { titleFont: { family: theme.fontFamily }, bodyFont: { family: theme.fontFamily } },
     },
   };
 }
 
+/** Marker of each side of a comparison, in every chart and its legend. */
+const MARKER = { baseline: 'circle', current: 'rectRot' } as const;
+
 function axis(theme: ChartTheme, title: string) {
   return {
-    grid: { color: theme.grid },
-    border: { color: theme.grid },
+    // A dotted grid that stays behind the data; the axis line itself solid.
+    grid: { color: theme.grid, tickColor: theme.grid },
+    border: { color: theme.grid, dash: [2, 3] },
     ticks: { color: theme.muted, font: { family: theme.fontFamily, size: theme.fontSize } },
     title: { display: true, text: title, color: theme.muted, font: { family: theme.fontFamily, size: theme.fontSize } },
   };
@@ -59,7 +65,7 @@ function histogramShares(h: Distributions['similarity'], counts: readonly number
 export function similarityConfig(baseline: Setting, current: Setting, theme: ChartTheme): ChartConfiguration<'line', XY[]> {
   const b = baseline.distributions.similarity;
   const c = current.distributions.similarity;
-  const line = (label: string, data: XY[], color: string, dashed: boolean, fill: boolean) => ({
+  const line = (label: string, data: XY[], color: string, dashed: boolean, fill: boolean, marker: 'circle' | 'rectRot') => ({
     label,
     data,
     borderColor: color,
@@ -67,17 +73,23 @@ export function similarityConfig(baseline: Setting, current: Setting, theme: Cha
     borderWidth: 1.6,
     borderDash: dashed ? [5, 3] : [],
     fill: fill ? ('origin' as const) : false,
-    pointRadius: 0,
+    // Small solid markers on the pair curves tell the two settings apart without colour (and on
+    // a dark theme, where a faint fill alone vanished); the nearest-neighbour curves stay dashed.
+    pointStyle: marker,
+    pointRadius: fill ? 2 : 0,
+    pointBackgroundColor: color,
+    pointBorderColor: color,
+    pointHoverRadius: 4,
     tension: 0.2,
   });
   return {
     type: 'line',
     data: {
       datasets: [
-        line(`pairs · ${baseline.label}`, histogramShares(b, b.pairs), theme.baseline, false, true),
-        line(`nearest · ${baseline.label}`, histogramShares(b, b.nearest), theme.baseline, true, false),
-        line(`pairs · ${current.label}`, histogramShares(c, c.pairs), theme.current, false, true),
-        line(`nearest · ${current.label}`, histogramShares(c, c.nearest), theme.current, true, false),
+        line(`pairs · ${baseline.label}`, histogramShares(b, b.pairs), theme.baseline, false, true, MARKER.baseline),
+        line(`nearest · ${baseline.label}`, histogramShares(b, b.nearest), theme.baseline, true, false, MARKER.baseline),
+        line(`pairs · ${current.label}`, histogramShares(c, c.pairs), theme.current, false, true, MARKER.current),
+        line(`nearest · ${current.label}`, histogramShares(c, c.nearest), theme.current, true, false, MARKER.current),
       ],
     },
     options: {
@@ -140,7 +152,6 @@ export function pullLiftConfig(terms: readonly TermRow[], suggestions: ReadonlyS
       },
       plugins: {
         ...common(theme).plugins,
-        legend: { ...common(theme).plugins.legend, labels: { ...common(theme).plugins.legend.labels, usePointStyle: true } },
         tooltip: {
           ...common(theme).plugins.tooltip,
           filter: (item: TooltipItem<'scatter'>) => (item.raw as TermPoint).term !== '',
@@ -187,7 +198,10 @@ export function cumulativeMassConfig(baseline: Setting, theme: ChartTheme): Char
           backgroundColor: withAlpha(theme.baseline, 0.12),
           fill: 'origin',
           borderWidth: 1.8,
+          pointStyle: MARKER.baseline,
           pointRadius: 0,
+          pointHoverRadius: 4,
+          pointBackgroundColor: theme.baseline,
         },
       ],
     },
@@ -230,8 +244,9 @@ export function kOccurrenceConfig(baseline: Setting, current: Setting, k: number
     data: {
       labels,
       datasets: [
-        { label: baseline.label, data: pad(b), backgroundColor: withAlpha(theme.baseline, 0.75), borderColor: theme.baseline, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.85 },
-        { label: current.label, data: pad(c), backgroundColor: withAlpha(theme.current, 0.75), borderColor: theme.current, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.85 },
+        // Lighter fills with a solid outline: both series keep their edge on a dark theme.
+        { label: baseline.label, data: pad(b), backgroundColor: withAlpha(theme.baseline, 0.5), borderColor: theme.baseline, borderWidth: 1, pointStyle: MARKER.baseline, barPercentage: 1, categoryPercentage: 0.85 },
+        { label: current.label, data: pad(c), backgroundColor: withAlpha(theme.current, 0.5), borderColor: theme.current, borderWidth: 1, pointStyle: MARKER.current, barPercentage: 1, categoryPercentage: 0.85 },
       ],
     },
     options: {
