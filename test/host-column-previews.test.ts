@@ -31,5 +31,11 @@ describe('columnPreviews', () => {
     assert.equal(missingFieldRole('no text column "body"; available: "a"'), 'text');
     assert.equal(missingFieldRole('found no column with text; name one with the text setting (columns: a)'), 'text');
     assert.equal(missingFieldRole('unclosed quote'), null);
+    // The same errors once blameSetting says where the setting came from (a parent loudword.json, a flag, an editor setting).
+    assert.equal(missingFieldRole('label "topic": no such field in /w/sub/tickets.csv; available: "ref", "category", "body"'), 'label');
+    assert.equal(missingFieldRole('text "message": no such field in /w/sub/tickets.csv; available: "ref"'), 'text');
+    assert.equal(missingFieldRole('--text "body" (command-line flag): no such field in c.csv; available: "a"'), 'text');
+    assert.equal(missingFieldRole('loudword.labelField "topic" (editor setting): no such field in c.csv; available: "a"'), 'label');
+    assert.equal(missingFieldRole('sample.k 5: must be a whole number'), null);
   });
 });

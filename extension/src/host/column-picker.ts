@@ -32,12 +32,12 @@ async function headOf(uri: vscode.Uri): Promise<string> {
 /**
  * For an error naming a missing text/label field: a quick pick of the file's columns, each with
  * its first values. Returns the override to review again with, or null (other error, no columns,
- * or the user dismissed the pick).
+ * a field in `alreadyPicked` — the user chose it a moment ago — or the user dismissed the pick).
  */
-export async function pickMissingColumn(uri: vscode.Uri, message: string): Promise<{ text?: string; label?: string | null } | null> {
+export async function pickMissingColumn(uri: vscode.Uri, message: string, alreadyPicked: readonly string[] = []): Promise<{ text?: string; label?: string | null } | null> {
   const role = missingFieldRole(message);
   const format = formatOf(uri.fsPath || uri.path);
-  if (role === null || format === null) return null;
+  if (role === null || format === null || alreadyPicked.includes(role)) return null;
   let columns;
   try {
     columns = columnPreviews(await headOf(uri), format);

@@ -27,6 +27,8 @@ export class CorpusReview implements vscode.Disposable {
   runningVersion: number | null = null;
   /** Set when the user pressed Cancel on the progress notification of the last run. */
   cancelledByUser = false;
+  /** The overrides of the latest run (a column the user picked when the configured one was missing). */
+  lastOverrides: SettingsOverrides = {};
 
   constructor(readonly uri: vscode.Uri, workerFile: string) {
     this.client = new ReviewWorkerClient(workerFile);
@@ -54,6 +56,7 @@ export class CorpusReview implements vscode.Disposable {
    * when cancelled, or a WorkerFailure (a bug).
    */
   async run(doc: vscode.TextDocument | undefined, onStage: (stage: ReviewStage | null) => void, extraOverrides: SettingsOverrides = {}): Promise<Report> {
+    this.lastOverrides = extraOverrides;
     this.cancel();
     this.closed = false;
     this.cancelledByUser = false;

@@ -49,13 +49,15 @@ export class HostContext {
         return null;
       }
       // The text or label field is not in the file: offer its columns rather than only the error.
-      if (isUserError(e) && Object.keys(overrides).length === 0) {
-        const picked = await pickMissingColumn(uri, e.message);
+      // Each field is asked for at most once, so a file missing both gets two picks, then a review.
+      if (isUserError(e)) {
+        const picked = await pickMissingColumn(uri, e.message, Object.keys(overrides));
         if (picked !== null) {
-          const again = await this.review(uri, reveal, picked);
-          if (again !== null) {
-            const [key, value] = Object.entries(picked)[0]!;
-            void vscode.window.showInformationMessage(`Loudword: reviewed with ${key} = ${JSON.stringify(value)}. To keep it, set "${key}": ${JSON.stringify(value)} in loudword.json.`);
+          const chosen = { ...overrides, ...picked };
+          const again = await this.review(uri, reveal, chosen);
+          if (again !== null && Object.keys(overrides).length === 0) {
+            const pairs = Object.entries(again.lastOverrides).map(([key, value]) => `"${key}": ${JSON.stringify(value)}`);
+            void vscode.window.showInformationMessage(`Loudword: reviewed with ${pairs.join(', ')}. To keep ${pairs.length === 1 ? 'it' : 'them'}, set ${pairs.join(', ')} in loudword.json.`);
           }
           return again;
         }

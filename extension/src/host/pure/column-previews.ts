@@ -51,10 +51,17 @@ export function columnPreviews(head: string, format: 'csv' | 'tsv' | 'jsonl'): C
   }));
 }
 
-/** Which field a review error says is missing: 'text', 'label', or null for other errors. */
+/**
+ * Which field a review error says is missing: 'text', 'label', or null for other errors. Also
+ * reads the error once it names where the setting came from (engine/config/blame-setting.ts):
+ * `label "topic": no such field in …` (loudword.json), `--text "body" (command-line flag): …`,
+ * `loudword.labelField "topic" (editor setting): …`.
+ */
 export function missingFieldRole(message: string): 'text' | 'label' | null {
   const m = /^no (text|label) (?:field|column) "/.exec(message);
   if (m) return m[1] as 'text' | 'label';
+  const blamed = /^(?:--|loudword\.)?(text|label)\w* "(?:[^"\\]|\\.)*"(?: \([^)]*\))?: no such field in /.exec(message);
+  if (blamed) return blamed[1] as 'text' | 'label';
   if (/^found no (?:column|key|text column)/.test(message)) return 'text';
   return null;
 }
