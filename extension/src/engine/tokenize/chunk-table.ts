@@ -28,11 +28,12 @@ export class ChunkTable {
   private mask = 0;
   size = 0;
 
-  constructor() {
+  /** `maxEntries`: how many entries it keeps before it starts over (tests pass a small one). */
+  constructor(private readonly maxEntries = MAX_ENTRIES) {
     this.clear();
   }
 
-  /** Forgets every entry (when MAX_ENTRIES is reached; the caller is told by `set`'s result). */
+  /** Forgets every entry (when maxEntries is reached; the caller is told by `set`'s result). */
   clear(): void {
     const capacity = 1 << 16;
     this.slots = new Int32Array(capacity * SLOT);
@@ -76,7 +77,7 @@ export class ChunkTable {
       return true;
     }
     let kept = true;
-    if (this.size >= MAX_ENTRIES) {
+    if (this.size >= this.maxEntries) {
       this.clear();
       kept = false;
     } else if ((this.size + 1) * 2 > this.mask + 1) {
