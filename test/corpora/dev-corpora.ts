@@ -1,3 +1,4 @@
+import { AUSTEN_CHAPTERS } from './austen-chapters';
 import { FORTUNE_CATEGORIES, fortunesAvailable, readFortunes } from './fortunes';
 import { KJV_CHAPTERS } from './kjv-chapters';
 import type { DevCorpus } from './labelled-corpus';
@@ -23,4 +24,4 @@ export const FORTUNES: DevCorpus = {
 };
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
-export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE];
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS];
