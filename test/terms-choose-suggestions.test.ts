@@ -91,6 +91,19 @@ describe('chooseSuggestions', () => {
     assert.equal(brief(d.get(6)), 'keep:opinion');
   });
 
+  it('chooseSuggestions: opinion text — a markup name in under 1% of the documents is the word itself, not residue', () => {
+    // 200 documents of 10 tokens; column 0 'br' in documents 0..39 (20%), column 1 'net' in
+    // document 0 only (0.5%), column 2 fills.
+    const dense: number[][] = [];
+    for (let d = 0; d < 200; d++) dense.push([d < 40 ? 1 : 0, d === 0 ? 1 : 0, 0]);
+    for (const row of dense) row[2] = 10 - row[0]! - row[1]!;
+    const stats = termCountStats(csrOf(dense));
+    const prior = new Map<number, PriorClass>([[0, 'markup'], [1, 'markup']]);
+    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true });
+    assert.equal(brief(d.get(0)), 'suggest:markup');
+    assert.equal(brief(d.get(1)), '—');
+  });
+
   it('chooseSuggestions: suggest.protect wins over every rule; without the prior only df > 0.5 counts', () => {
     assert.equal(brief(decide(false, [0]).get(0)), 'keep:protected');
     const d = decide(false, [], false);

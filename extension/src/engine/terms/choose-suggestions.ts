@@ -66,8 +66,8 @@ export interface ChoiceInput {
  *   degree or contrast word).
  * - A closed-class word of the prior is suggested unless the corpus shows it is burstier than its
  *   typical content word (it then carries a topic here).
- * - Markup residue (tag and entity names, pieces of web addresses) is suggested on opinion text
- *   only. On topic text it is kept unless in more than half the documents: there, the markup
+ * - Markup residue (tag and entity names, pieces of web addresses) in at least CONTENT_DF of the
+ *   documents is suggested on opinion text only. On topic text it is kept unless in more than half the documents: there, the markup
  *   marks a kind of document (HTML mail against plain mail), which can be the very thing that
  *   separates the topics, and where no markup is left the names are ordinary words ("net", "span").
  * - On opinion text, the meaning-bearing prior words are kept and only markup residue, the
@@ -92,6 +92,9 @@ export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
     }
     const meaning = cls !== null && cls !== 'markup' && cls !== 'phrase' && isMeaningClass(cls);
     if (opinion) {
+      // Markup residue needs to be common to be residue: a tag name in a handful of documents is
+      // more likely the word itself ("the net", "a span of years") and moves almost no distance.
+      if (cls === 'markup' && inPrior && !everywhere && signal.docFraction < CONTENT_DF) continue;
       if (cls === 'markup' && inPrior) out.set(c, { suggested: true, reason: 'markup', signal, cls });
       else if (meaning) out.set(c, { suggested: false, reason: 'opinion', signal, cls });
       else if (everywhere) out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
