@@ -1,21 +1,13 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import * as path from 'node:path';
-import { CORPUS_CACHE, cached, squeeze, type DevCorpus, type LabelledDoc } from './labelled-corpus';
+import { cached, squeeze, type DevCorpus, type LabelledDoc, unpackedDebianPackage } from './labelled-corpus';
 import { readRLazyLoadStrings } from './r-lazy-load';
 
 const PACKAGE = 'r-cran-janeaustenr';
-const DATA = path.join(CORPUS_CACHE, PACKAGE, 'usr', 'lib', 'R', 'site-library', 'janeaustenr', 'data');
 
-/** Unpacked into the cache rather than installed: installing would pull in all of R. */
-function unpack(): void {
-  if (existsSync(DATA)) return;
-  const debs = path.join(CORPUS_CACHE, 'debs');
-  mkdirSync(debs, { recursive: true });
-  execFileSync('apt-get', ['download', PACKAGE], { cwd: debs, stdio: 'ignore' });
-  const deb = readdirSync(debs).find((f) => f.startsWith(`${PACKAGE}_`) && f.endsWith('.deb'));
-  if (deb === undefined) throw new Error(`apt-get download ${PACKAGE} left no .deb in ${debs}`);
-  execFileSync('dpkg', ['-x', path.join(debs, deb), path.join(CORPUS_CACHE, PACKAGE)]);
+/** The package's folder of data, unpacked into the cache (installing it would pull in all of R). */
+function unpack(): string {
+  return path.join(unpackedDebianPackage(PACKAGE), 'usr', 'lib', 'R', 'site-library', 'janeaustenr', 'data');
 }
 
 const CHAPTER = /^\s*chapter\s+([ivxlc]+|\d+)\b/i;
@@ -34,17 +26,15 @@ export const AUSTEN_CHAPTERS: DevCorpus = {
   missing: 'apt-get update (the corpus is unpacked from `apt-get download r-cran-janeaustenr`)',
   available: () => {
     try {
-      unpack();
-      return existsSync(DATA);
+      return existsSync(unpack());
     } catch {
       return false;
     }
   },
   load: () =>
     cached('austen-chapters', async () => {
-      unpack();
       const docs: LabelledDoc[] = [];
-      for (const [novel, lines] of readRLazyLoadStrings(DATA)) {
+      for (const [novel, lines] of readRLazyLoadStrings(unpack())) {
         let current: string[] | null = null;
         const flush = (): void => {
           const text = current === null ? '' : squeeze(current.join('\n'));

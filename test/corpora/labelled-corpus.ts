@@ -1,4 +1,5 @@
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 
 /** One document of a labelled development corpus. */
@@ -51,4 +52,21 @@ export function evenlySpaced<T>(items: readonly T[], max: number): T[] {
 /** Whitespace runs to one space, ends trimmed. */
 export function squeeze(text: string): string {
   return text.replace(/\s+/g, ' ').trim();
+}
+
+/**
+ * The files of a Debian package, unpacked into the cache with `apt-get download` + `dpkg -x`
+ * rather than installed (for data packages whose dependencies, such as all of R, are not
+ * needed to read their files). Returns the folder that stands for the package's `/`.
+ */
+export function unpackedDebianPackage(name: string): string {
+  const root = path.join(CORPUS_CACHE, name);
+  if (existsSync(path.join(root, 'usr'))) return root;
+  const debs = path.join(CORPUS_CACHE, 'debs');
+  mkdirSync(debs, { recursive: true });
+  execFileSync('apt-get', ['download', name], { cwd: debs, stdio: 'ignore' });
+  const deb = readdirSync(debs).find((f) => f.startsWith(`${name}_`) && f.endsWith('.deb'));
+  if (deb === undefined) throw new Error(`apt-get download ${name} left no .deb in ${debs}`);
+  execFileSync('dpkg', ['-x', path.join(debs, deb), root]);
+  return root;
 }

@@ -1,23 +1,12 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import { CORPUS_CACHE, squeeze, type DevCorpus, type LabelledDoc } from './labelled-corpus';
+import { squeeze, type DevCorpus, type LabelledDoc, unpackedDebianPackage } from './labelled-corpus';
 
 const PACKAGE = 'r-cran-tm';
-const TEXTS = path.join(CORPUS_CACHE, PACKAGE, 'usr', 'lib', 'R', 'site-library', 'tm', 'texts');
 
-/**
- * The package's files are unpacked into the cache rather than installed: the texts are plain XML
- * and installing the package would pull in all of R.
- */
-function unpack(): void {
-  if (existsSync(TEXTS)) return;
-  const debs = path.join(CORPUS_CACHE, 'debs');
-  mkdirSync(debs, { recursive: true });
-  execFileSync('apt-get', ['download', PACKAGE], { cwd: debs, stdio: 'ignore' });
-  const deb = readdirSync(debs).find((f) => f.startsWith(`${PACKAGE}_`) && f.endsWith('.deb'));
-  if (deb === undefined) throw new Error(`apt-get download ${PACKAGE} left no .deb in ${debs}`);
-  execFileSync('dpkg', ['-x', path.join(debs, deb), path.join(CORPUS_CACHE, PACKAGE)]);
+/** The package's folder of data, unpacked into the cache (installing it would pull in all of R). */
+function unpack(): string {
+  return path.join(unpackedDebianPackage(PACKAGE), 'usr', 'lib', 'R', 'site-library', 'tm', 'texts');
 }
 
 function entity(text: string): string {
@@ -43,19 +32,16 @@ export const REUTERS_SAMPLE: DevCorpus = {
   source: 'Debian r-cran-tm texts/acq + texts/crude (Reuters-21578); label = folder',
   missing: 'apt-get update (the corpus is unpacked from `apt-get download r-cran-tm`)',
   available: () => {
-    if (existsSync(TEXTS)) return true;
     try {
-      unpack();
-      return existsSync(TEXTS);
+      return existsSync(unpack());
     } catch {
       return false;
     }
   },
   load: async () => {
-    unpack();
     const docs: LabelledDoc[] = [];
     for (const label of ['acq', 'crude']) {
-      const dir = path.join(TEXTS, label);
+      const dir = path.join(unpack(), label);
       for (const file of readdirSync(dir).filter((f) => f.endsWith('.xml')).sort()) {
         const xml = readFileSync(path.join(dir, file), 'utf8');
         const title = /<TITLE>([\s\S]*?)<\/TITLE>/.exec(xml)?.[1] ?? '';
