@@ -27,6 +27,9 @@ Chart.register(BarController, BarElement, CategoryScale, Filler, Legend, LinearS
 
 type ChartId = 'similarity' | 'pullLift' | 'cumulativeMass' | 'kOccurrence';
 
+/** The charts that draw the current setting (baseline against it); the others show the Report alone. */
+const DEPENDS_ON_CURRENT: ReadonlySet<ChartId> = new Set(['similarity', 'kOccurrence']);
+
 interface Figure {
   id: ChartId;
   title: string;
@@ -102,12 +105,17 @@ export class ChartPanel {
     }
   }
 
-  /** The current setting changed (what-if result or reset): swap data, keep the canvases. */
+  /**
+   * The current setting changed (what-if result or reset): swap the data of the two charts that
+   * show it, keep the canvases. Pull share against lift and the top terms' mass describe the
+   * Report alone; rebuilding them (thousands of points) on every toggle cost the click most of
+   * its time in the panel.
+   */
   update(current: Setting): void {
     this.current = current;
     if (this.charts.size === 0) return;
     const theme = readChartTheme();
-    for (const [id, config] of this.configs(theme)) {
+    for (const [id, config] of this.configs(theme, DEPENDS_ON_CURRENT)) {
       const chart = this.charts.get(id);
       if (!chart) continue;
       chart.data = config.data as Chart['data'];
@@ -120,14 +128,15 @@ export class ChartPanel {
     this.charts.clear();
   }
 
-  private configs(theme: ReturnType<typeof readChartTheme>): Array<[ChartId, ChartConfiguration<'line' | 'scatter' | 'bar', unknown[]>]> {
+  private configs(theme: ReturnType<typeof readChartTheme>, only: ReadonlySet<ChartId> | null = null): Array<[ChartId, ChartConfiguration<'line' | 'scatter' | 'bar', unknown[]>]> {
     const baseline: Setting = { label: 'baseline', distributions: this.report.baseline.distributions };
     const k = this.report.baseline.sample.k;
-    return [
-      ['similarity', similarityConfig(baseline, this.current, theme) as ChartConfiguration<'line', unknown[]>],
-      ['pullLift', pullLiftConfig(this.report.terms, new Set(this.report.suggestions), theme) as ChartConfiguration<'scatter', unknown[]>],
-      ['cumulativeMass', cumulativeMassConfig(baseline, theme) as ChartConfiguration<'line', unknown[]>],
-      ['kOccurrence', kOccurrenceConfig(baseline, this.current, k, theme) as ChartConfiguration<'bar', unknown[]>],
+    const build: Array<[ChartId, () => ChartConfiguration<'line' | 'scatter' | 'bar', unknown[]>]> = [
+      ['similarity', () => similarityConfig(baseline, this.current, theme) as ChartConfiguration<'line', unknown[]>],
+      ['pullLift', () => pullLiftConfig(this.report.terms, new Set(this.report.suggestions), theme) as ChartConfiguration<'scatter', unknown[]>],
+      ['cumulativeMass', () => cumulativeMassConfig(baseline, theme) as ChartConfiguration<'line', unknown[]>],
+      ['kOccurrence', () => kOccurrenceConfig(baseline, this.current, k, theme) as ChartConfiguration<'bar', unknown[]>],
     ];
+    return build.filter(([id]) => only === null || only.has(id)).map(([id, make]) => [id, make()]);
   }
 }
