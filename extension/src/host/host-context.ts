@@ -39,7 +39,9 @@ export class HostContext {
       this.store.focus(review);
       this.store.notify(review);
       await vscode.commands.executeCommand('setContext', 'loudword.hasReview', true);
-      await this.updateActiveContext();
+      // The review just asked for keeps the panel, even when the active editor shows another
+      // reviewed corpus (a folder reviewed from the explorer is no editor's document).
+      await this.updateActiveContext(false);
       if (reveal) await this.panel?.reveal();
       return review;
     } catch (e) {
@@ -117,11 +119,14 @@ export class HostContext {
     await vscode.window.showTextDocument(doc, { selection: new vscode.Range(at, at) });
   }
 
-  /** Keeps `loudword.activeEditorReviewed` (menus) and the panel's focus on the active corpus. */
-  async updateActiveContext(): Promise<void> {
+  /**
+   * Keeps `loudword.activeEditorReviewed` (menus) and, with `refocus`, the panel's focus on the
+   * active corpus.
+   */
+  async updateActiveContext(refocus = true): Promise<void> {
     const editor = vscode.window.activeTextEditor;
     const review = editor === undefined ? undefined : this.store.get(editor.document.uri);
-    if (review?.report != null) this.store.focus(review);
+    if (refocus && review?.report != null) this.store.focus(review);
     await vscode.commands.executeCommand('setContext', 'loudword.activeEditorReviewed', review?.report != null);
   }
 }
