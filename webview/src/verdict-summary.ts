@@ -3,7 +3,7 @@
 // bottom-panel height this is what shows before any scrolling.
 
 import type { Report, Verdict } from '../../extension/src/protocol';
-import { formatNumber, formatShare } from '../../extension/src/number-format';
+import { formatShare } from '../../extension/src/number-format';
 import { el, type Child } from './create-element';
 
 /** How many of the loudest terms the summary names. */
@@ -27,10 +27,14 @@ export function renderVerdictSummary(report: Report): HTMLElement {
 function renderVerdict(v: Verdict): Child[] {
   const out: Child[] = [el('p', { className: 'lw-verdict__headline', text: v.headline })];
   if (v.estimate) {
+    // The one judgement first (the CLI leads with the same words), then the figure it rests on,
+    // with the digits the headline uses: three for a precision, two for neighbour standout.
     const e = v.estimate;
-    const signed = (x: number) => (x > 0 ? `+${formatNumber(x)}` : formatNumber(x));
-    const how = e.method === 'seeds' ? `${e.draws} re-drawn samples` : `${e.draws} bootstrap draws`;
-    out.push(el('p', { className: 'lw-verdict__estimate', text: `${e.measure}: ${signed(e.change)} with the suggested list (${signed(e.low)} to ${signed(e.high)} over ${how}).` }));
+    const digits = /precision/i.test(e.measure) ? 3 : 2;
+    const signed = (x: number) => `${x > 0 ? '+' : ''}${x.toFixed(digits)}`;
+    const judged = v.outcome === 'helps' ? 'The suggested list helps' : v.outcome === 'hurts' ? 'The suggested list hurts' : 'No clear change';
+    const spread = e.method === 'seeds' ? `${signed(e.low)} to ${signed(e.high)} over ${e.draws} re-drawn samples` : `95% interval ${signed(e.low)} to ${signed(e.high)}, ${e.draws} bootstrap draws`;
+    out.push(el('p', { className: 'lw-verdict__estimate', text: `${judged}: ${e.measure} ${signed(e.change)} (${spread}).` }));
   }
   if (v.caveats.length > 0) {
     out.push(el('ul', { className: 'lw-verdict__caveats' }, v.caveats.map((c) => el('li', {}, [el('span', { className: 'lw-verdict__measure', text: `${c.measure}: ` }), c.sentence]))));
