@@ -5,8 +5,8 @@
 // project's own generated data) as 4 JSON Lines shards (fixtures/ticket-shards/).
 import path from 'node:path';
 import { cliReport } from '../lib/cli-report.mjs';
-import { panelShowing, readFacts, readTiles, headlineMeasures } from '../lib/distance-review-panel.mjs';
-import { assertShows } from '../lib/shown-number.mjs';
+import { panelShowing } from '../lib/distance-review-panel.mjs';
+import { headlineMismatches } from '../lib/headline-mismatches.mjs';
 import { waitForCommand } from '../lib/workbench.mjs';
 import { waitUntil } from '../lib/wait-until.mjs';
 
@@ -31,27 +31,7 @@ export const reviewShardsFolder = {
     await item.click();
     const frame = await panelShowing(page, FOLDER, 240000);
     const report = await cli;
-    const facts = await readFacts(frame);
-    const tiles = await readTiles(frame);
-    const problems = [];
-    const check = (fn) => {
-      try {
-        fn();
-      } catch (e) {
-        problems.push(e.message);
-      }
-    };
-    check(() => assertShows(facts.documents ?? '', report.input.documents, 'documents'));
-    check(() => assertShows(facts.terms ?? '', report.vocabulary.terms, 'terms'));
-    for (const [id, value] of Object.entries(headlineMeasures)) {
-      const tile = tiles[id];
-      if (!tile) {
-        problems.push(`no tile for ${id}`);
-        continue;
-      }
-      check(() => assertShows(tile.baseline ?? '', value(report.baseline), `${id} baseline`));
-      check(() => assertShows(tile.suggested ?? '', value(report.suggested), `${id} with suggestions`));
-    }
+    const problems = await headlineMismatches(frame, report);
     if (problems.length > 0) throw new Error(problems.join('; '));
   },
 };
