@@ -1,5 +1,5 @@
-// (Slow suite: a whole-corpus review plus a scikit-learn run.) The opinion-text branch of the suggestion rule (docs/methods.md §9) on real rated text, without
-// the labels. Corpus: the UCI "Sentiment Labelled Sentences" (Kotzias et al. 2015, KDD) — 3,000
+// The opinion-text branch of the suggestion rule (docs/methods.md §9) on real rated text, without
+// the labels (slow suite: a whole-corpus review plus a scikit-learn run). Corpus: the UCI "Sentiment Labelled Sentences" (Kotzias et al. 2015, KDD) — 3,000
 // one-sentence reviews of products, films and restaurants, each labelled positive or negative by
 // its author — as shipped in the test fixtures of the npm package `sentiment` (devDependency).
 // It is a CHECK corpus (test/corpora/README.md): the opinion bounds were set before it was seen.
