@@ -1,9 +1,10 @@
 // The opinion-text branch of the suggestion rule (docs/methods.md §9) on real rated text, without
-// the labels (slow suite: a whole-corpus review plus a scikit-learn run). Corpus: the UCI "Sentiment Labelled Sentences" (Kotzias et al. 2015, KDD) — 3,000
-// one-sentence reviews of products, films and restaurants, each labelled positive or negative by
-// its author — as shipped in the test fixtures of the npm package `sentiment` (devDependency).
-// It is a CHECK corpus (test/corpora/README.md): the opinion bounds were set before it was seen.
-// Reference: scikit-learn (Debian python3-sklearn) leave-one-out k-NN precision@10, as in
+// the labels; slow suite, being a whole-corpus review plus a scikit-learn run. Corpus: the UCI
+// "Sentiment Labelled Sentences" (Kotzias et al. 2015, KDD): 3,000 one-sentence reviews of
+// products, films and restaurants, each labelled positive or negative by its author, as shipped in
+// the test fixtures of the npm package `sentiment` (devDependency). It is a CHECK corpus
+// (test/corpora/README.md): the opinion bounds were set before it was seen. Reference:
+// scikit-learn (Debian python3-sklearn) leave-one-out k-NN precision@10, as in
 // test/quality/precision_at_k.py; the English list lowers it here (negations carry the label).
 import { strict as assert } from 'node:assert';
 import { execFileSync } from 'node:child_process';
