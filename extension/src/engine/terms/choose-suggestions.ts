@@ -29,7 +29,7 @@ export const CONTENT_DF = 0.01;
 export const CONTENT_MIN_DOCS = 3;
 export const FALLBACK_LIMIT = 1;
 
-/** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents (and at least CONTENT_MIN_DOCS). */
+/** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents and CONTENT_MIN_DOCS documents. */
 export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<number, PriorClass>): number {
   const values: number[] = [];
   const minDocs = Math.max(CONTENT_MIN_DOCS, CONTENT_DF * stats.documents);
@@ -67,9 +67,10 @@ export interface ChoiceInput {
  * - A closed-class word of the prior is suggested unless the corpus shows it is burstier than its
  *   typical content word (it then carries a topic here).
  * - Markup residue (tag and entity names, pieces of web addresses) in at least CONTENT_DF of the
- *   documents is suggested on opinion text only. On topic text it is kept unless in more than half the documents: there, the markup
- *   marks a kind of document (HTML mail against plain mail), which can be the very thing that
- *   separates the topics, and where no markup is left the names are ordinary words ("net", "span").
+ *   documents is suggested on opinion text only. On topic text it is kept unless in more than
+ *   half the documents: there the markup marks a kind of document (HTML mail against plain mail),
+ *   which can be the very thing that separates the topics, and where no markup is left the names
+ *   are ordinary words ("net", "span").
  * - On opinion text, the meaning-bearing prior words are kept and only markup residue, the
  *   grammar words in more than half the documents, and nothing else is suggested.
  * Returns a decision for every column the rules looked at; the rest are plain kept terms.
@@ -94,7 +95,7 @@ export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
     if (opinion) {
       // Markup residue needs to be common to be residue: a tag name in a handful of documents is
       // more likely the word itself ("the net", "a span of years") and moves almost no distance.
-      if (cls === 'markup' && inPrior && !everywhere && signal.docFraction < CONTENT_DF) continue;
+      if (cls === 'markup' && inPrior && signal.docFraction < CONTENT_DF) continue;
       if (cls === 'markup' && inPrior) out.set(c, { suggested: true, reason: 'markup', signal, cls });
       else if (meaning) out.set(c, { suggested: false, reason: 'opinion', signal, cls });
       else if (everywhere) out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
