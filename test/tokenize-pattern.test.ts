@@ -1,6 +1,7 @@
 import { strict as assert } from 'node:assert';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
+import { createTermCoder, createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
+import { IdList } from '../extension/src/engine/tokenize/id-list';
 import { translatePythonPattern } from '../extension/src/engine/tokenize/pattern-tokenizer';
 import { UserError } from '../extension/src/engine/user-error';
 import { requireSklearn } from './reference/run-sklearn';
@@ -57,6 +58,27 @@ describe('tokenize: tokenizer "pattern" equals scikit-learn\'s analyzer', functi
   });
   it(`${name}: default token_pattern, case kept, unigrams and bigrams`, () => {
     assertSameTokens(createTokenizer({ ...base, lowercase: false, ngrams: 2 }), theirs[1]!, unicode);
+  });
+
+  it('the default pattern\'s word-run scan (word-run-coder.ts) gives the regex path\'s terms: both cases, minLength 3, lone surrogates, astral letters', () => {
+    // "(?:\\b\\w\\w+\\b)" means the default pattern but is not spelled like it, so it takes the regex
+    // path; the ids of both coders must decode to the same terms, document by document.
+    const docs = [...unicode, 'x\ud800y ab\udc00cd \ud835\udc9c\ud835\udcb7 \ud835\udc9c\ud835\udcb7\ud835\udcb8 \ud801\udc00\ud801\udc01z \ud83d\ude00a', 'a', '', '__ _ ab'];
+    for (const options of [{ lowercase: true, minLength: 1 }, { lowercase: false, minLength: 1 }, { lowercase: true, minLength: 3 }]) {
+      const settings = { ...base, ...options };
+      const decode = (regexPath: boolean): string[][] => {
+        const coder = createTermCoder(regexPath ? { ...settings, pattern: '(?:\\b\\w\\w+\\b)' } : settings);
+        const ids = new IdList();
+        const ends = new Uint32Array(docs.length);
+        coder.encodeAll(docs, ids, ends, []);
+        return docs.map((_, d) => Array.from(ids.array.subarray(d === 0 ? 0 : ends[d - 1], ends[d]), (id) => coder.terms[id]!));
+      };
+      const scanned = decode(false);
+      assert.ok(scanned.some((terms) => terms.includes('\ud835\udc9c\ud835\udcb7\ud835\udcb8')), 'an astral word run is a term');
+      // minLength counts code points: at 3 the two-letter astral run (4 code units) is dropped.
+      assert.equal(scanned.some((terms) => terms.includes('\ud835\udc9c\ud835\udcb7')), options.minLength < 3);
+      assert.deepEqual(scanned, decode(true), JSON.stringify(options));
+    }
   });
 
   it('user patterns in Python syntax: \\w+ with \\b, a class with \\d, a capturing group (the group is the token)', () => {

@@ -2,11 +2,12 @@ import type { WinkMethods } from 'wink-nlp';
 import { TOKEN_KINDS, type EffectiveSettings, type TokenKind } from '../../protocol';
 import { chunkCachedUnigrams } from './chunk-cached-unigrams';
 import { cutLongRuns } from './long-runs';
-import { compileTokenPattern, patternTokens, SKLEARN_TOKEN_PATTERN } from './pattern-tokenizer';
+import { compileTokenPattern, patternTokens, SKLEARN_TOKEN_PATTERN, translatePythonPattern } from './pattern-tokenizer';
 import { createTermOf } from './term-of-token';
 import { decodingTokenizer, internedCoder, type TermCoder } from './term-coder';
 import { winkInstance, winkStemmer } from './wink-instance';
 import { winkSplitsLikeThis } from './wink-splitter';
+import { wordRunCoder } from './word-run-coder';
 
 /** The token settings; `tokenizer` defaults to "wink" and `pattern` to scikit-learn's default. */
 export type TokenSettings = Omit<EffectiveSettings['tokens'], 'tokenizer' | 'pattern'> & Partial<Pick<EffectiveSettings['tokens'], 'tokenizer' | 'pattern'>>;
@@ -77,13 +78,14 @@ export function createTokenizer(settings: TokenSettings, engine: TokenizerEngine
 
 /**
  * The same tokenizer as term ids (term-coder.ts): the unigram wink path encodes straight from
- * its chunk cache to ids; the other paths intern the strings `createTokenizer` gives.
+ * its chunk cache to ids, scikit-learn's default pattern from its word runs (word-run-coder.ts);
+ * the other paths intern the strings `createTokenizer` gives.
  */
 export function createTermCoder(settings: TokenSettings, engine: TokenizerEngine = {}): TermCoder {
   return chunkCoder(settings, engine) ?? internedCoder(wholeDocumentTokenizer(settings, engine));
 }
 
-/** Checks the settings; the chunk-cached coder when they allow it, else null. */
+/** Checks the settings; the chunk-cached (wink) or word-run (pattern) coder when they allow it, else null. */
 function chunkCoder(settings: TokenSettings, engine: TokenizerEngine): TermCoder | null {
   const { minLength, ngrams } = settings;
   if (!Number.isInteger(minLength) || minLength < 0) throw new RangeError(`tokens.minLength must be a whole number ≥ 0, got ${minLength}`);
@@ -92,7 +94,8 @@ function chunkCoder(settings: TokenSettings, engine: TokenizerEngine): TermCoder
   if (settings.tokenizer !== undefined && settings.tokenizer !== 'wink' && settings.tokenizer !== 'pattern') {
     throw new RangeError(`tokens.tokenizer must be "wink" or "pattern", got ${String(settings.tokenizer)}`);
   }
-  if (settings.tokenizer === 'pattern' || ngrams !== 1 || engine.chunkCache === false || !winkSplitsLikeThis()) return null;
+  if (settings.tokenizer === 'pattern') return isDefaultPatternUnigrams(settings) ? wordRunCoder(settings.lowercase, minLength) : null;
+  if (ngrams !== 1 || engine.chunkCache === false || !winkSplitsLikeThis()) return null;
   return chunkCachedUnigrams(engine.nlp ?? winkInstance('tokens'), settings.lowercase, createTermOf(settings));
 }
 
@@ -166,6 +169,13 @@ function patternTokenizer(settings: TokenSettings): Tokenizer {
     return kept;
   };
   return Object.defineProperty(tokenize, 'longRunsCut', { get: () => 0 }) as Tokenizer;
+}
+
+/** scikit-learn's default pattern, unigrams, no stemmer: word-run-coder.ts scans it without a regex. */
+function isDefaultPatternUnigrams(settings: TokenSettings): boolean {
+  if (settings.ngrams !== 1 || settings.stem) return false;
+  const pattern = settings.pattern ?? SKLEARN_TOKEN_PATTERN;
+  return pattern === SKLEARN_TOKEN_PATTERN || translatePythonPattern(pattern) === translatePythonPattern(SKLEARN_TOKEN_PATTERN);
 }
 
 function codePoints(s: string): number {

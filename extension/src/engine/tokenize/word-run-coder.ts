@@ -1,0 +1,119 @@
+import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME } from './chunk-table';
+import { Vocabulary, type TermCoder } from './term-coder';
+
+/**
+ * The coder of scikit-learn's default token pattern, `(?u)\b\w\w+\b`, for unigrams: its matches
+ * are exactly the maximal runs of word characters (Python's Unicode `\w`: letters, numbers, "_",
+ * by code point) of two code points or more — a match starts where a run starts and `\w+` is
+ * greedy up to the run's end, while a run of one code point matches nowhere. So instead of a
+ * regular expression, a substring per token and a `Map` lookup per token (the larger part of the
+ * regex path's time), one scan classifies code units through a table, hashes each run as it goes,
+ * and looks the run up in place (chunk-table.ts); only a term met for the first time in a while
+ * becomes a string. The terms equal the regex path's (pattern-tokenizer.ts), which equals
+ * scikit-learn's `build_analyzer()`; test/tokenize-pattern.test.ts compares all three.
+ *
+ * `minLength` drops runs shorter than that many code points (as the regex path does after it).
+ */
+export function wordRunCoder(lowercase: boolean, minLength: number): TermCoder {
+  const vocabulary = new Vocabulary();
+  // A cache in front of the vocabulary: when it starts over (a bound on its memory), runs are
+  // found through the vocabulary again and get the ids they had.
+  const table = new ChunkTable();
+  const shortest = Math.max(2, minLength);
+  const bmp = wordUnits();
+  return {
+    encodeAll(texts, out, docEnds) {
+      for (let d = 0; d < texts.length; d++) {
+        const s = lowercase ? texts[d]!.toLowerCase() : texts[d]!;
+        const n = s.length;
+        out.reserve(n >>> 2);
+        let i = 0;
+        while (i < n) {
+          let c = s.charCodeAt(i);
+          if (bmp[c] === 0) {
+            i++;
+            continue;
+          }
+          if (bmp[c] === SURROGATE && !isAstralWord(s, i)) {
+            i += isPair(s, i) ? 2 : 1;
+            continue;
+          }
+          // A run starts at i: hash its code units and count its code points up to its end.
+          const start = i;
+          let h = FNV_OFFSET;
+          let points = 0;
+          for (;;) {
+            if (bmp[c] === SURROGATE) {
+              if (!isAstralWord(s, i)) break;
+              h = Math.imul(h ^ c, FNV_PRIME);
+              h = Math.imul(h ^ s.charCodeAt(i + 1), FNV_PRIME);
+              i += 2;
+            } else {
+              h = Math.imul(h ^ c, FNV_PRIME);
+              i++;
+            }
+            points++;
+            if (i >= n) break;
+            c = s.charCodeAt(i);
+            if (bmp[c] === 0) break;
+          }
+          if (points < shortest) continue;
+          let id = table.get(s, start, i, h);
+          if (id === ABSENT) {
+            const term = s.slice(start, i);
+            id = vocabulary.id(term);
+            table.set(term, id);
+          }
+          out.push(id);
+        }
+        docEnds[d] = out.length;
+      }
+    },
+    terms: vocabulary.terms,
+    longRunsCut: 0,
+  };
+}
+
+/** Values of the code unit table: not a word character, a word character, a surrogate. */
+const WORD = 1;
+const SURROGATE = 2;
+
+/** Python's `\w` on str patterns as pattern-tokenizer.ts translates it. */
+const WORD_POINT = /^[\p{L}\p{N}_]$/u;
+
+let units: Uint8Array | null = null;
+
+/** For each UTF-16 code unit: 1 when it is a word character alone, 2 for a surrogate, else 0. */
+function wordUnits(): Uint8Array {
+  if (units !== null) return units;
+  const t = new Uint8Array(0x10000);
+  for (let c = 0; c < 0x10000; c++) {
+    if (c >= 0xd800 && c <= 0xdfff) t[c] = SURROGATE;
+    else if (WORD_POINT.test(String.fromCharCode(c))) t[c] = WORD;
+  }
+  units = t;
+  return t;
+}
+
+/** s[i] is a high surrogate followed by a low one. */
+function isPair(s: string, i: number): boolean {
+  const c = s.charCodeAt(i);
+  if (c < 0xd800 || c > 0xdbff || i + 1 >= s.length) return false;
+  const d = s.charCodeAt(i + 1);
+  return d >= 0xdc00 && d <= 0xdfff;
+}
+
+/** Astral code points known to be word characters (true) or not (false), as met. */
+const astral = new Map<number, boolean>();
+
+/** s[i] starts a surrogate pair whose code point is a word character (a lone surrogate is not). */
+function isAstralWord(s: string, i: number): boolean {
+  if (!isPair(s, i)) return false;
+  const point = s.codePointAt(i)!;
+  let word = astral.get(point);
+  if (word === undefined) {
+    word = WORD_POINT.test(String.fromCodePoint(point));
+    astral.set(point, word);
+  }
+  return word;
+}
