@@ -11,6 +11,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
+import { suggestionLines } from '../extension/src/engine/terms/stop-list-spelling';
 import type { ReviewSession } from '../extension/src/engine/review/review-api';
 import { readFortunes, type Fortune } from './corpora/fortunes';
 
@@ -67,7 +68,7 @@ describe('startReview on Debian fortunes (labels kept from the review)', functio
       texts: fortunes.map((f) => f.text),
       labels: fortunes.map((f) => f.category),
       k: 10,
-      stop_lists: { none: null, english: 'english', maxDf: { max_df: 0.5 }, ours: session.report.suggestions },
+      stop_lists: { none: null, english: 'english', maxDf: { max_df: 0.5 }, ours: suggestionLines(session.report) },
     };
     const out = execFileSync('/usr/bin/python3', [path.join(__dirname, 'quality', 'precision_at_k.py')], {
       input: JSON.stringify(job),

@@ -12,6 +12,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
+import { suggestionLines } from '../extension/src/engine/terms/stop-list-spelling';
 import type { ReviewSession } from '../extension/src/engine/review/review-api';
 import { MEANING_WORDS } from '../extension/src/engine/terms/function-words';
 import type { LabelledDoc } from './corpora/labelled-corpus';
@@ -48,7 +49,7 @@ describe('startReview on rated one-sentence reviews (labels kept from the review
       texts: docs.map((d) => d.text),
       labels: docs.map((d) => d.label),
       k: 10,
-      stop_lists: { none: null, english: 'english', ours: session.report.suggestions },
+      stop_lists: { none: null, english: 'english', ours: suggestionLines(session.report) },
     };
     const out = execFileSync('/usr/bin/python3', [path.join(__dirname, 'quality', 'precision_at_k.py')], { input: JSON.stringify(job), maxBuffer: 1 << 26 });
     const p = JSON.parse(out.toString()) as { none: number; english: number; ours: number };

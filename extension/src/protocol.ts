@@ -111,6 +111,11 @@ export interface Report {
   suggested: Measures;
   terms: TermRow[];
   suggestions: string[];
+  /**
+   * The plain spelling a stop list file gets for a suggested term whose tokenizer spelling differs
+   * ("thru" → "through"); only such terms are listed (engine/terms/stop-list-spelling.ts).
+   */
+  suggestionSpellings?: Record<string, string> | undefined;
   /** What the suggested list does to neighbour quality, read first (engine/terms/judge-suggestions.ts). */
   verdict: Verdict;
   hubs: HubRow[];

@@ -11,6 +11,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { startReview } from '../../extension/src/engine/review/start-review';
+import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
 import { DEV_CORPORA } from '../corpora/dev-corpora';
 
 const PYTHON = '/usr/bin/python3';
@@ -46,7 +47,8 @@ async function main(): Promise<void> {
       const started = performance.now();
       const session = await startReview({ file, configPath: null, overrides: { text: 'text', label: null, stopList: null } });
       const seconds = (performance.now() - started) / 1000;
-      const suggestions = session.report.suggestions;
+      // What `loudword apply` writes to a stop list file (plain spellings: "through", not "thru").
+      const suggestions = suggestionLines(session.report);
       const job = {
         texts: docs.map((d) => d.text),
         labels: docs.map((d) => d.label),

@@ -1,6 +1,7 @@
 import type { Report } from '../protocol';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
+import { suggestionLines } from '../engine/terms/stop-list-spelling';
 import { provenanceLine } from './format-provenance';
 import { count } from './text-layout';
 
@@ -37,7 +38,7 @@ export function formatMarkdown(report: Report): string {
     out.push(`| ${spec.label} | ${spec.format(a)} | ${spec.format(b)} | ${judgedChangeWord(spec, a, b)} |`);
   }
   out.push('');
-  out.push(report.suggestions.length > 0 ? `**Suggested stop terms (${report.suggestions.length}):** ${report.suggestions.map(cell).join(', ')}` : 'No stop terms suggested.');
+  out.push(report.suggestions.length > 0 ? `**Suggested stop terms (${report.suggestions.length}):** ${suggestionLines(report).map(cell).join(', ')}` : 'No stop terms suggested.');
   out.push('');
   out.push('| term | status | df | pull share | neighbour lift | why |');
   out.push('|---|---|---:|---:|---:|---|');

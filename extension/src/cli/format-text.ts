@@ -3,6 +3,7 @@ import { provenanceLine } from './format-provenance';
 import { count, verb, wrapLines } from './text-layout';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
+import { suggestionLines } from '../engine/terms/stop-list-spelling';
 
 const TERMS_SHOWN = 15;
 const HUBS_SHOWN = 5;
@@ -44,7 +45,7 @@ export function formatText(report: Report): string {
   out.push('');
 
   if (report.suggestions.length > 0) {
-    out.push(`Suggested stop terms (${report.suggestions.length}): ${report.suggestions.join(', ')}`);
+    out.push(`Suggested stop terms (${report.suggestions.length}): ${suggestionLines(report).join(', ')}`);
   } else {
     out.push('No stop terms suggested (see the verdict above for why).');
   }

@@ -5,6 +5,7 @@ import { isUserError } from '../engine/user-error';
 import { startReview } from '../engine/review/start-review';
 import { appendTerms, readStopList, replaceStopList } from '../engine/stoplist/stop-list-file';
 import { ADDED_TERMS_HEADING } from '../engine/stoplist/add-terms-to-stop-list';
+import { suggestionLines } from '../engine/terms/stop-list-spelling';
 import { loadWebviewAssets, renderStandaloneReport } from '../html/standalone-report';
 import { LOUDWORD_VERSION } from '../engine/review/version';
 import { formatMarkdown } from './format-markdown';
@@ -97,7 +98,8 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   // Read again now, just before writing: the bytes the rename will be checked against.
   const list = await readStopList(file);
   // Under the same '# added by Loudword' line the editor's quick fixes write (one engine function).
-  const result = appendTerms(list, report.suggestions, { heading: ADDED_TERMS_HEADING });
+  // Each in its plain spelling ("through", not wink's "thru"): the line other pipelines match too.
+  const result = appendTerms(list, suggestionLines(report), { heading: ADDED_TERMS_HEADING });
   const leftOut = result.unrepresentable.length > 0
     ? `Left out ${count(result.unrepresentable.length, 'term')} that ${file} (${list.encoding}) cannot hold: ${result.unrepresentable.join(', ')}\n`
     : '';

@@ -5,6 +5,7 @@ import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { ADDED_TERMS_HEADING, addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
 import { removeTermsFromStopList } from '../engine/stoplist/remove-terms-from-stop-list';
+import { stopListLine } from '../engine/terms/stop-list-spelling';
 import type { CorpusReview } from './corpus-review';
 import { checkLineEdits, type LineEdit } from './pure/text-edit-ranges';
 import { confineForRestrictedMode, workspaceRootOf } from './review-input';
@@ -53,12 +54,14 @@ export async function addTermsToReviewStopList(review: CorpusReview, terms: read
   } else {
     edit.createFile(uri, { ignoreIfExists: true });
   }
-  const result = addTermsToStopList(text, [...terms], { heading: ADDED_TERMS_HEADING });
+  // Each term in its plain spelling ("through" for wink's "thru"), as `loudword apply` writes it.
+  const termOfLine = new Map(terms.map((t) => [review.report === null ? t : stopListLine(review.report, t), t]));
+  const result = addTermsToStopList(text, [...termOfLine.keys()], { heading: ADDED_TERMS_HEADING });
   if (result.edit === null || result.added.length === 0) return { added: [], stopList: uri };
   const [checked] = checkLineEdits([result.edit], text);
   edit.replace(uri, toRange(checked!), checked!.newText);
   if (!(await vscode.workspace.applyEdit(edit))) throw new Error(`the editor refused the edit to ${path.basename(uri.fsPath)}`);
-  for (const t of result.added) review.addedSinceReview.add(t);
+  for (const line of result.added) review.addedSinceReview.add(termOfLine.get(line) ?? line);
   return { added: result.added, stopList: uri };
 }
 

@@ -40,6 +40,7 @@ export function assembleReport(p: ReportParts): Report {
     suggested: p.termReview.suggested.measures,
     terms: p.termReview.rows,
     suggestions: p.termReview.suggestions,
+    suggestionSpellings: p.termReview.spellings,
     verdict: p.termReview.verdict,
     hubs: hubRows(p),
     stopList: { file: p.stopList.file, terms: p.stopList.terms.length, unused: p.stopList.unused },

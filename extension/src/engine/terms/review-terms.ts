@@ -8,6 +8,7 @@ import { explainTerm } from './explain-term';
 import { judgeSuggestions } from './judge-suggestions';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS, opinionShare } from './opinion-check';
 import { priorColumns, protectedColumns } from './prior-columns';
+import { stopListSpellings } from './stop-list-spelling';
 import type { TermCountStats } from './term-count-stats';
 import { termScores, type TermScores } from './term-scores';
 
@@ -29,6 +30,8 @@ export interface TermReviewInput {
 export interface TermReview {
   rows: TermRow[];
   suggestions: string[];
+  /** Plain spellings for the stop list file, where the tokenizer's differ (stop-list-spelling.ts). */
+  spellings: Record<string, string>;
   /** The measures with the suggestions removed (turnover against the baseline). */
   suggested: DistanceResult;
   /** Share of sampled documents with a clear opinion, and whether that made it opinion text. */
@@ -119,7 +122,8 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   let agreedStopped = 0;
   for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
   const verdict = judgeSuggestions({ lab, baseMask, suggestedMask, suggestions, baseline: baseline.measures, suggested: suggested.measures, opinion, agreedStopped });
-  return { rows, suggestions, suggested, opinion, suggestedMask, verdict };
+  const spellings = stopListSpellings(suggestions, tokenize);
+  return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
 
 /** `max` texts at evenly spaced positions (positions ⌊i·n/max⌋; engine/shards/ fetches the same ones). */

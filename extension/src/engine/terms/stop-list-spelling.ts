@@ -1,0 +1,34 @@
+import type { Report } from '../../protocol';
+import { MARKUP_NAMES } from './markup-names';
+import { wordClasses } from './function-words';
+
+/**
+ * How each suggested term is written in a stop list when the plain word differs from the
+ * tokenizer's spelling of it. wink-nlp's normal form of "through" is "thru": a stop list line
+ * "through" still stops the term here (every entry goes through the tokenizer, review/
+ * load-stop-list.ts), and it is the word other pipelines match — scikit-learn compares its
+ * `stop_words` with its own tokens, which keep "through" (docs/methods.md §9, "Spelling").
+ * Only words of the prior have a known plain spelling; every other term is written as it is.
+ */
+export function stopListSpellings(suggestions: readonly string[], tokenize: (text: string) => string[]): Record<string, string> {
+  const wanted = new Set(suggestions);
+  const out: Record<string, string> = {};
+  for (const word of [...wordClasses().keys(), ...MARKUP_NAMES]) {
+    const tokens = tokenize(word);
+    if (tokens.length !== 1) continue;
+    const term = tokens[0]!;
+    // The first prior word of a term wins, so the choice does not depend on the corpus.
+    if (term !== word && wanted.has(term) && !(term in out)) out[term] = word;
+  }
+  return out;
+}
+
+/** The line a term gets in a stop list: its plain spelling when it has one. */
+export function stopListLine(report: Pick<Report, 'suggestionSpellings'>, term: string): string {
+  return report.suggestionSpellings?.[term] ?? term;
+}
+
+/** The suggestions as a stop list writes them, in the Report's order. */
+export function suggestionLines(report: Pick<Report, 'suggestions' | 'suggestionSpellings'>): string[] {
+  return report.suggestions.map((t) => stopListLine(report, t));
+}

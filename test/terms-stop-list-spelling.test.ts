@@ -1,0 +1,65 @@
+// A suggested term is written to a stop list in a spelling that both this tool and the user's
+// pipeline match (engine/terms/stop-list-spelling.ts). Outside reference: scikit-learn's analyzer
+// (Debian python3-sklearn), which compares `stop_words` with its own tokens as written.
+import { strict as assert } from 'node:assert';
+import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
+import { startReview } from '../extension/src/engine/review/start-review';
+import { createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
+import { MARKUP_NAMES } from '../extension/src/engine/terms/markup-names';
+import { wordClasses } from '../extension/src/engine/terms/function-words';
+import { stopListLine, stopListSpellings, suggestionLines } from '../extension/src/engine/terms/stop-list-spelling';
+import { sklearnTokens } from './support/sklearn-analyzer';
+
+describe('stop list spelling of suggested terms', function () {
+  this.timeout(120_000);
+  const tokenize = createTokenizer(DEFAULT_SETTINGS.tokens);
+  const prior = [...wordClasses().keys(), ...MARKUP_NAMES];
+
+  it('stopListSpellings: wink spells "through" as "thru"; the stop list gets "through", other terms as they are', () => {
+    assert.deepEqual(tokenize('through'), ['thru'], 'wink-nlp normal form (observed in wink-eng-lite-web-model)');
+    assert.deepEqual(stopListSpellings(['thru', 'the', 'zebra'], tokenize), { thru: 'through' });
+    assert.deepEqual(stopListSpellings(['the'], tokenize), {}, 'only suggested terms are listed');
+  });
+
+  it('every plain spelling goes back to its term through the tokenizer (a stop list line stops the suggested term)', () => {
+    const terms = [...new Set(prior.flatMap((w) => tokenize(w)))];
+    const spellings = stopListSpellings(terms, tokenize);
+    for (const [term, line] of Object.entries(spellings)) assert.deepEqual(tokenize(line), [term], line);
+  });
+
+  it('scikit-learn: each prior word of two or more letters it keeps whole is matched by the line written for it', () => {
+    // The default token pattern keeps runs of 2+ word characters; a word it keeps whole must be
+    // written exactly so, or `stop_words` never removes it (scikit-learn 1.2, build_analyzer).
+    const words = prior.filter((w) => /^[a-z0-9]{2,}$/.test(w));
+    const theirs = sklearnTokens(words, { lowercase: true, ngram_range: [1, 1] });
+    const terms = words.map((w) => tokenize(w));
+    const spellings = stopListSpellings(terms.filter((t) => t.length === 1).map((t) => t[0]!), tokenize);
+    const missed: string[] = [];
+    words.forEach((w, i) => {
+      const ours = terms[i]!;
+      if (ours.length !== 1) return; // wink splits it ("cannot"); no single line stands for it
+      if (theirs[i]!.length === 1 && stopListLine({ suggestionSpellings: spellings }, ours[0]!) !== theirs[i]![0]) missed.push(`${w} → ${ours[0]}`);
+    });
+    assert.deepEqual(missed, []);
+  });
+
+  it('startReview: a corpus where "through" is in every document suggests the term "thru" and writes it "through"; that line stops it', async () => {
+    const docs = Array.from({ length: 40 }, (_, i) => `walk through the ${['gate', 'field', 'wood', 'town'][i % 4]} number ${i}`);
+    const text = docs.map((t) => JSON.stringify({ text: t })).join('\n') + '\n';
+    const review = (stopListText?: string) => startReview({
+      file: 'walks.jsonl',
+      text,
+      configPath: null,
+      ...(stopListText !== undefined ? { stopListText } : {}),
+      overrides: { format: 'jsonl', text: 'text', label: null, stopList: stopListText !== undefined ? 'stoplist.txt' : null, sample: { documents: 40, k: 3 } },
+    });
+    const first = (await review()).report;
+    assert.ok(first.suggestions.includes('thru'), first.suggestions.join(' '));
+    const lines = suggestionLines(first);
+    assert.ok(lines.includes('through') && !lines.includes('thru'), lines.join(' '));
+    const second = (await review(lines.join('\n') + '\n')).report;
+    assert.ok(!second.suggestions.includes('thru'));
+    assert.equal(second.terms.find((t) => t.term === 'thru')?.status, 'stopped');
+    assert.deepEqual(second.stopList.unused, []);
+  });
+});
