@@ -50,19 +50,32 @@ describe('a shards folder reviewed in the editor: shard steps on worker threads'
   });
 
   it('threads that are closed remove the folder of kept counts, and a new pool removes folders of ended processes', async () => {
-    const before = new Set(readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-')));
-    const session = await reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js'));
-    const during = readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-') && !before.has(n));
-    assert.equal(during.length, 1, 'one folder of kept counts while the session lives');
-    assert.ok(readdirSync(path.join(os.tmpdir(), during[0]!)).length === 5, 'the counts of each of the 5 shards');
-    await session.close();
-    assert.equal(existsSync(path.join(os.tmpdir(), during[0]!)), false);
-    // A folder left by a process that has ended is removed when the next pool starts.
-    const orphan = path.join(os.tmpdir(), 'loudword-shards-999999999-test');
-    mkdirSync(orphan, { recursive: true });
-    const next = await reviewShardsInThreads({ file: dir, configPath: null, overrides: OVERRIDES }, {}, path.join(DIST, 'shard-thread.js'));
-    await next.close();
-    assert.equal(existsSync(orphan), false, 'the orphan folder is removed');
+    // Only the folders are checked here, so a small corpus and the pattern tokenizer (wink's model
+    // is loaded afresh for every file, ~0.5 s each) keep the two reviews cheap.
+    const small = mkdtempSync(path.join(os.tmpdir(), 'loudword-shard-threads-small-'));
+    const shards = path.join(small, 'shards');
+    mkdirSync(shards);
+    writeShards(shards, generatedDocs(150, 17), 3);
+    const config = path.join(small, 'loudword.json');
+    writeFileSync(config, JSON.stringify({ tokens: { tokenizer: 'pattern' } }));
+    const input = { file: shards, configPath: config, overrides: OVERRIDES };
+    try {
+      const before = new Set(readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-')));
+      const session = await reviewShardsInThreads(input, {}, path.join(DIST, 'shard-thread.js'));
+      const during = readdirSync(os.tmpdir()).filter((n) => n.startsWith('loudword-shards-') && !before.has(n));
+      assert.equal(during.length, 1, 'one folder of kept counts while the session lives');
+      assert.ok(readdirSync(path.join(os.tmpdir(), during[0]!)).length === 3, 'the counts of each of the 3 shards');
+      await session.close();
+      assert.equal(existsSync(path.join(os.tmpdir(), during[0]!)), false);
+      // A folder left by a process that has ended is removed when the next pool starts.
+      const orphan = path.join(os.tmpdir(), 'loudword-shards-999999999-test');
+      mkdirSync(orphan, { recursive: true });
+      const next = await reviewShardsInThreads(input, {}, path.join(DIST, 'shard-thread.js'));
+      await next.close();
+      assert.equal(existsSync(orphan), false, 'the orphan folder is removed');
+    } finally {
+      rmSync(small, { recursive: true, force: true });
+    }
   });
 
   it('a shard that cannot be parsed fails the review naming shard and line, and a cancel stops it; neither leaves kept counts', async () => {

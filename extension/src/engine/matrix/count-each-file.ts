@@ -14,6 +14,9 @@ import { compareCodePoints } from './compare-code-points';
  * count the same whether one process reads them all or each shard step reads one.
  */
 export function freshFileEncoder(tokens: TokenSettings): BatchEncoder {
+  // The pattern tokenizer keeps no state between documents and never calls wink: loading a model
+  // for it (~0.5 s a file) would only cost time.
+  if (tokens.tokenizer === 'pattern') return coderEncoder(createTermCoder(tokens));
   return coderEncoder(createTermCoder(tokens, { nlp: freshWinkInstance(tokens.ngrams === 2 ? 'sentences' : 'tokens') }));
 }
 
