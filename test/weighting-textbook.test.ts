@@ -1,6 +1,6 @@
 import { strict as assert } from 'node:assert';
 import type { CountMatrix, Csr } from '../extension/src/engine/matrix/csr';
-import { weigh } from '../extension/src/engine/matrix/weigh';
+import { weigh, weighInPlace } from '../extension/src/engine/matrix/weigh';
 import { countMatrix } from './matrix-fixtures';
 
 function denseRow(m: Csr, r: number): number[] {
@@ -23,6 +23,18 @@ describe('weighting against published examples', () => {
     const { weights } = weigh(guideCounts, { tf: 'raw', idf: 'plainPlusOne', norm: 'l2' });
     assertClose(denseRow(weights, 0), [0.81940995, 0, 0.57320793], 5e-9, 'row 1');
     assertClose(denseRow(weights, 4), [0.47330339, 0.88089948, 0], 5e-9, 'row 5');
+  });
+
+  it('weighInPlace gives weigh\'s weights bit for bit, written over the counts\' data, for every tf kind', () => {
+    // The reference is weigh, checked against the user guide and IIR in this file.
+    for (const tf of ['raw', 'sublinear', 'binary'] as const) {
+      const counts = countMatrix([[3, 0, 1], [2, 0, 0], [0, 0, 0], [4, 7, 0], [3, 2, 0], [3, 0, 2]]);
+      const want = weigh(counts, { tf, idf: 'smooth', norm: 'l2' });
+      const got = weighInPlace(counts, { tf, idf: 'smooth', norm: 'l2' });
+      assert.equal(got.weights.data, counts.data, 'the counts\' own array');
+      assert.deepEqual([...got.weights.data], [...want.weights.data], tf);
+      assert.deepEqual([...got.idf], [...want.idf], tf);
+    }
   });
 
   it('weigh raw/smooth/l2 gives the user guide\'s smooth_idf=True rows', () => {

@@ -21,24 +21,40 @@ export interface Weighted {
  * uses it anyway). Rows with no terms, or whose weights are all 0, stay zero.
  */
 export function weigh(counts: CountMatrix, weighting: WeightingSettings): Weighted {
+  const idf = idfOfColumns(counts, weighting);
+  return { weights: weighWithIdf(counts, idf, weighting), idf };
+}
+
+/**
+ * `weigh` writing the weights over `counts.data`, for a caller that is done with the counts
+ * (prepare-weights.ts): no second array as long as the non-zeros (~600 MB at a million
+ * documents), the same numbers. The counts must not be used afterwards.
+ */
+export function weighInPlace(counts: CountMatrix, weighting: WeightingSettings): Weighted {
+  const idf = idfOfColumns(counts, weighting);
+  return { weights: weighWithIdf(counts, idf, weighting, counts.data), idf };
+}
+
+/** idf of every column from the counts' document frequencies. */
+function idfOfColumns(counts: Csr, weighting: WeightingSettings): Float64Array {
   const { rows: n, cols } = counts;
   const total = counts.indptr[n];
-  const df = new Float64Array(cols);
+  const df = new Uint32Array(cols);
   for (let k = 0; k < total; k++) if (counts.data[k] !== 0) df[counts.indices[k]]++;
   const idf = new Float64Array(cols);
   for (let j = 0; j < cols; j++) idf[j] = idfOf(weighting.idf, n, df[j]);
-
-  return { weights: weighWithIdf(counts, idf, weighting), idf };
+  return idf;
 }
 
 /**
  * tf·idf with the idf given (a distributed review computes it once from the summed df), each
  * row normalised; the same arithmetic as `weigh`, so the rows are equal to the last bit.
+ * `out` receives the weights (default: a new array; counts.data itself is allowed).
  */
-export function weighWithIdf(counts: Csr, idf: Float64Array, weighting: WeightingSettings): Csr {
+export function weighWithIdf(counts: Csr, idf: Float64Array, weighting: WeightingSettings, out?: Float64Array): Csr {
   const n = counts.rows;
   const total = counts.indptr[n];
-  const data = new Float64Array(total);
+  const data = out ?? new Float64Array(total);
   const tf = weighting.tf;
   const { data: c, indices } = counts;
   // One loop per tf kind, so the hot loop does not compare strings per entry.
