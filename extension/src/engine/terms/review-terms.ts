@@ -84,13 +84,17 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const baseSums = lab.sums(baseMask, true).sums;
   const baseScores = termScores(basePairMass, knnTermMass(lab.maskedSample(baseMask), lab.positions, suggested.neighbors, lab.k));
   const baseSpread = termSpread(baseSums, documents);
-  const full = lab.fullSums();
-  const fullSums = full.sums;
   let fullScores: TermScores | null = null;
   let fullSpread: Float64Array | null = null;
+  // With nothing stopped, the unmasked sums would only give df, which the baseline sums hold
+  // already (the same non-zeros, each scaled by a positive factor): one pass over the whole
+  // matrix fewer (~3.5 s at a million documents).
+  let df = baseSums.df;
   if (baseMask.includes(1)) {
-    fullScores = termScores(pairMass(fullSums, full.rowsWithWeight).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
-    fullSpread = termSpread(fullSums, documents);
+    const full = lab.fullSums();
+    df = full.sums.df;
+    fullScores = termScores(pairMass(full.sums, full.rowsWithWeight).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
+    fullSpread = termSpread(full.sums, documents);
   }
 
   const suggestedSet = new Set(accepted);
@@ -102,7 +106,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
     const status = stopped ? 'stopped' : suggestedSet.has(c) ? 'suggested' : protect.has(c) ? 'protected' : 'kept';
     const row: TermRow = {
       term: index.terms[c]!,
-      df: fullSums.df[c]!,
+      df: df[c]!,
       idf: idf[c]!,
       pullShare: scores.pullShare[c]!,
       neighborLift: Number.isFinite(lift) ? lift : null,
