@@ -22,7 +22,7 @@ export interface ReadOptions {
   /** Stop reading after this many bytes and say so in `truncated`. */
   maxBytes?: number;
   /**
-   * Bytes (characters for in-memory text) per read; default 1 MiB. Tests set it small so records,
+   * Bytes (characters for in-memory text) per read; default 64 KiB (text-chunks.ts). Tests set it small so records,
    * quotes, CRLF pairs and multi-byte characters fall across chunk boundaries.
    */
   chunkBytes?: number;

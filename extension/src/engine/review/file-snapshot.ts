@@ -12,7 +12,8 @@ export class FileSnapshot {
   private constructor(
     private readonly file: string,
     private readonly stamp: string,
-    private readonly size: number,
+    /** The file's size in bytes when the snapshot was taken. */
+    readonly size: number,
   ) {}
 
   /** Null when the file can't be stated; the reader then reports the real problem itself. */

@@ -58,7 +58,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const stopList = await loadStopList(loaded.stopListPath, path.dirname(path.resolve(input.file)), input.stopListText, tokenize, settings.tokens.lowercase);
 
   stage('tokenizing');
-  const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal);
+  const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal, input.text?.length ?? snapshot?.size ?? null);
   const { weights } = prepared;
   const index = new TermIndex(prepared.terms);
   const baseMask = index.mask(stopList.terms);
