@@ -1,7 +1,10 @@
 // A suggested term is written to a stop list in a spelling that both this tool and the user's
-// pipeline match (engine/terms/stop-list-spelling.ts). Outside reference: scikit-learn's analyzer
+// pipeline match (engine/terms/stop-list-spelling.ts): with stemming on, the word, not its stem. Outside reference: scikit-learn's analyzer
 // (Debian python3-sklearn), which compares `stop_words` with its own tokens as written.
 import { strict as assert } from 'node:assert';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { startReview } from '../extension/src/engine/review/start-review';
 import { createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
@@ -15,16 +18,21 @@ describe('stop list spelling of suggested terms', function () {
   const tokenize = createTokenizer(DEFAULT_SETTINGS.tokens);
   const prior = [...wordClasses().keys(), ...MARKUP_NAMES];
 
-  it('stopListSpellings: wink spells "through" as "thru"; the stop list gets "through", other terms as they are', () => {
-    assert.deepEqual(tokenize('through'), ['thru'], 'wink-nlp normal form (observed in wink-eng-lite-web-model)');
-    assert.deepEqual(stopListSpellings(['thru', 'the', 'zebra'], tokenize), { thru: 'through' });
-    assert.deepEqual(stopListSpellings(['the'], tokenize), {}, 'only suggested terms are listed');
+  it('stopListSpellings: with stemming on, the term "becaus" is written "because"; unstemmed terms as they are', () => {
+    const stemmed = createTokenizer({ ...DEFAULT_SETTINGS.tokens, stem: true });
+    assert.deepEqual(stemmed('because'), ['becaus'], 'Porter stem (wink-nlp stemmer)');
+    assert.deepEqual(stopListSpellings(['becaus', 'the', 'zebra'], stemmed), { becaus: 'because' });
+    assert.deepEqual(stopListSpellings(['the'], stemmed), {}, 'only suggested terms are listed');
+    assert.deepEqual(stopListSpellings(['through', 'because'], tokenize), {}, 'unstemmed, every prior word is its own term');
   });
 
   it('every plain spelling goes back to its term through the tokenizer (a stop list line stops the suggested term)', () => {
-    const terms = [...new Set(prior.flatMap((w) => tokenize(w)))];
-    const spellings = stopListSpellings(terms, tokenize);
-    for (const [term, line] of Object.entries(spellings)) assert.deepEqual(tokenize(line), [term], line);
+    const stemmed = createTokenizer({ ...DEFAULT_SETTINGS.tokens, stem: true });
+    for (const t of [tokenize, stemmed]) {
+      const terms = [...new Set(prior.flatMap((w) => t(w)))];
+      const spellings = stopListSpellings(terms, t);
+      for (const [term, line] of Object.entries(spellings)) assert.deepEqual(t(line), [term], line);
+    }
   });
 
   it('scikit-learn: each prior word of two or more letters it keeps whole is matched by the line written for it', () => {
@@ -43,23 +51,27 @@ describe('stop list spelling of suggested terms', function () {
     assert.deepEqual(missed, []);
   });
 
-  it('startReview: a corpus where "through" is in every document suggests the term "thru" and writes it "through"; that line stops it', async () => {
-    const docs = Array.from({ length: 40 }, (_, i) => `walk through the ${['gate', 'field', 'wood', 'town'][i % 4]} number ${i}`);
+  it('startReview, stemming on: a corpus where "because" is in every document suggests "becaus", written "because"; that line stops it', async () => {
+    const docs = Array.from({ length: 40 }, (_, i) => `rested because the ${['gate', 'field', 'wood', 'town'][i % 4]} number ${i}`);
     const text = docs.map((t) => JSON.stringify({ text: t })).join('\n') + '\n';
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-spelling-'));
+    const configPath = path.join(dir, 'loudword.json');
+    writeFileSync(configPath, JSON.stringify({ tokens: { stem: true } }));
     const review = (stopListText?: string) => startReview({
-      file: 'walks.jsonl',
+      file: path.join(dir, 'walks.jsonl'),
       text,
-      configPath: null,
+      configPath,
       ...(stopListText !== undefined ? { stopListText } : {}),
       overrides: { format: 'jsonl', text: 'text', label: null, stopList: stopListText !== undefined ? 'stoplist.txt' : null, sample: { documents: 40, k: 3 } },
     });
     const first = (await review()).report;
-    assert.ok(first.suggestions.includes('thru'), first.suggestions.join(' '));
+    assert.ok(first.suggestions.includes('becaus'), first.suggestions.join(' '));
     const lines = suggestionLines(first);
-    assert.ok(lines.includes('through') && !lines.includes('thru'), lines.join(' '));
+    assert.ok(lines.includes('because') && !lines.includes('becaus'), lines.join(' '));
     const second = (await review(lines.join('\n') + '\n')).report;
-    assert.ok(!second.suggestions.includes('thru'));
-    assert.equal(second.terms.find((t) => t.term === 'thru')?.status, 'stopped');
+    assert.ok(!second.suggestions.includes('becaus'));
+    assert.equal(second.terms.find((t) => t.term === 'becaus')?.status, 'stopped');
     assert.deepEqual(second.stopList.unused, []);
+    rmSync(dir, { recursive: true, force: true });
   });
 });

@@ -27,6 +27,17 @@ describe('createTokenizer', () => {
     assert.deepEqual(t("It's"), ['it', 'is']);
   });
 
+  it('createTokenizer lower-cases every other word and nothing more, as scikit-learn does (wink would respell it)', () => {
+    // wink's normal form respells: "through" → "thru", "colour" → "color", "cd" → "could",
+    // "da" → "the", and keeps "Steve" capitalised (observed, versions above). scikit-learn's
+    // analyzer only lower-cases (Debian python3-sklearn 1.2, lowercase=True), so a term here is
+    // the word the user's vectors hold. Both paths: whole documents and the chunk cache.
+    const text = 'Through the colour of Steve cd da b4 behaviour';
+    const want = ['through', 'the', 'colour', 'of', 'steve', 'cd', 'da', 'b4', 'behaviour'];
+    assert.deepEqual(createTokenizer(base, { chunkCache: false })(text), want);
+    assert.deepEqual(createTokenizer(base)(`${text} ${text}`), [...want, ...want]);
+  });
+
   it('createTokenizer keeps the surface forms of contraction parts without lowercase', () => {
     assert.deepEqual(createTokenizer({ ...base, lowercase: false })("Don't"), ['Do', "n't"]);
   });

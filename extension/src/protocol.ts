@@ -113,7 +113,7 @@ export interface Report {
   suggestions: string[];
   /**
    * The plain spelling a stop list file gets for a suggested term whose tokenizer spelling differs
-   * ("thru" → "through"); only such terms are listed (engine/terms/stop-list-spelling.ts).
+   * (with stemming on, "becaus" → "because"); only such terms are listed (engine/terms/stop-list-spelling.ts).
    */
   suggestionSpellings?: Record<string, string> | undefined;
   /** What the suggested list does to neighbour quality, read first (engine/terms/judge-suggestions.ts). */

@@ -98,7 +98,7 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   // Read again now, just before writing: the bytes the rename will be checked against.
   const list = await readStopList(file);
   // Under the same '# added by Loudword' line the editor's quick fixes write (one engine function).
-  // Each in its plain spelling ("through", not wink's "thru"): the line other pipelines match too.
+  // Each in its plain spelling ("because", not the stem "becaus"): the line other pipelines match too.
   const result = appendTerms(list, suggestionLines(report), { heading: ADDED_TERMS_HEADING });
   const leftOut = result.unrepresentable.length > 0
     ? `Left out ${count(result.unrepresentable.length, 'term')} that ${file} (${list.encoding}) cannot hold: ${result.unrepresentable.join(', ')}\n`

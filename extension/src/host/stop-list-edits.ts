@@ -54,7 +54,7 @@ export async function addTermsToReviewStopList(review: CorpusReview, terms: read
   } else {
     edit.createFile(uri, { ignoreIfExists: true });
   }
-  // Each term in its plain spelling ("through" for wink's "thru"), as `loudword apply` writes it.
+  // Each term in its plain spelling ("because" for the stem "becaus"), as `loudword apply` writes it.
   const termOfLine = new Map(terms.map((t) => [review.report === null ? t : stopListLine(review.report, t), t]));
   const result = addTermsToStopList(text, [...termOfLine.keys()], { heading: ADDED_TERMS_HEADING });
   if (result.edit === null || result.added.length === 0) return { added: [], stopList: uri };

@@ -4,11 +4,11 @@ import { wordClasses } from './function-words';
 
 /**
  * How each suggested term is written in a stop list when the plain word differs from the
- * tokenizer's spelling of it. wink-nlp's normal form of "through" is "thru": a stop list line
- * "through" still stops the term here (every entry goes through the tokenizer, review/
- * load-stop-list.ts), and it is the word other pipelines match — scikit-learn compares its
- * `stop_words` with its own tokens, which keep "through" (docs/methods.md §9, "Spelling").
- * Only words of the prior have a known plain spelling; every other term is written as it is.
+ * tokenizer's spelling of it: with stemming on the term is a stem ("becaus"). A stop list line
+ * "because" still stops it here (every entry goes through the tokenizer, review/load-stop-list.ts),
+ * and it is the word other pipelines match — scikit-learn compares its `stop_words` with its own
+ * tokens (docs/methods.md §9, "Spelling"). Only words of the prior have a known plain spelling;
+ * every other term is written as it is.
  */
 export function stopListSpellings(suggestions: readonly string[], tokenize: (text: string) => string[]): Record<string, string> {
   const wanted = new Set(suggestions);

@@ -2,6 +2,7 @@ import type { WinkMethods } from 'wink-nlp';
 import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME, hashOf } from './chunk-table';
 import type { IdList } from './id-list';
 import { cutRun, MAX_RUN } from './long-runs';
+import { lowercaseForms } from './lowercase-forms';
 import { Vocabulary, type TermCoder } from './term-coder';
 import { WINK_SPLITTER_SOURCE } from './wink-splitter';
 
@@ -178,7 +179,7 @@ export function chunkCachedUnigrams(
   const runJoined = (chunks: readonly string[]): number[][] => {
     const tokens = nlp.readDoc(chunks.join(' ')).tokens();
     const values = tokens.out() as string[];
-    const forms = lowercase ? (tokens.out(its.normal) as string[]) : values;
+    const forms = lowercase ? lowercaseForms(tokens, its, values) : values;
     const types = tokens.out(its.type) as string[];
     const spaces = chunks.length > 1 ? (tokens.out(its.precedingSpaces) as string[]) : [];
     if (conditionals > 0) for (const v of values) invalidate(v);

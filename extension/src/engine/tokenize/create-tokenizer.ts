@@ -2,6 +2,7 @@ import type { WinkMethods } from 'wink-nlp';
 import { TOKEN_KINDS, type EffectiveSettings, type TokenKind } from '../../protocol';
 import { chunkCachedUnigrams } from './chunk-cached-unigrams';
 import { cutLongRuns } from './long-runs';
+import { lowercaseForms } from './lowercase-forms';
 import { compileTokenPattern, patternTokens, SKLEARN_TOKEN_PATTERN, translatePythonPattern } from './pattern-tokenizer';
 import { createTermOf } from './term-of-token';
 import { decodingTokenizer, internedCoder, type TermCoder } from './term-coder';
@@ -52,7 +53,8 @@ export interface TokenizerEngine {
  *   CJK) are kept as words; unsegmented CJK text stays one token per run of characters.
  *
  * Options:
- * - lowercase: use wink's normal form (lowercased, contractions expanded) instead of the surface.
+ * - lowercase: the surface lower-cased, contractions expanded (lowercase-forms.ts: wink's own
+ *   normal form also respells words, "through" → "thru", which no other pipeline does).
  * - minLength: drop tokens shorter than this many Unicode code points, measured before stemming;
  *   emoji, emoticons, symbols, punctuation and currency signs are exempt.
  * - kinds: token kinds to keep; everything else is dropped before n-grams are formed.
@@ -115,8 +117,7 @@ function wholeDocumentTokenizer(settings: TokenSettings, engine: TokenizerEngine
     longRunsCut += bounded.runs;
     const doc = nlp.readDoc(bounded.text);
     const tokens = doc.tokens();
-    // Each out() walks every token, so skip the surface text when the normal form is used.
-    const forms = (lowercase ? tokens.out(its.normal) : tokens.out()) as string[];
+    const forms = lowercase ? lowercaseForms(tokens, its) : (tokens.out() as string[]);
     const types = tokens.out(its.type) as string[];
     const kept: string[] = [];
     // Sentence id of each kept token, only needed to stop bigrams at sentence ends.

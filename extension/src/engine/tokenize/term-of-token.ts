@@ -16,7 +16,7 @@ const LENGTH_EXEMPT: ReadonlySet<TokenKind> = new Set<TokenKind>(['emoji', 'emot
 /**
  * The term one wink token becomes, or null when it is dropped: kind filter, length floor (code
  * points, before stemming; sign-like kinds exempt), Porter stem on words. `form` is the surface
- * text or, with `lowercase`, wink's normal form. Both tokenizer paths call this, so they cannot
+ * text or, with `lowercase`, its lower-cased form (lowercase-forms.ts). Both tokenizer paths call this, so they cannot
  * disagree on what a token becomes.
  */
 export function createTermOf(options: TermOptions): (form: string, winkType: string) => string | null {
@@ -24,7 +24,7 @@ export function createTermOf(options: TermOptions): (form: string, winkType: str
   const kinds: ReadonlySet<TokenKind> = new Set(options.kinds);
   const stemmer = options.stem ? winkStemmer() : null;
   return (form, winkType) => {
-    // The normal form has the same letters and digits as the surface, which is all
+    // The lower-cased form has the same kind of letters and digits as the surface, which is all
     // tokenKindOf looks at for wink's "unk" tokens.
     const kind = tokenKindOf(winkType, form);
     if (kind === null || !kinds.has(kind)) return null;
