@@ -1,6 +1,6 @@
 import { strict as assert } from 'node:assert';
 import { spawnSync } from 'node:child_process';
-import { compareCodePoints } from '../extension/src/engine/matrix/compare-code-points';
+import { compareCodePoints, sortByCodePoint } from '../extension/src/engine/matrix/compare-code-points';
 import { PYTHON, requireSklearn } from './reference/run-sklearn';
 
 describe('matrix/compare-code-points', () => {
@@ -14,5 +14,11 @@ describe('matrix/compare-code-points', () => {
     const expected = JSON.parse(r.stdout) as string[];
     assert.deepEqual([...words].sort(compareCodePoints), expected);
     assert.notDeepEqual([...words].sort(), expected, 'UTF-16 order differs here, so the test can tell them apart');
+    // sortByCodePoint: the same order with both kinds of units present, and without either.
+    assert.deepEqual(sortByCodePoint(words), expected);
+    for (const without of [(w: string) => !/[\ud800-\udfff]/.test(w), (w: string) => !/[\ue000-\uffff]/.test(w)]) {
+      const some = words.filter(without);
+      assert.deepEqual(sortByCodePoint(some), expected.filter(without));
+    }
   });
 });
