@@ -30,8 +30,19 @@ interface Row {
 }
 
 async function main(): Promise<void> {
-  const only = process.argv.slice(2);
+  // `--tokenizer pattern` reviews with scikit-learn's own tokens (tokens.tokenizer), the setting
+  // the README recommends when the vectors come from scikit-learn; the default is wink.
+  const args = process.argv.slice(2);
+  const at = args.indexOf('--tokenizer');
+  const tokenizer = at >= 0 ? args.splice(at, 2)[1] : undefined;
+  if (at >= 0 && tokenizer !== 'wink' && tokenizer !== 'pattern') throw new Error('--tokenizer takes wink or pattern');
+  const only = args;
   const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-quality-'));
+  let configPath: string | null = null;
+  if (tokenizer !== undefined) {
+    configPath = path.join(dir, 'loudword.json');
+    writeFileSync(configPath, JSON.stringify({ tokens: { tokenizer } }));
+  }
   const rows: Row[] = [];
   try {
     for (const corpus of DEV_CORPORA) {
@@ -45,7 +56,7 @@ async function main(): Promise<void> {
       // The label is written for scikit-learn's check only; the review is told not to read it.
       writeFileSync(file, docs.map((d) => JSON.stringify({ text: d.text, label: d.label })).join('\n') + '\n');
       const started = performance.now();
-      const session = await startReview({ file, configPath: null, overrides: { text: 'text', label: null, stopList: null } });
+      const session = await startReview({ file, configPath, overrides: { text: 'text', label: null, stopList: null } });
       const seconds = (performance.now() - started) / 1000;
       // What `loudword apply` writes to a stop list file (plain spellings: "through", not "thru").
       const suggestions = suggestionLines(session.report);
