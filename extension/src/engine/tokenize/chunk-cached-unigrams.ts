@@ -1,5 +1,6 @@
 import type { WinkMethods } from 'wink-nlp';
 import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME, hashOf } from './chunk-table';
+import { deferredLexemesOf, isWordLetter, replay, wordClassKnown } from './deferred-lexemes';
 import type { IdList } from './id-list';
 import { cutRun, MAX_RUN } from './long-runs';
 import { lowercaseForms } from './lowercase-forms';
@@ -61,6 +62,32 @@ const MULTI = -4; // MULTI - k: the ids in multis[k]
  * 6. A chunk longer than MAX_RUN is replaced by its pieces (long-runs.ts), exactly what
  *    whole-document wink sees once `cutLongRuns` has put a space at each cut; `longRunsCut`
  *    counts the runs cut.
+ * 7. A plain word (letters of wink's first category only) that is not a lexeme is, in wink,
+ *    `_addTokenIfInCache` failing, then `processDefault` → `cache.add(word, word)`: one token
+ *    whose text is the chunk and type "word"; when its lowercase is not a lexeme either (or is
+ *    the word), that lowercase becomes one and is the normal form (else the normal form is the
+ *    lowercase lexeme's, which may be another spelling: `deferrable`). So such a token is
+ *    known without wink (`resolvePlainWord`),
+ *    and so is the word part of "word." when the word is not a lexeme (`composeWordRP`: wink's
+ *    `processWordRP` adds it with type "word" the same way). What is skipped is the addition to
+ *    wink's lexeme cache; it is recorded instead (deferred-lexemes.ts, per wink instance) and
+ *    made before any wink run that could see it, which keeps every wink run exact:
+ *    - wink looks up or adds only substrings of the chunk it is given and their lowercase, so a
+ *      run can reach a deferred word d only if lowercase(d) is a substring of lowercase(chunk)
+ *      (`takeReachableFrom`); those are added, as plain words, right before the run (`flush`).
+ *    - A plain word or "word." that wink runs on reaches only the word and its lowercase, and
+ *      adds them as type "word" with their lowercase as normal form: what the deferred record
+ *      says, so such runs need no replay (in either order).
+ *    - A word is not deferred (nor a "word." composed) while a pending miss of another kind
+ *      with letters (`unsafeMisses`) could reach it (`reachedByPending`, the same substring
+ *      test), since the whole-document run sees that miss first and it might add the word
+ *      otherwise. So such a miss reaches only words deferred before it, and replaying them
+ *      before the whole flush changes nothing for the misses ahead of it: they are plain words,
+ *      "word." and chunks without letters (point above), or misses that cannot reach them.
+ *    - Nothing else reads wink's lexemes: lexeme indices and feature tables change with the
+ *      order of additions, but no token's text, type or normal form does.
+ *    The coder's own checks (`lexemeEntry`) then see the instance without the deferred words,
+ *    which is why a word that is not a wink lexeme is treated alike whether deferred or new.
  * The coder is bound to `nlp`: the cache is valid only for that instance's lexeme cache.
  */
 export function chunkCachedUnigrams(
@@ -78,6 +105,8 @@ export function chunkCachedUnigrams(
   // Any document of `nlp` answers isLexeme from the instance's one lexeme cache.
   const lexemes = nlp.readDoc('');
   const { isWord, isWordRP } = categoryTests();
+  const deferred = deferredLexemesOf(nlp);
+  const defer = wordClassKnown();
 
   const store = (chunk: string, value: number): void => {
     if (!table.set(chunk, value)) {
@@ -128,29 +157,40 @@ export function chunkCachedUnigrams(
    * split into its letters and its sign; a chunk without letters only ever adds substrings of
    * itself (with their lowercase), and a wordRP string has letters. Anything else might.
    */
-  const cannotMakeWordRPLexeme = (chunk: string): boolean => isWord(chunk) || isWordRP(chunk) || !WORDRP_LETTER.test(chunk);
+  const cannotMakeWordRPLexeme = (chunk: string): boolean => isWord(chunk) || isWordRP(chunk) || letterless(chunk);
 
   /**
-   * Point 4 without wink: a wordRP chunk whose word and sign are both cached for good is, the
-   * first time too, the word's token then the sign's, provided wink would add nothing: the
-   * chunk is no lexeme, the word and the sign are lexemes that are not contractions (their
-   * cached token came from the lexeme itself, so `_addToken` gives the same one), and the word's
-   * lowercase is a lexeme already. Appends the ids and caches them conditionally; false (nothing
-   * done) when any of that does not hold. Not while a pending miss might change any of it.
+   * Point 4 without wink: a wordRP chunk that is no lexeme is, the first time too, the word's
+   * token then the sign's, provided the sign is a lexeme cached for good that is no contraction
+   * and whose lowercase is a lexeme (so `_addToken` of it adds nothing), and the word is either
+   * the same (a lexeme cached for good, no contraction, its lowercase a lexeme) or not a lexeme
+   * (point 7: a new word, deferred). Appends the ids and caches them conditionally; false
+   * (nothing done) when any of that does not hold. Not while a pending miss might change any of
+   * it: one that could reach the word could reach the chunk, which holds it, too.
    */
   const composeWordRP = (text: string, start: number, end: number, out: IdList): boolean => {
     const chunk = text.slice(start, end);
     if (!isWordRP(chunk) || lexemeEntry(chunk) !== null) return false;
     const w = chunk.slice(0, -1);
+    // A pending miss that could reach the word could also make the chunk (which holds it) a lexeme.
+    if (unsafeMisses > 0 && reachedByPending(w.toLowerCase())) return false;
     const p = chunk.slice(-1);
-    if (lexemeEntry(w)?.length !== 1 || lexemeEntry(p)?.length !== 1) return false;
-    const word = cachedForGood(w);
-    if (word < 0 && word !== DROPPED) return false;
+    if (lexemeEntry(p)?.length !== 1) return false;
     const sign = cachedForGood(p);
     if (sign < 0 && sign !== DROPPED) return false;
-    const lower = w.toLowerCase();
-    if (lower !== w && lexemeEntry(lower) === null) return false;
     if (p.toLowerCase() !== p && lexemeEntry(p.toLowerCase()) === null) return false;
+    const entry = lexemeEntry(w);
+    let word: number;
+    if (entry === null) {
+      if (!deferrable(w)) return false;
+      word = deferWord(w);
+    } else {
+      if (entry.length !== 1) return false;
+      word = cachedForGood(w);
+      if (word < 0 && word !== DROPPED) return false;
+      const lower = w.toLowerCase();
+      if (lower !== w && lexemeEntry(lower) === null) return false;
+    }
     const ids: number[] = [];
     if (word >= 0) ids.push(word);
     if (sign >= 0) ids.push(sign);
@@ -159,6 +199,37 @@ export function chunkCachedUnigrams(
     conditional.push(true);
     conditionals++;
     store(chunk, MULTI - (multis.length - 1));
+    return true;
+  };
+  /**
+   * Point 7: the term id (or DROPPED) of `word`, a plain word that is not a wink lexeme, as wink
+   * would make it, recording the word and its lowercase as deferred additions.
+   */
+  const deferWord = (word: string): number => {
+    const lower = word.toLowerCase();
+    const term = termOf(lowercase ? lower : word, 'word');
+    deferred.add(word, lower);
+    if (lower !== word) deferred.add(lower, lower);
+    return term === null ? DROPPED : vocabulary.id(term);
+  };
+  /**
+   * Whether point 7 applies to `word`, a plain word that is not a lexeme: its normal form is its
+   * lowercase only when that lowercase is not a lexeme either (or is the word itself). A lexeme's
+   * normal form can be another spelling (wink maps "dyke" to "dike", so "Dyke" too).
+   */
+  const deferrable = (word: string): boolean => {
+    if (!defer) return false;
+    const lower = word.toLowerCase();
+    return lower === word || lexemeEntry(lower) === null;
+  };
+  /** Point 7 for a plain-word chunk: appends its id and caches it for good; false if it is a lexeme. */
+  const resolvePlainWord = (text: string, start: number, end: number, out: IdList): boolean => {
+    const chunk = text.slice(start, end);
+    if (!isWord(chunk) || lexemeEntry(chunk) !== null || !deferrable(chunk)) return false;
+    if (unsafeMisses > 0 && reachedByPending(chunk.toLowerCase())) return false;
+    const id = deferWord(chunk);
+    if (id >= 0) out.push(id);
+    store(chunk, id);
     return true;
   };
   /**
@@ -222,8 +293,15 @@ export function chunkCachedUnigrams(
   let docEnds: Uint32Array = new Uint32Array(0);
   let doc = 0;
   let blankMiss = false;
-  // Pending misses that might make a conditional entry's chunk a lexeme (see `visit`).
+  // Pending misses that might make a conditional entry's chunk a lexeme (see `visit`), and
+  // their lowercase (what they can reach: point 7).
   let unsafeMisses = 0;
+  const unsafeLower: string[] = [];
+  /** Whether a pending miss that is not a plain word, "word." or without letters might look up `lower`. */
+  const reachedByPending = (lower: string): boolean => {
+    for (let i = 0; i < unsafeLower.length; i++) if (unsafeLower[i]!.includes(lower)) return true;
+    return false;
+  };
   let longRunsCut = 0;
 
   /** Appends the cached ids of text[start, end), or notes it as a miss. */
@@ -240,13 +318,19 @@ export function chunkCachedUnigrams(
       const ids = multis[MULTI - v]!;
       for (let i = 0; i < ids.length; i++) out.push(ids[i]!);
     } else if (v !== DROPPED) {
-      if (v === ABSENT && unsafeMisses === 0 && end - start > 2 && composeWordRP(text, start, end, out)) return;
+      if (v === ABSENT) {
+        if (resolvePlainWord(text, start, end, out)) return;
+        if (end - start > 2 && composeWordRP(text, start, end, out)) return;
+      }
       const chunk = text.slice(start, end);
       misses.push(chunk);
       missAt.push(out.length);
       missDoc.push(doc);
       if (chunk.trim() === '') blankMiss = true;
-      if (!cannotMakeWordRPLexeme(chunk)) unsafeMisses++;
+      if (!cannotMakeWordRPLexeme(chunk)) {
+        unsafeMisses++;
+        unsafeLower.push(chunk.toLowerCase());
+      }
     }
   };
 
@@ -256,6 +340,12 @@ export function chunkCachedUnigrams(
    */
   const flush = (out: IdList): void => {
     if (misses.length === 0) return;
+    if (unsafeMisses > 0 && deferred.size > 0) {
+      // Point 7: the deferred words these misses could reach become lexemes first.
+      const words: string[] = [];
+      for (const m of misses) if (!cannotMakeWordRPLexeme(m)) deferred.takeReachableFrom(m, words);
+      replay(nlp, deferred, words);
+    }
     let missIds: number[][];
     if (blankMiss) {
       missIds = [];
@@ -284,6 +374,7 @@ export function chunkCachedUnigrams(
     missDoc.length = 0;
     blankMiss = false;
     unsafeMisses = 0;
+    unsafeLower.length = 0;
   };
 
   const visitLongRun = (text: string, start: number, end: number, out: IdList): void => {
@@ -297,6 +388,7 @@ export function chunkCachedUnigrams(
     missDoc.length = 0;
     blankMiss = false;
     unsafeMisses = 0;
+    unsafeLower.length = 0;
     docEnds = ends;
     for (doc = 0; doc < texts.length; doc++) {
       const runsBefore = longRunsCut;
@@ -345,6 +437,21 @@ export function chunkCachedUnigrams(
 
 /** Every letter wink's word patterns know (their class, case-insensitive) and more: any Latin letter or mark. */
 const WORDRP_LETTER = /[a-z\u00c0-\u024f\u0300-\u036f\u1e00-\u1eff\u2060]/i;
+
+/**
+ * True when neither `chunk` nor its lowercase has a letter wink's word patterns could use
+ * (WORDRP_LETTER, or the word class itself, which also has Greek iota): such a chunk can add
+ * only strings without them. The lowercase counts because wink adds each string's lowercase
+ * too, and a few signs lowercase to letters (KELVIN SIGN to "k", ANGSTROM SIGN to "å").
+ */
+function letterless(chunk: string): boolean {
+  if (WORDRP_LETTER.test(chunk)) return false;
+  const lower = chunk.toLowerCase();
+  if (WORDRP_LETTER.test(lower)) return false;
+  for (let i = 0; i < chunk.length; i++) if (isWordLetter(chunk.charCodeAt(i))) return false;
+  for (let i = 0; i < lower.length; i++) if (isWordLetter(lower.charCodeAt(i))) return false;
+  return true;
+}
 
 const OTHER = 0;
 const SPACING = 1;

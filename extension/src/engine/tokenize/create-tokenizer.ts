@@ -4,6 +4,7 @@ import { chunkCachedUnigrams } from './chunk-cached-unigrams';
 import { cutLongRuns } from './long-runs';
 import { lowercaseForms } from './lowercase-forms';
 import { compileTokenPattern, patternTokens, SKLEARN_TOKEN_PATTERN, translatePythonPattern } from './pattern-tokenizer';
+import { settleDeferredLexemes } from './deferred-lexemes';
 import { createTermOf } from './term-of-token';
 import { decodingTokenizer, internedCoder, type TermCoder } from './term-coder';
 import { winkInstance, winkStemmer } from './wink-instance';
@@ -115,6 +116,8 @@ function wholeDocumentTokenizer(settings: TokenSettings, engine: TokenizerEngine
   return withCount((whole: string): string[] => {
     const bounded = cutLongRuns(whole);
     longRunsCut += bounded.runs;
+    // A chunk-cached coder on the same instance may have words wink has not been given yet.
+    settleDeferredLexemes(nlp);
     const doc = nlp.readDoc(bounded.text);
     const tokens = doc.tokens();
     const forms = lowercase ? lowercaseForms(tokens, its) : (tokens.out() as string[]);

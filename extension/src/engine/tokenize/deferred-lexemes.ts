@@ -1,0 +1,153 @@
+import type { WinkMethods } from 'wink-nlp';
+
+/**
+ * The plain words (letters only, wink's first category) that a whole-document wink run would
+ * have added to an instance's lexeme cache by now, but that the chunk-cached coder tokenised
+ * without wink (chunk-cached-unigrams.ts point 7). Each is a lexeme of type "word" whose normal
+ * form is its lowercase in the whole-document run; wink's instance does not have it yet. It is
+ * added ("replayed") just before a wink run that might look it up, so every run sees what it
+ * would have seen. Kept per wink instance (not per coder), because the lexeme cache is the
+ * instance's: every coder and whole-document tokenizer on one instance must see the same words.
+ */
+export class DeferredLexemes {
+  /** The deferred strings by their lowercase (the key a run's lookup can reach them by). */
+  private readonly byLower = new Map<string, string[]>();
+  private readonly all = new Set<string>();
+  /** Longest lowercase key, in code units: no longer substring needs looking at. */
+  private longest = 0;
+  /** Strings deferred, and given back to wink, so far (figures for tests). */
+  deferredEver = 0;
+  replayed = 0;
+
+  get size(): number {
+    return this.all.size;
+  }
+
+  /** Records `word` (not a wink lexeme; `lower` is its lowercase) as deferred. */
+  add(word: string, lower: string): void {
+    if (this.all.has(word)) return;
+    this.all.add(word);
+    this.deferredEver++;
+    const list = this.byLower.get(lower);
+    if (list === undefined) this.byLower.set(lower, [word]);
+    else list.push(word);
+    if (lower.length > this.longest) this.longest = lower.length;
+  }
+
+  /**
+   * Moves to `out` every deferred string that a wink run on `chunk` could look up or add. wink
+   * only ever looks up or adds substrings of the chunk and their lowercase (src/tokenizer.js,
+   * recursive-tokenizer.js, cache.js `add` and the model's features), so a deferred string `d`
+   * can be reached only if lowercase(d) is a substring of lowercase(chunk) made of letters of
+   * wink's word class (every deferred string is such letters, and lowercasing them is per
+   * character and stays in the class); only those substrings are tried.
+   */
+  takeReachableFrom(chunk: string, out: string[]): void {
+    if (this.all.size === 0) return;
+    const lower = chunk.toLowerCase();
+    const n = lower.length;
+    let i = 0;
+    while (i < n) {
+      if (!isWordLetter(lower.charCodeAt(i))) {
+        i++;
+        continue;
+      }
+      let end = i + 1;
+      while (end < n && isWordLetter(lower.charCodeAt(end))) end++;
+      for (let a = i; a < end; a++) {
+        const last = Math.min(end, a + this.longest);
+        for (let b = a + 1; b <= last; b++) this.take(lower.slice(a, b), out);
+      }
+      i = end;
+    }
+  }
+
+  /** Moves every deferred string to `out`. */
+  takeAll(out: string[]): void {
+    for (const w of this.all) out.push(w);
+    this.all.clear();
+    this.byLower.clear();
+    this.longest = 0;
+  }
+
+  private take(key: string, out: string[]): void {
+    const list = this.byLower.get(key);
+    if (list === undefined) return;
+    this.byLower.delete(key);
+    for (const w of list) {
+      this.all.delete(w);
+      out.push(w);
+    }
+  }
+}
+
+/** False when the model's word class could not be read: then nothing may be deferred. */
+export function wordClassKnown(): boolean {
+  return WORD_LETTER_KNOWN;
+}
+
+/** True for a UTF-16 code unit of wink's word class (either case; see WORD_LETTER). */
+export function isWordLetter(c: number): boolean {
+  return WORD_LETTER[c] === 1;
+}
+
+/**
+ * Each UTF-16 code unit's membership in the letter class of wink's first category test (plain
+ * words, model trex.ltc[0]: `[a-z\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u00FF\u0300-\u036f\u2060]`
+ * with the i flag, which also lets in U+0178 and three forms of the Greek iota), read from the
+ * model so it cannot drift from it. Every member lowercases to one member (checked here: else the
+ * table is empty, and with it nothing is deferred, since chunk-cached-unigrams.ts reads the same
+ * test).
+ */
+const WORD_LETTER: Uint8Array = (() => {
+  const table = new Uint8Array(0x10000);
+  try {
+    const model = require('wink-eng-lite-web-model/dist/languages/cur/models/eng-core-web-model.json') as { trex?: { ltc?: [string, string, number][] } };
+    const first = model.trex?.ltc?.[0];
+    const body = first !== undefined && first[2] === 1 ? /^\^(\[[^\]]+\])\+\$$/.exec(first[0]) : null;
+    if (first === undefined || body === null) return table;
+    const one = new RegExp(`^${body[1]!}$`, first[1]);
+    for (let c = 0; c < 0x10000; c++) if (one.test(String.fromCharCode(c))) table[c] = 1;
+    for (let c = 0; c < 0x10000; c++) {
+      if (table[c] !== 1) continue;
+      const lower = String.fromCharCode(c).toLowerCase();
+      if (lower.length !== 1 || table[lower.charCodeAt(0)] !== 1) return new Uint8Array(0x10000);
+    }
+  } catch {
+    table.fill(0);
+  }
+  return table;
+})();
+const WORD_LETTER_KNOWN = WORD_LETTER.includes(1);
+
+const registry = new WeakMap<WinkMethods, DeferredLexemes>();
+
+/** The deferred words of `nlp` (one record per wink instance). */
+export function deferredLexemesOf(nlp: WinkMethods): DeferredLexemes {
+  let d = registry.get(nlp);
+  if (d === undefined) {
+    d = new DeferredLexemes();
+    registry.set(nlp, d);
+  }
+  return d;
+}
+
+/**
+ * Gives wink every deferred word of `nlp` (as plain words, so each becomes the lexeme a
+ * whole-document run made of it), for code that is about to run wink on that instance without
+ * the chunk cache's bookkeeping. Cheap when nothing is deferred.
+ */
+export function settleDeferredLexemes(nlp: WinkMethods): void {
+  const d = registry.get(nlp);
+  if (d === undefined || d.size === 0) return;
+  const words: string[] = [];
+  d.takeAll(words);
+  replay(nlp, d, words);
+}
+
+/** Runs the deferred `words` through wink, separated by single spaces (each a chunk of its own). */
+export function replay(nlp: WinkMethods, d: DeferredLexemes, words: readonly string[]): void {
+  if (words.length === 0) return;
+  d.replayed += words.length;
+  nlp.readDoc(words.join(' '));
+}
