@@ -64,11 +64,10 @@ const MULTI = -4; // MULTI - k: the ids in multis[k]
  *    counts the runs cut.
  * 7. A plain word (letters of wink's first category only) that is not a lexeme is, in wink,
  *    `_addTokenIfInCache` failing, then `processDefault` → `cache.add(word, word)`: one token
- *    whose text is the chunk and type "word"; when its lowercase is not a lexeme either (or is
- *    the word), that lowercase becomes one and is the normal form (else the normal form is the
- *    lowercase lexeme's, which may be another spelling: `deferrable`). So such a token is
- *    known without wink (`resolvePlainWord`),
- *    and so is the word part of "word." when the word is not a lexeme (`composeWordRP`: wink's
+ *    whose text is the chunk, of type "word" and no contraction, so its form is the chunk
+ *    lower-cased (lowercase-forms.ts; wink's normal form, which may respell it, is not used);
+ *    the word becomes a lexeme of type "word", and so does its lowercase if it was none. So such
+ *    a token is known without wink (`resolvePlainWord`), and so is the word part of "word." when the word is not a lexeme (`composeWordRP`: wink's
  *    `processWordRP` adds it with type "word" the same way). What is skipped is the addition to
  *    wink's lexeme cache; it is recorded instead (deferred-lexemes.ts, per wink instance) and
  *    made before any wink run that could see it, which keeps every wink run exact:
@@ -76,8 +75,8 @@ const MULTI = -4; // MULTI - k: the ids in multis[k]
  *      run can reach a deferred word d only if lowercase(d) is a substring of lowercase(chunk)
  *      (`takeReachableFrom`); those are added, as plain words, right before the run (`flush`).
  *    - A plain word or "word." that wink runs on reaches only the word and its lowercase, and
- *      adds them as type "word" with their lowercase as normal form: what the deferred record
- *      says, so such runs need no replay (in either order).
+ *      adds them as type "word": what the deferred record says, so such runs need no replay
+ *      (in either order).
  *    - A word is not deferred (nor a "word." composed) while a pending miss of another kind
  *      with letters (`unsafeMisses`) could reach it (`reachedByPending`, the same substring
  *      test), since the whole-document run sees that miss first and it might add the word
@@ -182,7 +181,7 @@ export function chunkCachedUnigrams(
     const entry = lexemeEntry(w);
     let word: number;
     if (entry === null) {
-      if (!deferrable(w)) return false;
+      if (!defer) return false;
       word = deferWord(w);
     } else {
       if (entry.length !== 1) return false;
@@ -209,23 +208,14 @@ export function chunkCachedUnigrams(
     const lower = word.toLowerCase();
     const term = termOf(lowercase ? lower : word, 'word');
     deferred.add(word, lower);
-    if (lower !== word) deferred.add(lower, lower);
+    if (lower !== word && lexemeEntry(lower) === null) deferred.add(lower, lower);
     return term === null ? DROPPED : vocabulary.id(term);
   };
-  /**
-   * Whether point 7 applies to `word`, a plain word that is not a lexeme: its normal form is its
-   * lowercase only when that lowercase is not a lexeme either (or is the word itself). A lexeme's
-   * normal form can be another spelling (wink maps "dyke" to "dike", so "Dyke" too).
-   */
-  const deferrable = (word: string): boolean => {
-    if (!defer) return false;
-    const lower = word.toLowerCase();
-    return lower === word || lexemeEntry(lower) === null;
-  };
+
   /** Point 7 for a plain-word chunk: appends its id and caches it for good; false if it is a lexeme. */
   const resolvePlainWord = (text: string, start: number, end: number, out: IdList): boolean => {
     const chunk = text.slice(start, end);
-    if (!isWord(chunk) || lexemeEntry(chunk) !== null || !deferrable(chunk)) return false;
+    if (!defer || !isWord(chunk) || lexemeEntry(chunk) !== null) return false;
     if (unsafeMisses > 0 && reachedByPending(chunk.toLowerCase())) return false;
     const id = deferWord(chunk);
     if (id >= 0) out.push(id);
