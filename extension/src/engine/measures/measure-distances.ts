@@ -39,9 +39,11 @@ export interface MeasureDistancesOptions {
   rowsWithWeight?: number;
   /**
    * The m×m cosines of X's sample rows when the caller already has them (the what-if keeps them
-   * up to date across toggles); overwritten with distances here, like the one computed inside.
+   * up to date across toggles), or their kept dot products with `rowScale` (see
+   * MeasuresFromGramOptions); only read.
    */
   gram?: Float64Array;
+  rowScale?: Float64Array;
 }
 
 export interface MeasureDistancesResult {
@@ -63,8 +65,8 @@ export interface MeasureDistancesResult {
 /**
  * All distance-health measures of one weighted matrix X (rows l2-normalised or all zero).
  * Linear parts (pair mass, background similarity, top-term shares) are exact over all of X;
- * quadratic parts use the m×m similarity matrix of the sample, which is converted to distances
- * in place once the similarity-based measures are done, so peak memory is one m×m array.
+ * quadratic parts use the m×m similarity matrix of the sample, read once row by row (distances
+ * are taken from it row by row), so peak memory is one m×m array.
  */
 export function measureDistances(X: Csr, options: MeasureDistancesOptions): MeasureDistancesResult {
   const { sample, k } = options;
@@ -93,8 +95,13 @@ export interface MeasuresFromGramOptions {
   /** Exact term sums of the whole (masked) corpus, and its rows with any weight. */
   sums: TermSums;
   rowsWithWeight: number;
-  /** The sample's m×m cosines; overwritten with distances. */
+  /**
+   * The sample's m×m cosines (read only), or with `rowScale` its kept dot products: the cosine
+   * is then gram_ij·rowScale_i·rowScale_j (the what-if's IncrementalGram, which so never writes
+   * an m×m cosine matrix per toggle).
+   */
   gram: Float64Array;
+  rowScale?: Float64Array;
   /** The document behind sample position i, for error messages. */
   rowOf?: (i: number) => number;
 }
@@ -118,15 +125,16 @@ export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFrom
 
   const mass = pairMass(options.sums, options.rowsWithWeight);
   const valid = validRowsFromGram(gram, m);
+  const scale = options.rowScale;
   for (let i = 0; i < m; i++) {
-    const sq = gram[i * m + i];
+    const sq = scale === undefined ? gram[i * m + i] : gram[i * m + i] * scale[i] * scale[i];
     if (valid[i] && Math.abs(sq - 1) > UNIT_TOLERANCE) {
       const row = options.rowOf?.(i) ?? i;
       throw new RangeError(`measureDistances: row ${row} has squared norm ${sq}; rows must be l2-normalised`);
     }
   }
 
-  const rows = measureSampleRows(gram, m, k, valid);
+  const rows = measureSampleRows(gram, m, k, valid, scale);
   const { knn, kOccurrence: counts } = rows;
   const hubness = hubnessSummary(counts, valid, k);
 

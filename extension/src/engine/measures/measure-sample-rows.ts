@@ -1,11 +1,11 @@
-import { diagonalOf, rowToDistances, SAME_POINT } from './gram-distances';
-import { addKOccurrenceOfRow } from './hubness';
-import { iidDimensionOfCv, pairDistanceCvAfter } from './iid-equivalent-dimension';
-import { emptyKnnLists, NO_NEIGHBOR, nearestOfRow, nearestScratch, type KnnLists } from './knn';
+import { SAME_POINT } from './gram-distances';
+import { iidDimensionOfCv } from './iid-equivalent-dimension';
+import { emptyKnnLists, TIE_TOLERANCE, type KnnLists } from './knn';
 import { meanToNearestOf, meanToNearestSums } from './mean-to-nearest';
-import { medianStandout, standoutGivenSum } from './neighbor-standout';
-import { bucketOf, radiusScratch, radiusSlackSummary, slackFromCounts } from './radius-slack';
+import { medianStandout } from './neighbor-standout';
+import { radiusSlackSummary } from './radius-slack';
 import { contrastSummary, type ContrastSummary } from './relative-contrast';
+import { selectRank } from './select-rank';
 import { binOf, SIMILARITY_BINS, type SimilarityHistograms } from './similarity-histograms';
 
 /** Everything the sample's m×m matrix gives the Measures, plus what the Report's suggestions reuse. */
@@ -24,115 +24,304 @@ export interface SampleRowMeasures {
 }
 
 /**
- * The sampled measures in one sweep over the rows of the m×m cosine matrix: each row is read
- * from memory once and every measure that looks at it (k-NN, standout, histograms, N_k; then,
- * once the row is turned into distances in place, contrast, mean-to-nearest, the first pass of
- * the iid-equivalent dimension and the radius slack) runs while it is in cache, the cheap ones
- * sharing a loop. At m = 2,000 the matrix is 32 MB and a pass per measure cost the panel's
- * what-if about 11 passes per toggle; this is about 5. The separate functions (relativeContrast,
- * meanToNearest, …) stay the reference: every sum here runs over the same values in the same
- * order, so the figures are theirs bit for bit (test/measures-measure-sample-rows.test.ts).
- * `gram` ends as distances (see distancesFromGram); `valid` from validRowsFromGram.
+ * The sampled measures in one sweep that reads the m×m matrix once, one pass per row. Row i's
+ * cosines are c_ij = gram_ij·scale_i·scale_j (the what-if hands over its kept dot products and
+ * each row's 1/‖kept row‖, so no m×m cosine matrix is written per toggle; the Report's callers
+ * pass unit rows and no scale). Each cosine and its distance are computed once and feed, in the
+ * same pass: the k-NN selection (knnFromSimilarities' rule), the standout's sums, both
+ * histograms, contrast, mean-to-nearest and the iid dimension's pair sums. What needs the row's
+ * final k-th neighbour or k-NN radius is kept aside in the pass instead of read in a second one:
+ * - N_k's tie candidates: every value that was within tolerance of the k-th place when it was
+ *   seen (the k-th score only rises, so this holds every value tied with the final one);
+ * - the radius slack's k-th and 10k-th distance: the distances whose squared distance is at most
+ *   a bound read beforehand from every 8th entry of the row (a quantile of about twice 10k/m, so
+ *   ~2·10k values are kept); when fewer than 10k fall under it, the row's distances are gathered
+ *   again. Ranks among the gathered values are ranks in the row, so the values are radiusSlack's.
+ * At m = 2,000 the matrix is 32 MB; the panel's what-if used to read it about 9 times per toggle.
+ *
+ * The separate functions (knnFromSimilarities, relativeContrast, meanToNearest, …) stay the
+ * reference (test/measures-measure-sample-rows.test.ts): k-NN, N_k, histograms, contrast,
+ * mean-to-nearest, radius slack and the neighbour distances are theirs bit for bit (same values,
+ * same order of summation). Two variances are summed in one pass around a shift instead of two
+ * passes around the mean — the standout's per row (shifted by the row's first cosine, so a row
+ * of equal values still has exactly no spread) and the iid dimension's over all pairs (shifted
+ * by the first row's mean distance): equal to ~1e-13 relative, as each shift lies within the
+ * spread of its values. `gram` is only read; `valid` from validRowsFromGram (its diagonal).
  */
-export function measureSampleRows(gram: Float64Array, m: number, k: number, valid: Uint8Array): SampleRowMeasures {
-  const knn = emptyKnnLists(m, k);
-  const best = nearestScratch(k);
-  const norms = diagonalOf(gram, m);
-  const zScores = new Float64Array(m);
-  const pairBins = new Float64Array(SIMILARITY_BINS);
-  const nearBins: number[] = new Array(SIMILARITY_BINS).fill(0);
-  const kOccurrence = new Float64Array(m);
-  const tied = new Uint32Array(m);
-  const contrast = new Float64Array(m);
-  const slack = new Float64Array(m);
-  const slackScratch = radiusScratch(m);
-  const toNearest = meanToNearestSums();
-  const firstPass = { sum: 0, count: 0 };
-  const nnDist = new Float64Array(m * k).fill(NaN);
-  // Imports read once into locals: a module loader may reach them through getters (tsx's does),
-  // which would cost a call per element in the loops below.
-  const bins = SIMILARITY_BINS;
-  const binOfSimilarity = binOf;
-  const bucketOfDistance = bucketOf;
-  const samePoint = SAME_POINT;
+export function measureSampleRows(
+  gram: Float64Array,
+  m: number,
+  k: number,
+  valid: Uint8Array,
+  scale?: Float64Array,
+): SampleRowMeasures {
+  const sweep = new RowSweep(gram, m, k, valid, scale ?? new Float64Array(m).fill(1));
+  // One call per row rather than one long loop: the row's code is optimised like any function,
+  // not by on-stack replacement part way through each call (which, under tsx, was thrown away
+  // again at the end of every call).
+  for (let i = 0; i < m; i++) if (valid[i]) sweep.row(i);
+  return sweep.result();
+}
 
-  for (let i = 0; i < m; i++) {
+/** measureSampleRows' state: the inputs, per-row scratch, and what the rows add up. */
+class RowSweep {
+  readonly knn: KnnLists;
+  readonly bestScore: Float64Array;
+  readonly bestPos: Uint32Array;
+  /** Squared norms under the scale: 1 (or within rounding of it) for kept rows, 0 for empty ones. */
+  readonly norms: Float64Array;
+  readonly tieScore: Float64Array;
+  readonly tiePos: Uint32Array;
+  readonly near: Float64Array;
+  readonly farPart: Float64Array;
+  readonly probe: Float64Array;
+  readonly validTotal: number;
+  readonly zScores: Float64Array;
+  readonly pairBins: Float64Array;
+  readonly nearBins: number[];
+  readonly kOccurrence: Float64Array;
+  readonly contrast: Float64Array;
+  readonly slack: Float64Array;
+  readonly toNearest = meanToNearestSums();
+  readonly nnDist: Float64Array;
+  /**
+   * The iid dimension's pairs (j > i), summed as deviations from `shift`, the mean distance of
+   * the first valid row: Σe and Σe² give the mean and variance without a second pass.
+   */
+  readonly shift: number;
+  validSeen = 0;
+  pairCount = 0;
+  pairSum = 0;
+  pairSumSq = 0;
+
+  constructor(
+    readonly gram: Float64Array,
+    readonly m: number,
+    readonly k: number,
+    readonly valid: Uint8Array,
+    readonly rowScale: Float64Array,
+  ) {
+    this.knn = emptyKnnLists(m, k);
+    this.bestScore = new Float64Array(k);
+    this.bestPos = new Uint32Array(k);
+    this.norms = new Float64Array(m);
+    for (let i = 0; i < m; i++) this.norms[i] = gram[i * m + i]! * rowScale[i]! * rowScale[i]!;
+    this.tieScore = new Float64Array(m);
+    this.tiePos = new Uint32Array(m);
+    this.near = new Float64Array(m);
+    this.farPart = new Float64Array(m);
+    this.probe = new Float64Array(Math.ceil(m / RADIUS_PROBE_STRIDE) + 1);
+    let validTotal = 0;
+    for (let i = 0; i < m; i++) if (valid[i]) validTotal++;
+    this.validTotal = validTotal;
+    this.zScores = new Float64Array(m).fill(NaN);
+    this.pairBins = new Float64Array(SIMILARITY_BINS);
+    this.nearBins = new Array<number>(SIMILARITY_BINS).fill(0);
+    this.kOccurrence = new Float64Array(m);
+    this.contrast = new Float64Array(m).fill(NaN);
+    this.slack = new Float64Array(m).fill(NaN);
+    this.nnDist = new Float64Array(m * k).fill(NaN);
+    let shift = NaN;
+    for (let i = 0; i < m && Number.isNaN(shift); i++) if (valid[i]) shift = firstRowMeanDistance(gram, i, m, valid, rowScale, this.norms);
+    this.shift = shift;
+  }
+
+  /** Row i's part of every measure (i a valid row). */
+  row(i: number): void {
+    const { gram, m, k, valid, rowScale, norms, bestScore, bestPos, tieScore, tiePos, near, farPart, validTotal, shift } = this;
+    const { knn, zScores, pairBins, nearBins, kOccurrence, contrast, slack, toNearest, nnDist } = this;
+    // Imports read once into locals: a module loader may reach them through getters (tsx's
+    // does), which would cost a call per element in the loops below.
+    const bins = SIMILARITY_BINS;
+    const binOfSimilarity = binOf;
+    const samePoint = SAME_POINT;
+    const tieTolerance = TIE_TOLERANCE;
+    const select = selectRank;
     const base = i * m;
-    if (!valid[i]) {
-      // An empty row is nobody's neighbour and no query; it still becomes a row of distances.
-      zScores[i] = NaN;
-      contrast[i] = NaN;
-      slack[i] = NaN;
-      rowToDistances(gram, i, m, norms);
-      continue;
-    }
-    nearestOfRow(gram, i, m, k, valid, knn, best);
-    const nearest = knn.sims[i * k]!;
-
-    // Cosines: the standout's mean and the pair histogram in one pass, then the standout's
-    // deviations and N_k's tied candidates in a second (both need the first pass's results).
+    const si = rowScale[i]!;
+    const ni = norms[i]!;
+    const limit = radiusBound(gram, i, m, valid, rowScale, norms, Math.min(10 * k, validTotal - 1), validTotal - 1, this.probe);
+    let filled = 0;
+    let bar = -Infinity; // a score must beat this to enter the full list
+    let keep = -Infinity; // a score at least this is kept aside as a possible tie at the k-th place
+    let ties = 0;
+    let nNear = 0;
     let sum = 0;
     let others = 0;
-    for (let j = 0; j < m; j++) {
-      if (j === i || !valid[j]) continue;
-      const s = gram[base + j]!;
-      sum += s;
-      others++;
-      if (j > i) pairBins[binOfSimilarity(s, bins)]++;
-    }
-    if (!Number.isNaN(nearest)) nearBins[binOfSimilarity(nearest, bins)]++;
-    zScores[i] = standoutGivenSum(gram, i, m, valid, nearest, sum, others);
-    addKOccurrenceOfRow(gram, i, m, k, knn.neighbors, knn.sims, valid, kOccurrence, tied);
-
-    // Distances: the row is turned into distances in place and, in the same pass, read by the
-    // contrast (min, max), mean-to-nearest (sum, min), the iid dimension's first pass (pairs
-    // after i, one running sum in row order) and the radius slack's bucket count.
-    const ni = norms[i]!;
+    let first = NaN;
+    let devSum = 0;
+    let devSumSq = 0;
     let dMin = Infinity;
     let dMax = -Infinity;
     let dSum = 0;
-    let upperSum = firstPass.sum;
-    let upperCount = firstPass.count;
-    const counts = slackScratch.counts;
-    counts.fill(0);
+    let eSum = this.pairSum;
+    let eSumSq = this.pairSumSq;
+
     for (let j = 0; j < m; j++) {
-      const sq = ni + norms[j]! - 2 * gram[base + j]!;
-      const d = j === i ? 0 : sq > samePoint * (ni + norms[j]!) ? Math.sqrt(sq) : 0;
-      gram[base + j] = d;
       if (j === i || !valid[j]) continue;
+      const s = gram[base + j]! * si * rowScale[j]!;
+      const nj = norms[j]!;
+      const sq = ni + nj - 2 * s;
+      const d = sq > samePoint * (ni + nj) ? Math.sqrt(sq) : 0;
+      if (s >= keep) {
+        tieScore[ties] = s;
+        tiePos[ties++] = j;
+        if (filled < k || s > bar) {
+          // nearestOfRow's rule: shift clearly worse entries down; equal scores stay ahead.
+          let slot = filled < k ? filled++ : k - 1;
+          while (slot > 0 && s > bestScore[slot - 1]! + tieTolerance * Math.max(1, Math.abs(bestScore[slot - 1]!))) {
+            bestScore[slot] = bestScore[slot - 1]!;
+            bestPos[slot] = bestPos[slot - 1]!;
+            slot--;
+          }
+          bestScore[slot] = s;
+          bestPos[slot] = j;
+          if (filled === k) {
+            const kth = bestScore[k - 1]!;
+            bar = kth + tieTolerance * Math.max(1, Math.abs(kth));
+            keep = kth - 4 * tieTolerance * Math.max(1, Math.abs(kth));
+          }
+        }
+      }
+      if (sq <= limit) near[nNear++] = d;
+      sum += s;
+      if (others === 0) first = s;
+      const dev = s - first;
+      devSum += dev;
+      devSumSq += dev * dev;
+      others++;
       if (d < dMin) dMin = d;
       if (d > dMax) dMax = d;
       dSum += d;
       if (j > i) {
-        upperSum += d;
-        upperCount++;
+        pairBins[binOfSimilarity(s, bins)]++;
+        const e = d - shift;
+        eSum += e;
+        eSumSq += e * e;
       }
-      counts[bucketOfDistance(d)]++;
     }
-    firstPass.sum = upperSum;
-    firstPass.count = upperCount;
+    this.pairSum = eSum;
+    this.pairSumSq = eSumSq;
+    this.validSeen++;
+    this.pairCount += validTotal - this.validSeen;
+
+    for (let r = 0; r < filled; r++) {
+      const j = bestPos[r]!;
+      knn.neighbors[i * k + r] = j;
+      knn.sims[i * k + r] = bestScore[r]!;
+      const nj = norms[j]!;
+      const sq = ni + nj - 2 * bestScore[r]!;
+      nnDist[i * k + r] = sq > samePoint * (ni + nj) ? Math.sqrt(sq) : 0;
+    }
+    const nearest = filled > 0 ? bestScore[0]! : NaN;
+    if (!Number.isNaN(nearest)) nearBins[binOfSimilarity(nearest, bins)]++;
     contrast[i] = dMin > 0 && dMin < Infinity ? (dMax - dMin) / dMin : NaN;
     if (others > 0) {
       toNearest.sumMean += dSum / others;
       toNearest.sumMin += dMin;
       toNearest.queries++;
     }
-    slack[i] = slackFromCounts(gram, i, m, valid, k, others, slackScratch);
-    for (let r = 0; r < k; r++) {
-      const j = knn.neighbors[i * k + r]!;
-      if (j !== NO_NEIGHBOR) nnDist[i * k + r] = gram[base + j]!;
+    // standout (standoutGivenSum): the z-score of the nearest similarity
+    if (others >= 2 && !Number.isNaN(nearest)) {
+      const mean = sum / others;
+      const meanDev = devSum / others;
+      const sd = Math.sqrt(Math.max(0, devSumSq / others - meanDev * meanDev));
+      if (sd > 1e-12 * Math.max(1, Math.abs(mean))) zScores[i] = (nearest - mean) / sd;
+    }
+    // N_k (addKOccurrenceOfRow): firm list entries count 1, the values tied with the k-th share the rest
+    if (filled > 0) {
+      const last = bestScore[filled - 1]!;
+      const tol = tieTolerance * Math.max(1, Math.abs(last));
+      let firm = 0;
+      for (let r = 0; r < filled; r++) {
+        if (Math.abs(bestScore[r]! - last) <= tol) continue;
+        kOccurrence[bestPos[r]!] += 1;
+        firm++;
+      }
+      let group = 0;
+      for (let g = 0; g < ties; g++) if (Math.abs(tieScore[g]! - last) <= tol) tiePos[group++] = tiePos[g]!;
+      const slots = filled - firm;
+      const share = slots / Math.max(group, slots);
+      for (let g = 0; g < group; g++) kOccurrence[tiePos[g]!] += share;
+    }
+    // radius slack (radiusSlackPerQuery): the k-th and the 10k-th smallest distance of the row
+    if (others >= k) {
+      const far = Math.min(10 * k, others);
+
+      if (nNear < far) nNear = gatherDistances(gram, i, m, valid, rowScale, norms, near);
+      farPart.set(near.subarray(0, nNear));
+      const rK = select(near, 0, nNear - 1, k - 1);
+      const rFar = select(farPart, 0, nNear - 1, far - 1);
+      slack[i] = rK > 0 ? (rFar - rK) / rK : NaN;
     }
   }
 
-  return {
-    knn,
-    kOccurrence,
-    standout: medianStandout(zScores),
-    similarity: { start: 0, binWidth: 1 / SIMILARITY_BINS, pairs: Array.from(pairBins), nearest: nearBins },
-    contrast: contrastSummary(contrast),
-    meanToNearest: meanToNearestOf(toNearest),
-    iidEquivalentDimension: iidDimensionOfCv(pairDistanceCvAfter(gram, m, valid, 1, firstPass)),
-    radiusSlack: radiusSlackSummary(slack),
-    nnDist,
-  };
+  result(): SampleRowMeasures {
+    return {
+      knn: this.knn,
+      kOccurrence: this.kOccurrence,
+      standout: medianStandout(this.zScores),
+      similarity: { start: 0, binWidth: 1 / SIMILARITY_BINS, pairs: Array.from(this.pairBins), nearest: this.nearBins },
+      contrast: contrastSummary(this.contrast),
+      meanToNearest: meanToNearestOf(this.toNearest),
+      iidEquivalentDimension: iidDimensionOfCv(shiftedCv(this.pairSum, this.pairSumSq, this.pairCount, this.shift)),
+      radiusSlack: radiusSlackSummary(this.slack),
+      nnDist: this.nnDist,
+    };
+  }
+}
+
+/** Every how many entries radiusBound reads a row. */
+const RADIUS_PROBE_STRIDE = 8;
+
+/**
+ * A squared distance below which about 2·far of row i's `others` distances lie, read from every
+ * RADIUS_PROBE_STRIDE-th entry (Infinity when the row is too short to tell): its quantile is
+ * twice far/others plus a few entries, so falling short of `far` (one more pass) is rare.
+ */
+function radiusBound(gram: Float64Array, i: number, m: number, valid: Uint8Array, rowScale: Float64Array, norms: Float64Array, far: number, others: number, probe: Float64Array): number {
+  const base = i * m;
+  const si = rowScale[i]!;
+  const ni = norms[i]!;
+  let n = 0;
+  for (let j = 0; j < m; j += RADIUS_PROBE_STRIDE) {
+    if (j === i || !valid[j]) continue;
+    probe[n++] = ni + norms[j]! - 2 * (gram[base + j]! * si * rowScale[j]!);
+  }
+  const rank = Math.ceil((2 * far * n) / Math.max(1, others)) + 4;
+  return rank >= n - 1 ? Infinity : selectRank(probe, 0, n - 1, rank);
+}
+
+/** Every distance of row i to the other valid rows into `out`; returns the count. */
+function gatherDistances(gram: Float64Array, i: number, m: number, valid: Uint8Array, rowScale: Float64Array, norms: Float64Array, out: Float64Array): number {
+  const base = i * m;
+  const si = rowScale[i]!;
+  const ni = norms[i]!;
+  let n = 0;
+  for (let j = 0; j < m; j++) {
+    if (j === i || !valid[j]) continue;
+    const nj = norms[j]!;
+    const sq = ni + nj - 2 * (gram[base + j]! * si * rowScale[j]!);
+    out[n++] = sq > SAME_POINT * (ni + nj) ? Math.sqrt(sq) : 0;
+  }
+  return n;
+}
+
+/** Mean distance of row i to the other valid rows (NaN when it has none): the iid pair sums' shift. */
+function firstRowMeanDistance(gram: Float64Array, i: number, m: number, valid: Uint8Array, rowScale: Float64Array, norms: Float64Array): number {
+  const scratch = new Float64Array(m);
+  const n = gatherDistances(gram, i, m, valid, rowScale, norms, scratch);
+  let sum = 0;
+  for (let g = 0; g < n; g++) sum += scratch[g]!;
+  return n > 0 ? sum / n : NaN;
+}
+
+/** sd/mean of values given as n deviations e from `shift`: mean = shift + Σe/n, var = Σe²/n − (Σe/n)². */
+function shiftedCv(sumE: number, sumE2: number, n: number, shift: number): number | null {
+  if (n < 2) return null;
+  const meanE = sumE / n;
+  const mean = shift + meanE;
+  if (!(mean > 0)) return null;
+  const variance = Math.max(0, sumE2 / n - meanE * meanE);
+  return Math.sqrt(variance) / mean;
 }

@@ -95,13 +95,13 @@ export class DistanceLab {
    */
   whatIf(removed: Uint8Array, baselineNeighbors: Uint32Array | null): Measures {
     const { sums, rowsWithWeight } = this.exactSums(removed, true);
-    const gram = this.gram.at(removed, true);
-    return measuresFromGram({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, sums, rowsWithWeight, gram }).measures;
+    const { dots, scale } = this.gram.scaled(removed, true);
+    return measuresFromGram({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, sums, rowsWithWeight, gram: dots, rowScale: scale }).measures;
   }
 
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {
     const { sums, rowsWithWeight } = this.exactSums(removed, incremental);
-    const gram = this.gram.at(removed, incremental);
+    const { dots, scale } = this.gram.scaled(removed, incremental);
     return measureDistances(this.maskedSample(removed), {
       sample: this.positions,
       k: this.k,
@@ -110,7 +110,8 @@ export class DistanceLab {
       baselineNeighbors,
       sums,
       rowsWithWeight,
-      gram,
+      gram: dots,
+      rowScale: scale,
     });
   }
 

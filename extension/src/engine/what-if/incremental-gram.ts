@@ -79,6 +79,27 @@ export class IncrementalGram {
    * `incremental` as in IncrementalTermSums.at: false = a full build, kept as a checkpoint.
    */
   at(removed: Uint8Array, incremental = true): Float64Array {
+    this.advance(removed, incremental);
+    return this.cosines();
+  }
+
+  /**
+   * The same state without writing the m×m cosines: the kept dot products D (row-major) and each
+   * row's 1/√D_ii (0 for an emptied row), so cosine_ij = dots_ij·scale_i·scale_j — what
+   * measuresFromGram reads with `rowScale`, one pass over D instead of a write and a read of
+   * the cosines. Both arrays are the live state: valid until the next call, never to be written.
+   */
+  scaled(removed: Uint8Array, incremental = true): { dots: Float64Array; scale: Float64Array } {
+    this.advance(removed, incremental);
+    const { m, dots, inv } = this;
+    for (let i = 0; i < m; i++) {
+      const d = dots[i * m + i]!;
+      inv[i] = d > 0 ? 1 / Math.sqrt(d) : 0;
+    }
+    return { dots, scale: inv };
+  }
+
+  private advance(removed: Uint8Array, incremental: boolean): void {
     if (removed.length < this.mask.length) throw new RangeError(`removed has ${removed.length} entries for ${this.mask.length} columns`);
     const checkpoint = this.ready ? this.checkpoints.find((c) => sameMask(removed, c.mask)) : undefined;
     if (this.ready && sameMask(removed, this.mask) && (incremental || this.exact)) {
@@ -108,7 +129,6 @@ export class IncrementalGram {
       else if (cost >= this.fullCost || this.updatedPairs + cost > REBUILD_AFTER * this.m * this.m) this.build(removed);
       else this.update(changed, removed, cost);
     }
-    return this.cosines();
   }
 
   /** D and the shared-term counts from scratch, through an inverted index of the rows seen. */
