@@ -1,5 +1,5 @@
 // What the panel's toggle costs: one full review through the engine API, then several
-// what-if calls that each stop one more term, timed one by one. Prints one JSON object.
+// what-if calls that each stop or restore one term, timed one by one. Prints one JSON object.
 //
 // usage: node --import tsx test/bench/what-if-latency.ts FILE.csv [--text text] [--label topic] [--toggles 9]
 import { performance } from 'node:perf_hooks';
@@ -50,19 +50,26 @@ async function main(): Promise<void> {
     const d = process.cpuUsage(since);
     return (d.user + d.system) / 1000;
   };
-  const removed: string[] = [];
+  // The panel opens with the suggestions ticked and a click ticks or unticks one term, so each
+  // call differs from the one before by one term: every other click is kept, the others undone.
+  session.prepareWhatIf?.();
+  let selection = [...session.report.suggestions];
+  const flip = (terms: string[], term: string) => (terms.includes(term) ? terms.filter((t) => t !== term) : [...terms, term]);
   for (let i = 0; i < toggles; i++) {
     const term = candidates[i % candidates.length] as string;
-    // Toggling a term on stops it on top of the ones already stopped; toggling back undoes it.
+    const next = flip(selection, term);
     let t = performance.now();
     const cpu = process.cpuUsage();
-    session.whatIf([...removed, term]);
+    session.whatIf(next);
     on.push(performance.now() - t);
     onCpu.push(cpuMs(cpu));
-    t = performance.now();
-    session.whatIf(removed);
-    off.push(performance.now() - t);
-    if (i % 2 === 0) removed.push(term);
+    if (i % 2 === 0) {
+      selection = next;
+    } else {
+      t = performance.now();
+      session.whatIf(selection);
+      off.push(performance.now() - t);
+    }
   }
   console.log(
     JSON.stringify({

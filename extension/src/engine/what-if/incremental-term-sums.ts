@@ -28,6 +28,7 @@ export class IncrementalTermSums {
   private rowsWithWeight = 0;
   private ready = false;
   private postings: { start: Uint32Array; rows: Uint32Array } | null = null;
+  private delta: Float64Array | null = null;
   /** Entries visited by incremental updates since the last full pass. */
   private updatedEntries = 0;
   /**
@@ -179,10 +180,15 @@ export class IncrementalTermSums {
    * over the row, and one pass then moves its other kept terms to the new scale. Where stopping
    * t removes more than half of a row's kept norm the subtraction would lose digits, so that
    * row's norm is summed afresh, as is one that empties (its norm must be exactly 0).
+   *
+   * The rescaled rows' changes are gathered in `delta` (S1 and S2 of a term side by side, one
+   * cache line, and no look-up of the mask per entry) and added to the sums of the kept terms
+   * other than t in one pass at the end; a function word's rows hold ~95% of the entries.
    */
   private updateOne(t: number, removed: Uint8Array): void {
     const { indptr, indices, data } = this.weights;
     const { s1, s2, mask, rowNorm2 } = this;
+    const delta = this.deltaScratch();
     const postings = this.columnPostings();
     const stopping = removed[t] !== 0;
     let entries = 0;
@@ -214,11 +220,10 @@ export class IncrementalTermSums {
         const d1 = invNew - invOld;
         const d2 = 1 / norm2 - 1 / oldNorm2;
         for (let p = start; p < end; p++) {
-          const u = indices[p]!;
-          if (u === t || mask[u] !== 0) continue;
+          const u2 = 2 * indices[p]!;
           const w = data[p]!;
-          s1[u] += w * d1;
-          s2[u] += w * w * d2;
+          delta[u2] += w * d1;
+          delta[u2 + 1] += w * w * d2;
         }
       } else {
         for (let p = start; p < end; p++) {
@@ -228,6 +233,14 @@ export class IncrementalTermSums {
         }
       }
     }
+    mask[t] = 1; // t's own sums are final; the gathered changes skip it
+    for (let u = 0, cols = s1.length; u < cols; u++) {
+      if (mask[u] === 0) {
+        s1[u] += delta[2 * u]!;
+        s2[u] += delta[2 * u + 1]!;
+      }
+    }
+    delta.fill(0);
     mask[t] = stopping ? 1 : 0;
     this.updatedEntries += entries;
     this.exact = false;
@@ -265,6 +278,12 @@ export class IncrementalTermSums {
   /** Adds one row's kept weights, scaled, to the sums. */
   private addRow(start: number, end: number, removed: Uint8Array, scale: number): void {
     addKeptRow({ s1: this.s1, s2: this.s2, df: this.df }, this.weights, start, end, removed, scale);
+  }
+
+  /** Zeroed scratch of 2 entries per column for updateOne, kept from call to call. */
+  private deltaScratch(): Float64Array {
+    if (this.delta === null) this.delta = new Float64Array(2 * this.weights.cols);
+    return this.delta;
   }
 
   /** Builds the column postings ahead of the first incremental step. */
