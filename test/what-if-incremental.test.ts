@@ -132,6 +132,26 @@ function everywhere(X: Csr): Csr {
   return { rows: X.rows, cols: X.cols, indptr, indices: Uint32Array.from(indices), data: Float64Array.from(data) };
 }
 
+/** X with one more column, held (weight 0.2 before renormalising) by `holders` only. */
+function withTermIn(X: Csr, holders: readonly number[]): Csr {
+  const extra = X.cols;
+  const indptr = new Uint32Array(X.rows + 1);
+  const indices: number[] = [];
+  const data: number[] = [];
+  for (let r = 0; r < X.rows; r++) {
+    const row: Array<[number, number]> = [];
+    for (let p = X.indptr[r]!; p < X.indptr[r + 1]!; p++) row.push([X.indices[p]!, X.data[p]!]);
+    if (holders.includes(r)) row.push([extra, 0.2]);
+    const norm = Math.hypot(...row.map((e) => e[1]));
+    for (const [t, w] of row) {
+      indices.push(t);
+      data.push(w / norm);
+    }
+    indptr[r + 1] = indices.length;
+  }
+  return { rows: X.rows, cols: X.cols + 1, indptr, indices: Uint32Array.from(indices), data: Float64Array.from(data) };
+}
+
 /** Columns to flip one at a time: the term in every row often, and each pick repeated now and then (on, then straight back off). */
 function singleToggles(cols: number, steps: number, random: () => number): number[] {
   const out: number[] = [];
@@ -198,18 +218,24 @@ describe('incremental what-if', () => {
     }
   });
 
-  it('DistanceLab.whatIf (a panel toggle) equals the full measures along single toggles, repeats and a term in every row', () => {
+  it('DistanceLab.whatIf (a panel toggle) equals the full measures along single toggles, repeats, a term in every row and one in no sampled row', () => {
     for (let seed = 1; seed <= 3; seed++) {
       const random = generator(2000 + seed);
-      const X = everywhere(textLikeRows(500, 40, random));
       const sample = Uint32Array.from({ length: 100 }, (_, i) => i * 5);
+      // Rows 1, 7 and 13 are not sampled (the sample is every 5th row).
+      const X = withTermIn(everywhere(textLikeRows(500, 40, random)), [1, 7, 13]);
       const labels = Int32Array.from(sample, () => Math.floor(random() * 3));
       const k = 5;
       const lab = new DistanceLab(X, sample, k, seed, labels);
       const reference = new DistanceLab(X, sample, k, seed, labels);
       const mask = new Uint8Array(X.cols);
       const baseline = lab.measure(mask, null);
-      for (const t of singleToggles(X.cols, 30, random)) {
+      // A term some documents hold but no sampled one: only the exact sums move.
+      const inSample = new Set<number>();
+      for (const r of sample) for (let p = X.indptr[r]!; p < X.indptr[r + 1]!; p++) inSample.add(X.indices[p]!);
+      const absent = [...new Set(X.indices)].find((t) => !inSample.has(t));
+      assert.ok(absent !== undefined, 'every term is in a sampled row');
+      for (const t of [absent, ...singleToggles(X.cols, 30, random), absent]) {
         mask[t] = mask[t] === 0 ? 1 : 0;
         const got = lab.whatIf(mask, baseline.neighbors);
         const want = reference.measure(mask, baseline.neighbors).measures;
