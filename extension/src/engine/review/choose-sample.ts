@@ -29,16 +29,20 @@ export function chooseSample(weights: Csr, size: number, seed: number, labels: r
   const kept = new BottomK<Ranked & { doc: number }>(Math.max(0, Math.min(size, weights.rows)));
   let nonEmpty = 0;
   let doc = 0;
+  // One candidate object is reused for the test; only admitted documents get their own (at a
+  // million documents, a million short-lived objects otherwise).
+  const candidate: Ranked = { key: 0, file: '', line: 0 };
   for (let f = 0; f < places.keys.length; f++) {
     const file = places.keys[f]!;
     const fileHash = hashFileKey(file, seed);
+    candidate.file = file;
     const end = doc + places.documents[f]!;
     for (; doc < end; doc++) {
       if (!rowHasWeight(weights, doc)) continue;
       nonEmpty++;
-      const line = places.lines[doc]!;
-      const item = { key: placeKey(fileHash, line), file, line, doc };
-      if (kept.admits(item)) kept.push(item);
+      candidate.line = places.lines[doc]!;
+      candidate.key = placeKey(fileHash, candidate.line);
+      if (kept.admits(candidate)) kept.push({ key: candidate.key, file, line: candidate.line, doc });
     }
   }
   if (doc !== weights.rows) throw new RangeError(`chooseSample: the places cover ${doc} documents of ${weights.rows}`);
