@@ -173,11 +173,8 @@ export function chunkCachedUnigrams(
     const w = chunk.slice(0, -1);
     // A pending miss that could reach the word could also make the chunk (which holds it) a lexeme.
     if (unsafeMisses > 0 && reachedByPending(w.toLowerCase())) return false;
-    const p = chunk.slice(-1);
-    if (lexemeEntry(p)?.length !== 1) return false;
-    const sign = cachedForGood(p);
-    if (sign < 0 && sign !== DROPPED) return false;
-    if (p.toLowerCase() !== p && lexemeEntry(p.toLowerCase()) === null) return false;
+    const sign = signValue(chunk.slice(-1));
+    if (sign === ABSENT) return false;
     const entry = lexemeEntry(w);
     let word: number;
     if (entry === null) {
@@ -200,6 +197,22 @@ export function chunkCachedUnigrams(
     store(chunk, MULTI - (multis.length - 1));
     return true;
   };
+  /**
+   * The sign's part of composeWordRP's conditions: its table value (an id or DROPPED) when it is a
+   * lexeme cached for good, no contraction, whose lowercase is a lexeme; else ABSENT. Once they
+   * hold they hold for good (lexemes are never removed, ids never change), so they are kept.
+   */
+  const signValue = (p: string): number => {
+    const known = signs.get(p);
+    if (known !== undefined) return known;
+    if (lexemeEntry(p)?.length !== 1) return ABSENT;
+    const sign = cachedForGood(p);
+    if (sign < 0 && sign !== DROPPED) return ABSENT;
+    if (p.toLowerCase() !== p && lexemeEntry(p.toLowerCase()) === null) return ABSENT;
+    signs.set(p, sign);
+    return sign;
+  };
+  const signs = new Map<string, number>();
   /**
    * Point 7: the term id (or DROPPED) of `word`, a plain word that is not a wink lexeme, as wink
    * would make it, recording the word and its lowercase as deferred additions.
@@ -295,8 +308,8 @@ export function chunkCachedUnigrams(
   let longRunsCut = 0;
 
   /** Appends the cached ids of text[start, end), or notes it as a miss. */
-  const visit = (text: string, start: number, end: number, hash: number, out: IdList): void => {
-    let v = table.get(text, start, end, hash);
+  const visit = (text: string, start: number, end: number, hash: number, out: IdList, found = table.get(text, start, end, hash)): void => {
+    let v = found;
     if (v <= MULTI && unsafeMisses > 0 && conditional[MULTI - v]) {
       // An earlier miss of this document may make this chunk a lexeme: wink sees the misses first.
       flush(out);
@@ -411,8 +424,14 @@ export function chunkCachedUnigrams(
         c = text.charCodeAt(i);
         kind = SPLIT_CLASS[c]!;
       } while (kind === want);
-      if (want === OTHER && i - start > MAX_RUN) visitLongRun(text, start, i, out);
-      else visit(text, start, i, h, out);
+      if (want === OTHER && i - start > MAX_RUN) {
+        visitLongRun(text, start, i, out);
+        continue;
+      }
+      // The common case (a chunk cached as one term) stays in this loop; the rest in `visit`.
+      const v = table.get(text, start, i, h);
+      if (v >= 0) out.push(v);
+      else visit(text, start, i, h, out, v);
     }
   };
 

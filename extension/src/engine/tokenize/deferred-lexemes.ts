@@ -12,7 +12,7 @@ import type { WinkMethods } from 'wink-nlp';
 export class DeferredLexemes {
   /** The deferred strings by their lowercase (the key a run's lookup can reach them by). */
   private readonly byLower = new Map<string, string[]>();
-  private readonly all = new Set<string>();
+  private count = 0;
   /** Longest lowercase key, in code units: no longer substring needs looking at. */
   private longest = 0;
   /** Strings deferred, and given back to wink, so far (figures for tests). */
@@ -20,17 +20,17 @@ export class DeferredLexemes {
   replayed = 0;
 
   get size(): number {
-    return this.all.size;
+    return this.count;
   }
 
   /** Records `word` (not a wink lexeme; `lower` is its lowercase) as deferred. */
   add(word: string, lower: string): void {
-    if (this.all.has(word)) return;
-    this.all.add(word);
-    this.deferredEver++;
     const list = this.byLower.get(lower);
     if (list === undefined) this.byLower.set(lower, [word]);
-    else list.push(word);
+    else if (!list.includes(word)) list.push(word);
+    else return;
+    this.count++;
+    this.deferredEver++;
     if (lower.length > this.longest) this.longest = lower.length;
   }
 
@@ -43,7 +43,7 @@ export class DeferredLexemes {
    * character and stays in the class); only those substrings are tried.
    */
   takeReachableFrom(chunk: string, out: string[]): void {
-    if (this.all.size === 0) return;
+    if (this.count === 0) return;
     const lower = chunk.toLowerCase();
     const n = lower.length;
     let i = 0;
@@ -64,9 +64,9 @@ export class DeferredLexemes {
 
   /** Moves every deferred string to `out`. */
   takeAll(out: string[]): void {
-    for (const w of this.all) out.push(w);
-    this.all.clear();
+    for (const list of this.byLower.values()) for (const w of list) out.push(w);
     this.byLower.clear();
+    this.count = 0;
     this.longest = 0;
   }
 
@@ -74,10 +74,8 @@ export class DeferredLexemes {
     const list = this.byLower.get(key);
     if (list === undefined) return;
     this.byLower.delete(key);
-    for (const w of list) {
-      this.all.delete(w);
-      out.push(w);
-    }
+    this.count -= list.length;
+    for (const w of list) out.push(w);
   }
 }
 
