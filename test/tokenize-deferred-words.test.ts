@@ -1,4 +1,5 @@
 import { strict as assert } from 'node:assert';
+import type { WinkMethods } from 'wink-nlp';
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { mulberry32, randomBelow } from '../extension/src/engine/random/seeded-random';
 import { createTermCoder, createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
@@ -116,4 +117,68 @@ describe('tokenize: plain words tokenised without wink (deferred lexemes) equal 
     });
     assert.equal(deferredLexemesOf(nlp).size, 0, 'the last document went through wink whole, after every deferred word');
   });
+});
+
+describe('tokenize: deferred words, the two guards, on a stand-in wink whose word types depend on order', () => {
+  // With the English model no text we found makes a plain word's type depend on when it became a
+  // lexeme, so this stand-in wink, whose rules we choose, does (as the stand-in of
+  // tokenize-chunk-cache.test.ts does for point 4): a new plain word becomes a lexeme of type
+  // "word" (as in wink), but "5abc" emits "5" and "abc" typed "symbol" when "abc" is new; a
+  // lexeme keeps the type it was first added with, and its lowercase is added with it (wink's
+  // cache.add). The settings keep words and numbers only, so the type decides whether "abc" is
+  // counted. The plain path on a second stand-in is the oracle.
+  function standInWink(): WinkMethods {
+    const types = new Map<string, string>([['5', 'number']]);
+    const add = (t: string, type: string): string => {
+      if (!types.has(t)) types.set(t, type);
+      if (!types.has(t.toLowerCase())) types.set(t.toLowerCase(), type);
+      return types.get(t)!;
+    };
+    const chunkTokens = (chunk: string): [string, string][] => {
+      if (types.has(chunk)) return [[chunk, types.get(chunk)!]];
+      const numbered = /^(\d+)([a-z]+)$/i.exec(chunk);
+      if (numbered !== null) return [[numbered[1]!, add(numbered[1]!, 'number')], [numbered[2]!, add(numbered[2]!, 'symbol')]];
+      return [[chunk, add(chunk, /^[a-z]+$/i.test(chunk) ? 'word' : 'symbol')]];
+    };
+    const its = { normal: Symbol('normal'), type: Symbol('type'), precedingSpaces: Symbol('precedingSpaces'), contractionFlag: Symbol('contractionFlag') };
+    const readDoc = (text: string) => {
+      const tokens: [string, string][] = [];
+      const spaces: string[] = [];
+      let pending = '';
+      for (const piece of text.split(/( +)/)) {
+        if (piece === '') continue;
+        if (piece.startsWith(' ')) {
+          pending = piece;
+          continue;
+        }
+        chunkTokens(piece).forEach((t, i) => {
+          tokens.push(t);
+          spaces.push(i === 0 ? pending : '');
+        });
+        pending = '';
+      }
+      const out = (f?: unknown): unknown[] =>
+        f === its.normal ? tokens.map(([t]) => t.toLowerCase()) : f === its.type ? tokens.map(([, type]) => type) : f === its.precedingSpaces ? spaces : f === its.contractionFlag ? tokens.map(() => false) : tokens.map(([t]) => t);
+      return { isLexeme: (t: string) => (types.has(t) ? [1] : null), tokens: () => ({ out }) };
+    };
+    return { its, readDoc } as unknown as WinkMethods;
+  }
+  const settings: TokenSettings = { lowercase: true, stem: false, minLength: 1, kinds: ['word', 'number'], ngrams: 1 };
+
+  for (const [name, docs] of [
+    ['a deferred word is given to wink before a later chunk that looks it up ("abc" then "5abc": "abc" stays a word)', ['abc xy', 'q 5abc', 'ABC 5xy']],
+    ['a word is not deferred while an earlier pending chunk could add it ("5abc" then "abc": "abc" is a symbol)', ['5abc abc', 'r 5Rs rs RS', 'abc']],
+  ] as const) {
+    it(name, () => {
+      const encode = batchEncoding(createTermCoder(settings, { nlp: standInWink() }));
+      const plain = createTokenizer(settings, { nlp: standInWink(), chunkCache: false });
+      const b = encode([...docs]);
+      let k = 0;
+      docs.forEach((text, d) => {
+        const got = new Map<string, number>();
+        for (; k < b.rowEnds[d]!; k++) got.set(b.newTerms[b.cols[k]!]!, b.counts[k]!);
+        assert.deepEqual(got, countsOf(plain(text)), `document ${d}: ${text}`);
+      });
+    });
+  }
 });
