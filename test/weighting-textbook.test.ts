@@ -34,6 +34,9 @@ describe('weighting against published examples', () => {
       assert.equal(got.weights.data, counts.data, 'the counts\' own array');
       assert.deepEqual([...got.weights.data], [...want.weights.data], tf);
       assert.deepEqual([...got.idf], [...want.idf], tf);
+      // With the df given (as prepare-weights passes the raw-count statistics' df): the same idf.
+      const again = countMatrix([[3, 0, 1], [2, 0, 0], [0, 0, 0], [4, 7, 0], [3, 2, 0], [3, 0, 2]]);
+      assert.deepEqual([...weighInPlace(again, { tf, idf: 'smooth', norm: 'l2' }, [5, 2, 2]).weights.data], [...want.weights.data], `${tf}, df given`);
     }
   });
 

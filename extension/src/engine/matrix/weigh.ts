@@ -30,17 +30,27 @@ export function weigh(counts: CountMatrix, weighting: WeightingSettings): Weight
  * (prepare-weights.ts): no second array as long as the non-zeros (~600 MB at a million
  * documents), the same numbers. The counts must not be used afterwards.
  */
-export function weighInPlace(counts: CountMatrix, weighting: WeightingSettings): Weighted {
-  const idf = idfOfColumns(counts, weighting);
+export function weighInPlace(counts: CountMatrix, weighting: WeightingSettings, df?: ArrayLike<number>): Weighted {
+  const idf = idfOfColumns(counts, weighting, df);
   return { weights: weighWithIdf(counts, idf, weighting, counts.data), idf };
 }
 
-/** idf of every column from the counts' document frequencies. */
-function idfOfColumns(counts: Csr, weighting: WeightingSettings): Float64Array {
+/**
+ * idf of every column from the counts' document frequencies (the non-zeros per column), or from
+ * `df` when the caller has counted them already (one pass over the non-zeros fewer).
+ */
+function idfOfColumns(counts: Csr, weighting: WeightingSettings, known?: ArrayLike<number>): Float64Array {
   const { rows: n, cols } = counts;
-  const total = counts.indptr[n];
-  const df = new Uint32Array(cols);
-  for (let k = 0; k < total; k++) if (counts.data[k] !== 0) df[counts.indices[k]]++;
+  let df: ArrayLike<number>;
+  if (known !== undefined) {
+    if (known.length !== cols) throw new RangeError(`weigh: df has ${known.length} entries for ${cols} columns`);
+    df = known;
+  } else {
+    const total = counts.indptr[n];
+    const counted = new Uint32Array(cols);
+    for (let k = 0; k < total; k++) if (counts.data[k] !== 0) counted[counts.indices[k]]++;
+    df = counted;
+  }
   const idf = new Float64Array(cols);
   for (let j = 0; j < cols; j++) idf[j] = idfOf(weighting.idf, n, df[j]);
   return idf;

@@ -69,10 +69,11 @@ export async function prepareWeights(
   if (counts.cols === 0) {
     throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', source.file);
   }
-  // The raw-count statistics first: the weights are then written over the counts.
+  // The raw-count statistics first: the weights are then written over the counts. Their df is
+  // the idf's (every stored count is ≥ 1, so a column's entries are its documents).
   const countStats = termCountStats(counts);
   // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
-  const { weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' });
+  const { weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' }, countStats.df);
   let tokens = 0;
   for (let r = 0; r < built.counts.rows; r++) tokens += built.counts.tokensPerDoc[r]!;
   return {
