@@ -164,7 +164,8 @@ export interface EffectiveSettings {
 
 // ---- Messages: extension host → webview ----
 export interface ShowReportMessage { type: 'showReport'; report: Report }
-export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number }
+/** `engineMs`: the engine's time for this what-if in the worker (the rest of a click's wait is messages and drawing). */
+export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number }
 export interface BusyMessage { type: 'busy'; stage: string | null }
 export interface ErrorMessage { type: 'error'; message: string }
 /**

@@ -122,6 +122,8 @@ export class PanelApp {
     this.state.whatIf = { removed: [...message.removed], measures: message.measures };
     this.save();
     this.renderStrip();
+    // The engine's share of the wait, for the e2e latency scenario to print beside the click's.
+    if (message.engineMs !== undefined) this.loaded.stripSlot.dataset.engineMs = message.engineMs.toFixed(1);
     this.loaded.charts.update(this.currentSetting(this.loaded.report));
   }
 

@@ -121,7 +121,8 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
       switch (m.type) {
         case 'whatIf': {
           const measures = await review.client.whatIf(m.removed);
-          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId });
+          const engineMs = review.client.lastWhatIfEngineMs ?? undefined;
+          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs });
           return;
         }
         case 'revealLine':

@@ -75,6 +75,9 @@ export class ReviewWorkerClient {
     });
   }
 
+  /** The engine's time for the latest what-if answered (ms, measured in the worker). */
+  lastWhatIfEngineMs: number | null = null;
+
   whatIf(removed: readonly string[]): Promise<Measures> {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
@@ -154,6 +157,7 @@ export class ReviewWorkerClient {
       case 'whatIfResult': {
         const pending = this.whatIfs.get(m.requestId);
         this.whatIfs.delete(m.requestId);
+        this.lastWhatIfEngineMs = m.engineMs;
         pending?.resolve(m.measures);
         return;
       }

@@ -57,7 +57,9 @@ async function whatIf(requestId: number, removed: string[]): Promise<void> {
     return;
   }
   try {
-    post({ type: 'whatIfResult', requestId, removed, measures: await session.whatIf(removed) });
+    const started = performance.now();
+    const measures = await session.whatIf(removed);
+    post({ type: 'whatIfResult', requestId, removed, measures, engineMs: performance.now() - started });
   } catch (e) {
     post({ ...errorMessage(e, null), requestId });
   }

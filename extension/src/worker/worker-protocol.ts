@@ -18,7 +18,7 @@ export type HostToWorker = ReviewRequest | WhatIfRequest;
 export interface StageMessage { type: 'stage'; runId: number; stage: ReviewStage; fraction: number }
 export interface ReportMessage { type: 'report'; runId: number; report: Report }
 /** The worker's answer to a WhatIfRequest (the host passes it on to the panel as protocol.ts's WhatIfResultMessage). */
-export interface WorkerWhatIfResult { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures }
+export interface WorkerWhatIfResult { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures; engineMs: number }
 /**
  * A failure. `kind` says whose fault it is: 'user' (a file or setting, with file and 1-based
  * line where known), 'cancelled' (the host asked), 'internal' (a bug; `stack` for the log).

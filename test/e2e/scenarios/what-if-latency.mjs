@@ -18,7 +18,10 @@ function median(values) {
   return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
 }
 
-/** Clicks `term`'s checkbox inside the frame and resolves with ms until the strip shows the answer. */
+/**
+ * Clicks `term`'s checkbox inside the frame and resolves with ms until the strip shows the answer,
+ * and the engine's ms for that answer (measured in the worker, passed on by the host).
+ */
 async function timedClick(frame, term) {
   return frame.evaluate(
     (t) =>
@@ -27,6 +30,8 @@ async function timedClick(frame, term) {
         const legend = () => document.querySelector('.lw-strip__legend')?.textContent ?? '';
         if (!box) return reject(new Error(`no checkbox for "${t}"`));
         const before = legend();
+        const slot = document.querySelector('.lw-strip-slot');
+        if (slot) delete slot.dataset.engineMs;
         const start = performance.now();
         box.click();
         const deadline = start + 60000;
@@ -35,7 +40,7 @@ async function timedClick(frame, term) {
           const text = legend();
           // Done when the legend names the new selection and nothing is pending.
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
-            resolve(now - start);
+            resolve({ ms: now - start, engineMs: slot?.dataset.engineMs === undefined ? null : Number(slot.dataset.engineMs) });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -53,14 +58,19 @@ async function measure(ctx, fileName, label) {
   if (terms.length < 2) throw new Error(`${label}: fewer than two suggested terms to toggle (${terms.length})`);
   // First click leaves the suggestions (one engine call), then one term goes back and forth, so
   // every click asks the engine for a selection that differs from the suggestions.
-  const times = [await timedClick(frame, terms[0])];
-  for (let i = 1; i < CLICKS; i++) times.push(await timedClick(frame, terms[1]));
+  const clicks = [await timedClick(frame, terms[0])];
+  for (let i = 1; i < CLICKS; i++) clicks.push(await timedClick(frame, terms[1]));
+  const times = clicks.map((c) => c.ms);
+  const engine = clicks.map((c) => c.engineMs).filter((e) => e !== null);
   await ctx.screenshot();
   // Tidy up: back to the suggestions (even clicks left terms[1] unticked when CLICKS is even).
   if (CLICKS % 2 === 0) await frame.click(`tr[data-term="${terms[1]}"] input.lw-check`);
   await frame.click(`tr[data-term="${terms[0]}"] input.lw-check`);
   const ms = times.map((t) => Math.round(t));
   console.log(`  what-if latency (${label}): click → strip updated, median ${median(times).toFixed(0)} ms over ${times.length} clicks; first ${ms[0]} ms; all ${ms.join(', ')} (machine may be shared)`);
+  if (engine.length > 0) {
+    console.log(`  of which the engine in the worker: median ${median(engine).toFixed(0)} ms; all ${engine.map((e) => Math.round(e)).join(', ')}; the rest is messages, the strip and the charts`);
+  }
   return median(times);
 }
 
