@@ -52,6 +52,8 @@ export interface MeasureDistancesResult {
   neighbors: Uint32Array;
   /** m×k cosines matching `neighbors`, descending; NaN where none. */
   neighborSims: Float64Array;
+  /** Each sample position's neighbour standout z-score (NaN where none), for paired comparisons. */
+  standoutPerQuery: Float64Array;
   /** N_k per sample position. */
   /** Expected N_k (ties at the k-th place share their slots), so not always whole. */
   kOccurrence: Float64Array;
@@ -167,6 +169,7 @@ export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFrom
     measures,
     neighbors: knn.neighbors,
     neighborSims: knn.sims,
+    standoutPerQuery: rows.standoutPerQuery,
     kOccurrence: counts,
     pairMass: mass,
   };

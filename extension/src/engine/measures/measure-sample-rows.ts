@@ -14,6 +14,8 @@ export interface SampleRowMeasures {
   /** Tie-aware N_k per sample position (see tieAwareKOccurrence). */
   kOccurrence: Float64Array;
   standout: number | null;
+  /** Each row's z-score behind `standout` (standoutPerQuery's); NaN where a row has none. */
+  standoutPerQuery: Float64Array;
   similarity: SimilarityHistograms;
   contrast: ContrastSummary | null;
   meanToNearest: number | null;
@@ -261,6 +263,7 @@ class RowSweep {
       knn: this.knn,
       kOccurrence: this.kOccurrence,
       standout: medianStandout(this.zScores),
+      standoutPerQuery: this.zScores,
       similarity: { start: 0, binWidth: 1 / SIMILARITY_BINS, pairs: Array.from(this.pairBins), nearest: this.nearBins },
       contrast: contrastSummary(this.contrast),
       meanToNearest: meanToNearestOf(this.toNearest),

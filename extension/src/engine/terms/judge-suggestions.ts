@@ -1,5 +1,5 @@
 import type { Measures, Verdict } from '../../protocol';
-import type { DistanceLab } from '../what-if/distance-lab';
+import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
 
@@ -8,11 +8,10 @@ export const VERDICT_DRAWS = 400;
 
 export interface JudgeInput {
   lab: DistanceLab;
-  baseMask: Uint8Array;
-  suggestedMask: Uint8Array;
   suggestions: readonly string[];
-  baseline: Measures;
-  suggested: Measures;
+  /** The current setting and the suggested one, as DistanceLab.measure gave them. */
+  baseline: DistanceResult;
+  suggested: DistanceResult;
   opinion: { share: number; opinionText: boolean };
   /** Stopped terms the rule would suggest too: after `apply`, the reason nothing is new. */
   agreedStopped: number;
@@ -32,7 +31,9 @@ const pct = (x: number): string => `${Math.round(x * 100)}%`;
  * precision falls), and the headline says so.
  */
 export function judgeSuggestions(input: JudgeInput): Verdict {
-  const { lab, suggestions, baseline, suggested, opinion } = input;
+  const { lab, suggestions, opinion } = input;
+  const baseline = input.baseline.measures;
+  const suggested = input.suggested.measures;
   const caveats = caveatsOf(baseline, suggested);
   if (suggestions.length === 0) {
     return {
@@ -47,8 +48,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     };
   }
   const labels = lab.sampleLabels;
-  const before = perQueryQuality(lab.maskedSample(input.baseMask), lab.k, labels);
-  const after = perQueryQuality(lab.maskedSample(input.suggestedMask), lab.k, labels);
+  const before = perQueryQuality(input.baseline, lab.k, labels);
+  const after = perQueryQuality(input.suggested, lab.k, labels);
   const useLabels = before.precision !== null && after.precision !== null;
   const boot = useLabels
     ? pairedBootstrap(before.precision!, after.precision!, 'mean', VERDICT_DRAWS, lab.seed)

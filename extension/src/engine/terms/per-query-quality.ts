@@ -1,8 +1,4 @@
-import type { Csr } from '../matrix/csr';
-import { validRowsFromGram } from '../measures/gram-distances';
-import { knnFromSimilarities, NO_NEIGHBOR } from '../measures/knn';
-import { standoutPerQuery } from '../measures/neighbor-standout';
-import { sampleSimilarities } from '../measures/sample-similarity';
+import { NO_NEIGHBOR } from '../measures/knn';
 
 /**
  * Per-query neighbour quality of one setting on the sample, for paired comparisons:
@@ -16,14 +12,13 @@ export interface PerQueryQuality {
   precision: Float64Array | null;
 }
 
-export function perQueryQuality(rows: Csr, k: number, labels: Int32Array | null): PerQueryQuality {
-  const m = rows.rows;
-  const identity = new Uint32Array(m).map((_, i) => i);
-  const gram = sampleSimilarities(rows, identity);
-  const valid = validRowsFromGram(gram, m);
-  const knn = knnFromSimilarities(gram, m, k, valid);
-  const nearest = Float64Array.from({ length: m }, (_, i) => knn.sims[i * k]!);
-  const standout = standoutPerQuery(gram, m, valid, nearest);
+/**
+ * From a measured setting (DistanceLab.measure's neighbours and per-query standout), so the
+ * verdict compares the very neighbours the Report's label precision counts, without computing
+ * the sample's similarities again.
+ */
+export function perQueryQuality(measured: { neighbors: Uint32Array; standoutPerQuery: Float64Array }, k: number, labels: Int32Array | null): PerQueryQuality {
+  const m = measured.standoutPerQuery.length;
   let precision: Float64Array | null = null;
   if (labels !== null) {
     precision = new Float64Array(m).fill(Number.NaN);
@@ -32,7 +27,7 @@ export function perQueryQuality(rows: Csr, k: number, labels: Int32Array | null)
       let hits = 0;
       let present = 0;
       for (let r = 0; r < k; r++) {
-        const j = knn.neighbors[i * k + r]!;
+        const j = measured.neighbors[i * k + r]!;
         if (j === NO_NEIGHBOR) continue;
         present++;
         if (labels[j] === labels[i]) hits++;
@@ -40,5 +35,5 @@ export function perQueryQuality(rows: Csr, k: number, labels: Int32Array | null)
       if (present > 0) precision[i] = hits / present;
     }
   }
-  return { standout, precision };
+  return { standout: measured.standoutPerQuery, precision };
 }

@@ -125,7 +125,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const opinion = { share, opinionText };
   let agreedStopped = 0;
   for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
-  const verdict = judgeSuggestions({ lab, baseMask, suggestedMask, suggestions, baseline: baseline.measures, suggested: suggested.measures, opinion, agreedStopped });
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
