@@ -4,6 +4,7 @@ import type { WinkMethods } from 'wink-nlp';
 import { createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
 import { winkSplitsLikeThis } from '../extension/src/engine/tokenize/wink-splitter';
 import { ALL_KINDS, CORNER_VARIANTS, TICKETS, VARIANTS, describeVariant, makeOracle, readAllFortunes, readCsvColumn } from './support/tokenize-oracle';
+import { standInTokens } from './support/stand-in-wink';
 
 // The chunk-cached tokenizer must give, token for token, what the plain path gives: each whole
 // document through wink-nlp (see test/support/tokenize-oracle.ts). No expected values are written
@@ -83,7 +84,7 @@ describe('tokenize: chunk-cached unigrams, conditional entries for a word with a
   // with its lowercase (wink's cache.add). The plain path on a second stand-in is the oracle.
   function standInWink(): WinkMethods {
     const lexemes = new Set<string>(['.', ',', '«']);
-    const its = { normal: Symbol('normal'), type: Symbol('type'), precedingSpaces: Symbol('precedingSpaces') };
+    const its = { normal: Symbol('normal'), type: Symbol('type'), precedingSpaces: Symbol('precedingSpaces'), contractionFlag: Symbol('contractionFlag') };
     const chunkTokens = (chunk: string): string[] => {
       if (lexemes.has(chunk)) return [chunk];
       if (chunk.length > 2 && /^[a-z]+[.,]$/i.test(chunk)) return [chunk.slice(0, -1), chunk.slice(-1)];
@@ -91,24 +92,11 @@ describe('tokenize: chunk-cached unigrams, conditional entries for a word with a
       return [chunk];
     };
     const readDoc = (text: string) => {
-      const tokens: string[] = [];
-      const spaces: string[] = [];
-      let pending = '';
-      for (const piece of text.split(/( +)/)) {
-        if (piece === '') continue;
-        if (piece.startsWith(' ')) {
-          pending = piece;
-          continue;
-        }
-        chunkTokens(piece).forEach((t, i) => {
-          tokens.push(t);
-          spaces.push(i === 0 ? pending : '');
-        });
-        for (const t of tokens) lexemes.add(t).add(t.toLowerCase());
-        pending = '';
-      }
-      const out = (f?: unknown): string[] =>
-        f === its.normal ? tokens.map((t) => t.toLowerCase()) : f === its.type ? tokens.map((t) => (/[a-z]/i.test(t) ? 'word' : 'punctuation')) : f === its.precedingSpaces ? spaces : tokens;
+      const { tokens, spaces } = standInTokens(text, chunkTokens, (chunk) => {
+        for (const t of chunk) lexemes.add(t).add(t.toLowerCase());
+      });
+      const out = (f?: unknown): unknown[] =>
+        f === its.normal ? tokens.map((t) => t.toLowerCase()) : f === its.type ? tokens.map((t) => (/[a-z]/i.test(t) ? 'word' : 'punctuation')) : f === its.precedingSpaces ? spaces : f === its.contractionFlag ? tokens.map(() => false) : tokens;
       return { isLexeme: (t: string) => lexemes.has(t), tokens: () => ({ out }) };
     };
     return { its, readDoc } as unknown as WinkMethods;

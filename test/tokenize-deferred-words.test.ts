@@ -7,6 +7,7 @@ import { deferredLexemesOf } from '../extension/src/engine/tokenize/deferred-lex
 import { batchEncoding } from '../extension/src/engine/tokenize/encode-batch';
 import { freshWinkInstance } from '../extension/src/engine/tokenize/wink-instance';
 import { ALL_KINDS } from './support/tokenize-oracle';
+import { standInTokens } from './support/stand-in-wink';
 
 // chunk-cached-unigrams.ts point 7: a plain word that is not a wink lexeme is tokenised without
 // wink, and its addition to wink's lexemes is deferred until a wink run could look it up. The
@@ -142,21 +143,7 @@ describe('tokenize: deferred words, the two guards, on a stand-in wink whose wor
     };
     const its = { normal: Symbol('normal'), type: Symbol('type'), precedingSpaces: Symbol('precedingSpaces'), contractionFlag: Symbol('contractionFlag') };
     const readDoc = (text: string) => {
-      const tokens: [string, string][] = [];
-      const spaces: string[] = [];
-      let pending = '';
-      for (const piece of text.split(/( +)/)) {
-        if (piece === '') continue;
-        if (piece.startsWith(' ')) {
-          pending = piece;
-          continue;
-        }
-        chunkTokens(piece).forEach((t, i) => {
-          tokens.push(t);
-          spaces.push(i === 0 ? pending : '');
-        });
-        pending = '';
-      }
+      const { tokens, spaces } = standInTokens(text, chunkTokens);
       const out = (f?: unknown): unknown[] =>
         f === its.normal ? tokens.map(([t]) => t.toLowerCase()) : f === its.type ? tokens.map(([, type]) => type) : f === its.precedingSpaces ? spaces : f === its.contractionFlag ? tokens.map(() => false) : tokens.map(([t]) => t);
       return { isLexeme: (t: string) => (types.has(t) ? [1] : null), tokens: () => ({ out }) };
