@@ -11,14 +11,8 @@ export type PriorClass = WordClass | 'markup' | 'phrase';
  */
 export function priorColumns(index: TermIndex, tokenize: (text: string) => string[], bigrams: boolean): Map<number, PriorClass> {
   const out = new Map<number, PriorClass>();
-  const forms = new Map<string, PriorClass>();
-  const add = (word: string, cls: PriorClass): void => {
-    const tokens = tokenize(word);
-    if (tokens.length === 1 && !tokens[0]!.includes(' ') && !forms.has(tokens[0]!)) forms.set(tokens[0]!, cls);
-  };
-  for (const [word, cls] of wordClasses()) add(word, cls);
-  for (const word of MARKUP_NAMES) add(word, 'markup');
-  for (const [form, cls] of forms) {
+  const forms = priorForms(tokenize);
+  for (const [form, { cls }] of forms) {
     const c = index.column(form);
     if (c !== undefined) out.set(c, cls);
   }
@@ -27,12 +21,28 @@ export function priorColumns(index: TermIndex, tokenize: (text: string) => strin
       const term = index.terms[j]!;
       const space = term.indexOf(' ');
       if (space <= 0) continue;
-      const a = forms.get(term.slice(0, space));
-      const b = forms.get(term.slice(space + 1));
+      const a = forms.get(term.slice(0, space))?.cls;
+      const b = forms.get(term.slice(space + 1))?.cls;
       if (a !== undefined && b !== undefined && a !== 'markup' && b !== 'markup') out.set(j, 'phrase');
     }
   }
   return out;
+}
+
+/**
+ * Each spelling the tokenizer gives the prior's words, with the first word that takes it and its
+ * class (the classes of function-words.ts in their order, then markup names), so the choice never
+ * depends on the corpus. A word the tokenizer splits ("cannot" → "can" + "not") names none.
+ */
+export function priorForms(tokenize: (text: string) => string[]): Map<string, { word: string; cls: PriorClass }> {
+  const forms = new Map<string, { word: string; cls: PriorClass }>();
+  const add = (word: string, cls: PriorClass): void => {
+    const tokens = tokenize(word);
+    if (tokens.length === 1 && !tokens[0]!.includes(' ') && !forms.has(tokens[0]!)) forms.set(tokens[0]!, { word, cls });
+  };
+  for (const [word, cls] of wordClasses()) add(word, cls);
+  for (const word of MARKUP_NAMES) add(word, 'markup');
+  return forms;
 }
 
 /** Columns of the protected words ("suggest.protect"), in the tokenizer's spelling. */

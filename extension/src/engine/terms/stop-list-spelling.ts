@@ -1,6 +1,5 @@
 import type { Report } from '../../protocol';
-import { MARKUP_NAMES } from './markup-names';
-import { wordClasses } from './function-words';
+import { priorForms } from './prior-columns';
 
 /**
  * How each suggested term is written in a stop list when the plain word differs from the
@@ -11,14 +10,11 @@ import { wordClasses } from './function-words';
  * every other term is written as it is.
  */
 export function stopListSpellings(suggestions: readonly string[], tokenize: (text: string) => string[]): Record<string, string> {
-  const wanted = new Set(suggestions);
+  const forms = priorForms(tokenize);
   const out: Record<string, string> = {};
-  for (const word of [...wordClasses().keys(), ...MARKUP_NAMES]) {
-    const tokens = tokenize(word);
-    if (tokens.length !== 1) continue;
-    const term = tokens[0]!;
-    // The first prior word of a term wins, so the choice does not depend on the corpus.
-    if (term !== word && wanted.has(term) && !(term in out)) out[term] = word;
+  for (const term of suggestions) {
+    const word = forms.get(term)?.word;
+    if (word !== undefined && word !== term) out[term] = word;
   }
   return out;
 }
