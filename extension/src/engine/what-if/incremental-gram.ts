@@ -20,8 +20,6 @@ export class IncrementalGram {
   readonly m: number;
   private readonly dots: Float64Array;
   private readonly shared: Uint16Array | Uint32Array;
-  /** The cosines handed out; callers may overwrite them (measureDistances does). */
-  private readonly out: Float64Array;
   private readonly inv: Float64Array;
   private readonly mask: Uint8Array;
   private readonly start: Uint32Array;
@@ -44,7 +42,6 @@ export class IncrementalGram {
     for (let i = 0; i < m; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
     this.dots = new Float64Array(m * m);
     this.shared = longest < 0xffff ? new Uint16Array(m * m) : new Uint32Array(m * m);
-    this.out = new Float64Array(m * m);
     this.inv = new Float64Array(m);
     this.mask = new Uint8Array(rows.cols);
 
@@ -74,20 +71,11 @@ export class IncrementalGram {
   }
 
   /**
-   * The m×m cosines of the sampled rows with `removed` stopped (row-major; diagonal 1 for rows
-   * with a kept term, 0 for emptied rows). The array is reused: valid until the next call.
+   * The sampled rows with `removed` stopped, without writing their m×m cosines: the kept dot
+   * products D (row-major) and each row's 1/√D_ii (0 for an emptied row), so cosine_ij =
+   * dots_ij·scale_i·scale_j — what measuresFromGram reads with `rowScale`, one pass over D.
+   * Both arrays are the live state: valid until the next call, never to be written.
    * `incremental` as in IncrementalTermSums.at: false = a full build, kept as a checkpoint.
-   */
-  at(removed: Uint8Array, incremental = true): Float64Array {
-    this.advance(removed, incremental);
-    return this.cosines();
-  }
-
-  /**
-   * The same state without writing the m×m cosines: the kept dot products D (row-major) and each
-   * row's 1/√D_ii (0 for an emptied row), so cosine_ij = dots_ij·scale_i·scale_j — what
-   * measuresFromGram reads with `rowScale`, one pass over D instead of a write and a read of
-   * the cosines. Both arrays are the live state: valid until the next call, never to be written.
    */
   scaled(removed: Uint8Array, incremental = true): { dots: Float64Array; scale: Float64Array } {
     this.advance(removed, incremental);
@@ -221,19 +209,6 @@ export class IncrementalGram {
     this.lastStep = { kind: 'incremental', pairs: cost };
   }
 
-  private cosines(): Float64Array {
-    const { m, dots, out, inv } = this;
-    for (let i = 0; i < m; i++) {
-      const d = dots[i * m + i]!;
-      inv[i] = d > 0 ? 1 / Math.sqrt(d) : 0;
-    }
-    for (let i = 0; i < m; i++) {
-      const base = i * m;
-      const si = inv[i]!;
-      for (let j = 0; j < m; j++) out[base + j] = dots[base + j]! * si * inv[j]!;
-    }
-    return out;
-  }
 }
 
 /** Incremental pair updates allowed, in multiples of m², before D is rebuilt to reset drift. */
