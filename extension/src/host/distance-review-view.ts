@@ -120,8 +120,7 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
     try {
       switch (m.type) {
         case 'whatIf': {
-          const measures = await review.client.whatIf(m.removed);
-          const engineMs = review.client.lastWhatIfEngineMs ?? undefined;
+          const { measures, engineMs } = await review.client.timedWhatIf(m.removed);
           if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs });
           return;
         }

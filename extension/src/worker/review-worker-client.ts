@@ -42,7 +42,7 @@ export class ReviewWorkerClient {
   private worker: Worker | null = null;
   private nextId = 1;
   private readonly runs = new Map<number, PendingRun>();
-  private readonly whatIfs = new Map<number, Pending<Measures>>();
+  private readonly whatIfs = new Map<number, Pending<{ measures: Measures; engineMs: number }>>();
   /** True while the worker holds a finished session that can answer what-ifs. */
   private sessionReady = false;
 
@@ -75,14 +75,16 @@ export class ReviewWorkerClient {
     });
   }
 
-  /** The engine's time for the latest what-if answered (ms, measured in the worker). */
-  lastWhatIfEngineMs: number | null = null;
-
   whatIf(removed: readonly string[]): Promise<Measures> {
+    return this.timedWhatIf(removed).then((r) => r.measures);
+  }
+
+  /** The what-if with the engine's time for it (ms, measured in the worker). */
+  timedWhatIf(removed: readonly string[]): Promise<{ measures: Measures; engineMs: number }> {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
     const requestId = this.nextId++;
-    return new Promise<Measures>((resolve, reject) => {
+    return new Promise<{ measures: Measures; engineMs: number }>((resolve, reject) => {
       this.whatIfs.set(requestId, { resolve, reject });
       this.updateRef();
       this.send(worker, { type: 'whatIf', requestId, removed: [...removed] });
@@ -157,8 +159,7 @@ export class ReviewWorkerClient {
       case 'whatIfResult': {
         const pending = this.whatIfs.get(m.requestId);
         this.whatIfs.delete(m.requestId);
-        this.lastWhatIfEngineMs = m.engineMs;
-        pending?.resolve(m.measures);
+        pending?.resolve({ measures: m.measures, engineMs: m.engineMs });
         return;
       }
       case 'error': {
