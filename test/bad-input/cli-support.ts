@@ -2,7 +2,7 @@
 // fresh temporary project folder. Not a test file itself (no .test.ts suffix).
 import { strict as assert } from 'node:assert';
 import { spawnSync, type SpawnSyncOptions } from 'node:child_process';
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 
@@ -10,12 +10,31 @@ export const root = path.join(__dirname, '..', '..');
 const cli = path.join(root, 'bin', 'loudword.js');
 let built = false;
 
-/** Builds dist/ once per mocha run (the CLI runs from the bundle, as users get it). */
+/**
+ * Builds dist/ when it is missing or older than a source file (the CLI runs from the bundle, as
+ * users get it). Never when it is current: `npm test` builds before mocha, and its test files run
+ * in two processes, so a rebuild in one would rewrite dist/cli.js under a CLI the other is
+ * starting (a half-written bundle fails to load).
+ */
 export function buildOnce(): void {
-  if (built && existsSync(path.join(root, 'dist', 'cli.js'))) return;
-  const r = spawnSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, encoding: 'utf8' });
-  if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
+  if (built) return;
+  const bundle = path.join(root, 'dist', 'cli.js');
+  if (!existsSync(bundle) || newestSource(path.join(root, 'extension', 'src'), path.join(root, 'webview', 'src')) > statSync(bundle).mtimeMs) {
+    const r = spawnSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, encoding: 'utf8' });
+    if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
+  }
   built = true;
+}
+
+/** The latest modification time (ms) of any file under the folders. */
+function newestSource(...folders: string[]): number {
+  let newest = 0;
+  for (const folder of folders) {
+    for (const entry of readdirSync(folder, { recursive: true, withFileTypes: true })) {
+      if (entry.isFile()) newest = Math.max(newest, statSync(path.join(entry.parentPath ?? entry.path, entry.name)).mtimeMs);
+    }
+  }
+  return newest;
 }
 
 export interface CliRun {
