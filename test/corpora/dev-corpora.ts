@@ -1,4 +1,5 @@
 import { AUSTEN_CHAPTERS } from './austen-chapters';
+import { FINE_FOOD_REVIEWS } from './fine-food-reviews';
 import { FORTUNE_CATEGORIES, fortunesAvailable, readFortunes } from './fortunes';
 import { KJV_CHAPTERS } from './kjv-chapters';
 import type { DevCorpus } from './labelled-corpus';
@@ -24,4 +25,4 @@ export const FORTUNES: DevCorpus = {
 };
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
-export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS];
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS];

@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { gunzipSync, inflateSync } from 'node:zlib';
@@ -11,15 +12,63 @@ import { gunzipSync, inflateSync } from 'node:zlib';
  * needs is read (vectors, pairlists, symbols, strings); anything else is refused by name.
  */
 export function readRLazyLoadStrings(dataDir: string): Map<string, string[]> {
+  const out = new Map<string, string[]>();
+  for (const [name, value] of readObjects(dataDir)) {
+    if (value instanceof RStrings) out.set(name, value.values.map((s) => s ?? ''));
+  }
+  return out;
+}
+
+/**
+ * The text columns of one data frame of the data base, by column name: character columns as they
+ * are, factors (integer codes with a "levels" attribute) as their level names. Other columns are
+ * left out.
+ */
+export function readRLazyLoadFrame(dataDir: string, frame: string): Map<string, string[]> {
+  const value = readObjects(dataDir, frame).get(frame);
+  if (!(value instanceof RVector)) throw new Error(`R data base ${dataDir}: no data frame '${frame}'`);
+  const out = new Map<string, string[]>();
+  for (const [column, cells] of named(value)) {
+    if (cells instanceof RStrings) out.set(column, cells.values.map((s) => s ?? ''));
+    const levels = cells instanceof RInts ? cells.attributes.get('levels') : undefined;
+    if (cells instanceof RInts && levels instanceof RStrings) {
+      out.set(column, cells.values.map((code) => levels.values[code - 1] ?? ''));
+    }
+  }
+  return out;
+}
+
+/**
+ * One object's bytes: a 4-byte big-endian uncompressed length, then either zlib data (R's default
+ * compression) or a type byte and the data — 'Z' raw LZMA2 (xz), '2' bzip2, '0' stored — as R's
+ * R_compress3 / R_compress2 write them (src/main/serialize.c). xz and bzip2 are Debian's own
+ * command-line tools (xz-utils is a required package; bzip2 is standard).
+ */
+function decompress(chunk: Buffer): Buffer {
+  const body = chunk.subarray(5);
+  switch (String.fromCharCode(chunk[4]!)) {
+    case 'Z':
+      return execFileSync('xz', ['--format=raw', '--lzma2=preset=9e', '--decompress', '--stdout'], { input: body, maxBuffer: 1 << 30 });
+    case '2':
+      return execFileSync('bzip2', ['--decompress', '--stdout'], { input: body, maxBuffer: 1 << 30 });
+    case '0':
+      return body;
+    default:
+      return inflateSync(chunk.subarray(4));
+  }
+}
+
+/** Every object of the data base (or only the one named `only`), deserialized. */
+function readObjects(dataDir: string, only?: string): Map<string, unknown> {
   const index = new RReader(gunzipSync(readFileSync(path.join(dataDir, 'Rdata.rdx')))).object() as RVector;
   const entries = named(index).get('variables') as RVector;
   const db = readFileSync(path.join(dataDir, 'Rdata.rdb'));
-  const out = new Map<string, string[]>();
+  const out = new Map<string, unknown>();
   for (const [name, where] of named(entries)) {
+    if (only !== undefined && name !== only) continue;
     const [offset, length] = (where as RInts).values;
     const chunk = db.subarray(offset!, offset! + length!);
-    const value = new RReader(inflateSync(chunk.subarray(4))).object();
-    if (value instanceof RStrings) out.set(name, value.values.map((s) => s ?? ''));
+    out.set(name, new RReader(decompress(chunk)).object());
   }
   return out;
 }
@@ -28,7 +77,7 @@ class RStrings {
   constructor(readonly values: (string | null)[]) {}
 }
 class RInts {
-  constructor(readonly values: number[]) {}
+  constructor(readonly values: number[], readonly attributes: Map<string, unknown> = new Map()) {}
 }
 class RVector {
   constructor(readonly items: unknown[], readonly attributes: Map<string, unknown>) {}
@@ -115,8 +164,7 @@ class RReader {
       case 10:
       case 13: {
         const values = Array.from({ length: this.int() }, () => this.int());
-        this.attributes(flags);
-        return new RInts(values);
+        return new RInts(values, this.attributes(flags));
       }
       default:
         throw new Error(`R serialization: type ${type} is not read here`);
