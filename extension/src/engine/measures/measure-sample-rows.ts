@@ -75,7 +75,6 @@ class RowSweep {
   readonly tieScore: Float64Array;
   readonly tiePos: Uint32Array;
   readonly near: Float64Array;
-  readonly farPart: Float64Array;
   readonly probe: Float64Array;
   readonly validTotal: number;
   readonly zScores: Float64Array;
@@ -111,7 +110,6 @@ class RowSweep {
     this.tieScore = new Float64Array(m);
     this.tiePos = new Uint32Array(m);
     this.near = new Float64Array(m);
-    this.farPart = new Float64Array(m);
     this.probe = new Float64Array(Math.ceil(m / RADIUS_PROBE_STRIDE) + 1);
     let validTotal = 0;
     for (let i = 0; i < m; i++) if (valid[i]) validTotal++;
@@ -130,7 +128,7 @@ class RowSweep {
 
   /** Row i's part of every measure (i a valid row). */
   row(i: number): void {
-    const { gram, m, k, valid, rowScale, norms, bestScore, bestPos, tieScore, tiePos, near, farPart, validTotal, shift } = this;
+    const { gram, m, k, valid, rowScale, norms, bestScore, bestPos, tieScore, tiePos, near, validTotal, shift } = this;
     const { knn, zScores, pairBins, nearBins, kOccurrence, contrast, slack, toNearest, nnDist } = this;
     // Imports read once into locals: a module loader may reach them through getters (tsx's
     // does), which would cost a call per element in the loops below.
@@ -251,9 +249,10 @@ class RowSweep {
       const far = Math.min(10 * k, others);
 
       if (nNear < far) nNear = gatherDistances(gram, i, m, valid, rowScale, norms, near);
-      farPart.set(near.subarray(0, nNear));
-      const rK = select(near, 0, nNear - 1, k - 1);
-      const rFar = select(farPart, 0, nNear - 1, far - 1);
+      // The far-th smallest first: it leaves the far − 1 smaller values to its left, so the
+      // k-th smallest of the row is the k-th smallest of those (no copy, a shorter select).
+      const rFar = select(near, 0, nNear - 1, far - 1);
+      const rK = k < far ? select(near, 0, far - 2, k - 1) : rFar;
       slack[i] = rK > 0 ? (rFar - rK) / rK : NaN;
     }
   }
