@@ -5,6 +5,7 @@ import { inProcessEncoder, workerEncoder, type BatchEncoder } from '../tokenize/
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
+import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
 import { sortByCodePoint } from './compare-code-points';
 import type { CountMatrix } from './csr';
 import { documentPreview } from './document-preview';
@@ -46,10 +47,7 @@ const DEFAULT_BATCH = 1000;
 export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettings, options: BuildOptions = {}): Promise<BuiltCorpus> {
   const { signal, onProgress } = options;
   signal?.throwIfAborted();
-  const workers = options.workers ?? Math.min(2, availableParallelism());
-  const encoder: BatchEncoder =
-    options.encoder ??
-    workerEncoder(tokens, workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js')) ?? inProcessEncoder(tokens);
+  const encoder: BatchEncoder = options.encoder ?? countingEncoder(tokens, options);
   const counter = new CountAccumulator();
   const lines = new GrowingUint32();
   const labels: (string | null)[] | null = source.labelField === null ? null : [];
@@ -91,11 +89,22 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
       onProgress?.(counter.rows);
       signal?.throwIfAborted();
     }
+    const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
+    return { counts: await counter.finish(encoder), lines: lines.toArray(), labels, previews, notes };
   } finally {
     await encoder.close();
   }
-  const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
-  return { counts: counter.finish(), lines: lines.toArray(), labels, previews, notes };
+}
+
+/**
+ * The default tokeniser for buildCountMatrix: a pool of `workers` threads (default min(2,
+ * available cores)), or this thread when there are none or the worker bundle is missing. A
+ * caller may start it early (the threads load the bundle and wink's model while the caller
+ * reads settings and opens the corpus) and pass it as `encoder`; buildCountMatrix closes it.
+ */
+export function countingEncoder(tokens: TokenSettings, options: Pick<BuildOptions, 'workers' | 'workerScript'> = {}): BatchEncoder {
+  const workers = options.workers ?? Math.min(2, availableParallelism());
+  return workerEncoder(tokens, workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js')) ?? inProcessEncoder(tokens);
 }
 
 /** Source lines named in a note before "…". */
@@ -134,7 +143,7 @@ class CountAccumulator {
   private readonly idOf = new Map<string, number>();
   private readonly terms: string[] = [];
   private readonly globalOf = new Map<number, GrowingUint32>();
-  private parts: { rowEnds: Uint32Array; cols: Uint32Array; counts: Uint32Array }[] = [];
+  private parts: CountedPart[] = [];
   private readonly tokensPerDoc = new GrowingUint32();
   private nonzeros = 0;
   rows = 0;
@@ -164,92 +173,44 @@ class CountAccumulator {
     this.nonzeros += cols.length;
   }
 
-  /** Numbers columns in code point order and writes each row with its column ids ascending. */
-  finish(): CountMatrix {
+  /**
+   * Numbers columns in code point order and writes each row with its column ids ascending
+   * (rows-in-rank-order.ts). With a pool of threads the parts are written there, in parallel,
+   * into arrays on SharedArrayBuffers (at a million documents this step was ~11 s of the main
+   * thread's CPU after the threads had finished); else here, one part after another.
+   */
+  async finish(encoder: Pick<BatchEncoder, 'assemble'> = {}): Promise<CountMatrix> {
     const cols = this.terms.length;
     const sortedTerms = sortByCodePoint(this.terms);
     const rank = new Uint32Array(cols);
     for (let j = 0; j < cols; j++) rank[this.idOf.get(sortedTerms[j]!)!] = j;
-    // Rows in column order by counting, not by sorting each row (an insertion sort per row cost
-    // ~1.2 s of the main thread at 100k documents while the tokenising threads waited): each batch's
-    // entries are sorted by column with a stable radix sort (11 bits a pass, batch-sized arrays
-    // that stay in cache) and then dealt into their rows in that order, so every row receives its
-    // columns ascending. Linear in the non-zeros.
     const rows = this.rows;
     const nonzeros = this.nonzeros;
-    const indptr = new Uint32Array(rows + 1);
-    const indices = new Uint32Array(nonzeros);
-    const data = new Float64Array(nonzeros);
-    const passes = Math.max(1, Math.ceil(Math.log2(Math.max(2, cols)) / RADIX_BITS));
-    const histogram = new Uint32Array(1 << RADIX_BITS);
-    let a = new SortScratch(0);
-    let b = new SortScratch(0);
-    let r = 0;
     const parts = this.parts;
     this.parts = [];
+    const indptr = new Uint32Array(rows + 1);
+    const starts: number[] = new Array<number>(parts.length);
+    let r = 0;
     for (let p = 0; p < parts.length; p++) {
-      const { rowEnds, cols: partCols, counts } = parts[p]!;
-      parts[p] = EMPTY_PART;
-      const n = partCols.length;
-      if (a.key.length < n) {
-        a = new SortScratch(n);
-        b = new SortScratch(n);
-      }
-      // In row order, with each row's start in indptr.
-      const firstRow = r;
-      let k = 0;
-      for (let d = 0; d < rowEnds.length; d++, r++) {
-        const end = rowEnds[d]!;
-        indptr[r + 1] = indptr[r]! + (end - k);
-        for (; k < end; k++) {
-          a.key[k] = rank[partCols[k]!]!;
-          a.row[k] = r;
-          a.count[k] = counts[k]!;
-        }
-      }
-      for (let pass = 0; pass < passes; pass++) {
-        const shift = pass * RADIX_BITS;
-        histogram.fill(0);
-        for (let i = 0; i < n; i++) histogram[(a.key[i]! >>> shift) & RADIX_MASK]++;
-        let sum = 0;
-        for (let h = 0; h < histogram.length; h++) {
-          const c = histogram[h]!;
-          histogram[h] = sum;
-          sum += c;
-        }
-        for (let i = 0; i < n; i++) {
-          const at = histogram[(a.key[i]! >>> shift) & RADIX_MASK]!++;
-          b.key[at] = a.key[i]!;
-          b.row[at] = a.row[i]!;
-          b.count[at] = a.count[i]!;
-        }
-        [a, b] = [b, a];
-      }
-      const fill = indptr.slice(firstRow, r);
-      for (let i = 0; i < n; i++) {
-        const at = fill[a.row[i]! - firstRow]!++;
-        indices[at] = a.key[i]!;
-        data[at] = a.count[i]!;
+      const { rowEnds } = parts[p]!;
+      const base = indptr[r]!;
+      starts[p] = base;
+      for (let d = 0; d < rowEnds.length; d++) indptr[++r] = base + rowEnds[d]!;
+    }
+    const shared = encoder.assemble !== undefined && parts.length > 1;
+    const indices = new Uint32Array(shared ? new SharedArrayBuffer(4 * nonzeros) : new ArrayBuffer(4 * nonzeros));
+    const data = new Float64Array(shared ? new SharedArrayBuffer(8 * nonzeros) : new ArrayBuffer(8 * nonzeros));
+    if (shared) {
+      await encoder.assemble!({ rank, indices, data, parts, starts });
+    } else {
+      const writer = new RowWriter(rank, indices, data);
+      for (let p = 0; p < parts.length; p++) {
+        writer.write(parts[p]!, starts[p]!);
+        parts[p] = EMPTY_PART; // let each part go as soon as it is written
       }
     }
     return { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() };
   }
 }
 
-/** Bits of the column id sorted per radix pass (a 2,048-entry histogram). */
-const RADIX_BITS = 11;
-const RADIX_MASK = (1 << RADIX_BITS) - 1;
-
-/** One batch's entries while they are sorted by column. */
-class SortScratch {
-  readonly key: Uint32Array;
-  readonly row: Uint32Array;
-  readonly count: Uint32Array;
-  constructor(n: number) {
-    this.key = new Uint32Array(n);
-    this.row = new Uint32Array(n);
-    this.count = new Uint32Array(n);
-  }
-}
-
-const EMPTY_PART = { rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
+const EMPTY_PART: CountedPart = { rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };

@@ -8,7 +8,7 @@ import { createTokenizer } from '../tokenize/create-tokenizer';
 import { DistanceLab } from '../what-if/distance-lab';
 import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
-import { prepareWeights } from './prepare-weights';
+import { prepareWeights, startTokenizing } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { reviewTerms } from '../terms/review-terms';
@@ -45,20 +45,29 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   // A glob or a folder is many files (each shard is read as it comes; no one snapshot covers them).
   const manyFiles = input.text === undefined && (await isManyFilesInput(input.file));
   const snapshot = input.text === undefined && !manyFiles ? await FileSnapshot.take(input.file) : null;
+  const size = input.text?.length ?? snapshot?.size ?? null;
+  // The tokenising threads start now and load while this thread opens the corpus and the stop list.
+  const started = manyFiles ? null : startTokenizing(settings.tokens, size);
   let source;
+  let stopList;
+  let tokenize;
   try {
-    source =
-      input.text !== undefined
-        ? withPlaces(openCorpusFromText(input.file, input.text, readOptions), path.basename(input.file))
-        : await openCorpusInput(input.file, readOptions);
+    try {
+      source =
+        input.text !== undefined
+          ? withPlaces(openCorpusFromText(input.file, input.text, readOptions), path.basename(input.file))
+          : await openCorpusInput(input.file, readOptions);
+    } catch (e) {
+      throw blameSetting(e, settings, loaded.sources);
+    }
+    tokenize = createTokenizer(settings.tokens);
+    stopList = await loadStopList(loaded.stopListPath, path.dirname(path.resolve(input.file)), input.stopListText, tokenize, settings.tokens.lowercase);
+    stage('tokenizing');
   } catch (e) {
-    throw blameSetting(e, settings, loaded.sources);
+    await started?.close();
+    throw e;
   }
-  const tokenize = createTokenizer(settings.tokens);
-  const stopList = await loadStopList(loaded.stopListPath, path.dirname(path.resolve(input.file)), input.stopListText, tokenize, settings.tokens.lowercase);
-
-  stage('tokenizing');
-  const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal, input.text?.length ?? snapshot?.size ?? null);
+  const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal, size, started);
   const { weights } = prepared;
   const index = new TermIndex(prepared.terms);
   const baseMask = index.mask(stopList.terms);
