@@ -20,9 +20,11 @@ export interface BatchEncoder {
   close(): Promise<void>;
 }
 
-/** The matrix's final columns (`rank`: a coder-global id's column) and where each part goes. */
+/** The matrix's columns (ranks[stream][id]: the column of a coder's term id) and where each part goes. */
 export interface AssembleJob {
-  rank: Uint32Array;
+  ranks: Uint32Array[];
+  /** How many columns the matrix has. */
+  columns: number;
   indices: Uint32Array;
   data: Float64Array;
   parts: CountedPart[];
@@ -116,7 +118,7 @@ export function workerEncoder(tokens: TokenSettings, workers: number, script: st
           const parts = share.map((k) => job.parts[k]!);
           const transfer: ArrayBuffer[] = [];
           for (const p of parts) transfer.push(p.rowEnds.buffer as ArrayBuffer, p.cols.buffer as ArrayBuffer, p.counts.buffer as ArrayBuffer);
-          const request: AssembleRequest = { type: 'assemble', seq: seq++, rank: job.rank, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!) };
+          const request: AssembleRequest = { type: 'assemble', seq: seq++, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!) };
           return ask(w, request, () => undefined, transfer);
         }),
       );

@@ -1,8 +1,10 @@
 /**
- * A counted batch (encode-batch.ts) once its column ids are global: document d's distinct
- * columns are cols[rowEnds[d-1] .. rowEnds[d]) (rowEnds[-1] = 0), with their counts.
+ * A counted batch (encode-batch.ts): document d's distinct terms are cols[rowEnds[d-1] ..
+ * rowEnds[d]) (rowEnds[-1] = 0), with their counts; the ids are those of the coder that made
+ * it, whose ranks are ranks[stream].
  */
 export interface CountedPart {
+  stream: number;
   rowEnds: Uint32Array;
   cols: Uint32Array;
   counts: Uint32Array;
@@ -14,7 +16,8 @@ const RADIX_MASK = (1 << RADIX_BITS) - 1;
 
 /**
  * Writes counted parts into a CSR matrix's `indices` and `data` with each row's columns
- * ascending in `rank` (the final column numbers: code point order of the terms). It lives
+ * ascending: ranks[stream][id] is the final column of a coder's term id (code point order of
+ * the terms). It lives
  * beside the encoder because the tokenising threads run it too, on their own share of the
  * parts, once the vocabulary is complete: each part writes only its own rows, so the shares
  * never overlap and the result does not depend on who wrote which part.
@@ -35,12 +38,14 @@ export class RowWriter {
   private rowOf = new Uint32Array(0);
   private fill = new Uint32Array(0);
 
+  /** `columns`: how many columns the matrix has (every rank is below it). */
   constructor(
-    private readonly rank: Uint32Array,
+    private readonly ranks: readonly Uint32Array[],
+    columns: number,
     private readonly indices: Uint32Array,
     private readonly data: Float64Array,
   ) {
-    this.passes = Math.max(1, Math.ceil(Math.log2(Math.max(2, rank.length)) / RADIX_BITS));
+    this.passes = Math.max(1, Math.ceil(Math.log2(Math.max(2, columns)) / RADIX_BITS));
   }
 
   /** Writes `part`, whose first row starts at `start` in `indices`/`data`. */
@@ -56,7 +61,8 @@ export class RowWriter {
       this.rowOf = new Uint32Array(n);
     }
     if (this.fill.length < rows) this.fill = new Uint32Array(rows);
-    const { rank, histogram, rowOf, fill } = this;
+    const rank = this.ranks[part.stream]!;
+    const { histogram, rowOf, fill } = this;
     let key = this.keyA;
     let at = this.atA;
     let k = 0;

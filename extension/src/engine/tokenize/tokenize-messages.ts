@@ -15,7 +15,8 @@ export interface TokenizeRequest {
 export interface AssembleRequest {
   type: 'assemble';
   seq: number;
-  rank: Uint32Array;
+  ranks: Uint32Array[];
+  columns: number;
   indices: Uint32Array;
   data: Float64Array;
   parts: CountedPart[];

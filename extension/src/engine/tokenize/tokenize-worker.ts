@@ -15,7 +15,7 @@ port.on('message', (request: TokenizeRequest | AssembleRequest) => {
   let reply: TokenizeReply;
   try {
     if (request.type === 'assemble') {
-      const writer = new RowWriter(request.rank, request.indices, request.data);
+      const writer = new RowWriter(request.ranks, request.columns, request.indices, request.data);
       const { parts, starts } = request;
       for (let k = 0; k < parts.length; k++) {
         writer.write(parts[k]!, starts[k]!);
@@ -33,4 +33,4 @@ port.on('message', (request: TokenizeRequest | AssembleRequest) => {
   port.postMessage(reply, transfer as ArrayBuffer[]);
 });
 
-const EMPTY_PART = { rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
+const EMPTY_PART = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
