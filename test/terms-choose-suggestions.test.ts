@@ -2,7 +2,7 @@
 // by construction. Sources: max_df = 0.5 as scikit-learn documents it (TfidfVectorizer);
 // burstiness from Church & Gale (1995), "Poisson mixtures".
 import { strict as assert } from 'node:assert';
-import { chooseSuggestions, contentBurstiness, type Decision } from '../extension/src/engine/terms/choose-suggestions';
+import { chooseSuggestions, contentBurstiness, GRAMMAR_SHARE, type Decision } from '../extension/src/engine/terms/choose-suggestions';
 import { termSignal } from '../extension/src/engine/terms/term-signals';
 import type { PriorClass } from '../extension/src/engine/terms/prior-columns';
 import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
@@ -27,10 +27,17 @@ function corpus(): ReturnType<typeof termCountStats> {
   return termCountStats(csrOf(dense));
 }
 const PRIOR = new Map<number, PriorClass>([[1, 'preposition'], [2, 'pronoun'], [3, 'negation'], [5, 'markup'], [6, 'degree']]);
+// Shares of the all-pair similarity given to the rule: the grammar words (columns 1 and 3) carry
+// 0.03 each, together 0.06 — above GRAMMAR_SHARE, so rule 2 applies.
+function shares(values: Record<number, number> = { 1: 0.03, 3: 0.03 }, cols = 8): Float64Array {
+  const out = new Float64Array(cols);
+  for (const [c, v] of Object.entries(values)) out[Number(c)] = v;
+  return out;
+}
 
 function decide(opinion: boolean, protect: number[] = [], usePrior = true): Map<number, Decision> {
   const stats = corpus();
-  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior });
+  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior, pullShare: shares() });
 }
 const brief = (d: Decision | undefined): string => (d === undefined ? '—' : `${d.suggested ? 'suggest' : 'keep'}:${d.reason}`);
 
@@ -99,7 +106,7 @@ describe('chooseSuggestions', () => {
     for (const row of dense) row[2] = 10 - row[0]! - row[1]!;
     const stats = termCountStats(csrOf(dense));
     const prior = new Map<number, PriorClass>([[0, 'markup'], [1, 'markup']]);
-    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true });
+    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true, pullShare: shares({}, 3) });
     assert.equal(brief(d.get(0)), 'suggest:markup');
     assert.equal(brief(d.get(1)), '—');
   });
@@ -114,11 +121,33 @@ describe('chooseSuggestions', () => {
 
   it('chooseSuggestions: already-stopped columns get no decision, and stopping one term changes no other decision', () => {
     const stats = corpus();
-    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true });
+    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, pullShare: shares() });
     const stopped = new Uint8Array(8);
     stopped[1] = 1;
-    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true });
+    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true, pullShare: shares() });
     assert.equal(after.has(1), false);
+    // Column 3 alone carries 0.03, under GRAMMAR_SHARE: it stays suggested because the joint share
+    // counts the stopped column 1 too (so applying the suggestions cannot turn rule 2 off).
+    assert.equal(brief(after.get(3)), 'suggest:grammar');
     for (const [c, d] of after) assert.equal(brief(d), brief(free.get(c)), `column ${c}`);
+  });
+
+  it('chooseSuggestions: grammar words that together carry under GRAMMAR_SHARE of the similarity are kept as light', () => {
+    const stats = corpus();
+    const run = (pullShare: Float64Array): Map<number, Decision> =>
+      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, pullShare });
+    assert.equal(GRAMMAR_SHARE, 0.05);
+    const light = run(shares({ 1: 0.02, 3: 0.02, 0: 0.9 }));
+    assert.equal(brief(light.get(1)), 'keep:light');
+    assert.equal(brief(light.get(3)), 'keep:light');
+    const d = light.get(1)!;
+    assert.ok(d.reason === 'light' && Math.abs(d.groupShare - 0.04) < 1e-12);
+    // Rule 1 and the burstiness gate are untouched: 'everywhere' above half, the bursty pronoun kept.
+    assert.equal(brief(light.get(0)), 'suggest:everywhere');
+    assert.equal(brief(light.get(2)), 'keep:bursty');
+    // At the bound exactly, rule 2 applies (≥).
+    const heavy = run(shares({ 1: 0.025, 3: 0.025 }));
+    assert.equal(brief(heavy.get(1)), 'suggest:grammar');
+    assert.equal(brief(heavy.get(3)), 'suggest:grammar');
   });
 });

@@ -31,6 +31,11 @@ describe('explainTerm', () => {
     assert.match(explainTerm(row('not', 'kept'), 100, o), /negation .*reads as opinion text/);
   });
 
+  it('explainTerm: a light grammar word gives the joint share and the bound', () => {
+    const l: Decision = { suggested: false, reason: 'light', signal: { ...signal, docFraction: 0.3 }, cls: 'pronoun', groupShare: 0.016 };
+    assert.match(explainTerm(row('you', 'kept'), 100, l), /^kept: pronoun in 60% of documents, spread evenly, but the grammar words below half the documents together carry only 1\.6% of all-pair similarity here \(under 5\.0%\)/);
+  });
+
   it('explainTerm: a stopped term tells whether the rule agrees with the list', () => {
     const d: Decision = { suggested: true, reason: 'everywhere', signal, cls: 'determiner' };
     assert.match(explainTerm(row('the', 'stopped'), 100, d), /^on the stop list; the suggestion rule agrees/);

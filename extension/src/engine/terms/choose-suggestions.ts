@@ -6,7 +6,8 @@ import type { TermCountStats } from './term-count-stats';
 /** Why a term is suggested, or why a term the rules looked at is kept. */
 export type Decision =
   | { suggested: true; reason: 'everywhere' | 'grammar' | 'markup'; signal: TermSignal; cls: PriorClass | null }
-  | { suggested: false; reason: 'bursty' | 'opinion' | 'protected' | 'format'; signal: TermSignal; cls: PriorClass | null };
+  | { suggested: false; reason: 'bursty' | 'opinion' | 'protected' | 'format'; signal: TermSignal; cls: PriorClass | null }
+  | { suggested: false; reason: 'light'; signal: TermSignal; cls: PriorClass | null; groupShare: number };
 
 /**
  * Above this document fraction a term is suggested whatever it is: the max_df = 0.5 practice
@@ -28,6 +29,15 @@ export const BURST_Z = 2;
 export const CONTENT_DF = 0.01;
 export const CONTENT_MIN_DOCS = 3;
 export const FALLBACK_LIMIT = 1;
+/**
+ * Rule 2 applies only when the grammar words it would suggest together carry at least this share
+ * of the all-pair similarity (on the corpus without any stop list). Below it they distort little,
+ * and where they are that light (long documents: manuals, scripture, novels) they can mark the
+ * kind of document, which is what a label may be about. Chosen between the TUNE corpora it
+ * separates — man pages 1.6% (rule 2 cost 0.0046 precision@10 there) and SpamAssassin 14%
+ * (rule 2 harmless) — as the round value between them (docs/methods.md §9).
+ */
+export const GRAMMAR_SHARE = 0.05;
 
 /** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents and CONTENT_MIN_DOCS documents. */
 export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<number, PriorClass>): number {
@@ -56,6 +66,8 @@ export interface ChoiceInput {
   opinion: boolean;
   /** With the function-word prior off, only the document-fraction rule is used. */
   usePrior: boolean;
+  /** Each term's share of the all-pair similarity on the corpus without any stop list (docs/methods.md §3). */
+  pullShare: Float64Array;
 }
 
 /**
@@ -65,7 +77,8 @@ export interface ChoiceInput {
  * - Any term in more than half the documents is suggested (but on opinion text, not a negation,
  *   degree or contrast word).
  * - A closed-class word of the prior is suggested unless the corpus shows it is burstier than its
- *   typical content word (it then carries a topic here).
+ *   typical content word (it then carries a topic here), and only when the words so chosen carry
+ *   together at least GRAMMAR_SHARE of the all-pair similarity (else they are 'light': kept).
  * - Markup residue (tag and entity names, pieces of web addresses) in at least CONTENT_DF of the
  *   documents is suggested on opinion text only. On topic text it is kept unless in more than
  *   half the documents: there the markup marks a kind of document (HTML mail against plain mail),
@@ -76,43 +89,48 @@ export interface ChoiceInput {
  * Returns a decision for every column the rules looked at; the rest are plain kept terms.
  */
 export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
-  const { stats, prior, stopped, protect, opinion, usePrior } = input;
+  const { stats, stopped, pullShare } = input;
+  const all = new Map<number, Decision>();
+  const limit = contentBurstiness(stats, input.prior);
+  // Every column is judged as if nothing were stopped, so that the grammar words' joint share,
+  // and with it every decision, is the same whatever the project's list holds.
+  for (let c = 0; c < stats.df.length; c++) {
+    const d = decide(input, c, limit);
+    if (d !== null) all.set(c, d);
+  }
+  let grammarShare = 0;
+  for (const [c, d] of all) if (d.reason === 'grammar') grammarShare += pullShare[c] ?? 0;
   const out = new Map<number, Decision>();
-  const cols = stats.df.length;
-  const limit = contentBurstiness(stats, prior);
-  for (let c = 0; c < cols; c++) {
-    if (stopped[c] === 1 || stats.df[c]! === 0) continue;
-    const cls = prior.get(c) ?? null;
-    const inPrior = usePrior && cls !== null;
-    const signal = termSignal(stats, c);
-    const everywhere = signal.docFraction > EVERYWHERE;
-    if (!everywhere && !inPrior) continue;
-    if (protect.has(c)) {
-      out.set(c, { suggested: false, reason: 'protected', signal, cls });
-      continue;
-    }
-    const meaning = cls !== null && cls !== 'markup' && cls !== 'phrase' && isMeaningClass(cls);
-    if (opinion) {
-      // Markup residue needs to be common to be residue: a tag name in a handful of documents is
-      // more likely the word itself ("the net", "a span of years") and moves almost no distance.
-      if (cls === 'markup' && inPrior && signal.docFraction < CONTENT_DF) continue;
-      if (cls === 'markup' && inPrior) out.set(c, { suggested: true, reason: 'markup', signal, cls });
-      else if (meaning) out.set(c, { suggested: false, reason: 'opinion', signal, cls });
-      else if (everywhere) out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
-      else out.set(c, { suggested: false, reason: 'opinion', signal, cls });
-      continue;
-    }
-    if (everywhere) {
-      out.set(c, { suggested: true, reason: 'everywhere', signal, cls });
-      continue;
-    }
-    if (cls === 'markup') {
-      out.set(c, { suggested: false, reason: 'format', signal, cls });
-      continue;
-    }
-    const bursty = signal.burstiness - BURST_Z * signal.burstinessSe > limit;
-    if (bursty) out.set(c, { suggested: false, reason: 'bursty', signal, cls });
-    else out.set(c, { suggested: true, reason: 'grammar', signal, cls });
+  for (const [c, d] of all) {
+    if (stopped[c] === 1) continue;
+    const light = d.reason === 'grammar' && grammarShare < GRAMMAR_SHARE;
+    out.set(c, light ? { suggested: false, reason: 'light', signal: d.signal, cls: d.cls, groupShare: grammarShare } : d);
   }
   return out;
+}
+
+/** One column's decision before the joint-share condition; null where no rule looks at it. */
+function decide(input: ChoiceInput, c: number, limit: number): Decision | null {
+  const { stats, prior, protect, opinion, usePrior } = input;
+  if (stats.df[c]! === 0) return null;
+  const cls = prior.get(c) ?? null;
+  const inPrior = usePrior && cls !== null;
+  const signal = termSignal(stats, c);
+  const everywhere = signal.docFraction > EVERYWHERE;
+  if (!everywhere && !inPrior) return null;
+  if (protect.has(c)) return { suggested: false, reason: 'protected', signal, cls };
+  const meaning = cls !== null && cls !== 'markup' && cls !== 'phrase' && isMeaningClass(cls);
+  if (opinion) {
+    // Markup residue needs to be common to be residue: a tag name in a handful of documents is
+    // more likely the word itself ("the net", "a span of years") and moves almost no distance.
+    if (cls === 'markup' && inPrior && signal.docFraction < CONTENT_DF) return null;
+    if (cls === 'markup' && inPrior) return { suggested: true, reason: 'markup', signal, cls };
+    if (meaning) return { suggested: false, reason: 'opinion', signal, cls };
+    if (everywhere) return { suggested: true, reason: 'everywhere', signal, cls };
+    return { suggested: false, reason: 'opinion', signal, cls };
+  }
+  if (everywhere) return { suggested: true, reason: 'everywhere', signal, cls };
+  if (cls === 'markup') return { suggested: false, reason: 'format', signal, cls };
+  const bursty = signal.burstiness - BURST_Z * signal.burstinessSe > limit;
+  return bursty ? { suggested: false, reason: 'bursty', signal, cls } : { suggested: true, reason: 'grammar', signal, cls };
 }

@@ -1,5 +1,5 @@
 import type { TermRow } from '../../protocol';
-import type { Decision } from './choose-suggestions';
+import { GRAMMAR_SHARE, type Decision } from './choose-suggestions';
 import type { PriorClass } from './prior-columns';
 
 const pct = (x: number): string => (x >= 0.1 ? `${(x * 100).toFixed(0)}%` : x >= 0.001 ? `${(x * 100).toFixed(1)}%` : `${(x * 100).toFixed(2)}%`);
@@ -52,6 +52,8 @@ export function explainTerm(row: TermRow, documents: number, decision: Decision 
         return `${kind ?? 'word'} ${inDocs}, but it clusters in some documents here (${burst(d)}) more than this corpus's typical content word, as topic words do`;
       case 'opinion':
         return `${kind ?? 'word'} ${inDocs}: this corpus reads as opinion text, where such words carry the opinion`;
+      case 'light':
+        return `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of all-pair similarity here (under ${pct(GRAMMAR_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
       case 'protected':
         return `protected by "suggest.protect"`;
       case 'format':

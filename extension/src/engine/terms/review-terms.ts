@@ -61,6 +61,12 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const share = opinionShare(evenlySpaced(input.previews, OPINION_SAMPLE));
   const meanLength = counts.documents > 0 ? counts.totalTokens / counts.documents : 0;
   const opinionText = share >= OPINION_SHARE && meanLength <= SHORT_DOCUMENT_TOKENS;
+  const basePairMass = baseline.pairMass.perTerm;
+  // The unmasked sums give the stopped terms' scores and the rule's pull shares without any stop
+  // list; df comes from the raw-count statistics (the same non-zeros), so with nothing stopped
+  // the matrix is not read again.
+  const full = baseMask.includes(1) ? lab.fullSums() : null;
+  const fullPairMass = full === null ? basePairMass : pairMass(full.sums, full.rowsWithWeight).perTerm;
   const decisions = chooseSuggestions({
     stats: counts,
     prior,
@@ -70,9 +76,9 @@ export function reviewTerms(input: TermReviewInput): TermReview {
     protect,
     opinion: opinionText,
     usePrior: settings.suggest.functionWordPrior,
+    pullShare: shares(fullPairMass),
   });
 
-  const basePairMass = baseline.pairMass.perTerm;
   // Heaviest first, so that `suggest.max` keeps the terms that pull the most.
   const accepted = [...decisions].filter(([c, d]) => d.suggested && baseMask[c] === 0).map(([c]) => c);
   accepted.sort((a, b) => basePairMass[b]! - basePairMass[a]! || a - b);
@@ -86,11 +92,8 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const baseSpread = termSpread(baseSums, documents);
   let fullScores: TermScores | null = null;
   let fullSpread: Float64Array | null = null;
-  // The unmasked sums are needed only for the stopped terms' scores; df comes from the raw-count
-  // statistics (the same non-zeros), so with nothing stopped the matrix is not read again.
-  if (baseMask.includes(1)) {
-    const full = lab.fullSums();
-    fullScores = termScores(pairMass(full.sums, full.rowsWithWeight).perTerm, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
+  if (full !== null) {
+    fullScores = termScores(fullPairMass, knnTermMass(lab.sampleRows, lab.positions, suggested.neighbors, lab.k));
     fullSpread = termSpread(full.sums, documents);
   }
 
@@ -125,6 +128,15 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
+}
+
+/** Each term's pair mass as a share of the total. */
+function shares(mass: Float64Array): Float64Array {
+  let total = 0;
+  for (let t = 0; t < mass.length; t++) total += mass[t]!;
+  const out = new Float64Array(mass.length);
+  if (total > 0) for (let t = 0; t < mass.length; t++) out[t] = mass[t]! / total;
+  return out;
 }
 
 /** `max` texts at evenly spaced positions (positions ⌊i·n/max⌋; engine/shards/ fetches the same ones). */
