@@ -43,8 +43,8 @@ describe('startReview on Debian fortunes (labels kept from the review)', functio
     console.log(`      fortunes: ${r.suggestions.length} suggestions; verdict: ${r.verdict.headline}`);
   });
 
-  it('suggested measures are what the what-if of the suggestions gives', () => {
-    const again = session.whatIf(session.report.suggestions);
+  it('suggested measures are what the what-if of the suggestions gives', async () => {
+    const again = await session.whatIf(session.report.suggestions);
     assert.equal(again.backgroundSimilarity, session.report.suggested.backgroundSimilarity);
     assert.equal(again.neighborStandout, session.report.suggested.neighborStandout);
     assert.ok(session.report.suggested.backgroundSimilarity < session.report.baseline.backgroundSimilarity);

@@ -41,7 +41,7 @@ describe('a shards folder reviewed in the editor: shard steps on worker threads'
       // A stop list no round has summed yet (its sums need one more round on the threads), then one it has.
       for (const removed of [one.report.suggestions.slice(0, 2), one.report.suggestions]) {
         const got = await client.whatIf(removed);
-        const want = one.whatIf(removed);
+        const want = await one.whatIf(removed);
         assert.deepEqual(reportDifferences(want, got).differences, [], `what-if ${JSON.stringify(removed)}`);
       }
     } finally {

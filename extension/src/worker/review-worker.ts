@@ -37,7 +37,7 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
     const shards = input.input.text === undefined && (await isManyFilesInput(input.input.file));
     const next = shards ? await reviewShardsInThreads(input.input, hooks) : await startReview(input.input, hooks);
     controller.signal.throwIfAborted();
-    if (session !== null && 'close' in session) void session.close();
+    if (session !== null) void session.close?.();
     session = next;
     post({ type: 'report', runId, report: next.report });
     // While the reader looks at the Report, build what the first toggle would otherwise pay for.

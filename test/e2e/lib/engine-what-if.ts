@@ -9,7 +9,7 @@ async function main(): Promise<void> {
   if (file === undefined || configPath === undefined) throw new Error('usage: engine-what-if.ts <corpus> <config> < removed.json');
   const removed = JSON.parse(readFileSync(0, 'utf8')) as string[];
   const session = await startReview({ file, configPath });
-  process.stdout.write(JSON.stringify(session.whatIf(removed)));
+  process.stdout.write(JSON.stringify(await session.whatIf(removed)));
 }
 
 main().catch((e: unknown) => {

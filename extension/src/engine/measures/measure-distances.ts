@@ -114,8 +114,46 @@ export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions'
  * The Measures from exact sums and the sample's cosines alone: what the panel's what-if needs
  * per toggle (its sums and cosines are kept up to date by engine/what-if/), without the per-term
  * k-NN mass and hub list that only the Report's suggestions use. measureDistances adds those.
+ * The two halves (sampledMeasures, exactMeasures) share no input, so the what-if may compute
+ * them on two threads and join them (joinMeasures) into the same object.
  */
 export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFromGramResult {
+  const sampled = sampledMeasures(options);
+  const exact = exactMeasures(options.sums, options.rowsWithWeight);
+  return {
+    measures: joinMeasures(sampled.measures, exact),
+    neighbors: sampled.neighbors,
+    neighborSims: sampled.neighborSims,
+    standoutPerQuery: sampled.standoutPerQuery,
+    kOccurrence: sampled.kOccurrence,
+    pairMass: exact.mass,
+  };
+}
+
+/** The Measures' fields that come from the whole corpus's exact sums (the pair mass). */
+export interface ExactMeasures {
+  mass: PairMass;
+  backgroundSimilarity: number;
+  topTermsMassShare: Measures['topTermsMassShare'];
+  cumulativeMass: number[];
+}
+
+/** The Measures' fields that come from the sample's m×m matrix: everything but ExactMeasures. */
+export type SampledFields = Omit<Measures, 'backgroundSimilarity' | 'topTermsMassShare' | 'distributions'> & {
+  distributions: Omit<Measures['distributions'], 'cumulativeMass'>;
+};
+
+/** The pair mass and what the Measures read from it, from exact sums of the (masked) corpus. */
+export function exactMeasures(sums: TermSums, rowsWithWeight: number): ExactMeasures {
+  const mass = pairMass(sums, rowsWithWeight);
+  // One sort of the term masses serves the chart and both top-term shares.
+  const cumulativeMass = cumulativeMassShare(mass.perTerm, mass.total, CUMULATIVE_MASS_TERMS);
+  const shareOfTop = (count: number) => (cumulativeMass.length === 0 ? 0 : cumulativeMass[Math.min(count, cumulativeMass.length) - 1]);
+  return { mass, backgroundSimilarity: mass.backgroundSimilarity, topTermsMassShare: { top10: shareOfTop(10), top100: shareOfTop(100) }, cumulativeMass };
+}
+
+/** The sampled measures and the k-NN state behind them (measuresFromGram's options less the sums). */
+export function sampledMeasures(options: Omit<MeasuresFromGramOptions, 'sums' | 'rowsWithWeight'>): { measures: SampledFields } & Omit<MeasuresFromGramResult, 'measures' | 'pairMass'> {
   const { k, seed, labels, baselineNeighbors, gram } = options;
   const m = Math.round(Math.sqrt(gram.length));
   if (m * m !== gram.length) throw new RangeError(`measuresFromGram: gram of ${gram.length} entries is not square`);
@@ -125,7 +163,6 @@ export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFrom
     throw new RangeError(`measureDistances: baseline neighbours are not ${m}×${k}`);
   }
 
-  const mass = pairMass(options.sums, options.rowsWithWeight);
   const valid = validRowsFromGram(gram, m);
   const scale = options.rowScale;
   for (let i = 0; i < m; i++) {
@@ -140,13 +177,8 @@ export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFrom
   const { knn, kOccurrence: counts } = rows;
   const hubness = hubnessSummary(counts, valid, k);
 
-  // One sort of the term masses serves the chart and both top-term shares.
-  const cumulativeMass = cumulativeMassShare(mass.perTerm, mass.total, CUMULATIVE_MASS_TERMS);
-  const shareOfTop = (count: number) => (cumulativeMass.length === 0 ? 0 : cumulativeMass[Math.min(count, cumulativeMass.length) - 1]);
-
-  const measures: Measures = {
+  const measures: SampledFields = {
     sample: { documents: m, k, seed },
-    backgroundSimilarity: mass.backgroundSimilarity,
     neighborStandout: rows.standout,
     contrast: rows.contrast,
     meanToNearest: rows.meanToNearest,
@@ -154,14 +186,12 @@ export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFrom
     hubness,
     intrinsicDimension: { twoNN: twoNN(rows.nnDist, m, k), mle: mleDimension(rows.nnDist, m, k) },
     radiusSlack: rows.radiusSlack,
-    topTermsMassShare: { top10: shareOfTop(10), top100: shareOfTop(100) },
     labelPrecisionAtK: labels === null ? null : labelPrecisionAtK(knn.neighbors, labels, k),
     neighborTurnover: baselineNeighbors === null ? null : neighborTurnover(baselineNeighbors, knn.neighbors, m, k),
     distributions: {
       similarity: rows.similarity,
       // Bins 0..3k: the mean is k, and anything past 3k is a hub by any reading.
       kOccurrence: kOccurrenceHistogram(counts, valid, 3 * k),
-      cumulativeMass,
     },
   };
 
@@ -171,6 +201,28 @@ export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFrom
     neighborSims: knn.sims,
     standoutPerQuery: rows.standoutPerQuery,
     kOccurrence: counts,
-    pairMass: mass,
+  };
+}
+
+/** The Measures from its two halves, fields in the protocol's order. */
+export function joinMeasures(sampled: SampledFields, exact: Omit<ExactMeasures, 'mass'>): Measures {
+  return {
+    sample: sampled.sample,
+    backgroundSimilarity: exact.backgroundSimilarity,
+    neighborStandout: sampled.neighborStandout,
+    contrast: sampled.contrast,
+    meanToNearest: sampled.meanToNearest,
+    iidEquivalentDimension: sampled.iidEquivalentDimension,
+    hubness: sampled.hubness,
+    intrinsicDimension: sampled.intrinsicDimension,
+    radiusSlack: sampled.radiusSlack,
+    topTermsMassShare: exact.topTermsMassShare,
+    labelPrecisionAtK: sampled.labelPrecisionAtK,
+    neighborTurnover: sampled.neighborTurnover,
+    distributions: {
+      similarity: sampled.distributions.similarity,
+      kOccurrence: sampled.distributions.kOccurrence,
+      cumulativeMass: exact.cumulativeMass,
+    },
   };
 }

@@ -44,8 +44,16 @@ export interface ReviewHooks {
  */
 export interface ReviewSession {
   readonly report: Report;
-  /** Measures with the baseline stop list plus `removed`; O(nnz) plus the sampled measures. */
-  whatIf(removed: readonly string[]): Measures;
-  /** Builds the column postings the first incremental what-if needs (optional; idle time). */
+  /**
+   * Measures with the baseline stop list plus `removed`; O(nnz) plus the sampled measures, the
+   * two halves on two threads once prepareWhatIf has started the sample's thread.
+   */
+  whatIf(removed: readonly string[]): Promise<Measures>;
+  /**
+   * Builds what the first toggle would otherwise pay for (the column postings) and starts the
+   * sample's what-if thread at the panel's opening state (optional; idle time).
+   */
   prepareWhatIf?(): void;
+  /** Ends the what-if thread, if one was started. */
+  close?(): Promise<void>;
 }

@@ -6,6 +6,7 @@ import { isManyFilesInput } from '../read/corpus-files';
 import { openCorpusInput, withPlaces } from '../read/many-files-corpus';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { DistanceLab } from '../what-if/distance-lab';
+import { ParallelWhatIf } from '../what-if/parallel-what-if';
 import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights, startTokenizing } from './prepare-weights';
@@ -107,14 +108,20 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   report.timings = timings;
   report.provenance = provenanceOf(input, loaded.sources);
 
+  let parallel: ParallelWhatIf | null = null;
   return {
     report,
-    whatIf(removed: readonly string[]) {
+    async whatIf(removed: readonly string[]) {
       const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
-      return lab.whatIf(mask, baseline.neighbors);
+      return parallel !== null ? parallel.whatIf(mask) : lab.whatIf(mask, baseline.neighbors);
     },
     prepareWhatIf() {
       lab.prepareToggles();
+      // The panel opens with the suggestions ticked: the thread builds that state while idle.
+      parallel ??= ParallelWhatIf.open(lab, baseline.neighbors, DistanceLab.union(baseMask, index.columnsOf(report.suggestions)));
+    },
+    async close() {
+      await parallel?.close();
     },
   };
 }

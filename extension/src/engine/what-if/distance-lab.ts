@@ -2,7 +2,7 @@ import type { Csr } from '../matrix/csr';
 import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
 import { selectRows } from '../matrix/select-rows';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
-import { measureDistances, measuresFromGram } from '../measures/measure-distances';
+import { exactMeasures, joinMeasures, measureDistances, sampledMeasures, type ExactMeasures } from '../measures/measure-distances';
 import type { Measures } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { termSums } from '../measures/term-sums';
@@ -94,9 +94,19 @@ export class DistanceLab {
    * to ~1e-12. The masked sample is never written: the kept cosines are all it needs.
    */
   whatIf(removed: Uint8Array, baselineNeighbors: Uint32Array | null): Measures {
-    const { sums, rowsWithWeight } = this.exactSums(removed, true);
+    const exact = this.whatIfExact(removed);
     const { dots, scale } = this.gram.scaled(removed, true);
-    return measuresFromGram({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, sums, rowsWithWeight, gram: dots, rowScale: scale }).measures;
+    const sampled = sampledMeasures({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, gram: dots, rowScale: scale });
+    return joinMeasures(sampled.measures, exact);
+  }
+
+  /**
+   * whatIf's exact half alone: the pair mass from the exact sums, reached from the previous
+   * call's state. ParallelWhatIf runs it here while the sample's half runs on its own thread.
+   */
+  whatIfExact(removed: Uint8Array): ExactMeasures {
+    const { sums, rowsWithWeight } = this.exactSums(removed, true);
+    return exactMeasures(sums, rowsWithWeight);
   }
 
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {

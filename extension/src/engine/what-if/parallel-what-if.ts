@@ -1,0 +1,107 @@
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { Worker } from 'node:worker_threads';
+import type { Measures } from '../../protocol';
+import { joinMeasures, type SampledFields } from '../measures/measure-distances';
+import type { DistanceLab } from './distance-lab';
+import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
+
+/**
+ * The panel's what-if on two threads: the sample's half (the kept dot products of the sampled
+ * rows and every measure read off them, SampleSide) runs on a worker thread of its own
+ * (sample-thread.ts) while this thread updates the exact sums of the whole corpus (DistanceLab).
+ * The two halves share no input, so a toggle costs the longer of the two instead of their sum.
+ * The answers are DistanceLab.whatIf's, bit for bit: the thread's SampleSide walks the same
+ * masks in the same order as the lab's own dot products would (test/what-if-parallel.test.ts).
+ * If the thread fails, the lab answers in this thread from then on.
+ */
+export class ParallelWhatIf {
+  private seq = 0;
+  private readonly pending = new Map<number, { resolve(measures: SampledFields): void; reject(e: Error): void }>();
+  private failure: Error | null = null;
+  /** Toggles answered with the thread's half (the rest fell back to this thread), for the tests and the benchmark. */
+  threadAnswers = 0;
+
+  private constructor(
+    private readonly lab: DistanceLab,
+    private readonly baselineNeighbors: Uint32Array | null,
+    private readonly worker: Worker,
+  ) {
+    worker.on('message', (reply: SampleReply) => {
+      const p = this.pending.get(reply.seq);
+      if (p === undefined) return;
+      this.pending.delete(reply.seq);
+      if (this.pending.size === 0) worker.unref();
+      if (reply.measures !== null) p.resolve(reply.measures);
+      else p.reject(new Error(`what-if thread: ${reply.error}`));
+    });
+    worker.on('error', (e) => this.fail(e));
+    worker.on('exit', (code) => this.fail(new Error(`what-if thread exited with code ${code}`)));
+    // An idle thread never keeps the process alive; one with a request in flight does.
+    worker.unref();
+  }
+
+  /**
+   * Starts the thread for `lab`'s sample, opening at `opening` (the panel's first state: a full
+   * build there, while the reader looks at the Report), or null when there is no thread script
+   * (`script` by default: the bundled dist/what-if-thread.js beside this bundle, or under tsx the
+   * source entry beside this file).
+   */
+  static open(lab: DistanceLab, baselineNeighbors: Uint32Array | null, opening: Uint8Array, script: string | null = threadScript()): ParallelWhatIf | null {
+    if (script === null) return null;
+    const { rows, cols, indptr, indices, data } = lab.sampleRows;
+    const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors };
+    // Under tsx (tests, the benchmark) the entry is TypeScript: the thread loads it through tsx too.
+    const execArgv = script.endsWith('.ts') ? ['--require', 'tsx/cjs'] : undefined;
+    const parallel = new ParallelWhatIf(lab, baselineNeighbors, new Worker(script, { workerData, execArgv }));
+    parallel.request(opening, true).catch(() => undefined); // a failure shows again on the first toggle, which then falls back
+    return parallel;
+  }
+
+  /** Measures with the column mask `removed` stopped (DistanceLab.whatIf's, reached on two threads). */
+  async whatIf(removed: Uint8Array): Promise<Measures> {
+    if (this.failure !== null) return this.lab.whatIf(removed, this.baselineNeighbors);
+    // Posted first, so the thread works while this one sums.
+    const sampled = this.request(removed, false);
+    const exact = this.lab.whatIfExact(removed);
+    try {
+      const measures = joinMeasures(await sampled, exact);
+      this.threadAnswers++;
+      return measures;
+    } catch {
+      // The thread failed (or refused): answer here; the exact sums are already at `removed`.
+      return this.lab.whatIf(removed, this.baselineNeighbors);
+    }
+  }
+
+  async close(): Promise<void> {
+    this.fail(new Error('what-if thread closed'));
+    await this.worker.terminate();
+  }
+
+  private request(removed: Uint8Array, full: boolean): Promise<SampledFields> {
+    if (this.failure !== null) return Promise.reject(this.failure);
+    const seq = ++this.seq;
+    return new Promise<SampledFields>((resolve, reject) => {
+      this.pending.set(seq, { resolve, reject });
+      this.worker.ref();
+      const request: SampleRequest = { seq, removed, full };
+      this.worker.postMessage(request);
+    });
+  }
+
+  private fail(e: Error): void {
+    this.failure ??= e;
+    for (const p of this.pending.values()) p.reject(e);
+    this.pending.clear();
+    this.worker.unref();
+  }
+}
+
+/** dist/what-if-thread.js beside the running bundle, else (under tsx) sample-thread.ts beside this file. */
+function threadScript(): string | null {
+  const bundled = join(__dirname, 'what-if-thread.js');
+  if (existsSync(bundled)) return bundled;
+  const source = join(__dirname, 'sample-thread.ts');
+  return existsSync(source) ? source : null;
+}

@@ -1,0 +1,18 @@
+import type { SampledFields } from '../measures/measure-distances';
+import type { SampleSideInput } from './sample-side';
+
+/** workerData of sample-thread.ts: the sampled rows as plain arrays, and the measures' settings. */
+export type SampleThreadData = SampleSideInput;
+
+/**
+ * Review thread → sample thread: the sampled measures with `removed` stopped. `full` asks for a
+ * full build of the dot products (the opening state, kept as a checkpoint), not an update.
+ */
+export interface SampleRequest {
+  seq: number;
+  removed: Uint8Array;
+  full: boolean;
+}
+
+/** Sample thread → review thread: the answer to request `seq`, or why there is none. */
+export type SampleReply = { seq: number; measures: SampledFields; error: null } | { seq: number; measures: null; error: string };

@@ -1,0 +1,20 @@
+// worker_threads entry (bundled to dist/what-if-thread.js): the sample's half of the panel's
+// what-if (SampleSide), so that it runs beside the exact sums on the review's thread
+// (ParallelWhatIf). Requests are answered one at a time, in the order they were sent.
+import { parentPort, workerData } from 'node:worker_threads';
+import { SampleSide } from './sample-side';
+import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
+
+const port = parentPort;
+if (port === null) throw new Error('sample-thread must run as a worker thread');
+const side = new SampleSide(workerData as SampleThreadData);
+
+port.on('message', (request: SampleRequest) => {
+  let reply: SampleReply;
+  try {
+    reply = { seq: request.seq, measures: side.measures(request.removed, !request.full), error: null };
+  } catch (e) {
+    reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
+  }
+  port.postMessage(reply);
+});

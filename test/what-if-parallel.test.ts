@@ -1,0 +1,127 @@
+// The panel's what-if on two threads (ParallelWhatIf: the sample's half on a worker thread, the
+// exact sums here) must answer what DistanceLab.whatIf answers in one thread, bit for bit: the
+// thread walks the same masks in the same order. The one-thread answer is itself held to a full
+// recompute in test/what-if-incremental.test.ts, and that to scikit-learn's TfidfVectorizer
+// through test/measures-masked-term-sums.test.ts (docs/methods.md §1, §3).
+import { strict as assert } from 'node:assert';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Csr } from '../extension/src/engine/matrix/csr';
+import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
+import { ParallelWhatIf } from '../extension/src/engine/what-if/parallel-what-if';
+import { mulberry32 } from '../extension/src/engine/random/seeded-random';
+
+/** Unit rows over `cols` terms: low columns common (u³), a few exact duplicates, some one-term rows. */
+function rowsLikeText(rows: number, cols: number, random: () => number): Csr {
+  const indptr = new Uint32Array(rows + 1);
+  const indices: number[] = [];
+  const data: number[] = [];
+  let previous: Array<[number, number]> = [];
+  for (let r = 0; r < rows; r++) {
+    let entries: Array<[number, number]> = previous;
+    if (r === 0 || random() >= 0.05) {
+      const chosen = new Map<number, number>();
+      const length = random() < 0.1 ? 1 : 3 + Math.floor(random() * 10);
+      for (let e = 0; e < length; e++) {
+        const u = random();
+        const t = Math.min(cols - 1, Math.floor(cols * u * u * u));
+        chosen.set(t, (chosen.get(t) ?? 0) + 0.5 + random());
+      }
+      entries = [...chosen.entries()].sort((a, b) => a[0] - b[0]);
+    }
+    previous = entries;
+    const norm = Math.hypot(...entries.map((e) => e[1]));
+    for (const [t, w] of entries) {
+      indices.push(t);
+      data.push(w / norm);
+    }
+    indptr[r + 1] = indices.length;
+  }
+  return { rows, cols, indptr, indices: Uint32Array.from(indices), data: Float64Array.from(data) };
+}
+
+/** Two labs on the same rows (one for each side of the comparison), their baseline and an opening mask. */
+function setUp(seed: number) {
+  const random = mulberry32(seed);
+  const X = rowsLikeText(600, 50, random);
+  const sample = Uint32Array.from({ length: 120 }, (_, i) => i * 5);
+  const labels = Int32Array.from(sample, () => Math.floor(random() * 3));
+  const k = 5;
+  const lab = new DistanceLab(X, sample, k, seed, labels);
+  const reference = new DistanceLab(X, sample, k, seed, labels);
+  const baseline = reference.measure(new Uint8Array(X.cols), null);
+  lab.measure(new Uint8Array(X.cols), null);
+  const opening = new Uint8Array(X.cols);
+  opening[0] = 1;
+  opening[3] = 1;
+  reference.measure(opening, baseline.neighbors);
+  lab.measure(opening, baseline.neighbors);
+  // Single clicks, mostly on the common low columns, some undone, some repeated.
+  const clicks: number[] = [];
+  for (let i = 0; i < 24; i++) clicks.push(Math.floor(X.cols * random() ** 2));
+  clicks.push(clicks[clicks.length - 1]!, 0, 0);
+  return { X, lab, reference, baseline, opening, clicks };
+}
+
+describe('what-if on two threads', function () {
+  this.timeout(60000);
+
+  it('ParallelWhatIf answers what DistanceLab.whatIf answers in one thread, bit for bit, along single clicks (its sample half on the thread)', async () => {
+    for (const seed of [11, 12]) {
+      const { lab, reference, baseline, opening, clicks } = setUp(seed);
+      const parallel = ParallelWhatIf.open(lab, baseline.neighbors, opening);
+      assert.ok(parallel !== null, 'the thread entry (sample-thread.ts under tsx) was not found');
+      try {
+        const mask = opening.slice();
+        for (const t of clicks) {
+          mask[t] = mask[t] === 0 ? 1 : 0;
+          const got = await parallel.whatIf(mask.slice());
+          const want = reference.whatIf(mask, baseline.neighbors);
+          assert.deepStrictEqual(got, want, `seed ${seed}, term ${t}`);
+        }
+        assert.equal(parallel.threadAnswers, clicks.length, 'some answers did not come from the thread');
+      } finally {
+        await parallel.close();
+      }
+    }
+  });
+
+  it('clicks sent before the previous answer came back are answered in order, each for its own mask', async () => {
+    const { lab, reference, baseline, opening, clicks } = setUp(13);
+    const parallel = ParallelWhatIf.open(lab, baseline.neighbors, opening);
+    assert.ok(parallel !== null);
+    try {
+      const masks: Uint8Array[] = [];
+      const mask = opening.slice();
+      for (const t of clicks.slice(0, 8)) {
+        mask[t] = mask[t] === 0 ? 1 : 0;
+        masks.push(mask.slice());
+      }
+      const answers = await Promise.all(masks.map((m) => parallel.whatIf(m)));
+      for (let i = 0; i < masks.length; i++) assert.deepStrictEqual(answers[i], reference.whatIf(masks[i]!, baseline.neighbors), `click ${i}`);
+    } finally {
+      await parallel.close();
+    }
+  });
+
+  it('a thread that fails to start leaves the answers to this thread, unchanged', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'loudword-what-if-thread-'));
+    try {
+      const script = join(dir, 'broken-thread.js');
+      writeFileSync(script, "throw new Error('no thread today');\n");
+      const { lab, reference, baseline, opening, clicks } = setUp(14);
+      const parallel = ParallelWhatIf.open(lab, baseline.neighbors, opening, script);
+      assert.ok(parallel !== null);
+      const mask = opening.slice();
+      for (const t of clicks.slice(0, 6)) {
+        mask[t] = mask[t] === 0 ? 1 : 0;
+        assert.deepStrictEqual(await parallel.whatIf(mask.slice()), reference.whatIf(mask, baseline.neighbors));
+      }
+      assert.equal(parallel.threadAnswers, 0);
+      await parallel.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
