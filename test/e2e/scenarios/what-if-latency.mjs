@@ -31,16 +31,22 @@ async function timedClick(frame, term) {
         if (!box) return reject(new Error(`no checkbox for "${t}"`));
         const before = legend();
         const slot = document.querySelector('.lw-strip-slot');
-        if (slot) delete slot.dataset.engineMs;
+        if (slot) {
+          delete slot.dataset.engineMs;
+          delete slot.dataset.panelMs;
+        }
         const start = performance.now();
         box.click();
+        // The click's own handler (selection, strip marked pending, request posted) runs inside click().
+        const clickMs = performance.now() - start;
         const deadline = start + 60000;
         const poll = () => {
           const now = performance.now();
           const text = legend();
           // Done when the legend names the new selection and nothing is pending.
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
-            resolve({ ms: now - start, engineMs: slot?.dataset.engineMs === undefined ? null : Number(slot.dataset.engineMs) });
+            const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
+            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), clickMs });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -69,7 +75,15 @@ async function measure(ctx, fileName, label) {
   const ms = times.map((t) => Math.round(t));
   console.log(`  what-if latency (${label}): click → strip updated, median ${median(times).toFixed(0)} ms over ${times.length} clicks; first ${ms[0]} ms; all ${ms.join(', ')} (machine may be shared)`);
   if (engine.length > 0) {
-    console.log(`  of which the engine in the worker: median ${median(engine).toFixed(0)} ms; all ${engine.map((e) => Math.round(e)).join(', ')}; the rest is messages, the strip and the charts`);
+    console.log(`  of which the engine in the worker: median ${median(engine).toFixed(0)} ms; all ${engine.map((e) => Math.round(e)).join(', ')}`);
+  }
+  const panel = clicks.filter((c) => c.panelMs !== null).map((c) => c.panelMs + c.clickMs);
+  if (panel.length > 0) {
+    const rest = clicks.filter((c) => c.panelMs !== null && c.engineMs !== null).map((c) => c.ms - c.engineMs - c.panelMs - c.clickMs);
+    console.log(
+      `  the panel's own work (click handler + state, strip and charts on the answer): median ${median(panel).toFixed(0)} ms; all ${panel.map((e) => Math.round(e)).join(', ')}` +
+        (rest.length > 0 ? `; the rest (messages panel ⇄ host ⇄ worker, waiting for a frame): median ${median(rest).toFixed(0)} ms` : ''),
+    );
   }
   return median(times);
 }
