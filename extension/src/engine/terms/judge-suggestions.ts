@@ -15,12 +15,20 @@ export interface JudgeInput {
   opinion: { share: number; opinionText: boolean };
   /** Stopped terms the rule would suggest too: after `apply`, the reason nothing is new. */
   agreedStopped: number;
+  /** When rule 2 kept the grammar words below half as light: their joint share of the similarity. */
+  lightGrammar: number | null;
 }
 
 const f2 = (x: number): string => x.toFixed(2);
 const f3 = (x: number): string => x.toFixed(3);
 const signed = (x: number, digits: number): string => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(digits)}`;
 const pct = (x: number): string => `${Math.round(x * 100)}%`;
+const pct1 = (x: number): string => `${(x * 100).toFixed(1)}%`;
+
+/** Why the grammar words below half were not suggested, when rule 2 found them light. */
+function lightSentence(share: number): string {
+  return `Grammar words in fewer than half the documents were kept: together they carry only ${pct1(share)} of the all-pair similarity here, too little to distort distances, and in long documents they can mark the kind of document (docs/methods.md §9).`;
+}
 
 /**
  * The one judgement a review leads with (Report.verdict): what the suggested list does to
@@ -42,6 +50,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
         ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`
         : opinion.opinionText
         ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
+        : input.lightGrammar !== null
+        ? `No stop list suggested: no term is in more than half the documents. ${lightSentence(input.lightGrammar)}`
         : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
       estimate: null,
       caveats: [],
@@ -81,6 +91,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   if (opinion.opinionText) {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;
   }
+  if (input.lightGrammar !== null) headline += ` ${lightSentence(input.lightGrammar)}`;
   return { outcome, headline, estimate, caveats };
 }
 

@@ -125,7 +125,9 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const opinion = { share, opinionText };
   let agreedStopped = 0;
   for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped });
+  let lightGrammar: number | null = null;
+  for (const d of decisions.values()) if (d.reason === 'light') lightGrammar = d.groupShare;
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, lightGrammar });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
