@@ -1,6 +1,5 @@
-import { existsSync } from 'node:fs';
 import * as path from 'node:path';
-import { cached, squeeze, type DevCorpus, type LabelledDoc, unpackedDebianPackage } from './labelled-corpus';
+import { cached, squeeze, type DevCorpus, type LabelledDoc, availableWhen, unpackedDebianPackage } from './labelled-corpus';
 import { readRLazyLoadStrings } from './r-lazy-load';
 
 const PACKAGE = 'r-cran-janeaustenr';
@@ -24,13 +23,7 @@ export const AUSTEN_CHAPTERS: DevCorpus = {
   role: 'CHECK',
   source: 'Debian r-cran-janeaustenr (Project Gutenberg texts); label = novel',
   missing: 'apt-get update (the corpus is unpacked from `apt-get download r-cran-janeaustenr`)',
-  available: () => {
-    try {
-      return existsSync(unpack());
-    } catch {
-      return false;
-    }
-  },
+  available: availableWhen(unpack),
   load: () =>
     cached('austen-chapters', async () => {
       const docs: LabelledDoc[] = [];

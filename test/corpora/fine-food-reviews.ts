@@ -1,6 +1,5 @@
-import { existsSync } from 'node:fs';
 import * as path from 'node:path';
-import { evenlySpaced, squeeze, type DevCorpus, type LabelledDoc, unpackedDebianPackage } from './labelled-corpus';
+import { evenlySpaced, squeeze, type DevCorpus, type LabelledDoc, availableWhen, unpackedDebianPackage } from './labelled-corpus';
 import { readRLazyLoadFrame } from './r-lazy-load';
 
 const PACKAGE = 'r-cran-modeldata';
@@ -25,13 +24,7 @@ export const FINE_FOOD_REVIEWS: DevCorpus = {
   role: 'CHECK',
   source: 'Debian r-cran-modeldata (small_fine_foods: Amazon fine-food reviews); label = score (great / other)',
   missing: 'apt-get update (the corpus is unpacked from `apt-get download r-cran-modeldata`)',
-  available: () => {
-    try {
-      return existsSync(unpack());
-    } catch {
-      return false;
-    }
-  },
+  available: availableWhen(unpack),
   load: async () => {
     const docs: LabelledDoc[] = [];
     for (const frame of ['training_data', 'testing_data']) {

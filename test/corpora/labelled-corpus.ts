@@ -70,3 +70,19 @@ export function unpackedDebianPackage(name: string): string {
   execFileSync('dpkg', ['-x', path.join(debs, deb), root]);
   return root;
 }
+
+/**
+ * `available()` for a corpus read from files that must first be fetched (a Debian package
+ * unpacked into the cache, an npm fixture): true when `where()` names something that exists; a
+ * fetch that fails (no apt lists, no network) counts as not available, so the quality table
+ * skips the corpus with its `missing` advice instead of stopping.
+ */
+export function availableWhen(...where: Array<() => string>): () => boolean {
+  return () => {
+    try {
+      return where.every((w) => existsSync(w()));
+    } catch {
+      return false;
+    }
+  };
+}

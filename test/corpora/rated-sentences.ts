@@ -1,6 +1,6 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import type { DevCorpus, LabelledDoc } from './labelled-corpus';
+import { availableWhen, type DevCorpus, type LabelledDoc } from './labelled-corpus';
 
 /** The three files of the sentiment package's test fixtures, one sentence per item. */
 const SOURCES = ['amazon', 'imdb', 'yelp'] as const;
@@ -23,13 +23,7 @@ export const RATED_SENTENCES: DevCorpus = {
   role: 'CHECK',
   source: 'npm sentiment test fixtures (UCI Sentiment Labelled Sentences); label = positive / negative',
   missing: 'npm install (devDependency sentiment)',
-  available: () => {
-    try {
-      return SOURCES.every((s) => existsSync(fixture(s)));
-    } catch {
-      return false;
-    }
-  },
+  available: availableWhen(...SOURCES.map((s) => () => fixture(s))),
   load: async () => {
     const docs: LabelledDoc[] = [];
     for (const source of SOURCES) {

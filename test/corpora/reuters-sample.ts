@@ -1,6 +1,6 @@
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import { squeeze, type DevCorpus, type LabelledDoc, unpackedDebianPackage } from './labelled-corpus';
+import { squeeze, type DevCorpus, type LabelledDoc, availableWhen, unpackedDebianPackage } from './labelled-corpus';
 
 const PACKAGE = 'r-cran-tm';
 
@@ -31,13 +31,7 @@ export const REUTERS_SAMPLE: DevCorpus = {
   role: 'CHECK',
   source: 'Debian r-cran-tm texts/acq + texts/crude (Reuters-21578); label = folder',
   missing: 'apt-get update (the corpus is unpacked from `apt-get download r-cran-tm`)',
-  available: () => {
-    try {
-      return existsSync(unpack());
-    } catch {
-      return false;
-    }
-  },
+  available: availableWhen(unpack),
   load: async () => {
     const docs: LabelledDoc[] = [];
     for (const label of ['acq', 'crude']) {
