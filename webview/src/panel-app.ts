@@ -122,8 +122,10 @@ export class PanelApp {
     const started = performance.now();
     this.state.whatIf = { removed: [...message.removed], measures: message.measures };
     this.save();
-    this.renderStrip();
+    // Charts first: they set canvas fonts, which need the computed style, and right after the
+    // strip's DOM changed that forced a style recalculation of the whole panel.
     this.loaded.charts.update(this.currentSetting(this.loaded.report));
+    this.renderStrip();
     // The engine's share of the wait and the panel's own (state, strip and charts), for the e2e
     // latency scenario to print beside the click's.
     const slot = this.loaded.stripSlot.dataset;
