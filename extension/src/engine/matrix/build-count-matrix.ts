@@ -6,9 +6,8 @@ import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
 import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
-import { sortByCodePoint } from './compare-code-points';
+import { CodePointSortedTerms } from './code-point-sorted-terms';
 import type { CountMatrix } from './csr';
-import { documentPreview } from './document-preview';
 
 export interface BuiltCorpus {
   counts: CountMatrix;
@@ -59,6 +58,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
   const take = (batch: EncodedBatch): void => {
     const firstRow = counter.rows;
     counter.add(batch);
+    for (const p of batch.previews) previews.push(p);
     longRuns += batch.longRuns;
     longRunDocs += batch.longRunDocs.length;
     for (const d of batch.longRunDocs) if (longRunLines.length < LINES_NAMED) longRunLines.push(lines.at(firstRow + d));
@@ -73,7 +73,6 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
         texts[i] = row.text;
         lines.push(row.line);
         labels?.push(row.label);
-        previews.push(documentPreview(row.text));
       }
       const p = encoder.encode(texts);
       p.catch(() => undefined); // awaited below in order; this only silences an early rejection
@@ -143,7 +142,7 @@ class GrowingUint32 {
  */
 class CountAccumulator {
   private readonly idOf = new Map<string, number>();
-  private readonly terms: string[] = [];
+  private readonly inOrder = new CodePointSortedTerms();
   /** Per stream, in order of first batch: the stream's number and its ids' global ids. */
   private readonly streams = new Map<number, { index: number; globalOf: GrowingUint32 }>();
   private parts: CountedPart[] = [];
@@ -162,12 +161,13 @@ class CountAccumulator {
     for (const t of batch.newTerms) {
       let id = this.idOf.get(t);
       if (id === undefined) {
-        id = this.terms.length;
+        id = this.idOf.size;
         this.idOf.set(t, id);
-        this.terms.push(t);
+        this.inOrder.add(t);
       }
       globalOf.push(id);
     }
+    this.inOrder.tidy();
     this.parts.push({ stream: stream.index, rowEnds: batch.rowEnds, cols: batch.cols, counts: batch.counts });
     for (let d = 0; d < batch.tokens.length; d++) this.tokensPerDoc.push(batch.tokens[d]!);
     this.rows += batch.rowEnds.length;
@@ -181,8 +181,8 @@ class CountAccumulator {
    * thread's CPU after the threads had finished); else here, one part after another.
    */
   async finish(encoder: Pick<BatchEncoder, 'assemble'> = {}): Promise<CountMatrix> {
-    const cols = this.terms.length;
-    const sortedTerms = sortByCodePoint(this.terms);
+    const cols = this.idOf.size;
+    const sortedTerms = this.inOrder.sorted();
     const rank = new Uint32Array(cols);
     for (let j = 0; j < cols; j++) rank[this.idOf.get(sortedTerms[j]!)!] = j;
     // Each stream's own ids straight to columns.

@@ -16,7 +16,7 @@ import { UserError } from '../user-error';
  */
 export interface ShardCounts {
   counts: CountMatrix;
-  /** First characters of each document (matrix/document-preview.ts). */
+  /** First characters of each document (tokenize/document-preview.ts). */
   previews: string[];
 }
 

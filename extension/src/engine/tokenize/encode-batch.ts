@@ -1,3 +1,4 @@
+import { documentPreview } from './document-preview';
 import { IdList } from './id-list';
 import type { TermCoder } from './term-coder';
 
@@ -18,6 +19,11 @@ export interface EncodedBatch {
   counts: Uint32Array;
   /** Terms per document, repeats included. */
   tokens: Uint32Array;
+  /**
+   * Each document's preview (document-preview.ts), made here rather than where the corpus is
+   * read: with the pattern tokenizer the reading thread is the one the others wait for.
+   */
+  previews: string[];
   /** Batch-local indices of the documents that had an over-long run cut (long-runs.ts). */
   longRunDocs: number[];
   /** How many runs were cut in the batch. */
@@ -68,9 +74,11 @@ export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => E
       tokens[d] = end - start;
       start = end;
     }
+    const previews = new Array<string>(texts.length);
+    for (let d = 0; d < texts.length; d++) previews[d] = documentPreview(texts[d]!);
     const newTerms = coder.terms.slice(termsSent);
     const firstNewId = termsSent;
     termsSent = coder.terms.length;
-    return { stream: 0, firstNewId, newTerms, rowEnds, cols: cols.slice(), counts: counts.slice(), tokens, longRunDocs, longRuns: coder.longRunsCut - runsBefore };
+    return { stream: 0, firstNewId, newTerms, rowEnds, cols: cols.slice(), counts: counts.slice(), tokens, previews, longRunDocs, longRuns: coder.longRunsCut - runsBefore };
   };
 }
