@@ -108,15 +108,18 @@ describe('matrix/build-count-matrix', () => {
       this.timeout(120000);
       dir = mkdtempSync(join(tmpdir(), 'loudword-tokenize-worker-'));
       script = join(dir, 'tokenize-worker.js');
-      await build({
-        entryPoints: ['extension/src/engine/tokenize/tokenize-worker.ts'],
-        outfile: script,
-        bundle: true,
-        platform: 'node',
-        format: 'cjs',
-        target: 'node20',
-        logLevel: 'warning',
-      });
+      // The threads that write the matrix's rows are looked for beside the tokenising ones.
+      for (const name of ['tokenize-worker', 'assemble-worker']) {
+        await build({
+          entryPoints: [`extension/src/engine/tokenize/${name}.ts`],
+          outfile: join(dir, `${name}.js`),
+          bundle: true,
+          platform: 'node',
+          format: 'cjs',
+          target: 'node20',
+          logLevel: 'warning',
+        });
+      }
     });
     after(() => {
       if (dir !== '') rmSync(dir, { recursive: true, force: true });
@@ -135,6 +138,9 @@ describe('matrix/build-count-matrix', () => {
           onProgress: (d) => progress.push(d),
         });
         assert.equal(progress[progress.length - 1], rows.length);
+        // Written by the assembling threads (shared arrays), and the same as written here.
+        assert.ok(threaded.counts.indices.buffer instanceof SharedArrayBuffer);
+        assert.ok(!(inProcess.counts.indices.buffer instanceof SharedArrayBuffer));
         assert.deepEqual(threaded.counts.terms, inProcess.counts.terms);
         assert.deepEqual(threaded.counts.indptr, inProcess.counts.indptr);
         assert.deepEqual(threaded.counts.indices, inProcess.counts.indices);

@@ -29,8 +29,8 @@ describe('no network access', function () {
     assert.deepEqual(offenders, []);
   });
 
-  it('the webview, tokenizer and what-if thread bundles contain no network API at all', () => {
-    for (const bundle of ['webview.js', 'tokenize-worker.js', 'what-if-thread.js']) {
+  it('the webview, tokenizer, row-writing and what-if thread bundles contain no network API at all', () => {
+    for (const bundle of ['webview.js', 'tokenize-worker.js', 'assemble-worker.js', 'what-if-thread.js']) {
       assert.doesNotMatch(readFileSync(path.join(root, 'dist', bundle), 'utf8'), NETWORK_API, bundle);
     }
   });

@@ -1,10 +1,11 @@
 import { availableParallelism } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import type { CorpusSource } from '../read/corpus-source';
 import { inProcessEncoder, workerEncoder, type BatchEncoder } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
+import { startRowAssembler, type RowAssembler } from '../tokenize/row-assembler';
 import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
 import { CodePointSortedTerms } from './code-point-sorted-terms';
 import type { CountMatrix } from './csr';
@@ -29,6 +30,8 @@ export interface BuildOptions {
   onProgress?(documents: number): void;
   /** The worker bundle; default tokenize-worker.js beside the running bundle (dist/). */
   workerScript?: string;
+  /** The bundle of the threads that write the matrix's rows; default assemble-worker.js beside workerScript. */
+  assembleScript?: string;
   /** Documents per batch handed to a tokeniser. */
   batchSize?: number;
   /** Who tokenises, instead of the default pool (count-each-file.ts passes a fresh one per file). */
@@ -63,6 +66,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
     longRunDocs += batch.longRunDocs.length;
     for (const d of batch.longRunDocs) if (longRunLines.length < LINES_NAMED) longRunLines.push(lines.at(firstRow + d));
   };
+  let assembler: RowAssembler | null = null;
   try {
     for await (const rows of source.batches(options.batchSize ?? DEFAULT_BATCH)) {
       signal?.throwIfAborted();
@@ -83,15 +87,24 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
         signal?.throwIfAborted();
       }
     }
+    // Everything is read and the last batches are being tokenised: the threads that will write
+    // the matrix's rows start now, so that they are ready when the vocabulary is complete.
+    if (encoder.threads > 0) {
+      const script = options.assembleScript ?? join(options.workerScript === undefined ? __dirname : dirname(options.workerScript), 'assemble-worker.js');
+      assembler = startRowAssembler(encoder.threads, script);
+    }
     while (inFlight.length > 0) {
       take(await inFlight.shift()!);
       onProgress?.(counter.rows);
       signal?.throwIfAborted();
     }
+    // The tokenising threads end before the matrix is allocated, and their heaps with them.
+    await encoder.close();
     const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
-    return { counts: await counter.finish(encoder), lines: lines.toArray(), labels, previews, notes };
+    return { counts: await counter.finish(assembler), lines: lines.toArray(), labels, previews, notes };
   } finally {
     await encoder.close();
+    await assembler?.close();
   }
 }
 
@@ -176,11 +189,12 @@ class CountAccumulator {
 
   /**
    * Numbers columns in code point order and writes each row with its column ids ascending
-   * (rows-in-rank-order.ts). With a pool of threads the parts are written there, in parallel,
-   * into arrays on SharedArrayBuffers (at a million documents this step was ~11 s of the main
-   * thread's CPU after the threads had finished); else here, one part after another.
+   * (rows-in-rank-order.ts). With assembling threads the parts are written there, in
+   * parallel, into arrays on SharedArrayBuffers (at a million documents this step was ~11 s of
+   * the main thread's CPU after the tokenising threads had finished); else here, one part after
+   * another.
    */
-  async finish(encoder: Pick<BatchEncoder, 'assemble'> = {}): Promise<CountMatrix> {
+  async finish(assembler: RowAssembler | null = null): Promise<CountMatrix> {
     const cols = this.idOf.size;
     const sortedTerms = this.inOrder.sorted();
     const rank = new Uint32Array(cols);
@@ -206,11 +220,11 @@ class CountAccumulator {
       starts[p] = base;
       for (let d = 0; d < rowEnds.length; d++) indptr[++r] = base + rowEnds[d]!;
     }
-    const shared = encoder.assemble !== undefined && parts.length > 1;
+    const shared = assembler !== null && parts.length > 1;
     const indices = new Uint32Array(shared ? new SharedArrayBuffer(4 * nonzeros) : new ArrayBuffer(4 * nonzeros));
     const data = new Float64Array(shared ? new SharedArrayBuffer(8 * nonzeros) : new ArrayBuffer(8 * nonzeros));
     if (shared) {
-      await encoder.assemble!({ ranks, columns: cols, indices, data, parts, starts });
+      await assembler.assemble({ ranks, columns: cols, indices, data, parts, starts });
     } else {
       const writer = new RowWriter(ranks, cols, indices, data);
       for (let p = 0; p < parts.length; p++) {

@@ -3,13 +3,19 @@ import type { CountedPart } from './rows-in-rank-order';
 
 /** main → tokenize worker: one batch of document texts, numbered so replies can be reordered. */
 export interface TokenizeRequest {
-  type: 'tokenize';
   seq: number;
   texts: string[];
 }
 
+/** tokenize worker → main: the encoded batch, or the error text when tokenising threw. */
+export interface TokenizeReply {
+  seq: number;
+  batch: EncodedBatch | null;
+  error: string | null;
+}
+
 /**
- * main → tokenize worker, once every batch is counted: write these parts into the matrix's
+ * main → assemble worker, once every batch is counted: write these parts into the matrix's
  * shared `indices` and `data` (rows-in-rank-order.ts); part k's first row starts at starts[k].
  */
 export interface AssembleRequest {
@@ -23,9 +29,9 @@ export interface AssembleRequest {
   starts: number[];
 }
 
-/** tokenize worker → main: the encoded batch (null after an assemble request), or the error text when it threw. */
-export interface TokenizeReply {
+/** assemble worker → main: the parts are written, or the error text. */
+export interface AssembleReply {
+  type: 'assembled';
   seq: number;
-  batch: EncodedBatch | null;
   error: string | null;
 }
