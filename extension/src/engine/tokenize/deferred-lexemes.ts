@@ -81,12 +81,12 @@ export class DeferredLexemes {
 
 /** False when the model's word class could not be read: then nothing may be deferred. */
 export function wordClassKnown(): boolean {
-  return WORD_LETTER_KNOWN;
+  return (WORD_LETTER ?? wordLetters()).includes(1);
 }
 
 /** True for a UTF-16 code unit of wink's word class (either case; see WORD_LETTER). */
 export function isWordLetter(c: number): boolean {
-  return WORD_LETTER[c] === 1;
+  return (WORD_LETTER ?? wordLetters())[c] === 1;
 }
 
 /**
@@ -97,7 +97,19 @@ export function isWordLetter(c: number): boolean {
  * table is empty, and with it nothing is deferred, since chunk-cached-unigrams.ts reads the same
  * test).
  */
-const WORD_LETTER: Uint8Array = (() => {
+let WORD_LETTER: Uint8Array | null = null;
+
+/**
+ * WORD_LETTER, read from the model on first use rather than when this module loads: the
+ * pattern tokenizer never defers a word, and loading the model's 2.9 MB JSON in each of its
+ * tokenising threads only delayed their first batch.
+ */
+function wordLetters(): Uint8Array {
+  WORD_LETTER = readWordLetters();
+  return WORD_LETTER;
+}
+
+function readWordLetters(): Uint8Array {
   const table = new Uint8Array(0x10000);
   try {
     const model = require('wink-eng-lite-web-model/dist/languages/cur/models/eng-core-web-model.json') as { trex?: { ltc?: [string, string, number][] } };
@@ -115,8 +127,7 @@ const WORD_LETTER: Uint8Array = (() => {
     table.fill(0);
   }
   return table;
-})();
-const WORD_LETTER_KNOWN = WORD_LETTER.includes(1);
+}
 
 const registry = new WeakMap<WinkMethods, DeferredLexemes>();
 
