@@ -1,4 +1,4 @@
-import { isUtf8 } from 'node:buffer';
+import { isAscii, isUtf8 } from 'node:buffer';
 import type { CorpusEncoding } from './detect-encoding';
 import { firstInvalidUtf8Offset } from './detect-encoding';
 import { completeUtf8Length, utf8Census } from './utf8-boundary';
@@ -63,7 +63,8 @@ export class ChunkDecoder {
     const bodyOffset = this.offset;
     this.offset += whole;
     if (isUtf8(body)) {
-      if (!this.sawMultiByte && hasHighByte(body)) this.sawMultiByte = true;
+      // Node's native check: a byte loop here was ~0.1 s of the main thread per 60 MB read.
+      if (!this.sawMultiByte && !isAscii(body)) this.sawMultiByte = true;
       this.countLines(body);
       return Buffer.from(body.buffer, body.byteOffset, body.byteLength).toString('utf8');
     }
@@ -90,11 +91,6 @@ export class ChunkDecoder {
     this.lineBreaks += countLineBreaks(body, this.lastWasCr);
     if (body.length > 0) this.lastWasCr = body[body.length - 1] === 0x0d;
   }
-}
-
-function hasHighByte(b: Uint8Array): boolean {
-  for (let i = 0; i < b.length; i++) if (b[i]! >= 0x80) return true;
-  return false;
 }
 
 /** LF, and CR not followed by LF (a CR at the very end counts; an LF right after `afterCr` does not). */
