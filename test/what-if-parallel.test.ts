@@ -7,44 +7,15 @@ import { strict as assert } from 'node:assert';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Csr } from '../extension/src/engine/matrix/csr';
 import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
 import { ParallelWhatIf } from '../extension/src/engine/what-if/parallel-what-if';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-
-/** Unit rows over `cols` terms: low columns common (u³), a few exact duplicates, some one-term rows. */
-function rowsLikeText(rows: number, cols: number, random: () => number): Csr {
-  const indptr = new Uint32Array(rows + 1);
-  const indices: number[] = [];
-  const data: number[] = [];
-  let previous: Array<[number, number]> = [];
-  for (let r = 0; r < rows; r++) {
-    let entries: Array<[number, number]> = previous;
-    if (r === 0 || random() >= 0.05) {
-      const chosen = new Map<number, number>();
-      const length = random() < 0.1 ? 1 : 3 + Math.floor(random() * 10);
-      for (let e = 0; e < length; e++) {
-        const u = random();
-        const t = Math.min(cols - 1, Math.floor(cols * u * u * u));
-        chosen.set(t, (chosen.get(t) ?? 0) + 0.5 + random());
-      }
-      entries = [...chosen.entries()].sort((a, b) => a[0] - b[0]);
-    }
-    previous = entries;
-    const norm = Math.hypot(...entries.map((e) => e[1]));
-    for (const [t, w] of entries) {
-      indices.push(t);
-      data.push(w / norm);
-    }
-    indptr[r + 1] = indices.length;
-  }
-  return { rows, cols, indptr, indices: Uint32Array.from(indices), data: Float64Array.from(data) };
-}
+import { textLikeRows } from './support/text-like-rows';
 
 /** Two labs on the same rows (one for each side of the comparison), their baseline and an opening mask. */
 function setUp(seed: number) {
   const random = mulberry32(seed);
-  const X = rowsLikeText(600, 50, random);
+  const X = textLikeRows(600, 50, random);
   const sample = Uint32Array.from({ length: 120 }, (_, i) => i * 5);
   const labels = Int32Array.from(sample, () => Math.floor(random() * 3));
   const k = 5;
