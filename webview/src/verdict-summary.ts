@@ -19,7 +19,7 @@ export function renderVerdictSummary(report: Report): HTMLElement {
       if (i > 0) items.push(', ');
       items.push(el('span', { className: `lw-top__term${t.status === 'suggested' ? ' lw-top__term--suggested' : ''}`, text: t.term }), ` ${formatShare(t.pullShare)}`);
     });
-    children.push(el('p', { className: 'lw-top' }, [el('span', { className: 'lw-top__label', text: 'Loudest terms (share of all-pair similarity): ' }), ...items]));
+    children.push(el('p', { className: 'lw-top' }, [el('span', { className: 'lw-top__label', text: 'Loudest terms, loudest first (each with its share of all-pair similarity): ' }), ...items]));
   }
   return el('div', { className: 'lw-verdict', attrs: { 'data-outcome': report.verdict?.outcome ?? 'none' } }, children);
 }
