@@ -1,5 +1,5 @@
 import type { EncodedBatch } from './encode-batch';
-import type { CountedPart } from './rows-in-rank-order';
+import type { AssembleJob } from './row-assembler';
 
 /** main → tokenize worker: one batch of document texts, numbered so replies can be reordered. */
 export interface TokenizeRequest {
@@ -18,15 +18,9 @@ export interface TokenizeReply {
  * main → assemble worker, once every batch is counted: write these parts into the matrix's
  * shared `indices` and `data` (rows-in-rank-order.ts); part k's first row starts at starts[k].
  */
-export interface AssembleRequest {
+export interface AssembleRequest extends AssembleJob {
   type: 'assemble';
   seq: number;
-  ranks: Uint32Array[];
-  columns: number;
-  indices: Uint32Array;
-  data: Float64Array;
-  parts: CountedPart[];
-  starts: number[];
 }
 
 /** assemble worker → main: the parts are written, or the error text. */
