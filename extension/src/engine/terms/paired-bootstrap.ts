@@ -30,28 +30,12 @@ export function pairedBootstrap(
   const change = stat(b) - stat(a);
   const random = mulberry32(seed);
   const changes = new Float64Array(draws);
-  if (statistic === 'median') {
-    // A resample's median is an order statistic of the original values: count how often each
-    // value is drawn (by its rank) and walk the counts, O(n) a draw instead of a sort. The same
-    // draws and the same arithmetic as sorting each resample, so the same interval to the bit.
-    const medianA = new ResampleMedian(a);
-    const medianB = new ResampleMedian(b);
-    const picks = new Uint32Array(n);
-    for (let d = 0; d < draws; d++) {
-      for (let i = 0; i < n; i++) picks[i] = randomBelow(random, n);
-      changes[d] = medianB.of(picks) - medianA.of(picks);
-    }
-  } else {
-    const ra = new Array<number>(n);
-    const rb = new Array<number>(n);
-    for (let d = 0; d < draws; d++) {
-      for (let i = 0; i < n; i++) {
-        const j = randomBelow(random, n);
-        ra[i] = a[j]!;
-        rb[i] = b[j]!;
-      }
-      changes[d] = stat(rb) - stat(ra);
-    }
+  const ofA = resampled(a, statistic);
+  const ofB = resampled(b, statistic);
+  const picks = new Uint32Array(n);
+  for (let d = 0; d < draws; d++) {
+    for (let i = 0; i < n; i++) picks[i] = randomBelow(random, n);
+    changes[d] = ofB(picks) - ofA(picks);
   }
   changes.sort();
   const tail = (1 - level) / 2;
@@ -69,6 +53,24 @@ function medianOf(x: number[]): number {
   const s = [...x].sort((p, q) => p - q);
   const h = s.length >> 1;
   return s.length % 2 === 1 ? s[h]! : (s[h - 1]! + s[h]!) / 2;
+}
+
+/**
+ * The statistic of a resample of `values` given as the indices drawn. The mean adds in draw
+ * order, as a copied resample would. The median is an order statistic of the original values:
+ * count how often each is drawn (by its rank) and walk the counts, O(n) a draw instead of a sort,
+ * with the same arithmetic as sorting the resample, so the same interval to the bit.
+ */
+function resampled(values: readonly number[], statistic: Statistic): (picks: Uint32Array) => number {
+  if (statistic === 'median') {
+    const median = new ResampleMedian(values);
+    return (picks) => median.of(picks);
+  }
+  return (picks) => {
+    let s = 0;
+    for (let i = 0; i < picks.length; i++) s += values[picks[i]!]!;
+    return s / picks.length;
+  };
 }
 
 /** Medians of resamples of fixed values, each resample given as the indices drawn. */

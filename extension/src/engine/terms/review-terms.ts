@@ -10,7 +10,7 @@ import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS, opinionShare } from './opinion-ch
 import { priorColumns, protectedColumns } from './prior-columns';
 import { stopListSpellings } from './stop-list-spelling';
 import type { TermCountStats } from './term-count-stats';
-import { termScores, type TermScores } from './term-scores';
+import { pullShares, termScores, type TermScores } from './term-scores';
 
 export interface TermReviewInput {
   lab: DistanceLab;
@@ -76,7 +76,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
     protect,
     opinion: opinionText,
     usePrior: settings.suggest.functionWordPrior,
-    pullShare: shares(fullPairMass),
+    pullShare: pullShares(fullPairMass),
   });
 
   // Heaviest first, so that `suggest.max` keeps the terms that pull the most.
@@ -130,15 +130,6 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, lightGrammar });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
-}
-
-/** Each term's pair mass as a share of the total. */
-function shares(mass: Float64Array): Float64Array {
-  let total = 0;
-  for (let t = 0; t < mass.length; t++) total += mass[t]!;
-  const out = new Float64Array(mass.length);
-  if (total > 0) for (let t = 0; t < mass.length; t++) out[t] = mass[t]! / total;
-  return out;
 }
 
 /** `max` texts at evenly spaced positions (positions ⌊i·n/max⌋; engine/shards/ fetches the same ones). */

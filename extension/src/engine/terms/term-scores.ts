@@ -12,20 +12,24 @@ export interface TermScores {
   loudness: Float64Array;
 }
 
+/** Each term's pair mass as a share of the total: the pull share (0 everywhere when there is no mass). */
+export function pullShares(pairMass: Float64Array): Float64Array {
+  let pairTotal = 0;
+  for (let t = 0; t < pairMass.length; t++) pairTotal += pairMass[t]!;
+  const out = new Float64Array(pairMass.length);
+  if (pairTotal > 0) for (let t = 0; t < pairMass.length; t++) out[t] = pairMass[t]! / pairTotal;
+  return out;
+}
+
 export function termScores(pairMass: Float64Array, knnMass: Float64Array): TermScores {
   const terms = pairMass.length;
-  let pairTotal = 0;
   let knnTotal = 0;
-  for (let t = 0; t < terms; t++) {
-    pairTotal += pairMass[t]!;
-    knnTotal += knnMass[t]!;
-  }
-  const pullShare = new Float64Array(terms);
+  for (let t = 0; t < terms; t++) knnTotal += knnMass[t]!;
+  const pullShare = pullShares(pairMass);
   const neighborLift = new Float64Array(terms);
   const loudness = new Float64Array(terms);
   for (let t = 0; t < terms; t++) {
-    const share = pairTotal > 0 ? pairMass[t]! / pairTotal : 0;
-    pullShare[t] = share;
+    const share = pullShare[t]!;
     if (share > 0 && knnTotal > 0) {
       const lift = knnMass[t]! / knnTotal / share;
       neighborLift[t] = lift;
