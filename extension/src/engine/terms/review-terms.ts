@@ -1,6 +1,7 @@
 import type { EffectiveSettings, TermRow, Verdict } from '../../protocol';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread } from '../measures/term-sums';
+import { startMaskedTermSums } from '../measures/start-masked-term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, type Decision } from './choose-suggestions';
@@ -55,6 +56,10 @@ const REPORT_ROWS = 2000;
 export function reviewTerms(input: TermReviewInput): TermReview {
   const { lab, baseMask, baseline, documents, idf, index, tokenize, settings, counts } = input;
   const cols = lab.weights.cols;
+  // The baseline's sums with the spread are one more pass over every non-zero, needed only for
+  // the table at the end: begun now on a second thread where the matrix is shared (the rest of
+  // this stage runs on one), unless the lab answers sums its own way (a review in shards).
+  const baseSpreadSums = lab.sums === DistanceLab.prototype.sums ? startMaskedTermSums(lab.weights, baseMask, true) : null;
   const prior = priorColumns(index, tokenize, settings.tokens.ngrams === 2);
   const protect = protectedColumns(index, tokenize, settings.suggest.protect);
   // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
@@ -87,7 +92,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const suggested = lab.measure(suggestedMask, baseline.neighbors);
 
   // Scores for the table: kept terms on the baseline weights; stopped terms as if un-stopped.
-  const baseSums = lab.sums(baseMask, true).sums;
+  const baseSums = (baseSpreadSums !== null ? baseSpreadSums.take() : lab.sums(baseMask, true)).sums;
   const baseScores = termScores(basePairMass, knnTermMass(lab.maskedSample(baseMask), lab.positions, suggested.neighbors, lab.k));
   const baseSpread = termSpread(baseSums, documents);
   let fullScores: TermScores | null = null;
