@@ -1,6 +1,7 @@
 import type { EffectiveSettings, TermRow, Verdict } from '../../protocol';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread } from '../measures/term-sums';
+import { selectRank } from '../measures/select-rank';
 import { startMaskedTermSums } from '../measures/start-masked-term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
@@ -156,11 +157,36 @@ function chooseRows(
   for (let c = 0; c < cols; c++) if (baseMask[c] === 1 || suggested.has(c) || protect.has(c) || decisions.has(c)) chosen.add(c);
   const rest: number[] = [];
   for (let c = 0; c < cols; c++) if (!chosen.has(c) && scores.pullShare[c]! > 0) rest.push(c);
-  const byLoudness = [...rest].sort((a, b) => scores.loudness[b]! - scores.loudness[a]!);
-  const byPull = [...rest].sort((a, b) => scores.pullShare[b]! - scores.pullShare[a]!);
+  // The loop below reads the two orders only as far as it needs, which is seldom past twice
+  // the table's rows: their heads are taken by selection, the whole orders only if it goes on.
+  let head = Math.min(rest.length, 2 * REPORT_ROWS);
+  let byLoudness = largestFirst(rest, scores.loudness, head);
+  let byPull = largestFirst(rest, scores.pullShare, head);
   for (let i = 0; chosen.size < REPORT_ROWS && i < rest.length; i++) {
+    if (i >= byLoudness.length || i >= byPull.length) {
+      head = rest.length;
+      byLoudness = largestFirst(rest, scores.loudness, head);
+      byPull = largestFirst(rest, scores.pullShare, head);
+    }
     chosen.add(byLoudness[i]!);
     if (chosen.size < REPORT_ROWS) chosen.add(byPull[i]!);
   }
   return [...chosen];
+}
+
+/**
+ * A head of at least `count` items (all of them when count ≥ their number) of the order that a
+ * stable sort of `items` by `value` descending gives, ties in the items' order: the count-th
+ * largest value by selection, then a stable sort of the items at or above it, which are exactly
+ * the head of the full order (ties at that value included), so the head is the same to the item.
+ */
+function largestFirst(items: readonly number[], value: Float64Array, count: number): number[] {
+  const byValue = (a: number, b: number): number => value[b]! - value[a]!;
+  const n = items.length;
+  if (count >= n) return [...items].sort(byValue);
+  const values = Float64Array.from(items, (c) => value[c]!);
+  const threshold = selectRank(values, 0, n - 1, n - count);
+  // A NaN would make the selection meaningless: sort everything, as before.
+  if (Number.isNaN(threshold) || values.some(Number.isNaN)) return [...items].sort(byValue);
+  return items.filter((c) => value[c]! >= threshold).sort(byValue);
 }
