@@ -186,6 +186,36 @@ describe('incremental what-if', () => {
     }
   });
 
+  it('settle() between clicks (idle time) gives the answers a click that does the due reset itself gives, bit for bit', () => {
+    for (let seed = 1; seed <= 2; seed++) {
+      const random = generator(3000 + seed);
+      const X = textLikeRows(300, 30, random);
+      const sample = Uint32Array.from({ length: 100 }, (_, i) => i * 3);
+      const idle = new DistanceLab(X, sample, 5, seed, null);
+      const busy = new DistanceLab(X, sample, 5, seed, null);
+      const mask = new Uint8Array(X.cols);
+      const baseline = idle.measure(mask, null);
+      busy.measure(mask, null);
+      const idleSums = new IncrementalTermSums(X);
+      const busySums = new IncrementalTermSums(X);
+      idleSums.at(mask, false);
+      busySums.at(mask, false);
+      let settled = 0;
+      let summed = 0;
+      for (const t of singleToggles(X.cols, 200, random)) {
+        mask[t] = mask[t] === 0 ? 1 : 0;
+        assert.deepStrictEqual(idle.whatIf(mask, baseline.neighbors), busy.whatIf(mask, baseline.neighbors), `term ${t}`);
+        assert.deepStrictEqual(idleSums.at(mask), busySums.at(mask), `sums, term ${t}`);
+        idle.settle();
+        if (idleSums.settle()) summed++;
+        // The lab's settle did a reset whenever the state it leaves is a full pass's.
+        if ((idle as unknown as { gram: IncrementalGram }).gram.lastStep.kind === 'full') settled++;
+      }
+      // Otherwise the idle resets never happened and the check proves nothing.
+      assert.ok(settled > 2 && summed > 2, `${settled} rebuilds and ${summed} full passes in idle time`);
+    }
+  });
+
   it('DistanceLab.whatIf (a panel toggle) equals the full measures along single toggles, repeats, a term in every row and one in no sampled row', () => {
     for (let seed = 1; seed <= 3; seed++) {
       const random = generator(2000 + seed);

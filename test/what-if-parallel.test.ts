@@ -58,6 +58,24 @@ describe('what-if on two threads', function () {
     }
   });
 
+  it('a warm-up (toggles there and back before the first click) leaves every later answer bit for bit the same', async () => {
+    const { lab, reference, baseline, opening, clicks } = setUp(15);
+    const parallel = ParallelWhatIf.open(lab, baseline.neighbors, opening);
+    assert.ok(parallel !== null);
+    try {
+      await parallel.warmUp(opening);
+      // The warm-up ran on both halves (two rounds of a toggle and its undo).
+      assert.equal(parallel.threadAnswers, 4);
+      const mask = opening.slice();
+      for (const t of clicks) {
+        mask[t] = mask[t] === 0 ? 1 : 0;
+        assert.deepStrictEqual(await parallel.whatIf(mask.slice()), reference.whatIf(mask, baseline.neighbors), `term ${t}`);
+      }
+    } finally {
+      await parallel.close();
+    }
+  });
+
   it('clicks sent before the previous answer came back are answered in order, each for its own mask', async () => {
     const { lab, reference, baseline, opening, clicks } = setUp(13);
     const parallel = ParallelWhatIf.open(lab, baseline.neighbors, opening);

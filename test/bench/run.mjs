@@ -220,7 +220,10 @@ function printSize(label, corpus, lw, sk, whatIf, pattern) {
   else if (sk) console.log(`scikit-learn ${sk.sklearn}: CSV read ${seconds(sk.readSeconds)}, whole process ${seconds(sk.wall)}; peak RSS by getrusage ru_maxrss, single-threaded.`);
   if (whatIf?.error) console.log(`what-if: not measured — ${whatIf.error}`);
   else if (whatIf) {
-    console.log(`what-if: ${whatIf.toggles} toggles after a ${seconds(whatIf.reviewMs / 1000)} engine review, the sample's half on its own thread; toggle on median ${ms(whatIf.medianMs)}, back off median ${ms(whatIf.medianBackMs)}, first ${ms(whatIf.firstMs)} (it waits for the thread's opening build, which the editor does while the Report is read).`);
+    const pause = whatIf.pauseMs == null ? '' : `, a click every ${whatIf.pauseMs} ms after the previous answer`;
+    console.log(`what-if: ${whatIf.toggles} toggles after a ${seconds(whatIf.reviewMs / 1000)} engine review, the sample's half on its own thread${pause}; toggle on median ${ms(whatIf.medianMs)}, back off median ${ms(whatIf.medianBackMs)}, first ${ms(whatIf.firstMs)} (after the idle preparation the editor does while the Report is read: the thread's opening build and ${whatIf.warmUp ? 'the warm-up toggles' : 'no warm-up'}).`);
+    if (whatIf.cold?.error) console.log(`what-if cold (no warm-up): not measured — ${whatIf.cold.error}`);
+    else if (whatIf.cold) console.log(`what-if cold (no warm-up, a process of its own: the first clicks run unoptimised code): ${whatIf.cold.onMs.map((x) => ms(x)).join(', ')}.`);
     if (whatIf.oneThread) console.log(`what-if in one thread (the same clicks after the thread is closed): toggle on median ${ms(whatIf.oneThread.medianMs)}, back off median ${ms(whatIf.oneThread.medianBackMs)}. Two threads help only when a core is free: compare at the load printed above.`);
   }
 }

@@ -1,9 +1,13 @@
 // What the panel's toggle costs: one full review through the engine API, then several
 // what-if calls that each stop or restore one term, timed one by one: first as the editor runs
 // them (the sample's half on a thread of its own), then the same clicks in one thread. Prints
-// one JSON object.
+// one JSON object. As in the editor, the clicks start after the idle preparation, warm-up
+// toggles included; the cold figures (no warm-up: the first clicks run unoptimised code) come
+// from a second process with --cold, run first and printed as `cold`.
 //
 // usage: node --import tsx test/bench/what-if-latency.ts FILE.csv [--text text] [--label topic] [--toggles 9]
+//                                                         [--cold | --no-cold] [--pause 300]
+import { spawnSync } from 'node:child_process';
 import { performance } from 'node:perf_hooks';
 import { resolve } from 'node:path';
 import type { ReviewInput, ReviewHooks, ReviewSession } from '../../extension/src/engine/review/review-api';
@@ -28,6 +32,13 @@ async function main(): Promise<void> {
   const text = option(args, '--text', 'text');
   const label = option(args, '--label', 'topic');
   const toggles = Number(option(args, '--toggles', '9'));
+  const cold = args.includes('--cold');
+  // A reader looks at the strip before the next click: the engine's idle-time work (rounding
+  // resets that have come due) runs then, as in the editor. 0 clicks back to back.
+  const pause = Number(option(args, '--pause', '300'));
+  const idle = () => new Promise<void>((done) => setTimeout(done, pause));
+  // The cold run first, in a process of its own, before this one loads the machine.
+  const coldRun = cold || args.includes('--no-cold') ? null : coldFigures(file, text, label, pause);
 
   // Loaded by path at run time so this script still parses while the engine is being written.
   const modulePath = resolve(__dirname, '../../extension/src/engine/review/start-review.ts');
@@ -60,6 +71,7 @@ async function main(): Promise<void> {
     for (let i = 0; i < toggles; i++) {
       const term = candidates[i % candidates.length] as string;
       const next = flip(selection, term);
+      await idle();
       let t = performance.now();
       const cpu = process.cpuUsage();
       await session.whatIf(next);
@@ -68,6 +80,7 @@ async function main(): Promise<void> {
       if (i % 2 === 0) {
         selection = next;
       } else {
+        await idle();
         t = performance.now();
         await session.whatIf(selection);
         off.push(performance.now() - t);
@@ -78,9 +91,9 @@ async function main(): Promise<void> {
     return { on, off, onCpu };
   }
   // As the editor's review worker does: the idle-time preparation after the Report (the column
-  // postings, and the sample's what-if thread with its opening build), then the clicks. Once
+  // postings, the sample's what-if thread with its opening build, the warm-up), then the clicks. Once
   // the thread is closed the session answers in this thread alone: the same clicks again.
-  session.prepareWhatIf?.();
+  await session.prepareWhatIf?.({ warmUp: !cold });
   const two = await clicks();
   await session.close?.();
   const one = await clicks();
@@ -89,6 +102,7 @@ async function main(): Promise<void> {
       documents: session.report.input.documents,
       reviewMs,
       toggles,
+      pauseMs: pause,
       medianMs: median(two.on),
       medianBackMs: median(two.off),
       medianCpuMs: median(two.onCpu),
@@ -96,8 +110,25 @@ async function main(): Promise<void> {
       onMs: two.on,
       offMs: two.off,
       oneThread: { medianMs: median(one.on), medianBackMs: median(one.off), medianCpuMs: median(one.onCpu), onMs: one.on },
+      warmUp: !cold,
+      ...(coldRun === null ? {} : { cold: coldRun }),
     }),
   );
+}
+
+/** The first clicks without the warm-up, from this script with `--cold` in a child process. */
+function coldFigures(file: string, text: string, label: string, pause: number): { firstMs: number; onMs: number[] } | { error: string } {
+  const run = spawnSync(process.execPath, [...process.execArgv, __filename, file, '--text', text, '--label', label, '--toggles', '4', '--pause', String(pause), '--cold'], {
+    encoding: 'utf8',
+    maxBuffer: 16 * 1024 * 1024,
+  });
+  const line = run.stdout.trim().split('\n').pop() ?? '';
+  try {
+    const parsed = JSON.parse(line) as { firstMs: number; onMs: number[] };
+    return { firstMs: parsed.firstMs, onMs: parsed.onMs };
+  } catch {
+    return { error: `cold run failed (exit ${run.status}): ${run.stderr.trim().split('\n').pop() ?? ''}` };
+  }
 }
 
 main().catch((error: unknown) => {

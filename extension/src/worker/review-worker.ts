@@ -40,9 +40,11 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
     if (session !== null) void session.close?.();
     session = next;
     post({ type: 'report', runId, report: next.report });
-    // While the reader looks at the Report, build what the first toggle would otherwise pay for.
+    // While the reader looks at the Report, build what the first toggle would otherwise pay for
+    // and warm the toggle's code up. A failure here shows again on the first toggle, which
+    // then answers in this thread.
     setImmediate(() => {
-      if (session === next && 'prepareWhatIf' in next) next.prepareWhatIf?.();
+      if (session === next && 'prepareWhatIf' in next) next.prepareWhatIf?.().catch(() => undefined);
     });
   } catch (e) {
     post({ ...errorMessage(e, controller), runId });

@@ -50,10 +50,12 @@ export interface ReviewSession {
    */
   whatIf(removed: readonly string[]): Promise<Measures>;
   /**
-   * Builds what the first toggle would otherwise pay for (the column postings) and starts the
-   * sample's what-if thread at the panel's opening state (optional; idle time).
+   * Builds what the first toggle would otherwise pay for (the column postings), starts the
+   * sample's what-if thread at the panel's opening state and, unless `warmUp` is false, runs a
+   * few toggles there and back so the reader's first click runs optimised code (optional; idle
+   * time). Resolves when all of it is done; the answers that follow are the same either way.
    */
-  prepareWhatIf?(): void;
+  prepareWhatIf?(options?: { warmUp?: boolean }): Promise<void>;
   /** Ends the what-if thread, if one was started. */
   close?(): Promise<void>;
 }

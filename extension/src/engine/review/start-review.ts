@@ -113,12 +113,18 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     report,
     async whatIf(removed: readonly string[]) {
       const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
-      return parallel !== null ? parallel.whatIf(mask) : lab.whatIf(mask, baseline.neighbors);
+      const measures = await (parallel !== null ? parallel.whatIf(mask) : lab.whatIf(mask, baseline.neighbors));
+      // After the caller has sent the answer on: the drift resets that have come due.
+      setImmediate(() => lab.settle());
+      return measures;
     },
-    prepareWhatIf() {
+    async prepareWhatIf(options) {
+      if (parallel !== null) return;
       lab.prepareToggles();
       // The panel opens with the suggestions ticked: the thread builds that state while idle.
-      parallel ??= ParallelWhatIf.open(lab, baseline.neighbors, DistanceLab.union(baseMask, index.columnsOf(report.suggestions)));
+      const opening = DistanceLab.union(baseMask, index.columnsOf(report.suggestions));
+      parallel = ParallelWhatIf.open(lab, baseline.neighbors, opening);
+      if (parallel !== null) await (options?.warmUp === false ? parallel.opened : parallel.warmUp(opening));
     },
     async close() {
       await parallel?.close();

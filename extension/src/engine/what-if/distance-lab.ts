@@ -125,6 +125,16 @@ export class DistanceLab {
     });
   }
 
+  /**
+   * Idle time after a what-if answer: the drift resets (a full pass of the exact sums, a rebuild
+   * of the sample's dot products) that have come due, so no click pays for them. The next call
+   * would do them first anyway, so the answers are the same whether this runs or not.
+   */
+  settle(): void {
+    this.exact.settle();
+    this.gram.settle();
+  }
+
   /** Builds the column postings toggles walk, so the first toggle does not pay for them. */
   prepareToggles(): void {
     this.exact.prepare();

@@ -13,7 +13,10 @@ import { sameMask } from './incremental-term-sums';
  * count of shared kept terms is kept beside D (Uint16 when no sampled row has 65,536 terms,
  * else Uint32); when it reaches 0, D_ij is set to exact 0, so pairs left with nothing in common
  * stay exactly orthogonal as in a full recompute (kNN ties at 0 depend on it). Other entries
- * drift by ~1e-16 relative per update; after `REBUILD_AFTER`·m² pair updates D is rebuilt.
+ * drift by ~1e-16 relative per update; once `SETTLE_AFTER`·m² pair updates have piled up, D is
+ * rebuilt at the current mask by `settle()`, which the what-if calls in idle time after its
+ * answer has gone (a rebuild costs several clicks' worth of updates). A call that finds the
+ * rebuild still due does it first, so the answers never depend on whether idle time came.
  * Full builds (the Report's figures) are kept and restored exactly when asked for again.
  */
 export class IncrementalGram {
@@ -33,6 +36,8 @@ export class IncrementalGram {
   private readonly checkpoints: Array<{ mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array }> = [];
   /** Whether D is what a full build gives (not reached by updates). */
   private exact = false;
+  /** A rebuild at the current mask is due (see settle). */
+  private settleDue = false;
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; pairs: number } = { kind: 'unchanged', pairs: 0 };
 
   constructor(readonly rows: Csr) {
@@ -87,9 +92,21 @@ export class IncrementalGram {
     return { dots, scale: inv };
   }
 
+  /**
+   * Rebuilds D at the current mask if enough updates have piled up (idle time, after an
+   * answer); returns whether it did. Only the rounding changes: to a full build's.
+   */
+  settle(): boolean {
+    if (!this.settleDue) return false;
+    this.build(this.mask);
+    return true;
+  }
+
   private advance(removed: Uint8Array, incremental: boolean): void {
     if (removed.length < this.mask.length) throw new RangeError(`removed has ${removed.length} entries for ${this.mask.length} columns`);
     const checkpoint = this.ready ? this.checkpoints.find((c) => sameMask(removed, c.mask)) : undefined;
+    // What idle time would have done, unless this call replaces the whole state anyway.
+    if (checkpoint === undefined && incremental) this.settle();
     if (this.ready && sameMask(removed, this.mask) && (incremental || this.exact)) {
       this.lastStep = { kind: 'unchanged', pairs: 0 };
     } else if (checkpoint !== undefined) {
@@ -97,6 +114,7 @@ export class IncrementalGram {
       this.shared.set(checkpoint.shared);
       this.mask.set(checkpoint.mask);
       this.updatedPairs = 0;
+      this.settleDue = false;
       this.exact = true;
       this.lastStep = { kind: 'restored', pairs: 0 };
     } else if (!this.ready || !incremental) {
@@ -164,6 +182,7 @@ export class IncrementalGram {
     this.ready = true;
     this.exact = true;
     this.updatedPairs = 0;
+    this.settleDue = false;
     this.lastStep = { kind: 'full', pairs: this.fullCost };
   }
 
@@ -205,11 +224,14 @@ export class IncrementalGram {
     }
     this.mask.set(removed.subarray(0, this.mask.length));
     this.updatedPairs += cost;
+    this.settleDue = this.updatedPairs > SETTLE_AFTER * m * m;
     this.exact = false;
     this.lastStep = { kind: 'incremental', pairs: cost };
   }
 
 }
 
-/** Incremental pair updates allowed, in multiples of m², before D is rebuilt to reset drift. */
+/** Incremental pair updates, in multiples of m², after which settle() rebuilds D to reset drift. */
+const SETTLE_AFTER = 6;
+/** The same bound inside a call (a rebuild on a click's path): only reached by one big update. */
 const REBUILD_AFTER = 8;

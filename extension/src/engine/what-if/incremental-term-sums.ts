@@ -11,7 +11,9 @@ import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
  *
  * Rounding: a row's norm is never updated by subtraction, so it is exact; the sums S1 and S2
  * are, and drift by ~1e-16 relative per update. A term whose df drops to 0 is reset to exact 0,
- * and after updates touching `REBUILD_AFTER`×nnz entries the sums are recomputed from scratch.
+ * and once updates have touched `SETTLE_AFTER`×nnz entries `settle()` recomputes the sums from
+ * scratch at the current mask, in idle time after an answer; a call that finds that still due
+ * does it first, so the answers never depend on whether idle time came (as IncrementalGram).
  *
  * The arrays returned by `at` are the live state: valid until the next call, never to be kept.
  */
@@ -38,6 +40,8 @@ export class IncrementalTermSums {
   private readonly checkpoints: Array<{ mask: Uint8Array; s1: Float64Array; s2: Float64Array; df: Uint32Array; rowNorm2: Float64Array; rowsWithWeight: number }> = [];
   /** Whether the state is what a full pass gives (not reached by updates). */
   private exact = false;
+  /** A full pass at the current mask is due (see settle). */
+  private settleDue = false;
   /** Statistics of the last call, for the benchmark and the tests. */
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; entries: number } = { kind: 'unchanged', entries: 0 };
 
@@ -63,6 +67,8 @@ export class IncrementalTermSums {
     if (removed.length < X.cols) throw new RangeError(`removed has ${removed.length} entries for ${X.cols} columns`);
     const nnz = X.indptr[X.rows]!;
     const checkpoint = this.ready ? this.checkpoints.find((c) => sameMask(removed, c.mask)) : undefined;
+    // What idle time would have done, unless this call replaces the whole state anyway.
+    if (checkpoint === undefined && incremental) this.settle();
     if (this.ready && sameMask(removed, this.mask) && (incremental || this.exact)) {
       this.lastStep = { kind: 'unchanged', entries: 0 };
     } else if (checkpoint !== undefined) {
@@ -73,6 +79,7 @@ export class IncrementalTermSums {
       this.rowsWithWeight = checkpoint.rowsWithWeight;
       this.mask.set(checkpoint.mask);
       this.updatedEntries = 0;
+      this.settleDue = false;
       this.exact = true;
       this.lastStep = { kind: 'restored', entries: 0 };
     } else if (!this.ready || !incremental) {
@@ -107,6 +114,16 @@ export class IncrementalTermSums {
     return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
   }
 
+  /**
+   * Recomputes the sums at the current mask if enough updates have piled up (idle time, after
+   * an answer); returns whether it did. Only the rounding changes: to a full pass's.
+   */
+  settle(): boolean {
+    if (!this.settleDue) return false;
+    this.full(this.mask);
+    return true;
+  }
+
   private full(removed: Uint8Array): void {
     const { indptr, indices, data, rows } = this.weights;
     this.s1.fill(0);
@@ -128,6 +145,7 @@ export class IncrementalTermSums {
     this.ready = true;
     this.exact = true;
     this.updatedEntries = 0;
+    this.settleDue = false;
     this.lastStep = { kind: 'full', entries: indptr[rows]! };
   }
 
@@ -170,6 +188,7 @@ export class IncrementalTermSums {
     }
     mask.set(removed.subarray(0, mask.length));
     this.updatedEntries += entries;
+    this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
     this.exact = false;
     this.lastStep = { kind: 'incremental', entries };
   }
@@ -243,6 +262,7 @@ export class IncrementalTermSums {
     delta.fill(0);
     mask[t] = stopping ? 1 : 0;
     this.updatedEntries += entries;
+    this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
     this.exact = false;
     this.lastStep = { kind: 'incremental', entries };
   }
@@ -309,7 +329,9 @@ export class IncrementalTermSums {
   }
 }
 
-/** Incremental updates may visit this many times nnz entries before one full pass resets drift. */
+/** Incremental updates visiting this many times nnz entries make settle() reset drift by a full pass. */
+const SETTLE_AFTER = 12;
+/** The same bound inside a call (a full pass on a click's path): only reached by one big update. */
 const REBUILD_AFTER = 16;
 
 /** Position of column t in a row's ascending columns indices[start..end) (t must be there). */

@@ -34,4 +34,9 @@ export class SampleSide {
     const { k, seed, labels, baselineNeighbors } = this.input;
     return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale }).measures;
   }
+
+  /** The dot products' drift reset, if due (IncrementalGram.settle): for the time between requests. */
+  settle(): void {
+    this.gram.settle();
+  }
 }

@@ -1,6 +1,7 @@
 // worker_threads entry (bundled to dist/what-if-thread.js): the sample's half of the panel's
 // what-if (SampleSide), so that it runs beside the exact sums on the review's thread
-// (ParallelWhatIf). Requests are answered one at a time, in the order they were sent.
+// (ParallelWhatIf). Requests are answered one at a time, in the order they were sent; between
+// them the thread resets the dot products' rounding drift when due (SampleSide.settle).
 import { parentPort, workerData } from 'node:worker_threads';
 import { SampleSide } from './sample-side';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
@@ -17,4 +18,11 @@ port.on('message', (request: SampleRequest) => {
     reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
   port.postMessage(reply);
+  // The answer is on its way: a rebuild that has come due is done now rather than on the
+  // next request's path (a request arriving meanwhile waits for it, as it would have there).
+  try {
+    side.settle();
+  } catch {
+    // The next request does it (and reports what goes wrong).
+  }
 });
