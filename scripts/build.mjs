@@ -23,6 +23,7 @@ const entries = [
   { entry: 'extension/src/engine/shards/shard-thread.ts', out: 'dist/shard-thread.js', platform: 'node' },
   { entry: 'extension/src/engine/what-if/sample-thread.ts', out: 'dist/what-if-thread.js', platform: 'node' },
   { entry: 'extension/src/engine/measures/masked-term-sums-thread.ts', out: 'dist/masked-term-sums-thread.js', platform: 'node' },
+  { entry: 'extension/src/engine/terms/opinion-thread.ts', out: 'dist/opinion-thread.js', platform: 'node' },
   { entry: 'extension/src/cli/main.ts', out: 'dist/cli.js', platform: 'node' },
   // Browser side: the panel; the same bundle renders the standalone HTML report.
   { entry: 'webview/src/main.ts', out: 'dist/webview.js', platform: 'browser', format: 'iife' },

@@ -12,7 +12,7 @@ import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights, startTokenizing } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
-import { reviewTerms } from '../terms/review-terms';
+import { reviewTerms, startOpinionCheck } from '../terms/review-terms';
 import { assembleReport } from './assemble-report';
 import { TermIndex } from '../what-if/term-index';
 import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
@@ -70,6 +70,9 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   }
   const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal, size, started);
   const { weights } = prepared;
+  // The opinion check reads only the previews: on a corpus large enough for tokenising threads
+  // it runs on a thread of its own while this one measures the baseline.
+  const opinion = startOpinionCheck(prepared.previews, started !== null);
   const index = new TermIndex(prepared.terms);
   const baseMask = index.mask(stopList.terms);
 
@@ -91,6 +94,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     settings,
     counts: prepared.counts,
     previews: prepared.previews,
+    opinion,
   });
 
   stage('writing report');

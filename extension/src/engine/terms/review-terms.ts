@@ -8,7 +8,8 @@ import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, type Decision } from './choose-suggestions';
 import { explainTerm } from './explain-term';
 import { judgeSuggestions } from './judge-suggestions';
-import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS, opinionShare } from './opinion-check';
+import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
+import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
 import { priorColumns, protectedColumns } from './prior-columns';
 import { stopListSpellings } from './stop-list-spelling';
 import type { TermCountStats } from './term-count-stats';
@@ -27,6 +28,8 @@ export interface TermReviewInput {
   counts: TermCountStats;
   /** The opening text of every document, for the opinion check. */
   previews: readonly string[];
+  /** The opinion check begun earlier (startOpinionCheck), so that it overlaps other work; else run here. */
+  opinion?: PendingOpinionShare;
 }
 
 export interface TermReview {
@@ -64,7 +67,7 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const prior = priorColumns(index, tokenize, settings.tokens.ngrams === 2);
   const protect = protectedColumns(index, tokenize, settings.suggest.protect);
   // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
-  const share = opinionShare(evenlySpaced(input.previews, OPINION_SAMPLE));
+  const share = (input.opinion ?? startOpinionCheck(input.previews, false)).take();
   const meanLength = counts.documents > 0 ? counts.totalTokens / counts.documents : 0;
   const opinionText = share >= OPINION_SHARE && meanLength <= SHORT_DOCUMENT_TOKENS;
   const basePairMass = baseline.pairMass.perTerm;
@@ -136,6 +139,16 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, lightGrammar });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
+}
+
+/**
+ * The opinion check's share (opinion-check.ts) of OPINION_SAMPLE evenly spaced previews, begun
+ * now: `onThread`, on a thread of its own (start-opinion-share.ts), which pays off when the caller
+ * has a few hundred milliseconds of other work before reviewTerms reads it (a large corpus).
+ */
+export function startOpinionCheck(previews: readonly string[], onThread: boolean): PendingOpinionShare {
+  const texts = evenlySpaced(previews, OPINION_SAMPLE);
+  return onThread ? startOpinionShare(texts) : startOpinionShare(texts, null);
 }
 
 /** `max` texts at evenly spaced positions (positions ⌊i·n/max⌋; engine/shards/ fetches the same ones). */
