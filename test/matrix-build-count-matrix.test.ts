@@ -9,6 +9,7 @@ import type { CorpusRow } from '../extension/src/engine/read/corpus-source';
 import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
 import { arrayCorpusSource } from './reference/array-corpus-source';
 import { readFortunes } from './reference/read-fortunes';
+import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
 
 const tokens: TokenSettings = { lowercase: true, minLength: 2, kinds: ['word', 'number', 'hashtag', 'emoji'], stem: false, ngrams: 1 };
 
@@ -147,6 +148,12 @@ describe('matrix/build-count-matrix', () => {
         assert.deepEqual(threaded.counts.data, inProcess.counts.data);
         assert.deepEqual(threaded.counts.tokensPerDoc, inProcess.counts.tokensPerDoc);
         assert.deepEqual(threaded.previews, inProcess.previews);
+        // The raw counts' sums the writing threads added up are termCountStats's, to the bit.
+        assert.equal(inProcess.countSums, null);
+        const stats = termCountStats(inProcess.counts);
+        assert.ok(threaded.countSums !== null);
+        for (const key of ['documents', 'totalTokens', 'sumLengthSq'] as const) assert.equal(threaded.countSums[key], stats[key], key);
+        for (const key of ['df', 'cf', 'sumCountSq', 'sumCountLength'] as const) assert.deepEqual(Array.from(threaded.countSums[key]), Array.from(stats[key]), key);
       }
     });
 

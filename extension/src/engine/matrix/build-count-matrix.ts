@@ -6,6 +6,7 @@ import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
 import { startRowAssembler, type RowAssembler } from '../tokenize/row-assembler';
+import type { RowCountSums } from '../tokenize/row-count-sums';
 import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
 import { CodePointSortedTerms } from './code-point-sorted-terms';
 import type { CountMatrix } from './csr';
@@ -20,6 +21,11 @@ export interface BuiltCorpus {
   previews: string[];
   /** What the Report's input notes should say about tokenising (over-long runs cut). */
   notes: string[];
+  /**
+   * The raw counts' per-term sums of `counts` (row-count-sums.ts), when the threads that wrote
+   * its rows added them up on the way; null when the rows were written here.
+   */
+  countSums: RowCountSums | null;
 }
 
 export interface BuildOptions {
@@ -101,7 +107,8 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
     // The tokenising threads end before the matrix is allocated, and their heaps with them.
     await encoder.close();
     const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
-    return { counts: await counter.finish(assembler), lines: lines.toArray(), labels, previews, notes };
+    const { counts, countSums } = await counter.finish(assembler);
+    return { counts, lines: lines.toArray(), labels, previews, notes, countSums };
   } finally {
     await encoder.close();
     await assembler?.close();
@@ -194,7 +201,7 @@ class CountAccumulator {
    * the main thread's CPU after the tokenising threads had finished); else here, one part after
    * another.
    */
-  async finish(assembler: RowAssembler | null = null): Promise<CountMatrix> {
+  async finish(assembler: RowAssembler | null = null): Promise<{ counts: CountMatrix; countSums: RowCountSums | null }> {
     const cols = this.idOf.size;
     const sortedTerms = this.inOrder.sorted();
     const rank = new Uint32Array(cols);
@@ -223,8 +230,9 @@ class CountAccumulator {
     const shared = assembler !== null && parts.length > 1;
     const indices = new Uint32Array(shared ? new SharedArrayBuffer(4 * nonzeros) : new ArrayBuffer(4 * nonzeros));
     const data = new Float64Array(shared ? new SharedArrayBuffer(8 * nonzeros) : new ArrayBuffer(8 * nonzeros));
+    let countSums: RowCountSums | null = null;
     if (shared) {
-      await assembler.assemble({ ranks, columns: cols, indices, data, parts, starts });
+      countSums = await assembler.assemble({ ranks, columns: cols, indices, data, parts, starts, countSums: true });
     } else {
       const writer = new RowWriter(ranks, cols, indices, data);
       for (let p = 0; p < parts.length; p++) {
@@ -232,7 +240,7 @@ class CountAccumulator {
         parts[p] = EMPTY_PART; // let each part go as soon as it is written
       }
     }
-    return { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() };
+    return { counts: { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() }, countSums };
   }
 }
 

@@ -93,7 +93,8 @@ export async function prepareWeights(
   }
   // The raw-count statistics first: the weights are then written over the counts. Their df is
   // the idf's (every stored count is ≥ 1, so a column's entries are its documents).
-  const countStats = termCountStats(counts);
+  // The threads that wrote the rows summed them already when nothing was pruned (the same matrix).
+  const countStats = counts === built.counts && built.countSums !== null ? built.countSums : termCountStats(counts);
   // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
   const { weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' }, countStats.df);
   let tokens = 0;

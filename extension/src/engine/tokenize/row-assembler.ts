@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
+import { addRowCountSums, type RowCountSums } from './row-count-sums';
 import type { CountedPart } from './rows-in-rank-order';
 import type { AssembleReply, AssembleRequest } from './tokenize-messages';
 
@@ -13,12 +14,17 @@ export interface AssembleJob {
   data: Float64Array;
   parts: CountedPart[];
   starts: number[];
+  /** Also sum the rows' raw counts per term (row-count-sums.ts) while the parts are at hand. */
+  countSums?: boolean;
 }
 
 /** Threads that write the finished count matrix's rows, each a run of consecutive parts. */
 export interface RowAssembler {
-  /** Writes every part; the parts' arrays are handed over (transferred), not copied. */
-  assemble(job: AssembleJob): Promise<void>;
+  /**
+   * Writes every part; the parts' arrays are handed over (transferred), not copied. With
+   * `countSums`, resolves with the count sums of every row (the threads' shares added), else null.
+   */
+  assemble(job: AssembleJob): Promise<RowCountSums | null>;
   close(): Promise<void>;
 }
 
@@ -30,7 +36,7 @@ export interface RowAssembler {
 export function startRowAssembler(threads: number, script: string): RowAssembler | null {
   if (threads < 1 || !existsSync(script)) return null;
   const pool: Worker[] = [];
-  const pending = new Map<number, { resolve(): void; reject(e: Error): void }>();
+  const pending = new Map<number, { resolve(sums: RowCountSums | null): void; reject(e: Error): void }>();
   let failure: Error | null = null;
   const fail = (e: Error): void => {
     failure ??= e;
@@ -43,7 +49,7 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
       const p = pending.get(reply.seq);
       if (p === undefined) return;
       pending.delete(reply.seq);
-      if (reply.error === null) p.resolve();
+      if (reply.error === null) p.resolve(reply.sums);
       else p.reject(new Error(`assemble worker: ${reply.error}`));
     });
     worker.on('error', fail);
@@ -61,20 +67,29 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
         shares[Math.min(pool.length - 1, Math.floor((done * pool.length) / Math.max(1, total)))]!.push(k);
         done += job.parts[k]!.cols.length;
       }
-      await Promise.all(
+      const replies = await Promise.all(
         shares.map((share, w) => {
-          if (share.length === 0) return Promise.resolve();
+          if (share.length === 0) return Promise.resolve(null);
           if (failure !== null) return Promise.reject(failure);
           const parts = share.map((k) => job.parts[k]!);
           const transfer: ArrayBuffer[] = [];
           for (const p of parts) transfer.push(p.rowEnds.buffer as ArrayBuffer, p.cols.buffer as ArrayBuffer, p.counts.buffer as ArrayBuffer);
-          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!) };
-          return new Promise<void>((resolve, reject) => {
+          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!), countSums: job.countSums === true };
+          return new Promise<RowCountSums | null>((resolve, reject) => {
             pending.set(w, { resolve, reject });
             pool[w]!.postMessage(request, transfer);
           });
         }),
       );
+      if (job.countSums !== true) return null;
+      // Whole numbers: the shares add up exactly, in any order (row-count-sums.ts).
+      let summed: RowCountSums | null = null;
+      for (const sums of replies) {
+        if (sums === null) continue;
+        if (summed === null) summed = sums;
+        else addRowCountSums(summed, sums);
+      }
+      return summed;
     },
     async close() {
       failure ??= new Error('assemble pool closed');

@@ -1,3 +1,5 @@
+import type { RowCountAccumulator } from './row-count-sums';
+
 /**
  * A counted batch (encode-batch.ts): document d's distinct terms are cols[rowEnds[d-1] ..
  * rowEnds[d]) (rowEnds[-1] = 0), with their counts; the ids are those of the coder that made
@@ -37,6 +39,7 @@ export class RowWriter {
   private atB = new Uint32Array(0);
   private rowOf = new Uint32Array(0);
   private fill = new Uint32Array(0);
+  private rowLength = new Float64Array(0);
 
   /** `columns`: how many columns the matrix has (every rank is below it). */
   constructor(
@@ -48,8 +51,12 @@ export class RowWriter {
     this.passes = Math.max(1, Math.ceil(Math.log2(Math.max(2, columns)) / RADIX_BITS));
   }
 
-  /** Writes `part`, whose first row starts at `start` in `indices`/`data`. */
-  write(part: CountedPart, start: number): void {
+  /**
+   * Writes `part`, whose first row starts at `start` in `indices`/`data`; with `sums`, adds its
+   * rows' raw-count sums there too (row-count-sums.ts), in the last loop, which visits the
+   * entries in column order, so a term's sums are reached one after another.
+   */
+  write(part: CountedPart, start: number, sums: RowCountAccumulator | null = null): void {
     const { rowEnds, cols, counts } = part;
     const n = cols.length;
     const rows = rowEnds.length;
@@ -96,11 +103,44 @@ export class RowWriter {
       [at, at2] = [at2, at];
     }
     const { indices, data } = this;
+    if (sums === null) {
+      for (let i = 0; i < n; i++) {
+        const from = at[i]!;
+        const to = fill[rowOf[from]!]!++;
+        indices[to] = key[i]!;
+        data[to] = counts[from]!;
+      }
+      return;
+    }
+    if (this.rowLength.length < rows) this.rowLength = new Float64Array(rows);
+    const { rowLength } = this;
+    k = 0;
+    for (let d = 0; d < rows; d++) {
+      const end = rowEnds[d]!;
+      let length = 0;
+      for (; k < end; k++) length += counts[k]!;
+      rowLength[d] = length;
+      if (length > 0) {
+        sums.documents++;
+        sums.totalTokens += length;
+        sums.sumLengthSq += length * length;
+      }
+    }
+    const perTerm = sums.perTerm;
     for (let i = 0; i < n; i++) {
       const from = at[i]!;
-      const to = fill[rowOf[from]!]!++;
-      indices[to] = key[i]!;
-      data[to] = counts[from]!;
+      const row = rowOf[from]!;
+      const to = fill[row]!++;
+      const t = key[i]!;
+      const c = counts[from]!;
+      indices[to] = t;
+      data[to] = c;
+      // Every stored count is ≥ 1, so its row has a length > 0.
+      const q = 4 * t;
+      perTerm[q] += 1;
+      perTerm[q + 1] += c;
+      perTerm[q + 2] += c * c;
+      perTerm[q + 3] += c * rowLength[row]!;
     }
   }
 }

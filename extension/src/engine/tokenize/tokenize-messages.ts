@@ -1,5 +1,6 @@
 import type { EncodedBatch } from './encode-batch';
 import type { AssembleJob } from './row-assembler';
+import type { RowCountSums } from './row-count-sums';
 
 /** main → tokenize worker: one batch of document texts, numbered so replies can be reordered. */
 export interface TokenizeRequest {
@@ -23,9 +24,10 @@ export interface AssembleRequest extends AssembleJob {
   seq: number;
 }
 
-/** assemble worker → main: the parts are written, or the error text. */
+/** assemble worker → main: the parts are written (and their rows' count sums, when asked), or the error text. */
 export interface AssembleReply {
   type: 'assembled';
   seq: number;
   error: string | null;
+  sums: RowCountSums | null;
 }
