@@ -164,8 +164,12 @@ export interface EffectiveSettings {
 
 // ---- Messages: extension host → webview ----
 export interface ShowReportMessage { type: 'showReport'; report: Report }
-/** `engineMs`: the engine's time for this what-if in the worker (the rest of a click's wait is messages and drawing). */
-export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number }
+/**
+ * `engineMs`: the engine's time for this what-if in the worker; `hostMs`: the host's, from the
+ * request's arrival to this answer (the worker's messages and the engine). The rest of a click's
+ * wait is the messages between panel and host and the drawing.
+ */
+export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number; hostMs?: number }
 export interface BusyMessage { type: 'busy'; stage: string | null }
 export interface ErrorMessage { type: 'error'; message: string }
 /**

@@ -48,7 +48,7 @@ export function isHostToWebview(value: unknown): value is HostToWebview {
     case 'showReport':
       return isReportLike(m.report);
     case 'whatIfResult':
-      return typeof m.requestId === 'number' && Array.isArray(m.removed) && typeof m.measures === 'object' && m.measures !== null && (m.engineMs === undefined || typeof m.engineMs === 'number');
+      return typeof m.requestId === 'number' && Array.isArray(m.removed) && typeof m.measures === 'object' && m.measures !== null && (m.engineMs === undefined || typeof m.engineMs === 'number') && (m.hostMs === undefined || typeof m.hostMs === 'number');
     case 'busy':
       return m.stage === null || typeof m.stage === 'string';
     case 'error':

@@ -30,6 +30,8 @@ interface Loaded {
 export class PanelApp {
   private readonly state: ViewState;
   private readonly requester: WhatIfRequester;
+  /** When each what-if request was posted (panel clock), for the e2e latency split. */
+  private readonly sentAt = new Map<number, number>();
   private readonly statusSlot: HTMLElement;
   private readonly content: HTMLElement;
   private loaded: Loaded | null = null;
@@ -42,7 +44,10 @@ export class PanelApp {
     private readonly bridge: HostBridge,
   ) {
     this.state = restoreViewState(bridge.loadState());
-    this.requester = new WhatIfRequester((m) => bridge.post(m));
+    this.requester = new WhatIfRequester((m) => {
+      this.sentAt.set(m.requestId, performance.now());
+      bridge.post(m);
+    });
     this.statusSlot = el('div', { className: 'lw-statusbar', attrs: { role: 'status', 'aria-live': 'polite' } });
     this.content = el('main', { className: 'lw-main' }, [
       el('p', { className: 'lw-empty', text: bridge.mode === 'panel' ? 'Waiting for a review… Run “Review distances” on a corpus file.' : 'Loading the report…' }),
@@ -117,9 +122,11 @@ export class PanelApp {
   }
 
   onWhatIfResult(message: WhatIfResultMessage): void {
+    const started = performance.now();
+    const sent = this.sentAt.get(message.requestId);
+    this.sentAt.delete(message.requestId);
     const latest = this.requester.accept(message.requestId);
     if (!this.loaded || !latest) return;
-    const started = performance.now();
     this.state.whatIf = { removed: [...message.removed], measures: message.measures };
     this.save();
     // Charts first: they set canvas fonts, which need the computed style, and right after the
@@ -130,6 +137,8 @@ export class PanelApp {
     // latency scenario to print beside the click's.
     const slot = this.loaded.stripSlot.dataset;
     if (message.engineMs !== undefined) slot.engineMs = message.engineMs.toFixed(1);
+    if (message.hostMs !== undefined) slot.hostMs = message.hostMs.toFixed(1);
+    if (sent !== undefined) slot.roundTripMs = (started - sent).toFixed(1);
     slot.panelMs = (performance.now() - started).toFixed(1);
   }
 

@@ -120,8 +120,10 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
     try {
       switch (m.type) {
         case 'whatIf': {
+          const arrived = performance.now();
           const { measures, engineMs } = await review.client.timedWhatIf(m.removed);
-          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs });
+          const hostMs = performance.now() - arrived;
+          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs, hostMs });
           return;
         }
         case 'revealLine':

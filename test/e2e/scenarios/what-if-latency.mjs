@@ -42,6 +42,8 @@ async function timedClick(frame, term) {
         if (slot) {
           delete slot.dataset.engineMs;
           delete slot.dataset.panelMs;
+          delete slot.dataset.hostMs;
+          delete slot.dataset.roundTripMs;
         }
         const start = performance.now();
         box.click();
@@ -54,7 +56,7 @@ async function timedClick(frame, term) {
           // Done when the legend names the new selection and nothing is pending.
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
             const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
-            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), clickMs });
+            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), clickMs });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -90,6 +92,17 @@ async function measure(ctx, fileName, label) {
   );
   if (engine.length > 0) {
     console.log(`  of which the engine in the worker: median ${median(engine).toFixed(0)} ms; all ${engine.map((e) => Math.round(e)).join(', ')}`);
+  }
+  // Where the rest goes, from the host's and the panel's own clocks: panel ⇄ host messages (the
+  // round trip seen by the panel less the host's time), host ⇄ worker messages (the host's time
+  // less the engine's), and after the panel's work until the frame that shows it.
+  const split = clicks.filter((c) => c.engineMs !== null && c.hostMs !== null && c.roundTripMs !== null && c.panelMs !== null);
+  if (split.length > 0) {
+    const fmt = (values) => `median ${median(values).toFixed(0)} ms`;
+    console.log(
+      `  the rest, split: panel ⇄ host messages ${fmt(split.map((c) => c.roundTripMs - c.hostMs))}; host ⇄ worker messages ${fmt(split.map((c) => c.hostMs - c.engineMs))}; ` +
+        `from the panel's work to the frame that shows it ${fmt(split.map((c) => c.ms - c.clickMs - c.roundTripMs - c.panelMs))}`,
+    );
   }
   const panel = clicks.filter((c) => c.panelMs !== null).map((c) => c.panelMs + c.clickMs);
   if (panel.length > 0) {
