@@ -27,17 +27,19 @@ function corpus(): ReturnType<typeof termCountStats> {
   return termCountStats(csrOf(dense));
 }
 const PRIOR = new Map<number, PriorClass>([[1, 'preposition'], [2, 'pronoun'], [3, 'negation'], [5, 'markup'], [6, 'degree']]);
-// Shares of the all-pair similarity given to the rule: the grammar words (columns 1 and 3) carry
-// 0.03 each, together 0.06 — above GRAMMAR_SHARE, so rule 2 applies.
-function shares(values: Record<number, number> = { 1: 0.03, 3: 0.03 }, cols = 8): Float64Array {
-  const out = new Float64Array(cols);
-  for (const [c, v] of Object.entries(values)) out[Number(c)] = v;
-  return out;
+// Shares of the all-pair similarity given to the rule (in the engine they come from the exact
+// sums with the other rules' terms removed): the grammar words (columns 1 and 3) carry 0.09 each,
+// together 0.18 — above GRAMMAR_SHARE, so rule 2 applies. `calls` records what the rule asked.
+function shares(values: Record<number, number> = { 1: 0.09, 3: 0.09 }, calls: Array<{ group: number[]; removed: number[] }> = []) {
+  return (group: readonly number[], removed: Uint8Array): number => {
+    calls.push({ group: [...group].sort((a, b) => a - b), removed: [...removed.keys()].filter((c) => removed[c] === 1) });
+    return group.reduce((sum, c) => sum + (values[c] ?? 0), 0);
+  };
 }
 
 function decide(opinion: boolean, protect: number[] = [], usePrior = true): Map<number, Decision> {
   const stats = corpus();
-  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior, pullShare: shares() });
+  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior, jointShare: shares() });
 }
 const brief = (d: Decision | undefined): string => (d === undefined ? '—' : `${d.suggested ? 'suggest' : 'keep'}:${d.reason}`);
 
@@ -106,7 +108,7 @@ describe('chooseSuggestions', () => {
     for (const row of dense) row[2] = 10 - row[0]! - row[1]!;
     const stats = termCountStats(csrOf(dense));
     const prior = new Map<number, PriorClass>([[0, 'markup'], [1, 'markup']]);
-    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true, pullShare: shares({}, 3) });
+    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true, jointShare: shares({}) });
     assert.equal(brief(d.get(0)), 'suggest:markup');
     assert.equal(brief(d.get(1)), '—');
   });
@@ -121,10 +123,10 @@ describe('chooseSuggestions', () => {
 
   it('chooseSuggestions: already-stopped columns get no decision, and stopping one term changes no other decision', () => {
     const stats = corpus();
-    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, pullShare: shares() });
+    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShare: shares() });
     const stopped = new Uint8Array(8);
     stopped[1] = 1;
-    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true, pullShare: shares() });
+    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true, jointShare: shares() });
     assert.equal(after.has(1), false);
     // Column 3 alone carries 0.03, under GRAMMAR_SHARE: it stays suggested because the joint share
     // counts the stopped column 1 too (so applying the suggestions cannot turn rule 2 off).
@@ -134,10 +136,14 @@ describe('chooseSuggestions', () => {
 
   it('chooseSuggestions: grammar words that together carry under GRAMMAR_SHARE of the similarity are kept as light', () => {
     const stats = corpus();
-    const run = (pullShare: Float64Array): Map<number, Decision> =>
-      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, pullShare });
-    assert.equal(GRAMMAR_SHARE, 0.05);
-    const light = run(shares({ 1: 0.02, 3: 0.02, 0: 0.9 }));
+    const run = (jointShare: ReturnType<typeof shares>): Map<number, Decision> =>
+      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShare });
+    assert.equal(GRAMMAR_SHARE, 0.15);
+    const calls: Array<{ group: number[]; removed: number[] }> = [];
+    const light = run(shares({ 1: 0.02, 3: 0.02, 0: 0.9 }, calls));
+    // The share is asked once, for the grammar words, on the corpus without the other rules'
+    // suggestions (here the words above half: columns 0, 6 and the filler 7).
+    assert.deepEqual(calls, [{ group: [1, 3], removed: [0, 6, 7] }]);
     assert.equal(brief(light.get(1)), 'keep:light');
     assert.equal(brief(light.get(3)), 'keep:light');
     const d = light.get(1)!;
@@ -146,7 +152,7 @@ describe('chooseSuggestions', () => {
     assert.equal(brief(light.get(0)), 'suggest:everywhere');
     assert.equal(brief(light.get(2)), 'keep:bursty');
     // At the bound exactly, rule 2 applies (≥).
-    const heavy = run(shares({ 1: 0.025, 3: 0.025 }));
+    const heavy = run(shares({ 1: 0.075, 3: 0.075 }));
     assert.equal(brief(heavy.get(1)), 'suggest:grammar');
     assert.equal(brief(heavy.get(3)), 'suggest:grammar');
   });

@@ -1,10 +1,12 @@
 import { AUSTEN_CHAPTERS } from './austen-chapters';
 import { FINE_FOOD_REVIEWS } from './fine-food-reviews';
 import { FORTUNE_CATEGORIES, fortunesAvailable, readFortunes } from './fortunes';
+import { KERNEL_DOCS } from './kernel-docs';
 import { KJV_CHAPTERS } from './kjv-chapters';
 import type { DevCorpus } from './labelled-corpus';
 import { MAN_PAGES } from './man-pages';
 import { PACKAGE_DESCRIPTIONS } from './package-descriptions';
+import { PYTHON_DOCS } from './python-docs';
 import { RATED_SENTENCES } from './rated-sentences';
 import { REUTERS_SAMPLE } from './reuters-sample';
 import { SOTU } from './sotu';
@@ -25,4 +27,4 @@ export const FORTUNES: DevCorpus = {
 };
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
-export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS];
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS, KERNEL_DOCS, PYTHON_DOCS];

@@ -53,7 +53,7 @@ export function explainTerm(row: TermRow, documents: number, decision: Decision 
       case 'opinion':
         return `${kind ?? 'word'} ${inDocs}: this corpus reads as opinion text, where such words carry the opinion`;
       case 'light':
-        return `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of all-pair similarity here (under ${pct(GRAMMAR_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
+        return `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GRAMMAR_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
       case 'protected':
         return `protected by "suggest.protect"`;
       case 'format':

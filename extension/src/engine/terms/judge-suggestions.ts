@@ -27,7 +27,7 @@ const pct1 = (x: number): string => `${(x * 100).toFixed(1)}%`;
 
 /** Why the grammar words below half were not suggested, when rule 2 found them light. */
 function lightSentence(share: number): string {
-  return `Grammar words in fewer than half the documents were kept: together they carry only ${pct1(share)} of the all-pair similarity here, too little to distort distances, and in long documents they can mark the kind of document (docs/methods.md §9).`;
+  return `Grammar words in fewer than half the documents were kept: together they carry only ${pct1(share)} of the all-pair similarity left once the other suggestions are removed, too little to distort distances, and in long documents they can mark the kind of document (docs/methods.md §9).`;
 }
 
 /**

@@ -85,7 +85,13 @@ export function reviewTerms(input: TermReviewInput): TermReview {
     protect,
     opinion: opinionText,
     usePrior: settings.suggest.functionWordPrior,
-    pullShare: pullShares(fullPairMass),
+    jointShare: (group, removed) => {
+      const { sums, rowsWithWeight } = lab.sums(removed);
+      const shares = pullShares(pairMass(sums, rowsWithWeight).perTerm);
+      let total = 0;
+      for (const c of group) total += shares[c]!;
+      return total;
+    },
   });
 
   // Heaviest first, so that `suggest.max` keeps the terms that pull the most.
