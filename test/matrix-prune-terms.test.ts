@@ -35,6 +35,13 @@ describe('matrix/prune-terms', () => {
     assert.equal(r.counts.tokensPerDoc, counts.tokensPerDoc);
   });
 
+  it('pruneTerms with the df given (a=4, b=2, c=1, d=2, by hand) prunes as when it counts them, and refuses a df of the wrong length', () => {
+    const r = pruneTerms(counts, { minDf: 2, maxDf: 0.75, stopTerms: new Set(), df: Float64Array.from([4, 2, 1, 2]) });
+    assert.deepEqual(r.counts, pruneTerms(counts, { minDf: 2, maxDf: 0.75, stopTerms: new Set() }).counts);
+    assert.deepEqual(r.counts.terms, ['b', 'd']);
+    assert.throws(() => pruneTerms(counts, { minDf: 1, maxDf: 1, stopTerms: new Set(), df: [1, 1] }), RangeError);
+  });
+
   it('pruneTerms reads maxDf > 1 as a count and minDf < 1 as a proportion', () => {
     // minDf 0.5 → df ≥ 2 drops c; maxDf 3 → df ≤ 3 drops a (as a proportion, 3·n would keep it).
     const r = pruneTerms(counts, { minDf: 0.5, maxDf: 3, stopTerms: new Set() });

@@ -13,6 +13,8 @@ export interface PruneOptions {
    */
   maxDf: number;
   stopTerms: ReadonlySet<string>;
+  /** Each column's document frequency when the caller has it already (one pass over the non-zeros fewer). */
+  df?: ArrayLike<number>;
 }
 
 export interface PruneResult {
@@ -41,9 +43,16 @@ export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneRes
   if (maxCount < minCount) {
     throw new UserError(`prune.maxDf (${options.maxDf}) allows fewer documents than prune.minDf (${options.minDf}).`);
   }
-  const df = new Uint32Array(counts.cols);
   const total = counts.indptr[counts.rows];
-  for (let k = 0; k < total; k++) if (counts.data[k] !== 0) df[counts.indices[k]]++;
+  let df: ArrayLike<number>;
+  if (options.df !== undefined) {
+    if (options.df.length !== counts.cols) throw new RangeError(`pruneTerms: df has ${options.df.length} entries for ${counts.cols} columns`);
+    df = options.df;
+  } else {
+    const counted = new Uint32Array(counts.cols);
+    for (let k = 0; k < total; k++) if (counts.data[k] !== 0) counted[counts.indices[k]]++;
+    df = counted;
+  }
 
   const newCol = new Int32Array(counts.cols);
   const terms: string[] = [];

@@ -87,7 +87,13 @@ export async function prepareWeights(
   onWeighting();
   // The stop list is applied later as a column mask, not here, so that the review can still say
   // how much a stopped term would pull and whether it carries neighbour signal.
-  const { counts } = pruneTerms(built.counts, { minDf: settings.prune.minDf, maxDf: settings.prune.maxDf, stopTerms: new Set() });
+  const { counts } = pruneTerms(built.counts, {
+    minDf: settings.prune.minDf,
+    maxDf: settings.prune.maxDf,
+    stopTerms: new Set(),
+    // The writing threads' sums hold df (every stored count is ≥ 1, so a column's entries are its documents).
+    ...(built.countSums !== null ? { df: built.countSums.df } : {}),
+  });
   if (counts.cols === 0) {
     throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', source.file);
   }
