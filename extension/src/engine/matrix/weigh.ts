@@ -1,6 +1,6 @@
 import type { EffectiveSettings } from '../../protocol';
 import type { CountMatrix, Csr } from './csr';
-import { normalizeRows } from './normalize-rows';
+import { normalizeRow } from './normalize-rows';
 
 export type WeightingSettings = EffectiveSettings['weighting'];
 
@@ -67,17 +67,27 @@ export function weighWithIdf(counts: Csr, idf: Float64Array, weighting: Weightin
   const data = out ?? new Float64Array(total);
   const tf = weighting.tf;
   const { data: c, indices } = counts;
-  // One loop per tf kind, so the hot loop does not compare strings per entry.
-  if (tf === 'raw') {
-    for (let k = 0; k < total; k++) data[k] = c[k] * idf[indices[k]];
-  } else if (tf === 'sublinear') {
-    for (let k = 0; k < total; k++) data[k] = (c[k] === 0 ? 0 : 1 + Math.log(c[k])) * idf[indices[k]];
-  } else {
-    for (let k = 0; k < total; k++) data[k] = (c[k] === 0 ? 0 : 1) * idf[indices[k]];
+  const { indptr } = counts;
+  // Row by row, each row normalised right after its weights are written, while it is in cache
+  // (two passes over the whole matrix read every non-zero from memory twice); the same
+  // arithmetic in the same order as weighing everything and then normalizeRows. One loop per tf
+  // kind, so the hot loop does not compare strings per entry.
+  const norm = weighting.norm;
+  const sublinear = tf === 'sublinear';
+  const raw = tf === 'raw';
+  for (let r = 0; r < n; r++) {
+    const start = indptr[r];
+    const end = indptr[r + 1];
+    if (raw) {
+      for (let k = start; k < end; k++) data[k] = c[k] * idf[indices[k]];
+    } else if (sublinear) {
+      for (let k = start; k < end; k++) data[k] = (c[k] === 0 ? 0 : 1 + Math.log(c[k])) * idf[indices[k]];
+    } else {
+      for (let k = start; k < end; k++) data[k] = (c[k] === 0 ? 0 : 1) * idf[indices[k]];
+    }
+    normalizeRow(data, start, end, norm);
   }
-  const weights: Csr = { rows: n, cols: counts.cols, indptr: counts.indptr, indices: counts.indices, data };
-  normalizeRows(weights.indptr, data, n, weighting.norm);
-  return weights;
+  return { rows: n, cols: counts.cols, indptr: counts.indptr, indices: counts.indices, data };
 }
 
 /** The idf of a term in `df` of `n` documents (see `weigh`). */
