@@ -4,7 +4,8 @@
 // stays synchronous). The matrix is read in place, never copied.
 import { workerData } from 'node:worker_threads';
 import { maskedTermSums } from './masked-term-sums';
-import { DONE, FAILED, type MaskedTermSumsJob } from './start-masked-term-sums';
+import { DONE, FAILED } from '../threads/one-shot-thread';
+import type { MaskedTermSumsJob } from './start-masked-term-sums';
 
 const job = workerData as MaskedTermSumsJob | null;
 if (job === null || job === undefined) throw new Error('masked-term-sums-thread must run as a worker thread');

@@ -1,6 +1,5 @@
-import { existsSync } from 'node:fs';
-import { join } from 'node:path';
-import { Worker } from 'node:worker_threads';
+import { startOneShot, type PendingResult } from '../threads/one-shot-thread';
+import { threadScript } from '../threads/thread-script';
 import type { Csr } from '../matrix/csr';
 import { maskedTermSums, type MaskedTermSums } from './masked-term-sums';
 
@@ -13,20 +12,12 @@ export interface MaskedTermSumsJob {
   data: Float64Array;
   removed: Uint8Array;
   withSpread: boolean;
-  /** On SharedArrayBuffers; status[0] is PENDING, DONE or FAILED, status[1] rowsWithWeight. */
+  /** On SharedArrayBuffers; status[0] is PENDING, DONE or FAILED (engine/threads/one-shot-thread.ts), status[1] rowsWithWeight. */
   out: { s1: Float64Array; s2: Float64Array; df: Uint32Array; sxlogx: Float64Array; status: Int32Array };
 }
 
-export const PENDING = 0;
-export const DONE = 1;
-export const FAILED = 2;
-
 /** maskedTermSums, begun now and read by `take()` (which waits for it when it runs elsewhere). */
-export interface PendingTermSums {
-  take(): MaskedTermSums;
-  /** After take(): whether the thread's answer was used (for the tests). */
-  readonly fromThread: boolean;
-}
+export type PendingTermSums = PendingResult<MaskedTermSums>;
 
 /**
  * maskedTermSums(X, removed, withSpread) on a thread of its own, while the caller goes on with
@@ -36,11 +27,8 @@ export interface PendingTermSums {
  * the thread reads the matrix without a copy, and the thread's script is there; otherwise — and
  * if the thread fails — `take()` computes the same sums in this thread. Either way the answer is
  * maskedTermSums's, to the bit: the same function over the same arrays.
- *
- * `take()` waits with Atomics.wait, so a synchronous caller can use it; the thread signals
- * through shared memory, not a message, because this thread's event loop is not run meanwhile.
  */
-export function startMaskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, script: string | null = threadScript()): PendingTermSums {
+export function startMaskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, script: string | null = threadScript(__dirname, 'masked-term-sums-thread.js', 'masked-term-sums-thread.ts')): PendingTermSums {
   const shared = X.indices.buffer instanceof SharedArrayBuffer && X.data.buffer instanceof SharedArrayBuffer;
   const mask = removed.slice();
   const here = (): MaskedTermSums => maskedTermSums(X, mask, withSpread);
@@ -49,39 +37,9 @@ export function startMaskedTermSums(X: Csr, removed: Uint8Array, withSpread: boo
   const sharedF64 = (n: number): Float64Array => new Float64Array(new SharedArrayBuffer(8 * n));
   const out = { s1: sharedF64(cols), s2: sharedF64(cols), df: new Uint32Array(new SharedArrayBuffer(4 * cols)), sxlogx: sharedF64(cols), status: new Int32Array(new SharedArrayBuffer(8)) };
   const job: MaskedTermSumsJob = { rows: X.rows, cols, indptr: X.indptr, indices: X.indices, data: X.data, removed: mask, withSpread, out };
-  let worker: Worker;
-  try {
-    // Under tsx (tests) the entry is TypeScript: the thread loads it through tsx too.
-    worker = new Worker(script, { workerData: job, ...(script.endsWith('.ts') ? { execArgv: ['--require', 'tsx/cjs'] } : {}) });
-  } catch {
-    return { take: here, fromThread: false };
-  }
-  // Errors are read from the status word; the thread never keeps the process alive.
-  worker.on('error', () => undefined);
-  worker.unref();
   // A generous bound for a thread that died before it could set the status: ~40 times the pass's
   // time on an idle core, and at least a minute. Past it the sums are computed here.
   const patienceMs = Math.max(60_000, X.indices.length * 2e-3);
-  let fromThread = false;
-  return {
-    get fromThread() {
-      return fromThread;
-    },
-    take() {
-      Atomics.wait(out.status, 0, PENDING, patienceMs);
-      const state = Atomics.load(out.status, 0);
-      void worker.terminate();
-      if (state !== DONE) return here();
-      fromThread = true;
-      return { sums: { s1: out.s1, s2: out.s2, df: out.df, sxlogx: out.sxlogx }, rowsWithWeight: out.status[1]! };
-    },
-  };
-}
-
-/** The bundled dist/masked-term-sums-thread.js beside this bundle, or under tsx the source entry. */
-function threadScript(): string | null {
-  const bundled = join(__dirname, 'masked-term-sums-thread.js');
-  if (existsSync(bundled)) return bundled;
-  const source = join(__dirname, 'masked-term-sums-thread.ts');
-  return existsSync(source) ? source : null;
+  const read = (): MaskedTermSums => ({ sums: { s1: out.s1, s2: out.s2, df: out.df, sxlogx: out.sxlogx }, rowsWithWeight: out.status[1]! });
+  return startOneShot({ script, workerData: job, status: out.status, patienceMs, here, read });
 }

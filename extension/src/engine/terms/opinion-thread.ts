@@ -4,7 +4,8 @@
 // synchronous). Its own wink instance, loaded here rather than on the review's thread.
 import { workerData } from 'node:worker_threads';
 import { opinionShare } from './opinion-check';
-import { DONE, FAILED, type OpinionJob } from './start-opinion-share';
+import { DONE, FAILED } from '../threads/one-shot-thread';
+import type { OpinionJob } from './start-opinion-share';
 
 const job = workerData as OpinionJob | null;
 if (job === null || job === undefined) throw new Error('opinion-thread must run as a worker thread');

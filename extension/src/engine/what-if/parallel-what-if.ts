@@ -1,9 +1,8 @@
-import { existsSync } from 'node:fs';
-import { join } from 'node:path';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
 import { joinMeasures, type SampledFields } from '../measures/measure-distances';
+import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
@@ -50,13 +49,11 @@ export class ParallelWhatIf {
    * (`script` by default: the bundled dist/what-if-thread.js beside this bundle, or under tsx the
    * source entry beside this file).
    */
-  static open(lab: DistanceLab, baselineNeighbors: Uint32Array | null, opening: Uint8Array, script: string | null = threadScript()): ParallelWhatIf | null {
+  static open(lab: DistanceLab, baselineNeighbors: Uint32Array | null, opening: Uint8Array, script: string | null = threadScript(__dirname, 'what-if-thread.js', 'sample-thread.ts')): ParallelWhatIf | null {
     if (script === null) return null;
     const { rows, cols, indptr, indices, data } = lab.sampleRows;
     const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors };
-    // Under tsx (tests, the benchmark) the entry is TypeScript: the thread loads it through tsx too.
-    const execArgv = script.endsWith('.ts') ? ['--require', 'tsx/cjs'] : undefined;
-    const parallel = new ParallelWhatIf(lab, baselineNeighbors, new Worker(script, { workerData, execArgv }));
+    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }));
     // A failure shows again on the first toggle, which then falls back.
     parallel.opened = parallel.request(opening, true).then(
       () => undefined,
@@ -135,12 +132,4 @@ function busiestColumn(rows: Csr): number {
   let best = -1;
   for (let t = 0; t < rows.cols; t++) if (count[t]! > 0 && (best < 0 || count[t]! > count[best]!)) best = t;
   return best;
-}
-
-/** dist/what-if-thread.js beside the running bundle, else (under tsx) sample-thread.ts beside this file. */
-function threadScript(): string | null {
-  const bundled = join(__dirname, 'what-if-thread.js');
-  if (existsSync(bundled)) return bundled;
-  const source = join(__dirname, 'sample-thread.ts');
-  return existsSync(source) ? source : null;
 }
