@@ -44,6 +44,7 @@ async function timedClick(frame, term) {
           delete slot.dataset.panelMs;
           delete slot.dataset.hostMs;
           delete slot.dataset.roundTripMs;
+          delete slot.dataset.chartsMs;
         }
         const start = performance.now();
         box.click();
@@ -56,7 +57,7 @@ async function timedClick(frame, term) {
           // Done when the legend names the new selection and nothing is pending.
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
             const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
-            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), clickMs });
+            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -105,10 +106,12 @@ async function measure(ctx, fileName, label) {
     );
   }
   const panel = clicks.filter((c) => c.panelMs !== null).map((c) => c.panelMs + c.clickMs);
+  const charts = clicks.filter((c) => c.chartsMs !== null).map((c) => c.chartsMs);
   if (panel.length > 0) {
     const rest = clicks.filter((c) => c.panelMs !== null && c.engineMs !== null).map((c) => c.ms - c.engineMs - c.panelMs - c.clickMs);
     console.log(
       `  the panel's own work (click handler + state, strip and charts on the answer): median ${median(panel).toFixed(0)} ms; all ${panel.map((e) => Math.round(e)).join(', ')}` +
+        (charts.length > 0 ? ` (the two charts' update: median ${median(charts).toFixed(0)} ms)` : '') +
         (rest.length > 0 ? `; the rest (messages panel ⇄ host ⇄ worker, waiting for a frame): median ${median(rest).toFixed(0)} ms` : ''),
     );
   }
