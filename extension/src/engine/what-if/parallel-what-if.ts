@@ -81,7 +81,8 @@ export class ParallelWhatIf {
   /**
    * Toggles the column with the most sampled postings away from `opening` and back, `rounds`
    * times, the answers thrown away: V8 optimises a toggle's loops only once they have run, so
-   * the reader's first clicks used to be the slowest (100k bench: ~520, 160, 150 ms, then ~90).
+   * the reader's first three or four clicks used to be the slowest (100k bench, a process without
+   * the warm-up: 316–356 ms each where later clicks took ~220).
    * For idle time once the Report is shown. Each undo puts both halves back at `opening`
    * exactly when `opening` was a full pass on both sides (the Report's suggested figures here,
    * the opening build on the thread): they restore those checkpoints, so the answers that
