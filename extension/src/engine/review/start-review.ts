@@ -6,6 +6,7 @@ import { isManyFilesInput } from '../read/corpus-files';
 import { openCorpusInput, withPlaces } from '../read/many-files-corpus';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { DistanceLab } from '../what-if/distance-lab';
+import { afterIdleDelay } from '../what-if/idle-delay';
 import { ParallelWhatIf } from '../what-if/parallel-what-if';
 import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
@@ -118,8 +119,8 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     async whatIf(removed: readonly string[]) {
       const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
       const measures = await (parallel !== null ? parallel.whatIf(mask) : lab.whatIf(mask, baseline.neighbors));
-      // After the caller has sent the answer on: the drift resets that have come due.
-      setImmediate(() => lab.settle());
+      // Once the caller's answer has been drawn: the drift resets that have come due.
+      afterIdleDelay(() => lab.settle());
       return measures;
     },
     async prepareWhatIf(options) {

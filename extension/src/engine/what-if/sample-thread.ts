@@ -3,6 +3,7 @@
 // (ParallelWhatIf). Requests are answered one at a time, in the order they were sent; between
 // them the thread resets the dot products' rounding drift when due (SampleSide.settle).
 import { parentPort, workerData } from 'node:worker_threads';
+import { afterIdleDelay } from './idle-delay';
 import { SampleSide } from './sample-side';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
@@ -18,11 +19,13 @@ port.on('message', (request: SampleRequest) => {
     reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
   port.postMessage(reply);
-  // The answer is on its way: a rebuild that has come due is done now rather than on the
-  // next request's path (a request arriving meanwhile waits for it, as it would have there).
-  try {
-    side.settle();
-  } catch {
-    // The next request does it (and reports what goes wrong).
-  }
+  // The answer is on its way: a rebuild that has come due is done once it has been drawn,
+  // rather than on the next request's path (which does it first if it comes sooner).
+  afterIdleDelay(() => {
+    try {
+      side.settle();
+    } catch {
+      // The next request does it (and reports what goes wrong).
+    }
+  });
 });
