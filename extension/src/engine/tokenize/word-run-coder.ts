@@ -19,6 +19,9 @@ export function wordRunCoder(lowercase: boolean, minLength: number): TermCoder {
   // A cache in front of the vocabulary: when it starts over (a bound on its memory), runs are
   // found through the vocabulary again and get the ids they had.
   const table = new ChunkTable();
+  // Until the table first starts over, it holds every term met so far (each is stored as soon as
+  // it gets its id), so a run it lacks is a new term: appended without a look-up in the vocabulary.
+  let tableHoldsAll = true;
   const shortest = Math.max(2, minLength);
   const bmp = wordUnits();
   return {
@@ -61,8 +64,8 @@ export function wordRunCoder(lowercase: boolean, minLength: number): TermCoder {
           let id = table.get(s, start, i, h);
           if (id === ABSENT) {
             const term = s.slice(start, i);
-            id = vocabulary.id(term);
-            table.set(term, id);
+            id = tableHoldsAll ? vocabulary.append(term) : vocabulary.id(term);
+            if (!table.set(term, id)) tableHoldsAll = false;
           }
           out.push(id);
         }
