@@ -2,6 +2,7 @@ import type { Worker } from 'node:worker_threads';
 import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
 import { joinMeasures, type SampledFields } from '../measures/measure-distances';
+import { PendingReplies } from '../threads/pending-replies';
 import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
@@ -16,9 +17,7 @@ import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thre
  * If the thread fails, the lab answers in this thread from then on.
  */
 export class ParallelWhatIf {
-  private seq = 0;
-  private readonly pending = new Map<number, { resolve(measures: SampledFields): void; reject(e: Error): void }>();
-  private failure: Error | null = null;
+  private readonly replies = new PendingReplies<SampledFields>();
   /** Toggles answered with the thread's half (the rest fell back to this thread), for the tests and the benchmark. */
   threadAnswers = 0;
   /** Settles when the thread has built the opening state (or failed to). */
@@ -30,12 +29,9 @@ export class ParallelWhatIf {
     private readonly worker: Worker,
   ) {
     worker.on('message', (reply: SampleReply) => {
-      const p = this.pending.get(reply.seq);
-      if (p === undefined) return;
-      this.pending.delete(reply.seq);
-      if (this.pending.size === 0) worker.unref();
-      if (reply.measures !== null) p.resolve(reply.measures);
-      else p.reject(new Error(`what-if thread: ${reply.error}`));
+      if (reply.measures !== null) this.replies.resolve(reply.seq, reply.measures);
+      else this.replies.reject(reply.seq, new Error(`what-if thread: ${reply.error}`));
+      if (this.replies.size === 0) worker.unref();
     });
     worker.on('error', (e) => this.fail(e));
     worker.on('exit', (code) => this.fail(new Error(`what-if thread exited with code ${code}`)));
@@ -64,7 +60,7 @@ export class ParallelWhatIf {
 
   /** Measures with the column mask `removed` stopped (DistanceLab.whatIf's, reached on two threads). */
   async whatIf(removed: Uint8Array): Promise<Measures> {
-    if (this.failure !== null) return this.lab.whatIf(removed, this.baselineNeighbors);
+    if (this.replies.failure !== null) return this.lab.whatIf(removed, this.baselineNeighbors);
     // Posted first, so the thread works while this one sums.
     const sampled = this.request(removed, false);
     const exact = this.lab.whatIfExact(removed);
@@ -105,20 +101,15 @@ export class ParallelWhatIf {
   }
 
   private request(removed: Uint8Array, full: boolean): Promise<SampledFields> {
-    if (this.failure !== null) return Promise.reject(this.failure);
-    const seq = ++this.seq;
-    return new Promise<SampledFields>((resolve, reject) => {
-      this.pending.set(seq, { resolve, reject });
-      this.worker.ref();
+    return this.replies.request((seq) => {
       const request: SampleRequest = { seq, removed, full };
       this.worker.postMessage(request);
+      this.worker.ref();
     });
   }
 
   private fail(e: Error): void {
-    this.failure ??= e;
-    for (const p of this.pending.values()) p.reject(e);
-    this.pending.clear();
+    this.replies.fail(e);
     this.worker.unref();
   }
 }
