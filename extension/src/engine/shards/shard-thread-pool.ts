@@ -3,6 +3,7 @@ import * as os from 'node:os';
 import * as path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import type { EffectiveSettings } from '../../protocol';
+import { PendingReplies } from '../threads/pending-replies';
 import { UserError } from '../user-error';
 import type { ShardRef } from './count-shard';
 import type { CountPartial, PlanPartial, SumsPartial } from './partials';
@@ -33,6 +34,12 @@ export type ShardTaskReply =
   | { id: number; partial: CountPartial | SumsPartial }
   | { id: number; error: { user: boolean; message: string; file: string | null; line: number | null; stack?: string } };
 
+/** A step's failure as this thread throws it: the user's mistake stays a UserError. */
+function taskError(error: Extract<ShardTaskReply, { error: unknown }>['error']): Error {
+  if (error.user) return new UserError(error.message, error.file, error.line);
+  return Object.assign(new Error(`shard thread: ${error.message}`), { stack: error.stack });
+}
+
 /**
  * Shard steps on worker threads (dist/shard-thread.js): round 1 and the sums rounds of a review
  * in shards, `threads` at a time, for the editor, where a folder of shards is reviewed on this
@@ -46,29 +53,18 @@ export async function shardThreadPool(settings: EffectiveSettings, threads: numb
   const folder = await fs.mkdtemp(path.join(os.tmpdir(), `${PREFIX}${process.pid}-`));
   const idle: Worker[] = [];
   const waiting: Array<(w: Worker) => void> = [];
-  const pending = new Map<number, { resolve(p: CountPartial | SumsPartial): void; reject(e: Error): void }>();
+  const pending = new PendingReplies<CountPartial | SumsPartial>();
   const all: Worker[] = [];
-  let failure: Error | null = null;
-  let seq = 0;
   for (let t = 0; t < threads; t++) {
     const worker = new Worker(script, { workerData: { settings } });
     worker.on('message', (reply: ShardTaskReply) => {
-      const p = pending.get(reply.id);
-      if (p === undefined) return;
-      pending.delete(reply.id);
-      release(worker);
-      if ('partial' in reply) p.resolve(reply.partial);
-      else if (reply.error.user) p.reject(new UserError(reply.error.message, reply.error.file, reply.error.line));
-      else p.reject(Object.assign(new Error(`shard thread: ${reply.error.message}`), { stack: reply.error.stack }));
+      const answered = 'partial' in reply ? pending.resolve(reply.id, reply.partial) : pending.reject(reply.id, taskError(reply.error));
+      // A reply that no request waits for (the pool has failed) frees no thread.
+      if (answered) release(worker);
     });
-    const fail = (e: Error): void => {
-      failure ??= e;
-      for (const [, p] of pending) p.reject(e);
-      pending.clear();
-    };
-    worker.on('error', fail);
+    worker.on('error', (e) => pending.fail(e));
     worker.on('exit', (code) => {
-      if (code !== 0) fail(new Error(`shard thread exited with code ${code}`));
+      if (code !== 0) pending.fail(new Error(`shard thread exited with code ${code}`));
     });
     all.push(worker);
     idle.push(worker);
@@ -89,22 +85,16 @@ export async function shardThreadPool(settings: EffectiveSettings, threads: numb
     return file;
   };
   async function run<T extends CountPartial | SumsPartial>(task: TaskBody): Promise<T> {
-    if (failure !== null) throw failure;
+    if (pending.failure !== null) throw pending.failure;
     const worker = await acquire();
-    const id = seq++;
-    return new Promise<T>((resolve, reject) => {
-      pending.set(id, { resolve: resolve as (p: CountPartial | SumsPartial) => void, reject });
-      worker.postMessage({ ...task, id });
-    });
+    return pending.request((id) => worker.postMessage({ ...task, id })) as Promise<T>;
   }
   return {
     parallelism: threads,
     count: (shard) => run<CountPartial>({ step: 'count', shard, countsFile: countsFileOf(shard) }),
     sums: (shard, plan) => run<SumsPartial>({ step: 'sums', shard, plan, countsFile: countsFileOf(shard) }),
     async close() {
-      failure ??= new Error('the shard threads were closed');
-      for (const [, p] of pending) p.reject(failure);
-      pending.clear();
+      pending.fail(new Error('the shard threads were closed'));
       await Promise.all(all.map((w) => w.terminate()));
       await fs.rm(folder, { recursive: true, force: true });
     },

@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
+import { PendingReplies } from '../threads/pending-replies';
 import { addRowCountSums, type RowCountSums } from './row-count-sums';
 import type { CountedPart } from './rows-in-rank-order';
 import type { AssembleReply, AssembleRequest } from './tokenize-messages';
@@ -36,24 +37,16 @@ export interface RowAssembler {
 export function startRowAssembler(threads: number, script: string): RowAssembler | null {
   if (threads < 1 || !existsSync(script)) return null;
   const pool: Worker[] = [];
-  const pending = new Map<number, { resolve(sums: RowCountSums | null): void; reject(e: Error): void }>();
-  let failure: Error | null = null;
-  const fail = (e: Error): void => {
-    failure ??= e;
-    for (const p of pending.values()) p.reject(e);
-    pending.clear();
-  };
+  // A request's number is its thread's index: each thread writes one run of parts per job.
+  const pending = new PendingReplies<RowCountSums | null>();
   for (let w = 0; w < threads; w++) {
     const worker = new Worker(script);
     worker.on('message', (reply: AssembleReply) => {
-      const p = pending.get(reply.seq);
-      if (p === undefined) return;
-      pending.delete(reply.seq);
-      if (reply.error === null) p.resolve(reply.sums);
-      else p.reject(new Error(`assemble worker: ${reply.error}`));
+      if (reply.error === null) pending.resolve(reply.seq, reply.sums);
+      else pending.reject(reply.seq, new Error(`assemble worker: ${reply.error}`));
     });
-    worker.on('error', fail);
-    worker.on('exit', (code) => fail(new Error(`assemble worker exited with code ${code}`)));
+    worker.on('error', (e) => pending.fail(e));
+    worker.on('exit', (code) => pending.fail(new Error(`assemble worker exited with code ${code}`)));
     pool.push(worker);
   }
   return {
@@ -70,15 +63,11 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
       const replies = await Promise.all(
         shares.map((share, w) => {
           if (share.length === 0) return Promise.resolve(null);
-          if (failure !== null) return Promise.reject(failure);
           const parts = share.map((k) => job.parts[k]!);
           const transfer: ArrayBuffer[] = [];
           for (const p of parts) transfer.push(p.rowEnds.buffer as ArrayBuffer, p.cols.buffer as ArrayBuffer, p.counts.buffer as ArrayBuffer);
           const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!), countSums: job.countSums === true };
-          return new Promise<RowCountSums | null>((resolve, reject) => {
-            pending.set(w, { resolve, reject });
-            pool[w]!.postMessage(request, transfer);
-          });
+          return pending.request(() => pool[w]!.postMessage(request, transfer), w);
         }),
       );
       if (job.countSums !== true) return null;
@@ -92,7 +81,7 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
       return summed;
     },
     async close() {
-      failure ??= new Error('assemble pool closed');
+      pending.fail(new Error('assemble pool closed'));
       await Promise.all(pool.map((w) => w.terminate()));
     },
   };
