@@ -16,6 +16,8 @@ describe('worker-protocol guards', () => {
     assert.equal(isHostToWorker({ type: 'cancel', runId: 1 }), false, 'cancelling terminates the worker; there is no cancel message');
     assert.equal(isHostToWorker({ type: 'review', runId: 1, input: {} }), false);
     assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: [3] }), false);
+    assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: ['via'], speculative: true }), true);
+    assert.equal(isHostToWorker({ type: 'whatIf', requestId: 2, removed: ['via'], speculative: 'yes' }), false);
     assert.equal(isHostToWorker({ type: 'report', runId: 1 }), false);
     assert.equal(isHostToWorker(null), false);
   });
@@ -86,6 +88,27 @@ describe('review worker round trip (dist/review-worker.js)', function () {
     const withSuggestions = await client.whatIf(report.suggestions);
     assert.ok(Math.abs(withSuggestions.backgroundSimilarity - report.suggested.backgroundSimilarity) < 1e-12);
     if (report.suggestions.length > 0) assert.ok(withSuggestions.backgroundSimilarity < none.backgroundSimilarity);
+  });
+
+  it('ReviewWorkerClient.speculativeWhatIf (a hover\'s prefetch) answers what the click on that selection then answers, bit for bit, and leaves the plain what-ifs as they were', async function () {
+    const report = await client.review({ file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message', stopList: null, sample: { documents: 30, k: 3 } } });
+    const opening = [...report.suggestions];
+    assert.ok(opening.length > 0 && !opening.includes('battery'), `suggestions: ${opening.join(', ')}`);
+    // Unticking the first suggestion (the hovered term), ticking a topic word (elsewhere).
+    const hovered = opening.slice(1);
+    const other = [...opening, 'battery'];
+    await client.whatIf(opening);
+    // A hover elsewhere, then on the clicked term: the click adopts the second prefetch.
+    const elsewhere = await client.speculativeWhatIf(other);
+    const prefetch = await client.speculativeWhatIf(hovered);
+    assert.ok(elsewhere !== null && prefetch !== null, 'the review worker did not speculate (no what-if thread?)');
+    const click = await client.timedWhatIf(hovered);
+    assert.deepStrictEqual(click.measures, prefetch.measures);
+    // The hover elsewhere did not move the state: its selection clicked now (from the hovered
+    // click's state) equals the prefetch's to rounding (the incremental answer is held to a full
+    // recompute in what-if-incremental.test.ts).
+    const later = await client.whatIf(other);
+    assert.ok(Math.abs(later.backgroundSimilarity - elsewhere.measures.backgroundSimilarity) < 1e-12);
   });
 
   it('ReviewWorkerClient.review turns a broken loudword.json into a user failure with file and line', async () => {

@@ -36,13 +36,16 @@ function failureOf(kind: WorkerErrorMessage['kind'], message: string, file: stri
 }
 
 interface Pending<T> { resolve(value: T): void; reject(error: Error): void }
+/** A what-if's measures and the engine's time for them (ms, measured in the worker). */
+export interface WhatIfAnswer { measures: Measures; engineMs: number }
 interface PendingRun extends Pending<Report> { onStage: ((stage: ReviewStage, fraction: number) => void) | undefined }
 
 export class ReviewWorkerClient {
   private worker: Worker | null = null;
   private nextId = 1;
   private readonly runs = new Map<number, PendingRun>();
-  private readonly whatIfs = new Map<number, Pending<{ measures: Measures; engineMs: number }>>();
+  /** What-ifs awaiting the worker; a prefetch's resolves with null when the worker drops it. */
+  private readonly whatIfs = new Map<number, Pending<WhatIfAnswer | null>>();
   /** True while the worker holds a finished session that can answer what-ifs. */
   private sessionReady = false;
 
@@ -80,14 +83,30 @@ export class ReviewWorkerClient {
   }
 
   /** The what-if with the engine's time for it (ms, measured in the worker). */
-  timedWhatIf(removed: readonly string[]): Promise<{ measures: Measures; engineMs: number }> {
+  timedWhatIf(removed: readonly string[]): Promise<WhatIfAnswer> {
+    return this.askWhatIf(removed, false).then((answer) => {
+      if (answer === null) throw new WorkerFailure('The review worker dropped a what-if it had to answer.');
+      return answer;
+    });
+  }
+
+  /**
+   * A prefetch (the pointer rests on a term): the worker answers it only when no click is
+   * waiting, without moving the review's what-if state, and a click for the same selection that
+   * follows adopts it (worker-protocol.ts WhatIfRequest). Null when the worker dropped it.
+   */
+  speculativeWhatIf(removed: readonly string[]): Promise<WhatIfAnswer | null> {
+    return this.askWhatIf(removed, true);
+  }
+
+  private askWhatIf(removed: readonly string[], speculative: boolean): Promise<WhatIfAnswer | null> {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
     const requestId = this.nextId++;
-    return new Promise<{ measures: Measures; engineMs: number }>((resolve, reject) => {
+    return new Promise<WhatIfAnswer | null>((resolve, reject) => {
       this.whatIfs.set(requestId, { resolve, reject });
       this.updateRef();
-      this.send(worker, { type: 'whatIf', requestId, removed: [...removed] });
+      this.send(worker, speculative ? { type: 'whatIf', requestId, removed: [...removed], speculative } : { type: 'whatIf', requestId, removed: [...removed] });
     });
   }
 
@@ -160,6 +179,12 @@ export class ReviewWorkerClient {
         const pending = this.whatIfs.get(m.requestId);
         this.whatIfs.delete(m.requestId);
         pending?.resolve({ measures: m.measures, engineMs: m.engineMs });
+        return;
+      }
+      case 'whatIfDropped': {
+        const pending = this.whatIfs.get(m.requestId);
+        this.whatIfs.delete(m.requestId);
+        pending?.resolve(null);
         return;
       }
       case 'error': {

@@ -53,17 +53,66 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
   }
 }
 
-async function whatIf(requestId: number, removed: string[]): Promise<void> {
+interface Asked { requestId: number; removed: string[]; speculative: boolean }
+
+/** Clicks' what-ifs not answered yet, in the order they came. */
+const clicks: Asked[] = [];
+/** The latest prefetch not started yet: it waits for every click, and a newer one replaces it. */
+let hover: Asked | null = null;
+let answering = false;
+
+/**
+ * One what-if at a time, clicks first: a prefetch (speculative) runs only when no click waits,
+ * and a click or a newer prefetch drops one that has not started. A started one cannot be
+ * stopped (the engine's steps are synchronous): a click then waits for it, and adopts its
+ * state when it asked for the same selection (ReviewSession.speculate).
+ */
+function ask(asked: Asked): void {
+  if (hover !== null) post({ type: 'whatIfDropped', requestId: hover.requestId });
+  hover = null;
+  if (asked.speculative) hover = asked;
+  else clicks.push(asked);
+  void answerAll();
+}
+
+async function answerAll(): Promise<void> {
+  if (answering) return;
+  answering = true;
+  try {
+    for (;;) {
+      const click = clicks.shift();
+      if (click !== undefined) {
+        await whatIf(click);
+        continue;
+      }
+      if (hover === null) return;
+      // A click already in this thread's message queue goes first (it drops the prefetch).
+      await new Promise<void>((resolve) => setImmediate(resolve));
+      const prefetch = hover;
+      if (clicks.length > 0 || prefetch === null) continue;
+      hover = null;
+      await whatIf(prefetch);
+    }
+  } finally {
+    answering = false;
+  }
+}
+
+async function whatIf({ requestId, removed, speculative }: Asked): Promise<void> {
   if (session === null) {
-    post({ type: 'error', kind: 'user', message: 'No finished review to ask a what-if of; run "Review distances" first.', file: null, line: null, requestId });
+    if (speculative) post({ type: 'whatIfDropped', requestId });
+    else post({ type: 'error', kind: 'user', message: 'No finished review to ask a what-if of; run "Review distances" first.', file: null, line: null, requestId });
     return;
   }
   try {
     const started = performance.now();
-    const measures = await session.whatIf(removed);
-    post({ type: 'whatIfResult', requestId, removed, measures, engineMs: performance.now() - started });
+    const measures = !speculative ? await session.whatIf(removed) : 'speculate' in session && session.speculate !== undefined ? await session.speculate(removed) : null;
+    if (measures === null) post({ type: 'whatIfDropped', requestId });
+    else post({ type: 'whatIfResult', requestId, removed, measures, engineMs: performance.now() - started });
   } catch (e) {
-    post({ ...errorMessage(e, null), requestId });
+    // A failed prefetch says nothing: the click that may follow asks again and reports it.
+    if (speculative) post({ type: 'whatIfDropped', requestId });
+    else post({ ...errorMessage(e, null), requestId });
   }
 }
 
@@ -77,7 +126,7 @@ parentPort?.on('message', (message: unknown) => {
       void review(message.runId, message);
       return;
     case 'whatIf':
-      void whatIf(message.requestId, message.removed);
+      ask({ requestId: message.requestId, removed: message.removed, speculative: message.speculative === true });
       return;
   }
 });

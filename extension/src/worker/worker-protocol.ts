@@ -8,8 +8,13 @@ import type { ReviewInput, ReviewStage } from '../engine/review/review-api';
 // ---- host → worker ----
 /** Start (or restart) the review; a running one is aborted first. */
 export interface ReviewRequest { type: 'review'; runId: number; input: ReviewInput }
-/** Measures with the session's baseline stop list plus `removed`. */
-export interface WhatIfRequest { type: 'whatIf'; requestId: number; removed: string[] }
+/**
+ * Measures with the session's baseline stop list plus `removed`. `speculative`: a prefetch (the
+ * pointer rests on a term): answered only when no click is waiting, computed without moving the
+ * session's state (ReviewSession.speculate), and dropped (WhatIfDropped) when a click or a newer
+ * prefetch comes before it starts.
+ */
+export interface WhatIfRequest { type: 'whatIf'; requestId: number; removed: string[]; speculative?: boolean }
 // Cancelling is not a message: the host terminates the worker (review-worker-client.ts), because a
 // long synchronous step would not read one, and a stuck thread must not outlive the user's cancel.
 export type HostToWorker = ReviewRequest | WhatIfRequest;
@@ -19,6 +24,8 @@ export interface StageMessage { type: 'stage'; runId: number; stage: ReviewStage
 export interface ReportMessage { type: 'report'; runId: number; report: Report }
 /** The worker's answer to a WhatIfRequest (the host passes it on to the panel as protocol.ts's WhatIfResultMessage). */
 export interface WorkerWhatIfResult { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures; engineMs: number }
+/** A speculative WhatIfRequest that will not be answered (overtaken, or the session cannot speculate). */
+export interface WhatIfDropped { type: 'whatIfDropped'; requestId: number }
 /**
  * A failure. `kind` says whose fault it is: 'user' (a file or setting, with file and 1-based
  * line where known), 'cancelled' (the host asked), 'internal' (a bug; `stack` for the log).
@@ -34,10 +41,10 @@ export interface WorkerErrorMessage {
   requestId?: number;
   stack?: string;
 }
-export type WorkerToHost = StageMessage | ReportMessage | WorkerWhatIfResult | WorkerErrorMessage;
+export type WorkerToHost = StageMessage | ReportMessage | WorkerWhatIfResult | WhatIfDropped | WorkerErrorMessage;
 
 const hostToWorkerTypes: ReadonlySet<string> = new Set(['review', 'whatIf']);
-const workerToHostTypes: ReadonlySet<string> = new Set(['stage', 'report', 'whatIfResult', 'error']);
+const workerToHostTypes: ReadonlySet<string> = new Set(['stage', 'report', 'whatIfResult', 'whatIfDropped', 'error']);
 
 /** Checks a message the worker received; the worker answers anything else with an error. */
 export function isHostToWorker(value: unknown): value is HostToWorker {
@@ -47,7 +54,7 @@ export function isHostToWorker(value: unknown): value is HostToWorker {
     case 'review':
       return typeof m.runId === 'number' && typeof m.input === 'object' && m.input !== null && typeof (m.input as { file?: unknown }).file === 'string';
     default:
-      return typeof m.requestId === 'number' && isStringArray(m.removed);
+      return typeof m.requestId === 'number' && isStringArray(m.removed) && (m.speculative === undefined || typeof m.speculative === 'boolean');
   }
 }
 

@@ -50,6 +50,13 @@ export interface ReviewSession {
    */
   whatIf(removed: readonly string[]): Promise<Measures>;
   /**
+   * whatIf(removed)'s answer computed without moving the session's what-if state (the panel's
+   * prefetch on a hover); a whatIf(removed) that comes next, with no other call between, adopts
+   * it and answers at once with the same bits. Null when this session cannot speculate now (no
+   * what-if thread yet, or it failed): the caller then just waits for the click.
+   */
+  speculate?(removed: readonly string[]): Promise<Measures | null>;
+  /**
    * Builds what the first toggle would otherwise pay for (the column postings), starts the
    * sample's what-if thread at the panel's opening state and, unless `warmUp` is false, runs a
    * few toggles there and back so the reader's first click runs optimised code (optional; idle

@@ -123,6 +123,12 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
       afterIdleDelay(() => lab.settle());
       return measures;
     },
+    async speculate(removed: readonly string[]) {
+      if (parallel === null) return null;
+      const measures = await parallel.speculate(DistanceLab.union(baseMask, index.columnsOf(removed)));
+      afterIdleDelay(() => lab.settle());
+      return measures;
+    },
     async prepareWhatIf(options) {
       if (parallel !== null) return;
       lab.prepareToggles();

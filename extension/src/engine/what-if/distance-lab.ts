@@ -7,7 +7,7 @@ import type { Measures } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { termSums } from '../measures/term-sums';
 import { IncrementalGram } from './incremental-gram';
-import { IncrementalTermSums } from './incremental-term-sums';
+import { IncrementalTermSums, sameMask } from './incremental-term-sums';
 
 export type DistanceResult = ReturnType<typeof measureDistances>;
 
@@ -26,8 +26,15 @@ export class DistanceLab {
   /** 0..m−1: sample positions, for functions that take (rows, sample) pairs. */
   readonly positions: Uint32Array;
   private readonly buffers: CsrBuffers;
-  private readonly exact: IncrementalTermSums;
+  private exact: IncrementalTermSums;
   private readonly gram: IncrementalGram;
+  /** The second state speculative answers are computed in (IncrementalTermSums.twin), once needed. */
+  private spareExact: IncrementalTermSums | null = null;
+  /**
+   * The latest speculative answer and its mask, computed from the current state: every call that
+   * moves the exact sums drops it (settle does not: it changes no answer, see IncrementalTermSums).
+   */
+  private speculation: { mask: Uint8Array; measures: ExactMeasures } | null = null;
 
   constructor(
     /** l2-normalised weights of every kept term; removing a column and renormalising equals
@@ -105,11 +112,36 @@ export class DistanceLab {
    * call's state. ParallelWhatIf runs it here while the sample's half runs on its own thread.
    */
   whatIfExact(removed: Uint8Array): ExactMeasures {
+    const held = this.speculation;
+    this.speculation = null;
+    if (held !== null && this.spareExact !== null && held.mask.length === removed.length && sameMask(removed, held.mask)) {
+      // The speculation went from this very state to `removed` the way this call would: adopt it.
+      [this.exact, this.spareExact] = [this.spareExact, this.exact];
+      return held.measures;
+    }
     const { sums, rowsWithWeight } = this.exactSums(removed, true);
     return exactMeasures(sums, rowsWithWeight);
   }
 
+  /**
+   * whatIfExact's answer for `removed`, computed in a copy of the state (a hover's prefetch, the
+   * panel's speculative what-if): the state the clicks walk does not move, and a whatIfExact of
+   * the same mask that comes next adopts the copy instead of computing, so its answer and the
+   * state it leaves are those of a plain call, bit for bit (test/what-if-speculative.test.ts).
+   * Only for the lab whose exact sums are its own (not a ShardedLab's summed partials).
+   */
+  speculateExact(removed: Uint8Array): ExactMeasures {
+    if (this.exactSums !== DistanceLab.prototype.exactSums) throw new Error('speculateExact: this lab answers its exact sums from elsewhere');
+    const spare = (this.spareExact ??= this.exact.twin());
+    spare.copyFrom(this.exact);
+    const { sums, rowsWithWeight } = spare.at(removed, true);
+    const measures = exactMeasures(sums, rowsWithWeight);
+    this.speculation = { mask: removed.slice(), measures };
+    return measures;
+  }
+
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {
+    this.speculation = null;
     const { sums, rowsWithWeight } = this.exactSums(removed, incremental);
     const { dots, scale } = this.gram.scaled(removed, incremental);
     return measureDistances(this.maskedSample(removed), {

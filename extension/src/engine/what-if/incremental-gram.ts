@@ -33,7 +33,7 @@ export class IncrementalGram {
   private ready = false;
   private updatedPairs = 0;
   /** D of full builds (the review's baseline and the latest Report figure), restored bit for bit. */
-  private readonly checkpoints: Array<{ mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array }> = [];
+  private checkpoints: Array<{ mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array }> = [];
   /** Whether D is what a full build gives (not reached by updates). */
   private exact = false;
   /** A rebuild at the current mask is due (see settle). */
@@ -90,6 +90,34 @@ export class IncrementalGram {
       inv[i] = d > 0 ? 1 / Math.sqrt(d) : 0;
     }
     return { dots, scale: inv };
+  }
+
+  /**
+   * A second state over the same rows, sharing the checkpoints: the what-if's speculative
+   * answers are computed in it (copyFrom, then scaled) so that the state the clicks walk is left
+   * as it was, and adopted by swapping the two (SampleSide).
+   */
+  twin(): IncrementalGram {
+    const twin = new IncrementalGram(this.rows);
+    twin.checkpoints = this.checkpoints;
+    return twin;
+  }
+
+  /**
+   * Makes this state `other`'s, to the bit: D, the shared-term counts, the mask and the counters
+   * that decide the next rebuild (so the next call takes the branch `other`'s would).
+   */
+  copyFrom(other: IncrementalGram): void {
+    if (other.rows !== this.rows) throw new Error('copyFrom: a state over other rows');
+    this.dots.set(other.dots);
+    this.shared.set(other.shared);
+    this.inv.set(other.inv);
+    this.mask.set(other.mask);
+    this.ready = other.ready;
+    this.updatedPairs = other.updatedPairs;
+    this.exact = other.exact;
+    this.settleDue = other.settleDue;
+    this.lastStep = { ...other.lastStep };
   }
 
   /**

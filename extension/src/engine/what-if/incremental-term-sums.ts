@@ -37,7 +37,7 @@ export class IncrementalTermSums {
    * States of full passes (the review's baseline and the latest Report figure), restored bit for
    * bit whenever that mask is asked for again.
    */
-  private readonly checkpoints: Array<{ mask: Uint8Array; s1: Float64Array; s2: Float64Array; df: Uint32Array; rowNorm2: Float64Array; rowsWithWeight: number }> = [];
+  private checkpoints: Array<{ mask: Uint8Array; s1: Float64Array; s2: Float64Array; df: Uint32Array; rowNorm2: Float64Array; rowsWithWeight: number }> = [];
   /** Whether the state is what a full pass gives (not reached by updates). */
   private exact = false;
   /** A full pass at the current mask is due (see settle). */
@@ -112,6 +112,39 @@ export class IncrementalTermSums {
       }
     }
     return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
+  }
+
+  /**
+   * A second state over the same weights, sharing the column postings and the checkpoints: the
+   * what-if's speculative answers are computed in it (copyFrom, then at) so that the state the
+   * clicks walk is left as it was, and adopted by swapping the two (DistanceLab.whatIfExact).
+   */
+  twin(): IncrementalTermSums {
+    const twin = new IncrementalTermSums(this.weights);
+    twin.postings = this.columnPostings();
+    twin.checkpoints = this.checkpoints;
+    return twin;
+  }
+
+  /**
+   * Makes this state `other`'s, to the bit: the sums, norms and mask, and the counters that
+   * decide the next full pass (so the next call takes the branch `other`'s would). The row
+   * stamps stay this instance's: they only tell rows apart within one call.
+   */
+  copyFrom(other: IncrementalTermSums): void {
+    if (other.weights !== this.weights) throw new Error('copyFrom: a state over other weights');
+    this.s1.set(other.s1);
+    this.s2.set(other.s2);
+    this.df.set(other.df);
+    this.sxlogx.set(other.sxlogx);
+    this.rowNorm2.set(other.rowNorm2);
+    this.mask.set(other.mask);
+    this.rowsWithWeight = other.rowsWithWeight;
+    this.ready = other.ready;
+    this.updatedEntries = other.updatedEntries;
+    this.exact = other.exact;
+    this.settleDue = other.settleDue;
+    this.lastStep = { ...other.lastStep };
   }
 
   /**

@@ -75,6 +75,25 @@ export class ParallelWhatIf {
   }
 
   /**
+   * whatIf(removed)'s answer without moving the state the clicks walk (the panel's prefetch
+   * while the pointer rests on a term): both halves compute in copies of their state
+   * (DistanceLab.speculateExact, SampleSide.speculate), and a whatIf(removed) that comes next
+   * adopts them, so it answers at once with the same bits and leaves the same state as if it
+   * had computed (test/what-if-speculative.test.ts). Null once the thread has failed: the
+   * one-thread fallback does not speculate.
+   */
+  async speculate(removed: Uint8Array): Promise<Measures | null> {
+    if (this.replies.failure !== null) return null;
+    const sampled = this.request(removed, false, true);
+    const exact = this.lab.speculateExact(removed);
+    try {
+      return joinMeasures(await sampled, exact);
+    } catch {
+      return null;
+    }
+  }
+
+  /**
    * Toggles the column with the most sampled postings away from `opening` and back, `rounds`
    * times, the answers thrown away: V8 optimises a toggle's loops only once they have run, so
    * the reader's first three or four clicks used to be the slowest (100k bench, a process without
@@ -100,9 +119,9 @@ export class ParallelWhatIf {
     await this.worker.terminate();
   }
 
-  private request(removed: Uint8Array, full: boolean): Promise<SampledFields> {
+  private request(removed: Uint8Array, full: boolean, speculative = false): Promise<SampledFields> {
     return this.replies.request((seq) => {
-      const request: SampleRequest = { seq, removed, full };
+      const request: SampleRequest = speculative ? { seq, removed, full, speculative } : { seq, removed, full };
       this.worker.postMessage(request);
       this.worker.ref();
     });

@@ -1,6 +1,7 @@
 import type { Csr } from '../matrix/csr';
 import { sampledMeasures, type SampledFields } from '../measures/measure-distances';
 import { IncrementalGram } from './incremental-gram';
+import { sameMask } from './incremental-term-sums';
 
 /** What a SampleSide needs: the review's sampled rows and the settings of its measures. */
 export interface SampleSideInput {
@@ -22,21 +23,53 @@ export interface SampleSideInput {
  * calls in one thread.
  */
 export class SampleSide {
-  private readonly gram: IncrementalGram;
+  private gram: IncrementalGram;
+  /** The second state speculative answers are computed in (IncrementalGram.twin), once needed. */
+  private spare: IncrementalGram | null = null;
+  /** The latest speculative answer and its mask, computed from the current state: every call to measures drops it. */
+  private speculation: { mask: Uint8Array; measures: SampledFields } | null = null;
 
   constructor(private readonly input: SampleSideInput) {
     this.gram = new IncrementalGram(input.rows);
   }
 
-  /** The sampled Measures with `removed` stopped; `incremental` as in IncrementalGram.scaled. */
+  /**
+   * The sampled Measures with `removed` stopped; `incremental` as in IncrementalGram.scaled. An
+   * incremental call for the mask of the latest speculation, with no call between them, adopts
+   * the speculation's state and answer (see speculate).
+   */
   measures(removed: Uint8Array, incremental = true): SampledFields {
-    const { dots, scale } = this.gram.scaled(removed, incremental);
-    const { k, seed, labels, baselineNeighbors } = this.input;
-    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale }).measures;
+    const held = this.speculation;
+    this.speculation = null;
+    if (incremental && held !== null && this.spare !== null && held.mask.length === removed.length && sameMask(removed, held.mask)) {
+      [this.gram, this.spare] = [this.spare, this.gram];
+      return held.measures;
+    }
+    return this.read(this.gram, removed, incremental);
+  }
+
+  /**
+   * measures(removed)'s answer computed in a copy of the dot products (the panel's prefetch on a
+   * hover): the state the clicks walk does not move, and a measures(removed) that comes next
+   * adopts the copy, so its answer and the state it leaves are a plain call's, bit for bit.
+   * The copy costs one pass over the m×m products (idle time: no click waits for it).
+   */
+  speculate(removed: Uint8Array): SampledFields {
+    const spare = (this.spare ??= this.gram.twin());
+    spare.copyFrom(this.gram);
+    const measures = this.read(spare, removed, true);
+    this.speculation = { mask: removed.slice(), measures };
+    return measures;
   }
 
   /** The dot products' drift reset, if due (IncrementalGram.settle): for the time between requests. */
   settle(): void {
     this.gram.settle();
+  }
+
+  private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean): SampledFields {
+    const { dots, scale } = gram.scaled(removed, incremental);
+    const { k, seed, labels, baselineNeighbors } = this.input;
+    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale }).measures;
   }
 }

@@ -12,6 +12,8 @@ export interface SampleRequest {
   seq: number;
   removed: Uint8Array;
   full: boolean;
+  /** SampleSide.speculate: computed in a copy, adopted only by a request for the same mask that comes next. */
+  speculative?: boolean;
 }
 
 /** Sample thread → review thread: the answer to request `seq`, or why there is none. */

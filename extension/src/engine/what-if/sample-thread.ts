@@ -14,7 +14,7 @@ const side = new SampleSide(workerData as SampleThreadData);
 port.on('message', (request: SampleRequest) => {
   let reply: SampleReply;
   try {
-    reply = { seq: request.seq, measures: side.measures(request.removed, !request.full), error: null };
+    reply = { seq: request.seq, measures: request.speculative === true ? side.speculate(request.removed) : side.measures(request.removed, !request.full), error: null };
   } catch (e) {
     reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
