@@ -37,6 +37,61 @@ describe('tokenize/chunk-table', () => {
     for (const probe of ['ab', 'zzz', 'a'.repeat(13), '東東東東東東東東東東東東東']) if (!m.has(probe)) assert.equal(t.getKey(probe), ABSENT, probe);
   });
 
+  it('ChunkTable tells apart keys that differ in their last code unit, on both sides of the length kept in a slot', () => {
+    // Short keys are compared two code units at a time, long ones unit by unit: near-identical
+    // keys of every length from 1 to 14 (the slot keeps 10), with units above 0x7fff (negative
+    // when packed into an int32) and U+0000 (the empty high half of an odd key).
+    const t = new ChunkTable();
+    const m = new Map<string, number>();
+    const lasts = ['a', 'b', '\u0000', '\uffff', '\ud83d', '\u8000'];
+    for (let length = 1; length <= 14; length++) {
+      for (const fill of ['x', '\uff21']) {
+        for (const last of lasts) {
+          const key = fill.repeat(length - 1) + last;
+          m.set(key, m.size);
+          t.set(key, m.get(key)!);
+        }
+      }
+    }
+    assert.equal(t.size, m.size);
+    const text = `(${[...m.keys()].join(' ')})`;
+    let start = 1;
+    for (const [key, value] of m) {
+      assert.equal(t.get(text, start, start + key.length, hashOf(text, start, start + key.length)), value, JSON.stringify(key));
+      start += key.length + 1;
+    }
+    for (const probe of ['x'.repeat(10) + 'c', 'x'.repeat(9) + 'c', '\uff21'.repeat(3) + 'c', 'a\u0000\u0000']) assert.equal(t.getKey(probe), ABSENT, JSON.stringify(probe));
+  });
+
+  it('ChunkTable keeps apart two keys of the same length and the same 32-bit hash, short and long', () => {
+    // Pairs found by a birthday search over seeded random keys (FNV-1a has 32 bits, so among
+    // ~2^17 keys of one length some two share a hash): only the comparison of the code units
+    // themselves can tell them apart.
+    let seed = 99;
+    const next = (): number => (seed = (Math.imul(seed, 1103515245) + 12345) >>> 0);
+    const alphabet = 'abcdefghijklmnopqrstuvwxyz\u00e9\u6771\uff21\u8000';
+    for (const length of [4, 10, 13]) {
+      const byHash = new Map<number, string>();
+      let pair: [string, string] | null = null;
+      while (pair === null) {
+        let key = '';
+        for (let j = 0; j < length; j++) key += alphabet[(next() >>> 8) % alphabet.length];
+        const h = hashOf(key, 0, length);
+        const other = byHash.get(h);
+        if (other !== undefined && other !== key) pair = [other, key];
+        else byHash.set(h, key);
+      }
+      const [a, b] = pair;
+      const t = new ChunkTable();
+      t.set(a, 1);
+      assert.equal(t.getKey(b), ABSENT, `${length}: ${JSON.stringify(b)} is not ${JSON.stringify(a)}`);
+      t.set(b, 2);
+      assert.equal(t.size, 2);
+      assert.equal(t.getKey(a), 1);
+      assert.equal(t.getKey(b), 2);
+    }
+  });
+
   it('ChunkTable starts over when full and says so, keeping the entry that did not fit', () => {
     const t = new ChunkTable(100);
     for (let i = 0; i < 100; i++) assert.equal(t.set(`k${i}`, i), true);

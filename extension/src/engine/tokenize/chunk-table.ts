@@ -4,22 +4,29 @@ export const ABSENT = -1;
 /** Entries kept before the table starts over; a bound on memory, not on correctness. */
 const MAX_ENTRIES = 1 << 20;
 
-// One slot is four int32s side by side (one cache line holds four slots): the key's hash, the
-// value, and where the key's UTF-16 code units sit in `chars` (offset, length).
+// One slot is eight int32s side by side (two slots to a cache line): the key's hash, the value,
+// the key's length in UTF-16 code units, then the key itself when it is short (INLINE code units
+// or fewer, two to an int32, the first in the low half), else where its code units sit in `chars`.
 const HASH = 0;
 const VALUE = 1;
-const OFFSET = 2;
-const LENGTH = 3;
-const SLOT = 4;
+const LENGTH = 2;
+const KEY = 3;
+const OFFSET = KEY;
+const SLOT = 8;
+/** Code units of a key kept in its slot: five int32s of two each. */
+const INLINE = 10;
 
 /**
  * A hash table from chunks of text to int32 values, looked up by (text, start, end) without
  * cutting the chunk out of its document: the tokenizer's hot loop sees ~90 chunks per document
  * and nearly all are hits, so a substring and a Map lookup per chunk (as `text.split()` then
- * `Map.get` would cost) is the larger part of the work. Open addressing; the keys' code units
- * are copied into one Uint16Array, so a lookup touches its slot and the key's code units and no
- * string object. The hash is FNV-1a over UTF-16 code units, computed by the caller while it
- * scans the chunk (`hashOf` gives the same).
+ * `Map.get` would cost) is the larger part of the work. Open addressing; a key of up to INLINE
+ * code units (~96% of the tokens of the bench corpus, most of English) is kept in its slot, so a
+ * lookup touches one cache line and no string object; a longer key's code units are copied into
+ * one Uint16Array beside the slots. (With every key in that array, each lookup read two places
+ * far apart in memory, and the profile of the pattern tokenizer put ~40% of its scan in those
+ * two loads.) The hash is FNV-1a over UTF-16 code units, computed by the caller while it scans
+ * the chunk (`hashOf` gives the same).
  */
 export class ChunkTable {
   private slots = new Int32Array(0);
@@ -38,7 +45,7 @@ export class ChunkTable {
     const capacity = 1 << 16;
     this.slots = new Int32Array(capacity * SLOT);
     for (let s = 0; s < capacity; s++) this.slots[s * SLOT + VALUE] = ABSENT;
-    this.chars = new Uint16Array(1 << 18);
+    this.chars = new Uint16Array(1 << 14);
     this.used = 0;
     this.mask = capacity - 1;
     this.size = 0;
@@ -46,18 +53,32 @@ export class ChunkTable {
 
   /** The value stored for text[start, end) whose FNV-1a hash is `hash`, or ABSENT. */
   get(text: string, start: number, end: number, hash: number): number {
-    const { slots, chars, mask } = this;
+    const { slots, mask } = this;
     const length = end - start;
     for (let slot = hash & mask; ; slot = (slot + 1) & mask) {
       const at = slot * SLOT;
       const v = slots[at + VALUE]!;
       if (v === ABSENT) return ABSENT;
       if (slots[at + HASH] !== hash || slots[at + LENGTH] !== length) continue;
-      const offset = slots[at + OFFSET]! - start;
+      if (length > INLINE) {
+        if (this.sameLongKey(slots[at + OFFSET]!, text, start, end)) return v;
+        continue;
+      }
       let j = start;
-      while (j < end && chars[offset + j] === text.charCodeAt(j)) j++;
-      if (j === end) return v;
+      let w = at + KEY;
+      for (; j + 1 < end; j += 2, w++) if (slots[w] !== (text.charCodeAt(j) | (text.charCodeAt(j + 1) << 16))) break;
+      if (j + 1 < end) continue;
+      if (j === end || slots[w] === text.charCodeAt(j)) return v;
     }
+  }
+
+  /** Whether the long key stored at `offset` of `chars` is text[start, end) (same length). */
+  private sameLongKey(offset: number, text: string, start: number, end: number): boolean {
+    const { chars } = this;
+    const shift = offset - start;
+    let j = start;
+    while (j < end && chars[shift + j] === text.charCodeAt(j)) j++;
+    return j === end;
   }
 
   /** The value stored for `key`, or ABSENT. */
@@ -83,20 +104,25 @@ export class ChunkTable {
     } else if ((this.size + 1) * 2 > this.mask + 1) {
       this.rehash((this.mask + 1) * 2);
     }
-    if (this.used + key.length > this.chars.length) {
-      let size = this.chars.length * 2;
-      while (size < this.used + key.length) size *= 2;
-      const grown = new Uint16Array(size);
-      grown.set(this.chars.subarray(0, this.used));
-      this.chars = grown;
-    }
-    for (let i = 0; i < key.length; i++) this.chars[this.used + i] = key.charCodeAt(i);
     const at = this.find(key, hash) * SLOT;
     this.slots[at + HASH] = hash;
     this.slots[at + VALUE] = value;
-    this.slots[at + OFFSET] = this.used;
     this.slots[at + LENGTH] = key.length;
-    this.used += key.length;
+    if (key.length <= INLINE) {
+      // Two code units to an int32; an odd key's last int32 has 0 in its high half.
+      for (let j = 0; j < key.length; j += 2) this.slots[at + KEY + (j >> 1)] = key.charCodeAt(j) | (j + 1 < key.length ? key.charCodeAt(j + 1) << 16 : 0);
+    } else {
+      if (this.used + key.length > this.chars.length) {
+        let size = this.chars.length * 2;
+        while (size < this.used + key.length) size *= 2;
+        const grown = new Uint16Array(size);
+        grown.set(this.chars.subarray(0, this.used));
+        this.chars = grown;
+      }
+      for (let i = 0; i < key.length; i++) this.chars[this.used + i] = key.charCodeAt(i);
+      this.slots[at + OFFSET] = this.used;
+      this.used += key.length;
+    }
     this.size++;
     return kept;
   }
@@ -107,11 +133,17 @@ export class ChunkTable {
       const at = slot * SLOT;
       if (this.slots[at + VALUE] === ABSENT) return slot;
       if (this.slots[at + HASH] !== hash || this.slots[at + LENGTH] !== key.length) continue;
-      const offset = this.slots[at + OFFSET]!;
-      let j = 0;
-      while (j < key.length && this.chars[offset + j] === key.charCodeAt(j)) j++;
-      if (j === key.length) return slot;
+      if (key.length > INLINE ? this.sameLongKey(this.slots[at + OFFSET]!, key, 0, key.length) : this.sameShortKey(at, key)) return slot;
     }
+  }
+
+  /** Whether the short key in the slot at `at` is `key` (same length). */
+  private sameShortKey(at: number, key: string): boolean {
+    for (let j = 0; j < key.length; j += 2) {
+      const unit = key.charCodeAt(j) | (j + 1 < key.length ? key.charCodeAt(j + 1) << 16 : 0);
+      if (this.slots[at + KEY + (j >> 1)] !== unit) return false;
+    }
+    return true;
   }
 
   private rehash(capacity: number): void {
