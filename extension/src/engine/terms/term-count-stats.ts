@@ -1,21 +1,13 @@
 import type { Csr } from '../matrix/csr';
+import type { RowCountSums } from '../tokenize/row-count-sums';
 
 /**
  * Exact per-term sums over the raw counts c(d,t) of the whole corpus, before any stop list:
  * everything the suggestion signals need. Each field is a sum over documents, so shards merge by
- * adding them. Document length L_d is the number of kept tokens in d (Σ_t c(d,t)).
+ * adding them. Document length L_d is the number of kept tokens in d (Σ_t c(d,t)). The same
+ * fields as the sums the row-writing threads add up for their rows, so those are used as they are.
  */
-export interface TermCountStats {
-  documents: number;
-  /** Σ_d L_d and Σ_d L_d². */
-  totalTokens: number;
-  sumLengthSq: number;
-  /** Per term: df, Σ c, Σ c², Σ c·L_d. */
-  df: Float64Array;
-  cf: Float64Array;
-  sumCountSq: Float64Array;
-  sumCountLength: Float64Array;
-}
+export type TermCountStats = RowCountSums;
 
 /** One pass over the non-zeros of the raw count matrix (rows = documents). */
 export function termCountStats(counts: Csr): TermCountStats {

@@ -9,8 +9,10 @@
  */
 export interface RowCountSums {
   documents: number;
+  /** Σ_d L_d and Σ_d L_d². */
   totalTokens: number;
   sumLengthSq: number;
+  /** Per term: df, Σ c, Σ c², Σ c·L_d. */
   df: Float64Array;
   cf: Float64Array;
   sumCountSq: Float64Array;
