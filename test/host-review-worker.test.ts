@@ -2,7 +2,7 @@ import { strict as assert } from 'node:assert';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
-import { isCancelled, ReviewWorkerClient } from '../extension/src/worker/review-worker-client';
+import { isCancelled, ReviewWorkerClient, WorkerFailure } from '../extension/src/worker/review-worker-client';
 import { UserError } from '../extension/src/engine/user-error';
 import { isHostToWorker, isWorkerToHost } from '../extension/src/worker/worker-protocol';
 
@@ -135,5 +135,38 @@ describe('review worker round trip (dist/review-worker.js)', function () {
     await assert.rejects(pending, (e: unknown) => isCancelled(e) && !(e instanceof UserError));
     assert.equal(client.hasSession, false);
     await assert.rejects(client.whatIf([]), (e: unknown) => e instanceof UserError);
+  });
+
+  // Common practice, no source: a cancel stops one worker, not the client; the next review
+  // starts a new worker, and what was rejected with the old one stays out of the new one's way.
+  it('after a cancel, the same client reviews again on a new worker and answers what-ifs there', async () => {
+    const input = { file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message', stopList: null, sample: { documents: 30, k: 3 } } };
+    const controller = new AbortController();
+    await assert.rejects(
+      client.review(input, () => controller.abort(), controller.signal),
+      (e: unknown) => isCancelled(e),
+    );
+    const stages: string[] = [];
+    const report = await client.review(input, (stage) => stages.push(stage));
+    assert.equal(report.input.documents, 30);
+    assert.equal(stages[0], 'reading');
+    assert.equal((await client.whatIf([])).backgroundSimilarity, report.baseline.backgroundSimilarity);
+  });
+
+  // Common practice, no source: a worker that dies fails what waits on it with the exit code,
+  // as the engine's failure (not the user's, not a cancel).
+  it('a worker that exits rejects the waiting review as a WorkerFailure naming the exit code', async () => {
+    const dying = path.join(dir, 'dying-worker.js');
+    writeFileSync(dying, "require('node:worker_threads').parentPort.on('message', () => process.exit(3));\n");
+    const doomed = new ReviewWorkerClient(dying);
+    try {
+      await assert.rejects(doomed.review({ file: path.join(dir, 'tickets.csv'), configPath: null }), (e: unknown) => {
+        assert.ok(e instanceof WorkerFailure, String(e));
+        assert.match(e.message, /exit code 3/);
+        return true;
+      });
+    } finally {
+      await doomed.terminate();
+    }
   });
 });

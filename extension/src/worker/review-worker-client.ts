@@ -3,6 +3,7 @@
 import { Worker } from 'node:worker_threads';
 import type { Measures, Report } from '../protocol';
 import type { ReviewInput, ReviewStage } from '../engine/review/review-api';
+import { PendingReplies } from '../engine/threads/pending-replies';
 import { UserError } from '../engine/user-error';
 import { isWorkerToHost, type HostToWorker, type WorkerErrorMessage, type WorkerToHost } from './worker-protocol';
 
@@ -35,17 +36,19 @@ function failureOf(kind: WorkerErrorMessage['kind'], message: string, file: stri
   return new WorkerFailure(message, stack);
 }
 
-interface Pending<T> { resolve(value: T): void; reject(error: Error): void }
 /** A what-if's measures and the engine's time for them (ms, measured in the worker). */
 export interface WhatIfAnswer { measures: Measures; engineMs: number }
-interface PendingRun extends Pending<Report> { onStage: ((stage: ReviewStage, fraction: number) => void) | undefined }
+type StageCallback = (stage: ReviewStage, fraction: number) => void;
 
 export class ReviewWorkerClient {
   private worker: Worker | null = null;
+  /** One numbering for runs and what-ifs across workers, so a late reply of a stopped worker matches nothing. */
   private nextId = 1;
-  private readonly runs = new Map<number, PendingRun>();
+  // The requests waiting for the current worker's replies; each new worker starts with none.
+  private runs = new PendingReplies<Report>();
   /** What-ifs awaiting the worker; a prefetch's resolves with null when the worker drops it. */
-  private readonly whatIfs = new Map<number, Pending<WhatIfAnswer | null>>();
+  private whatIfs = new PendingReplies<WhatIfAnswer | null>();
+  private readonly stageCallbacks = new Map<number, StageCallback>();
   /** True while the worker holds a finished session that can answer what-ifs. */
   private sessionReady = false;
 
@@ -59,22 +62,20 @@ export class ReviewWorkerClient {
    * Runs a review. Aborting `signal` terminates the worker at once: the engine may be inside
    * a long synchronous step, and a stuck thread must not outlive the user's cancel.
    */
-  review(input: ReviewInput, onStage?: (stage: ReviewStage, fraction: number) => void, signal?: AbortSignal): Promise<Report> {
+  review(input: ReviewInput, onStage?: StageCallback, signal?: AbortSignal): Promise<Report> {
     if (signal?.aborted) return Promise.reject(reviewCancelled());
     const worker = this.ensureWorker();
     const runId = this.nextId++;
-    return new Promise<Report>((resolve, reject) => {
-      const onAbort = (): void => {
-        void this.terminate('Review cancelled.', 'cancelled');
-      };
-      signal?.addEventListener('abort', onAbort, { once: true });
-      const settle = <A extends unknown[]>(f: (...a: A) => void) => (...a: A): void => {
-        signal?.removeEventListener('abort', onAbort);
-        f(...a);
-      };
-      this.runs.set(runId, { resolve: settle(resolve), reject: settle(reject), onStage });
-      this.updateRef();
-      this.send(worker, { type: 'review', runId, input });
+    const onAbort = (): void => {
+      void this.terminate('Review cancelled.', 'cancelled');
+    };
+    signal?.addEventListener('abort', onAbort, { once: true });
+    if (onStage !== undefined) this.stageCallbacks.set(runId, onStage);
+    const report = this.runs.request(() => this.send(worker, { type: 'review', runId, input }), runId);
+    this.updateRef();
+    return report.finally(() => {
+      signal?.removeEventListener('abort', onAbort);
+      this.stageCallbacks.delete(runId);
     });
   }
 
@@ -102,12 +103,9 @@ export class ReviewWorkerClient {
   private askWhatIf(removed: readonly string[], speculative: boolean): Promise<WhatIfAnswer | null> {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
-    const requestId = this.nextId++;
-    return new Promise<WhatIfAnswer | null>((resolve, reject) => {
-      this.whatIfs.set(requestId, { resolve, reject });
-      this.updateRef();
-      this.send(worker, speculative ? { type: 'whatIf', requestId, removed: [...removed], speculative } : { type: 'whatIf', requestId, removed: [...removed] });
-    });
+    const answer = this.whatIfs.request((requestId) => this.send(worker, speculative ? { type: 'whatIf', requestId, removed: [...removed], speculative } : { type: 'whatIf', requestId, removed: [...removed] }), this.nextId++);
+    this.updateRef();
+    return answer;
   }
 
   /** Stops the worker; everything pending is rejected with `kind`. */
@@ -122,6 +120,8 @@ export class ReviewWorkerClient {
   private ensureWorker(): Worker {
     if (this.worker !== null) return this.worker;
     const worker = new Worker(this.workerFile);
+    this.runs = new PendingReplies();
+    this.whatIfs = new PendingReplies();
     worker.on('message', (m: unknown) => this.receive(m));
     worker.on('error', (e) => {
       if (this.worker !== worker) return;
@@ -166,47 +166,29 @@ export class ReviewWorkerClient {
   private dispatch(m: WorkerToHost): void {
     switch (m.type) {
       case 'stage':
-        this.runs.get(m.runId)?.onStage?.(m.stage, m.fraction);
+        this.stageCallbacks.get(m.runId)?.(m.stage, m.fraction);
         return;
-      case 'report': {
-        const run = this.runs.get(m.runId);
-        this.runs.delete(m.runId);
+      case 'report':
         this.sessionReady = true;
-        run?.resolve(m.report);
+        this.runs.resolve(m.runId, m.report);
         return;
-      }
-      case 'whatIfResult': {
-        const pending = this.whatIfs.get(m.requestId);
-        this.whatIfs.delete(m.requestId);
-        pending?.resolve({ measures: m.measures, engineMs: m.engineMs });
+      case 'whatIfResult':
+        this.whatIfs.resolve(m.requestId, { measures: m.measures, engineMs: m.engineMs });
         return;
-      }
-      case 'whatIfDropped': {
-        const pending = this.whatIfs.get(m.requestId);
-        this.whatIfs.delete(m.requestId);
-        pending?.resolve(null);
+      case 'whatIfDropped':
+        this.whatIfs.resolve(m.requestId, null);
         return;
-      }
       case 'error': {
         const failure = failureOf(m.kind, m.message, m.file, m.line, m.stack);
-        if (m.runId !== undefined) {
-          const run = this.runs.get(m.runId);
-          this.runs.delete(m.runId);
-          run?.reject(failure);
-        } else if (m.requestId !== undefined) {
-          const pending = this.whatIfs.get(m.requestId);
-          this.whatIfs.delete(m.requestId);
-          pending?.reject(failure);
-        }
+        if (m.runId !== undefined) this.runs.reject(m.runId, failure);
+        else if (m.requestId !== undefined) this.whatIfs.reject(m.requestId, failure);
         return;
       }
     }
   }
 
   private rejectAll(error: Error): void {
-    const pending: Pending<unknown>[] = [...this.runs.values(), ...this.whatIfs.values()];
-    this.runs.clear();
-    this.whatIfs.clear();
-    for (const p of pending) p.reject(error);
+    this.runs.fail(error);
+    this.whatIfs.fail(error);
   }
 }
