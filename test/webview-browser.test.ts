@@ -15,7 +15,7 @@ import { loadWebviewAssets, renderStandaloneReport, type WebviewAssets } from '.
 import type { Measures, Report, TermRow } from '../extension/src/protocol';
 
 // Globals of the page, used only inside evaluate callbacks (they run in Chromium, not in Node).
-declare const document: { querySelectorAll(s: string): { length: number }; body: { classList: { add(c: string): void } }; documentElement: { style: { setProperty(k: string, v: string): void } } };
+declare const document: { querySelectorAll(s: string): { length: number }; querySelector(s: string): unknown; body: { classList: { add(c: string): void } }; documentElement: { style: { setProperty(k: string, v: string): void } } };
 declare const window: { postMessage(m: unknown, origin: string): void; scrollTo(x: number, y: number): void } & Record<string, unknown>;
 declare function getComputedStyle(e: unknown): { backgroundColor: string };
 type InputLike = { checked: boolean; disabled: boolean; closest(s: string): { getAttribute(a: string): string | null } | null };
@@ -391,6 +391,82 @@ describe('webview in Chromium', function () {
         assert.equal(await page.locator('.lw-error').textContent(), message);
         assert.equal(await page.locator('img').count(), 0);
         assert.deepEqual(seen.csp, []);
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+
+    it('a pointer resting on a toggle prefetches its what-if; the click then shows that answer at once, asks the host to adopt it, and never shows an answer for another state', async () => {
+      // The contract is issue 10's design (speculative answers on hover); common practice, no source.
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel();
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        const prefetches = async () => (await posted(page)).filter((m) => m.type === 'whatIfPrefetch') as unknown as Array<{ removed: string[]; requestId: number }>;
+        const clicks = async () => (await posted(page)).filter((m) => m.type === 'whatIf') as unknown as Array<{ removed: string[]; requestId: number }>;
+        const prefetchOf = async (removed: string[]) => {
+          const want = [...removed].sort().join(',');
+          await page.waitForFunction((w) => (window as unknown as { __posted: Array<{ type: string; removed?: string[] }> }).__posted.some((m) => m.type === 'whatIfPrefetch' && [...m.removed!].sort().join(',') === w), want);
+          return (await prefetches()).filter((m) => [...m.removed].sort().join(',') === want).pop()!;
+        };
+        const measures = (bg: number): Measures => ({ ...report.suggested, backgroundSimilarity: bg });
+        const withoutThe = report.suggestions.filter((t) => t !== 'the');
+
+        // Resting on a cell without a toggle asks nothing; resting on "the" asks for the selection without it.
+        await page.hover('tr[data-term="order"] td:nth-child(2)');
+        await page.waitForTimeout(200);
+        assert.equal((await prefetches()).length, 0, 'no prefetch away from the toggles');
+        await page.hover('tr[data-term="the"] input.lw-check');
+        const ahead = await prefetchOf(withoutThe);
+        assert.equal((await clicks()).length, 0, 'a prefetch is not a click');
+        await send(page, { type: 'prefetchResult', removed: ahead.removed, measures: measures(0.4321), requestId: ahead.requestId, engineMs: 5 });
+        await page.waitForTimeout(50);
+        assert.equal(await page.locator('[data-role="selection"]').count(), 0, 'a prefetched answer is not shown before its click');
+
+        // The click shows it at once (no answer sent yet), and asks the host for the same selection.
+        await page.locator('tr[data-term="the"] input.lw-check').uncheck();
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.432');
+        assert.equal(await page.locator('.lw-strip .lw-pending').count(), 0);
+        const commit = (await clicks()).pop()!;
+        assert.deepEqual([...commit.removed].sort(), [...withoutThe].sort());
+        await send(page, { type: 'whatIfResult', removed: commit.removed, measures: measures(0.4321), requestId: commit.requestId });
+
+        // Any state change drops what was asked before it: rest on "account", click "please" and
+        // back (every toggle is a new state, even one that returns to a selection), then the
+        // answer for "account" asked before arrives; clicking "account" waits for the host.
+        await page.hover('tr[data-term="account"] input.lw-check');
+        const stale = await prefetchOf([...withoutThe, 'account']);
+        const click = (term: string) => page.evaluate((t) => (document.querySelector(`tr[data-term="${t}"] input.lw-check`) as { click(): void }).click(), term);
+        await click('please');
+        await click('please');
+        await send(page, { type: 'prefetchResult', removed: stale.removed, measures: measures(0.9999), requestId: stale.requestId });
+        // The second toggle waited for the first's answer (coalescing), then went out.
+        const sentBefore = (await clicks()).length;
+        const away = (await clicks()).pop()!;
+        await send(page, { type: 'whatIfResult', removed: away.removed, measures: measures(0.5555), requestId: away.requestId });
+        const back = await lastWhatIf(page, sentBefore + 1);
+        assert.deepEqual([...back.removed].sort(), [...withoutThe].sort());
+        // Back at a selection the strip already shows: nothing is waited for or drawn again.
+        await send(page, { type: 'whatIfResult', removed: back.removed, measures: measures(0.4321), requestId: back.requestId });
+        await page.waitForSelector('.lw-strip:not([data-pending="true"])');
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.432');
+        await click('account');
+        assert.equal(await page.locator('.lw-strip .lw-pending').count(), 1, 'the earlier state\'s prefetch is not used');
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.432');
+
+        // A click whose prefetch is still on its way shows that prefetch's answer when it comes.
+        const withAccount = [...withoutThe, 'account'];
+        const accountClick = (await clicks()).pop()!;
+        assert.deepEqual([...accountClick.removed].sort(), [...withAccount].sort());
+        await page.hover('tr[data-term="order"] input.lw-check');
+        const orderAhead = await prefetchOf([...withAccount, 'order']);
+        await click('order');
+        await send(page, { type: 'whatIfResult', removed: accountClick.removed, measures: measures(0.3333), requestId: accountClick.requestId });
+        await send(page, { type: 'prefetchResult', removed: orderAhead.removed, measures: measures(0.1111), requestId: orderAhead.requestId });
+        await page.waitForSelector('.lw-strip:not([data-pending="true"])');
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.111');
         assert.deepEqual(seen.errors, []);
       } finally {
         await context.close();

@@ -170,6 +170,11 @@ export interface ShowReportMessage { type: 'showReport'; report: Report }
  * wait is the messages between panel and host and the drawing.
  */
 export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number; hostMs?: number }
+/**
+ * host → webview: the answer to a WhatIfPrefetchMessage (same fields as WhatIfResultMessage). A
+ * prefetch the host dropped (a click came first, or the review cannot speculate) gets no answer.
+ */
+export interface WhatIfPrefetchResultMessage { type: 'prefetchResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number; hostMs?: number }
 export interface BusyMessage { type: 'busy'; stage: string | null }
 export interface ErrorMessage { type: 'error'; message: string }
 /**
@@ -178,19 +183,26 @@ export interface ErrorMessage { type: 'error'; message: string }
  * list since the review (no longer open suggestions).
  */
 export interface StaleMessage { type: 'stale'; reason: string | null; added: string[] }
-export type HostToWebview = ShowReportMessage | WhatIfResultMessage | BusyMessage | ErrorMessage | StaleMessage;
+export type HostToWebview = ShowReportMessage | WhatIfResultMessage | WhatIfPrefetchResultMessage | BusyMessage | ErrorMessage | StaleMessage;
 
 // ---- Messages: webview → extension host ----
 export interface ReadyMessage { type: 'ready' }
 export interface WhatIfRequestMessage { type: 'whatIf'; removed: string[]; requestId: number }
+/**
+ * webview → host: the what-if of `removed` ahead of a click (the pointer rests on the toggle that
+ * would make it): computed only when no click waits, without moving the review's what-if state,
+ * and adopted by a WhatIfRequestMessage for the same selection (webview/src/what-if-prefetcher.ts).
+ * `requestId`s are the prefetcher's own, apart from the clicks'.
+ */
+export interface WhatIfPrefetchMessage { type: 'whatIfPrefetch'; removed: string[]; requestId: number }
 export interface RevealLineMessage { type: 'revealLine'; line: number }
 export interface AddTermsMessage { type: 'addTerms'; terms: string[] }
 export interface ExportHtmlMessage { type: 'exportHtml' }
 /** webview → host: review the shown corpus again (the out-of-date banner's button). */
 export interface ReviewAgainMessage { type: 'reviewAgain' }
-export type WebviewToHost = ReadyMessage | WhatIfRequestMessage | RevealLineMessage | AddTermsMessage | ExportHtmlMessage | ReviewAgainMessage;
+export type WebviewToHost = ReadyMessage | WhatIfRequestMessage | WhatIfPrefetchMessage | RevealLineMessage | AddTermsMessage | ExportHtmlMessage | ReviewAgainMessage;
 
-const webviewToHostTypes: ReadonlySet<string> = new Set(['ready', 'whatIf', 'revealLine', 'addTerms', 'exportHtml', 'reviewAgain']);
+const webviewToHostTypes: ReadonlySet<string> = new Set(['ready', 'whatIf', 'whatIfPrefetch', 'revealLine', 'addTerms', 'exportHtml', 'reviewAgain']);
 
 /** Checks a message from the webview before the host acts on it (the page is not trusted). */
 export function isWebviewToHost(value: unknown): value is WebviewToHost {
@@ -199,6 +211,7 @@ export function isWebviewToHost(value: unknown): value is WebviewToHost {
   if (typeof m.type !== 'string' || !webviewToHostTypes.has(m.type)) return false;
   switch (m.type) {
     case 'whatIf':
+    case 'whatIfPrefetch':
       return Array.isArray(m.removed) && m.removed.every((t) => typeof t === 'string') && typeof m.requestId === 'number';
     case 'revealLine':
       return typeof m.line === 'number' && Number.isInteger(m.line) && m.line >= 1;

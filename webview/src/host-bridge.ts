@@ -37,7 +37,7 @@ export function createHostBridge(): HostBridge {
   };
 }
 
-const hostTypes: ReadonlySet<string> = new Set(['showReport', 'whatIfResult', 'busy', 'error', 'stale']);
+const hostTypes: ReadonlySet<string> = new Set(['showReport', 'whatIfResult', 'prefetchResult', 'busy', 'error', 'stale']);
 
 /** Shape check for messages arriving on window 'message' events. */
 export function isHostToWebview(value: unknown): value is HostToWebview {
@@ -48,6 +48,7 @@ export function isHostToWebview(value: unknown): value is HostToWebview {
     case 'showReport':
       return isReportLike(m.report);
     case 'whatIfResult':
+    case 'prefetchResult':
       return typeof m.requestId === 'number' && Array.isArray(m.removed) && typeof m.measures === 'object' && m.measures !== null && (m.engineMs === undefined || typeof m.engineMs === 'number') && (m.hostMs === undefined || typeof m.hostMs === 'number');
     case 'busy':
       return m.stage === null || typeof m.stage === 'string';

@@ -31,6 +31,9 @@ function start(): void {
       case 'whatIfResult':
         app.onWhatIfResult(message);
         break;
+      case 'prefetchResult':
+        app.onPrefetchResult(message);
+        break;
       case 'busy':
         app.setBusy(message.stage);
         break;

@@ -1,7 +1,7 @@
 // Composes the Distance Review page from a Report plus the reader's toggles. Everything shown is
 // derived from (report, view state, latest what-if answer); rendering never reads it elsewhere.
 
-import type { Measures, Report, WhatIfResultMessage } from '../../extension/src/protocol';
+import type { Measures, Report, WhatIfPrefetchResultMessage, WhatIfResultMessage } from '../../extension/src/protocol';
 import { ChartPanel } from './charts';
 import { watchTheme } from './chart-theme';
 import { el, replaceChildren } from './create-element';
@@ -12,7 +12,15 @@ import { renderReportHeader, renderSettingsFooter } from './report-header';
 import { TermTable } from './term-table';
 import { renderVerdictSummary } from './verdict-summary';
 import { PAGE_SIZE, reportKeyOf, restoreViewState, type ViewState } from './view-state';
+import { WhatIfPrefetcher, type PrefetchedAnswer } from './what-if-prefetcher';
 import { WhatIfRequester } from './what-if-requester';
+
+/**
+ * How long the pointer (or the keyboard focus) rests on a term's toggle before its what-if is
+ * asked ahead of a click: long enough that sweeping over the table asks nothing, short enough
+ * that a click that follows usually finds the answer (or its computation) under way.
+ */
+const PREFETCH_AFTER_MS = 80;
 
 interface Loaded {
   report: Report;
@@ -30,6 +38,10 @@ interface Loaded {
 export class PanelApp {
   private readonly state: ViewState;
   private readonly requester: WhatIfRequester;
+  private readonly prefetcher: WhatIfPrefetcher;
+  /** The term whose toggle the pointer or focus rests on, and the timer that prefetches it. */
+  private hovered: string | null = null;
+  private hoverTimer: ReturnType<typeof setTimeout> | null = null;
   /** When each what-if request was posted (panel clock), for the e2e latency split. */
   private readonly sentAt = new Map<number, number>();
   private readonly statusSlot: HTMLElement;
@@ -48,6 +60,7 @@ export class PanelApp {
       this.sentAt.set(m.requestId, performance.now());
       bridge.post(m);
     });
+    this.prefetcher = new WhatIfPrefetcher((m) => bridge.post(m));
     this.statusSlot = el('div', { className: 'lw-statusbar', attrs: { role: 'status', 'aria-live': 'polite' } });
     this.content = el('main', { className: 'lw-main' }, [
       el('p', { className: 'lw-empty', text: bridge.mode === 'panel' ? 'Waiting for a review… Run “Review distances” on a corpus file.' : 'Loading the report…' }),
@@ -59,6 +72,8 @@ export class PanelApp {
 
   showReport(report: Report): void {
     this.loaded?.charts.destroy();
+    this.prefetcher.invalidate();
+    this.hover(null);
     const key = reportKeyOf(report);
     if (key !== this.state.reportKey) {
       // A different corpus or stop list: the old toggles would not mean the same thing.
@@ -83,6 +98,7 @@ export class PanelApp {
       togglesEnabled: panel,
       actions: [liveSlot, checkedCount, resetButton, addButton].filter((x): x is HTMLElement => x !== null),
       onToggle: (term, on) => this.toggle(term, on),
+      onToggleHover: (term) => this.hover(term),
       onViewChange: () => this.save(),
     });
     const stripSlot = el('div', { className: 'lw-strip-slot' });
@@ -127,27 +143,94 @@ export class PanelApp {
     this.sentAt.delete(message.requestId);
     const latest = this.requester.accept(message.requestId);
     if (!this.loaded || !latest) return;
-    this.state.whatIf = { removed: [...message.removed], measures: message.measures };
-    this.save();
-    // Charts first: they set canvas fonts, which need the computed style, and right after the
-    // strip's DOM changed that forced a style recalculation of the whole panel.
-    const chartsFrom = performance.now();
-    this.loaded.charts.update(this.currentSetting(this.loaded.report));
-    const chartsMs = performance.now() - chartsFrom;
-    this.renderStrip();
+    const slot = this.loaded.stripSlot.dataset;
+    if (this.showing(message.removed)) {
+      // Already drawn from a prefetch (the same bits: the engine adopted it); nothing to redraw.
+      if (sent !== undefined) slot.commitMs = (started - sent).toFixed(1);
+      this.renderStrip();
+      return;
+    }
+    this.draw(message.removed, message.measures);
     // The engine's share of the wait and the panel's own (state, strip and charts), for the e2e
     // latency scenario to print beside the click's.
-    const slot = this.loaded.stripSlot.dataset;
     if (message.engineMs !== undefined) slot.engineMs = message.engineMs.toFixed(1);
     if (message.hostMs !== undefined) slot.hostMs = message.hostMs.toFixed(1);
     if (sent !== undefined) slot.roundTripMs = (started - sent).toFixed(1);
     slot.panelMs = (performance.now() - started).toFixed(1);
-    slot.chartsMs = chartsMs.toFixed(1);
+    slot.source = 'answer';
+  }
+
+  /** A prefetch's answer: kept for a click to come, or shown when a click is waiting for it. */
+  onPrefetchResult(message: WhatIfPrefetchResultMessage): void {
+    const started = performance.now();
+    const answer = this.prefetcher.accept(message);
+    if (!this.loaded || answer === null || !sameSet(answer.removed, new Set(this.removedTerms())) || this.showing(answer.removed)) return;
+    this.drawPrefetched(answer, started, 'prefetch');
+  }
+
+  /** Whether the strip already shows the measures of exactly `removed`. */
+  private showing(removed: readonly string[]): boolean {
+    return this.state.whatIf !== null && sameSet(removed, new Set(this.state.whatIf.removed));
+  }
+
+  private drawPrefetched(answer: PrefetchedAnswer, started: number, source: 'held' | 'prefetch'): void {
+    const l = this.loaded;
+    if (!l) return;
+    this.draw(answer.removed, answer.measures);
+    const slot = l.stripSlot.dataset;
+    if (answer.engineMs !== undefined) slot.engineMs = answer.engineMs.toFixed(1);
+    if (answer.hostMs !== undefined) slot.hostMs = answer.hostMs.toFixed(1);
+    delete slot.roundTripMs;
+    slot.panelMs = (performance.now() - started).toFixed(1);
+    slot.source = source;
+  }
+
+  /** Shows `measures` as the selection's: state, charts, strip. */
+  private draw(removed: readonly string[], measures: Measures): void {
+    const l = this.loaded;
+    if (!l) return;
+    this.state.whatIf = { removed: [...removed], measures };
+    this.save();
+    // Charts first: they set canvas fonts, which need the computed style, and right after the
+    // strip's DOM changed that forced a style recalculation of the whole panel.
+    const chartsFrom = performance.now();
+    l.charts.update(this.currentSetting(l.report));
+    const chartsMs = performance.now() - chartsFrom;
+    this.renderStrip();
+    l.stripSlot.dataset.chartsMs = chartsMs.toFixed(1);
+  }
+
+  /** The pointer or focus came to rest on `term`'s toggle (or left, null): prefetch it soon. */
+  private hover(term: string | null): void {
+    if (term === this.hovered && (term === null || this.hoverTimer !== null)) return;
+    this.hovered = term;
+    if (this.hoverTimer !== null) clearTimeout(this.hoverTimer);
+    this.hoverTimer = null;
+    if (term === null || this.bridge.mode !== 'panel') return;
+    this.hoverTimer = setTimeout(() => {
+      this.hoverTimer = null;
+      this.prefetch(term);
+    }, PREFETCH_AFTER_MS);
+  }
+
+  /** Asks ahead for the selection a click on `term` would make (none needed for the suggestions: the Report has them). */
+  private prefetch(term: string): void {
+    const l = this.loaded;
+    if (!l || this.hovered !== term) return;
+    const row = l.report.terms.find((t) => t.term === term);
+    if (row === undefined || row.status === 'stopped') return;
+    const next = new Set(l.checked);
+    if (next.has(term)) next.delete(term);
+    else next.add(term);
+    const removed = l.report.terms.filter((t) => t.status !== 'stopped' && next.has(t.term)).map((t) => t.term);
+    if (sameSet(removed, l.suggestionSet)) return;
+    this.prefetcher.ask(removed);
   }
 
   /** The host's word on whether the shown Report still describes the files. */
   setStale(reason: string | null, added: readonly string[]): void {
     this.stale = { reason, added: [...added] };
+    this.prefetcher.invalidate();
     if (reason === null) {
       this.staleSlot.replaceChildren();
     } else {
@@ -203,18 +286,29 @@ export class PanelApp {
   private selectionChanged(): void {
     const l = this.loaded;
     if (!l) return;
+    const started = performance.now();
     const removed = this.removedTerms();
+    const prefetched = this.prefetcher.selectionChanged(removed);
     if (sameSet(removed, l.suggestionSet)) {
       // Back at the suggestions: the report already holds those measures.
       this.requester.cancel();
       this.state.whatIf = null;
       l.charts.update(this.currentSetting(l.report));
     } else {
+      // Always asked, also when a prefetch answers it: the host then adopts the prefetch's state
+      // (ReviewSession.speculate) and its answer is the same, so it is not drawn again.
       this.requester.schedule(removed);
+      if (prefetched !== null && prefetched !== 'awaited') this.drawPrefetched(prefetched, started, 'held');
     }
     this.save();
-    this.renderStrip();
+    if (!this.showing(removed)) this.renderStrip();
     this.renderSelectionControls();
+    // The pointer still rests on a toggle: its what-if in the new state.
+    const hovered = this.hovered;
+    if (hovered !== null) {
+      this.hovered = null;
+      this.hover(hovered);
+    }
   }
 
   /** Checked terms that are not already stopped, in the report's (loudness) order. */
@@ -245,7 +339,8 @@ export class PanelApp {
       suggestedCount: l.suggestionSet.size,
       addedCount: this.stale.added.filter((t) => l.suggestionSet.has(t)).length,
       selection: selection ? { measures: selection, removedCount: this.state.whatIf?.removed.length ?? 0 } : null,
-      pending: this.requester.pending,
+      // Waiting only while the strip does not show the current selection (a prefetch may have).
+      pending: this.requester.pending && !this.showing(this.removedTerms()),
     };
     replaceChildren(l.stripSlot, [renderHealthStrip(input)]);
     replaceChildren(l.liveSlot, [renderLiveSummary(input)]);

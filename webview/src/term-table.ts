@@ -51,6 +51,11 @@ export interface TermTableOptions {
   /** Extra controls placed at the end of the toolbar (buttons owned by the app). */
   actions: readonly HTMLElement[];
   onToggle(term: string, checked: boolean): void;
+  /**
+   * The pointer came to rest over a term's toggle (its cell) or the keyboard focus landed on it
+   * (`term`), or left it (null): the app may prefetch that toggle's what-if.
+   */
+  onToggleHover?(term: string | null): void;
   onViewChange(): void;
 }
 
@@ -131,6 +136,18 @@ export class TermTable {
       if (term === null || term === undefined) return;
       this.options.onToggle(term, input.checked);
     });
+    // Delegated like 'change': rows come and go with sorting, filtering and "show more".
+    const toggleOf = (target: EventTarget | null): string | null => {
+      if (!(target instanceof Element)) return null;
+      const box = target.closest('td')?.querySelector('input.lw-check');
+      if (!(box instanceof HTMLInputElement) || box.disabled) return null;
+      return box.closest('tr')?.getAttribute('data-term') ?? null;
+    };
+    const hover = (term: string | null): void => this.options.onToggleHover?.(term);
+    this.tbody.addEventListener('pointerover', (event) => hover(toggleOf(event.target)));
+    this.tbody.addEventListener('pointerleave', () => hover(null));
+    this.tbody.addEventListener('focusin', (event) => hover(toggleOf(event.target)));
+    this.tbody.addEventListener('focusout', () => hover(null));
 
     const table = el('table', { className: 'lw-table', attrs: { 'aria-label': 'Terms ranked by how loud they are' } }, [el('thead', {}, [this.headRow]), this.tbody]);
 

@@ -126,6 +126,14 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
           if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs, hostMs });
           return;
         }
+        case 'whatIfPrefetch': {
+          const arrived = performance.now();
+          // A prefetch that fails or is dropped says nothing: the click that may follow asks again.
+          const answer = await review.client.speculativeWhatIf(m.removed).catch(() => null);
+          const hostMs = performance.now() - arrived;
+          if (answer !== null && this.shown === review) this.post({ type: 'prefetchResult', removed: m.removed, measures: answer.measures, requestId: m.requestId, engineMs: answer.engineMs, hostMs });
+          return;
+        }
         case 'revealLine':
           await this.actions.revealLine(review, m.line);
           return;

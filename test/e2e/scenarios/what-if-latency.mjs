@@ -45,6 +45,7 @@ async function timedClick(frame, term) {
           delete slot.dataset.hostMs;
           delete slot.dataset.roundTripMs;
           delete slot.dataset.chartsMs;
+          delete slot.dataset.source;
         }
         const start = performance.now();
         box.click();
@@ -57,7 +58,7 @@ async function timedClick(frame, term) {
           // Done when the legend names the new selection and nothing is pending.
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
             const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
-            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs });
+            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -67,30 +68,75 @@ async function timedClick(frame, term) {
   );
 }
 
+/**
+ * (b) A reader's pointer reaches the box before the click: how long it rests there. The panel
+ * asks for the toggle's what-if ahead of the click once the pointer has rested for 80 ms
+ * (webview/src/panel-app.ts, PREFETCH_AFTER_MS).
+ */
+const HOVER_MS = 300;
+
 async function measure(ctx, fileName, label) {
   const { frame } = await reviewCorpus(ctx, fileName);
   const rows = await named('suggested terms in the table', frame.waitForSelector('tr[data-status="suggested"]', { timeout: 20000 }));
   void rows;
   const terms = await frame.$$eval('tr[data-status="suggested"]', (trs) => trs.map((tr) => tr.getAttribute('data-term')));
   if (terms.length < 2) throw new Error(`${label}: fewer than two suggested terms to toggle (${terms.length})`);
+  const box = (t) => `tr[data-term="${t}"] input.lw-check`;
+  // The pointer away from the panel: (a)'s clicks must not be prefetched by a resting pointer.
+  const pointerAway = () => ctx.page.mouse.move(1, 1);
   // First click leaves the suggestions (one engine call), then one term goes back and forth, so
   // every click asks the engine for a selection that differs from the suggestions.
+  const order = Array.from({ length: CLICKS }, (_, i) => (i === 0 ? terms[0] : terms[1]));
+  const tidy = async () => {
+    // Back to the suggestions (even clicks left terms[1] unticked when CLICKS is even).
+    if (CLICKS % 2 === 0) await frame.click(box(terms[1]));
+    await frame.click(box(terms[0]));
+    await pointerAway();
+  };
+
+  // (a) Playwright's plain click: no pointer movement before it, so nothing is prefetched.
+  await pointerAway();
   await pause(FIRST_PAUSE_MS);
-  const clicks = [await timedClick(frame, terms[0])];
-  for (let i = 1; i < CLICKS; i++) {
-    await pause(PAUSE_MS);
-    clicks.push(await timedClick(frame, terms[1]));
+  const plain = [];
+  for (const [i, t] of order.entries()) {
+    if (i > 0) await pause(PAUSE_MS);
+    plain.push(await timedClick(frame, t));
   }
+  await ctx.screenshot();
+  await tidy();
+  report(`${label}, (a) click with no rest`, plain, `${PAUSE_MS} ms apart (the first ${FIRST_PAUSE_MS} ms after the table showed)`);
+
+  // (b) The pointer rests on the box for HOVER_MS, then clicks; between clicks it leaves the panel.
+  await pause(FIRST_PAUSE_MS);
+  const rested = [];
+  for (const t of order) {
+    await pointerAway();
+    await pause(PAUSE_MS);
+    await frame.hover(box(t));
+    await pause(HOVER_MS);
+    // The pointer leaves right after the click (the click runs first: the evaluate is sent
+    // first), so the panel does not also prefetch the next toggle while the strip updates.
+    const clicked = timedClick(frame, t);
+    await pointerAway();
+    rested.push(await clicked);
+  }
+  await tidy();
+  report(`${label}, (b) click after a ${HOVER_MS} ms rest on the box`, rested, `each after ${PAUSE_MS} ms away from the panel, then ${HOVER_MS} ms on the box`);
+  const sources = { held: 0, prefetch: 0, answer: 0 };
+  for (const c of rested) if (c.source in sources) sources[c.source]++;
+  console.log(
+    `  (b) how each click was answered: ${sources.held} from a prefetch already in the panel at the click, ${sources.prefetch} by a prefetch still on its way at the click, ${sources.answer} by the click's own request` +
+      ` (the engine's ms in (b) are the prefetch's, computed before or around the click)`,
+  );
+  return { plain: median(plain.map((c) => c.ms)), rested: median(rested.map((c) => c.ms)) };
+}
+
+/** Prints the clicks' figures: click → strip, the engine's share, and where the rest went. */
+function report(label, clicks, spacing) {
   const times = clicks.map((c) => c.ms);
   const engine = clicks.map((c) => c.engineMs).filter((e) => e !== null);
-  await ctx.screenshot();
-  // Tidy up: back to the suggestions (even clicks left terms[1] unticked when CLICKS is even).
-  if (CLICKS % 2 === 0) await frame.click(`tr[data-term="${terms[1]}"] input.lw-check`);
-  await frame.click(`tr[data-term="${terms[0]}"] input.lw-check`);
   const ms = times.map((t) => Math.round(t));
-  console.log(
-    `  what-if latency (${label}): click → strip updated, median ${median(times).toFixed(0)} ms over ${times.length} clicks ${PAUSE_MS} ms apart (the first ${FIRST_PAUSE_MS} ms after the table showed); first ${ms[0]} ms; all ${ms.join(', ')} (machine may be shared)`,
-  );
+  console.log(`  what-if latency (${label}): click → strip updated, median ${median(times).toFixed(0)} ms over ${times.length} clicks, ${spacing}; first ${ms[0]} ms; all ${ms.join(', ')} (machine may be shared)`);
   if (engine.length > 0) {
     console.log(`  of which the engine in the worker: median ${median(engine).toFixed(0)} ms; all ${engine.map((e) => Math.round(e)).join(', ')}`);
   }
@@ -101,21 +147,22 @@ async function measure(ctx, fileName, label) {
   if (split.length > 0) {
     const fmt = (values) => `median ${median(values).toFixed(0)} ms`;
     console.log(
-      `  the rest, split: panel ⇄ host messages ${fmt(split.map((c) => c.roundTripMs - c.hostMs))}; host ⇄ worker messages ${fmt(split.map((c) => c.hostMs - c.engineMs))}; ` +
+      `  the rest, split (${split.length} clicks answered by their own request): panel ⇄ host messages ${fmt(split.map((c) => c.roundTripMs - c.hostMs))}; host ⇄ worker messages ${fmt(split.map((c) => c.hostMs - c.engineMs))}; ` +
         `from the panel's work to the frame that shows it ${fmt(split.map((c) => c.ms - c.clickMs - c.roundTripMs - c.panelMs))}`,
     );
   }
-  const panel = clicks.filter((c) => c.panelMs !== null).map((c) => c.panelMs + c.clickMs);
+  // A click answered from a prefetch already held is drawn inside its own handler (clickMs holds the drawing).
+  const panel = clicks.filter((c) => c.panelMs !== null).map((c) => (c.source === 'held' ? c.clickMs : c.panelMs + c.clickMs));
   const charts = clicks.filter((c) => c.chartsMs !== null).map((c) => c.chartsMs);
   if (panel.length > 0) {
-    const rest = clicks.filter((c) => c.panelMs !== null && c.engineMs !== null).map((c) => c.ms - c.engineMs - c.panelMs - c.clickMs);
+    const own = clicks.filter((c) => c.source !== 'held' && c.panelMs !== null && c.engineMs !== null && c.roundTripMs !== null);
+    const rest = own.map((c) => c.ms - c.engineMs - c.panelMs - c.clickMs);
     console.log(
       `  the panel's own work (click handler + state, strip and charts on the answer): median ${median(panel).toFixed(0)} ms; all ${panel.map((e) => Math.round(e)).join(', ')}` +
         (charts.length > 0 ? ` (the two charts' update: median ${median(charts).toFixed(0)} ms)` : '') +
         (rest.length > 0 ? `; the rest (messages panel ⇄ host ⇄ worker, waiting for a frame): median ${median(rest).toFixed(0)} ms` : ''),
     );
   }
-  return median(times);
 }
 
 export const whatIfLatency = {
