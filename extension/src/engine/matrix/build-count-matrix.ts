@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
 import type { CorpusSource } from '../read/corpus-source';
-import { inProcessEncoder, workerEncoder, type BatchEncoder } from '../tokenize/batch-encoder';
+import { inProcessEncoder, startTokenizingThreads, type BatchEncoder, type TokenizingThreads } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
@@ -122,8 +122,17 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
  * reads settings and opens the corpus) and pass it as `encoder`; buildCountMatrix closes it.
  */
 export function countingEncoder(tokens: TokenSettings, options: Pick<BuildOptions, 'workers' | 'workerScript'> = {}): BatchEncoder {
+  return startCountingThreads(options)?.encoder(tokens) ?? inProcessEncoder(tokens);
+}
+
+/**
+ * countingEncoder's threads, started before the token settings are known (they load the bundle
+ * meanwhile; `encoder(tokens)` sends the settings); null where countingEncoder would tokenise
+ * in this thread.
+ */
+export function startCountingThreads(options: Pick<BuildOptions, 'workers' | 'workerScript'> = {}): TokenizingThreads | null {
   const workers = options.workers ?? Math.min(2, availableParallelism());
-  return workerEncoder(tokens, workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js')) ?? inProcessEncoder(tokens);
+  return startTokenizingThreads(workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js'));
 }
 
 /** Source lines named in a note before "…". */

@@ -1,6 +1,8 @@
 import type { EffectiveSettings } from '../../protocol';
-import { buildCountMatrix, countingEncoder } from '../matrix/build-count-matrix';
-import type { BatchEncoder } from '../tokenize/batch-encoder';
+import { stat } from 'node:fs/promises';
+import { buildCountMatrix, countingEncoder, startCountingThreads } from '../matrix/build-count-matrix';
+import type { BatchEncoder, TokenizingThreads } from '../tokenize/batch-encoder';
+import { hasGlob } from '../read/corpus-files';
 import { countEachFile } from '../matrix/count-each-file';
 import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
@@ -44,11 +46,34 @@ export const IN_THREAD_BYTES = 4 * 1024 * 1024;
  * buffer), or null when it will be tokenised in this thread (small, or size unknown). Called
  * before the corpus is opened and the stop list loaded: each thread loads the bundle and, for
  * wink, its model (~0.5 s at 100k documents, when the main thread sat idle waiting for them),
- * and that now overlaps the main thread's own start. Hand it to prepareWeights, which closes it.
+ * and that now overlaps the main thread's own start. `early` are threads prestartTokenizing
+ * started before the settings were read: they are given the settings (or closed, when the
+ * corpus turns out to be tokenised here). Hand the result to prepareWeights, which closes it.
  */
-export function startTokenizing(tokens: EffectiveSettings['tokens'], size: number | null): BatchEncoder | null {
-  if (size === null || size < IN_THREAD_BYTES) return null;
-  return countingEncoder(tokens);
+export function startTokenizing(tokens: EffectiveSettings['tokens'], size: number | null, early: TokenizingThreads | null = null): BatchEncoder | null {
+  if (size === null || size < IN_THREAD_BYTES) {
+    void early?.close();
+    return null;
+  }
+  return early !== null ? early.encoder(tokens) : countingEncoder(tokens);
+}
+
+/**
+ * The tokenising threads for a corpus file, started before the settings are read and checked
+ * (~0.1-0.15 s of loading the configuration files and validating them against the schema), so
+ * that the threads load their bundle meanwhile; null when the file will be tokenised in this
+ * thread (smaller than IN_THREAD_BYTES) or is not one plain file (a glob, a folder, missing).
+ * Pass them to startTokenizing, which gives them the settings or closes them.
+ */
+export async function prestartTokenizing(file: string, options: { workerScript?: string } = {}): Promise<TokenizingThreads | null> {
+  if (hasGlob(file)) return null;
+  try {
+    const s = await stat(file);
+    if (!s.isFile() || s.size < IN_THREAD_BYTES) return null;
+  } catch {
+    return null;
+  }
+  return startCountingThreads(options);
 }
 
 /**

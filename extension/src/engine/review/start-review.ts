@@ -10,7 +10,7 @@ import { afterIdleDelay } from '../what-if/idle-delay';
 import { ParallelWhatIf } from '../what-if/parallel-what-if';
 import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
-import { prepareWeights, startTokenizing } from './prepare-weights';
+import { prepareWeights, prestartTokenizing, startTokenizing } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { reviewTerms, startOpinionCheck } from '../terms/review-terms';
@@ -36,7 +36,27 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   };
 
   stage('reading');
-  const loaded = await loadReviewSettings(input);
+  // A corpus file large enough for tokenising threads has them started first, so that they load
+  // their bundle while this thread reads and checks the settings; they get the settings below.
+  const early = input.text === undefined ? await prestartTokenizing(input.file) : null;
+  let loaded;
+  let manyFiles;
+  let snapshot;
+  let started;
+  let size;
+  try {
+    loaded = await loadReviewSettings(input);
+    // A glob or a folder is many files (each shard is read as it comes; no one snapshot covers them).
+    manyFiles = input.text === undefined && (await isManyFilesInput(input.file));
+    snapshot = input.text === undefined && !manyFiles ? await FileSnapshot.take(input.file) : null;
+    size = input.text?.length ?? snapshot?.size ?? null;
+    // The tokenising threads start now (unless started above) and load while this thread opens
+    // the corpus and the stop list.
+    started = startTokenizing(loaded.settings.tokens, manyFiles ? null : size, early);
+  } catch (e) {
+    await early?.close();
+    throw e;
+  }
   const { settings } = loaded;
   const readOptions = {
     format: settings.format,
@@ -44,12 +64,6 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     labelField: settings.label,
     maxBytes: settings.limits.maxBytes,
   };
-  // A glob or a folder is many files (each shard is read as it comes; no one snapshot covers them).
-  const manyFiles = input.text === undefined && (await isManyFilesInput(input.file));
-  const snapshot = input.text === undefined && !manyFiles ? await FileSnapshot.take(input.file) : null;
-  const size = input.text?.length ?? snapshot?.size ?? null;
-  // The tokenising threads start now and load while this thread opens the corpus and the stop list.
-  const started = manyFiles ? null : startTokenizing(settings.tokens, size);
   let source;
   let stopList;
   let tokenize;

@@ -3,7 +3,7 @@ import { Worker } from 'node:worker_threads';
 import { createTermCoder, type TokenSettings } from './create-tokenizer';
 import { batchEncoding, type EncodedBatch } from './encode-batch';
 import type { TermCoder } from './term-coder';
-import type { TokenizeReply, TokenizeRequest } from './tokenize-messages';
+import type { TokenizeReply, TokenizeRequest, TokenizeSetup } from './tokenize-messages';
 
 /** Tokenises batches of texts, in this thread or in a pool of worker threads. */
 export interface BatchEncoder {
@@ -37,11 +37,29 @@ export function coderEncoder(coder: TermCoder): BatchEncoder {
  * term ids are its own (the batch's `stream` is the worker's number).
  */
 export function workerEncoder(tokens: TokenSettings, workers: number, script: string): BatchEncoder | null {
+  return startTokenizingThreads(workers, script)?.encoder(tokens) ?? null;
+}
+
+/** Tokenising threads started before their settings are known (see startTokenizingThreads). */
+export interface TokenizingThreads {
+  readonly threads: number;
+  /** Sends the settings to every thread and returns the pool as an encoder (once). */
+  encoder(tokens: TokenSettings): BatchEncoder;
+  close(): Promise<void>;
+}
+
+/**
+ * Starts `workers` tokenising threads without settings: each loads the bundle (~0.1-0.3 s)
+ * while the caller reads and checks the settings, and makes its coder (for wink, loading the
+ * model) when `encoder(tokens)` sends them. Null when the script is not there or `workers` < 1.
+ */
+export function startTokenizingThreads(workers: number, script: string): TokenizingThreads | null {
   if (workers < 1 || !existsSync(script)) return null;
   const pending = new Map<number, { resolve(b: EncodedBatch): void; reject(e: Error): void; worker: number }>();
   const pool: Worker[] = [];
   let seq = 0;
   let failure: Error | null = null;
+  let configured = false;
 
   const failAll = (worker: number, e: Error): void => {
     failure ??= e;
@@ -53,7 +71,7 @@ export function workerEncoder(tokens: TokenSettings, workers: number, script: st
   };
 
   for (let w = 0; w < workers; w++) {
-    const worker = new Worker(script, { workerData: { tokens } });
+    const worker = new Worker(script);
     worker.on('message', (reply: TokenizeReply) => {
       const p = pending.get(reply.seq);
       if (p === undefined) return;
@@ -66,22 +84,34 @@ export function workerEncoder(tokens: TokenSettings, workers: number, script: st
     pool.push(worker);
   }
 
+  const close = async (): Promise<void> => {
+    failure ??= new Error('tokenize pool closed');
+    await Promise.all(pool.map((w) => w.terminate()));
+  };
+
   return {
-    parallelism: workers * 2,
     threads: workers,
-    encode(texts) {
-      if (failure !== null) return Promise.reject(failure);
-      const s = seq++;
-      const w = s % pool.length;
-      return new Promise<EncodedBatch>((resolve, reject) => {
-        pending.set(s, { resolve, reject, worker: w });
-        const request: TokenizeRequest = { seq: s, texts };
-        pool[w].postMessage(request);
-      });
+    encoder(tokens) {
+      if (configured) throw new Error('tokenize pool: settings already sent');
+      configured = true;
+      const setup: TokenizeSetup = { type: 'settings', tokens };
+      for (const worker of pool) worker.postMessage(setup);
+      return {
+        parallelism: workers * 2,
+        threads: workers,
+        encode(texts) {
+          if (failure !== null) return Promise.reject(failure);
+          const s = seq++;
+          const w = s % pool.length;
+          return new Promise<EncodedBatch>((resolve, reject) => {
+            pending.set(s, { resolve, reject, worker: w });
+            const request: TokenizeRequest = { type: 'texts', seq: s, texts };
+            pool[w]!.postMessage(request);
+          });
+        },
+        close,
+      };
     },
-    async close() {
-      failure ??= new Error('tokenize pool closed');
-      await Promise.all(pool.map((w) => w.terminate()));
-    },
+    close,
   };
 }

@@ -1,9 +1,20 @@
+import type { TokenSettings } from './create-tokenizer';
 import type { EncodedBatch } from './encode-batch';
 import type { AssembleJob } from './row-assembler';
 import type { RowCountSums } from './row-count-sums';
 
+/**
+ * main → tokenize worker, first of all: the token settings. A thread can be started before they
+ * are known (it loads the bundle meanwhile); batches sent after this are tokenised with them.
+ */
+export interface TokenizeSetup {
+  type: 'settings';
+  tokens: TokenSettings;
+}
+
 /** main → tokenize worker: one batch of document texts, numbered so replies can be reordered. */
 export interface TokenizeRequest {
+  type: 'texts';
   seq: number;
   texts: string[];
 }

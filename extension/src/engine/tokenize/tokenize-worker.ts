@@ -1,17 +1,33 @@
 // worker_threads entry (bundled to dist/tokenize-worker.js): tokenises batches for
 // buildCountMatrix so both cores work while the main thread reads and counts.
-import { parentPort, workerData } from 'node:worker_threads';
+import { parentPort } from 'node:worker_threads';
 import { createTermCoder, type TokenSettings } from './create-tokenizer';
-import { batchEncoding } from './encode-batch';
-import type { TokenizeReply, TokenizeRequest } from './tokenize-messages';
+import { batchEncoding, type EncodedBatch } from './encode-batch';
+import type { TokenizeReply, TokenizeRequest, TokenizeSetup } from './tokenize-messages';
 
 const port = parentPort;
 if (port === null) throw new Error('tokenize-worker must run as a worker thread');
-const encodeBatch = batchEncoding(createTermCoder((workerData as { tokens: TokenSettings }).tokens));
+// The settings come in the first message, so that a thread can be started (and load the
+// bundle) before they are known (batch-encoder.ts, startTokenizingThreads).
+let encodeBatch: ((texts: string[]) => EncodedBatch) | null = null;
+let setupError: unknown = null;
+const setUp = (tokens: TokenSettings): void => {
+  try {
+    encodeBatch = batchEncoding(createTermCoder(tokens));
+    setupError = null;
+  } catch (e) {
+    setupError = e;
+  }
+};
 
-port.on('message', (request: TokenizeRequest) => {
+port.on('message', (request: TokenizeRequest | TokenizeSetup) => {
+  if (request.type === 'settings') {
+    setUp(request.tokens);
+    return;
+  }
   let reply: TokenizeReply;
   try {
+    if (encodeBatch === null) throw setupError ?? new Error('tokenize worker: no token settings');
     const batch = encodeBatch(request.texts);
     reply = { seq: request.seq, batch, error: null };
   } catch (e) {
