@@ -206,6 +206,7 @@ function printSize(label, corpus, lw, sk, whatIf, pattern) {
     ['peak RSS', lwOk ? megabytes(lw.peakRss) : dash, skOk ? megabytes(sk.peakRssBytes) : dash],
     ['what-if, one term toggled (median; sample half on its own thread, as in the editor)', whatIf && !whatIf.error ? ms(whatIf.medianMs) : dash, ''],
     ['what-if, one term toggled, engine CPU time, both threads (median)', whatIf && !whatIf.error && whatIf.medianCpuMs != null ? ms(whatIf.medianCpuMs) : dash, ''],
+    ['what-if, the same toggles asked ahead on a hover: the prefetch | the click that adopts it (median)', whatIf?.prefetched ? `${ms(whatIf.prefetched.medianPrefetchMs)} | ${ms(whatIf.prefetched.medianClickMs)}` : dash, ''],
     ['what-if, the same toggles in one thread (median | CPU time)', whatIf?.oneThread ? `${ms(whatIf.oneThread.medianMs)} | ${ms(whatIf.oneThread.medianCpuMs)}` : dash, ''],
   ];
   console.log(table(rows));

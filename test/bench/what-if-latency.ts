@@ -95,6 +95,25 @@ async function main(): Promise<void> {
   // the thread is closed the session answers in this thread alone: the same clicks again.
   await session.prepareWhatIf?.({ warmUp: !cold });
   const two = await clicks();
+  // The same clicks when the panel asked ahead (the pointer rested on the term, ReviewSession.
+  // speculate): the prefetch's time, then the click's, which adopts the prefetch.
+  const prefetchMs: number[] = [];
+  const adoptMs: number[] = [];
+  if (session.speculate !== undefined) {
+    let selection = [...session.report.suggestions];
+    for (let i = 0; i < toggles; i++) {
+      const next = flip(selection, candidates[i % candidates.length] as string);
+      await idle();
+      let t = performance.now();
+      if ((await session.speculate(next)) === null) break;
+      prefetchMs.push(performance.now() - t);
+      t = performance.now();
+      await session.whatIf(next);
+      adoptMs.push(performance.now() - t);
+      selection = next;
+    }
+    await session.whatIf(session.report.suggestions);
+  }
   await session.close?.();
   const one = await clicks();
   console.log(
@@ -109,6 +128,7 @@ async function main(): Promise<void> {
       firstMs: two.on[0],
       onMs: two.on,
       offMs: two.off,
+      ...(adoptMs.length > 0 ? { prefetched: { medianPrefetchMs: median(prefetchMs), medianClickMs: median(adoptMs), prefetchMs, clickMs: adoptMs } } : {}),
       oneThread: { medianMs: median(one.on), medianBackMs: median(one.off), medianCpuMs: median(one.onCpu), onMs: one.on },
       warmUp: !cold,
       ...(coldRun === null ? {} : { cold: coldRun }),
