@@ -122,7 +122,11 @@ export class ReviewWorkerClient {
     const worker = new Worker(this.workerFile);
     this.runs = new PendingReplies();
     this.whatIfs = new PendingReplies();
-    worker.on('message', (m: unknown) => this.receive(m));
+    // A stopped worker may still have a message in flight (a cancelled review's report): it must
+    // not mark the new worker's session ready nor settle the new worker's requests.
+    worker.on('message', (m: unknown) => {
+      if (this.worker === worker) this.receive(m);
+    });
     worker.on('error', (e) => {
       if (this.worker !== worker) return;
       this.worker = null;
