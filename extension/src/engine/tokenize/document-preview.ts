@@ -9,6 +9,34 @@ export const PREVIEW_LENGTH = 120;
  * kept for the whole review: gigabytes at a million documents).
  */
 export function documentPreview(text: string): string {
+  return plainPreview(text) ?? collapsedPreview(text);
+}
+
+/**
+ * The preview of a text whose first PREVIEW_LENGTH code units are printable ASCII with single
+ * spaces between words, as most documents' are: those units with trailing spaces trimmed, which
+ * is what collapsedPreview makes of them; null for any other text. Copied as bytes and decoded
+ * natively, it costs about half of collapsedPreview's per-unit work and call (~80 against ~165 ms
+ * of CPU for 50k bench documents, ~10% of a pattern tokenising thread's time), and is as flat.
+ */
+function plainPreview(text: string): string | null {
+  const n = Math.min(text.length, PREVIEW_LENGTH);
+  for (let i = 0; i < n; i++) {
+    const c = text.charCodeAt(i);
+    if ((c > 0x20 && c < 0x7f) || (c === 0x20 && i > 0 && bytes[i - 1] !== 0x20)) bytes[i] = c;
+    else return null;
+  }
+  let end = n;
+  while (end > 0 && bytes[end - 1] === 0x20) end--;
+  return ascii.decode(bytes.subarray(0, end));
+}
+
+const bytes = new Uint8Array(PREVIEW_LENGTH);
+// Only bytes 0x20-0x7e are ever decoded, where this decoder (windows-1252) is ASCII.
+const ascii = new TextDecoder('latin1');
+
+/** The preview of any text, unit by unit. */
+function collapsedPreview(text: string): string {
   let n = 0;
   let pendingSpace = false;
   for (let i = 0; i < text.length && n < PREVIEW_LENGTH; i++) {
