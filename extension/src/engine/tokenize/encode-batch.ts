@@ -38,12 +38,15 @@ export interface EncodedBatch {
 export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => EncodedBatch {
   const ids = new IdList(1 << 16);
   let countOf = new Uint32Array(1024); // by term id; all zero between documents
+  // A batch's distinct terms per document and their counts, before they are copied out at their
+  // size. Plain arrays as long as the batch's tokens (a document has no more distinct terms than
+  // tokens) and a local length: growing lists cost about twice as much in this loop.
+  let distinct = new Uint32Array(0);
+  let counted = new Uint32Array(0);
   let termsSent = 0;
   return (texts) => {
     const rowEnds = new Uint32Array(texts.length);
     const tokens = new Uint32Array(texts.length);
-    const cols = new IdList(texts.length * 64);
-    const counts = new IdList(texts.length * 64);
     const docEnds = new Uint32Array(texts.length);
     const longRunDocs: number[] = [];
     const runsBefore = coder.longRunsCut;
@@ -54,23 +57,26 @@ export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => E
       grown.set(countOf);
       countOf = grown;
     }
+    if (distinct.length < ids.length) {
+      distinct = new Uint32Array(ids.length);
+      counted = new Uint32Array(ids.length);
+    }
     const a = ids.array;
     let start = 0;
+    let m = 0;
     for (let d = 0; d < texts.length; d++) {
       const end = docEnds[d]!;
-      const first = cols.length;
+      const first = m;
       for (let k = start; k < end; k++) {
         const id = a[k]!;
-        if (countOf[id]++ === 0) cols.push(id);
+        if (countOf[id]++ === 0) distinct[m++] = id;
       }
-      const c = cols.array;
-      counts.reserve(cols.length - first);
-      for (let k = first; k < cols.length; k++) {
-        const id = c[k]!;
-        counts.push(countOf[id]!);
+      for (let j = first; j < m; j++) {
+        const id = distinct[j]!;
+        counted[j] = countOf[id]!;
         countOf[id] = 0;
       }
-      rowEnds[d] = cols.length;
+      rowEnds[d] = m;
       tokens[d] = end - start;
       start = end;
     }
@@ -79,6 +85,6 @@ export function batchEncoding(coder: TermCoder): (texts: readonly string[]) => E
     const newTerms = coder.terms.slice(termsSent);
     const firstNewId = termsSent;
     termsSent = coder.terms.length;
-    return { stream: 0, firstNewId, newTerms, rowEnds, cols: cols.slice(), counts: counts.slice(), tokens, previews, longRunDocs, longRuns: coder.longRunsCut - runsBefore };
+    return { stream: 0, firstNewId, newTerms, rowEnds, cols: distinct.slice(0, m), counts: counted.slice(0, m), tokens, previews, longRunDocs, longRuns: coder.longRunsCut - runsBefore };
   };
 }
