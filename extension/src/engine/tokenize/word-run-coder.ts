@@ -41,26 +41,28 @@ export function wordRunCoder(lowercase: boolean, minLength: number): TermCoder {
             i += isPair(s, i) ? 2 : 1;
             continue;
           }
-          // A run starts at i: hash its code units and count its code points up to its end.
+          // A run starts at i: hash its code units up to its end; its code points are its code
+          // units less one per surrogate pair.
           const start = i;
           let h = FNV_OFFSET;
-          let points = 0;
+          let pairs = 0;
           for (;;) {
-            if (bmp[c] === SURROGATE) {
-              if (!isAstralWord(s, i)) break;
+            const kind = bmp[c];
+            if (kind === WORD) {
+              h = Math.imul(h ^ c, FNV_PRIME);
+              i++;
+            } else if (kind === SURROGATE && isAstralWord(s, i)) {
               h = Math.imul(h ^ c, FNV_PRIME);
               h = Math.imul(h ^ s.charCodeAt(i + 1), FNV_PRIME);
               i += 2;
+              pairs++;
             } else {
-              h = Math.imul(h ^ c, FNV_PRIME);
-              i++;
+              break;
             }
-            points++;
             if (i >= n) break;
             c = s.charCodeAt(i);
-            if (bmp[c] === 0) break;
           }
-          if (points < shortest) continue;
+          if (i - start - pairs < shortest) continue;
           let id = table.get(s, start, i, h);
           if (id === ABSENT) {
             const term = s.slice(start, i);
