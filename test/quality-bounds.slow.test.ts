@@ -4,7 +4,7 @@
 // Reference: scikit-learn (Debian python3-sklearn) TfidfVectorizer and NearestNeighbors, via
 // test/quality/precision_at_k.py; the corpora come from Debian and npm packages.
 // Left out: package-descriptions (needs apt's English translations, which a CI machine's apt may
-// not fetch) and kernel-docs, the open failure docs/methods.md §9 reports (−0.011 against the
+// not fetch) and kernel-docs, the open failure docs/methods.md §9 reports (−0.004 against the
 // English list): this test guards what holds, the quality table (`npm run quality`) shows all.
 import { strict as assert } from 'node:assert';
 import { mkdtempSync, rmSync } from 'node:fs';

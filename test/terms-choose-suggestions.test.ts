@@ -2,7 +2,7 @@
 // by construction. Sources: max_df = 0.5 as scikit-learn documents it (TfidfVectorizer);
 // burstiness from Church & Gale (1995), "Poisson mixtures".
 import { strict as assert } from 'node:assert';
-import { chooseSuggestions, contentBurstiness, GRAMMAR_SHARE, type Decision } from '../extension/src/engine/terms/choose-suggestions';
+import { chooseSuggestions, contentBurstiness, GROUP_SHARE, type Decision } from '../extension/src/engine/terms/choose-suggestions';
 import { termSignal } from '../extension/src/engine/terms/term-signals';
 import type { PriorClass } from '../extension/src/engine/terms/prior-columns';
 import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
@@ -29,8 +29,9 @@ function corpus(): ReturnType<typeof termCountStats> {
 const PRIOR = new Map<number, PriorClass>([[1, 'preposition'], [2, 'pronoun'], [3, 'negation'], [5, 'markup'], [6, 'degree']]);
 // Shares of the all-pair similarity given to the rule (in the engine they come from the exact
 // sums with the other rules' terms removed): the grammar words (columns 1 and 3) carry 0.09 each,
-// together 0.18 — above GRAMMAR_SHARE, so rule 2 applies. `calls` records what the rule asked.
-function shares(values: Record<number, number> = { 1: 0.09, 3: 0.09 }, calls: Array<{ group: number[]; removed: number[] }> = []) {
+// together 0.18 — above GROUP_SHARE, so rule 2 applies; the words outside the prior above half
+// (column 0 and the filler 7) carry 0.2, so rule 1 does. `calls` records what the rule asked.
+function shares(values: Record<number, number> = { 0: 0.2, 1: 0.09, 3: 0.09 }, calls: Array<{ group: number[]; removed: number[] }> = []) {
   return (group: readonly number[], removed: Uint8Array): number => {
     calls.push({ group: [...group].sort((a, b) => a - b), removed: [...removed.keys()].filter((c) => removed[c] === 1) });
     return group.reduce((sum, c) => sum + (values[c] ?? 0), 0);
@@ -128,26 +129,27 @@ describe('chooseSuggestions', () => {
     stopped[1] = 1;
     const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true, jointShare: shares() });
     assert.equal(after.has(1), false);
-    // Column 3 alone carries 0.03, under GRAMMAR_SHARE: it stays suggested because the joint share
+    // Column 3 alone carries 0.09, under GROUP_SHARE: it stays suggested because the joint share
     // counts the stopped column 1 too (so applying the suggestions cannot turn rule 2 off).
     assert.equal(brief(after.get(3)), 'suggest:grammar');
     for (const [c, d] of after) assert.equal(brief(d), brief(free.get(c)), `column ${c}`);
   });
 
-  it('chooseSuggestions: grammar words that together carry under GRAMMAR_SHARE of the similarity are kept as light', () => {
+  it('chooseSuggestions: grammar words that together carry under GROUP_SHARE of the similarity are kept as light', () => {
     const stats = corpus();
     const run = (jointShare: ReturnType<typeof shares>): Map<number, Decision> =>
       chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShare });
-    assert.equal(GRAMMAR_SHARE, 0.15);
+    assert.equal(GROUP_SHARE, 0.15);
     const calls: Array<{ group: number[]; removed: number[] }> = [];
     const light = run(shares({ 1: 0.02, 3: 0.02, 0: 0.9 }, calls));
-    // The share is asked once, for the grammar words, on the corpus without the other rules'
-    // suggestions (here the words above half: columns 0, 6 and the filler 7).
-    assert.deepEqual(calls, [{ group: [1, 3], removed: [0, 6, 7] }]);
+    // Each group's share is asked once, on the corpus without every other suggestion: the grammar
+    // words without the words above half (columns 0, 6 and the filler 7), the words above half
+    // outside the prior (0, 7) without the grammar words and the prior's word above half (1, 3, 6).
+    assert.deepEqual(calls, [{ group: [1, 3], removed: [0, 6, 7] }, { group: [0, 7], removed: [1, 3, 6] }]);
     assert.equal(brief(light.get(1)), 'keep:light');
     assert.equal(brief(light.get(3)), 'keep:light');
     const d = light.get(1)!;
-    assert.ok(d.reason === 'light' && Math.abs(d.groupShare - 0.04) < 1e-12);
+    assert.ok(d.reason === 'light' && d.group === 'grammar' && Math.abs(d.groupShare - 0.04) < 1e-12);
     // Rule 1 and the burstiness gate are untouched: 'everywhere' above half, the bursty pronoun kept.
     assert.equal(brief(light.get(0)), 'suggest:everywhere');
     assert.equal(brief(light.get(2)), 'keep:bursty');
@@ -155,5 +157,29 @@ describe('chooseSuggestions', () => {
     const heavy = run(shares({ 1: 0.075, 3: 0.075 }));
     assert.equal(brief(heavy.get(1)), 'suggest:grammar');
     assert.equal(brief(heavy.get(3)), 'suggest:grammar');
+  });
+
+  it('chooseSuggestions: words outside the prior above half that together carry under GROUP_SHARE are kept as light', () => {
+    const stats = corpus();
+    const run = (jointShare: ReturnType<typeof shares>, usePrior = true): Map<number, Decision> =>
+      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior, jointShare });
+    // Columns 0 and 7 together 0.10: both kept, with the group and its share in the decision.
+    const light = run(shares({ 0: 0.05, 7: 0.05, 1: 0.09, 3: 0.09 }));
+    for (const c of [0, 7]) {
+      const d = light.get(c)!;
+      assert.ok(d.reason === 'light' && d.group === 'common' && Math.abs(d.groupShare - 0.1) < 1e-12, `column ${c}: ${brief(d)}`);
+    }
+    // The prior's word above half (the degree word, column 6) is not in the group: still suggested,
+    // and the grammar words, measured on their own, still are too.
+    assert.equal(brief(light.get(6)), 'suggest:everywhere');
+    assert.equal(brief(light.get(1)), 'suggest:grammar');
+    // On opinion text the group is weighed the same way.
+    const opinion = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: true, usePrior: true, jointShare: shares({ 0: 0.05 }) });
+    assert.equal(brief(opinion.get(0)), 'keep:light');
+    // With the prior off the rule is max_df's plain cut: nothing is weighed, nothing asked.
+    const calls: Array<{ group: number[]; removed: number[] }> = [];
+    const plain = run(shares({}, calls), false);
+    assert.equal(brief(plain.get(0)), 'suggest:everywhere');
+    assert.deepEqual(calls, []);
   });
 });

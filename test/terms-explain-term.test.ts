@@ -31,9 +31,11 @@ describe('explainTerm', () => {
     assert.match(explainTerm(row('not', 'kept'), 100, o), /negation .*reads as opinion text/);
   });
 
-  it('explainTerm: a light grammar word gives the joint share and the bound', () => {
-    const l: Decision = { suggested: false, reason: 'light', signal: { ...signal, docFraction: 0.3 }, cls: 'pronoun', groupShare: 0.084 };
+  it('explainTerm: a light word gives its group, the joint share and the bound', () => {
+    const l: Decision = { suggested: false, reason: 'light', group: 'grammar', signal: { ...signal, docFraction: 0.3 }, cls: 'pronoun', groupShare: 0.084 };
     assert.match(explainTerm(row('you', 'kept'), 100, l), /^kept: pronoun in 60% of documents, spread evenly, but the grammar words below half the documents together carry only 8\.4% of the all-pair similarity left once the other suggestions are removed \(under 15%\)/);
+    const c: Decision = { suggested: false, reason: 'light', group: 'common', signal: { ...signal, docFraction: 0.61 }, cls: null, groupShare: 0.123 };
+    assert.match(explainTerm(row('kernel', 'kept'), 100, c), /^kept: in 60% of documents: more than half, but the words above half that are not grammar words together carry only 12% of the all-pair similarity left/);
   });
 
   it('explainTerm: a stopped term tells whether the rule agrees with the list', () => {

@@ -7,11 +7,19 @@ import type { TermCountStats } from './term-count-stats';
 export type Decision =
   | { suggested: true; reason: 'everywhere' | 'grammar' | 'markup'; signal: TermSignal; cls: PriorClass | null }
   | { suggested: false; reason: 'bursty' | 'opinion' | 'protected' | 'format'; signal: TermSignal; cls: PriorClass | null }
-  | { suggested: false; reason: 'light'; signal: TermSignal; cls: PriorClass | null; groupShare: number };
+  | { suggested: false; reason: 'light'; group: SuggestionGroup; signal: TermSignal; cls: PriorClass | null; groupShare: number };
 
 /**
- * Above this document fraction a term is suggested whatever it is: the max_df = 0.5 practice
- * (Luhn 1958; scikit-learn's max_df), which held on every corpus measured (docs/methods.md §8). Not tuned.
+ * The two groups suggested only when they are loud together (GROUP_SHARE): 'grammar', the prior's
+ * closed-class words below half the documents that rule 2 picks, and 'common', the words outside
+ * the prior in more than half the documents that rule 1 picks.
+ */
+export type SuggestionGroup = 'grammar' | 'common';
+
+/**
+ * Above this document fraction a term is suggested (rule 1): the max_df = 0.5 practice (Luhn 1958;
+ * scikit-learn's max_df), which held on every corpus measured (docs/methods.md §8). Not tuned.
+ * Those outside the prior form the 'common' group, suggested only when loud (GROUP_SHARE).
  */
 export const EVERYWHERE = 0.5;
 /**
@@ -30,18 +38,19 @@ export const CONTENT_DF = 0.01;
 export const CONTENT_MIN_DOCS = 3;
 export const FALLBACK_LIMIT = 1;
 /**
- * Rule 2 applies only when the grammar words it would suggest together carry at least this share
- * of the all-pair similarity of the corpus the other rules leave (everything they suggest
+ * Each group (SuggestionGroup) is suggested only when its words together carry at least this
+ * share of the all-pair similarity of the corpus the other rules leave (everything they suggest
  * removed, no stop list of the project's). Measured there rather than on the raw corpus because
- * the words in more than half the documents ("the", "and", "of") carry most of the raw
- * similarity and are stopped anyway: what matters is how much of what remains the grammar words
- * would decide. Below it they distort little, and where they are that light (long documents:
- * manuals) they can mark the kind of document, which is what a label may be about. Chosen
+ * the prior's words in more than half the documents ("the", "and", "of") carry most of the raw
+ * similarity and are stopped anyway: what matters is how much of what remains the group would
+ * decide. Below it a group distorts little, and what it can carry is worth keeping: light grammar
+ * words in long documents (manuals) can mark the kind of document, and a few light words above
+ * half can be the collection's own subject ("kernel", "driver"). Chosen for the grammar group
  * between the TUNE corpora it separates — man pages 8.4% (rule 2 cost 0.0046 precision@10 there)
  * and SpamAssassin 29% (rule 2 gained 0.0024) — as the round value near their geometric mean
- * 15.5% (docs/methods.md §9).
+ * 15.5%, and used unchanged for the common group (docs/methods.md §9).
  */
-export const GRAMMAR_SHARE = 0.15;
+export const GROUP_SHARE = 0.15;
 
 /** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents and CONTENT_MIN_DOCS documents. */
 export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<number, PriorClass>): number {
@@ -82,11 +91,12 @@ export interface ChoiceInput {
  * corpus, computed without the stop list, so the result does not depend on the sample or its
  * seed, and stopping one term by hand changes no other term's decision.
  * - Any term in more than half the documents is suggested (but on opinion text, not a negation,
- *   degree or contrast word).
+ *   degree or contrast word); those outside the prior only when together they carry at least
+ *   GROUP_SHARE of the all-pair similarity once the other rules' terms are removed (else they
+ *   are 'light': kept).
  * - A closed-class word of the prior is suggested unless the corpus shows it is burstier than its
  *   typical content word (it then carries a topic here), and only when the words so chosen carry
- *   together at least GRAMMAR_SHARE of the all-pair similarity once the other rules' terms are
- *   removed (else they are 'light': kept).
+ *   together at least GROUP_SHARE in the same way.
  * - Markup residue (tag and entity names, pieces of web addresses) in at least CONTENT_DF of the
  *   documents is suggested on opinion text only. On topic text it is kept unless in more than
  *   half the documents: there the markup marks a kind of document (HTML mail against plain mail),
@@ -100,26 +110,49 @@ export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
   const { stats, stopped } = input;
   const all = new Map<number, Decision>();
   const limit = contentBurstiness(stats, input.prior);
-  // Every column is judged as if nothing were stopped, so that the grammar words' joint share,
-  // and with it every decision, is the same whatever the project's list holds.
+  // Every column is judged as if nothing were stopped, so that the groups' joint shares, and
+  // with them every decision, are the same whatever the project's list holds.
   for (let c = 0; c < stats.df.length; c++) {
     const d = decide(input, c, limit);
     if (d !== null) all.set(c, d);
   }
-  const group: number[] = [];
-  const others = new Uint8Array(stats.df.length);
-  for (const [c, d] of all) {
-    if (d.reason === 'grammar') group.push(c);
-    else if (d.suggested) others[c] = 1;
-  }
-  const grammarShare = group.length > 0 ? input.jointShare(group, others) : 0;
+  // With the prior off the rule is max_df's plain cut: no group is weighed.
+  const shares = input.usePrior ? groupShares(input, all) : null;
   const out = new Map<number, Decision>();
   for (const [c, d] of all) {
     if (stopped[c] === 1) continue;
-    const light = d.reason === 'grammar' && grammarShare < GRAMMAR_SHARE;
-    out.set(c, light ? { suggested: false, reason: 'light', signal: d.signal, cls: d.cls, groupShare: grammarShare } : d);
+    const group = groupOf(d);
+    const light = shares !== null && group !== null && shares[group] < GROUP_SHARE;
+    out.set(c, light ? { suggested: false, reason: 'light', group, signal: d.signal, cls: d.cls, groupShare: shares[group] } : d);
   }
   return out;
+}
+
+/** The group a suggestion belongs to, when it is suggested only as part of a loud group. */
+function groupOf(d: Decision): SuggestionGroup | null {
+  if (d.reason === 'grammar') return 'grammar';
+  if (d.reason === 'everywhere' && d.cls === null) return 'common';
+  return null;
+}
+
+/**
+ * Each group's joint share, measured on the corpus without every other suggestion (the other
+ * group's included): both groups are judged on the same first decisions, so neither verdict
+ * depends on the order they are looked at in. A group with no member gets 0 and is never asked.
+ */
+function groupShares(input: ChoiceInput, all: ReadonlyMap<number, Decision>): Record<SuggestionGroup, number> {
+  const members: Record<SuggestionGroup, number[]> = { grammar: [], common: [] };
+  for (const [c, d] of all) {
+    const g = groupOf(d);
+    if (g !== null) members[g].push(c);
+  }
+  const shareOf = (g: SuggestionGroup): number => {
+    if (members[g].length === 0) return 0;
+    const removed = new Uint8Array(input.stats.df.length);
+    for (const [c, d] of all) if (d.suggested && groupOf(d) !== g) removed[c] = 1;
+    return input.jointShare(members[g], removed);
+  };
+  return { grammar: shareOf('grammar'), common: shareOf('common') };
 }
 
 /** One column's decision before the joint-share condition; null where no rule looks at it. */

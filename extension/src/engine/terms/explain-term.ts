@@ -1,5 +1,5 @@
 import type { TermRow } from '../../protocol';
-import { GRAMMAR_SHARE, type Decision } from './choose-suggestions';
+import { GROUP_SHARE, type Decision } from './choose-suggestions';
 import type { PriorClass } from './prior-columns';
 
 const pct = (x: number): string => (x >= 0.1 ? `${(x * 100).toFixed(0)}%` : x >= 0.001 ? `${(x * 100).toFixed(1)}%` : `${(x * 100).toFixed(2)}%`);
@@ -53,7 +53,9 @@ export function explainTerm(row: TermRow, documents: number, decision: Decision 
       case 'opinion':
         return `${kind ?? 'word'} ${inDocs}: this corpus reads as opinion text, where such words carry the opinion`;
       case 'light':
-        return `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GRAMMAR_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
+        return d.group === 'common'
+          ? `${inDocs}: more than half, but the words above half that are not grammar words together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GROUP_SHARE)}): too little to distort distances, and such words can be the collection's own subject`
+          : `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GROUP_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
       case 'protected':
         return `protected by "suggest.protect"`;
       case 'format':

@@ -2,6 +2,7 @@ import type { Measures, Verdict } from '../../protocol';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
+import type { SuggestionGroup } from './choose-suggestions';
 
 /** Bootstrap draws behind the verdict's interval. */
 export const VERDICT_DRAWS = 400;
@@ -15,9 +16,12 @@ export interface JudgeInput {
   opinion: { share: number; opinionText: boolean };
   /** Stopped terms the rule would suggest too: after `apply`, the reason nothing is new. */
   agreedStopped: number;
-  /** When rule 2 kept the grammar words below half as light: their joint share of the similarity. */
-  lightGrammar: number | null;
+  /** The groups the rule kept as light, each with its joint share of the similarity. */
+  light: LightGroups;
 }
+
+/** Per group kept as light (choose-suggestions.ts, GROUP_SHARE): its joint share. */
+export type LightGroups = Partial<Record<SuggestionGroup, number>>;
 
 const f2 = (x: number): string => x.toFixed(2);
 const f3 = (x: number): string => x.toFixed(3);
@@ -25,9 +29,16 @@ const signed = (x: number, digits: number): string => `${x >= 0 ? '+' : '−'}${
 const pct = (x: number): string => `${Math.round(x * 100)}%`;
 const pct1 = (x: number): string => `${(x * 100).toFixed(1)}%`;
 
-/** Why the grammar words below half were not suggested, when rule 2 found them light. */
-function lightSentence(share: number): string {
-  return `Grammar words in fewer than half the documents were kept: together they carry only ${pct1(share)} of the all-pair similarity left once the other suggestions are removed, too little to distort distances, and in long documents they can mark the kind of document (docs/methods.md §9).`;
+/** Why the light groups were not suggested, one sentence each; '' when none was light. */
+function lightSentences(light: LightGroups): string {
+  const out: string[] = [];
+  if (light.common !== undefined) {
+    out.push(`Words in more than half the documents that are not grammar words were kept: together they carry only ${pct1(light.common)} of the all-pair similarity left once the other suggestions are removed, too little to distort distances, and they can be the collection's own subject (docs/methods.md §9).`);
+  }
+  if (light.grammar !== undefined) {
+    out.push(`Grammar words in fewer than half the documents were kept: together they carry only ${pct1(light.grammar)} of the all-pair similarity left once the other suggestions are removed, too little to distort distances, and in long documents they can mark the kind of document (docs/methods.md §9).`);
+  }
+  return out.join(' ');
 }
 
 /**
@@ -50,8 +61,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
         ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`
         : opinion.opinionText
         ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
-        : input.lightGrammar !== null
-        ? `No stop list suggested: no term is in more than half the documents. ${lightSentence(input.lightGrammar)}`
+        : lightSentences(input.light) !== ''
+        ? `No stop list suggested. ${lightSentences(input.light)}`
         : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
       estimate: null,
       caveats: [],
@@ -91,7 +102,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   if (opinion.opinionText) {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;
   }
-  if (input.lightGrammar !== null) headline += ` ${lightSentence(input.lightGrammar)}`;
+  const light = lightSentences(input.light);
+  if (light !== '') headline += ` ${light}`;
   return { outcome, headline, estimate, caveats };
 }
 

@@ -6,8 +6,8 @@ import { startMaskedTermSums } from '../measures/start-masked-term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, type Decision } from './choose-suggestions';
+import { judgeSuggestions, type LightGroups } from './judge-suggestions';
 import { explainTerm } from './explain-term';
-import { judgeSuggestions } from './judge-suggestions';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
 import { priorColumns, protectedColumns } from './prior-columns';
@@ -140,9 +140,9 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const opinion = { share, opinionText };
   let agreedStopped = 0;
   for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
-  let lightGrammar: number | null = null;
-  for (const d of decisions.values()) if (d.reason === 'light') lightGrammar = d.groupShare;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, lightGrammar });
+  const light: LightGroups = {};
+  for (const d of decisions.values()) if (d.reason === 'light') light[d.group] = d.groupShare;
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
