@@ -10,6 +10,7 @@ import { joinMeasures } from '../extension/src/engine/measures/measure-distances
 import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
 import { ParallelWhatIf } from '../extension/src/engine/what-if/parallel-what-if';
 import { SampleSide } from '../extension/src/engine/what-if/sample-side';
+import { SpeculationStopped, stopOnClick } from '../extension/src/engine/what-if/speculation-stopped';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { textLikeRows } from './support/text-like-rows';
 
@@ -108,5 +109,58 @@ describe('speculative what-if (the prefetch on a hover)', function () {
     const stale = side.speculate(stopA);
     side.measures(opening);
     assert.notEqual(side.measures(stopA), stale);
+  });
+});
+
+describe('speculative what-if stopped part way (a click came)', function () {
+  this.timeout(120000);
+
+  it('a prefetch interrupted on either half at any of its first checks leaves every later click and prefetch as without it, bit for bit', () => {
+    const { lab, reference, baseline, opening, clicks } = setUp(24, 12);
+    const side = new SampleSide({ rows: lab.sampleRows, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors: baseline.neighbors });
+    side.measures(opening, false);
+    // Throws on its n-th call: the first check is at the start of an update, then every few rows.
+    const stopAt = (n: number) => {
+      let calls = 0;
+      return () => {
+        if (++calls >= n) throw new SpeculationStopped();
+      };
+    };
+    let mask = opening.slice();
+    let stopped = 0;
+    for (const [i, t] of clicks.entries()) {
+      const next = flipped(mask, t);
+      for (const n of [1, 2, 3]) {
+        try {
+          lab.speculateExact(next, stopAt(n));
+        } catch (e) {
+          assert.ok(e instanceof SpeculationStopped, String(e));
+          stopped++;
+        }
+        try {
+          side.speculate(next, stopAt(n));
+        } catch (e) {
+          assert.ok(e instanceof SpeculationStopped, String(e));
+          stopped++;
+        }
+      }
+      // Every other click is foreseen by a prefetch that runs to the end after the stopped ones.
+      const foreseen = i % 2 === 0 ? joinMeasures(side.speculate(next), lab.speculateExact(next)) : null;
+      const got = joinMeasures(side.measures(next), lab.whatIfExact(next));
+      assert.deepStrictEqual(got, reference.whatIf(next, baseline.neighbors), `click ${i} (term ${t})`);
+      if (foreseen !== null) assert.deepStrictEqual(foreseen, got, `click ${i}: the prefetch after the stopped ones`);
+      mask = next;
+    }
+    // Each half is stopped at its first check at least (the start of the update or the sweep).
+    assert.ok(stopped >= 2 * clicks.length, `only ${stopped} stops`);
+  });
+
+  it('stopOnClick throws once the shared count of clicks moves, not before', () => {
+    const counter = new Int32Array(new SharedArrayBuffer(4));
+    const interrupt = stopOnClick(counter);
+    interrupt();
+    Atomics.add(counter, 0, 1);
+    assert.throws(interrupt, SpeculationStopped);
+    stopOnClick(counter)();
   });
 });

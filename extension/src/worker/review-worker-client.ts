@@ -49,6 +49,8 @@ export class ReviewWorkerClient {
   /** What-ifs awaiting the worker; a prefetch's resolves with null when the worker drops it. */
   private whatIfs = new PendingReplies<WhatIfAnswer | null>();
   private readonly stageCallbacks = new Map<number, StageCallback>();
+  /** What-if clicks sent so far, in memory the worker shares: a prefetch it is computing stops when this moves. */
+  private readonly clicks = new Int32Array(new SharedArrayBuffer(4));
   /** True while the worker holds a finished session that can answer what-ifs. */
   private sessionReady = false;
 
@@ -103,6 +105,8 @@ export class ReviewWorkerClient {
   private askWhatIf(removed: readonly string[], speculative: boolean): Promise<WhatIfAnswer | null> {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
+    // Read by a prefetch computing in the worker, which then stops (ReviewSession.speculate).
+    if (!speculative) Atomics.add(this.clicks, 0, 1);
     const answer = this.whatIfs.request((requestId) => this.send(worker, speculative ? { type: 'whatIf', requestId, removed: [...removed], speculative } : { type: 'whatIf', requestId, removed: [...removed] }), this.nextId++);
     this.updateRef();
     return answer;
@@ -119,7 +123,7 @@ export class ReviewWorkerClient {
 
   private ensureWorker(): Worker {
     if (this.worker !== null) return this.worker;
-    const worker = new Worker(this.workerFile);
+    const worker = new Worker(this.workerFile, { workerData: { clicks: this.clicks } });
     this.runs = new PendingReplies();
     this.whatIfs = new PendingReplies();
     // A stopped worker may still have a message in flight (a cancelled review's report): it must

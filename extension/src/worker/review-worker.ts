@@ -1,7 +1,7 @@
 // The worker_threads entry (dist/review-worker.js): runs the engine off the extension-host
 // thread, so tokenising a large corpus never freezes the editor. It keeps the last finished
 // session so the panel's what-if toggles are answered without re-reading the corpus.
-import { parentPort } from 'node:worker_threads';
+import { parentPort, workerData } from 'node:worker_threads';
 import { startReview } from '../engine/review/start-review';
 import type { ReviewSession, ReviewStage } from '../engine/review/review-api';
 import { isManyFilesInput } from '../engine/read/corpus-files';
@@ -55,6 +55,12 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
 
 interface Asked { requestId: number; removed: string[]; speculative: boolean }
 
+/**
+ * The host's count of what-if clicks sent (ReviewWorkerClient, shared memory): a prefetch that
+ * is computing when it moves stops part way, as the click's message cannot be read until then.
+ */
+const clickCount: Int32Array | undefined = (workerData as { clicks?: Int32Array } | null)?.clicks;
+
 /** Clicks' what-ifs not answered yet, in the order they came. */
 const clicks: Asked[] = [];
 /** The latest prefetch not started yet: it waits for every click, and a newer one replaces it. */
@@ -106,7 +112,7 @@ async function whatIf({ requestId, removed, speculative }: Asked): Promise<void>
   }
   try {
     const started = performance.now();
-    const measures = !speculative ? await session.whatIf(removed) : 'speculate' in session && session.speculate !== undefined ? await session.speculate(removed) : null;
+    const measures = !speculative ? await session.whatIf(removed) : 'speculate' in session && session.speculate !== undefined ? await session.speculate(removed, clickCount) : null;
     if (measures === null) post({ type: 'whatIfDropped', requestId });
     else post({ type: 'whatIfResult', requestId, removed, measures, engineMs: performance.now() - started });
   } catch (e) {

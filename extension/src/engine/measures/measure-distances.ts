@@ -106,6 +106,8 @@ export interface MeasuresFromGramOptions {
   rowScale?: Float64Array;
   /** The document behind sample position i, for error messages. */
   rowOf?: (i: number) => number;
+  /** Called between rows of the sample's sweep; throws to abandon it (a what-if prefetch a click overtook). */
+  interrupt?: () => void;
 }
 
 export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions' | 'termKnnMass'>;
@@ -173,7 +175,7 @@ export function sampledMeasures(options: Omit<MeasuresFromGramOptions, 'sums' | 
     }
   }
 
-  const rows = measureSampleRows(gram, m, k, valid, scale);
+  const rows = measureSampleRows(gram, m, k, valid, scale, options.interrupt);
   const { knn, kOccurrence: counts } = rows;
   const hubness = hubnessSummary(counts, valid, k);
 

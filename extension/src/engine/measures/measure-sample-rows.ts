@@ -56,12 +56,17 @@ export function measureSampleRows(
   k: number,
   valid: Uint8Array,
   scale?: Float64Array,
+  /** Called every few rows; throws to abandon the sweep (nothing outside it is written). */
+  interrupt?: () => void,
 ): SampleRowMeasures {
   const sweep = new RowSweep(gram, m, k, valid, scale ?? new Float64Array(m).fill(1));
   // One call per row rather than one long loop: the row's code is optimised like any function,
   // not by on-stack replacement part way through each call (which, under tsx, was thrown away
   // again at the end of every call).
-  for (let i = 0; i < m; i++) if (valid[i]) sweep.row(i);
+  for (let i = 0; i < m; i++) {
+    if (interrupt !== undefined && (i & 31) === 0) interrupt();
+    if (valid[i]) sweep.row(i);
+  }
   return sweep.result();
 }
 

@@ -53,9 +53,11 @@ export interface ReviewSession {
    * whatIf(removed)'s answer computed without moving the session's what-if state (the panel's
    * prefetch on a hover); a whatIf(removed) that comes next, with no other call between, adopts
    * it and answers at once with the same bits. Null when this session cannot speculate now (no
-   * what-if thread yet, or it failed): the caller then just waits for the click.
+   * what-if thread yet, or it failed), and when `clicks` (a count of clicks sent, in shared
+   * memory: the caller adds 1 before it sends each) moves while it computes — it then stops
+   * part way, so a click never waits for a whole prefetch.
    */
-  speculate?(removed: readonly string[]): Promise<Measures | null>;
+  speculate?(removed: readonly string[], clicks?: Int32Array): Promise<Measures | null>;
   /**
    * Builds what the first toggle would otherwise pay for (the column postings), starts the
    * sample's what-if thread at the panel's opening state and, unless `warmUp` is false, runs a

@@ -137,9 +137,9 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
       afterIdleDelay(() => lab.settle());
       return measures;
     },
-    async speculate(removed: readonly string[]) {
+    async speculate(removed: readonly string[], clicks?: Int32Array) {
       if (parallel === null) return null;
-      const measures = await parallel.speculate(DistanceLab.union(baseMask, index.columnsOf(removed)));
+      const measures = await parallel.speculate(DistanceLab.union(baseMask, index.columnsOf(removed)), clicks);
       afterIdleDelay(() => lab.settle());
       return measures;
     },

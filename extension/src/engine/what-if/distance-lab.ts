@@ -129,12 +129,14 @@ export class DistanceLab {
    * the same mask that comes next adopts the copy instead of computing, so its answer and the
    * state it leaves are those of a plain call, bit for bit (test/what-if-speculative.test.ts).
    * Only for the lab whose exact sums are its own (not a ShardedLab's summed partials).
+   * `interrupt` is called every few rows and throws to abandon the speculation (a click came).
    */
-  speculateExact(removed: Uint8Array): ExactMeasures {
+  speculateExact(removed: Uint8Array, interrupt?: () => void): ExactMeasures {
     if (this.exactSums !== DistanceLab.prototype.exactSums) throw new Error('speculateExact: this lab answers its exact sums from elsewhere');
+    this.speculation = null;
     const spare = (this.spareExact ??= this.exact.twin());
     spare.copyFrom(this.exact);
-    const { sums, rowsWithWeight } = spare.at(removed, true);
+    const { sums, rowsWithWeight } = spare.at(removed, true, interrupt);
     const measures = exactMeasures(sums, rowsWithWeight);
     this.speculation = { mask: removed.slice(), measures };
     return measures;

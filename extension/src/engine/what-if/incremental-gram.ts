@@ -81,9 +81,10 @@ export class IncrementalGram {
    * dots_ij·scale_i·scale_j — what measuresFromGram reads with `rowScale`, one pass over D.
    * Both arrays are the live state: valid until the next call, never to be written.
    * `incremental` as in IncrementalTermSums.at: false = a full build, kept as a checkpoint.
+   * `interrupt` as there: called every few rows of an update, throws to abandon it.
    */
-  scaled(removed: Uint8Array, incremental = true): { dots: Float64Array; scale: Float64Array } {
-    this.advance(removed, incremental);
+  scaled(removed: Uint8Array, incremental = true, interrupt?: () => void): { dots: Float64Array; scale: Float64Array } {
+    this.advance(removed, incremental, interrupt);
     const { m, dots, inv } = this;
     for (let i = 0; i < m; i++) {
       const d = dots[i * m + i]!;
@@ -130,7 +131,7 @@ export class IncrementalGram {
     return true;
   }
 
-  private advance(removed: Uint8Array, incremental: boolean): void {
+  private advance(removed: Uint8Array, incremental: boolean, interrupt?: () => void): void {
     if (removed.length < this.mask.length) throw new RangeError(`removed has ${removed.length} entries for ${this.mask.length} columns`);
     const checkpoint = this.ready ? this.checkpoints.find((c) => sameMask(removed, c.mask)) : undefined;
     // What idle time would have done, unless this call replaces the whole state anyway.
@@ -161,7 +162,7 @@ export class IncrementalGram {
       }
       if (changed.length === 0) this.lastStep = { kind: 'unchanged', pairs: 0 };
       else if (cost >= this.fullCost || this.updatedPairs + cost > REBUILD_AFTER * this.m * this.m) this.build(removed);
-      else this.update(changed, removed, cost);
+      else this.update(changed, removed, cost, interrupt);
     }
   }
 
@@ -214,7 +215,7 @@ export class IncrementalGram {
     this.lastStep = { kind: 'full', pairs: this.fullCost };
   }
 
-  private update(changed: number[], removed: Uint8Array, cost: number): void {
+  private update(changed: number[], removed: Uint8Array, cost: number, interrupt?: () => void): void {
     const { m, dots, shared, postPos, postVal } = this;
     const touched = new Uint8Array(m);
     for (const t of changed) {
@@ -222,6 +223,15 @@ export class IncrementalGram {
       const from = this.start[t]!;
       const to = this.start[t + 1]!;
       for (let a = from; a < to; a++) {
+        if (interrupt !== undefined && ((a - from) & 31) === 0) {
+          try {
+            interrupt();
+          } catch (e) {
+            // Half-updated: unusable until the next copyFrom (a full build first otherwise).
+            this.ready = false;
+            throw e;
+          }
+        }
         const i = postPos[a]!;
         touched[i] = 1;
         const wi = sign * postVal[a]!;

@@ -61,8 +61,10 @@ export class IncrementalTermSums {
    * are reached from the previous call's state; without it (the Report's figures) they are
    * computed by a full pass — bit for bit what a fresh review with that stop list computes — and
    * kept as a checkpoint (the first and the latest), restored exactly when that mask returns.
+   * `interrupt` (a prefetch's, computed in a twin) is called every few rows of an update and
+   * throws to abandon it: the state is then unusable until the next copyFrom.
    */
-  at(removed: Uint8Array, incremental = true): MaskedTermSums {
+  at(removed: Uint8Array, incremental = true, interrupt?: () => void): MaskedTermSums {
     const X = this.weights;
     if (removed.length < X.cols) throw new RangeError(`removed has ${removed.length} entries for ${X.cols} columns`);
     const nnz = X.indptr[X.rows]!;
@@ -107,8 +109,8 @@ export class IncrementalTermSums {
         for (const t of changed) rowsTouched += postings.start[t + 1]! - postings.start[t]!;
         const estimate = rowsTouched * (nnz / Math.max(1, X.rows));
         if (estimate >= nnz || this.updatedEntries + estimate > REBUILD_AFTER * nnz) this.full(removed);
-        else if (changed.length === 1) this.updateOne(changed[0]!, removed);
-        else this.update(changed, removed);
+        else if (changed.length === 1) this.updateOne(changed[0]!, removed, interrupt);
+        else this.update(changed, removed, interrupt);
       }
     }
     return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
@@ -182,7 +184,7 @@ export class IncrementalTermSums {
     this.lastStep = { kind: 'full', entries: indptr[rows]! };
   }
 
-  private update(changed: number[], removed: Uint8Array): void {
+  private update(changed: number[], removed: Uint8Array, interrupt?: () => void): void {
     const { indptr, indices, data } = this.weights;
     const { mask } = this;
     const postings = this.columnPostings();
@@ -194,6 +196,7 @@ export class IncrementalTermSums {
     let entries = 0;
     for (const t of changed) {
       for (let q = postings.start[t]!, qEnd = postings.start[t + 1]!; q < qEnd; q++) {
+        if (interrupt !== undefined && ((q - postings.start[t]!) & 63) === 0) this.interrupted(interrupt);
         const r = postings.rows[q]!;
         if (this.rowStamp[r] === stamp) continue;
         this.rowStamp[r] = stamp;
@@ -237,7 +240,7 @@ export class IncrementalTermSums {
    * cache line, and no look-up of the mask per entry) and added to the sums of the kept terms
    * other than t in one pass at the end; a function word's rows hold ~95% of the entries.
    */
-  private updateOne(t: number, removed: Uint8Array): void {
+  private updateOne(t: number, removed: Uint8Array, interrupt?: () => void): void {
     const { indptr, indices, data } = this.weights;
     const { s1, s2, mask, rowNorm2 } = this;
     const delta = this.deltaScratch();
@@ -245,6 +248,7 @@ export class IncrementalTermSums {
     const stopping = removed[t] !== 0;
     let entries = 0;
     for (let q = postings.start[t]!, qEnd = postings.start[t + 1]!; q < qEnd; q++) {
+      if (interrupt !== undefined && ((q - postings.start[t]!) & 63) === 0) this.interrupted(interrupt);
       const r = postings.rows[q]!;
       const start = indptr[r]!;
       const end = indptr[r + 1]!;
@@ -325,6 +329,21 @@ export class IncrementalTermSums {
       df[u]++;
       s1[u] += xn;
       s2[u] += xn * xn;
+    }
+  }
+
+  /**
+   * Calls a prefetch's `interrupt`; when it throws, the half-done state is marked unusable (a
+   * full pass comes first if anything but copyFrom uses it) and the scratch zeroed for the next
+   * update, then the throw goes on.
+   */
+  private interrupted(interrupt: () => void): void {
+    try {
+      interrupt();
+    } catch (e) {
+      this.ready = false;
+      this.delta?.fill(0);
+      throw e;
     }
   }
 

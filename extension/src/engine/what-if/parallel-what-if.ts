@@ -5,6 +5,7 @@ import { joinMeasures, type SampledFields } from '../measures/measure-distances'
 import { PendingReplies } from '../threads/pending-replies';
 import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
+import { SpeculationStopped, stopOnClick } from './speculation-stopped';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
 /**
@@ -79,17 +80,22 @@ export class ParallelWhatIf {
    * while the pointer rests on a term): both halves compute in copies of their state
    * (DistanceLab.speculateExact, SampleSide.speculate), and a whatIf(removed) that comes next
    * adopts them, so it answers at once with the same bits and leaves the same state as if it
-   * had computed (test/what-if-speculative.test.ts). Null once the thread has failed: the
-   * one-thread fallback does not speculate.
+   * had computed (test/what-if-speculative.test.ts). Null once the thread has failed (the
+   * one-thread fallback does not speculate), and null when `clicks` (the host's count of clicks
+   * sent, in shared memory) moves while it computes: both halves then stop part way, so a click
+   * never waits for a whole prefetch it did not ask for.
    */
-  async speculate(removed: Uint8Array): Promise<Measures | null> {
+  async speculate(removed: Uint8Array, clicks?: Int32Array): Promise<Measures | null> {
     if (this.replies.failure !== null) return null;
-    const sampled = this.request(removed, false, true);
-    const exact = this.lab.speculateExact(removed);
+    const seen = clicks === undefined ? 0 : Atomics.load(clicks, 0);
+    const sampled = this.request(removed, false, clicks === undefined ? true : { counter: clicks, seen }).catch(() => null);
     try {
-      return joinMeasures(await sampled, exact);
-    } catch {
-      return null;
+      const exact = this.lab.speculateExact(removed, clicks === undefined ? undefined : stopOnClick(clicks, seen));
+      const half = await sampled;
+      return half === null ? null : joinMeasures(half, exact);
+    } catch (e) {
+      if (e instanceof SpeculationStopped) return null;
+      throw e;
     }
   }
 
@@ -119,9 +125,10 @@ export class ParallelWhatIf {
     await this.worker.terminate();
   }
 
-  private request(removed: Uint8Array, full: boolean, speculative = false): Promise<SampledFields> {
+  private request(removed: Uint8Array, full: boolean, speculative: boolean | { counter: Int32Array; seen: number } = false): Promise<SampledFields> {
     return this.replies.request((seq) => {
-      const request: SampleRequest = speculative ? { seq, removed, full, speculative } : { seq, removed, full };
+      const request: SampleRequest =
+        speculative === false ? { seq, removed, full } : speculative === true ? { seq, removed, full, speculative: true } : { seq, removed, full, speculative: true, clicks: speculative };
       this.worker.postMessage(request);
       this.worker.ref();
     });

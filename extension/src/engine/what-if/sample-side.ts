@@ -53,11 +53,13 @@ export class SampleSide {
    * hover): the state the clicks walk does not move, and a measures(removed) that comes next
    * adopts the copy, so its answer and the state it leaves are a plain call's, bit for bit.
    * The copy costs one pass over the m×m products (idle time: no click waits for it).
+   * `interrupt` is called every few rows and throws to abandon it (a click came).
    */
-  speculate(removed: Uint8Array): SampledFields {
+  speculate(removed: Uint8Array, interrupt?: () => void): SampledFields {
+    this.speculation = null;
     const spare = (this.spare ??= this.gram.twin());
     spare.copyFrom(this.gram);
-    const measures = this.read(spare, removed, true);
+    const measures = this.read(spare, removed, true, interrupt);
     this.speculation = { mask: removed.slice(), measures };
     return measures;
   }
@@ -67,9 +69,9 @@ export class SampleSide {
     this.gram.settle();
   }
 
-  private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean): SampledFields {
-    const { dots, scale } = gram.scaled(removed, incremental);
+  private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean, interrupt?: () => void): SampledFields {
+    const { dots, scale } = gram.scaled(removed, incremental, interrupt);
     const { k, seed, labels, baselineNeighbors } = this.input;
-    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale }).measures;
+    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale, ...(interrupt === undefined ? {} : { interrupt }) }).measures;
   }
 }

@@ -14,6 +14,11 @@ export interface SampleRequest {
   full: boolean;
   /** SampleSide.speculate: computed in a copy, adopted only by a request for the same mask that comes next. */
   speculative?: boolean;
+  /**
+   * With `speculative`: the host's count of clicks sent (shared memory) and its value when the
+   * prefetch was asked; the thread abandons the prefetch once it moves (stopOnClick).
+   */
+  clicks?: { counter: Int32Array; seen: number };
 }
 
 /** Sample thread → review thread: the answer to request `seq`, or why there is none. */

@@ -5,6 +5,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { afterIdleDelay } from './idle-delay';
 import { SampleSide } from './sample-side';
+import { stopOnClick } from './speculation-stopped';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
 const port = parentPort;
@@ -14,7 +15,8 @@ const side = new SampleSide(workerData as SampleThreadData);
 port.on('message', (request: SampleRequest) => {
   let reply: SampleReply;
   try {
-    reply = { seq: request.seq, measures: request.speculative === true ? side.speculate(request.removed) : side.measures(request.removed, !request.full), error: null };
+    const interrupt = request.clicks === undefined ? undefined : stopOnClick(request.clicks.counter, request.clicks.seen);
+    reply = { seq: request.seq, measures: request.speculative === true ? side.speculate(request.removed, interrupt) : side.measures(request.removed, !request.full), error: null };
   } catch (e) {
     reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
