@@ -7,27 +7,12 @@ import { strict as assert } from 'node:assert';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
 import { ParallelWhatIf } from '../extension/src/engine/what-if/parallel-what-if';
-import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { textLikeRows } from './support/text-like-rows';
+import { twoLabs } from './support/two-labs';
 
-/** Two labs on the same rows (one for each side of the comparison), their baseline and an opening mask. */
+/** Two labs as a review leaves them (support/two-labs.ts) and the clicks to walk. */
 function setUp(seed: number) {
-  const random = mulberry32(seed);
-  const X = textLikeRows(600, 50, random);
-  const sample = Uint32Array.from({ length: 120 }, (_, i) => i * 5);
-  const labels = Int32Array.from(sample, () => Math.floor(random() * 3));
-  const k = 5;
-  const lab = new DistanceLab(X, sample, k, seed, labels);
-  const reference = new DistanceLab(X, sample, k, seed, labels);
-  const baseline = reference.measure(new Uint8Array(X.cols), null);
-  lab.measure(new Uint8Array(X.cols), null);
-  const opening = new Uint8Array(X.cols);
-  opening[0] = 1;
-  opening[3] = 1;
-  reference.measure(opening, baseline.neighbors);
-  lab.measure(opening, baseline.neighbors);
+  const { X, lab, reference, baseline, opening, random } = twoLabs(seed);
   // Single clicks, mostly on the common low columns, some undone, some repeated.
   const clicks: number[] = [];
   for (let i = 0; i < 24; i++) clicks.push(Math.floor(X.cols * random() ** 2));

@@ -7,28 +7,13 @@
 // TfidfVectorizer through test/measures-masked-term-sums.test.ts (docs/methods.md §1, §3).
 import { strict as assert } from 'node:assert';
 import { joinMeasures } from '../extension/src/engine/measures/measure-distances';
-import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
 import { ParallelWhatIf } from '../extension/src/engine/what-if/parallel-what-if';
 import { SampleSide } from '../extension/src/engine/what-if/sample-side';
 import { SpeculationStopped, stopOnClick } from '../extension/src/engine/what-if/speculation-stopped';
-import { mulberry32 } from '../extension/src/engine/random/seeded-random';
-import { textLikeRows } from './support/text-like-rows';
+import { twoLabs } from './support/two-labs';
 
 function setUp(seed: number, clickCount: number) {
-  const random = mulberry32(seed);
-  const X = textLikeRows(600, 50, random);
-  const sample = Uint32Array.from({ length: 120 }, (_, i) => i * 5);
-  const labels = Int32Array.from(sample, () => Math.floor(random() * 3));
-  const k = 5;
-  const lab = new DistanceLab(X, sample, k, seed, labels);
-  const reference = new DistanceLab(X, sample, k, seed, labels);
-  const baseline = reference.measure(new Uint8Array(X.cols), null);
-  lab.measure(new Uint8Array(X.cols), null);
-  const opening = new Uint8Array(X.cols);
-  opening[0] = 1;
-  opening[3] = 1;
-  reference.measure(opening, baseline.neighbors);
-  lab.measure(opening, baseline.neighbors);
+  const { X, lab, reference, baseline, opening, random } = twoLabs(seed);
   // Mostly the common low columns (the heavy toggles that bring the drift resets due).
   const column = () => Math.floor(X.cols * random() ** 2);
   const clicks: number[] = [];
