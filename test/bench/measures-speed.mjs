@@ -7,6 +7,10 @@ import { termSums } from '../../extension/src/engine/measures/term-sums.ts';
 import { sampleSimilarities } from '../../extension/src/engine/measures/sample-similarity.ts';
 import { knnFromSimilarities } from '../../extension/src/engine/measures/knn.ts';
 import { measureDistances } from '../../extension/src/engine/measures/measure-distances.ts';
+import { measureSampleRows } from '../../extension/src/engine/measures/measure-sample-rows.ts';
+import { validRowsFromGram } from '../../extension/src/engine/measures/gram-distances.ts';
+import { selectRows } from '../../extension/src/engine/matrix/select-rows.ts';
+import { IncrementalGram } from '../../extension/src/engine/what-if/incremental-gram.ts';
 
 const n = Number(process.argv[2] ?? 100_000);
 const perRow = Number(process.argv[3] ?? 80);
@@ -97,4 +101,45 @@ console.log(
   `background ${measures.backgroundSimilarity.toFixed(4)}, standout ${measures.neighborStandout?.toFixed(2)}, ` +
     `RC median ${measures.contrast?.median.toFixed(3)}, hubness skew ${measures.hubness?.skewness.toFixed(2)}, ` +
     `twoNN ${measures.intrinsicDimension.twoNN?.toFixed(1)}, mle ${measures.intrinsicDimension.mle?.toFixed(1)}`,
+);
+
+// The what-if's read-off alone: the sampled measures' sweep over the kept dot products and row
+// scales that IncrementalGram hands over after three of the most frequent terms are stopped.
+// Besides each whole sweep's median, the sum over 32-row blocks (timed through the sweep's
+// interrupt hook) of each block's least time over the runs: a figure that other processes on a
+// shared machine inflate much less, as a block (~2 ms) is seldom cut by a time slice.
+const gram = new IncrementalGram(selectRows(X, sample));
+const removed = new Uint8Array(X.cols);
+gram.scaled(removed, false);
+removed[0] = removed[2] = removed[5] = 1;
+const { dots, scale } = gram.scaled(removed, true);
+const valid = validRowsFromGram(dots, m);
+const sweeps = 12;
+const blockBest = new Float64Array(Math.ceil(m / 32) + 1).fill(Infinity);
+const wall = [];
+const cpu = [];
+for (let run = 0; run < sweeps; run++) {
+  let block = 0;
+  let last = process.hrtime.bigint();
+  const lap = () => {
+    const now = process.hrtime.bigint();
+    if (run >= 2) blockBest[block] = Math.min(blockBest[block], Number(now - last) / 1e6);
+    block++;
+    last = now;
+  };
+  const start = process.hrtime.bigint();
+  const used = process.cpuUsage();
+  measureSampleRows(dots, m, k, valid, scale, lap);
+  lap();
+  const spent = process.cpuUsage(used);
+  if (run < 2) continue; // warm-up
+  wall.push(Number(process.hrtime.bigint() - start) / 1e6);
+  cpu.push((spent.user + spent.system) / 1000);
+}
+const median = (values) => [...values].sort((a, b) => a - b)[values.length >> 1];
+let blocks = 0;
+for (const t of blockBest) if (Number.isFinite(t)) blocks += t;
+console.log(
+  `what-if sampled sweep (${m}×${m}, ${sweeps - 2} runs): median wall ${median(wall).toFixed(1)} ms, cpu ${median(cpu).toFixed(1)} ms; ` +
+    `sum of 32-row blocks' best ${blocks.toFixed(1)} ms`,
 );
