@@ -32,15 +32,16 @@ const PRIOR = new Map<number, PriorClass>([[1, 'preposition'], [2, 'pronoun'], [
 // together 0.18 — above GROUP_SHARE, so rule 2 applies; the words outside the prior above half
 // (column 0 and the filler 7) carry 0.2, so rule 1 does. `calls` records what the rule asked.
 function shares(values: Record<number, number> = { 0: 0.2, 1: 0.09, 3: 0.09 }, calls: Array<{ group: number[]; removed: number[] }> = []) {
-  return (group: readonly number[], removed: Uint8Array): number => {
-    calls.push({ group: [...group].sort((a, b) => a - b), removed: [...removed.keys()].filter((c) => removed[c] === 1) });
-    return group.reduce((sum, c) => sum + (values[c] ?? 0), 0);
-  };
+  return (asks: ReadonlyArray<{ group: readonly number[]; removed: Uint8Array }>): number[] =>
+    asks.map(({ group, removed }) => {
+      calls.push({ group: [...group].sort((a, b) => a - b), removed: [...removed.keys()].filter((c) => removed[c] === 1) });
+      return group.reduce((sum, c) => sum + (values[c] ?? 0), 0);
+    });
 }
 
 function decide(opinion: boolean, protect: number[] = [], usePrior = true): Map<number, Decision> {
   const stats = corpus();
-  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior, jointShare: shares() });
+  return chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior, jointShares: shares() });
 }
 const brief = (d: Decision | undefined): string => (d === undefined ? '—' : `${d.suggested ? 'suggest' : 'keep'}:${d.reason}`);
 
@@ -109,7 +110,7 @@ describe('chooseSuggestions', () => {
     for (const row of dense) row[2] = 10 - row[0]! - row[1]!;
     const stats = termCountStats(csrOf(dense));
     const prior = new Map<number, PriorClass>([[0, 'markup'], [1, 'markup']]);
-    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true, jointShare: shares({}) });
+    const d = chooseSuggestions({ stats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: true, usePrior: true, jointShares: shares({}) });
     assert.equal(brief(d.get(0)), 'suggest:markup');
     assert.equal(brief(d.get(1)), '—');
   });
@@ -124,10 +125,10 @@ describe('chooseSuggestions', () => {
 
   it('chooseSuggestions: already-stopped columns get no decision, and stopping one term changes no other decision', () => {
     const stats = corpus();
-    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShare: shares() });
+    const free = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShares: shares() });
     const stopped = new Uint8Array(8);
     stopped[1] = 1;
-    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true, jointShare: shares() });
+    const after = chooseSuggestions({ stats, prior: PRIOR, stopped, protect: new Set(), opinion: false, usePrior: true, jointShares: shares() });
     assert.equal(after.has(1), false);
     // Column 3 alone carries 0.09, under GROUP_SHARE: it stays suggested because the joint share
     // counts the stopped column 1 too (so applying the suggestions cannot turn rule 2 off).
@@ -138,7 +139,7 @@ describe('chooseSuggestions', () => {
   it('chooseSuggestions: grammar words that together carry under GROUP_SHARE of the similarity are kept as light', () => {
     const stats = corpus();
     const run = (jointShare: ReturnType<typeof shares>): Map<number, Decision> =>
-      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShare });
+      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior: true, jointShares: jointShare });
     assert.equal(GROUP_SHARE, 0.15);
     const calls: Array<{ group: number[]; removed: number[] }> = [];
     const light = run(shares({ 1: 0.02, 3: 0.02, 0: 0.9 }, calls));
@@ -162,7 +163,7 @@ describe('chooseSuggestions', () => {
   it('chooseSuggestions: words outside the prior above half that together carry under GROUP_SHARE are kept as light', () => {
     const stats = corpus();
     const run = (jointShare: ReturnType<typeof shares>, usePrior = true): Map<number, Decision> =>
-      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior, jointShare });
+      chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: false, usePrior, jointShares: jointShare });
     // Columns 0 and 7 together 0.10: both kept, with the group and its share in the decision.
     const light = run(shares({ 0: 0.05, 7: 0.05, 1: 0.09, 3: 0.09 }));
     for (const c of [0, 7]) {
@@ -174,7 +175,7 @@ describe('chooseSuggestions', () => {
     assert.equal(brief(light.get(6)), 'suggest:everywhere');
     assert.equal(brief(light.get(1)), 'suggest:grammar');
     // On opinion text the group is weighed the same way.
-    const opinion = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: true, usePrior: true, jointShare: shares({ 0: 0.05 }) });
+    const opinion = chooseSuggestions({ stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(), opinion: true, usePrior: true, jointShares: shares({ 0: 0.05 }) });
     assert.equal(brief(opinion.get(0)), 'keep:light');
     // With the prior off the rule is max_df's plain cut: nothing is weighed, nothing asked.
     const calls: Array<{ group: number[]; removed: number[] }> = [];

@@ -67,6 +67,12 @@ export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<numb
   return values.length % 2 === 1 ? values[h]! : (values[h - 1]! + values[h]!) / 2;
 }
 
+/** One joint share the rule needs: `group`'s, with `removed` stopped. */
+export interface ShareAsk {
+  group: readonly number[];
+  removed: Uint8Array;
+}
+
 export interface ChoiceInput {
   stats: TermCountStats;
   /** Prior columns with their class (closed-class words, markup names). */
@@ -80,10 +86,11 @@ export interface ChoiceInput {
   /** With the function-word prior off, only the document-fraction rule is used. */
   usePrior: boolean;
   /**
-   * The joint share of `group` in the all-pair similarity of the whole corpus once the `removed`
-   * columns are stopped (exact; docs/methods.md §3).
+   * For each ask, the joint share of its `group` in the all-pair similarity of the whole corpus
+   * once its `removed` columns are stopped (exact; docs/methods.md §3). The asks are independent
+   * passes over the whole corpus, asked together so that they can run side by side.
    */
-  jointShare: (group: readonly number[], removed: Uint8Array) => number;
+  jointShares: (asks: readonly ShareAsk[]) => number[];
 }
 
 /**
@@ -141,18 +148,21 @@ function groupOf(d: Decision): SuggestionGroup | null {
  * depends on the order they are looked at in. A group with no member gets 0 and is never asked.
  */
 function groupShares(input: ChoiceInput, all: ReadonlyMap<number, Decision>): Record<SuggestionGroup, number> {
+  const groups: SuggestionGroup[] = ['grammar', 'common'];
   const members: Record<SuggestionGroup, number[]> = { grammar: [], common: [] };
   for (const [c, d] of all) {
     const g = groupOf(d);
     if (g !== null) members[g].push(c);
   }
-  const shareOf = (g: SuggestionGroup): number => {
-    if (members[g].length === 0) return 0;
+  const asked = groups.filter((g) => members[g].length > 0);
+  const answers = input.jointShares(asked.map((g) => {
     const removed = new Uint8Array(input.stats.df.length);
     for (const [c, d] of all) if (d.suggested && groupOf(d) !== g) removed[c] = 1;
-    return input.jointShare(members[g], removed);
-  };
-  return { grammar: shareOf('grammar'), common: shareOf('common') };
+    return { group: members[g], removed };
+  }));
+  const out: Record<SuggestionGroup, number> = { grammar: 0, common: 0 };
+  asked.forEach((g, i) => (out[g] = answers[i]!));
+  return out;
 }
 
 /** One column's decision before the joint-share condition; null where no rule looks at it. */
