@@ -80,6 +80,10 @@ class RowSweep {
   readonly tieScore: Float64Array;
   readonly tiePos: Uint32Array;
   readonly near: Float64Array;
+  /** twoRanks' working space and answer. */
+  readonly rankBuckets = new Int32Array(RANK_BUCKETS);
+  readonly rankScratch: Float64Array;
+  readonly ranks = new Float64Array(2);
   readonly probe: Float64Array;
   readonly validTotal: number;
   readonly zScores: Float64Array;
@@ -115,6 +119,7 @@ class RowSweep {
     this.tieScore = new Float64Array(m);
     this.tiePos = new Uint32Array(m);
     this.near = new Float64Array(m);
+    this.rankScratch = new Float64Array(m);
     this.probe = new Float64Array(Math.ceil(m / RADIUS_PROBE_STRIDE) + 1);
     let validTotal = 0;
     for (let i = 0; i < m; i++) if (valid[i]) validTotal++;
@@ -141,7 +146,6 @@ class RowSweep {
     const binOfSimilarity = binOf;
     const samePoint = SAME_POINT;
     const tieTolerance = TIE_TOLERANCE;
-    const select = selectRank;
     const base = i * m;
     const si = rowScale[i]!;
     const ni = norms[i]!;
@@ -254,10 +258,9 @@ class RowSweep {
       const far = Math.min(10 * k, others);
 
       if (nNear < far) nNear = gatherDistances(gram, i, m, valid, rowScale, norms, near);
-      // The far-th smallest first: it leaves the far − 1 smaller values to its left, so the
-      // k-th smallest of the row is the k-th smallest of those (no copy, a shorter select).
-      const rFar = select(near, 0, nNear - 1, far - 1);
-      const rK = k < far ? select(near, 0, far - 2, k - 1) : rFar;
+      twoRanks(near, nNear, k - 1, far - 1, this.rankBuckets, this.rankScratch, this.ranks);
+      const rK = this.ranks[0]!;
+      const rFar = this.ranks[1]!;
       slack[i] = rK > 0 ? (rFar - rK) / rK : NaN;
     }
   }
@@ -276,6 +279,59 @@ class RowSweep {
       nnDist: this.nnDist,
     };
   }
+}
+
+/** How many value ranges twoRanks counts in. */
+const RANK_BUCKETS = 64;
+
+/**
+ * The values of ranks r1 and r2 (0 = smallest) among a[0..n), into out[0] and out[1]; `a` is
+ * not reordered. Each value is counted in one of `buckets.length` equal ranges between the
+ * least and the greatest value; the bucket a value falls in never decreases as the value grows
+ * (a difference, a product by a positive constant and a floor each keep the order), so rank r
+ * lies in the bucket where the running count passes r, and only that bucket's values are
+ * selected among. Two quickselects over the gathered radius values cost more than the rest of
+ * a row's radius slack (their comparisons are a coin toss for the branch predictor); the counts
+ * and the gather are mostly predictable. Values equal to the same bits as selectRank's.
+ */
+export function twoRanks(a: Float64Array, n: number, r1: number, r2: number, buckets: Int32Array, scratch: Float64Array, out: Float64Array): void {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let t = 0; t < n; t++) {
+    const x = a[t]!;
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
+  }
+  if (!(hi > lo)) {
+    out[0] = out[1] = lo;
+    return;
+  }
+  const count = buckets.length;
+  const last = count - 1;
+  const perUnit = count / (hi - lo);
+  buckets.fill(0);
+  for (let t = 0; t < n; t++) {
+    const b = Math.floor((a[t]! - lo) * perUnit);
+    buckets[b < last ? b : last]++;
+  }
+  // The bucket holding each rank and how many values lie in the buckets below it.
+  let b1 = 0;
+  let below1 = 0;
+  while (below1 + buckets[b1]! <= r1) below1 += buckets[b1++]!;
+  let b2 = 0;
+  let below2 = 0;
+  while (below2 + buckets[b2]! <= r2) below2 += buckets[b2++]!;
+  let n1 = 0;
+  let n2 = n; // the second bucket's values are gathered from the end of the scratch
+  for (let t = 0; t < n; t++) {
+    const x = a[t]!;
+    const raw = Math.floor((x - lo) * perUnit);
+    const b = raw < last ? raw : last;
+    if (b === b1) scratch[n1++] = x;
+    if (b === b2 && b2 !== b1) scratch[--n2] = x;
+  }
+  out[0] = selectRank(scratch, 0, n1 - 1, r1 - below1);
+  out[1] = b2 === b1 ? selectRank(scratch, 0, n1 - 1, r2 - below1) : selectRank(scratch, n2, n - 1, n2 + r2 - below2);
 }
 
 /** Every how many entries radiusBound reads a row. */
