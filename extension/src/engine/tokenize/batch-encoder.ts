@@ -3,6 +3,7 @@ import { Worker } from 'node:worker_threads';
 import { createTermCoder, type TokenSettings } from './create-tokenizer';
 import { batchEncoding, type EncodedBatch } from './encode-batch';
 import type { TermCoder } from './term-coder';
+import { PendingReplies } from '../threads/pending-replies';
 import type { TokenizeReply, TokenizeRequest, TokenizeSetup } from './tokenize-messages';
 
 /** Tokenises batches of texts, in this thread or in a pool of worker threads. */
@@ -55,33 +56,29 @@ export interface TokenizingThreads {
  */
 export function startTokenizingThreads(workers: number, script: string): TokenizingThreads | null {
   if (workers < 1 || !existsSync(script)) return null;
-  const pending = new Map<number, { resolve(b: EncodedBatch): void; reject(e: Error): void; worker: number }>();
   const pool: Worker[] = [];
+  // One set of waiting requests per thread: a thread that dies rejects its own; the first failure
+  // also refuses every later batch, whichever thread it would go to.
+  const replies: PendingReplies<EncodedBatch>[] = [];
   let seq = 0;
   let failure: Error | null = null;
   let configured = false;
 
-  const failAll = (worker: number, e: Error): void => {
-    failure ??= e;
-    for (const [s, p] of pending) {
-      if (p.worker !== worker) continue;
-      pending.delete(s);
-      p.reject(e);
-    }
-  };
-
   for (let w = 0; w < workers; w++) {
     const worker = new Worker(script);
+    const waiting = new PendingReplies<EncodedBatch>();
+    const fail = (e: Error): void => {
+      failure ??= e;
+      waiting.fail(e);
+    };
     worker.on('message', (reply: TokenizeReply) => {
-      const p = pending.get(reply.seq);
-      if (p === undefined) return;
-      pending.delete(reply.seq);
-      if (reply.batch !== null) p.resolve({ ...reply.batch, stream: w });
-      else p.reject(new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
+      if (reply.batch !== null) waiting.resolve(reply.seq, { ...reply.batch, stream: w });
+      else waiting.reject(reply.seq, new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
     });
-    worker.on('error', (e) => failAll(w, e));
-    worker.on('exit', (code) => failAll(w, new Error(`tokenize worker exited with code ${code}`)));
+    worker.on('error', fail);
+    worker.on('exit', (code) => fail(new Error(`tokenize worker exited with code ${code}`)));
     pool.push(worker);
+    replies.push(waiting);
   }
 
   const close = async (): Promise<void> => {
@@ -103,11 +100,10 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
           if (failure !== null) return Promise.reject(failure);
           const s = seq++;
           const w = s % pool.length;
-          return new Promise<EncodedBatch>((resolve, reject) => {
-            pending.set(s, { resolve, reject, worker: w });
-            const request: TokenizeRequest = { type: 'texts', seq: s, texts };
+          return replies[w]!.request((id) => {
+            const request: TokenizeRequest = { type: 'texts', seq: id, texts };
             pool[w]!.postMessage(request);
-          });
+          }, s);
         },
         close,
       };
