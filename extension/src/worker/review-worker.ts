@@ -69,9 +69,10 @@ let answering = false;
 
 /**
  * One what-if at a time, clicks first: a prefetch (speculative) runs only when no click waits,
- * and a click or a newer prefetch drops one that has not started. A started one cannot be
- * stopped (the engine's steps are synchronous): a click then waits for it, and adopts its
- * state when it asked for the same selection (ReviewSession.speculate).
+ * and a click or a newer prefetch drops one that has not started. A started one stops part way
+ * when the host's click count moves (`clickCount`: the engine's steps are synchronous, so the
+ * click's message cannot be read until then); a click for the same selection adopts its state
+ * (ReviewSession.speculate).
  */
 function ask(asked: Asked): void {
   if (hover !== null) post({ type: 'whatIfDropped', requestId: hover.requestId });

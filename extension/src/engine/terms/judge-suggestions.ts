@@ -54,6 +54,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const baseline = input.baseline.measures;
   const suggested = input.suggested.measures;
   const caveats = caveatsOf(baseline, suggested);
+  const light = lightSentences(input.light);
   if (suggestions.length === 0) {
     return {
       outcome: 'nothing suggested',
@@ -61,8 +62,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
         ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`
         : opinion.opinionText
         ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
-        : lightSentences(input.light) !== ''
-        ? `No stop list suggested. ${lightSentences(input.light)}`
+        : light !== ''
+        ? `No stop list suggested. ${light}`
         : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
       estimate: null,
       caveats: [],
@@ -102,7 +103,6 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   if (opinion.opinionText) {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;
   }
-  const light = lightSentences(input.light);
   if (light !== '') headline += ` ${light}`;
   return { outcome, headline, estimate, caveats };
 }
