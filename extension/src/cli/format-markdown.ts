@@ -1,3 +1,4 @@
+import { formatCount } from '../number-format';
 import type { Report } from '../protocol';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
@@ -25,7 +26,7 @@ export function formatMarkdown(report: Report): string {
     for (const c of verdict.caveats) out.push(`- ${cell(c)}`);
     if (verdict.caveats.length > 0) out.push('');
   }
-  out.push(`${count(input.documents, 'document')} · ${count(vocabulary.terms, 'term')} · ${count(vocabulary.tokens, 'token')} · sample ${baseline.sample.documents} (k = ${baseline.sample.k}, seed ${baseline.sample.seed})`);
+  out.push(`${count(input.documents, 'document')} · ${count(vocabulary.terms, 'term')} · ${count(vocabulary.tokens, 'token')} · sample ${formatCount(baseline.sample.documents)} (k = ${baseline.sample.k}, seed ${baseline.sample.seed})`);
   out.push('');
   const provenance = provenanceLine(report);
   if (provenance !== null) out.push(cell(provenance), '');

@@ -1,6 +1,7 @@
 import type { Report } from '../protocol';
 import { provenanceLine } from './format-provenance';
 import { count, verb, wrapLines } from './text-layout';
+import { formatCount } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 import { suggestionLines } from '../engine/terms/stop-list-spelling';
@@ -27,11 +28,11 @@ export function formatText(report: Report): string {
   );
   for (const note of input.notes ?? []) out.push(`Note: ${note}`);
   for (const s of input.skippedExamples ?? []) out.push(`Skipped line ${s.line}: ${s.reason}`);
-  if (input.truncated) out.push(`Read only the first ${input.truncated.bytesRead} bytes (limit ${input.truncated.limitBytes}).`);
+  if (input.truncated) out.push(`Read only the first ${count(input.truncated.bytesRead, 'byte')} (limit ${formatCount(input.truncated.limitBytes)}).`);
   out.push(`Stop list: ${report.stopList.file ?? 'none'} (${count(report.stopList.terms, 'term')}${report.stopList.unused.length ? `, ${report.stopList.unused.length} never ${verb(report.stopList.unused.length, 'occurs', 'occur')}` : ''})`);
   const provenance = provenanceLine(report);
   if (provenance !== null) out.push(provenance);
-  out.push(`Sample: ${baseline.sample.documents} documents, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);
+  out.push(`Sample: ${count(baseline.sample.documents, 'document')}, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);
   out.push('');
 
   const width = Math.max(...measureCatalog.map((spec) => spec.label.length));

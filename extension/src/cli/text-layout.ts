@@ -1,10 +1,11 @@
 /** Terminal text rules shared by the CLI's summaries: counted nouns and a line width. */
+import { formatCount } from '../number-format';
 
 export const LINE_WIDTH = 100;
 
-/** "1 term", "2 terms"; `plural` for irregular nouns ("1 entry never occurs"). */
+/** "1 term", "2 terms", "22,919 terms"; `plural` for irregular nouns ("1 entry never occurs"). */
 export function count(n: number, singular: string, plural = `${singular}s`): string {
-  return `${n} ${n === 1 ? singular : plural}`;
+  return `${formatCount(n)} ${n === 1 ? singular : plural}`;
 }
 
 /** The verb after a count: "1 never occurs", "3 never occur". */
