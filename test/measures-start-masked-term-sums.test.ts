@@ -1,11 +1,11 @@
-// startMaskedTermSums must answer exactly what maskedTermSums answers (itself tied to
-// TfidfVectorizer through termSums: test/measures-masked-term-sums.test.ts and
-// test/weighting-sklearn.test.ts), whether the pass runs on its own thread (the matrix on
+// startMaskedTermSums and startMaskedTermSumsInSeries must answer exactly what maskedTermSums
+// answers (itself tied to TfidfVectorizer through termSums: test/measures-masked-term-sums.test.ts
+// and test/weighting-sklearn.test.ts), whether the passes run on a thread (the matrix on
 // SharedArrayBuffers) or in this one.
 import { strict as assert } from 'node:assert';
 import type { Csr } from '../extension/src/engine/matrix/csr';
 import { maskedTermSums, type MaskedTermSums } from '../extension/src/engine/measures/masked-term-sums';
-import { startMaskedTermSums } from '../extension/src/engine/measures/start-masked-term-sums';
+import { startMaskedTermSums, startMaskedTermSumsInSeries } from '../extension/src/engine/measures/start-masked-term-sums';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 
 /** Unit rows of random weights (some rows empty), on shared or ordinary buffers. */
@@ -74,5 +74,31 @@ describe('startMaskedTermSums', function () {
     const noScript = startMaskedTermSums(shared, removed, true, null);
     assertSameBits(noScript.take(), maskedTermSums(shared, removed, true));
     assert.equal(noScript.fromThread, false);
+  });
+
+  it('in series on one thread: each pass maskedTermSums to the bit, read in any order, masks as they were when started', () => {
+    const X = randomRows(2000, cols, 15, true);
+    const other = new Uint8Array(cols);
+    for (let c = 0; c < cols; c += 3) other[c] = 1;
+    const none = new Uint8Array(cols);
+    const asks = [
+      { removed: removed.slice(), withSpread: false },
+      { removed: other.slice(), withSpread: true },
+      { removed: none, withSpread: false },
+    ];
+    const expected = asks.map((a) => maskedTermSums(X, a.removed, a.withSpread));
+    const pending = startMaskedTermSumsInSeries(X, asks);
+    none.fill(1);
+    for (const i of [2, 0, 1]) {
+      assertSameBits(pending[i]!.take(), expected[i]!);
+      assert.ok(pending[i]!.fromThread, `pass ${i} came from the thread`);
+    }
+    const plain = randomRows(300, cols, 16, false);
+    const here = startMaskedTermSumsInSeries(plain, asks.slice(0, 2));
+    here.forEach((p, i) => {
+      assertSameBits(p.take(), maskedTermSums(plain, asks[i]!.removed, asks[i]!.withSpread));
+      assert.equal(p.fromThread, false);
+    });
+    assert.deepEqual(startMaskedTermSumsInSeries(X, []), []);
   });
 });

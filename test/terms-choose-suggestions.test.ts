@@ -2,7 +2,7 @@
 // by construction. Sources: max_df = 0.5 as scikit-learn documents it (TfidfVectorizer);
 // burstiness from Church & Gale (1995), "Poisson mixtures".
 import { strict as assert } from 'node:assert';
-import { chooseSuggestions, contentBurstiness, GROUP_SHARE, type Decision } from '../extension/src/engine/terms/choose-suggestions';
+import { chooseSuggestions, contentBurstiness, GROUP_SHARE, plannedShareAsks, type Decision } from '../extension/src/engine/terms/choose-suggestions';
 import { termSignal } from '../extension/src/engine/terms/term-signals';
 import type { PriorClass } from '../extension/src/engine/terms/prior-columns';
 import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
@@ -182,5 +182,21 @@ describe('chooseSuggestions', () => {
     const plain = run(shares({}, calls), false);
     assert.equal(brief(plain.get(0)), 'suggest:everywhere');
     assert.deepEqual(calls, []);
+  });
+
+  it('plannedShareAsks: the very asks chooseSuggestions then makes, in its order (a review begins them early)', () => {
+    const stats = corpus();
+    for (const opinion of [false, true]) {
+      for (const usePrior of [true, false]) {
+        for (const protect of [[], [0], [1, 3]]) {
+          const input = { stats, prior: PRIOR, stopped: new Uint8Array(8), protect: new Set(protect), opinion, usePrior };
+          const asked: Array<{ group: number[]; removed: number[] }> = [];
+          chooseSuggestions({ ...input, jointShares: (asks) => asks.map((a) => (asked.push({ group: [...a.group], removed: [...a.removed] }), 0.5)) });
+          const planned = plannedShareAsks(input).map((a) => ({ group: [...a.group], removed: [...a.removed] }));
+          assert.deepEqual(planned, asked, `opinion ${opinion}, prior ${usePrior}, protect ${protect}`);
+          if (usePrior && !opinion && protect.length === 0) assert.equal(planned.length, 2, 'both groups are asked on topic text');
+        }
+      }
+    }
   });
 });

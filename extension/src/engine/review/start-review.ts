@@ -13,7 +13,7 @@ import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights, prestartTokenizing, startTokenizing } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
-import { reviewTerms, startOpinionCheck } from '../terms/review-terms';
+import { reviewTerms, startOpinionCheck, startTermReview } from '../terms/review-terms';
 import { assembleReport } from './assemble-report';
 import { TermIndex } from '../what-if/term-index';
 import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
@@ -95,22 +95,14 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const places = { keys: source.places.keys, documents: source.places.documents, lines: prepared.lines };
   const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels, places);
   const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels);
+  // The suggestion rule's passes over the corpus need no measure: begun on other threads now,
+  // they run while this one measures the baseline.
+  const termInput = { lab, baseMask, index, tokenize, settings, counts: prepared.counts, previews: prepared.previews, opinion };
+  const begun = startTermReview(termInput);
   const baseline = lab.measure(baseMask, null);
 
   stage('reviewing terms');
-  const termReview = reviewTerms({
-    lab,
-    baseMask,
-    baseline,
-    documents: prepared.documents,
-    idf: prepared.idf,
-    index,
-    tokenize,
-    settings,
-    counts: prepared.counts,
-    previews: prepared.previews,
-    opinion,
-  });
+  const termReview = reviewTerms({ ...termInput, baseline, documents: prepared.documents, idf: prepared.idf }, begun);
 
   stage('writing report');
   const report: Report = assembleReport({

@@ -57,7 +57,7 @@ export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<numb
   const values: number[] = [];
   const minDocs = Math.max(CONTENT_MIN_DOCS, CONTENT_DF * stats.documents);
   for (let c = 0; c < stats.df.length; c++) {
-    if (prior.has(c) || stats.documents === 0 || stats.df[c]! < minDocs) continue;
+    if (stats.documents === 0 || stats.df[c]! < minDocs || prior.has(c)) continue;
     const b = termSignal(stats, c).burstiness;
     if (Number.isFinite(b)) values.push(b);
   }
@@ -114,15 +114,8 @@ export interface ChoiceInput {
  * Returns a decision for every column the rules looked at; the rest are plain kept terms.
  */
 export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
-  const { stats, stopped } = input;
-  const all = new Map<number, Decision>();
-  const limit = contentBurstiness(stats, input.prior);
-  // Every column is judged as if nothing were stopped, so that the groups' joint shares, and
-  // with them every decision, are the same whatever the project's list holds.
-  for (let c = 0; c < stats.df.length; c++) {
-    const d = decide(input, c, limit);
-    if (d !== null) all.set(c, d);
-  }
+  const { stopped } = input;
+  const all = firstDecisions(input);
   // With the prior off the rule is max_df's plain cut: no group is weighed.
   const shares = input.usePrior ? groupShares(input, all) : null;
   const out = new Map<number, Decision>();
@@ -133,6 +126,29 @@ export function chooseSuggestions(input: ChoiceInput): Map<number, Decision> {
     out.set(c, light ? { suggested: false, reason: 'light', group, signal: d.signal, cls: d.cls, groupShare: shares[group] } : d);
   }
   return out;
+}
+
+/**
+ * The joint shares chooseSuggestions(input) will ask for, in its order: each is a pass over the
+ * whole corpus that depends on none of the distance measures, so a review can begin them early
+ * (on other threads) and answer chooseSuggestions' jointShares from them.
+ */
+export function plannedShareAsks(input: Omit<ChoiceInput, 'jointShares'>): ShareAsk[] {
+  return input.usePrior ? shareAsks(input, firstDecisions(input)).asks : [];
+}
+
+/** Every column's decision before the joint-share condition (decide), as if nothing were stopped. */
+function firstDecisions(input: Omit<ChoiceInput, 'jointShares'>): Map<number, Decision> {
+  const { stats } = input;
+  const all = new Map<number, Decision>();
+  const limit = contentBurstiness(stats, input.prior);
+  // Every column is judged as if nothing were stopped, so that the groups' joint shares, and
+  // with them every decision, are the same whatever the project's list holds.
+  for (let c = 0; c < stats.df.length; c++) {
+    const d = decide(input, c, limit);
+    if (d !== null) all.set(c, d);
+  }
+  return all;
 }
 
 /** The group a suggestion belongs to, when it is suggested only as part of a loud group. */
@@ -148,6 +164,15 @@ function groupOf(d: Decision): SuggestionGroup | null {
  * depends on the order they are looked at in. A group with no member gets 0 and is never asked.
  */
 function groupShares(input: ChoiceInput, all: ReadonlyMap<number, Decision>): Record<SuggestionGroup, number> {
+  const { asked, asks } = shareAsks(input, all);
+  const answers = input.jointShares(asks);
+  const out: Record<SuggestionGroup, number> = { grammar: 0, common: 0 };
+  asked.forEach((g, i) => (out[g] = answers[i]!));
+  return out;
+}
+
+/** The groups with a member, and for each the ask: its members, with every other suggestion removed. */
+function shareAsks(input: Omit<ChoiceInput, 'jointShares'>, all: ReadonlyMap<number, Decision>): { asked: SuggestionGroup[]; asks: ShareAsk[] } {
   const groups: SuggestionGroup[] = ['grammar', 'common'];
   const members: Record<SuggestionGroup, number[]> = { grammar: [], common: [] };
   for (const [c, d] of all) {
@@ -155,25 +180,24 @@ function groupShares(input: ChoiceInput, all: ReadonlyMap<number, Decision>): Re
     if (g !== null) members[g].push(c);
   }
   const asked = groups.filter((g) => members[g].length > 0);
-  const answers = input.jointShares(asked.map((g) => {
+  const asks = asked.map((g) => {
     const removed = new Uint8Array(input.stats.df.length);
     for (const [c, d] of all) if (d.suggested && groupOf(d) !== g) removed[c] = 1;
     return { group: members[g], removed };
-  }));
-  const out: Record<SuggestionGroup, number> = { grammar: 0, common: 0 };
-  asked.forEach((g, i) => (out[g] = answers[i]!));
-  return out;
+  });
+  return { asked, asks };
 }
 
 /** One column's decision before the joint-share condition; null where no rule looks at it. */
-function decide(input: ChoiceInput, c: number, limit: number): Decision | null {
+function decide(input: Omit<ChoiceInput, 'jointShares'>, c: number, limit: number): Decision | null {
   const { stats, prior, protect, opinion, usePrior } = input;
   if (stats.df[c]! === 0) return null;
   const cls = prior.get(c) ?? null;
   const inPrior = usePrior && cls !== null;
-  const signal = termSignal(stats, c);
-  const everywhere = signal.docFraction > EVERYWHERE;
+  // termSignal's docFraction, without its other signals for the many columns no rule looks at.
+  const everywhere = (stats.documents > 0 ? stats.df[c]! / stats.documents : 0) > EVERYWHERE;
   if (!everywhere && !inPrior) return null;
+  const signal = termSignal(stats, c);
   if (protect.has(c)) return { suggested: false, reason: 'protected', signal, cls };
   const meaning = cls !== null && cls !== 'markup' && cls !== 'phrase' && isMeaningClass(cls);
   if (opinion) {

@@ -2,25 +2,23 @@ import type { EffectiveSettings, TermRow, Verdict } from '../../protocol';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread } from '../measures/term-sums';
 import { selectRank } from '../measures/select-rank';
-import { startMaskedTermSums } from '../measures/start-masked-term-sums';
+import { startMaskedTermSums, startMaskedTermSumsInSeries, type PendingTermSums } from '../measures/start-masked-term-sums';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
-import { chooseSuggestions, type Decision } from './choose-suggestions';
+import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
 import { judgeSuggestions, type LightGroups } from './judge-suggestions';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
-import { priorColumns, protectedColumns } from './prior-columns';
+import { priorColumns, protectedColumns, type PriorClass } from './prior-columns';
 import { stopListSpellings } from './stop-list-spelling';
 import type { TermCountStats } from './term-count-stats';
 import { pullShares, termScores, type TermScores } from './term-scores';
 
-export interface TermReviewInput {
+/** What the term review needs before the baseline is measured (startTermReview). */
+export interface TermReviewStart {
   lab: DistanceLab;
   baseMask: Uint8Array;
-  baseline: DistanceResult;
-  documents: number;
-  idf: Float64Array;
   index: TermIndex;
   tokenize: (text: string) => string[];
   settings: EffectiveSettings;
@@ -30,6 +28,22 @@ export interface TermReviewInput {
   previews: readonly string[];
   /** The opinion check begun earlier (startOpinionCheck), so that it overlaps other work; else run here. */
   opinion?: PendingOpinionShare;
+}
+
+export interface TermReviewInput extends TermReviewStart {
+  baseline: DistanceResult;
+  documents: number;
+  idf: Float64Array;
+}
+
+/** The part of the term review that does not need the baseline, begun by startTermReview. */
+export interface BegunTermReview {
+  prior: ReadonlyMap<number, PriorClass>;
+  protect: Set<number>;
+  /** The opinion check, begun (startOpinionCheck) and read by reviewTerms. */
+  opinion: PendingOpinionShare;
+  /** The suggestion rule's joint-share passes, begun on a thread of their own, with their asks. */
+  shares: Array<{ ask: ShareAsk; pending: PendingTermSums }>;
 }
 
 export interface TermReview {
@@ -57,19 +71,16 @@ const REPORT_ROWS = 2000;
  * *suggested* setting: on the raw corpus the neighbours are themselves picked by the loud terms,
  * which flatters them (docs/methods.md §8).
  */
-export function reviewTerms(input: TermReviewInput): TermReview {
+export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = startTermReview(input)): TermReview {
   const { lab, baseMask, baseline, documents, idf, index, tokenize, settings, counts } = input;
+  const { prior, protect } = begun;
   const cols = lab.weights.cols;
   // The baseline's sums with the spread are one more pass over every non-zero, needed only for
   // the table at the end: begun now on a second thread where the matrix is shared (the rest of
   // this stage runs on one), unless the lab answers sums its own way (a review in shards).
   const baseSpreadSums = lab.sums === DistanceLab.prototype.sums ? startMaskedTermSums(lab.weights, baseMask, true) : null;
-  const prior = priorColumns(index, tokenize, settings.tokens.ngrams === 2);
-  const protect = protectedColumns(index, tokenize, settings.suggest.protect);
-  // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
-  const share = (input.opinion ?? startOpinionCheck(input.previews, false)).take();
-  const meanLength = counts.documents > 0 ? counts.totalTokens / counts.documents : 0;
-  const opinionText = share >= OPINION_SHARE && meanLength <= SHORT_DOCUMENT_TOKENS;
+  const share = begun.opinion.take();
+  const opinionText = share >= OPINION_SHARE && shortDocuments(counts);
   const basePairMass = baseline.pairMass.perTerm;
   // The unmasked sums give the stopped terms' scores and the rule's pull shares without any stop
   // list; df comes from the raw-count statistics (the same non-zeros), so with nothing stopped
@@ -77,20 +88,12 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const full = baseMask.includes(1) ? lab.fullSums() : null;
   const fullPairMass = full === null ? basePairMass : pairMass(full.sums, full.rowsWithWeight).perTerm;
   const decisions = chooseSuggestions({
-    stats: counts,
-    prior,
-    // Decisions do not depend on the stop list: a stopped term is judged like any other, so its
-    // row can say whether the rule agrees with the list.
-    stopped: new Uint8Array(cols),
-    protect,
-    opinion: opinionText,
-    usePrior: settings.suggest.functionWordPrior,
+    ...choiceInput(input, prior, protect, opinionText),
     jointShares: (asks) => {
-      // Each ask is a pass over every non-zero (~0.3 s at 100k documents): all but the last begin
-      // on threads of their own where the matrix is shared, so that two groups cost about one
-      // pass of waiting. The same function either way, so the same bits.
-      const threaded = lab.sums === DistanceLab.prototype.sums;
-      const pending = asks.map((a, i) => (threaded && i < asks.length - 1 ? startMaskedTermSums(lab.weights, a.removed, false) : null));
+      // The passes startTermReview began (the same asks: the same decisions from the same
+      // inputs); an ask it did not foresee is computed here. The same function either way, so
+      // the same bits.
+      const pending = asks.map((a) => begun.shares.find((b) => sameAsk(a, b.ask))?.pending ?? null);
       const here = asks.map((a, i) => (pending[i] === null ? lab.sums(a.removed) : null));
       return asks.map((a, i) => {
         const { sums, rowsWithWeight } = pending[i]?.take() ?? here[i]!;
@@ -153,6 +156,59 @@ export function reviewTerms(input: TermReviewInput): TermReview {
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
+}
+
+/**
+ * Begins the term review's work that needs no distance measure, so that it overlaps the
+ * baseline's: the prior and protected columns, and the suggestion rule's joint-share passes
+ * (each a pass over every non-zero, ~0.3 s at 100k documents), in series on a thread of their own
+ * where the matrix is shared. The rule's asks depend on whether the corpus reads as opinion text,
+ * which the opinion check tells only later: the passes begun are those of topic text, what nearly
+ * every corpus is and every corpus of long documents must be. reviewTerms uses a pass only where
+ * the rule asks for exactly it and computes any other, so the answer never depends on the guess.
+ * Pass the result to reviewTerms.
+ */
+export function startTermReview(input: TermReviewStart): BegunTermReview {
+  const { lab, index, tokenize, settings } = input;
+  const prior = priorColumns(index, tokenize, settings.tokens.ngrams === 2);
+  const protect = protectedColumns(index, tokenize, settings.suggest.protect);
+  // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
+  const opinion = input.opinion ?? startOpinionCheck(input.previews, false);
+  const shares: BegunTermReview['shares'] = [];
+  if (lab.sums === DistanceLab.prototype.sums) {
+    const asks = plannedShareAsks(choiceInput(input, prior, protect, false));
+    const pending = startMaskedTermSumsInSeries(lab.weights, asks.map((a) => ({ removed: a.removed, withSpread: false })));
+    asks.forEach((ask, i) => shares.push({ ask, pending: pending[i]! }));
+  }
+  return { prior, protect, opinion, shares };
+}
+
+/** The suggestion rule's input less its joint shares. */
+function choiceInput(input: TermReviewStart, prior: ReadonlyMap<number, PriorClass>, protect: Set<number>, opinion: boolean) {
+  return {
+    stats: input.counts,
+    prior,
+    // Decisions do not depend on the stop list: a stopped term is judged like any other, so its
+    // row can say whether the rule agrees with the list.
+    stopped: new Uint8Array(input.lab.weights.cols),
+    protect,
+    opinion,
+    usePrior: input.settings.suggest.functionWordPrior,
+  };
+}
+
+/** Only documents this short can read as opinion text (opinion-check.ts SHORT_DOCUMENT_TOKENS). */
+function shortDocuments(counts: TermCountStats): boolean {
+  const meanLength = counts.documents > 0 ? counts.totalTokens / counts.documents : 0;
+  return meanLength <= SHORT_DOCUMENT_TOKENS;
+}
+
+/** Whether two asks are the same pass: the same group and the same removed columns. */
+function sameAsk(a: ShareAsk, b: ShareAsk): boolean {
+  if (a.group.length !== b.group.length || a.removed.length !== b.removed.length) return false;
+  for (let i = 0; i < a.group.length; i++) if (a.group[i] !== b.group[i]) return false;
+  for (let i = 0; i < a.removed.length; i++) if (a.removed[i] !== b.removed[i]) return false;
+  return true;
 }
 
 /**
