@@ -111,6 +111,54 @@ describe('review worker round trip (dist/review-worker.js)', function () {
     assert.ok(Math.abs(later.backgroundSimilarity - elsewhere.measures.backgroundSimilarity) < 1e-12);
   });
 
+  it('ReviewWorkerClient.timedWhatIf says when the request passed each hop between host and worker, in order', async function () {
+    await client.review({ file: path.join(dir, 'tickets.csv'), configPath: null, overrides: { text: 'message', stopList: null, sample: { documents: 30, k: 3 } } });
+    // Common practice, no source: one clock (Date.now()) on both sides, so the hops follow each other.
+    const before = Date.now();
+    const { hops } = await client.timedWhatIf(['via']);
+    const after = Date.now();
+    const order = [before, hops.hostToWorker, hops.workerReceived, hops.engineStarted, hops.engineEnded, hops.hostAnswered, after];
+    assert.ok(order.every((t) => typeof t === 'number'), JSON.stringify(hops));
+    for (let i = 1; i < order.length; i++) assert.ok(order[i]! >= order[i - 1]!, `hop ${i} before hop ${i - 1}: ${JSON.stringify(hops)}`);
+  });
+
+  // Common practice, no source: stopping a prefetch for the selection the click asks for would
+  // throw away work the click then does again; a click for anything else must stop it.
+  it('a click stops a computing prefetch through the shared click count, unless the click is for the prefetch\'s selection', async () => {
+    // A stand-in worker: it holds each prefetch until the next click (as a computing one would
+    // be), except one for ["now"], and answers each request with the click count it saw.
+    const script = path.join(dir, 'counting-worker.js');
+    writeFileSync(
+      script,
+      `const { parentPort, workerData } = require('node:worker_threads');
+const held = [];
+const answer = (m) => parentPort.postMessage({ type: 'whatIfResult', requestId: m.requestId, removed: m.removed, measures: { clicks: Atomics.load(workerData.clicks, 0) }, engineMs: 0, hops: { workerReceived: 0, engineStarted: 0, engineEnded: 0 } });
+parentPort.on('message', (m) => {
+  if (m.type === 'review') return parentPort.postMessage({ type: 'report', runId: m.runId, report: {} });
+  if (m.speculative && m.removed.join() !== 'now') return held.push(m);
+  for (const h of held.splice(0)) answer(h);
+  answer(m);
+});
+`,
+    );
+    const counting = new ReviewWorkerClient(script);
+    const clicksSeen = async (p: Promise<{ measures: unknown } | null>) => ((await p)?.measures as { clicks: number } | undefined)?.clicks;
+    try {
+      await counting.review({ file: path.join(dir, 'tickets.csv'), configPath: null });
+      const ahead = counting.speculativeWhatIf(['the', 'via']);
+      const same = counting.timedWhatIf(['via', 'the']);
+      assert.deepEqual([await clicksSeen(ahead), await clicksSeen(same)], [0, 0], 'a click for the prefetched selection leaves it running');
+      const other = counting.speculativeWhatIf(['the']);
+      const elsewhere = counting.timedWhatIf(['via']);
+      assert.deepEqual([await clicksSeen(other), await clicksSeen(elsewhere)], [1, 1], 'a click for another selection stops it');
+      // Once a prefetch is answered, a click for its selection is an ordinary click.
+      assert.equal(await clicksSeen(counting.speculativeWhatIf(['now'])), 1);
+      assert.equal(await clicksSeen(counting.timedWhatIf(['now'])), 2);
+    } finally {
+      await counting.terminate();
+    }
+  });
+
   it('ReviewWorkerClient.review turns a broken loudword.json into a user failure with file and line', async () => {
     const config = path.join(dir, 'loudword.json');
     writeFileSync(config, '{\n  "text": "message",\n  "sample": { "documents": "many" }\n}\n');

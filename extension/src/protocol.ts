@@ -169,7 +169,34 @@ export interface ShowReportMessage { type: 'showReport'; report: Report }
  * request's arrival to this answer (the worker's messages and the engine). The rest of a click's
  * wait is the messages between panel and host and the drawing.
  */
-export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number; hostMs?: number }
+export interface WhatIfResultMessage { type: 'whatIfResult'; removed: string[]; measures: Measures; requestId: number; engineMs?: number; hostMs?: number; hops?: WhatIfHops }
+/**
+ * When a what-if passed each hop, for the e2e latency scenario's split: Date.now() in ms, one
+ * clock for the panel, the host and the worker on one machine. Each side fills in its own.
+ */
+export interface WhatIfHops {
+  /** panel: the request posted. */
+  panelPosted?: number;
+  /** host: the request read from the panel; handed to the review worker. */
+  hostReceived?: number;
+  hostToWorker?: number;
+  /** worker: the request read; the engine's call started and ended (the answer posted at once). */
+  workerReceived?: number;
+  engineStarted?: number;
+  engineEnded?: number;
+  /** host: the worker's answer read; posted to the panel. */
+  hostAnswered?: number;
+  hostPosted?: number;
+}
+export const WHAT_IF_HOP_NAMES: readonly (keyof WhatIfHops)[] = ['panelPosted', 'hostReceived', 'hostToWorker', 'workerReceived', 'engineStarted', 'engineEnded', 'hostAnswered', 'hostPosted'];
+
+/** Whether `value` is absent or a WhatIfHops (every field a number). */
+export function isWhatIfHopsOrAbsent(value: unknown): boolean {
+  if (value === undefined) return true;
+  if (typeof value !== 'object' || value === null) return false;
+  const m = value as Record<string, unknown>;
+  return Object.keys(m).every((k) => (WHAT_IF_HOP_NAMES as readonly string[]).includes(k) && typeof m[k] === 'number');
+}
 /**
  * host → webview: the answer to a WhatIfPrefetchMessage (same fields as WhatIfResultMessage). A
  * prefetch the host dropped (a click came first, or the review cannot speculate) gets no answer.
@@ -187,7 +214,8 @@ export type HostToWebview = ShowReportMessage | WhatIfResultMessage | WhatIfPref
 
 // ---- Messages: webview → extension host ----
 export interface ReadyMessage { type: 'ready' }
-export interface WhatIfRequestMessage { type: 'whatIf'; removed: string[]; requestId: number }
+/** `panelPosted`: Date.now() when the panel posted it (WhatIfHops). */
+export interface WhatIfRequestMessage { type: 'whatIf'; removed: string[]; requestId: number; panelPosted?: number }
 /**
  * webview → host: the what-if of `removed` ahead of a click (the pointer rests on the toggle that
  * would make it): computed only when no click waits, without moving the review's what-if state,
@@ -212,7 +240,7 @@ export function isWebviewToHost(value: unknown): value is WebviewToHost {
   switch (m.type) {
     case 'whatIf':
     case 'whatIfPrefetch':
-      return Array.isArray(m.removed) && m.removed.every((t) => typeof t === 'string') && typeof m.requestId === 'number';
+      return Array.isArray(m.removed) && m.removed.every((t) => typeof t === 'string') && typeof m.requestId === 'number' && (m.panelPosted === undefined || typeof m.panelPosted === 'number');
     case 'revealLine':
       return typeof m.line === 'number' && Number.isInteger(m.line) && m.line >= 1;
     case 'addTerms':

@@ -1,7 +1,7 @@
 // The page's link to the extension host. Inside VS Code it wraps acquireVsCodeApi(); in the
 // standalone HTML report there is no host, so posting does nothing and nothing is persisted.
 
-import type { HostToWebview, WebviewToHost } from '../../extension/src/protocol';
+import { isWhatIfHopsOrAbsent, type HostToWebview, type WebviewToHost } from '../../extension/src/protocol';
 
 interface VsCodeApi {
   postMessage(message: unknown): void;
@@ -49,7 +49,7 @@ export function isHostToWebview(value: unknown): value is HostToWebview {
       return isReportLike(m.report);
     case 'whatIfResult':
     case 'prefetchResult':
-      return typeof m.requestId === 'number' && Array.isArray(m.removed) && typeof m.measures === 'object' && m.measures !== null && (m.engineMs === undefined || typeof m.engineMs === 'number') && (m.hostMs === undefined || typeof m.hostMs === 'number');
+      return typeof m.requestId === 'number' && Array.isArray(m.removed) && typeof m.measures === 'object' && m.measures !== null && (m.engineMs === undefined || typeof m.engineMs === 'number') && (m.hostMs === undefined || typeof m.hostMs === 'number') && isWhatIfHopsOrAbsent(m.hops);
     case 'busy':
       return m.stage === null || typeof m.stage === 'string';
     case 'error':

@@ -42,6 +42,8 @@ export class PanelApp {
   /** The term whose toggle the pointer or focus rests on, and the timer that prefetches it. */
   private hovered: string | null = null;
   private hoverTimer: ReturnType<typeof setTimeout> | null = null;
+  /** The performance mark of the latest request posted (one is kept). */
+  private lastMark = '';
   /** When each what-if request was posted (panel clock), for the e2e latency split. */
   private readonly sentAt = new Map<number, number>();
   private readonly statusSlot: HTMLElement;
@@ -58,7 +60,12 @@ export class PanelApp {
     this.state = restoreViewState(bridge.loadState());
     this.requester = new WhatIfRequester((m) => {
       this.sentAt.set(m.requestId, performance.now());
-      bridge.post(m);
+      const panelPosted = Date.now();
+      // A mark that finds the request in a Chromium trace (E2E_TRACE in the e2e latency scenario).
+      performance.clearMarks(this.lastMark);
+      this.lastMark = `lw-whatif-posted-${panelPosted}`;
+      performance.mark(this.lastMark);
+      bridge.post({ ...m, panelPosted });
     });
     this.prefetcher = new WhatIfPrefetcher((m) => bridge.post(m));
     this.statusSlot = el('div', { className: 'lw-statusbar', attrs: { role: 'status', 'aria-live': 'polite' } });
@@ -138,6 +145,7 @@ export class PanelApp {
   }
 
   onWhatIfResult(message: WhatIfResultMessage): void {
+    const panelReceived = Date.now();
     const started = performance.now();
     const sent = this.sentAt.get(message.requestId);
     this.sentAt.delete(message.requestId);
@@ -158,6 +166,8 @@ export class PanelApp {
     if (sent !== undefined) slot.roundTripMs = (started - sent).toFixed(1);
     slot.panelMs = (performance.now() - started).toFixed(1);
     slot.source = 'answer';
+    // Each hop's time (WhatIfHops) and the panel's own two, for the e2e scenario's split.
+    slot.hops = JSON.stringify({ ...message.hops, panelReceived, panelDrawn: Date.now() });
   }
 
   /** A prefetch's answer: kept for a click to come, or shown when a click is waiting for it. */
@@ -181,6 +191,7 @@ export class PanelApp {
     if (answer.engineMs !== undefined) slot.engineMs = answer.engineMs.toFixed(1);
     if (answer.hostMs !== undefined) slot.hostMs = answer.hostMs.toFixed(1);
     delete slot.roundTripMs;
+    delete slot.hops;
     slot.panelMs = (performance.now() - started).toFixed(1);
     slot.source = source;
   }

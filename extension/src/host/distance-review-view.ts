@@ -120,10 +120,12 @@ export class DistanceReviewViewProvider implements vscode.WebviewViewProvider, v
     try {
       switch (m.type) {
         case 'whatIf': {
+          const hostReceived = Date.now();
           const arrived = performance.now();
-          const { measures, engineMs } = await review.client.timedWhatIf(m.removed);
+          const { measures, engineMs, hops } = await review.client.timedWhatIf(m.removed);
           const hostMs = performance.now() - arrived;
-          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs, hostMs });
+          const all = { ...(m.panelPosted !== undefined ? { panelPosted: m.panelPosted } : {}), hostReceived, ...hops, hostPosted: Date.now() };
+          if (this.shown === review) this.post({ type: 'whatIfResult', removed: m.removed, measures, requestId: m.requestId, engineMs, hostMs, hops: all });
           return;
         }
         case 'whatIfPrefetch': {

@@ -1,7 +1,7 @@
 // The host's handle on one review worker. Plain Node (no 'vscode'), so the round trip is
 // unit-tested against the bundled dist/review-worker.js.
 import { Worker } from 'node:worker_threads';
-import type { Measures, Report } from '../protocol';
+import type { Measures, Report, WhatIfHops } from '../protocol';
 import type { ReviewInput, ReviewStage } from '../engine/review/review-api';
 import { PendingReplies } from '../engine/threads/pending-replies';
 import { UserError } from '../engine/user-error';
@@ -36,8 +36,11 @@ function failureOf(kind: WorkerErrorMessage['kind'], message: string, file: stri
   return new WorkerFailure(message, stack);
 }
 
-/** A what-if's measures and the engine's time for them (ms, measured in the worker). */
-export interface WhatIfAnswer { measures: Measures; engineMs: number }
+/**
+ * A what-if's measures, the engine's time for them (ms, measured in the worker) and when it
+ * passed each hop between host and worker (the e2e latency split).
+ */
+export interface WhatIfAnswer { measures: Measures; engineMs: number; hops: WhatIfHops }
 type StageCallback = (stage: ReviewStage, fraction: number) => void;
 
 export class ReviewWorkerClient {
@@ -51,6 +54,11 @@ export class ReviewWorkerClient {
   private readonly stageCallbacks = new Map<number, StageCallback>();
   /** What-if clicks sent so far, in memory the worker shares: a prefetch it is computing stops when this moves. */
   private readonly clicks = new Int32Array(new SharedArrayBuffer(4));
+  /**
+   * The latest prefetch sent and not answered yet, by its selection: a click for that selection
+   * does not stop it (the click then adopts it in the worker, ReviewSession.speculate).
+   */
+  private speculating: { requestId: number; key: string } | null = null;
   /** True while the worker holds a finished session that can answer what-ifs. */
   private sessionReady = false;
 
@@ -105,11 +113,19 @@ export class ReviewWorkerClient {
   private askWhatIf(removed: readonly string[], speculative: boolean): Promise<WhatIfAnswer | null> {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
-    // Read by a prefetch computing in the worker, which then stops (ReviewSession.speculate).
-    if (!speculative) Atomics.add(this.clicks, 0, 1);
-    const answer = this.whatIfs.request((requestId) => this.send(worker, speculative ? { type: 'whatIf', requestId, removed: [...removed], speculative } : { type: 'whatIf', requestId, removed: [...removed] }), this.nextId++);
+    const key = [...removed].sort().join('\u0000');
+    // Read by a prefetch computing in the worker, which then stops (ReviewSession.speculate),
+    // unless the click is for its selection: stopped, the click would start it again from the
+    // beginning; let finish, it is the click's answer and state, minus what it had done.
+    if (!speculative && this.speculating?.key !== key) Atomics.add(this.clicks, 0, 1);
+    let hostToWorker = 0;
+    const answer = this.whatIfs.request((requestId) => {
+      if (speculative) this.speculating = { requestId, key };
+      hostToWorker = Date.now();
+      this.send(worker, speculative ? { type: 'whatIf', requestId, removed: [...removed], speculative } : { type: 'whatIf', requestId, removed: [...removed] });
+    }, this.nextId++);
     this.updateRef();
-    return answer;
+    return answer.then((a) => (a === null ? null : { ...a, hops: { hostToWorker, ...a.hops } }));
   }
 
   /** Stops the worker; everything pending is rejected with `kind`. */
@@ -126,6 +142,7 @@ export class ReviewWorkerClient {
     const worker = new Worker(this.workerFile, { workerData: { clicks: this.clicks } });
     this.runs = new PendingReplies();
     this.whatIfs = new PendingReplies();
+    this.speculating = null;
     // A stopped worker may still have a message in flight (a cancelled review's report): it must
     // not mark the new worker's session ready nor settle the new worker's requests.
     worker.on('message', (m: unknown) => {
@@ -172,6 +189,7 @@ export class ReviewWorkerClient {
   }
 
   private dispatch(m: WorkerToHost): void {
+    if ('requestId' in m && m.requestId === this.speculating?.requestId) this.speculating = null;
     switch (m.type) {
       case 'stage':
         this.stageCallbacks.get(m.runId)?.(m.stage, m.fraction);
@@ -181,7 +199,7 @@ export class ReviewWorkerClient {
         this.runs.resolve(m.runId, m.report);
         return;
       case 'whatIfResult':
-        this.whatIfs.resolve(m.requestId, { measures: m.measures, engineMs: m.engineMs });
+        this.whatIfs.resolve(m.requestId, { measures: m.measures, engineMs: m.engineMs, hops: { ...m.hops, hostAnswered: Date.now() } });
         return;
       case 'whatIfDropped':
         this.whatIfs.resolve(m.requestId, null);

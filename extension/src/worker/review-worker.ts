@@ -53,7 +53,7 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
   }
 }
 
-interface Asked { requestId: number; removed: string[]; speculative: boolean }
+interface Asked { requestId: number; removed: string[]; speculative: boolean; /** Date.now() when read (WhatIfHops.workerReceived). */ received: number }
 
 /**
  * The host's count of what-if clicks sent (ReviewWorkerClient, shared memory): a prefetch that
@@ -105,17 +105,19 @@ async function answerAll(): Promise<void> {
   }
 }
 
-async function whatIf({ requestId, removed, speculative }: Asked): Promise<void> {
+async function whatIf({ requestId, removed, speculative, received }: Asked): Promise<void> {
   if (session === null) {
     if (speculative) post({ type: 'whatIfDropped', requestId });
     else post({ type: 'error', kind: 'user', message: 'No finished review to ask a what-if of; run "Review distances" first.', file: null, line: null, requestId });
     return;
   }
   try {
+    const engineStarted = Date.now();
     const started = performance.now();
     const measures = !speculative ? await session.whatIf(removed) : 'speculate' in session && session.speculate !== undefined ? await session.speculate(removed, clickCount) : null;
+    const engineMs = performance.now() - started;
     if (measures === null) post({ type: 'whatIfDropped', requestId });
-    else post({ type: 'whatIfResult', requestId, removed, measures, engineMs: performance.now() - started });
+    else post({ type: 'whatIfResult', requestId, removed, measures, engineMs, hops: { workerReceived: received, engineStarted, engineEnded: Date.now() } });
   } catch (e) {
     // A failed prefetch says nothing: the click that may follow asks again and reports it.
     if (speculative) post({ type: 'whatIfDropped', requestId });
@@ -133,7 +135,7 @@ parentPort?.on('message', (message: unknown) => {
       void review(message.runId, message);
       return;
     case 'whatIf':
-      ask({ requestId: message.requestId, removed: message.removed, speculative: message.speculative === true });
+      ask({ requestId: message.requestId, removed: message.removed, speculative: message.speculative === true, received: Date.now() });
       return;
   }
 });

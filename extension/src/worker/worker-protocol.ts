@@ -2,7 +2,7 @@
 // Both sides import this file; the engine's own types stay behind `import type`, so the host
 // bundle never pulls the engine in. Each message has a literal `type`; comments say which way
 // it travels.
-import type { Measures, Report } from '../protocol';
+import type { Measures, Report, WhatIfHops } from '../protocol';
 import type { ReviewInput, ReviewStage } from '../engine/review/review-api';
 
 // ---- host → worker ----
@@ -23,7 +23,9 @@ export type HostToWorker = ReviewRequest | WhatIfRequest;
 export interface StageMessage { type: 'stage'; runId: number; stage: ReviewStage; fraction: number }
 export interface ReportMessage { type: 'report'; runId: number; report: Report }
 /** The worker's answer to a WhatIfRequest (the host passes it on to the panel as protocol.ts's WhatIfResultMessage). */
-export interface WorkerWhatIfResult { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures; engineMs: number }
+export interface WorkerWhatIfResult { type: 'whatIfResult'; requestId: number; removed: string[]; measures: Measures; engineMs: number; hops: WorkerHops }
+/** The worker's hops of a what-if (Date.now(), see WhatIfHops): the request read, the engine's call started and ended. */
+export type WorkerHops = Required<Pick<WhatIfHops, 'workerReceived' | 'engineStarted' | 'engineEnded'>>;
 /** A speculative WhatIfRequest that will not be answered (overtaken, or the session cannot speculate). */
 export interface WhatIfDropped { type: 'whatIfDropped'; requestId: number }
 /**

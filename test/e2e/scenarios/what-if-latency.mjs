@@ -9,6 +9,7 @@ import { openFile, runCommand, notificationTexts } from '../lib/workbench.mjs';
 import { waitUntil } from '../lib/wait-until.mjs';
 import { named } from '../lib/wait-until.mjs';
 import { SAMPLE } from './review-from-palette.mjs';
+import { addSocketTimes, watchSockets } from '../lib/socket-watch.mjs';
 
 const CLICKS = 12;
 /**
@@ -46,7 +47,9 @@ async function timedClick(frame, term) {
           delete slot.dataset.roundTripMs;
           delete slot.dataset.chartsMs;
           delete slot.dataset.source;
+          delete slot.dataset.hops;
         }
+        const clickAt = Date.now();
         const start = performance.now();
         box.click();
         // The click's own handler (selection, strip marked pending, request posted) runs inside click().
@@ -58,7 +61,8 @@ async function timedClick(frame, term) {
           // Done when the legend names the new selection and nothing is pending.
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
             const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
-            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null });
+            const hops = slot?.dataset.hops === undefined ? null : { clickAt, ...JSON.parse(slot.dataset.hops), shownAt: Date.now() };
+            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null, hops });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -74,8 +78,14 @@ async function timedClick(frame, term) {
  * (webview/src/panel-app.ts, PREFETCH_AFTER_MS).
  */
 const HOVER_MS = 300;
+/**
+ * (c) A person's click: the pointer enters a small box and presses 100-250 ms later, unlike
+ * Playwright's plain click, which enters and presses at once.
+ */
+const HUMAN_MS = 150;
 
 async function measure(ctx, fileName, label) {
+  await watchSockets(ctx.page);
   const { frame } = await reviewCorpus(ctx, fileName);
   const rows = await named('suggested terms in the table', frame.waitForSelector('tr[data-status="suggested"]', { timeout: 20000 }));
   void rows;
@@ -98,38 +108,70 @@ async function measure(ctx, fileName, label) {
   await pointerAway();
   await pause(FIRST_PAUSE_MS);
   const plain = [];
+  // E2E_TRACE=<file>: a Chromium trace of (a)'s clicks, to see where the browser's time goes.
+  const trace = process.env.E2E_TRACE;
+  if (trace) await ctx.browser.startTracing(ctx.page, { path: trace, categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'toplevel', 'blink.user_timing', 'v8.execute'] });
   for (const [i, t] of order.entries()) {
     if (i > 0) await pause(PAUSE_MS);
     plain.push(await timedClick(frame, t));
   }
+  if (trace) {
+    await ctx.browser.stopTracing();
+    console.log(`  trace of (a) in ${trace}; clicks' hops: ${JSON.stringify(plain.map((c) => c.hops))}`);
+  }
   await ctx.screenshot();
   await tidy();
+  await addSocketTimes(ctx.page, plain);
   report(`${label}, (a) click with no rest`, plain, `${PAUSE_MS} ms apart (the first ${FIRST_PAUSE_MS} ms after the table showed)`);
 
-  // (b) The pointer rests on the box for HOVER_MS, then clicks; between clicks it leaves the panel.
-  await pause(FIRST_PAUSE_MS);
-  const rested = [];
-  for (const t of order) {
-    await pointerAway();
-    await pause(PAUSE_MS);
-    await frame.hover(box(t));
-    await pause(HOVER_MS);
-    // The pointer leaves right after the click (the click runs first: the evaluate is sent
-    // first), so the panel does not also prefetch the next toggle while the strip updates.
-    const clicked = timedClick(frame, t);
-    await pointerAway();
-    rested.push(await clicked);
-  }
-  await tidy();
-  report(`${label}, (b) click after a ${HOVER_MS} ms rest on the box`, rested, `each after ${PAUSE_MS} ms away from the panel, then ${HOVER_MS} ms on the box`);
-  const sources = { held: 0, prefetch: 0, answer: 0 };
-  for (const c of rested) if (c.source in sources) sources[c.source]++;
-  console.log(
-    `  (b) how each click was answered: ${sources.held} from a prefetch already in the panel at the click, ${sources.prefetch} by a prefetch still on its way at the click, ${sources.answer} by the click's own request` +
-      ` (the engine's ms in (b) are the prefetch's, computed before or around the click)`,
-  );
-  return { plain: median(plain.map((c) => c.ms)), rested: median(rested.map((c) => c.ms)) };
+  // (b) The pointer rests on the box for HOVER_MS, then clicks; (c) as a person's pointer does,
+  // it enters the box and presses HUMAN_MS later. Between clicks it leaves the panel.
+  const rested = async (restMs, name) => {
+    await pause(FIRST_PAUSE_MS);
+    const clicks = [];
+    for (const t of order) {
+      await pointerAway();
+      await pause(PAUSE_MS);
+      await frame.hover(box(t));
+      await pause(restMs);
+      // The pointer leaves right after the click (the click runs first: the evaluate is sent
+      // first), so the panel does not also prefetch the next toggle while the strip updates.
+      const clicked = timedClick(frame, t);
+      await pointerAway();
+      clicks.push(await clicked);
+    }
+    await tidy();
+    await addSocketTimes(ctx.page, clicks);
+    report(`${label}, ${name}`, clicks, `each after ${PAUSE_MS} ms away from the panel, then ${restMs} ms on the box`);
+    const sources = { held: 0, prefetch: 0, answer: 0 };
+    for (const c of clicks) if (c.source in sources) sources[c.source]++;
+    console.log(
+      `  ${name.slice(0, 3)} how each click was answered: ${sources.held} from a prefetch already in the panel at the click, ${sources.prefetch} by a prefetch still on its way at the click, ${sources.answer} by the click's own request` +
+        ` (the engine's ms here are the prefetch's, computed before or around the click)`,
+    );
+    return clicks;
+  };
+  const afterRest = await rested(HOVER_MS, `(b) click after a ${HOVER_MS} ms rest on the box`);
+  const human = await rested(HUMAN_MS, `(c) click ${HUMAN_MS} ms after the pointer entered the box`);
+  return { plain: median(plain.map((c) => c.ms)), rested: median(afterRest.map((c) => c.ms)), human: median(human.map((c) => c.ms)) };
 }
+
+/** The hops a click's answer passes, in order: [name, from, to] (WhatIfHops, plus the click and the frame seen here). */
+const HOPS = [
+  ['click → panel posts', 'clickAt', 'panelPosted'],
+  ['panel → socket (browser)', 'panelPosted', 'socketSent'],
+  ['socket → host (extension host)', 'socketSent', 'hostReceived'],
+  ['host → worker (host side)', 'hostReceived', 'hostToWorker'],
+  ['worker reads it', 'hostToWorker', 'workerReceived'],
+  ['waits in the worker', 'workerReceived', 'engineStarted'],
+  ['engine', 'engineStarted', 'engineEnded'],
+  ['worker → host', 'engineEnded', 'hostAnswered'],
+  ['host posts', 'hostAnswered', 'hostPosted'],
+  ['host → socket (extension host)', 'hostPosted', 'socketReceived'],
+  ['socket → panel (browser)', 'socketReceived', 'panelReceived'],
+  ['panel draws', 'panelReceived', 'panelDrawn'],
+  ['to the frame seen', 'panelDrawn', 'shownAt'],
+];
 
 /** Prints the clicks' figures: click → strip, the engine's share, and where the rest went. */
 function report(label, clicks, spacing) {
@@ -150,6 +192,19 @@ function report(label, clicks, spacing) {
       `  the rest, split (${split.length} clicks answered by their own request): panel ⇄ host messages ${fmt(split.map((c) => c.roundTripMs - c.hostMs))}; host ⇄ worker messages ${fmt(split.map((c) => c.hostMs - c.engineMs))}; ` +
         `from the panel's work to the frame that shows it ${fmt(split.map((c) => c.ms - c.clickMs - c.roundTripMs - c.panelMs))}`,
     );
+  }
+  // Each hop, from the wall-clock times (Date.now(), one clock for the panel, the host and the
+  // worker) that each side wrote down (protocol.ts WhatIfHops): they add up to click → frame.
+  // The socket's times (lib/socket-watch.mjs) split the two editor hops when they were seen.
+  const withSocket = clicks.filter((c) => c.hops !== null && typeof c.hops.socketSent === 'number' && typeof c.hops.socketReceived === 'number');
+  const hops = withSocket.length > 0 ? HOPS : HOPS.flatMap(([name, from, to]) => (to.startsWith('socket') ? [[name.replace(/socket.*$/, to === 'socketSent' ? 'host' : 'panel'), from, to === 'socketSent' ? 'hostReceived' : 'panelReceived']] : from.startsWith('socket') ? [] : [[name, from, to]]));
+  const hopped = clicks.filter((c) => c.hops !== null && hops.every(([, from, to]) => typeof c.hops[from] === 'number' && typeof c.hops[to] === 'number'));
+  if (hopped.length > 0) {
+    const parts = hops.map(([name, from, to]) => {
+      const values = hopped.map((c) => c.hops[to] - c.hops[from]);
+      return `${name} ${median(values).toFixed(0)} (${Math.min(...values)}–${Math.max(...values)})`;
+    });
+    console.log(`  each hop, median (min–max) ms over ${hopped.length} clicks answered by their own request, Date.now() on each side: ${parts.join('; ')}`);
   }
   // A click answered from a prefetch already held is drawn inside its own handler (clickMs holds the drawing).
   const panel = clicks.filter((c) => c.panelMs !== null).map((c) => (c.source === 'held' ? c.clickMs : c.panelMs + c.clickMs));
