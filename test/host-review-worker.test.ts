@@ -123,37 +123,39 @@ describe('review worker round trip (dist/review-worker.js)', function () {
   });
 
   // Common practice, no source: stopping a prefetch for the selection the click asks for would
-  // throw away work the click then does again; a click for anything else must stop it.
-  it('a click stops a computing prefetch through the shared click count, unless the click is for the prefetch\'s selection', async () => {
-    // A stand-in worker: it holds each prefetch until the next click (as a computing one would
-    // be), except one for ["now"], and answers each request with the click count it saw.
+  // throw away work the click then does again; a click or a prefetch for anything else goes first.
+  it('a computing prefetch is stopped (the shared count moves) by a click or a newer prefetch, unless it is for the prefetch\'s selection', async () => {
+    // A stand-in worker: it holds each prefetch (as a computing one would be) until the next
+    // message, except one for ["now"], and answers each request with the count it saw then.
     const script = path.join(dir, 'counting-worker.js');
     writeFileSync(
       script,
       `const { parentPort, workerData } = require('node:worker_threads');
 const held = [];
-const answer = (m) => parentPort.postMessage({ type: 'whatIfResult', requestId: m.requestId, removed: m.removed, measures: { clicks: Atomics.load(workerData.clicks, 0) }, engineMs: 0, hops: { workerReceived: 0, engineStarted: 0, engineEnded: 0 } });
+const answer = (m) => parentPort.postMessage({ type: 'whatIfResult', requestId: m.requestId, removed: m.removed, measures: { count: Atomics.load(workerData.clicks, 0) }, engineMs: 0, hops: { workerReceived: 0, engineStarted: 0, engineEnded: 0 } });
 parentPort.on('message', (m) => {
   if (m.type === 'review') return parentPort.postMessage({ type: 'report', runId: m.runId, report: {} });
-  if (m.speculative && m.removed.join() !== 'now') return held.push(m);
   for (const h of held.splice(0)) answer(h);
-  answer(m);
+  if (m.speculative && m.removed.join() !== 'now') held.push(m);
+  else answer(m);
 });
 `,
     );
     const counting = new ReviewWorkerClient(script);
-    const clicksSeen = async (p: Promise<{ measures: unknown } | null>) => ((await p)?.measures as { clicks: number } | undefined)?.clicks;
+    const seen = async (p: Promise<{ measures: unknown } | null>) => ((await p)?.measures as { count: number } | undefined)?.count;
     try {
       await counting.review({ file: path.join(dir, 'tickets.csv'), configPath: null });
       const ahead = counting.speculativeWhatIf(['the', 'via']);
       const same = counting.timedWhatIf(['via', 'the']);
-      assert.deepEqual([await clicksSeen(ahead), await clicksSeen(same)], [0, 0], 'a click for the prefetched selection leaves it running');
+      assert.deepEqual([await seen(ahead), await seen(same)], [0, 0], 'a click for the prefetched selection lets it finish');
       const other = counting.speculativeWhatIf(['the']);
-      const elsewhere = counting.timedWhatIf(['via']);
-      assert.deepEqual([await clicksSeen(other), await clicksSeen(elsewhere)], [1, 1], 'a click for another selection stops it');
+      const newer = counting.speculativeWhatIf(['via']);
+      assert.equal(await seen(other), 1, 'a newer prefetch for another selection stops it');
+      const elsewhere = counting.timedWhatIf(['the', 'x']);
+      assert.deepEqual([await seen(newer), await seen(elsewhere)], [2, 2], 'a click for another selection stops it');
       // Once a prefetch is answered, a click for its selection is an ordinary click.
-      assert.equal(await clicksSeen(counting.speculativeWhatIf(['now'])), 1);
-      assert.equal(await clicksSeen(counting.timedWhatIf(['now'])), 2);
+      assert.equal(await seen(counting.speculativeWhatIf(['now'])), 2, 'a prefetch with none in flight stops nothing');
+      assert.equal(await seen(counting.timedWhatIf(['now'])), 3);
     } finally {
       await counting.terminate();
     }

@@ -52,7 +52,11 @@ export class ReviewWorkerClient {
   /** What-ifs awaiting the worker; a prefetch's resolves with null when the worker drops it. */
   private whatIfs = new PendingReplies<WhatIfAnswer | null>();
   private readonly stageCallbacks = new Map<number, StageCallback>();
-  /** What-if clicks sent so far, in memory the worker shares: a prefetch it is computing stops when this moves. */
+  /**
+   * In memory the worker shares: a prefetch it is computing stops when this moves. It moves on
+   * each click, and on each prefetch while another is in flight, except for a request for the
+   * selection of the prefetch in flight (see askWhatIf).
+   */
   private readonly clicks = new Int32Array(new SharedArrayBuffer(4));
   /**
    * The latest prefetch sent and not answered yet, by its selection: a click for that selection
@@ -114,10 +118,12 @@ export class ReviewWorkerClient {
     if (!this.hasSession) return Promise.reject(new UserError('The review behind this panel is no longer loaded; run "Review distances" again.'));
     const worker = this.ensureWorker();
     const key = [...removed].sort().join('\u0000');
-    // Read by a prefetch computing in the worker, which then stops (ReviewSession.speculate),
-    // unless the click is for its selection: stopped, the click would start it again from the
-    // beginning; let finish, it is the click's answer and state, minus what it had done.
-    if (!speculative && this.speculating?.key !== key) Atomics.add(this.clicks, 0, 1);
+    // Read by a prefetch computing in the worker, which then stops (ReviewSession.speculate):
+    // a click or a newer prefetch goes first. Not for the prefetch's own selection: stopped,
+    // the click would start the same work again from the beginning; let finish, it is the
+    // click's answer and state (the click adopts it in the worker).
+    const supersedes = speculative ? this.speculating !== null && this.speculating.key !== key : this.speculating?.key !== key;
+    if (supersedes) Atomics.add(this.clicks, 0, 1);
     let hostToWorker = 0;
     const answer = this.whatIfs.request((requestId) => {
       if (speculative) this.speculating = { requestId, key };

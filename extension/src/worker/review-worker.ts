@@ -56,8 +56,9 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
 interface Asked { requestId: number; removed: string[]; speculative: boolean; /** Date.now() when read (WhatIfHops.workerReceived). */ received: number }
 
 /**
- * The host's count of what-if clicks sent (ReviewWorkerClient, shared memory): a prefetch that
- * is computing when it moves stops part way, as the click's message cannot be read until then.
+ * The host's count of requests that go before a computing prefetch (ReviewWorkerClient, shared
+ * memory: clicks, and prefetches for another selection): a prefetch that is computing when it
+ * moves stops part way, as the newer request's message cannot be read until then.
  */
 const clickCount: Int32Array | undefined = (workerData as { clicks?: Int32Array } | null)?.clicks;
 
@@ -70,9 +71,9 @@ let answering = false;
 /**
  * One what-if at a time, clicks first: a prefetch (speculative) runs only when no click waits,
  * and a click or a newer prefetch drops one that has not started. A started one stops part way
- * when the host's click count moves (`clickCount`: the engine's steps are synchronous, so the
- * click's message cannot be read until then); a click for the same selection adopts its state
- * (ReviewSession.speculate).
+ * when the host's count moves (`clickCount`: the engine's steps are synchronous, so the newer
+ * message cannot be read until then); a click for its selection leaves the count alone, waits
+ * for it and adopts its state (ReviewSession.speculate).
  */
 function ask(asked: Asked): void {
   if (hover !== null) post({ type: 'whatIfDropped', requestId: hover.requestId });
