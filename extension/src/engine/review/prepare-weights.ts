@@ -20,8 +20,8 @@ export interface PreparedWeights {
   idf: Float64Array;
   /** Column j's term. */
   terms: readonly string[];
-  /** Every term seen before pruning, to tell which stop-list entries never occur. */
-  seenTerms: ReadonlySet<string>;
+  /** Every term seen before pruning, to tell which stop-list entries never occur (unusedEntries). */
+  seenTerms: readonly string[];
   documents: number;
   tokens: number;
   nonzeros: number;
@@ -84,7 +84,8 @@ export async function prepareWeights(
   source: CorpusSource,
   settings: EffectiveSettings,
   snapshot: FileSnapshot | null,
-  onWeighting: () => void,
+  /** Called once counting is done, with every document's preview (the opinion check can begin). */
+  onWeighting: (previews: readonly string[]) => void,
   signal: AbortSignal | undefined,
   /** The corpus's size in bytes (characters for an editor buffer), when known. */
   size: number | null = snapshot?.size ?? null,
@@ -109,7 +110,7 @@ export async function prepareWeights(
   await snapshot?.assertUnchanged();
   if (built.counts.rows === 0) throw new UserError('no documents with text were found', source.file);
 
-  onWeighting();
+  onWeighting(built.previews);
   // The stop list is applied later as a column mask, not here, so that the review can still say
   // how much a stopped term would pull and whether it carries neighbour signal.
   const { counts } = pruneTerms(built.counts, {
@@ -134,7 +135,7 @@ export async function prepareWeights(
     weights,
     idf,
     terms: counts.terms,
-    seenTerms: new Set(built.counts.terms),
+    seenTerms: built.counts.terms,
     documents: counts.rows,
     tokens,
     nonzeros: nnz(counts),
@@ -144,4 +145,16 @@ export async function prepareWeights(
     counts: countStats,
     notes: built.notes,
   };
+}
+
+/**
+ * The entries of a stop list whose term is not among `seen` (the terms met before pruning), as
+ * written: one pass over the terms with a look-up in the list, rather than a set of every term
+ * (~70 ms for the 100k bench corpus's terms) for a list that is often empty or short.
+ */
+export function unusedEntries(entries: ReadonlyArray<{ term: string; written: string }>, seen: readonly string[]): string[] {
+  if (entries.length === 0) return [];
+  const missing = new Set(entries.map((e) => e.term));
+  for (const term of seen) if (missing.delete(term) && missing.size === 0) break;
+  return entries.filter((e) => missing.has(e.term)).map((e) => e.written);
 }

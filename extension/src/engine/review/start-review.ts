@@ -10,10 +10,11 @@ import { afterIdleDelay } from '../what-if/idle-delay';
 import { ParallelWhatIf } from '../what-if/parallel-what-if';
 import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
-import { prepareWeights, prestartTokenizing, startTokenizing } from './prepare-weights';
+import { prepareWeights, prestartTokenizing, startTokenizing, unusedEntries } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { reviewTerms, startOpinionCheck, startTermReview } from '../terms/review-terms';
+import type { PendingOpinionShare } from '../terms/start-opinion-share';
 import { assembleReport } from './assemble-report';
 import { TermIndex } from '../what-if/term-index';
 import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
@@ -83,11 +84,23 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     await started?.close();
     throw e;
   }
-  const prepared = await prepareWeights(source, settings, snapshot, () => stage('weighting'), hooks.signal, size, started);
-  const { weights } = prepared;
   // The opinion check reads only the previews: on a corpus large enough for tokenising threads
-  // it runs on a thread of its own while this one measures the baseline.
-  const opinion = startOpinionCheck(prepared.previews, started !== null);
+  // it runs on a thread of its own, begun as soon as counting is done, while this one weighs
+  // and measures the baseline.
+  let opinion: PendingOpinionShare | undefined;
+  const prepared = await prepareWeights(
+    source,
+    settings,
+    snapshot,
+    (previews) => {
+      stage('weighting');
+      opinion = startOpinionCheck(previews, started !== null);
+    },
+    hooks.signal,
+    size,
+    started,
+  );
+  const { weights } = prepared;
   const index = new TermIndex(prepared.terms);
   const baseMask = index.mask(stopList.terms);
 
@@ -109,7 +122,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     settings,
     source,
     prepared,
-    stopList: { ...stopList, unused: stopList.entries.filter((e) => !prepared.seenTerms.has(e.term)).map((e) => e.written) },
+    stopList: { ...stopList, unused: unusedEntries(stopList.entries, prepared.seenTerms) },
     baseline,
     termReview,
     sample,

@@ -61,7 +61,7 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, tot
     weights: sampleRows,
     idf,
     terms: plan.terms,
-    seenTerms: new Set(),
+    seenTerms: [],
     documents: plan.documents,
     tokens: plan.tokens,
     nonzeros: plan.nonzeros,

@@ -44,6 +44,8 @@ export interface BegunTermReview {
   opinion: PendingOpinionShare;
   /** The suggestion rule's joint-share passes, begun on a thread of their own, with their asks. */
   shares: Array<{ ask: ShareAsk; pending: PendingTermSums }>;
+  /** The baseline's sums with the spread, for the term table: the same thread's last pass. */
+  baseSpread: PendingTermSums | null;
 }
 
 export interface TermReview {
@@ -76,9 +78,9 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const { prior, protect } = begun;
   const cols = lab.weights.cols;
   // The baseline's sums with the spread are one more pass over every non-zero, needed only for
-  // the table at the end: begun now on a second thread where the matrix is shared (the rest of
-  // this stage runs on one), unless the lab answers sums its own way (a review in shards).
-  const baseSpreadSums = lab.sums === DistanceLab.prototype.sums ? startMaskedTermSums(lab.weights, baseMask, true) : null;
+  // the table at the end: begun by startTermReview, or now, on a second thread where the matrix
+  // is shared, unless the lab answers sums its own way (a review in shards).
+  const baseSpreadSums = begun.baseSpread ?? (lab.sums === DistanceLab.prototype.sums ? startMaskedTermSums(lab.weights, baseMask, true) : null);
   const share = begun.opinion.take();
   const opinionText = share >= OPINION_SHARE && shortDocuments(counts);
   const basePairMass = baseline.pairMass.perTerm;
@@ -161,8 +163,8 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
 /**
  * Begins the term review's work that needs no distance measure, so that it overlaps the
  * baseline's: the prior and protected columns, and the suggestion rule's joint-share passes
- * (each a pass over every non-zero, ~0.3 s at 100k documents), in series on a thread of their own
- * where the matrix is shared. The rule's asks depend on whether the corpus reads as opinion text,
+ * (each a pass over every non-zero, ~0.3 s at 100k documents), then the baseline's spread pass,
+ * in series on a thread of their own where the matrix is shared. The rule's asks depend on whether the corpus reads as opinion text,
  * which the opinion check tells only later: the passes begun are those of topic text, what nearly
  * every corpus is and every corpus of long documents must be. reviewTerms uses a pass only where
  * the rule asks for exactly it and computes any other, so the answer never depends on the guess.
@@ -175,12 +177,16 @@ export function startTermReview(input: TermReviewStart): BegunTermReview {
   // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
   const opinion = input.opinion ?? startOpinionCheck(input.previews, false);
   const shares: BegunTermReview['shares'] = [];
+  let baseSpread: PendingTermSums | null = null;
   if (lab.sums === DistanceLab.prototype.sums) {
     const asks = plannedShareAsks(choiceInput(input, prior, protect, false));
-    const pending = startMaskedTermSumsInSeries(lab.weights, asks.map((a) => ({ removed: a.removed, withSpread: false })));
+    // The spread's pass last: it is needed only after the suggested measure.
+    const passes = [...asks.map((a) => ({ removed: a.removed, withSpread: false })), { removed: input.baseMask, withSpread: true }];
+    const pending = startMaskedTermSumsInSeries(lab.weights, passes);
     asks.forEach((ask, i) => shares.push({ ask, pending: pending[i]! }));
+    baseSpread = pending[asks.length]!;
   }
-  return { prior, protect, opinion, shares };
+  return { prior, protect, opinion, shares, baseSpread };
 }
 
 /** The suggestion rule's input less its joint shares. */
