@@ -74,7 +74,7 @@ async function timedClick(frame, term) {
 
 /**
  * (b) A reader's pointer reaches the box before the click: how long it rests there. The panel
- * asks for the toggle's what-if ahead of the click once the pointer has rested for 80 ms
+ * asks for the toggle's what-if ahead of the click once the pointer has rested for 30 ms
  * (webview/src/panel-app.ts, PREFETCH_AFTER_MS).
  */
 const HOVER_MS = 300;
