@@ -3,7 +3,7 @@
 // improvement for that measure (colour plus a glyph plus hidden words, never colour alone).
 
 import type { Measures } from '../../extension/src/protocol';
-import { el, uniqueId, type Child } from './create-element';
+import { el, setSafeAttribute, uniqueId, type Child } from './create-element';
 import { changeWord, judgeChange, measureCatalog, type MeasureChange, type MeasureSpec } from '../../extension/src/measure-catalog';
 
 export interface StripInput {
@@ -24,11 +24,29 @@ export function renderHealthStrip(input: StripInput): HTMLElement {
     input.addedCount ? el('span', { className: 'lw-key lw-key--added', text: `(${input.addedCount === input.suggestedCount ? 'all' : input.addedCount.toLocaleString('en-US')} added to the stop list since)` }) : null,
     input.selection ? arrow() : null,
     input.selection ? el('span', { className: 'lw-key', text: `your selection (${plural(input.selection.removedCount, 'term')})` }) : null,
-    input.pending ? el('span', { className: 'lw-pending', text: 'updating…', attrs: { role: 'status' } }) : null,
+    input.pending ? pendingNote() : null,
   ]);
   const primary = el('div', { className: `lw-strip__primary${input.selection ? ' lw-strip--three' : ''}` });
   for (const spec of measureCatalog) if (spec.primary) primary.append(renderTile(spec, input));
   return el('div', { className: 'lw-strip', attrs: { 'data-pending': input.pending } }, [legend, primary, renderMeasureTable(input)]);
+}
+
+/**
+ * Marks a strip and its live line (built by renderHealthStrip and renderLiveSummary) as waiting
+ * for an answer, or not, without building them again: the same attribute and "updating…" note
+ * as a strip built with `pending`.
+ */
+export function setStripPending(strip: HTMLElement, live: HTMLElement, pending: boolean): void {
+  setSafeAttribute(strip, 'data-pending', pending);
+  setSafeAttribute(live, 'data-pending', pending);
+  const legend = strip.querySelector('.lw-strip__legend');
+  const note = legend?.querySelector('.lw-pending') ?? null;
+  if (pending && note === null) legend?.append(pendingNote());
+  if (!pending) note?.remove();
+}
+
+function pendingNote(): HTMLElement {
+  return el('span', { className: 'lw-pending', text: 'updating…', attrs: { role: 'status' } });
 }
 
 /** The headline measures: one tile each, values large. */

@@ -233,7 +233,9 @@ export class TermTable {
     box.checked = stopped || this.checked.has(t.term);
     box.disabled = stopped || !this.options.togglesEnabled;
 
-    const pull = el('td', { className: 'lw-num lw-pull' }, [el('span', { className: 'lw-pull__bar', attrs: { 'aria-hidden': 'true' } }), el('span', { text: formatShare(t.pullShare) })]);
+    // The bar is the cell's background (panel.css .lw-pull), not a positioned child: 500 rows of
+    // positioned bars were 500 paint layers that every frame touching the table walked again.
+    const pull = el('td', { className: 'lw-num lw-pull', text: formatShare(t.pullShare) });
     if (this.maxPull > 0 && Number.isFinite(t.pullShare)) {
       // CSSOM, not a style attribute: allowed under the panel's CSP.
       pull.style.setProperty('--lw-bar', String(Math.max(0, Math.min(1, t.pullShare / this.maxPull))));
