@@ -397,6 +397,39 @@ describe('webview in Chromium', function () {
       }
     });
 
+    it('an answer for another selection, drawn into the strip in place, gives the strip a fresh render gives', async () => {
+      // The in-place update (health-strip updateStripSelection) must not drift from the full
+      // render; compared as HTML with the generated ids taken out. Common practice, no source.
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel();
+      const stripHtml = () =>
+        page.evaluate(() => (document.querySelector('.lw-strip') as unknown as { outerHTML: string }).outerHTML.replace(/ (id|aria-labelledby|aria-describedby)="[^"]*"/g, ''));
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        await page.locator('tr[data-term="the"] input[type=checkbox]').uncheck();
+        const first = await lastWhatIf(page, 1);
+        await send(page, { type: 'whatIfResult', removed: first.removed, measures: { ...report.suggested, backgroundSimilarity: 0.4321 }, requestId: first.requestId });
+        await page.waitForSelector('.lw-strip:not([data-pending])');
+        const built = await page.evaluateHandle(() => document.querySelector('.lw-strip'));
+        await page.locator('tr[data-term="please"] input[type=checkbox]').uncheck();
+        const second = await lastWhatIf(page, 2);
+        // The baseline's measures as the answer: every value, mark, verdict and detail differs from the first.
+        await send(page, { type: 'whatIfResult', removed: second.removed, measures: report.baseline, requestId: second.requestId });
+        await page.waitForSelector('.lw-strip:not([data-pending])');
+        assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), await stripValue(page, 'backgroundSimilarity', 'baseline'));
+        assert.ok(await page.evaluate((b) => b === document.querySelector('.lw-strip'), built), 'the strip was updated, not built again');
+        const inPlace = await stripHtml();
+        // The same Report again keeps the view state's selection and its measures: a fresh strip.
+        await send(page, { type: 'showReport', report });
+        await page.waitForFunction((b) => document.querySelector('.lw-strip') !== b, built);
+        assert.equal(inPlace, await stripHtml());
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+
     it('a pointer resting on a toggle prefetches its what-if; the click then shows that answer at once, asks the host to adopt it, and never shows an answer for another state', async () => {
       // The contract is issue 10's design (speculative answers on hover); common practice, no source.
       const report = fixture('report-small.json');

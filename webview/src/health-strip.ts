@@ -23,7 +23,7 @@ export function renderHealthStrip(input: StripInput): HTMLElement {
     el('span', { className: 'lw-key', text: `with ${plural(input.suggestedCount, 'suggested term')}` }),
     input.addedCount ? el('span', { className: 'lw-key lw-key--added', text: `(${input.addedCount === input.suggestedCount ? 'all' : input.addedCount.toLocaleString('en-US')} added to the stop list since)` }) : null,
     input.selection ? arrow() : null,
-    input.selection ? el('span', { className: 'lw-key', text: `your selection (${plural(input.selection.removedCount, 'term')})` }) : null,
+    input.selection ? el('span', { className: 'lw-key lw-key--selection', text: selectionKey(input.selection.removedCount) }) : null,
     input.pending ? pendingNote() : null,
   ]);
   const primary = el('div', { className: `lw-strip__primary${input.selection ? ' lw-strip--three' : ''}` });
@@ -37,8 +37,12 @@ export function renderHealthStrip(input: StripInput): HTMLElement {
  * as a strip built with `pending`.
  */
 export function setStripPending(strip: HTMLElement, live: HTMLElement, pending: boolean): void {
-  setSafeAttribute(strip, 'data-pending', pending);
+  markStripPending(strip, pending);
   setSafeAttribute(live, 'data-pending', pending);
+}
+
+function markStripPending(strip: HTMLElement, pending: boolean): void {
+  setSafeAttribute(strip, 'data-pending', pending);
   const legend = strip.querySelector('.lw-strip__legend');
   const note = legend?.querySelector('.lw-pending') ?? null;
   if (pending && note === null) legend?.append(pendingNote());
@@ -47,6 +51,45 @@ export function setStripPending(strip: HTMLElement, live: HTMLElement, pending: 
 
 function pendingNote(): HTMLElement {
   return el('span', { className: 'lw-pending', text: 'updating…', attrs: { role: 'status' } });
+}
+
+/**
+ * Puts a new selection into a strip that already shows one (built by renderHealthStrip with a
+ * selection): the selection's value spans, the measure details that follow the selection, the
+ * legend's count and the pending mark change, the rest stays. The result is the strip
+ * renderHealthStrip builds for `input` (test/webview-browser.test.ts compares the two). An
+ * answer drawn this way restyles and lays out tens of elements instead of the strip's ~420.
+ * Returns false, changing nothing, when the strip has no selection column yet.
+ */
+export function updateStripSelection(strip: HTMLElement, input: StripInput): boolean {
+  const selection = input.selection;
+  const key = strip.querySelector('.lw-key--selection');
+  if (selection === null || key === null) return false;
+  key.textContent = selectionKey(selection.removedCount);
+  for (const spec of measureCatalog) {
+    for (const holder of strip.querySelectorAll(`[data-measure="${spec.id}"]`)) {
+      holder.querySelector('.lw-v--selection')?.replaceWith(selectionSpan(spec, input.suggested, selection.measures));
+      if (spec.primary || !spec.detail) continue;
+      const detail = spec.detail(selection.measures);
+      const shown = holder.querySelector('.lw-measures__detail');
+      if (detail === null) shown?.remove();
+      else if (shown !== null) shown.textContent = detail;
+      else holder.querySelector('th > span')?.after(el('span', { className: 'lw-measures__detail', text: detail }));
+    }
+  }
+  markStripPending(strip, input.pending);
+  return true;
+}
+
+function selectionKey(removedCount: number): string {
+  return `your selection (${plural(removedCount, 'term')})`;
+}
+
+/** The selection's value, judged against the suggestions (see valueChain). */
+function selectionSpan(spec: MeasureSpec, suggested: Measures, measures: Measures): HTMLElement {
+  const sug = spec.value(suggested);
+  const sel = spec.value(measures);
+  return valueSpan(spec, 'selection', sel, sug, judgeChange(spec, sug, sel), 'your selection, against the suggestions');
 }
 
 /** The headline measures: one tile each, values large. */
@@ -83,7 +126,6 @@ function renderMeasureTable(input: StripInput): HTMLElement {
     const sug = spec.value(input.suggested);
     const detailSource = input.selection?.measures ?? input.suggested;
     const detail = spec.detail ? spec.detail(detailSource) : null;
-    const sel = input.selection ? spec.value(input.selection.measures) : null;
     body.append(
       el('tr', { attrs: { tabindex: 0, title: spec.meaning, 'aria-describedby': meaningId, 'data-measure': spec.id } }, [
         el('th', { attrs: { scope: 'row' } }, [
@@ -93,7 +135,7 @@ function renderMeasureTable(input: StripInput): HTMLElement {
         ]),
         el('td', { className: 'lw-num' }, [valueSpan(spec, 'baseline', base, null, null)]),
         el('td', { className: 'lw-num' }, [valueSpan(spec, 'suggested', sug, base, judgeChange(spec, base, sug), 'with suggestions')]),
-        input.selection ? el('td', { className: 'lw-num' }, [valueSpan(spec, 'selection', sel, sug, judgeChange(spec, sug, sel), 'your selection, against the suggestions')]) : null,
+        input.selection ? el('td', { className: 'lw-num' }, [selectionSpan(spec, input.suggested, input.selection.measures)]) : null,
       ]),
     );
   }
@@ -105,12 +147,9 @@ function valueChain(spec: MeasureSpec, input: StripInput): Child[] {
   const values: Child[] = [valueSpan(spec, 'baseline', base, null, null)];
   const sug = spec.value(input.suggested);
   values.push(arrow(), valueSpan(spec, 'suggested', sug, base, judgeChange(spec, base, sug), 'with suggestions'));
-  if (input.selection) {
-    const sel = spec.value(input.selection.measures);
-    // Judged against the suggestions, not the baseline: the question a toggle asks is whether
-    // the reader's own list does better or worse than the one suggested.
-    values.push(arrow(), valueSpan(spec, 'selection', sel, sug, judgeChange(spec, sug, sel), 'your selection, against the suggestions'));
-  }
+  // Judged against the suggestions, not the baseline: the question a toggle asks is whether
+  // the reader's own list does better or worse than the one suggested.
+  if (input.selection) values.push(arrow(), selectionSpan(spec, input.suggested, input.selection.measures));
   return values;
 }
 

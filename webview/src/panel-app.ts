@@ -5,7 +5,7 @@ import type { Measures, Report, WhatIfPrefetchResultMessage, WhatIfResultMessage
 import { ChartPanel } from './charts';
 import { watchTheme } from './chart-theme';
 import { el, replaceChildren } from './create-element';
-import { renderHealthStrip, renderLiveSummary, setStripPending, type StripInput } from './health-strip';
+import { renderHealthStrip, renderLiveSummary, setStripPending, updateStripSelection, type StripInput } from './health-strip';
 import type { HostBridge } from './host-bridge';
 import { renderHubList } from './hub-list';
 import { renderReportHeader, renderSettingsFooter } from './report-header';
@@ -367,12 +367,18 @@ export class PanelApp {
     const last = this.stripShown;
     const strip = l.stripSlot.firstElementChild;
     const live = l.liveSlot.firstElementChild;
-    if (
-      last !== null && strip instanceof HTMLElement && live instanceof HTMLElement &&
-      last.measures === shown.measures && last.removedCount === shown.removedCount && last.suggestedCount === shown.suggestedCount && last.addedCount === shown.addedCount
-    ) {
-      setStripPending(strip, live, input.pending);
-      return;
+    if (last !== null && strip instanceof HTMLElement && live instanceof HTMLElement && last.suggestedCount === shown.suggestedCount && last.addedCount === shown.addedCount) {
+      if (last.measures === shown.measures && last.removedCount === shown.removedCount) {
+        setStripPending(strip, live, input.pending);
+        return;
+      }
+      // An answer for another selection, where the strip already shows one: its values change
+      // in place (the live line is small and is built again).
+      if (last.measures !== null && updateStripSelection(strip, input)) {
+        this.stripShown = shown;
+        replaceChildren(l.liveSlot, [renderLiveSummary(input)]);
+        return;
+      }
     }
     this.stripShown = shown;
     replaceChildren(l.stripSlot, [renderHealthStrip(input)]);
