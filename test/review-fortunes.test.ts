@@ -40,6 +40,9 @@ describe('startReview on Debian fortunes (labels kept from the review)', functio
     assert.ok(r.verdict !== undefined);
     assert.equal(r.verdict.estimate?.measure, 'neighbour standout');
     assert.ok(r.verdict.estimate!.low <= r.verdict.estimate!.change && r.verdict.estimate!.change <= r.verdict.estimate!.high);
+    // Counts are written for a reader, thousands grouped, as everywhere else (number-format.ts).
+    assert.match(r.verdict.headline, /over \d{1,3}(,\d{3})* sampled documents/);
+    assert.doesNotMatch(r.verdict.headline, /\d{4}/);
     console.log(`      fortunes: ${r.suggestions.length} suggestions; verdict: ${r.verdict.headline}`);
   });
 

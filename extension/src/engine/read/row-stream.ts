@@ -3,6 +3,7 @@ import type { CorpusLayout } from './corpus-layout';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { parseJsonlLine, scalarText } from './jsonl-value';
 import { LineSplitter, MAX_LINE_CHARS } from './line-splitter';
+import { formatCount } from '../../number-format';
 import { UserError } from '../user-error';
 
 /** How many skipped rows are kept with their reason; the rest are only counted. */
@@ -127,7 +128,7 @@ export function checkPass(file: string, state: PassState): void {
   if (state.brokenJson > state.documents && first !== undefined) {
     // Source: jsonlines.org — each line is one valid JSON value.
     throw new UserError(
-      `${state.brokenJson} lines are not valid JSON against ${state.documents} documents; first bad line ${first.line}: ${first.reason}`,
+      `${formatCount(state.brokenJson)} lines are not valid JSON against ${formatCount(state.documents)} documents; first bad line ${first.line}: ${first.reason}`,
       file,
       first.line,
     );

@@ -1,3 +1,4 @@
+import { formatCount } from '../../number-format';
 import type { Measures, Verdict } from '../../protocol';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
@@ -79,7 +80,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   // The CLI and the panel put "the suggested list helps/hurts" before the headline, so the
   // headline names the terms instead of repeating "the suggested list"; verbs agree with it.
   const one = suggestions.length === 1;
-  const list = one ? 'This one term' : `These ${suggestions.length} terms`;
+  const list = one ? 'This one term' : `These ${formatCount(suggestions.length)} terms`;
   const agree = (singular: string, plural: string): string => (one ? singular : plural);
   if (boot === null) {
     return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats };
@@ -87,7 +88,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
   const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const };
   const digits = useLabels ? 3 : 2;
-  const interval = `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${boot.queries} sampled documents`;
+  const interval = `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${formatCount(boot.queries)} sampled documents`;
   const outcome: Verdict['outcome'] = boot.low > 0 ? 'helps' : boot.high < 0 ? 'hurts' : 'no clear change';
   let headline: string;
   if (useLabels) {
