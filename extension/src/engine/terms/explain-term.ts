@@ -27,7 +27,7 @@ export function wordKind(cls: PriorClass | null): string | null {
 
 function burst(d: Decision): string {
   const b = d.signal.burstiness;
-  return Number.isFinite(b) ? `burstiness ${b.toFixed(2)} ± ${d.signal.burstinessSe.toFixed(2)} (0 = spread like chance)` : 'burstiness unknown';
+  return Number.isFinite(b) ? `burstiness ${b.toFixed(2)} ± ${d.signal.burstinessSe.toFixed(2)}, where 0 means spread like chance` : 'burstiness unknown';
 }
 
 /**
