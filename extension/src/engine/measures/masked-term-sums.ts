@@ -5,6 +5,8 @@ export interface MaskedTermSums {
   sums: TermSums;
   /** Rows with at least one kept non-zero weight (rowsWithWeight of the masked matrix). */
   rowsWithWeight: number;
+  /** Each row's kept Σw² (before renormalising), when the pass was asked to write them. */
+  rowNorm2?: Float64Array;
 }
 
 /**
@@ -12,9 +14,11 @@ export interface MaskedTermSums {
  * — the exact part of a what-if — without writing the masked matrix: each row's kept norm is
  * found first, then its scaled weights are added in. Same O(nnz) as a mask, but no n-sized
  * copy (at a million documents the copy alone is ~1 GB). `withSpread` adds Σ x ln x, the only
- * part that needs a logarithm per entry; the what-if's measures do not use it.
+ * part that needs a logarithm per entry; the what-if's measures do not use it. With `rowNorm2`,
+ * each row's kept Σw² is written there too (0 for a row with nothing kept): with them the pass is
+ * the whole state of a full pass of the what-if's IncrementalTermSums, which can adopt it.
  */
-export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean): MaskedTermSums {
+export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, rowNorm2: Float64Array | null = null): MaskedTermSums {
   const cols = X.cols;
   const s1 = new Float64Array(cols);
   const s2 = new Float64Array(cols);
@@ -27,11 +31,12 @@ export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean)
     const end = indptr[r + 1]!;
     let norm2 = 0;
     for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
+    if (rowNorm2 !== null) rowNorm2[r] = norm2;
     if (!(norm2 > 0)) continue;
     rowsWithWeight++;
     addKeptRow({ s1, s2, df }, X, start, end, removed, 1 / Math.sqrt(norm2), withSpread ? sxlogx : null);
   }
-  return { sums: { s1, s2, df, sxlogx }, rowsWithWeight };
+  return rowNorm2 === null ? { sums: { s1, s2, df, sxlogx }, rowsWithWeight } : { sums: { s1, s2, df, sxlogx }, rowsWithWeight, rowNorm2 };
 }
 
 /**

@@ -1,5 +1,5 @@
-import { DONE, PENDING, type PendingResult } from '../threads/one-shot-thread';
-import { startThread, threadScript } from '../threads/thread-script';
+import { startOneShots, type PendingResult } from '../threads/one-shot-thread';
+import { threadScript } from '../threads/thread-script';
 import type { Csr } from '../matrix/csr';
 import { maskedTermSums, type MaskedTermSums } from './masked-term-sums';
 
@@ -9,8 +9,10 @@ export interface MaskedTermSumsOut {
   s2: Float64Array;
   df: Uint32Array;
   sxlogx: Float64Array;
-  /** status[0] is PENDING, DONE or FAILED (engine/threads/one-shot-thread.ts), status[1] rowsWithWeight. */
-  status: Int32Array;
+  /** Each row's kept Σw², when the pass was asked for them (rowNorms), else null. */
+  rowNorm2: Float64Array | null;
+  /** rowsWithWeight[0]. */
+  rowsWithWeight: Int32Array;
 }
 
 /** What the thread is given: the matrix (indices and data shared), and the passes to make in order. */
@@ -21,6 +23,8 @@ export interface MaskedTermSumsJob {
   indices: Uint32Array;
   data: Float64Array;
   passes: Array<{ removed: Uint8Array; withSpread: boolean; out: MaskedTermSumsOut }>;
+  /** status[i]: PENDING, DONE or FAILED for pass i (engine/threads/one-shot-thread.ts). */
+  status: Int32Array;
 }
 
 /** maskedTermSums, begun now and read by `take()` (which waits for it when it runs elsewhere). */
@@ -30,6 +34,8 @@ export type PendingTermSums = PendingResult<MaskedTermSums>;
 export interface MaskedTermSumsAsk {
   removed: Uint8Array;
   withSpread: boolean;
+  /** Also each row's kept Σw² (maskedTermSums's `rowNorm2`): what a what-if state adopting the pass needs. */
+  rowNorms?: boolean;
 }
 
 const defaultScript = (): string | null => threadScript(__dirname, 'masked-term-sums-thread.js', 'masked-term-sums-thread.ts');
@@ -43,57 +49,60 @@ const defaultScript = (): string | null => threadScript(__dirname, 'masked-term-
  * if the thread fails — `take()` computes the same sums in this thread. Either way the answer is
  * maskedTermSums's, to the bit: the same function over the same arrays.
  */
-export function startMaskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, script: string | null = defaultScript()): PendingTermSums {
-  return startMaskedTermSumsInSeries(X, [{ removed, withSpread }], script)[0]!;
+export function startMaskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, script: string | null = defaultScript(), rowNorms = false): PendingTermSums {
+  return startMaskedTermSumsInSeries(X, [{ removed, withSpread, rowNorms }], script)[0]!;
 }
 
 /**
  * Several maskedTermSums passes on one thread, one after the other, each read by its own
- * `take()` as soon as it is done: passes begun beside other work leave this thread a core of its
- * own (two passes on two threads would each take a share of it), and the first is ready after
+ * `take()` as soon as it is done (a one-shot thread with a result per pass,
+ * engine/threads/one-shot-thread.ts): passes begun beside other work leave this thread a core of
+ * its own (two passes on two threads would each take a share of it), and the first is ready after
  * one pass. The masks are copied now. Without a shared matrix or a script, or where the thread
- * fails, each `take()` computes its pass here; every answer is maskedTermSums's, to the bit.
+ * fails, each `take()` computes its pass here; every answer is maskedTermSums's, to the bit. A
+ * pass the caller will not read is dropped (`drop()`); once every pass is taken or dropped the
+ * thread is stopped.
  */
 export function startMaskedTermSumsInSeries(X: Csr, asks: readonly MaskedTermSumsAsk[], script: string | null = defaultScript()): PendingTermSums[] {
   const shared = X.indices.buffer instanceof SharedArrayBuffer && X.data.buffer instanceof SharedArrayBuffer;
-  const copies = asks.map((a) => ({ removed: a.removed.slice(), withSpread: a.withSpread }));
-  const here = (i: number) => (): MaskedTermSums => maskedTermSums(X, copies[i]!.removed, copies[i]!.withSpread);
-  const inThisThread = (): PendingTermSums[] => copies.map((_, i) => ({ take: here(i), fromThread: false }));
-  if (!shared || script === null || copies.length === 0) return inThisThread();
+  const copies = asks.map((a) => ({ removed: a.removed.slice(), withSpread: a.withSpread, rowNorms: a.rowNorms === true }));
+  const here = (i: number): MaskedTermSums => {
+    const c = copies[i]!;
+    return maskedTermSums(X, c.removed, c.withSpread, c.rowNorms ? new Float64Array(X.rows) : null);
+  };
   const cols = X.cols;
   const sharedF64 = (n: number): Float64Array => new Float64Array(new SharedArrayBuffer(8 * n));
-  const passes = copies.map((c) => ({
-    ...c,
-    out: { s1: sharedF64(cols), s2: sharedF64(cols), df: new Uint32Array(new SharedArrayBuffer(4 * cols)), sxlogx: sharedF64(cols), status: new Int32Array(new SharedArrayBuffer(8)) },
-  }));
-  const job: MaskedTermSumsJob = { rows: X.rows, cols, indptr: X.indptr, indices: X.indices, data: X.data, passes };
-  let worker: ReturnType<typeof startThread>;
-  try {
-    worker = startThread(script, { workerData: job });
-  } catch {
-    return inThisThread();
-  }
-  worker.on('error', () => undefined);
-  worker.unref();
-  // A generous bound for a thread that died before it could set a status: ~40 times a pass's
-  // time on an idle core, and at least a minute, for each pass up to this one. Past it the sums
-  // are computed here.
-  const patienceMs = Math.max(60_000, X.indices.length * 2e-3);
-  let open = passes.length;
-  return passes.map(({ out }, i) => {
-    let fromThread = false;
-    return {
-      get fromThread() {
-        return fromThread;
-      },
-      take() {
-        Atomics.wait(out.status, 0, PENDING, patienceMs * (i + 1));
-        const state = Atomics.load(out.status, 0);
-        if (--open === 0) void worker.terminate();
-        if (state !== DONE) return here(i)();
-        fromThread = true;
-        return { sums: { s1: out.s1, s2: out.s2, df: out.df, sxlogx: out.sxlogx }, rowsWithWeight: out.status[1]! };
-      },
-    };
+  const thread = shared && script !== null && copies.length > 0;
+  const passes = thread
+    ? copies.map((c) => ({
+        removed: c.removed,
+        withSpread: c.withSpread,
+        out: {
+          s1: sharedF64(cols),
+          s2: sharedF64(cols),
+          df: new Uint32Array(new SharedArrayBuffer(4 * cols)),
+          sxlogx: sharedF64(cols),
+          rowNorm2: c.rowNorms ? sharedF64(X.rows) : null,
+          rowsWithWeight: new Int32Array(new SharedArrayBuffer(4)),
+        },
+      }))
+    : [];
+  const status = new Int32Array(new SharedArrayBuffer(4 * copies.length));
+  const job: MaskedTermSumsJob = { rows: X.rows, cols, indptr: X.indptr, indices: X.indices, data: X.data, passes, status };
+  return startOneShots<MaskedTermSums>({
+    script: thread ? script : null,
+    workerData: job,
+    status,
+    // A generous bound for a thread that died before it could set a status: ~40 times a pass's
+    // time on an idle core, and at least a minute, for each pass up to this one. Past it the
+    // sums are computed here.
+    patienceMs: Math.max(60_000, X.indices.length * 2e-3),
+    here,
+    read: (i) => {
+      const { out } = passes[i]!;
+      const answer: MaskedTermSums = { sums: { s1: out.s1, s2: out.s2, df: out.df, sxlogx: out.sxlogx }, rowsWithWeight: out.rowsWithWeight[0]! };
+      if (out.rowNorm2 !== null) answer.rowNorm2 = out.rowNorm2;
+      return answer;
+    },
   });
 }

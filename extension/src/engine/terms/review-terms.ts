@@ -106,6 +106,9 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
       });
     },
   });
+  // A begun pass the rule did not ask for (opinion text asks others) is read by nobody: dropped,
+  // so that its thread stops (or skips it) instead of holding the second core.
+  for (const { pending } of begun.shares) pending.drop();
 
   // Heaviest first, so that `suggest.max` keeps the terms that pull the most.
   const accepted = [...decisions].filter(([c, d]) => d.suggested && baseMask[c] === 0).map(([c]) => c);

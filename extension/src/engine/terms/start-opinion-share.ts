@@ -24,7 +24,7 @@ export type PendingOpinionShare = PendingResult<number>;
 export function startOpinionShare(texts: readonly string[], script: string | null = threadScript(__dirname, 'opinion-thread.js', 'opinion-thread.ts')): PendingOpinionShare {
   const copy = [...texts];
   const here = (): number => opinionShare(copy);
-  if (copy.length === 0) return { take: here, fromThread: false };
+  if (copy.length === 0) return { take: here, drop: () => undefined, fromThread: false };
   const job: OpinionJob = { texts: copy, share: new Float64Array(new SharedArrayBuffer(8)), status: new Int32Array(new SharedArrayBuffer(4)) };
   // The patience is a bound for a thread that died before it could set the status (it needs
   // well under a second on an idle core); past it the share is computed here.

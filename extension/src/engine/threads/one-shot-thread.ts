@@ -1,13 +1,21 @@
 import { startThread } from './thread-script';
 
-/** Values of a one-shot job's status word (status[0]), set by the thread when it is done. */
+/** Values of a one-shot job's status words (status[i] for result i), set by the thread. */
 export const PENDING = 0;
 export const DONE = 1;
 export const FAILED = 2;
+/** Set by the caller on a result it dropped before the thread began it: a thread of several results skips it. */
+export const DROPPED = 3;
 
 /** A computation begun now and read by `take()`, which waits for it when it runs on a thread. */
 export interface PendingResult<T> {
   take(): T;
+  /**
+   * The caller will not take this result: once every result of its thread is taken or dropped,
+   * the thread is stopped, so work nobody reads does not hold a core. No effect after take();
+   * a take() after it does not wait (the answer is computed here unless it was already done).
+   */
+  drop(): void;
   /** After take(): whether the thread's answer was used (for the tests). */
   readonly fromThread: boolean;
 }
@@ -17,46 +25,79 @@ export interface OneShotJob<T> {
   script: string | null;
   /** What the thread is given; its results go to SharedArrayBuffers inside it. */
   workerData: unknown;
-  /** On a SharedArrayBuffer, inside workerData: status[0] goes from PENDING to DONE or FAILED. */
+  /**
+   * On a SharedArrayBuffer, inside workerData: one word per result, which the thread moves from
+   * PENDING to DONE or FAILED (then Atomics.notify on that word) when result i is written; a
+   * thread that makes its results in turn skips one the caller has marked DROPPED.
+   */
   status: Int32Array;
-  /** How long take() waits for a thread that may have died before it set the status. */
+  /**
+   * How long take() of the first result waits for a thread that may have died before it set
+   * the status; result i waits (i + 1) times as long, the thread making them in order.
+   */
   patienceMs: number;
-  /** The same answer computed in this thread: without a thread, or when it failed. */
-  here: () => T;
-  /** The answer from the shared buffers once status[0] is DONE. */
-  read: () => T;
+  /** Result i computed in this thread: without a thread, or when it failed. */
+  here: (i: number) => T;
+  /** Result i from the shared buffers once status[i] is DONE. */
+  read: (i: number) => T;
 }
 
 /**
  * Runs a job on a thread of its own while the caller goes on with other work, for the review's
- * steps that would otherwise leave the second core idle. take() waits with Atomics.wait, so a
+ * steps that would otherwise leave the second core idle; the thread makes status.length results,
+ * each read by its own take() as soon as it is done. take() waits with Atomics.wait, so a
  * synchronous caller can use it: the thread signals through shared memory, not a message,
  * because this thread's event loop does not run meanwhile. The thread never keeps the process
- * alive, its errors are read from the status word, and any failure (no script, a thread that
- * cannot start, dies or gives up) falls back to `here()`, which must give the same answer.
+ * alive, its errors are read from the status words, and any failure (no script, a thread that
+ * cannot start, dies or gives up) falls back to `here(i)`, which must give the same answer.
+ * The thread is stopped once every result has been taken or dropped.
  */
-export function startOneShot<T>(job: OneShotJob<T>): PendingResult<T> {
-  if (job.script === null) return { take: job.here, fromThread: false };
+export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
+  const count = job.status.length;
+  const inThisThread = (): PendingResult<T>[] => Array.from({ length: count }, (_, i) => ({ take: () => job.here(i), drop: () => undefined, fromThread: false }));
+  if (job.script === null || count === 0) return inThisThread();
   let worker: ReturnType<typeof startThread>;
   try {
     worker = startThread(job.script, { workerData: job.workerData });
   } catch {
-    return { take: job.here, fromThread: false };
+    return inThisThread();
   }
   worker.on('error', () => undefined);
   worker.unref();
-  let fromThread = false;
-  return {
-    get fromThread() {
-      return fromThread;
-    },
-    take() {
-      Atomics.wait(job.status, 0, PENDING, job.patienceMs);
-      const state = Atomics.load(job.status, 0);
-      void worker.terminate();
-      if (state !== DONE) return job.here();
-      fromThread = true;
-      return job.read();
-    },
+  let open = count;
+  const close = (): void => {
+    if (--open === 0) void worker.terminate();
   };
+  return Array.from({ length: count }, (_, i) => {
+    let fromThread = false;
+    let closed = false;
+    return {
+      get fromThread() {
+        return fromThread;
+      },
+      take() {
+        // A dropped result's thread may be stopped: read what is there, never wait for it.
+        if (!closed) Atomics.wait(job.status, i, PENDING, job.patienceMs * (i + 1));
+        const state = Atomics.load(job.status, i);
+        if (!closed) {
+          closed = true;
+          close();
+        }
+        if (state !== DONE) return job.here(i);
+        fromThread = true;
+        return job.read(i);
+      },
+      drop() {
+        if (closed) return;
+        closed = true;
+        Atomics.compareExchange(job.status, i, PENDING, DROPPED);
+        close();
+      },
+    };
+  });
+}
+
+/** startOneShots with one result (status[0]). */
+export function startOneShot<T>(job: Omit<OneShotJob<T>, 'here' | 'read'> & { here: () => T; read: () => T }): PendingResult<T> {
+  return startOneShots<T>({ ...job, status: job.status.subarray(0, 1), here: () => job.here(), read: () => job.read() })[0]!;
 }
