@@ -6,8 +6,9 @@ import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
  * its removed columns are dropped — docs/methods.md §3), kept up to date across toggles instead of being
  * recomputed. Stopping or restoring term t changes only the rows that hold t: each such row's
  * kept norm is recomputed from scratch and its old contribution to the sums swapped for its new
- * one in the same pass. The rows holding t come from a column-major copy of the row ids (postings, 4 bytes per
- * non-zero), built on the first incremental step; the weights themselves are read from the CSR.
+ * one in the same pass. The rows holding t come from a column-major copy of the row ids and
+ * weights (postings, 12 bytes per non-zero: 60 MB at 100k documents), built before the first
+ * incremental step; a click on a term in most rows reads the kept columns from it (updateOne).
  *
  * Rounding: a row's norm is never updated by subtraction, so it is exact; the sums S1 and S2
  * are, and drift by ~1e-16 relative per update. A term whose df drops to 0 is reset to exact 0,
@@ -29,7 +30,9 @@ export class IncrementalTermSums {
   private stamp = 0;
   private rowsWithWeight = 0;
   private ready = false;
-  private postings: { start: Uint32Array; rows: Uint32Array } | null = null;
+  private postings: ColumnPostings | null = null;
+  /** Per row, updateOne's (inv_new − inv_old, 1/norm²_new − 1/norm²_old) side by side; 0 for rows it does not rescale. */
+  private rowChange: Float64Array | null = null;
   private delta: Float64Array | null = null;
   /** Entries visited by incremental updates since the last full pass. */
   private updatedEntries = 0;
@@ -43,9 +46,13 @@ export class IncrementalTermSums {
   /** A full pass at the current mask is due (see settle). */
   private settleDue = false;
   /** Statistics of the last call, for the benchmark and the tests. */
-  lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; entries: number } = { kind: 'unchanged', entries: 0 };
+  lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; entries: number; gathered?: boolean } = { kind: 'unchanged', entries: 0 };
 
-  constructor(readonly weights: Csr) {
+  constructor(
+    readonly weights: Csr,
+    /** updateOne gathers term by term below this ratio of entries (GATHER_BELOW; the tests set it to take either way). */
+    private readonly gatherBelow = GATHER_BELOW,
+  ) {
     const cols = weights.cols;
     this.s1 = new Float64Array(cols);
     this.s2 = new Float64Array(cols);
@@ -122,7 +129,7 @@ export class IncrementalTermSums {
    * clicks walk is left as it was, and adopted by swapping the two (DistanceLab.whatIfExact).
    */
   twin(): IncrementalTermSums {
-    const twin = new IncrementalTermSums(this.weights);
+    const twin = new IncrementalTermSums(this.weights, this.gatherBelow);
     twin.postings = this.columnPostings();
     twin.checkpoints = this.checkpoints;
     return twin;
@@ -232,27 +239,43 @@ export class IncrementalTermSums {
   /**
    * One toggled term, the panel's usual click: a row holding t gets its new kept norm from the
    * old one ± w_t² (w_t found by a binary search of the row's sorted columns) instead of a pass
-   * over the row, and one pass then moves its other kept terms to the new scale. Where stopping
-   * t removes more than half of a row's kept norm the subtraction would lose digits, so that
-   * row's norm is summed afresh, as is one that empties (its norm must be exactly 0).
+   * over the row, and its other kept terms then move to the new scale. Where stopping t removes
+   * more than half of a row's kept norm the subtraction would lose digits, so that row's norm is
+   * summed afresh, as is one that empties (its norm must be exactly 0).
    *
-   * The rescaled rows' changes are gathered in `delta` (S1 and S2 of a term side by side, one
-   * cache line, and no look-up of the mask per entry) and added to the sums of the kept terms
-   * other than t in one pass at the end; a function word's rows hold ~95% of the entries.
+   * A rescaled row changes the sums of its kept terms u ≠ t by x_new − x_old = w·(inv_new −
+   * inv_old) and x_new² − x_old² = w²·(1/norm²_new − 1/norm²_old). Those changes are summed per
+   * term, over the rows in ascending order, then added to S1 and S2 at the end, one of two ways
+   * with the same additions in the same order (so the same bits): row by row, scattering each
+   * entry's change into a per-term scratch (`delta`), or, when the kept columns hold fewer
+   * entries than t's rows (t in most rows, as a function word is), term by term down the
+   * column-major copy, gathering each row's
+   * two factors (`rowChange`, 0 for the rows not rescaled, whose +0 leaves a sum as it is). The
+   * scatter lands each entry at a random place in a 16-bytes-per-term array; the gather reads the
+   * weights in order and only the per-row factors at random, and it skips the stopped columns.
    */
   private updateOne(t: number, removed: Uint8Array, interrupt?: () => void): void {
     const { indptr, indices, data } = this.weights;
     const { s1, s2, mask, rowNorm2 } = this;
-    const delta = this.deltaScratch();
     const postings = this.columnPostings();
     const stopping = removed[t] !== 0;
+    const from = postings.start[t]!;
+    const to = postings.start[t + 1]!;
     let entries = 0;
-    for (let q = postings.start[t]!, qEnd = postings.start[t + 1]!; q < qEnd; q++) {
-      if (interrupt !== undefined && ((q - postings.start[t]!) & 63) === 0) this.interrupted(interrupt);
+    for (let q = from; q < to; q++) {
+      const r = postings.rows[q]!;
+      entries += indptr[r + 1]! - indptr[r]!;
+    }
+    let keptEntries = 0;
+    for (let u = 0, cols = s1.length; u < cols; u++) if (mask[u] === 0 && u !== t) keptEntries += postings.start[u + 1]! - postings.start[u]!;
+    const gather = keptEntries < this.gatherBelow * entries;
+    const delta = gather ? null : this.deltaScratch();
+    const rowChange = gather ? this.rowChangeScratch() : null;
+    for (let q = from; q < to; q++) {
+      if (interrupt !== undefined && ((q - from) & 63) === 0) this.interrupted(interrupt);
       const r = postings.rows[q]!;
       const start = indptr[r]!;
       const end = indptr[r + 1]!;
-      entries += end - start;
       const at = columnIn(indices, start, end, t);
       const wt = data[at]!;
       if (wt === 0) continue;
@@ -271,15 +294,19 @@ export class IncrementalTermSums {
       // t itself comes or goes; every other kept term of the row moves to the new scale.
       this.move(t, wt, stopping, !stopping && isKept, invOld, invNew);
       if (wasKept && isKept) {
-        // The usual case, in a loop of its own: x_new − x_old = w·(inv_new − inv_old) and
-        // x_new² − x_old² = w²·(inv_new² − inv_old²), two multiply-adds per entry.
         const d1 = invNew - invOld;
         const d2 = 1 / norm2 - 1 / oldNorm2;
-        for (let p = start; p < end; p++) {
-          const u2 = 2 * indices[p]!;
-          const w = data[p]!;
-          delta[u2] += w * d1;
-          delta[u2 + 1] += w * w * d2;
+        if (rowChange !== null) {
+          rowChange[2 * r] = d1;
+          rowChange[2 * r + 1] = d2;
+        } else {
+          // The usual case, in a loop of its own: two multiply-adds per entry.
+          for (let p = start; p < end; p++) {
+            const u2 = 2 * indices[p]!;
+            const w = data[p]!;
+            delta![u2] += w * d1;
+            delta![u2 + 1] += w * w * d2;
+          }
         }
       } else {
         for (let p = start; p < end; p++) {
@@ -289,19 +316,31 @@ export class IncrementalTermSums {
         }
       }
     }
-    mask[t] = 1; // t's own sums are final; the gathered changes skip it
-    for (let u = 0, cols = s1.length; u < cols; u++) {
-      if (mask[u] === 0) {
-        s1[u] += delta[2 * u]!;
-        s2[u] += delta[2 * u + 1]!;
+    if (rowChange !== null) {
+      for (let u = 0, cols = s1.length; u < cols; u += GATHER_BLOCK) {
+        if (interrupt !== undefined) this.interrupted(interrupt);
+        gatherColumns(postings, rowChange, mask, t, s1, s2, u, Math.min(cols, u + GATHER_BLOCK));
       }
+      for (let q = from; q < to; q++) {
+        const c = 2 * postings.rows[q]!;
+        rowChange[c] = 0;
+        rowChange[c + 1] = 0;
+      }
+    } else {
+      mask[t] = 1; // t's own sums are final; the gathered changes skip it
+      for (let u = 0, cols = s1.length; u < cols; u++) {
+        if (mask[u] === 0) {
+          s1[u] += delta![2 * u]!;
+          s2[u] += delta![2 * u + 1]!;
+        }
+      }
+      delta!.fill(0);
     }
-    delta.fill(0);
     mask[t] = stopping ? 1 : 0;
     this.updatedEntries += entries;
     this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
     this.exact = false;
-    this.lastStep = { kind: 'incremental', entries };
+    this.lastStep = { kind: 'incremental', entries, gathered: gather };
   }
 
   /**
@@ -343,6 +382,7 @@ export class IncrementalTermSums {
     } catch (e) {
       this.ready = false;
       this.delta?.fill(0);
+      this.rowChange?.fill(0);
       throw e;
     }
   }
@@ -358,33 +398,83 @@ export class IncrementalTermSums {
     return this.delta;
   }
 
+  /** Zeroed scratch of 2 entries per row for updateOne's gather, kept from call to call. */
+  private rowChangeScratch(): Float64Array {
+    if (this.rowChange === null) this.rowChange = new Float64Array(2 * this.weights.rows);
+    return this.rowChange;
+  }
+
   /** Builds the column postings ahead of the first incremental step. */
   prepare(): void {
     this.columnPostings();
   }
 
-  /** Row ids per column, ascending: the column-major copy the toggles walk. */
-  private columnPostings(): { start: Uint32Array; rows: Uint32Array } {
+  /** Row ids and weights per column, rows ascending: the column-major copy the toggles walk. */
+  private columnPostings(): ColumnPostings {
     if (this.postings !== null) return this.postings;
-    const { indptr, indices, rows, cols } = this.weights;
+    const { indptr, indices, data, rows, cols } = this.weights;
     const nnz = indptr[rows]!;
     const start = new Uint32Array(cols + 1);
     for (let p = 0; p < nnz; p++) start[indices[p]! + 1]++;
     for (let t = 0; t < cols; t++) start[t + 1] += start[t]!;
     const fill = start.slice(0, cols);
     const rowIds = new Uint32Array(nnz);
+    const values = new Float64Array(nnz);
     for (let r = 0; r < rows; r++) {
-      for (let p = indptr[r]!, end = indptr[r + 1]!; p < end; p++) rowIds[fill[indices[p]!]!++] = r;
+      for (let p = indptr[r]!, end = indptr[r + 1]!; p < end; p++) {
+        const slot = fill[indices[p]!]!++;
+        rowIds[slot] = r;
+        values[slot] = data[p]!;
+      }
     }
-    this.postings = { start, rows: rowIds };
+    this.postings = { start, rows: rowIds, values };
     return this.postings;
   }
 }
+
+/** The column-major copy of the weights: column t's entries are start[t]..start[t+1]), rows ascending. */
+interface ColumnPostings {
+  start: Uint32Array;
+  rows: Uint32Array;
+  values: Float64Array;
+}
+
+/**
+ * updateOne gathers term by term when the kept columns hold fewer entries than the rows holding
+ * the toggled term, times this (a gathered entry cost about what a scattered one did at 100k:
+ * the gather wins by reading fewer, as it skips the stopped columns); the choice changes the
+ * time, never the bits.
+ */
+const GATHER_BELOW = 1;
 
 /** Incremental updates visiting this many times nnz entries make settle() reset drift by a full pass. */
 const SETTLE_AFTER = 12;
 /** The same bound inside a call (a full pass on a click's path): only reached by one big update. */
 const REBUILD_AFTER = 16;
+
+/** Columns between interrupt checks in updateOne's gather. */
+const GATHER_BLOCK = 4096;
+
+/**
+ * updateOne's gather for the kept columns u ≠ t in [from, to): each one's Σ w·Δinv and
+ * Σ w²·Δ(1/norm²) down its column, rows ascending, added to S1 and S2.
+ */
+function gatherColumns(postings: ColumnPostings, rowChange: Float64Array, mask: Uint8Array, t: number, s1: Float64Array, s2: Float64Array, from: number, to: number): void {
+  const { start, rows, values } = postings;
+  for (let u = from; u < to; u++) {
+    if (mask[u] !== 0 || u === t) continue;
+    let a = 0;
+    let b = 0;
+    for (let q = start[u]!, qEnd = start[u + 1]!; q < qEnd; q++) {
+      const c = 2 * rows[q]!;
+      const w = values[q]!;
+      a += w * rowChange[c]!;
+      b += w * w * rowChange[c + 1]!;
+    }
+    s1[u] += a;
+    s2[u] += b;
+  }
+}
 
 /** Position of column t in a row's ascending columns indices[start..end) (t must be there). */
 function columnIn(indices: Uint32Array, start: number, end: number, t: number): number {
