@@ -2,6 +2,7 @@ import type { Csr } from '../matrix/csr';
 import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
 import { selectRows } from '../matrix/select-rows';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
+import { startMaskedTermSums } from '../measures/start-masked-term-sums';
 import { exactMeasures, joinMeasures, measureDistances, sampledMeasures, type ExactMeasures } from '../measures/measure-distances';
 import type { Measures } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
@@ -144,9 +145,15 @@ export class DistanceLab {
 
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {
     this.speculation = null;
-    const { sums, rowsWithWeight } = this.exactSums(removed, incremental);
+    // A full pass over every non-zero (the Report's figures) runs on another thread beside the
+    // sample's dot products, which need nothing from it, and the exact state adopts it: the
+    // same bits as the pass here (IncrementalTermSums.adopt). Where the matrix is not shared the
+    // pending pass is computed here when taken.
+    const pass = !incremental && this.exactSums === DistanceLab.prototype.exactSums && this.exact.needsFullPass(removed) ? startMaskedTermSums(this.weights, removed, false, undefined, true) : null;
     const { dots, scale } = this.gram.scaled(removed, incremental);
-    return measureDistances(this.maskedSample(removed), {
+    const sample = this.maskedSample(removed);
+    const { sums, rowsWithWeight } = pass !== null ? this.exact.adopt(removed, pass.take()) : this.exactSums(removed, incremental);
+    return measureDistances(sample, {
       sample: this.positions,
       k: this.k,
       seed: this.seed,

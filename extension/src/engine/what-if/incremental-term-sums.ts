@@ -93,16 +93,7 @@ export class IncrementalTermSums {
       this.lastStep = { kind: 'restored', entries: 0 };
     } else if (!this.ready || !incremental) {
       this.full(removed);
-      const saved = {
-        mask: this.mask.slice(),
-        s1: this.s1.slice(),
-        s2: this.s2.slice(),
-        df: this.df.slice(),
-        rowNorm2: this.rowNorm2.slice(),
-        rowsWithWeight: this.rowsWithWeight,
-      };
-      if (this.checkpoints.length < 2) this.checkpoints.push(saved);
-      else this.checkpoints[1] = saved;
+      this.checkpoint();
     } else {
       const changed: number[] = [];
       for (let t = 0; t < X.cols; t++) if ((removed[t] !== 0) !== (this.mask[t] !== 0)) changed.push(t);
@@ -121,6 +112,59 @@ export class IncrementalTermSums {
       }
     }
     return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
+  }
+
+  /**
+   * Whether `at(removed, false)` would make a full pass (rather than find the state unchanged
+   * or restore a checkpoint): then the pass can be made elsewhere, on another thread, by
+   * maskedTermSums with its row norms, and adopted.
+   */
+  needsFullPass(removed: Uint8Array): boolean {
+    if (!this.ready) return true;
+    if (this.checkpoints.some((c) => sameMask(removed, c.mask))) return false;
+    return !(sameMask(removed, this.mask) && this.exact);
+  }
+
+  /**
+   * `at(removed, false)` with its full pass made elsewhere: `pass` is maskedTermSums(weights,
+   * removed, false) with each row's norm (`rowNorm2`), which adds the same numbers in the same
+   * order as the pass here (addKeptRow), so the state left — sums, norms, mask, checkpoint — is
+   * the one `at` leaves, to the bit (test/what-if-adopt-full-pass.test.ts). When `at` would make
+   * no pass (see needsFullPass), `pass` is not read and `at` answers.
+   */
+  adopt(removed: Uint8Array, pass: MaskedTermSums): MaskedTermSums {
+    if (!this.needsFullPass(removed)) return this.at(removed, false);
+    const X = this.weights;
+    if (removed.length < X.cols) throw new RangeError(`removed has ${removed.length} entries for ${X.cols} columns`);
+    const { rowNorm2 } = pass;
+    if (rowNorm2 === undefined || rowNorm2.length !== X.rows || pass.sums.s1.length !== X.cols) throw new Error('adopt: a pass over other weights, or without its row norms');
+    this.s1.set(pass.sums.s1);
+    this.s2.set(pass.sums.s2);
+    this.df.set(pass.sums.df);
+    this.rowNorm2.set(rowNorm2);
+    this.rowsWithWeight = pass.rowsWithWeight;
+    this.mask.set(removed.subarray(0, this.mask.length));
+    this.ready = true;
+    this.exact = true;
+    this.updatedEntries = 0;
+    this.settleDue = false;
+    this.lastStep = { kind: 'full', entries: X.indptr[X.rows]! };
+    this.checkpoint();
+    return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
+  }
+
+  /** Keeps the state of a full pass just made as a checkpoint: the first, and the latest. */
+  private checkpoint(): void {
+    const saved = {
+      mask: this.mask.slice(),
+      s1: this.s1.slice(),
+      s2: this.s2.slice(),
+      df: this.df.slice(),
+      rowNorm2: this.rowNorm2.slice(),
+      rowsWithWeight: this.rowsWithWeight,
+    };
+    if (this.checkpoints.length < 2) this.checkpoints.push(saved);
+    else this.checkpoints[1] = saved;
   }
 
   /**
