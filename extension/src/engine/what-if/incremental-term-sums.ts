@@ -299,25 +299,53 @@ export class IncrementalTermSums {
    * weights in order and only the per-row factors at random, and it skips the stopped columns.
    */
   private updateOne(t: number, removed: Uint8Array, interrupt?: () => void): void {
-    const { indptr, indices, data } = this.weights;
-    const { s1, s2, mask, rowNorm2 } = this;
+    const { s1, s2, mask } = this;
     const postings = this.columnPostings();
     const stopping = removed[t] !== 0;
     const from = postings.start[t]!;
     const to = postings.start[t + 1]!;
-    let entries = 0;
-    for (let q = from; q < to; q++) {
-      const r = postings.rows[q]!;
-      entries += indptr[r + 1]! - indptr[r]!;
-    }
-    let keptEntries = 0;
-    for (let u = 0, cols = s1.length; u < cols; u++) if (mask[u] === 0 && u !== t) keptEntries += postings.start[u + 1]! - postings.start[u]!;
-    const gather = keptEntries < this.gatherBelow * entries;
+    const entries = entriesOfRows(this.weights.indptr, postings.rows, from, to);
+    const gather = keptColumnEntries(postings.start, mask, t) < this.gatherBelow * entries;
     const delta = gather ? null : this.deltaScratch();
     const rowChange = gather ? this.rowChangeScratch() : null;
+    // The loops live in small functions called many times per click (a block of rows, a block
+    // of columns): V8 then optimises each as a whole function with the feedback of many calls,
+    // where one long loop here was compiled part way through a call (on-stack replacement) and
+    // thrown away again whenever a path it had not yet seen came (a stop after restores, the
+    // scatter after gathers): the first clicks after the Report took 250–670 ms at 100k against
+    // ~100 ms once settled.
+    for (let q = from; q < to; q += RESCALE_BLOCK) {
+      if (interrupt !== undefined) this.interrupted(interrupt);
+      this.rescaleRows(t, stopping, removed, q, Math.min(to, q + RESCALE_BLOCK), delta, rowChange);
+    }
+    if (rowChange !== null) {
+      for (let u = 0, cols = s1.length; u < cols; u += GATHER_BLOCK) {
+        if (interrupt !== undefined) this.interrupted(interrupt);
+        gatherColumns(postings, rowChange, mask, t, s1, s2, u, Math.min(cols, u + GATHER_BLOCK));
+      }
+      clearRowChange(rowChange, postings.rows, from, to);
+    } else {
+      addDelta(delta!, mask, t, s1, s2);
+      delta!.fill(0);
+    }
+    mask[t] = stopping ? 1 : 0;
+    this.updatedEntries += entries;
+    this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
+    this.exact = false;
+    this.lastStep = { kind: 'incremental', entries, gathered: gather };
+  }
+
+  /**
+   * updateOne for the rows of t's postings from..to: each row's new kept norm and scale; t's own
+   * sums; the row's change to its other kept terms, scattered into `delta` or, for the gather,
+   * its two factors written to `rowChange`; a row that empties or was empty moves entry by entry.
+   */
+  private rescaleRows(t: number, stopping: boolean, removed: Uint8Array, from: number, to: number, delta: Float64Array | null, rowChange: Float64Array | null): void {
+    const { indptr, indices, data } = this.weights;
+    const { mask, rowNorm2 } = this;
+    const rows = this.columnPostings().rows;
     for (let q = from; q < to; q++) {
-      if (interrupt !== undefined && ((q - from) & 63) === 0) this.interrupted(interrupt);
-      const r = postings.rows[q]!;
+      const r = rows[q]!;
       const start = indptr[r]!;
       const end = indptr[r + 1]!;
       const at = columnIn(indices, start, end, t);
@@ -325,10 +353,7 @@ export class IncrementalTermSums {
       if (wt === 0) continue;
       const oldNorm2 = rowNorm2[r]!;
       let norm2 = stopping ? oldNorm2 - wt * wt : oldNorm2 + wt * wt;
-      if (stopping && !(norm2 > 0.5 * oldNorm2)) {
-        norm2 = 0;
-        for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
-      }
+      if (stopping && !(norm2 > 0.5 * oldNorm2)) norm2 = keptNorm2(indices, data, start, end, removed);
       rowNorm2[r] = norm2;
       const wasKept = oldNorm2 > 0;
       const isKept = norm2 > 0;
@@ -344,13 +369,7 @@ export class IncrementalTermSums {
           rowChange[2 * r] = d1;
           rowChange[2 * r + 1] = d2;
         } else {
-          // The usual case, in a loop of its own: two multiply-adds per entry.
-          for (let p = start; p < end; p++) {
-            const u2 = 2 * indices[p]!;
-            const w = data[p]!;
-            delta![u2] += w * d1;
-            delta![u2 + 1] += w * w * d2;
-          }
+          scatterRow(indices, data, start, end, d1, d2, delta!);
         }
       } else {
         for (let p = start; p < end; p++) {
@@ -360,31 +379,6 @@ export class IncrementalTermSums {
         }
       }
     }
-    if (rowChange !== null) {
-      for (let u = 0, cols = s1.length; u < cols; u += GATHER_BLOCK) {
-        if (interrupt !== undefined) this.interrupted(interrupt);
-        gatherColumns(postings, rowChange, mask, t, s1, s2, u, Math.min(cols, u + GATHER_BLOCK));
-      }
-      for (let q = from; q < to; q++) {
-        const c = 2 * postings.rows[q]!;
-        rowChange[c] = 0;
-        rowChange[c + 1] = 0;
-      }
-    } else {
-      mask[t] = 1; // t's own sums are final; the gathered changes skip it
-      for (let u = 0, cols = s1.length; u < cols; u++) {
-        if (mask[u] === 0) {
-          s1[u] += delta![2 * u]!;
-          s2[u] += delta![2 * u + 1]!;
-        }
-      }
-      delta!.fill(0);
-    }
-    mask[t] = stopping ? 1 : 0;
-    this.updatedEntries += entries;
-    this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
-    this.exact = false;
-    this.lastStep = { kind: 'incremental', entries, gathered: gather };
   }
 
   /**
@@ -498,6 +492,62 @@ const REBUILD_AFTER = 16;
 
 /** Columns between interrupt checks in updateOne's gather. */
 const GATHER_BLOCK = 4096;
+
+/** Rows of the toggled term per rescaleRows call (and between interrupt checks). */
+const RESCALE_BLOCK = 64;
+
+/** Entries of the rows listed in rows[from..to). */
+function entriesOfRows(indptr: Uint32Array, rows: Uint32Array, from: number, to: number): number {
+  let entries = 0;
+  for (let q = from; q < to; q++) {
+    const r = rows[q]!;
+    entries += indptr[r + 1]! - indptr[r]!;
+  }
+  return entries;
+}
+
+/** Entries of the columns kept by `mask`, t excepted. */
+function keptColumnEntries(start: Uint32Array, mask: Uint8Array, t: number): number {
+  let entries = 0;
+  for (let u = 0, cols = mask.length; u < cols; u++) if (mask[u] === 0 && u !== t) entries += start[u + 1]! - start[u]!;
+  return entries;
+}
+
+/** Σ of the kept w² of one row (entries start..end). */
+function keptNorm2(indices: Uint32Array, data: Float64Array, start: number, end: number, removed: Uint8Array): number {
+  let norm2 = 0;
+  for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
+  return norm2;
+}
+
+/** One rescaled row's changes into `delta` (S1's and S2's of a term side by side): w·d1 and w²·d2 per entry. */
+function scatterRow(indices: Uint32Array, data: Float64Array, start: number, end: number, d1: number, d2: number, delta: Float64Array): void {
+  for (let p = start; p < end; p++) {
+    const u2 = 2 * indices[p]!;
+    const w = data[p]!;
+    delta[u2] += w * d1;
+    delta[u2 + 1] += w * w * d2;
+  }
+}
+
+/** The scattered changes added to the sums of the kept terms other than t. */
+function addDelta(delta: Float64Array, mask: Uint8Array, t: number, s1: Float64Array, s2: Float64Array): void {
+  for (let u = 0, cols = s1.length; u < cols; u++) {
+    if (mask[u] === 0 && u !== t) {
+      s1[u] += delta[2 * u]!;
+      s2[u] += delta[2 * u + 1]!;
+    }
+  }
+}
+
+/** Zeroes the factors the gather read (the rows of t's postings from..to). */
+function clearRowChange(rowChange: Float64Array, rows: Uint32Array, from: number, to: number): void {
+  for (let q = from; q < to; q++) {
+    const c = 2 * rows[q]!;
+    rowChange[c] = 0;
+    rowChange[c + 1] = 0;
+  }
+}
 
 /**
  * updateOne's gather for the kept columns u ≠ t in [from, to): each one's Σ w·Δinv and
