@@ -29,10 +29,13 @@ describe('startOneShots', function () {
     assert.deepEqual(pending.map((p) => p.fromThread), [true, true, true, false]);
   });
 
-  it('without a script computes every result here', () => {
+  it('without a script computes every result here, once however often it is taken', () => {
     const job = fixture(2, 0);
-    const pending = startOneShots({ script: null, workerData: job, status: job.status, patienceMs: 1000, here: (i) => -i, read: () => Number.NaN });
+    let calls = 0;
+    const pending = startOneShots({ script: null, workerData: job, status: job.status, patienceMs: 1000, here: (i) => (calls++, -i), read: () => Number.NaN });
     assert.deepEqual(pending.map((p) => p.take()), [-0, -1]);
+    assert.deepEqual(pending.map((p) => p.take()), [-0, -1]);
+    assert.equal(calls, 2);
     assert.ok(pending.every((p) => !p.fromThread));
   });
 

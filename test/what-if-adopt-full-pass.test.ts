@@ -7,6 +7,7 @@
 import { strict as assert } from 'node:assert';
 import type { Csr } from '../extension/src/engine/matrix/csr';
 import { maskedTermSums, type MaskedTermSums } from '../extension/src/engine/measures/masked-term-sums';
+import { startMaskedTermSums } from '../extension/src/engine/measures/start-masked-term-sums';
 import { DistanceLab } from '../extension/src/engine/what-if/distance-lab';
 import { IncrementalTermSums } from '../extension/src/engine/what-if/incremental-term-sums';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
@@ -94,5 +95,25 @@ describe('DistanceLab.measure with its full passes on another thread', function 
     assert.deepEqual(threaded.measure(suggested, baseline.neighbors), here.measure(suggested, baseline.neighbors));
     const toggled = DistanceLab.union(suggested, [7]);
     assert.deepEqual(threaded.whatIf(toggled, baseline.neighbors), here.whatIf(toggled, baseline.neighbors));
+  });
+
+  it('adopts a pass begun by the caller, the spread included (as the term review begins it), to the same bits', () => {
+    const random = mulberry32(47);
+    const cols = 150;
+    const X = shared(textLikeRows(3000, cols, random));
+    const sample = new Uint32Array(250).map((_, i) => i * 11);
+    const base = randomMask(cols, random, 0.04);
+    const plain = new DistanceLab(X, sample, 5, 1, null);
+    const adopting = new DistanceLab(X, sample, 5, 1, null);
+    const pending = startMaskedTermSums(X, base, true, undefined, true);
+    const baseline = plain.measure(base, null);
+    assert.deepEqual(adopting.measure(base, null, { removed: base, pending }), baseline);
+    assert.ok(pending.fromThread, 'the pass came from its thread');
+    // The caller reads the same pass's spread afterwards: taken once, the same answer.
+    assert.equal(pending.take(), pending.take());
+    const next = DistanceLab.union(base, [3]);
+    assert.deepEqual(adopting.whatIf(next, baseline.neighbors), plain.whatIf(next, baseline.neighbors));
+    const other = new DistanceLab(X, sample, 5, 1, null);
+    assert.throws(() => other.measure(next, null, { removed: base, pending: startMaskedTermSums(X, base, true, undefined, true) }), /another mask/);
   });
 });

@@ -109,10 +109,11 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels, places);
   const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels);
   // The suggestion rule's passes over the corpus need no measure: begun on other threads now,
-  // they run while this one measures the baseline.
+  // they run while this one measures the baseline. The baseline's spread pass among them is
+  // also the baseline's exact sums: its measure adopts it.
   const termInput = { lab, baseMask, index, tokenize, settings, counts: prepared.counts, previews: prepared.previews, opinion };
   const begun = startTermReview(termInput);
-  const baseline = lab.measure(baseMask, null);
+  const baseline = lab.measure(baseMask, null, begun.baseSpread !== null ? { removed: baseMask, pending: begun.baseSpread } : null);
 
   stage('reviewing terms');
   const termReview = reviewTerms({ ...termInput, baseline, documents: prepared.documents, idf: prepared.idf }, begun);

@@ -44,7 +44,10 @@ export interface BegunTermReview {
   opinion: PendingOpinionShare;
   /** The suggestion rule's joint-share passes, begun on a thread of their own, with their asks. */
   shares: Array<{ ask: ShareAsk; pending: PendingTermSums }>;
-  /** The baseline's sums with the spread, for the term table: the same thread's last pass. */
+  /**
+   * The baseline's sums with the spread and row norms, begun on a thread: the baseline's
+   * measure adopts it (pass it to DistanceLab.measure) and the term table reads it.
+   */
   baseSpread: PendingTermSums | null;
 }
 
@@ -165,9 +168,10 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
 
 /**
  * Begins the term review's work that needs no distance measure, so that it overlaps the
- * baseline's: the prior and protected columns, and the suggestion rule's joint-share passes
- * (each a pass over every non-zero, ~0.3 s at 100k documents), then the baseline's spread pass,
- * in series on a thread of their own where the matrix is shared. The rule's asks depend on whether the corpus reads as opinion text,
+ * baseline's: the prior and protected columns and, where the matrix is shared, the baseline's
+ * spread pass on a thread (the baseline's measure adopts it as its exact sums) and the suggestion
+ * rule's joint-share passes in series on another (each a pass over every non-zero, ~0.3 s at 100k
+ * documents). The rule's asks depend on whether the corpus reads as opinion text,
  * which the opinion check tells only later: the passes begun are those of topic text, what nearly
  * every corpus is and every corpus of long documents must be. reviewTerms uses a pass only where
  * the rule asks for exactly it and computes any other, so the answer never depends on the guess.
@@ -183,11 +187,13 @@ export function startTermReview(input: TermReviewStart): BegunTermReview {
   let baseSpread: PendingTermSums | null = null;
   if (lab.sums === DistanceLab.prototype.sums) {
     const asks = plannedShareAsks(choiceInput(input, prior, protect, false));
-    // The spread's pass last: it is needed only after the suggested measure.
-    const passes = [...asks.map((a) => ({ removed: a.removed, withSpread: false })), { removed: input.baseMask, withSpread: true }];
-    const pending = startMaskedTermSumsInSeries(lab.weights, passes);
+    // The baseline's spread pass, with each row's norm, on a thread of its own: its sums are also
+    // the baseline's exact sums (the spread adds Σ x ln x and changes no other sum), so the
+    // baseline's measure adopts it (DistanceLab.measure) instead of a pass of its own, and the
+    // table reads its spread. Not in series with the rule's passes: the baseline needs it first.
+    baseSpread = startMaskedTermSums(lab.weights, input.baseMask, true, undefined, true);
+    const pending = startMaskedTermSumsInSeries(lab.weights, asks.map((a) => ({ removed: a.removed, withSpread: false })));
     asks.forEach((ask, i) => shares.push({ ask, pending: pending[i]! }));
-    baseSpread = pending[asks.length]!;
   }
   return { prior, protect, opinion, shares, baseSpread };
 }

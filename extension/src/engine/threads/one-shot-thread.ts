@@ -9,6 +9,7 @@ export const DROPPED = 3;
 
 /** A computation begun now and read by `take()`, which waits for it when it runs on a thread. */
 export interface PendingResult<T> {
+  /** The answer; a later call gives the same one without computing it again. */
   take(): T;
   /**
    * The caller will not take this result: once every result of its thread is taken or dropped,
@@ -54,7 +55,11 @@ export interface OneShotJob<T> {
  */
 export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
   const count = job.status.length;
-  const inThisThread = (): PendingResult<T>[] => Array.from({ length: count }, (_, i) => ({ take: () => job.here(i), drop: () => undefined, fromThread: false }));
+  const inThisThread = (): PendingResult<T>[] =>
+    Array.from({ length: count }, (_, i) => {
+      let answer: { value: T } | null = null;
+      return { take: () => (answer ??= { value: job.here(i) }).value, drop: () => undefined, fromThread: false };
+    });
   if (job.script === null || count === 0) return inThisThread();
   let worker: ReturnType<typeof startThread>;
   try {
@@ -71,11 +76,13 @@ export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
   return Array.from({ length: count }, (_, i) => {
     let fromThread = false;
     let closed = false;
+    let answer: { value: T } | null = null;
     return {
       get fromThread() {
         return fromThread;
       },
       take() {
+        if (answer !== null) return answer.value;
         // A dropped result's thread may be stopped: read what is there, never wait for it.
         if (!closed) Atomics.wait(job.status, i, PENDING, job.patienceMs * (i + 1));
         const state = Atomics.load(job.status, i);
@@ -83,9 +90,9 @@ export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
           closed = true;
           close();
         }
-        if (state !== DONE) return job.here(i);
-        fromThread = true;
-        return job.read(i);
+        fromThread = state === DONE;
+        answer = { value: fromThread ? job.read(i) : job.here(i) };
+        return answer.value;
       },
       drop() {
         if (closed) return;

@@ -2,7 +2,7 @@ import type { Csr } from '../matrix/csr';
 import { maskTerms, type CsrBuffers } from '../matrix/mask-terms';
 import { selectRows } from '../matrix/select-rows';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
-import { startMaskedTermSums } from '../measures/start-masked-term-sums';
+import { startMaskedTermSums, type PendingTermSums } from '../measures/start-masked-term-sums';
 import { exactMeasures, joinMeasures, measureDistances, sampledMeasures, type ExactMeasures } from '../measures/measure-distances';
 import type { Measures } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
@@ -11,6 +11,15 @@ import { IncrementalGram } from './incremental-gram';
 import { IncrementalTermSums, sameMask } from './incremental-term-sums';
 
 export type DistanceResult = ReturnType<typeof measureDistances>;
+
+/**
+ * A full pass of the exact sums begun elsewhere (maskedTermSums with its row norms, the spread
+ * optional: it changes no other sum) at the mask `removed`, for `measure` to adopt.
+ */
+export interface BegunPass {
+  removed: Uint8Array;
+  pending: PendingTermSums;
+}
 
 /**
  * Holds the full weight matrix (no stop list applied) and measures it under any set of removed
@@ -84,8 +93,8 @@ export class DistanceLab {
    * Every measure with `removed` stopped, computed in full: the figures a fresh review with that
    * stop list gives, to the last bit (the Report's baseline and suggested come from here).
    */
-  measure(removed: Uint8Array, baselineNeighbors: Uint32Array | null): DistanceResult {
-    return this.measureFrom(removed, baselineNeighbors, false);
+  measure(removed: Uint8Array, baselineNeighbors: Uint32Array | null, pass: BegunPass | null = null): DistanceResult {
+    return this.measureFrom(removed, baselineNeighbors, false, pass);
   }
 
   /**
@@ -143,13 +152,18 @@ export class DistanceLab {
     return measures;
   }
 
-  private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean): DistanceResult {
+  private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean, begun: BegunPass | null = null): DistanceResult {
     this.speculation = null;
     // A full pass over every non-zero (the Report's figures) runs on another thread beside the
     // sample's dot products, which need nothing from it, and the exact state adopts it: the
-    // same bits as the pass here (IncrementalTermSums.adopt). Where the matrix is not shared the
-    // pending pass is computed here when taken.
-    const pass = !incremental && this.exactSums === DistanceLab.prototype.exactSums && this.exact.needsFullPass(removed) ? startMaskedTermSums(this.weights, removed, false, undefined, true) : null;
+    // same bits as the pass here (IncrementalTermSums.adopt). The caller may have begun it
+    // already (the term review's spread pass at the same mask, with row norms); where the matrix
+    // is not shared the pending pass is computed here when taken.
+    let pass: PendingTermSums | null = null;
+    if (!incremental && this.exactSums === DistanceLab.prototype.exactSums && this.exact.needsFullPass(removed)) {
+      if (begun !== null && !sameMask(removed, begun.removed)) throw new Error('measure: the pass begun is for another mask');
+      pass = begun?.pending ?? startMaskedTermSums(this.weights, removed, false, undefined, true);
+    }
     const { dots, scale } = this.gram.scaled(removed, incremental);
     const sample = this.maskedSample(removed);
     const { sums, rowsWithWeight } = pass !== null ? this.exact.adopt(removed, pass.take()) : this.exactSums(removed, incremental);
