@@ -32,3 +32,49 @@ port.on('message', (request: AssembleRequest) => {
 });
 
 const EMPTY_PART = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
+
+try {
+  warmUp();
+} catch {
+  // Only a matter of speed: the jobs run the same code either way.
+}
+
+/**
+ * Runs the writer on small made-up parts until the engine has compiled it, while the last
+ * batches are still being tokenised: a fresh thread runs `write` unoptimised at first, and at
+ * 100k documents its first two real parts cost ~80-140 and ~35-100 ms against 5-10 ms each after
+ * (the rows' writing is ~0.5 s, which everything after tokenising waits for). The same kinds of
+ * arrays as a real job (the matrix on SharedArrayBuffers, with and without the count sums).
+ */
+function warmUp(): void {
+  const rows = 96;
+  const perRow = 32;
+  const columns = 4096; // over 2^11, so both radix passes run, as at any real vocabulary size
+  const n = rows * perRow;
+  const rowEnds = new Uint32Array(rows);
+  const cols = new Uint32Array(n);
+  const counts = new Uint32Array(n);
+  let seed = 1;
+  for (let d = 0; d < rows; d++) {
+    rowEnds[d] = (d + 1) * perRow;
+    for (let k = d * perRow; k < (d + 1) * perRow; k++) {
+      seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
+      cols[k] = (seed >>> 8) % columns;
+      counts[k] = 1 + (seed & 3);
+    }
+  }
+  const ranks = structuredClone([new Uint32Array(columns).map((_, i) => columns - 1 - i)]);
+  const indices = new Uint32Array(new SharedArrayBuffer(4 * n));
+  const data = new Float64Array(new SharedArrayBuffer(8 * n));
+  const writer = new RowWriter(ranks, columns, indices, data);
+  const accumulator = new RowCountAccumulator(columns);
+  // Parts of growing size, so that the scratch arrays are grown again after the engine has begun
+  // collecting type feedback (it does not on a function's first calls): with one size, the first
+  // real part, larger, met code compiled without it, was thrown away and compiled again.
+  // Each part as a message gives it (structured clone): objects built by hand have other shapes,
+  // and compiled code that met only those was thrown away at the first real part too.
+  for (let r = 1; r <= rows; r++) {
+    const part = structuredClone({ stream: 0, rowEnds: rowEnds.slice(0, r), cols: cols.slice(0, r * perRow), counts: counts.slice(0, r * perRow) });
+    writer.write(part, 0, r % 3 === 0 ? null : accumulator);
+  }
+}
