@@ -282,7 +282,7 @@ export class IncrementalTermSums {
 
   /**
    * One toggled term, the panel's usual click: a row holding t gets its new kept norm from the
-   * old one ± w_t² (w_t found by a binary search of the row's sorted columns) instead of a pass
+   * old one ± w_t² (w_t read from t's column in the column-major copy) instead of a pass
    * over the row, and its other kept terms then move to the new scale. Where stopping t removes
    * more than half of a row's kept norm the subtraction would lose digits, so that row's norm is
    * summed afresh, as is one that empties (its norm must be exactly 0).
@@ -343,14 +343,15 @@ export class IncrementalTermSums {
   private rescaleRows(t: number, stopping: boolean, removed: Uint8Array, from: number, to: number, delta: Float64Array | null, rowChange: Float64Array | null): void {
     const { indptr, indices, data } = this.weights;
     const { mask, rowNorm2 } = this;
-    const rows = this.columnPostings().rows;
+    // t's weight in each of its rows comes from the column-major copy, in order, so a row's
+    // own entries are read only where its other terms move one by one or its norm is summed.
+    const { rows, values } = this.columnPostings();
     for (let q = from; q < to; q++) {
       const r = rows[q]!;
+      const wt = values[q]!;
+      if (wt === 0) continue;
       const start = indptr[r]!;
       const end = indptr[r + 1]!;
-      const at = columnIn(indices, start, end, t);
-      const wt = data[at]!;
-      if (wt === 0) continue;
       const oldNorm2 = rowNorm2[r]!;
       let norm2 = stopping ? oldNorm2 - wt * wt : oldNorm2 + wt * wt;
       if (stopping && !(norm2 > 0.5 * oldNorm2)) norm2 = keptNorm2(indices, data, start, end, removed);
@@ -568,18 +569,6 @@ function gatherColumns(postings: ColumnPostings, rowChange: Float64Array, mask: 
     s1[u] += a;
     s2[u] += b;
   }
-}
-
-/** Position of column t in a row's ascending columns indices[start..end) (t must be there). */
-function columnIn(indices: Uint32Array, start: number, end: number, t: number): number {
-  let lo = start;
-  let hi = end - 1;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (indices[mid]! < t) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
 
 /** Whether two column masks stop the same columns (the first `b.length` of `a`). */
