@@ -53,6 +53,8 @@ export class IncrementalTermSums {
     readonly weights: Csr,
     /** updateOne gathers term by term below this ratio of entries (GATHER_BELOW; the tests set it to take either way). */
     private readonly gatherBelow = GATHER_BELOW,
+    /** The column copy holds the weights only up to this many non-zeros (COLUMN_WEIGHTS_UP_TO; the tests set it). */
+    private readonly columnWeightsUpTo = COLUMN_WEIGHTS_UP_TO,
   ) {
     const cols = weights.cols;
     this.s1 = new Float64Array(cols);
@@ -174,7 +176,7 @@ export class IncrementalTermSums {
    * clicks walk is left as it was, and adopted by swapping the two (DistanceLab.whatIfExact).
    */
   twin(): IncrementalTermSums {
-    const twin = new IncrementalTermSums(this.weights, this.gatherBelow);
+    const twin = new IncrementalTermSums(this.weights, this.gatherBelow, this.columnWeightsUpTo);
     twin.postings = this.columnPostings();
     twin.checkpoints = this.checkpoints;
     return twin;
@@ -306,7 +308,7 @@ export class IncrementalTermSums {
     const from = postings.start[t]!;
     const to = postings.start[t + 1]!;
     const entries = entriesOfRows(this.weights.indptr, postings.rows, from, to);
-    const gather = keptColumnEntries(postings.start, mask, t) < this.gatherBelow * entries;
+    const gather = postings.values !== null && keptColumnEntries(postings.start, mask, t) < this.gatherBelow * entries;
     const delta = gather ? null : this.deltaScratch();
     const rowChange = gather ? this.rowChangeScratch() : null;
     // The loops live in small functions called many times per click (a block of rows, a block
@@ -349,10 +351,10 @@ export class IncrementalTermSums {
     const { rows, values } = this.columnPostings();
     for (let q = from; q < to; q++) {
       const r = rows[q]!;
-      const wt = values[q]!;
-      if (wt === 0) continue;
       const start = indptr[r]!;
       const end = indptr[r + 1]!;
+      const wt = values !== null ? values[q]! : data[columnIn(indices, start, end, t)]!;
+      if (wt === 0) continue;
       const oldNorm2 = rowNorm2[r]!;
       let norm2 = stopping ? oldNorm2 - wt * wt : oldNorm2 + wt * wt;
       if (stopping && !(norm2 > 0.5 * oldNorm2)) norm2 = keptNorm2(indices, data, start, end, removed);
@@ -459,12 +461,12 @@ export class IncrementalTermSums {
     for (let t = 0; t < cols; t++) start[t + 1] += start[t]!;
     const fill = start.slice(0, cols);
     const rowIds = new Uint32Array(nnz);
-    const values = new Float64Array(nnz);
+    const values = nnz <= this.columnWeightsUpTo ? new Float64Array(nnz) : null;
     for (let r = 0; r < rows; r++) {
       for (let p = indptr[r]!, end = indptr[r + 1]!; p < end; p++) {
         const slot = fill[indices[p]!]!++;
         rowIds[slot] = r;
-        values[slot] = data[p]!;
+        if (values !== null) values[slot] = data[p]!;
       }
     }
     this.postings = { start, rows: rowIds, values };
@@ -476,8 +478,18 @@ export class IncrementalTermSums {
 interface ColumnPostings {
   start: Uint32Array;
   rows: Uint32Array;
-  values: Float64Array;
+  /** The weights, in the same order; null above COLUMN_WEIGHTS_UP_TO non-zeros (no gather then). */
+  values: Float64Array | null;
 }
+
+/**
+ * Up to this many non-zeros the column copy also holds the weights (8 more bytes each), which the
+ * gather needs and which spare a binary search per row of the toggled term. Above it the memory
+ * weighs more than the time: at 1M documents (~76M non-zeros) the weights would add ~0.6 GB to an
+ * editor worker that already holds ~2 GB, so large corpora scatter (the same bits, slower clicks).
+ * 16M is twice the bench's 100k corpus (128 MB). A choice of ours, no source.
+ */
+const COLUMN_WEIGHTS_UP_TO = 16_000_000;
 
 /**
  * updateOne gathers term by term when the kept columns hold fewer entries than the rows holding
@@ -556,7 +568,8 @@ function clearRowChange(rowChange: Float64Array, rows: Uint32Array, from: number
  * Σ w²·Δ(1/norm²) down its column, rows ascending, added to S1 and S2.
  */
 function gatherColumns(postings: ColumnPostings, rowChange: Float64Array, mask: Uint8Array, t: number, s1: Float64Array, s2: Float64Array, from: number, to: number): void {
-  const { start, rows, values } = postings;
+  const { start, rows } = postings;
+  const values = postings.values!;
   for (let u = from; u < to; u++) {
     if (mask[u] !== 0 || u === t) continue;
     let a = 0;
@@ -576,4 +589,16 @@ function gatherColumns(postings: ColumnPostings, rowChange: Float64Array, mask: 
 export function sameMask(a: Uint8Array, b: Uint8Array): boolean {
   for (let t = 0; t < b.length; t++) if ((a[t] !== 0) !== (b[t] !== 0)) return false;
   return true;
+}
+
+/** Position of column t in a row's ascending columns indices[start..end) (t must be there). */
+function columnIn(indices: Uint32Array, start: number, end: number, t: number): number {
+  let lo = start;
+  let hi = end - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (indices[mid]! < t) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }
