@@ -6,10 +6,11 @@ import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
  * its removed columns are dropped — docs/methods.md §3), kept up to date across toggles instead of being
  * recomputed. Stopping or restoring term t changes only the rows that hold t: each such row's
  * kept norm is recomputed from scratch and its old contribution to the sums swapped for its new
- * one in the same pass. The rows holding t come from a column-major copy of the row ids and
- * weights (postings, 12 bytes per non-zero: 91 MB at 100k documents, ~0.9 GB at 1M, in the
- * editor only, where the what-if runs), built before the first incremental step; a click on a
- * term in most rows reads the kept columns from it (updateOne).
+ * one in the same pass. The rows holding t come from a column-major copy of the row ids and,
+ * up to COLUMN_WEIGHTS_UP_TO non-zeros, the weights (postings, 12 bytes per non-zero: 91 MB at
+ * 100k documents; 4 above the bound: ~0.3 GB at 1M; in the editor only, where the what-if runs),
+ * built before the first incremental step; a click on a term in most rows reads the kept columns
+ * from it (updateOne).
  *
  * Rounding: a row's norm is never updated by subtraction, so it is exact; the sums S1 and S2
  * are, and drift by ~1e-16 relative per update. A term whose df drops to 0 is reset to exact 0,
@@ -23,6 +24,7 @@ export class IncrementalTermSums {
   private readonly s1: Float64Array;
   private readonly s2: Float64Array;
   private readonly df: Uint32Array;
+  /** Always zeros: no what-if measure reads the spread (the term table takes it from its own pass); kept for the TermSums shape. */
   private readonly sxlogx: Float64Array;
   /** Σ of kept w² per row under `mask` (the weights are unit rows, so 1 when nothing is removed). */
   private readonly rowNorm2: Float64Array;
@@ -114,7 +116,7 @@ export class IncrementalTermSums {
         else this.update(changed, removed, interrupt);
       }
     }
-    return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
+    return this.answer();
   }
 
   /**
@@ -146,14 +148,9 @@ export class IncrementalTermSums {
     this.df.set(pass.sums.df);
     this.rowNorm2.set(rowNorm2);
     this.rowsWithWeight = pass.rowsWithWeight;
-    this.mask.set(removed.subarray(0, this.mask.length));
-    this.ready = true;
-    this.exact = true;
-    this.updatedEntries = 0;
-    this.settleDue = false;
-    this.lastStep = { kind: 'full', entries: X.indptr[X.rows]! };
+    this.markFullPass(removed);
     this.checkpoint();
-    return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
+    return this.answer();
   }
 
   /** Keeps the state of a full pass just made as a checkpoint: the first, and the latest. */
@@ -222,20 +219,29 @@ export class IncrementalTermSums {
     for (let r = 0; r < rows; r++) {
       const start = indptr[r]!;
       const end = indptr[r + 1]!;
-      let norm2 = 0;
-      for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
+      const norm2 = keptNorm2(indices, data, start, end, removed);
       this.rowNorm2[r] = norm2;
       if (!(norm2 > 0)) continue;
       nonEmpty++;
       this.addRow(start, end, removed, 1 / Math.sqrt(norm2));
     }
     this.rowsWithWeight = nonEmpty;
+    this.markFullPass(removed);
+  }
+
+  /** The state's flags after a full pass at `removed`, made here (full) or elsewhere (adopt). */
+  private markFullPass(removed: Uint8Array): void {
     this.mask.set(removed.subarray(0, this.mask.length));
     this.ready = true;
     this.exact = true;
     this.updatedEntries = 0;
     this.settleDue = false;
-    this.lastStep = { kind: 'full', entries: indptr[rows]! };
+    this.lastStep = { kind: 'full', entries: this.weights.indptr[this.weights.rows]! };
+  }
+
+  /** The live state as at() and adopt() return it. */
+  private answer(): MaskedTermSums {
+    return { sums: { s1: this.s1, s2: this.s2, df: this.df, sxlogx: this.sxlogx }, rowsWithWeight: this.rowsWithWeight };
   }
 
   private update(changed: number[], removed: Uint8Array, interrupt?: () => void): void {
@@ -258,8 +264,7 @@ export class IncrementalTermSums {
         const end = indptr[r + 1]!;
         entries += end - start;
         const oldNorm2 = this.rowNorm2[r]!;
-        let norm2 = 0;
-        for (let p = start; p < end; p++) if (removed[indices[p]!] === 0) norm2 += data[p]! * data[p]!;
+        const norm2 = keptNorm2(indices, data, start, end, removed);
         this.rowNorm2[r] = norm2;
         const wasKept = oldNorm2 > 0;
         const isKept = norm2 > 0;
