@@ -161,7 +161,7 @@ def review(client, workdir, node, loudword, quiet, stats):
         if status == 0:
             return report
         plan = next_plan
-        say(quiet, "the suggested stop list needs its exact sums: one more round")
+        say(quiet, "the review needs more from the shards (the suggested list's exact sums, or the verdict's neighbour search): one more round")
     raise ShardStepFailed(f"the review still needed more sums after {MAX_SUMS_ROUNDS} rounds")
 
 

@@ -30,6 +30,8 @@ describe('a shards folder reviewed in the editor: shard steps on worker threads'
   it('the review worker gives the one-process Report and the same what-ifs', async () => {
     const one = await startReview({ file: dir, configPath: null, overrides: OVERRIDES });
     assert.ok(one.report.suggestions.length > 0, 'a corpus with loud terms to find');
+    // 1,200 labelled documents, 300 sampled: the verdict's neighbours come from the whole corpus.
+    assert.equal(one.report.verdict?.estimate?.neighborsAmong, one.report.input.documents);
     const client = new ReviewWorkerClient(path.join(DIST, 'review-worker.js'));
     const stages: string[] = [];
     try {

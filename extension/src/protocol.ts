@@ -84,7 +84,16 @@ export interface Verdict {
   /** One sentence a person reads first, e.g. why little or nothing is suggested. */
   headline: string;
   /** The quantity judged, its change with the suggested list, and an interval from `draws` re-draws. */
-  estimate: { measure: string; change: number; low: number; high: number; draws: number; method: 'seeds' | 'bootstrap' } | null;
+  estimate: {
+    measure: string;
+    change: number;
+    low: number;
+    high: number;
+    draws: number;
+    method: 'seeds' | 'bootstrap';
+    /** With labels on a corpus larger than the sample: the documents the sampled documents' neighbours were sought among. */
+    neighborsAmong?: number;
+  } | null;
   /** Measures that moved the other way, each explained in a sentence. */
   caveats: Array<{ measure: string; sentence: string }>;
 }

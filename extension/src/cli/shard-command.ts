@@ -138,7 +138,7 @@ export async function runShardCommand(argv: readonly string[]): Promise<number> 
         await writeJson(need('out'), result.report);
         return 0;
       }
-      await writeJson(need('next-plan'), { ...plan, masks: result.masks, full: false });
+      await writeJson(need('next-plan'), { ...plan, masks: result.masks, neighbors: result.neighbors, full: false });
       return NEEDS_SUMS;
     }
   }

@@ -13,6 +13,7 @@ import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights, prestartTokenizing, startTokenizing, unusedEntries } from './prepare-weights';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
+import { searchInProcess } from '../terms/corpus-precision';
 import { reviewTerms, startOpinionCheck, startTermReview } from '../terms/review-terms';
 import type { PendingOpinionShare } from '../terms/start-opinion-share';
 import { assembleReport } from './assemble-report';
@@ -111,7 +112,8 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   // The suggestion rule's passes over the corpus need no measure: begun on other threads now,
   // they run while this one measures the baseline. The baseline's spread pass among them is
   // also the baseline's exact sums: its measure adopts it.
-  const termInput = { lab, baseMask, index, tokenize, settings, counts: prepared.counts, previews: prepared.previews, opinion };
+  const corpusSearch = prepared.labels === null ? null : searchInProcess(weights, lab.sampleRows, sample.positions, prepared.labels, settings.sample.k);
+  const termInput = { lab, baseMask, index, tokenize, settings, counts: prepared.counts, previews: prepared.previews, opinion, corpusSearch };
   const begun = startTermReview(termInput);
   const baseline = lab.measure(baseMask, null, begun.baseSpread !== null ? { removed: baseMask, pending: begun.baseSpread } : null);
 

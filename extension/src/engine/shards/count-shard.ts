@@ -90,5 +90,5 @@ export async function countShardKeeping(shard: ShardRef, settings: EffectiveSett
     candidates,
     candidateLimit: candidateLimit(settings),
   };
-  return { partial, kept: { counts, previews } };
+  return { partial, kept: { counts, previews, labels } };
 }

@@ -1,6 +1,4 @@
 import type { EffectiveSettings, Report } from '../../protocol';
-import type { Csr } from '../matrix/csr';
-import { weighWithIdf } from '../matrix/weigh';
 import type { CorpusSource } from '../read/corpus-source';
 import { assembleReport } from '../review/assemble-report';
 import { sampleLabelIds, type ReviewSample } from '../review/choose-sample';
@@ -8,7 +6,9 @@ import type { PreparedWeights } from '../review/prepare-weights';
 import { reviewTerms } from '../terms/review-terms';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { TermIndex } from '../what-if/term-index';
-import { decodeFloat64, type MaskRequest, type PlanPartial } from './partials';
+import { decodeFloat64, type MaskRequest, type NeighborRequest, type PlanPartial } from './partials';
+import { planSampleRows } from './sample-rows';
+import { ShardedSearch } from './sharded-search';
 import type { SumsTotals } from './sums-totals';
 import { ShardedLab } from './sharded-lab';
 
@@ -20,7 +20,7 @@ export interface FinishedLab {
   baselineNeighbors: Uint32Array;
 }
 
-export type FinishResult = { done: true; report: Report; finished: FinishedLab } | { done: false; masks: MaskRequest[] };
+export type FinishResult = { done: true; report: Report; finished: FinishedLab } | { done: false; masks: MaskRequest[]; neighbors: NeighborRequest[] };
 
 /**
  * The last step: from the shards' sums added up (SumsTotals), measures the baseline on the
@@ -29,20 +29,12 @@ export type FinishResult = { done: true; report: Report; finished: FinishedLab }
  * no round computed (the suggested stop list, the first time), returns those masks instead.
  */
 export function finishReview(plan: PlanPartial, settings: EffectiveSettings, totals: SumsTotals): FinishResult {
-  const cols = plan.terms.length;
   const masked = totals.maskSums();
   const full = totals.fullSums();
 
   const idf = decodeFloat64(plan.idf);
   const s = plan.sample;
-  const sampleCounts: Csr = {
-    rows: s.docs.length,
-    cols,
-    indptr: Uint32Array.from(s.indptr),
-    indices: Uint32Array.from(s.indices),
-    data: Float64Array.from(s.counts),
-  };
-  const sampleRows = weighWithIdf(sampleCounts, idf, { ...settings.weighting, norm: 'l2' });
+  const sampleRows = planSampleRows(plan, settings);
   const identity = new Uint32Array(s.docs.length).map((_, i) => i);
   const labels = sampleLabelIds(identity, s.labels);
   const lab = new ShardedLab(sampleRows, settings.sample.k, settings.sample.seed, labels, masked, full);
@@ -53,8 +45,12 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, tot
   const baseline = lab.measure(baseMask, null);
   const counts = totals.countStats();
   const previews = totals.documentPreviews();
-  const termReview = reviewTerms({ lab, baseMask, baseline, documents: plan.documents, idf, index, tokenize, settings, counts, previews });
-  if (lab.missing.size > 0) return { done: false, masks: [...lab.missing].map(([id, columns]) => ({ id, columns })) };
+  const search = s.labels === null ? null : new ShardedSearch(totals.neighborLists(settings.sample.k), s.labels, settings.sample.k);
+  const termReview = reviewTerms({ lab, baseMask, baseline, documents: plan.documents, idf, index, tokenize, settings, counts, previews, corpusSearch: search });
+  // The searches are asked for only once every sum is known: before that the suggested list,
+  // and with it the searches' masks, may still change.
+  if (lab.missing.size > 0) return { done: false, masks: [...lab.missing].map(([id, columns]) => ({ id, columns })), neighbors: [] };
+  if (search !== null && search.missing.size > 0) return { done: false, masks: [], neighbors: [...search.missing.values()] };
 
   const source = { ...plan.input, skipped: { count: plan.input.skipped, examples: plan.input.skippedExamples ?? [] }, truncated: plan.input.truncated ?? null, fields: [] } as unknown as CorpusSource;
   const prepared: PreparedWeights = {

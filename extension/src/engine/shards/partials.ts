@@ -9,7 +9,7 @@ import { UserError } from '../user-error';
  * different settings or versions are never merged. Float arrays travel as base64 of their
  * IEEE-754 bytes, so a figure survives the trip to the last bit.
  */
-export const PARTIAL_FORMAT = 1;
+export const PARTIAL_FORMAT = 2;
 
 export type ShardStep = 'count' | 'plan' | 'sums';
 
@@ -60,6 +60,33 @@ export interface MaskRequest {
   columns: number[];
 }
 
+/**
+ * The sampled documents' k nearest neighbours under a mask, which each shard seeks among its own
+ * documents (terms/corpus-precision.ts: the verdict's label precision with neighbours from the
+ * corpus); `documents`, `among` and `seed` say which documents are candidates (searchCandidates).
+ */
+export interface NeighborRequest {
+  id: string;
+  columns: number[];
+  documents: number;
+  among: number;
+  seed: number;
+  k: number;
+}
+
+/** A shard's answer to a NeighborRequest: per sampled document, its k nearest in the shard (corpus document indices) with their cosines and labels. */
+export interface EncodedNeighbors {
+  id: string;
+  docs: string;
+  sims: string;
+  labels: (string | null)[];
+}
+
+/** An id for a neighbour request's content, the same in every step. */
+export function neighborRequestId(columns: readonly number[], search: { documents: number; among: number; seed: number }, k: number): string {
+  return `${maskId(columns)}-${search.documents}-${search.among}-${search.seed}-${k}`;
+}
+
 /** The merge: vocabulary, idf, the sample, and which exact sums round 2 computes. */
 export interface PlanPartial extends PartialHeader {
   step: 'plan';
@@ -84,6 +111,8 @@ export interface PlanPartial extends PartialHeader {
   };
   /** Masks whose sums the next sums round computes; `full` adds the unmasked sums, the raw-count statistics and the previews. */
   masks: MaskRequest[];
+  /** Neighbour searches the next sums round runs (after the masks they need are known); none at first. */
+  neighbors?: NeighborRequest[];
   full: boolean;
   /** Documents whose previews the opinion check reads (terms/review-terms.ts), ascending. */
   previewDocs: number[];
@@ -108,6 +137,8 @@ export interface SumsPartial extends PartialHeader {
   planId: string;
   shard: { key: string; documents: number };
   masks: Array<{ id: string } & EncodedSums>;
+  /** The plan's neighbour requests answered for this shard's documents. */
+  neighbors?: EncodedNeighbors[];
   full: EncodedSums | null;
   /** Raw-count statistics of the shard (terms/term-count-stats.ts), with `full`. */
   counts: EncodedCountStats | null;

@@ -99,7 +99,7 @@ export async function startShardedReview(options: ShardedReviewOptions & { runne
       });
       const result = finishReview(plan, settings, totals);
       if (result.done) finished = result;
-      else plan = { ...plan, masks: result.masks, full: false };
+      else plan = { ...plan, masks: result.masks, neighbors: result.neighbors, full: false };
     }
     if (finished === null) throw new Error(`the review still needed more sums after ${MAX_SUMS_ROUNDS} rounds`);
     const { report } = finished;
@@ -114,7 +114,7 @@ export async function startShardedReview(options: ShardedReviewOptions & { runne
           const mask = DistanceLab.union(baseMask, index.columnsOf(removed));
           const missing = lab.unknown(mask);
           if (missing !== null) {
-            const roundPlan: PlanPartial = { ...plan, masks: [missing], full: false };
+            const roundPlan: PlanPartial = { ...plan, masks: [missing], neighbors: [], full: false };
             await inOrder(shards, runner.parallelism, undefined, (shard) => runner.sums(shard, roundPlan), (partial, i) => totals.add(partial, shards[i]!.file));
             lab.learn(missing.id, totals.maskSums().get(missing.id)!);
           }

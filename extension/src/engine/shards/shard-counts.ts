@@ -18,6 +18,8 @@ export interface ShardCounts {
   counts: CountMatrix;
   /** First characters of each document (tokenize/document-preview.ts). */
   previews: string[];
+  /** Each document's label, when the review has a label field: the verdict's corpus search reports its neighbours' labels. */
+  labels: (string | null)[] | null;
 }
 
 /** What the kept counts were computed from: a sums step uses them only if all of it still holds. */
@@ -37,10 +39,11 @@ interface Header extends ShardCountsOrigin {
   nonzeros: number;
   terms: string[];
   previews: string[];
+  labels: (string | null)[] | null;
 }
 
 const MAGIC = Buffer.from('LWCOUNTS', 'latin1');
-const FORMAT = 1;
+const FORMAT = 2;
 
 export function encodeShardCounts(kept: ShardCounts, origin: ShardCountsOrigin): Buffer {
   const { counts } = kept;
@@ -60,6 +63,7 @@ export function encodeShardCounts(kept: ShardCounts, origin: ShardCountsOrigin):
     nonzeros,
     terms: [...counts.terms],
     previews: kept.previews,
+    labels: kept.labels,
   };
   const json = Buffer.from(JSON.stringify(header), 'utf8');
   const pad = (4 - ((MAGIC.length + 4 + json.length) % 4)) % 4;
@@ -102,7 +106,7 @@ export function decodeShardCounts(buffer: Buffer, origin: ShardCountsOrigin, fil
   const indices = take(nonzeros);
   const data = Float64Array.from(take(nonzeros));
   const tokensPerDoc = take(rows);
-  return { counts: { rows, cols: header.cols, indptr, indices, data, terms: header.terms, tokensPerDoc }, previews: header.previews };
+  return { counts: { rows, cols: header.cols, indptr, indices, data, terms: header.terms, tokensPerDoc }, previews: header.previews, labels: header.labels };
 }
 
 /** The origin of a shard's counts now: its file's size and modification time under these settings. */

@@ -10,7 +10,11 @@ import { openCorpusFile } from '../read/open-corpus-file';
 import { UserError } from '../user-error';
 import type { ShardRef } from './count-shard';
 import type { ShardCounts } from './shard-counts';
-import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedCountStats, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
+import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedCountStats, type EncodedNeighbors, type EncodedSums, type NeighborRequest, type PlanPartial, type SumsPartial } from './partials';
+import { corpusNeighbors } from '../measures/corpus-neighbors';
+import { NO_NEIGHBOR } from '../measures/knn';
+import { searchCandidates } from '../terms/corpus-precision';
+import { planSampleRows } from './sample-rows';
 
 /**
  * Round 2 of a distributed review, for one shard: takes the counts round 1 kept (`kept`, see
@@ -37,6 +41,7 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
     for (const c of m.columns) removed[c] = 1;
     return { id: m.id, ...encodeSums(maskedTermSums(weights, removed, true)) };
   });
+  const neighbors = (plan.neighbors ?? []).map((r) => shardNeighbors(r, plan, settings, weights, known.offset, built.labels));
   let full: EncodedSums | null = null;
   let countStats: EncodedCountStats | null = null;
   const previews: Array<{ doc: number; preview: string }> = [];
@@ -48,7 +53,21 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
     }
     full = encodeSums({ sums: termSums(weights), rowsWithWeight: rowsWithWeight(weights) });
   }
-  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, full, counts: countStats, previews };
+  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, neighbors, full, counts: countStats, previews };
+}
+
+/**
+ * The sampled documents' k nearest among this shard's candidates (corpusNeighbors, the search one
+ * process runs over the whole corpus, here over documents offset … offset + rows − 1), with the
+ * label of each document listed: the finish merges the shards' lists (sharded-search.ts).
+ */
+function shardNeighbors(request: NeighborRequest, plan: PlanPartial, settings: EffectiveSettings, weights: Csr, offset: number, labels: readonly (string | null)[] | null): EncodedNeighbors {
+  const removed = new Uint8Array(plan.terms.length);
+  for (const c of request.columns) removed[c] = 1;
+  const candidates = searchCandidates(request, offset, weights.rows);
+  const lists = corpusNeighbors(planSampleRows(plan, settings), Uint32Array.from(plan.sample.docs), weights, offset, removed, request.k, candidates);
+  const listed = Array.from(lists.docs, (d) => (d === NO_NEIGHBOR || labels === null ? null : (labels[d - offset] ?? null)));
+  return { id: request.id, docs: encodeUint32(lists.docs), sims: encodeFloat64(lists.sims), labels: listed };
 }
 
 /** The shard's counts re-indexed to the plan's columns; terms the merge pruned are dropped. */

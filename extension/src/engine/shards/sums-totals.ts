@@ -1,6 +1,8 @@
 import type { MaskedTermSums } from '../measures/masked-term-sums';
 import type { TermCountStats } from '../terms/term-count-stats';
 import { UserError } from '../user-error';
+import type { NeighborLists } from '../measures/corpus-neighbors';
+import { mergeShardNeighbors, type LabelledNeighbors } from './sharded-search';
 import { decodeFloat64, decodeUint32, settingsKey, type EncodedCountStats, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
 import type { EffectiveSettings } from '../../protocol';
 
@@ -21,6 +23,8 @@ export class SumsTotals {
   private readonly counts: TermCountStats;
   private readonly countsFrom = new Map<string, string>();
   private readonly previews: string[] = [];
+  /** Per neighbour request, each shard's lists as they came (merged in shard order by neighborLists). */
+  private readonly neighbors = new Map<string, Map<string, { lists: NeighborLists; labels: (string | null)[] }>>();
   private readonly key: string;
 
   constructor(
@@ -55,6 +59,23 @@ export class SumsTotals {
       addCounts(this.counts, partial.counts);
     }
     for (const p of partial.previews) this.previews[p.doc] = p.preview;
+    for (const n of partial.neighbors ?? []) {
+      let byShard = this.neighbors.get(n.id);
+      if (byShard === undefined) this.neighbors.set(n.id, (byShard = new Map()));
+      if (byShard.has(shard)) throw new UserError(`two answers to neighbour request ${n.id} for shard "${shard}"`, file, null);
+      byShard.set(shard, { lists: { docs: decodeUint32(n.docs), sims: decodeFloat64(n.sims) }, labels: n.labels });
+    }
+  }
+
+  /** Every neighbour request all shards have answered, merged over the corpus (in shard order, which is document order). */
+  neighborLists(k: number): Map<string, LabelledNeighbors> {
+    const out = new Map<string, LabelledNeighbors>();
+    const m = this.plan.sample.docs.length;
+    for (const [id, byShard] of this.neighbors) {
+      if (byShard.size !== this.plan.shards.length) continue;
+      out.set(id, mergeShardNeighbors(this.plan.shards.map((s) => byShard.get(s.key)!), m, k));
+    }
+    return out;
   }
 
   /** Every mask whose sums all shards have sent. */

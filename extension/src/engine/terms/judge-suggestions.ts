@@ -4,6 +4,7 @@ import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
 import type { SuggestionGroup } from './choose-suggestions';
+import type { CorpusPrecision } from './corpus-precision';
 
 /** Bootstrap draws behind the verdict's interval. */
 export const VERDICT_DRAWS = 400;
@@ -19,6 +20,10 @@ export interface JudgeInput {
   agreedStopped: number;
   /** The groups the rule kept as light, each with its joint share of the similarity. */
   light: LightGroups;
+  /** With labels, each sampled document's precision with neighbours from the corpus (corpus-precision.ts); null: from the sample. */
+  corpus?: CorpusPrecision | null;
+  /** Documents in the corpus (more than the sample: the headline says where the neighbours were sought). */
+  documents?: number;
 }
 
 /** Per group kept as light (choose-suggestions.ts, GROUP_SHARE): its joint share. */
@@ -73,9 +78,13 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const labels = lab.sampleLabels;
   const before = perQueryQuality(input.baseline, lab.k, labels);
   const after = perQueryQuality(input.suggested, lab.k, labels);
-  const useLabels = before.precision !== null && after.precision !== null;
+  // With labels, precision with neighbours from the corpus where it was measured, else from the sample.
+  const corpus = input.corpus ?? null;
+  const precisionBefore = corpus?.before ?? before.precision;
+  const precisionAfter = corpus?.after ?? after.precision;
+  const useLabels = precisionBefore !== null && precisionAfter !== null;
   const boot = useLabels
-    ? pairedBootstrap(before.precision!, after.precision!, 'mean', VERDICT_DRAWS, lab.seed)
+    ? pairedBootstrap(precisionBefore, precisionAfter, 'mean', VERDICT_DRAWS, lab.seed)
     : pairedBootstrap(before.standout, after.standout, 'median', VERDICT_DRAWS, lab.seed);
   // The CLI and the panel put "the suggested list helps/hurts" before the headline, so the
   // headline names the terms instead of repeating "the suggested list"; verbs agree with it.
@@ -86,15 +95,19 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats };
   }
   const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
-  const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const };
+  const among = useLabels && corpus !== null ? corpus.among : null;
+  const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const, ...(among !== null ? { neighborsAmong: among } : {}) };
   const digits = useLabels ? 3 : 2;
   const interval = `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${formatCount(boot.queries)} sampled documents`;
   const outcome: Verdict['outcome'] = boot.low > 0 ? 'helps' : boot.high < 0 ? 'hurts' : 'no clear change';
   let headline: string;
   if (useLabels) {
-    const from = `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
+    const from = corpus !== null
+      ? `${f3(meanOf(corpus.before))} → ${f3(meanOf(corpus.after))}`
+      : `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
     const verb = outcome === 'helps' ? agree('raises', 'raise') : outcome === 'hurts' ? agree('lowers', 'lower') : agree('does', 'do') + ' not clearly change';
-    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, 3)}; ${interval}). The list was chosen without the labels, so every sampled document is held out.`;
+    const where = whereSought(corpus, input.documents ?? lab.sampleRows.rows, lab.sampleRows.rows);
+    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, 3)}; ${interval}${where}). The list was chosen without the labels, so every sampled document is held out.`;
     if (outcome === 'no clear change') headline += ' A difference this small needs a larger sample (sample.documents) to resolve.';
   } else {
     const make = agree('makes', 'make');
@@ -106,6 +119,28 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   }
   if (light !== '') headline += ` ${light}`;
   return { outcome, headline, estimate, caveats };
+}
+
+/** Where the sampled documents' neighbours were sought, for the headline ('' when the sample is the corpus). */
+function whereSought(corpus: CorpusPrecision | null, documents: number, sampled: number): string {
+  if (corpus !== null) {
+    return corpus.among === corpus.documents
+      ? `, their neighbours sought among all ${formatCount(corpus.among)} documents`
+      : `, their neighbours sought among ${formatCount(corpus.among)} of the ${formatCount(corpus.documents)} documents, drawn at random`;
+  }
+  return documents > sampled ? ', their neighbours sought within the sample, as a search of the corpus would cost too much here' : '';
+}
+
+/** Mean over the values that are numbers (NaN: a query with no label or no neighbour). */
+function meanOf(values: Float64Array): number {
+  let sum = 0;
+  let count = 0;
+  for (const v of values) {
+    if (Number.isNaN(v)) continue;
+    sum += v;
+    count++;
+  }
+  return count === 0 ? Number.NaN : sum / count;
 }
 
 /** Measures that moved the unhealthy way, each with the reason it usually does so. */

@@ -6,6 +6,7 @@ import { startMaskedTermSums, startMaskedTermSumsInSeries, type PendingTermSums 
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
+import { corpusPrecision, type CorpusSearcher } from './corpus-precision';
 import { judgeSuggestions, type LightGroups } from './judge-suggestions';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
@@ -28,6 +29,8 @@ export interface TermReviewStart {
   previews: readonly string[];
   /** The opinion check begun earlier (startOpinionCheck), so that it overlaps other work; else run here. */
   opinion?: PendingOpinionShare;
+  /** With labels, how the verdict seeks the sampled documents' neighbours in the corpus (corpus-precision.ts); else null. */
+  corpusSearch?: CorpusSearcher | null;
 }
 
 export interface TermReviewInput extends TermReviewStart {
@@ -161,7 +164,11 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
   const light: LightGroups = {};
   for (const d of decisions.values()) if (d.reason === 'light') light[d.group] = d.groupShare;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light });
+  // With labels, the verdict's precision is measured with neighbours from the corpus, not the sample.
+  const corpus = input.corpusSearch != null && accepted.length > 0
+    ? corpusPrecision({ searcher: input.corpusSearch, sampleRows: lab.sampleRows, documents, df: counts.df, before: baseMask, after: suggestedMask, seed: lab.seed })
+    : null;
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }

@@ -1,0 +1,46 @@
+import { mergeNeighborLists, type NeighborLists } from '../measures/corpus-neighbors';
+import { labelPrecision, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
+import { maskColumns, neighborRequestId, type NeighborRequest } from './partials';
+
+/** A neighbour search's answer over the whole corpus: the lists and each listed document's label. */
+export interface LabelledNeighbors {
+  lists: NeighborLists;
+  labels: (string | null)[];
+}
+
+/**
+ * The verdict's corpus search in a review in shards: each shard seeks the sampled documents'
+ * neighbours among its own documents in a sums round (sum-shard.ts), and the lists are merged
+ * (SumsTotals). A search no round ran yet is noted in `missing` and answered with no neighbours;
+ * the caller then runs another round for it and reviews again, as for the sums (ShardedLab).
+ */
+export class ShardedSearch implements CorpusSearcher {
+  readonly missing = new Map<string, NeighborRequest>();
+
+  constructor(
+    private readonly known: ReadonlyMap<string, LabelledNeighbors>,
+    /** The label of each sampled document, in sample order. */
+    private readonly sampleLabels: readonly (string | null)[],
+    private readonly k: number,
+  ) {}
+
+  precision(removed: Uint8Array, search: CorpusSearch): Float64Array {
+    const columns = maskColumns(removed);
+    const id = neighborRequestId(columns, search, this.k);
+    const found = this.known.get(id);
+    const k = this.k;
+    if (found === undefined) {
+      this.missing.set(id, { id, columns, documents: search.documents, among: search.among, seed: search.seed, k });
+      return new Float64Array(this.sampleLabels.length).fill(Number.NaN);
+    }
+    return labelPrecision(found.lists, k, (q) => this.sampleLabels[q] ?? null, (q, r) => found.labels[q * k + r] ?? null);
+  }
+}
+
+/** The shards' lists for one request, in document order (shard order), merged with their labels. */
+export function mergeShardNeighbors(parts: ReadonlyArray<{ lists: NeighborLists; labels: (string | null)[] }>, m: number, k: number): LabelledNeighbors {
+  const lists = mergeNeighborLists(parts.map((p) => p.lists), m, k);
+  const labelOf = new Map<number, string | null>();
+  for (const p of parts) p.lists.docs.forEach((d, i) => labelOf.set(d, p.labels[i] ?? null));
+  return { lists, labels: Array.from(lists.docs, (d) => labelOf.get(d) ?? null) };
+}
