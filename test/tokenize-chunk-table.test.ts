@@ -101,4 +101,32 @@ describe('tokenize/chunk-table', () => {
     assert.equal(t.getKey('one more'), 1);
     assert.equal(t.getKey('k1'), ABSENT);
   });
+  it('ChunkTable.insertAbsent stores a key found absent straight from its text, as set does (short and long keys, growing, starting over)', () => {
+    const byInsert = new ChunkTable(3000);
+    const bySet = new ChunkTable(3000);
+    let seed = 777;
+    const next = (): number => (seed = (Math.imul(seed, 1103515245) + 12345) >>> 0);
+    const alphabet = ['a', 'b', 'é', '東', '\ud83d\ude00', 'Z', ' '];
+    let text = '';
+    for (let i = 0; i < 60_000; i++) text += alphabet[next() % alphabet.length];
+    const kept: boolean[] = [];
+    for (let k = 0; k < 5000; k++) {
+      // Keys of 1-30 code units cut out of one text: some kept in a slot, some in the long store.
+      const start = next() % (text.length - 30);
+      const end = start + 1 + (next() % 30);
+      const hash = hashOf(text, start, end);
+      if (byInsert.get(text, start, end, hash) !== ABSENT) continue;
+      const a = byInsert.insertAbsent(text, start, end, hash, k);
+      const b = bySet.set(text.slice(start, end), k);
+      assert.equal(a, b, `kept at ${k}`);
+      kept.push(a);
+      assert.equal(byInsert.size, bySet.size);
+    }
+    assert.ok(kept.includes(false), 'the table started over at least once');
+    for (let k = 0; k < 20_000; k++) {
+      const start = next() % (text.length - 30);
+      const end = start + 1 + (next() % 30);
+      assert.equal(byInsert.get(text, start, end, hashOf(text, start, end)), bySet.getKey(text.slice(start, end)));
+    }
+  });
 });

@@ -97,6 +97,15 @@ export class ChunkTable {
       this.slots[slot * SLOT + VALUE] = value;
       return true;
     }
+    return this.insertAbsent(key, 0, key.length, hash, value);
+  }
+
+  /**
+   * Stores `value` (never ABSENT) for text[start, end), whose FNV-1a hash is `hash`, a key the
+   * table does not hold (`get` has just said so): no hashing and no key compared on the way to
+   * its slot. Returns false as `set` does.
+   */
+  insertAbsent(text: string, start: number, end: number, hash: number, value: number): boolean {
     let kept = true;
     if (this.size >= this.maxEntries) {
       this.clear();
@@ -104,27 +113,37 @@ export class ChunkTable {
     } else if ((this.size + 1) * 2 > this.mask + 1) {
       this.rehash((this.mask + 1) * 2);
     }
-    const at = this.find(key, hash) * SLOT;
-    this.slots[at + HASH] = hash;
-    this.slots[at + VALUE] = value;
-    this.slots[at + LENGTH] = key.length;
-    if (key.length <= INLINE) {
+    const { slots, mask } = this;
+    let slot = hash & mask;
+    while (slots[slot * SLOT + VALUE] !== ABSENT) slot = (slot + 1) & mask;
+    const at = slot * SLOT;
+    const length = end - start;
+    slots[at + HASH] = hash;
+    slots[at + VALUE] = value;
+    slots[at + LENGTH] = length;
+    if (length <= INLINE) {
       // Two code units to an int32; an odd key's last int32 has 0 in its high half.
-      for (let j = 0; j < key.length; j += 2) this.slots[at + KEY + (j >> 1)] = key.charCodeAt(j) | (j + 1 < key.length ? key.charCodeAt(j + 1) << 16 : 0);
+      for (let j = 0; j < length; j += 2) slots[at + KEY + (j >> 1)] = text.charCodeAt(start + j) | (j + 1 < length ? text.charCodeAt(start + j + 1) << 16 : 0);
     } else {
-      if (this.used + key.length > this.chars.length) {
-        let size = this.chars.length * 2;
-        while (size < this.used + key.length) size *= 2;
-        const grown = new Uint16Array(size);
-        grown.set(this.chars.subarray(0, this.used));
-        this.chars = grown;
-      }
-      for (let i = 0; i < key.length; i++) this.chars[this.used + i] = key.charCodeAt(i);
-      this.slots[at + OFFSET] = this.used;
-      this.used += key.length;
+      this.storeLongKey(at, text, start, end);
     }
     this.size++;
     return kept;
+  }
+
+  /** Copies a key longer than INLINE into `chars` and points the slot at `at` to it. */
+  private storeLongKey(at: number, text: string, start: number, end: number): void {
+    const length = end - start;
+    if (this.used + length > this.chars.length) {
+      let size = this.chars.length * 2;
+      while (size < this.used + length) size *= 2;
+      const grown = new Uint16Array(size);
+      grown.set(this.chars.subarray(0, this.used));
+      this.chars = grown;
+    }
+    for (let i = 0; i < length; i++) this.chars[this.used + i] = text.charCodeAt(start + i);
+    this.slots[at + OFFSET] = this.used;
+    this.used += length;
   }
 
   /** The slot holding `key`, or the empty slot where it would go. */
