@@ -1,5 +1,5 @@
 import { mergeNeighborLists, type NeighborLists } from '../measures/corpus-neighbors';
-import { labelPrecision, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
+import { isLabel, labelPrecision, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
 import { maskColumns, neighborRequestId, type NeighborRequest } from './partials';
 
 /** A neighbour search's answer over the whole corpus: the lists and each listed document's label. */
@@ -33,7 +33,7 @@ export class ShardedSearch implements CorpusSearcher {
       this.missing.set(id, { id, columns, documents: search.documents, among: search.among, seed: search.seed, k });
       return new Float64Array(this.sampleLabels.length).fill(Number.NaN);
     }
-    return labelPrecision(found.lists, k, (q) => this.sampleLabels[q] ?? null, (q, r) => found.labels[q * k + r] ?? null);
+    return labelPrecision(found.lists.docs, k, (q) => isLabel(this.sampleLabels[q]), (q, r) => found.labels[q * k + r] === this.sampleLabels[q]);
   }
 }
 

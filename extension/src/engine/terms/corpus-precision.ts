@@ -1,5 +1,5 @@
 import type { Csr } from '../matrix/csr';
-import { corpusNeighbors, neighborSearchWork, type NeighborLists } from '../measures/corpus-neighbors';
+import { corpusNeighbors, neighborSearchWork } from '../measures/corpus-neighbors';
 import { NO_NEIGHBOR } from '../measures/knn';
 import { sampleIndices } from '../random/seeded-random';
 
@@ -80,26 +80,35 @@ export function searchInProcess(weights: Csr, sampleRows: Csr, sample: Uint32Arr
   return {
     precision(removed, search) {
       const lists = corpusNeighbors(sampleRows, sample, weights, 0, removed, k, searchCandidates(search, 0, weights.rows));
-      return labelPrecision(lists, k, (q) => labels[sample[q]!] ?? null, (q, r) => labels[lists.docs[q * k + r]!] ?? null);
+      return labelPrecision(lists.docs, k, (q) => isLabel(labels[sample[q]!]), (q, r) => labels[lists.docs[q * k + r]!] === labels[sample[q]!]);
     },
   };
 }
 
-/** Per query, the share of its listed neighbours whose label is its own; NaN without a label or a neighbour. */
-export function labelPrecision(lists: NeighborLists, k: number, queryLabel: (q: number) => string | null, neighborLabel: (q: number, r: number) => string | null): Float64Array {
-  const m = lists.docs.length / k;
+/**
+ * Per query, the share of its listed neighbours (m×k, NO_NEIGHBOR where none) that share its
+ * label; NaN for a query with no label or no neighbour. `hasLabel(q)` and `sameLabel(q, r)`
+ * (the r-th neighbour of q has q's label) let the sample's label ids and the corpus's label
+ * strings share the rule.
+ */
+export function labelPrecision(neighbors: Uint32Array, k: number, hasLabel: (q: number) => boolean, sameLabel: (q: number, r: number) => boolean): Float64Array {
+  const m = neighbors.length / k;
   const out = new Float64Array(m).fill(Number.NaN);
   for (let q = 0; q < m; q++) {
-    const own = queryLabel(q);
-    if (own === null || own === '') continue;
+    if (!hasLabel(q)) continue;
     let hits = 0;
     let present = 0;
     for (let r = 0; r < k; r++) {
-      if (lists.docs[q * k + r] === NO_NEIGHBOR) continue;
+      if (neighbors[q * k + r] === NO_NEIGHBOR) continue;
       present++;
-      if (neighborLabel(q, r) === own) hits++;
+      if (sameLabel(q, r)) hits++;
     }
     if (present > 0) out[q] = hits / present;
   }
   return out;
+}
+
+/** A label that counts: not missing, not empty. */
+export function isLabel(label: string | null | undefined): label is string {
+  return label !== null && label !== undefined && label !== '';
 }

@@ -1,4 +1,4 @@
-import { NO_NEIGHBOR } from '../measures/knn';
+import { labelPrecision } from './corpus-precision';
 
 /**
  * Per-query neighbour quality of one setting on the sample, for paired comparisons:
@@ -18,22 +18,6 @@ export interface PerQueryQuality {
  * the sample's similarities again.
  */
 export function perQueryQuality(measured: { neighbors: Uint32Array; standoutPerQuery: Float64Array }, k: number, labels: Int32Array | null): PerQueryQuality {
-  const m = measured.standoutPerQuery.length;
-  let precision: Float64Array | null = null;
-  if (labels !== null) {
-    precision = new Float64Array(m).fill(Number.NaN);
-    for (let i = 0; i < m; i++) {
-      if (labels[i]! < 0) continue;
-      let hits = 0;
-      let present = 0;
-      for (let r = 0; r < k; r++) {
-        const j = measured.neighbors[i * k + r]!;
-        if (j === NO_NEIGHBOR) continue;
-        present++;
-        if (labels[j] === labels[i]) hits++;
-      }
-      if (present > 0) precision[i] = hits / present;
-    }
-  }
+  const precision = labels === null ? null : labelPrecision(measured.neighbors, k, (i) => labels[i]! >= 0, (i, r) => labels[measured.neighbors[i * k + r]!] === labels[i]);
   return { standout: measured.standoutPerQuery, precision };
 }
