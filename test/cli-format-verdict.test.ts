@@ -30,6 +30,14 @@ describe('verdict in the CLI outputs', () => {
     assert.ok(at < lines.findIndex((l) => l.startsWith('measure')));
   });
 
+  it('formatText: beside a list that hurts, the caveats are not introduced as "But"', () => {
+    const report = withVerdict();
+    report.verdict!.outcome = 'hurts';
+    const lines = formatText(report).split('\n');
+    assert.ok(lines.some((l) => /^ {2}Also: Hubness skew rose/.test(l)));
+    assert.ok(!lines.some((l) => l.startsWith('  But:')));
+  });
+
   it('formatMarkdown: the verdict is the first paragraph under the heading, caveats as a list', () => {
     const md = formatMarkdown(withVerdict()).split('\n');
     assert.match(md[2]!, /^\*\*Verdict: the suggested list helps\.\*\* These 3 terms raise/);

@@ -19,7 +19,9 @@ export function formatText(report: Report): string {
   if (verdict !== null) {
     out.push('');
     out.push(`${verdict.title}. ${verdict.headline}`);
-    for (const c of verdict.caveats) out.push(`  But: ${c}`);
+    // "But" only against a list that helps: beside one that hurts or changes nothing, the caveats agree with it.
+    const lead = report.verdict?.outcome === 'helps' ? 'But' : 'Also';
+    for (const c of verdict.caveats) out.push(`  ${lead}: ${c}`);
     out.push('');
   }
   out.push(

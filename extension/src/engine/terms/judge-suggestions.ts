@@ -118,7 +118,22 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;
   }
   if (light !== '') headline += ` ${light}`;
+  if (corpus !== null) {
+    const sampleSentence = sampleDisagrees(baseline.labelPrecisionAtK, suggested.labelPrecisionAtK, boot.change);
+    if (sampleSentence !== null) caveats.push({ measure: 'label precision', sentence: sampleSentence });
+  }
   return { outcome, headline, estimate, caveats };
+}
+
+/**
+ * The sentence for a table whose label precision (neighbours within the sample) moves the other
+ * way from the verdict's (neighbours from the corpus); null when they agree in direction.
+ */
+function sampleDisagrees(before: number | null, after: number | null, corpusChange: number): string | null {
+  if (before === null || after === null) return null;
+  const change = after - before;
+  if (Math.sign(change) === Math.sign(corpusChange) || change === 0) return null;
+  return `Label precision with neighbours from the sample alone ${change > 0 ? 'rose' : 'fell'} (${f3(before)} → ${f3(after)}) while with neighbours from the corpus it ${corpusChange > 0 ? 'rose' : 'fell'}: inside a sample the neighbours are farther apart than in the corpus, so the verdict's figure is the one to go by.`;
 }
 
 /** Where the sampled documents' neighbours were sought, for the headline ('' when the sample is the corpus). */
