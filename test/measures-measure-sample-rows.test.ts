@@ -47,10 +47,12 @@ describe('measures/measure-sample-rows', () => {
     [5, 400, 3, cosinesWithCopies],
     [6, 400, 10, cosinesWithCopies],
   ] as const) {
-    it(`measureSampleRows equals the separate measure functions exactly (seed ${seed}, ${n} rows, k = ${k})`, () => {
+    // All rows in one block (the Report's sweep), and in blocks of 7 (the what-if's, which two
+    // threads share): the iid dimension's pair sums then run per block, the rest is unchanged.
+    for (const blockRows of [n, 7]) it(`measureSampleRows equals the separate measure functions exactly (seed ${seed}, ${n} rows, k = ${k}, blocks of ${blockRows} rows)`, () => {
       const gram = make(seed, n);
       const valid = validRowsFromGram(gram, n);
-      const got = measureSampleRows(gram.slice(), n, k, valid);
+      const got = measureSampleRows(gram.slice(), n, k, valid, undefined, undefined, blockRows);
 
       const reference = gram.slice();
       const knn = knnFromSimilarities(reference, n, k, valid);

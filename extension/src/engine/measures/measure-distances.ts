@@ -9,6 +9,7 @@ import { measureSampleRows } from './measure-sample-rows';
 import { mleDimension } from './mle-dimension';
 import { neighborTurnover } from './neighbor-turnover';
 import { sampleSimilarities } from './sample-similarity';
+import type { SharedRowSweep } from './shared-row-sweep';
 import { cumulativeMassShare, pairMass, termSums, type PairMass, type TermSums } from './term-sums';
 import { twoNN } from './two-nn';
 
@@ -108,6 +109,13 @@ export interface MeasuresFromGramOptions {
   rowOf?: (i: number) => number;
   /** Called between rows of the sample's sweep; throws to abandon it (a what-if prefetch a click overtook). */
   interrupt?: () => void;
+  /** Rows per block of the sample's sweep (measureSampleRows); the Report's default is all of them. */
+  blockRows?: number;
+  /**
+   * The sweep shared with another thread (the what-if's): `gram` and `rowScale` are one of its
+   * states, and the sweep is opened under `ticket`; the same bits as without it, with its blockRows.
+   */
+  shared?: { sweep: SharedRowSweep; ticket: number };
 }
 
 export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions' | 'termKnnMass'>;
@@ -175,7 +183,10 @@ export function sampledMeasures(options: Omit<MeasuresFromGramOptions, 'sums' | 
     }
   }
 
-  const rows = measureSampleRows(gram, m, k, valid, scale, options.interrupt);
+  const rows =
+    options.shared !== undefined
+      ? options.shared.sweep.sweep(options.shared.ticket, gram, scale, valid, options.interrupt)
+      : measureSampleRows(gram, m, k, valid, scale, options.interrupt, options.blockRows);
   const { knn, kOccurrence: counts } = rows;
   const hubness = hubnessSummary(counts, valid, k);
 

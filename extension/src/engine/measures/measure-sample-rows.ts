@@ -1,6 +1,6 @@
 import { SAME_POINT } from './gram-distances';
 import { iidDimensionOfCv } from './iid-equivalent-dimension';
-import { emptyKnnLists, TIE_TOLERANCE, type KnnLists } from './knn';
+import { NO_NEIGHBOR, TIE_TOLERANCE, type KnnLists } from './knn';
 import { meanToNearestOf, meanToNearestSums } from './mean-to-nearest';
 import { medianStandout } from './neighbor-standout';
 import { radiusSlackSummary } from './radius-slack';
@@ -34,12 +34,15 @@ export interface SampleRowMeasures {
  * histograms, contrast, mean-to-nearest and the iid dimension's pair sums. What needs the row's
  * final k-th neighbour or k-NN radius is kept aside in the pass instead of read in a second one:
  * - N_k's tie candidates: every value that was within tolerance of the k-th place when it was
- *   seen (the k-th score only rises, so this holds every value tied with the final one);
+ *   seen (the k-th score only rises, so this holds every value tied with the final one), of
+ *   which the row keeps the count of those tied with the final one (see reduceSweep);
  * - the radius slack's k-th and 10k-th distance: the distances whose squared distance is at most
  *   a bound read beforehand from every 8th entry of the row (a quantile of about twice 10k/m, so
  *   ~2·10k values are kept); when fewer than 10k fall under it, the row's distances are gathered
  *   again. Ranks among the gathered values are ranks in the row, so the values are radiusSlack's.
  * At m = 2,000 the matrix is 32 MB; the panel's what-if used to read it about 9 times per toggle.
+ * The rows write their own outputs and the sums across rows are added up afterwards, in row
+ * order (reduceSweep), so blocks of rows can be swept by two threads (SharedRowSweep).
  *
  * The separate functions (knnFromSimilarities, relativeContrast, meanToNearest, …) stay the
  * reference (test/measures-measure-sample-rows.test.ts): k-NN, N_k, histograms, contrast,
@@ -58,24 +61,94 @@ export function measureSampleRows(
   scale?: Float64Array,
   /** Called every few rows; throws to abandon the sweep (nothing outside it is written). */
   interrupt?: () => void,
+  /**
+   * Rows per block of the iid dimension's pair sums (see SweepRows.block); m (the default) is the
+   * Report's one running sum. The what-if's sweep, which two threads share, sums per block.
+   */
+  blockRows = m,
 ): SampleRowMeasures {
-  const sweep = new RowSweep(gram, m, k, valid, scale ?? new Float64Array(m).fill(1));
+  const rowScale = scale ?? new Float64Array(m).fill(1);
+  const rows = Math.max(1, blockRows);
+  const blocks = Math.ceil(m / rows);
+  const out = sweepOutputs(m, k, blocks);
+  const sweep = new SweepRows(gram, m, k, valid, rowScale, pairShift(gram, m, valid, rowScale), out, rows);
   // One call per row rather than one long loop: the row's code is optimised like any function,
   // not by on-stack replacement part way through each call (which, under tsx, was thrown away
   // again at the end of every call).
-  for (let i = 0; i < m; i++) {
-    if (interrupt !== undefined && (i & 31) === 0) interrupt();
-    if (valid[i]) sweep.row(i);
-  }
-  return sweep.result();
+  for (let b = 0; b < blocks; b++) sweep.block(b, interrupt);
+  return reduceSweep(sweep, out, blocks);
 }
 
-/** measureSampleRows' state: the inputs, per-row scratch, and what the rows add up. */
-class RowSweep {
-  readonly knn: KnnLists;
+/**
+ * What the sweep leaves per row, and per block of rows, for reduceSweep to add up in row order:
+ * whatever thread computed a row, the sums come out the same. The arrays may be shared between
+ * threads (measures/shared-row-sweep.ts); every row writes all of its entries, an invalid row
+ * its "none" values.
+ */
+export interface SweepOutputs {
+  knn: KnnLists;
+  nnDist: Float64Array;
+  zScores: Float64Array;
+  contrast: Float64Array;
+  slack: Float64Array;
+  /** The row's mean distance to the others (NaN without others), for mean-to-nearest. */
+  rowMean: Float64Array;
+  rowMin: Float64Array;
+  /** The bin of the row's nearest similarity, −1 when it has none. */
+  nearBin: Int32Array;
+  /** How many values tied with the row's k-th score (tieAwareKOccurrence's group), 0 without a list. */
+  tieGroup: Int32Array;
+  /** Per block: the iid pair sums Σe and Σe² of its rows, side by side. */
+  blockPairs: Float64Array;
+  /** Per block: its rows' pair similarity histogram (SIMILARITY_BINS counts). */
+  blockBins: Float64Array;
+}
+
+/** Outputs of a sweep over m rows in `blocks` blocks (plain arrays; shared ones come from a SharedRowSweep). */
+export function sweepOutputs(m: number, k: number, blocks: number, buffer: (bytes: number) => ArrayBufferLike = (bytes) => new ArrayBuffer(bytes)): SweepOutputs {
+  const f64 = (n: number) => new Float64Array(buffer(8 * n));
+  const i32 = (n: number) => new Int32Array(buffer(4 * n));
+  return {
+    knn: { neighbors: new Uint32Array(buffer(4 * m * k)), sims: f64(m * k) },
+    nnDist: f64(m * k),
+    zScores: f64(m),
+    contrast: f64(m),
+    slack: f64(m),
+    rowMean: f64(m),
+    rowMin: f64(m),
+    nearBin: i32(m),
+    tieGroup: i32(m),
+    blockPairs: f64(2 * blocks),
+    blockBins: f64(SIMILARITY_BINS * blocks),
+  };
+}
+
+/**
+ * The shift of the iid dimension's pair sums: the mean distance of the first valid row (NaN when
+ * none), read before the sweep so that every block sums around the same value.
+ */
+export function pairShift(gram: Float64Array, m: number, valid: Uint8Array, rowScale: Float64Array): number {
+  const norms = squaredNorms(gram, m, rowScale);
+  for (let i = 0; i < m; i++) if (valid[i]) return firstRowMeanDistance(gram, i, m, valid, rowScale, norms);
+  return NaN;
+}
+
+/** Squared norms under the scale: 1 (or within rounding of it) for kept rows, 0 for empty ones. */
+function squaredNorms(gram: Float64Array, m: number, rowScale: Float64Array): Float64Array {
+  const norms = new Float64Array(m);
+  for (let i = 0; i < m; i++) norms[i] = gram[i * m + i]! * rowScale[i]! * rowScale[i]!;
+  return norms;
+}
+
+/**
+ * The per-row part of measureSampleRows: the inputs, per-row scratch, and where the rows write
+ * (`out`). Rows come in blocks of `blockRows` (block b: rows b·blockRows ..); a block's rows are
+ * swept in order and their iid pair sums run on from one row to the next, starting at 0 in each
+ * block, so a block's figures do not depend on which thread swept it or when.
+ */
+export class SweepRows {
   readonly bestScore: Float64Array;
   readonly bestPos: Uint32Array;
-  /** Squared norms under the scale: 1 (or within rounding of it) for kept rows, 0 for empty ones. */
   readonly norms: Float64Array;
   readonly tieScore: Float64Array;
   readonly tiePos: Uint32Array;
@@ -86,21 +159,8 @@ class RowSweep {
   readonly ranks = new Float64Array(2);
   readonly probe: Float64Array;
   readonly validTotal: number;
-  readonly zScores: Float64Array;
-  readonly pairBins: Float64Array;
-  readonly nearBins: number[];
-  readonly kOccurrence: Float64Array;
-  readonly contrast: Float64Array;
-  readonly slack: Float64Array;
-  readonly toNearest = meanToNearestSums();
-  readonly nnDist: Float64Array;
-  /**
-   * The iid dimension's pairs (j > i), summed as deviations from `shift`, the mean distance of
-   * the first valid row: Σe and Σe² give the mean and variance without a second pass.
-   */
-  readonly shift: number;
-  validSeen = 0;
-  pairCount = 0;
+  /** The current block's histogram and running pair sums (the iid dimension's, around `shift`). */
+  pairBins: Float64Array;
   pairSum = 0;
   pairSumSq = 0;
 
@@ -110,12 +170,14 @@ class RowSweep {
     readonly k: number,
     readonly valid: Uint8Array,
     readonly rowScale: Float64Array,
+    /** pairShift's value: Σe and Σe² give the pairs' mean and variance without a second pass. */
+    readonly shift: number,
+    readonly out: SweepOutputs,
+    readonly blockRows: number,
   ) {
-    this.knn = emptyKnnLists(m, k);
     this.bestScore = new Float64Array(k);
     this.bestPos = new Uint32Array(k);
-    this.norms = new Float64Array(m);
-    for (let i = 0; i < m; i++) this.norms[i] = gram[i * m + i]! * rowScale[i]! * rowScale[i]!;
+    this.norms = squaredNorms(gram, m, rowScale);
     this.tieScore = new Float64Array(m);
     this.tiePos = new Uint32Array(m);
     this.near = new Float64Array(m);
@@ -124,22 +186,45 @@ class RowSweep {
     let validTotal = 0;
     for (let i = 0; i < m; i++) if (valid[i]) validTotal++;
     this.validTotal = validTotal;
-    this.zScores = new Float64Array(m).fill(NaN);
-    this.pairBins = new Float64Array(SIMILARITY_BINS);
-    this.nearBins = new Array<number>(SIMILARITY_BINS).fill(0);
-    this.kOccurrence = new Float64Array(m);
-    this.contrast = new Float64Array(m).fill(NaN);
-    this.slack = new Float64Array(m).fill(NaN);
-    this.nnDist = new Float64Array(m * k).fill(NaN);
-    let shift = NaN;
-    for (let i = 0; i < m && Number.isNaN(shift); i++) if (valid[i]) shift = firstRowMeanDistance(gram, i, m, valid, rowScale, this.norms);
-    this.shift = shift;
+    this.pairBins = out.blockBins.subarray(0, SIMILARITY_BINS);
+  }
+
+  /** Block b's rows, in order, with their pair sums and histogram; `interrupt` as measureSampleRows'. */
+  block(b: number, interrupt?: () => void): void {
+    const first = b * this.blockRows;
+    const end = Math.min(this.m, first + this.blockRows);
+    this.pairBins = this.out.blockBins.subarray(b * SIMILARITY_BINS, (b + 1) * SIMILARITY_BINS);
+    this.pairBins.fill(0);
+    this.pairSum = 0;
+    this.pairSumSq = 0;
+    for (let i = first; i < end; i++) {
+      if (interrupt !== undefined && (i & 31) === 0) interrupt();
+      if (this.valid[i]) this.row(i);
+      else this.noRow(i);
+    }
+    this.out.blockPairs[2 * b] = this.pairSum;
+    this.out.blockPairs[2 * b + 1] = this.pairSumSq;
+  }
+
+  /** An invalid row's outputs: no neighbours, no figures. */
+  noRow(i: number): void {
+    const { out, k } = this;
+    out.knn.neighbors.fill(NO_NEIGHBOR, i * k, (i + 1) * k);
+    out.knn.sims.fill(NaN, i * k, (i + 1) * k);
+    out.nnDist.fill(NaN, i * k, (i + 1) * k);
+    out.zScores[i] = NaN;
+    out.contrast[i] = NaN;
+    out.slack[i] = NaN;
+    out.rowMean[i] = NaN;
+    out.rowMin[i] = NaN;
+    out.nearBin[i] = -1;
+    out.tieGroup[i] = 0;
   }
 
   /** Row i's part of every measure (i a valid row). */
   row(i: number): void {
-    const { gram, m, k, valid, rowScale, norms, bestScore, bestPos, tieScore, tiePos, near, validTotal, shift } = this;
-    const { knn, zScores, pairBins, nearBins, kOccurrence, contrast, slack, toNearest, nnDist } = this;
+    const { gram, m, k, valid, rowScale, norms, bestScore, bestPos, tieScore, near, validTotal, shift, pairBins, out } = this;
+    const { knn, zScores, contrast, slack, nnDist } = out;
     // Imports read once into locals: a module loader may reach them through getters (tsx's
     // does), which would cost a call per element in the loops below.
     const bins = SIMILARITY_BINS;
@@ -173,8 +258,7 @@ class RowSweep {
       const sq = ni + nj - 2 * s;
       const d = sq > samePoint * (ni + nj) ? Math.sqrt(sq) : 0;
       if (s >= keep) {
-        tieScore[ties] = s;
-        tiePos[ties++] = j;
+        tieScore[ties++] = s;
         if (filled < k || s > bar) {
           // nearestOfRow's rule: shift clearly worse entries down; equal scores stay ahead.
           let slot = filled < k ? filled++ : k - 1;
@@ -211,10 +295,14 @@ class RowSweep {
     }
     this.pairSum = eSum;
     this.pairSumSq = eSumSq;
-    this.validSeen++;
-    this.pairCount += validTotal - this.validSeen;
 
-    for (let r = 0; r < filled; r++) {
+    for (let r = 0; r < k; r++) {
+      if (r >= filled) {
+        knn.neighbors[i * k + r] = NO_NEIGHBOR;
+        knn.sims[i * k + r] = NaN;
+        nnDist[i * k + r] = NaN;
+        continue;
+      }
       const j = bestPos[r]!;
       knn.neighbors[i * k + r] = j;
       knn.sims[i * k + r] = bestScore[r]!;
@@ -223,37 +311,29 @@ class RowSweep {
       nnDist[i * k + r] = sq > samePoint * (ni + nj) ? Math.sqrt(sq) : 0;
     }
     const nearest = filled > 0 ? bestScore[0]! : NaN;
-    if (!Number.isNaN(nearest)) nearBins[binOfSimilarity(nearest, bins)]++;
+    out.nearBin[i] = Number.isNaN(nearest) ? -1 : binOfSimilarity(nearest, bins);
     contrast[i] = dMin > 0 && dMin < Infinity ? (dMax - dMin) / dMin : NaN;
-    if (others > 0) {
-      toNearest.sumMean += dSum / others;
-      toNearest.sumMin += dMin;
-      toNearest.queries++;
-    }
+    out.rowMean[i] = others > 0 ? dSum / others : NaN;
+    out.rowMin[i] = others > 0 ? dMin : NaN;
     // standout (standoutGivenSum): the z-score of the nearest similarity
+    zScores[i] = NaN;
     if (others >= 2 && !Number.isNaN(nearest)) {
       const mean = sum / others;
       const meanDev = devSum / others;
       const sd = Math.sqrt(Math.max(0, devSumSq / others - meanDev * meanDev));
       if (sd > 1e-12 * Math.max(1, Math.abs(mean))) zScores[i] = (nearest - mean) / sd;
     }
-    // N_k (addKOccurrenceOfRow): firm list entries count 1, the values tied with the k-th share the rest
+    // N_k's tie group (addKOccurrenceOfRow): the values tied with the k-th, counted here and
+    // added up by reduceSweep in row order
+    let group = 0;
     if (filled > 0) {
       const last = bestScore[filled - 1]!;
       const tol = tieTolerance * Math.max(1, Math.abs(last));
-      let firm = 0;
-      for (let r = 0; r < filled; r++) {
-        if (Math.abs(bestScore[r]! - last) <= tol) continue;
-        kOccurrence[bestPos[r]!] += 1;
-        firm++;
-      }
-      let group = 0;
-      for (let g = 0; g < ties; g++) if (Math.abs(tieScore[g]! - last) <= tol) tiePos[group++] = tiePos[g]!;
-      const slots = filled - firm;
-      const share = slots / Math.max(group, slots);
-      for (let g = 0; g < group; g++) kOccurrence[tiePos[g]!] += share;
+      for (let g = 0; g < ties; g++) if (Math.abs(tieScore[g]! - last) <= tol) group++;
     }
+    out.tieGroup[i] = group;
     // radius slack (radiusSlackPerQuery): the k-th and the 10k-th smallest distance of the row
+    slack[i] = NaN;
     if (others >= k) {
       const far = Math.min(10 * k, others);
 
@@ -264,21 +344,90 @@ class RowSweep {
       slack[i] = rK > 0 ? (rFar - rK) / rK : NaN;
     }
   }
+}
 
-  result(): SampleRowMeasures {
-    return {
-      knn: this.knn,
-      kOccurrence: this.kOccurrence,
-      standout: medianStandout(this.zScores),
-      standoutPerQuery: this.zScores,
-      similarity: { start: 0, binWidth: 1 / SIMILARITY_BINS, pairs: Array.from(this.pairBins), nearest: this.nearBins },
-      contrast: contrastSummary(this.contrast),
-      meanToNearest: meanToNearestOf(this.toNearest),
-      iidEquivalentDimension: iidDimensionOfCv(shiftedCv(this.pairSum, this.pairSumSq, this.pairCount, this.shift)),
-      radiusSlack: radiusSlackSummary(this.slack),
-      nnDist: this.nnDist,
-    };
+/**
+ * The rows' outputs added up in row order (and the blocks' in block order): the sums of N_k,
+ * mean-to-nearest and the iid dimension, the histograms, and each measure's summary. N_k as
+ * addKOccurrenceOfRow adds it: a row's firm list entries count 1 and the values tied with its
+ * k-th place share the remaining slots. When they are no more than those slots they are the
+ * list's own tied entries (each candidate the sweep kept aside is in the list or beyond it), so
+ * each list entry counts 1; otherwise the row is read again for them (tiedPositions).
+ */
+export function reduceSweep(sweep: SweepRows, out: SweepOutputs, blocks: number): SampleRowMeasures {
+  const { m, k, valid, validTotal } = sweep;
+  const { knn, tieGroup } = out;
+  const kOccurrence = new Float64Array(m);
+  const nearBins = new Array<number>(SIMILARITY_BINS).fill(0);
+  const toNearest = meanToNearestSums();
+  let validSeen = 0;
+  let pairCount = 0;
+  for (let i = 0; i < m; i++) {
+    if (!valid[i]) continue;
+    validSeen++;
+    pairCount += validTotal - validSeen;
+    if (out.nearBin[i]! >= 0) nearBins[out.nearBin[i]!]++;
+    if (!Number.isNaN(out.rowMean[i]!)) {
+      toNearest.sumMean += out.rowMean[i]!;
+      toNearest.sumMin += out.rowMin[i]!;
+      toNearest.queries++;
+    }
+    let filled = 0;
+    while (filled < k && knn.neighbors[i * k + filled] !== NO_NEIGHBOR) filled++;
+    if (filled === 0) continue;
+    const last = knn.sims[i * k + filled - 1]!;
+    const tol = TIE_TOLERANCE * Math.max(1, Math.abs(last));
+    let firm = 0;
+    for (let r = 0; r < filled; r++) if (!(Math.abs(knn.sims[i * k + r]! - last) <= tol)) firm++;
+    const slots = filled - firm;
+    const group = tieGroup[i]!;
+    if (group <= slots) {
+      for (let r = 0; r < filled; r++) kOccurrence[knn.neighbors[i * k + r]!] += 1;
+      continue;
+    }
+    for (let r = 0; r < filled; r++) if (!(Math.abs(knn.sims[i * k + r]! - last) <= tol)) kOccurrence[knn.neighbors[i * k + r]!] += 1;
+    const share = slots / group;
+    for (const j of tiedPositions(sweep, i, last, tol)) kOccurrence[j] += share;
   }
+  let pairSum = 0;
+  let pairSumSq = 0;
+  const pairBins = new Float64Array(SIMILARITY_BINS);
+  for (let b = 0; b < blocks; b++) {
+    // One block (the Report's sweep): its running sums as they are, not added to a zero.
+    pairSum = b === 0 ? out.blockPairs[0]! : pairSum + out.blockPairs[2 * b]!;
+    pairSumSq = b === 0 ? out.blockPairs[1]! : pairSumSq + out.blockPairs[2 * b + 1]!;
+    for (let c = 0; c < SIMILARITY_BINS; c++) pairBins[c] += out.blockBins[b * SIMILARITY_BINS + c]!;
+  }
+  return {
+    knn: { neighbors: knn.neighbors.slice(), sims: knn.sims.slice() },
+    kOccurrence,
+    standout: medianStandout(out.zScores),
+    standoutPerQuery: out.zScores.slice(),
+    similarity: { start: 0, binWidth: 1 / SIMILARITY_BINS, pairs: Array.from(pairBins), nearest: nearBins },
+    contrast: contrastSummary(out.contrast),
+    meanToNearest: meanToNearestOf(toNearest),
+    iidEquivalentDimension: iidDimensionOfCv(shiftedCv(pairSum, pairSumSq, pairCount, sweep.shift)),
+    radiusSlack: radiusSlackSummary(out.slack),
+    nnDist: out.nnDist.slice(),
+  };
+}
+
+/**
+ * The positions of row i whose score is within `tol` of `last`, ascending: the group the sweep
+ * counted. It kept aside each score at least 4·tol below the k-th score of the moment, which only
+ * rises to `last`, so every score within tol of `last` was kept aside, and these are the same.
+ */
+function tiedPositions(sweep: SweepRows, i: number, last: number, tol: number): number[] {
+  const { gram, m, valid, rowScale } = sweep;
+  const base = i * m;
+  const si = rowScale[i]!;
+  const tied: number[] = [];
+  for (let j = 0; j < m; j++) {
+    if (j === i || !valid[j]) continue;
+    const s = gram[base + j]! * si * rowScale[j]!;
+    if (Math.abs(s - last) <= tol) tied.push(j);
+  }
+  return tied;
 }
 
 /** How many value ranges twoRanks counts in. */

@@ -9,6 +9,7 @@ import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { termSums } from '../measures/term-sums';
 import { IncrementalGram } from './incremental-gram';
 import { IncrementalTermSums, sameMask } from './incremental-term-sums';
+import { WHAT_IF_BLOCK_ROWS } from './sample-side';
 
 export type DistanceResult = ReturnType<typeof measureDistances>;
 
@@ -113,7 +114,7 @@ export class DistanceLab {
   whatIf(removed: Uint8Array, baselineNeighbors: Uint32Array | null): Measures {
     const exact = this.whatIfExact(removed);
     const { dots, scale } = this.gram.scaled(removed, true);
-    const sampled = sampledMeasures({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, gram: dots, rowScale: scale });
+    const sampled = sampledMeasures({ k: this.k, seed: this.seed, labels: this.sampleLabels, baselineNeighbors, gram: dots, rowScale: scale, blockRows: WHAT_IF_BLOCK_ROWS });
     return joinMeasures(sampled.measures, exact);
   }
 

@@ -40,14 +40,19 @@ export class IncrementalGram {
   private settleDue = false;
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; pairs: number } = { kind: 'unchanged', pairs: 0 };
 
-  constructor(readonly rows: Csr) {
+  constructor(
+    readonly rows: Csr,
+    /** Where D and the row scales live (m×m and m entries; shared memory for SampleSide), else new arrays. */
+    storage?: { dots: Float64Array; scale: Float64Array },
+  ) {
     const m = rows.rows;
     this.m = m;
     let longest = 0;
     for (let i = 0; i < m; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
-    this.dots = new Float64Array(m * m);
+    if (storage !== undefined && (storage.dots.length !== m * m || storage.scale.length !== m)) throw new RangeError(`IncrementalGram: storage is not for ${m} rows`);
+    this.dots = storage?.dots ?? new Float64Array(m * m);
     this.shared = longest < 0xffff ? new Uint16Array(m * m) : new Uint32Array(m * m);
-    this.inv = new Float64Array(m);
+    this.inv = storage?.scale ?? new Float64Array(m);
     this.mask = new Uint8Array(rows.cols);
 
     const cols = rows.cols;
@@ -94,12 +99,12 @@ export class IncrementalGram {
   }
 
   /**
-   * A second state over the same rows, sharing the checkpoints: the what-if's speculative
+   * A second state over the same rows (in `storage` if given), sharing the checkpoints: the what-if's speculative
    * answers are computed in it (copyFrom, then scaled) so that the state the clicks walk is left
    * as it was, and adopted by swapping the two (SampleSide).
    */
-  twin(): IncrementalGram {
-    const twin = new IncrementalGram(this.rows);
+  twin(storage?: { dots: Float64Array; scale: Float64Array }): IncrementalGram {
+    const twin = new IncrementalGram(this.rows, storage);
     twin.checkpoints = this.checkpoints;
     return twin;
   }

@@ -2,9 +2,11 @@ import type { Worker } from 'node:worker_threads';
 import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
 import { joinMeasures, type SampledFields } from '../measures/measure-distances';
+import { SharedRowSweep } from '../measures/shared-row-sweep';
 import { PendingReplies } from '../threads/pending-replies';
 import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
+import { WHAT_IF_BLOCK_ROWS } from './sample-side';
 import { SpeculationStopped, stopOnClick } from './speculation-stopped';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
@@ -12,9 +14,13 @@ import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thre
  * The panel's what-if on two threads: the sample's half (the kept dot products of the sampled
  * rows and every measure read off them, SampleSide) runs on a worker thread of its own
  * (sample-thread.ts) while this thread updates the exact sums of the whole corpus (DistanceLab).
- * The two halves share no input, so a toggle costs the longer of the two instead of their sum.
+ * The two halves share no input, so a toggle costs the longer of the two instead of their sum;
+ * and the sample's half is the longer (its sweep over the m×m products), so once the exact sums
+ * are done this thread takes blocks of that sweep's rows too (SharedRowSweep: the thread keeps
+ * its products in shared memory and opens each sweep under the request's number).
  * The answers are DistanceLab.whatIf's, bit for bit: the thread's SampleSide walks the same
- * masks in the same order as the lab's own dot products would (test/what-if-parallel.test.ts).
+ * masks in the same order as the lab's own dot products would, and the sweep sums in the same
+ * blocks whichever thread swept them (test/what-if-parallel.test.ts).
  * If the thread fails, the lab answers in this thread from then on.
  */
 export class ParallelWhatIf {
@@ -24,10 +30,14 @@ export class ParallelWhatIf {
   /** Settles when the thread has built the opening state (or failed to). */
   opened: Promise<void> = Promise.resolve();
 
+  /** Blocks of the sample's sweeps this thread swept, for the tests and the benchmark. */
+  helpedBlocks = 0;
+
   private constructor(
     private readonly lab: DistanceLab,
     private readonly baselineNeighbors: Uint32Array | null,
     private readonly worker: Worker,
+    private readonly sweep: SharedRowSweep,
   ) {
     worker.on('message', (reply: SampleReply) => {
       if (reply.measures !== null) this.replies.resolve(reply.seq, reply.measures);
@@ -49,10 +59,11 @@ export class ParallelWhatIf {
   static open(lab: DistanceLab, baselineNeighbors: Uint32Array | null, opening: Uint8Array, script: string | null = threadScript(__dirname, 'what-if-thread.js', 'sample-thread.ts')): ParallelWhatIf | null {
     if (script === null) return null;
     const { rows, cols, indptr, indices, data } = lab.sampleRows;
-    const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors };
-    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }));
+    const sweep = SharedRowSweep.create(rows, lab.k, WHAT_IF_BLOCK_ROWS);
+    const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors, sweep: sweep.buffers };
+    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }), sweep);
     // A failure shows again on the first toggle, which then falls back.
-    parallel.opened = parallel.request(opening, true).then(
+    parallel.opened = parallel.request(opening, true).reply.then(
       () => undefined,
       () => undefined,
     );
@@ -62,10 +73,11 @@ export class ParallelWhatIf {
   /** Measures with the column mask `removed` stopped (DistanceLab.whatIf's, reached on two threads). */
   async whatIf(removed: Uint8Array): Promise<Measures> {
     if (this.replies.failure !== null) return this.lab.whatIf(removed, this.baselineNeighbors);
-    // Posted first, so the thread works while this one sums.
-    const sampled = this.request(removed, false);
+    // Posted first, so the thread works while this one sums, then helps it sweep.
+    const { reply: sampled, ticket } = this.request(removed, false, false, true);
     const exact = this.lab.whatIfExact(removed);
     try {
+      await this.help(ticket, sampled);
       const measures = joinMeasures(await sampled, exact);
       this.threadAnswers++;
       return measures;
@@ -88,9 +100,11 @@ export class ParallelWhatIf {
   async speculate(removed: Uint8Array, clicks?: Int32Array): Promise<Measures | null> {
     if (this.replies.failure !== null) return null;
     const seen = clicks === undefined ? 0 : Atomics.load(clicks, 0);
-    const sampled = this.request(removed, false, clicks === undefined ? true : { counter: clicks, seen }).catch(() => null);
+    const { reply, ticket } = this.request(removed, false, clicks === undefined ? true : { counter: clicks, seen }, true);
+    const sampled = reply.catch(() => null);
     try {
       const exact = this.lab.speculateExact(removed, clicks === undefined ? undefined : stopOnClick(clicks, seen));
+      await this.help(ticket, sampled);
       const half = await sampled;
       return half === null ? null : joinMeasures(half, exact);
     } catch (e) {
@@ -125,19 +139,66 @@ export class ParallelWhatIf {
     await this.worker.terminate();
   }
 
-  private request(removed: Uint8Array, full: boolean, speculative: boolean | { counter: Int32Array; seen: number } = false): Promise<SampledFields> {
-    return this.replies.request((seq) => {
+  /**
+   * Posts a request; with `helped`, its sweep is opened to this thread under the request's
+   * number (`ticket`, 0 when nothing was posted), for help().
+   */
+  private request(
+    removed: Uint8Array,
+    full: boolean,
+    speculative: boolean | { counter: Int32Array; seen: number } = false,
+    helped = false,
+  ): { reply: Promise<SampledFields>; ticket: number } {
+    let ticket = 0;
+    const reply = this.replies.request((seq) => {
       const request: SampleRequest =
         speculative === false ? { seq, removed, full } : speculative === true ? { seq, removed, full, speculative: true } : { seq, removed, full, speculative: true, clicks: speculative };
+      if (helped) {
+        request.ticket = seq;
+        ticket = seq;
+      }
       this.worker.postMessage(request);
       this.worker.ref();
     });
+    return { reply, ticket };
+  }
+
+  /**
+   * This thread's share of sweep `ticket`: waits (without blocking this thread) until the
+   * thread opens it, then sweeps blocks of rows until none is left. Returns at once when the
+   * sweep is already over, and as soon as `reply` settles (the thread answered or failed
+   * without opening it: an error, a prefetch stopped before its sweep).
+   */
+  private async help(ticket: number, reply: Promise<unknown>): Promise<void> {
+    if (ticket === 0) return;
+    let settled = false;
+    const over = reply.then(
+      () => (settled = true),
+      () => (settled = true),
+    );
+    const { array, index } = this.sweep.openedWord;
+    for (;;) {
+      const opened = Atomics.load(array, index);
+      if (opened === ticket) {
+        this.helpedBlocks += this.sweep.help(ticket);
+        return;
+      }
+      if (opened > ticket || settled || this.replies.failure !== null) return;
+      // Bounded, so that no wait outlives the request by much.
+      const wait = waitAsync(array, index, opened, 50);
+      if (wait.async) await Promise.race([wait.value, over]);
+    }
   }
 
   private fail(e: Error): void {
     this.replies.fail(e);
     this.worker.unref();
   }
+}
+
+/** Atomics.waitAsync (ES2024; in Node since 16), typed here as the ES2022 library does not. */
+function waitAsync(array: Int32Array, index: number, value: number, timeoutMs: number): { async: false; value: string } | { async: true; value: Promise<string> } {
+  return (Atomics as unknown as { waitAsync: typeof waitAsync }).waitAsync(array, index, value, timeoutMs);
 }
 
 /** Toggle-and-undo pairs of the warm-up: the bench's clicks settle by about the fourth. */

@@ -1,5 +1,6 @@
 import type { Csr } from '../matrix/csr';
 import { sampledMeasures, type SampledFields } from '../measures/measure-distances';
+import { SharedRowSweep, type SharedRowSweepBuffers } from '../measures/shared-row-sweep';
 import { IncrementalGram } from './incremental-gram';
 import { sameMask } from './incremental-term-sums';
 
@@ -13,7 +14,21 @@ export interface SampleSideInput {
   labels: Int32Array | null;
   /** The baseline's neighbours on the same sample and k (for the neighbour turnover). */
   baselineNeighbors: Uint32Array | null;
+  /**
+   * Shared memory for the sweep over the dot products (SharedRowSweep.create(m, k,
+   * WHAT_IF_BLOCK_ROWS)), so that another thread can take part in it: the dot products live
+   * there. Without it everything stays in this thread; the answers are the same bits.
+   */
+  sweep?: SharedRowSweepBuffers;
 }
+
+/**
+ * Rows per block of the what-if's sweep over the sample's products (measureSampleRows): the unit
+ * two threads share it in, so the one-thread answer (DistanceLab.whatIf) sums in the same blocks.
+ * 16 rows at m = 2,000 are ~1 ms of work: small enough that neither thread waits long for the
+ * other's last block. A choice of ours, no source.
+ */
+export const WHAT_IF_BLOCK_ROWS = 16;
 
 /**
  * The sample's half of a what-if: the kept dot products of the sampled rows (IncrementalGram,
@@ -29,23 +44,27 @@ export class SampleSide {
   /** The latest speculative answer and its mask, computed from the current state: every call to measures drops it. */
   private speculation: { mask: Uint8Array; measures: SampledFields } | null = null;
 
+  private readonly shared: SharedRowSweep | null;
+
   constructor(private readonly input: SampleSideInput) {
-    this.gram = new IncrementalGram(input.rows);
+    this.shared = input.sweep !== undefined ? SharedRowSweep.from(input.sweep) : null;
+    this.gram = new IncrementalGram(input.rows, this.shared?.state(0));
   }
 
   /**
    * The sampled Measures with `removed` stopped; `incremental` as in IncrementalGram.scaled. An
    * incremental call for the mask of the latest speculation, with no call between them, adopts
-   * the speculation's state and answer (see speculate).
+   * the speculation's state and answer (see speculate). With a `ticket` (above every earlier
+   * one) the sweep is opened to a helping thread under it (SharedRowSweep).
    */
-  measures(removed: Uint8Array, incremental = true): SampledFields {
+  measures(removed: Uint8Array, incremental = true, ticket?: number): SampledFields {
     const held = this.speculation;
     this.speculation = null;
     if (incremental && held !== null && this.spare !== null && held.mask.length === removed.length && sameMask(removed, held.mask)) {
       [this.gram, this.spare] = [this.spare, this.gram];
       return held.measures;
     }
-    return this.read(this.gram, removed, incremental);
+    return this.read(this.gram, removed, incremental, undefined, ticket);
   }
 
   /**
@@ -55,11 +74,11 @@ export class SampleSide {
    * The copy costs one pass over the m×m products (idle time: no click waits for it).
    * `interrupt` is called every few rows and throws to abandon it (a click came).
    */
-  speculate(removed: Uint8Array, interrupt?: () => void): SampledFields {
+  speculate(removed: Uint8Array, interrupt?: () => void, ticket?: number): SampledFields {
     this.speculation = null;
-    const spare = (this.spare ??= this.gram.twin());
+    const spare = (this.spare ??= this.gram.twin(this.shared?.state(1)));
     spare.copyFrom(this.gram);
-    const measures = this.read(spare, removed, true, interrupt);
+    const measures = this.read(spare, removed, true, interrupt, ticket);
     this.speculation = { mask: removed.slice(), measures };
     return measures;
   }
@@ -69,9 +88,10 @@ export class SampleSide {
     this.gram.settle();
   }
 
-  private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean, interrupt?: () => void): SampledFields {
+  private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean, interrupt?: () => void, ticket?: number): SampledFields {
     const { dots, scale } = gram.scaled(removed, incremental, interrupt);
     const { k, seed, labels, baselineNeighbors } = this.input;
-    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale, ...(interrupt === undefined ? {} : { interrupt }) }).measures;
+    const shared = ticket !== undefined && this.shared !== null ? { shared: { sweep: this.shared, ticket } } : {};
+    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale, blockRows: WHAT_IF_BLOCK_ROWS, ...(interrupt === undefined ? {} : { interrupt }), ...shared }).measures;
   }
 }

@@ -19,6 +19,11 @@ export interface SampleRequest {
    * prefetch was asked; the thread abandons the prefetch once it moves (stopOnClick).
    */
   clicks?: { counter: Int32Array; seen: number };
+  /**
+   * Open the sweep to the review's thread under this ticket (above every earlier one): it takes
+   * blocks of rows once its own half is done (SharedRowSweep).
+   */
+  ticket?: number;
 }
 
 /** Sample thread → review thread: the answer to request `seq`, or why there is none. */

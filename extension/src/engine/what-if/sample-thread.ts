@@ -16,7 +16,8 @@ port.on('message', (request: SampleRequest) => {
   let reply: SampleReply;
   try {
     const interrupt = request.clicks === undefined ? undefined : stopOnClick(request.clicks.counter, request.clicks.seen);
-    reply = { seq: request.seq, measures: request.speculative === true ? side.speculate(request.removed, interrupt) : side.measures(request.removed, !request.full), error: null };
+    const measures = request.speculative === true ? side.speculate(request.removed, interrupt, request.ticket) : side.measures(request.removed, !request.full, request.ticket);
+    reply = { seq: request.seq, measures, error: null };
   } catch (e) {
     reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }

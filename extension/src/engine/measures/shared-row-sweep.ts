@@ -1,0 +1,201 @@
+import { pairShift, reduceSweep, SweepRows, sweepOutputs, type SampleRowMeasures, type SweepOutputs } from './measure-sample-rows';
+
+/** The shared memory of a SharedRowSweep, to post to the thread that helps. */
+export interface SharedRowSweepBuffers {
+  m: number;
+  k: number;
+  blockRows: number;
+  control: SharedArrayBuffer;
+  shift: SharedArrayBuffer;
+  valid: SharedArrayBuffer;
+  /** The sweep's outputs (sweepOutputs' arrays, in its order), one buffer each. */
+  outputs: SharedArrayBuffer[];
+  /** The inputs a sweep may read: dot products (m×m) and row scales (m), one pair per state. */
+  grams: Array<{ dots: SharedArrayBuffer; scale: SharedArrayBuffer }>;
+}
+
+// Slots of the control array.
+/** (ticket & 0x7fff)·2^16 + the next block to claim: a claim and the sweep it is for in one word. */
+const CLAIM = 0;
+/** Blocks finished in the open sweep. */
+const DONE = 1;
+/** The ticket of the latest sweep opened. */
+const OPENED = 2;
+/** Which pair of `grams` the open sweep reads. */
+const GRAM = 3;
+/** Set by a helper whose block failed: the owner then sweeps every block again itself. */
+const FAILED = 4;
+const CONTROL_SLOTS = 5;
+
+/**
+ * One sweep of the sampled measures (measureSampleRows' rows, in blocks) shared by two threads:
+ * the owner (the what-if's sample thread) opens it under a ticket once its dot products are up
+ * to date, and it and a helper (the review's thread, once its exact sums are done) claim blocks
+ * of rows one at a time from a counter in shared memory until none is left. Each block writes
+ * its own rows' outputs and its own partial sums, and the owner adds them up in row order
+ * (reduceSweep) once every claimed block is done, so the answer is the same bits whoever swept
+ * which block, and the same as one thread sweeping every block (measureSampleRows with the same
+ * blockRows). Blocks are claimed with a compare-and-swap on one word holding the ticket and the
+ * next block, so a helper late for its sweep can never claim a block of the next one.
+ */
+export class SharedRowSweep {
+  private readonly control: Int32Array;
+  private readonly shift: Float64Array;
+  private readonly valid: Uint8Array;
+  private readonly out: SweepOutputs;
+  private readonly grams: Array<{ dots: Float64Array; scale: Float64Array }>;
+  readonly blocks: number;
+
+  private constructor(readonly buffers: SharedRowSweepBuffers) {
+    const { m, k, blockRows } = buffers;
+    this.control = new Int32Array(buffers.control);
+    this.shift = new Float64Array(buffers.shift);
+    this.valid = new Uint8Array(buffers.valid);
+    this.blocks = Math.ceil(m / blockRows);
+    const given = [...buffers.outputs];
+    this.out = sweepOutputs(m, k, this.blocks, () => given.shift()!);
+    this.grams = buffers.grams.map((g) => ({ dots: new Float64Array(g.dots), scale: new Float64Array(g.scale) }));
+  }
+
+  /** Shared memory for sweeps over m rows and k neighbours, reading one of `states` m×m states. */
+  static create(m: number, k: number, blockRows: number, states = 2): SharedRowSweep {
+    if (!(blockRows >= 1) || Math.ceil(m / blockRows) >= 0x10000) throw new RangeError(`SharedRowSweep: ${m} rows in blocks of ${blockRows}`);
+    const outputs: SharedArrayBuffer[] = [];
+    sweepOutputs(m, k, Math.ceil(m / blockRows), (bytes) => {
+      const b = new SharedArrayBuffer(bytes);
+      outputs.push(b);
+      return b;
+    });
+    const grams = Array.from({ length: states }, () => ({ dots: new SharedArrayBuffer(8 * m * m), scale: new SharedArrayBuffer(8 * m) }));
+    return new SharedRowSweep({
+      m,
+      k,
+      blockRows,
+      control: new SharedArrayBuffer(4 * CONTROL_SLOTS),
+      shift: new SharedArrayBuffer(8),
+      valid: new SharedArrayBuffer(m),
+      outputs,
+      grams,
+    });
+  }
+
+  /** The same shared memory seen from another thread. */
+  static from(buffers: SharedRowSweepBuffers): SharedRowSweep {
+    return new SharedRowSweep(buffers);
+  }
+
+  /** State `index`'s dot products and row scales, for the owner to keep its state in. */
+  state(index: number): { dots: Float64Array; scale: Float64Array } {
+    return this.grams[index]!;
+  }
+
+  /** Which state `dots` is (−1 when it is not in this shared memory). */
+  stateOf(dots: Float64Array): number {
+    return this.grams.findIndex((g) => g.dots.buffer === dots.buffer);
+  }
+
+  /** The ticket of the latest sweep opened (0 before the first). */
+  get opened(): number {
+    return Atomics.load(this.control, OPENED);
+  }
+
+  /** The control word the ticket of the latest sweep is in, for Atomics.wait/waitAsync on it. */
+  get openedWord(): { array: Int32Array; index: number } {
+    return { array: this.control, index: OPENED };
+  }
+
+  /**
+   * The owner's sweep under `ticket` (> the previous one) of the state `gram`, `rowScale` (both
+   * one of `state`'s): measureSampleRows' answer with these blockRows, to the bit. `interrupt` is
+   * called before each claim; when it throws, no block is claimed any more and the throw goes on
+   * once the helper's block is done.
+   */
+  sweep(ticket: number, gram: Float64Array, rowScale: Float64Array | undefined, valid: Uint8Array, interrupt?: () => void): SampleRowMeasures {
+    const { control, buffers } = this;
+    const index = this.stateOf(gram);
+    const { dots, scale } = this.grams[index] ?? {};
+    if (dots === undefined || scale === undefined || rowScale === undefined || rowScale.buffer !== scale.buffer) throw new Error('SharedRowSweep: the dot products and scales are not one of its states');
+    this.valid.set(valid);
+    this.shift[0] = pairShift(dots, buffers.m, this.valid, scale);
+    Atomics.store(control, DONE, 0);
+    Atomics.store(control, FAILED, 0);
+    Atomics.store(control, GRAM, index);
+    Atomics.store(control, CLAIM, claimWord(ticket, 0));
+    Atomics.store(control, OPENED, ticket);
+    Atomics.notify(control, OPENED);
+    const rows = this.rows(index);
+    try {
+      for (;;) {
+        // Before the claim: a block claimed is always swept.
+        interrupt?.();
+        const b = this.claim(ticket);
+        if (b < 0) break;
+        rows.block(b);
+        Atomics.add(control, DONE, 1);
+      }
+    } finally {
+      // No more claims; then wait for the blocks the helper still sweeps.
+      const claimed = this.close(ticket);
+      for (let done = Atomics.load(control, DONE); done < claimed; done = Atomics.load(control, DONE)) Atomics.wait(control, DONE, done, 1000);
+    }
+    if (Atomics.load(control, FAILED) !== 0) for (let b = 0; b < this.blocks; b++) rows.block(b);
+    return reduceSweep(rows, this.out, this.blocks);
+  }
+
+  /**
+   * The helper's part of sweep `ticket`, if it is the one open: blocks claimed and swept until
+   * none is left. Returns how many it swept (0 when that sweep is over or not open).
+   */
+  help(ticket: number): number {
+    const { control } = this;
+    if (Atomics.load(control, OPENED) !== ticket) return 0;
+    let swept = 0;
+    let rows: SweepRows | null = null;
+    for (let b = this.claim(ticket); b >= 0; b = this.claim(ticket)) {
+      try {
+        // Read only once a block is claimed: until then the owner may still be writing them.
+        rows ??= this.rows(Atomics.load(control, GRAM));
+        rows.block(b);
+        swept++;
+      } catch {
+        Atomics.store(control, FAILED, 1);
+      } finally {
+        Atomics.add(control, DONE, 1);
+        Atomics.notify(control, DONE);
+      }
+    }
+    return swept;
+  }
+
+  private rows(index: number): SweepRows {
+    const { dots, scale } = this.grams[index]!;
+    const { m, k, blockRows } = this.buffers;
+    return new SweepRows(dots, m, k, this.valid, scale, this.shift[0]!, this.out, blockRows);
+  }
+
+  /** The next block of sweep `ticket`, claimed; −1 when none is left or another sweep is open. */
+  private claim(ticket: number): number {
+    const { control, blocks } = this;
+    for (;;) {
+      const word = Atomics.load(control, CLAIM);
+      if (word >>> 16 !== (ticket & 0x7fff)) return -1;
+      const next = word & 0xffff;
+      if (next >= blocks) return -1;
+      if (Atomics.compareExchange(control, CLAIM, word, word + 1) === word) return next;
+    }
+  }
+
+  /** Stops the claims of sweep `ticket`; returns how many blocks were claimed. */
+  private close(ticket: number): number {
+    const { control, blocks } = this;
+    for (;;) {
+      const word = Atomics.load(control, CLAIM);
+      const next = Math.min(word & 0xffff, blocks);
+      if (Atomics.compareExchange(control, CLAIM, word, claimWord(ticket, blocks)) === word) return next;
+    }
+  }
+}
+
+function claimWord(ticket: number, next: number): number {
+  return (ticket & 0x7fff) * 0x10000 + next;
+}
