@@ -41,7 +41,9 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
     for (const c of m.columns) removed[c] = 1;
     return { id: m.id, ...encodeSums(maskedTermSums(weights, removed, true)) };
   });
-  const neighbors = (plan.neighbors ?? []).map((r) => shardNeighbors(r, plan, settings, weights, known.offset, built.labels));
+  const requests = plan.neighbors ?? [];
+  const queries = requests.length > 0 ? { rows: planSampleRows(plan, settings), docs: Uint32Array.from(plan.sample.docs) } : null;
+  const neighbors = requests.map((r) => shardNeighbors(r, plan.terms.length, queries!, weights, known.offset, built.labels));
   let full: EncodedSums | null = null;
   let countStats: EncodedCountStats | null = null;
   const previews: Array<{ doc: number; preview: string }> = [];
@@ -61,11 +63,11 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
  * process runs over the whole corpus, here over documents offset … offset + rows − 1), with the
  * label of each document listed: the finish merges the shards' lists (sharded-search.ts).
  */
-function shardNeighbors(request: NeighborRequest, plan: PlanPartial, settings: EffectiveSettings, weights: Csr, offset: number, labels: readonly (string | null)[] | null): EncodedNeighbors {
-  const removed = new Uint8Array(plan.terms.length);
+function shardNeighbors(request: NeighborRequest, cols: number, queries: { rows: Csr; docs: Uint32Array }, weights: Csr, offset: number, labels: readonly (string | null)[] | null): EncodedNeighbors {
+  const removed = new Uint8Array(cols);
   for (const c of request.columns) removed[c] = 1;
   const candidates = searchCandidates(request, offset, weights.rows);
-  const lists = corpusNeighbors(planSampleRows(plan, settings), Uint32Array.from(plan.sample.docs), weights, offset, removed, request.k, candidates);
+  const lists = corpusNeighbors(queries.rows, queries.docs, weights, offset, removed, request.k, candidates);
   const listed = Array.from(lists.docs, (d) => (d === NO_NEIGHBOR || labels === null ? null : (labels[d - offset] ?? null)));
   return { id: request.id, docs: encodeUint32(lists.docs), sims: encodeFloat64(lists.sims), labels: listed };
 }
