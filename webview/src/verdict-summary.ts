@@ -11,7 +11,10 @@ export const TOP_TERMS = 5;
 
 export function renderVerdictSummary(report: Report): HTMLElement {
   const children: Child[] = [];
-  if (report.verdict) children.push(...renderVerdict(report.verdict));
+  // The judgement and its reasons, then the loudest terms, then the caveats: at the default
+  // panel height the caveats, the longest part, are what scrolls out of view.
+  const verdict = report.verdict ? renderVerdict(report.verdict) : null;
+  if (verdict !== null) children.push(...verdict.lead);
   const top = report.terms.filter((t) => t.status !== 'stopped').slice(0, TOP_TERMS);
   if (top.length > 0) {
     const items: Child[] = [];
@@ -21,23 +24,28 @@ export function renderVerdictSummary(report: Report): HTMLElement {
     });
     children.push(el('p', { className: 'lw-top' }, [el('span', { className: 'lw-top__label', text: 'Loudest terms, loudest first (each with its share of all-pair similarity): ' }), ...items]));
   }
+  if (verdict !== null && verdict.caveats !== null) children.push(verdict.caveats);
   return el('div', { className: 'lw-verdict', attrs: { 'data-outcome': report.verdict?.outcome ?? 'none' } }, children);
 }
 
-function renderVerdict(v: Verdict): Child[] {
-  const out: Child[] = [el('p', { className: 'lw-verdict__headline', text: v.headline })];
+/** The verdict's judgement (the estimate, when there is one) and its headline; its caveats apart. */
+function renderVerdict(v: Verdict): { lead: Child[]; caveats: HTMLElement | null } {
+  const out: Child[] = [];
   if (v.estimate) {
     // The one judgement first (the CLI leads with the same words), then the figure it rests on,
     // with the digits the headline uses: three for a precision, two for neighbour standout.
     const e = v.estimate;
     const digits = /precision/i.test(e.measure) ? 3 : 2;
-    const signed = (x: number) => `${x > 0 ? '+' : ''}${x.toFixed(digits)}`;
+    // A true minus sign, as the headline writes it.
+    const signed = (x: number) => `${x > 0 ? '+' : x < 0 ? '−' : ''}${Math.abs(x).toFixed(digits)}`;
     const judged = v.outcome === 'helps' ? 'The suggested list helps' : v.outcome === 'hurts' ? 'The suggested list hurts' : 'No clear change';
     const spread = e.method === 'seeds' ? `${signed(e.low)} to ${signed(e.high)} over ${e.draws} re-drawn samples` : `95% interval ${signed(e.low)} to ${signed(e.high)}, ${e.draws} bootstrap draws`;
     out.push(el('p', { className: 'lw-verdict__estimate', text: `${judged}: ${e.measure} ${signed(e.change)} (${spread}).` }));
   }
-  if (v.caveats.length > 0) {
-    out.push(el('ul', { className: 'lw-verdict__caveats' }, v.caveats.map((c) => el('li', {}, [el('span', { className: 'lw-verdict__measure', text: `${c.measure}: ` }), c.sentence]))));
-  }
-  return out;
+  out.push(el('p', { className: 'lw-verdict__headline', text: v.headline }));
+  const caveats =
+    v.caveats.length > 0
+      ? el('ul', { className: 'lw-verdict__caveats' }, v.caveats.map((c) => el('li', {}, [el('span', { className: 'lw-verdict__measure', text: `${c.measure}: ` }), c.sentence])))
+      : null;
+  return { lead: out, caveats };
 }
