@@ -132,7 +132,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
 function sampleDisagrees(before: number | null, after: number | null, corpusChange: number): string | null {
   if (before === null || after === null) return null;
   const change = after - before;
-  if (Math.sign(change) === Math.sign(corpusChange) || change === 0) return null;
+  if (change === 0 || corpusChange === 0 || Math.sign(change) === Math.sign(corpusChange)) return null;
   return `Label precision with neighbours from the sample alone ${change > 0 ? 'rose' : 'fell'} (${f3(before)} → ${f3(after)}) while with neighbours from the corpus it ${corpusChange > 0 ? 'rose' : 'fell'}: inside a sample the neighbours are farther apart than in the corpus, so the verdict's figure is the one to go by.`;
 }
 
