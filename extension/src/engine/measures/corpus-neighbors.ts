@@ -1,5 +1,5 @@
 import type { Csr } from '../matrix/csr';
-import { NO_NEIGHBOR, TIE_TOLERANCE } from './knn';
+import { clearlyAbove, NO_NEIGHBOR } from './knn';
 
 /** Each query's k nearest documents, most similar first: m×k document indices (NO_NEIGHBOR where none) and their cosines (NaN). */
 export interface NeighborLists {
@@ -183,8 +183,4 @@ function insert(lists: NeighborLists, q: number, s: number, d: number, k: number
   lists.sims[base + slot] = s;
   lists.docs[base + slot] = d;
   if (filled[q] === k) bar[q] = clearlyAbove(lists.sims[base + k - 1]!);
-}
-
-function clearlyAbove(score: number): number {
-  return score + TIE_TOLERANCE * Math.max(1, Math.abs(score));
 }

@@ -90,7 +90,7 @@ export function nearestOfRow(values: Float64Array, i: number, m: number, k: numb
   }
 }
 
-/** The least score that beats `score` rather than ties with it. */
-function clearlyAbove(score: number): number {
+/** The least score that beats `score` rather than ties with it (TIE_TOLERANCE). */
+export function clearlyAbove(score: number): number {
   return score + TIE_TOLERANCE * Math.max(1, Math.abs(score));
 }
