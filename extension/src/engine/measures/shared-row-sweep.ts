@@ -94,11 +94,6 @@ export class SharedRowSweep {
     return this.grams.findIndex((g) => g.dots.buffer === dots.buffer);
   }
 
-  /** The ticket of the latest sweep opened (0 before the first). */
-  get opened(): number {
-    return Atomics.load(this.control, OPENED);
-  }
-
   /** The control word the ticket of the latest sweep is in, for Atomics.wait/waitAsync on it. */
   get openedWord(): { array: Int32Array; index: number } {
     return { array: this.control, index: OPENED };
