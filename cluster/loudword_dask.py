@@ -26,7 +26,7 @@ import time
 import uuid
 
 try:
-    from distributed import Client, LocalCluster, as_completed
+    from distributed import Client, LocalCluster, as_completed, wait
 except ImportError as missing:  # say what to install, in the driver's result line
     print(json.dumps({"error": f"this Python has no Dask distributed ({missing}): install python3-distributed python3-dask, "
                                "or point LOUDWORD_PYTHON at a Python that has it"}), flush=True)
@@ -34,6 +34,7 @@ except ImportError as missing:  # say what to install, in the driver's result li
 
 NEEDS_SUMS = 10  # `shard finish`: the review needs another sums round (extension/src/cli/shard-command.ts)
 MAX_SUMS_ROUNDS = 6
+STRAGGLER_SECONDS = 120  # how long a failed round waits for its other steps before it reports
 
 
 class ShardStepFailed(Exception):
@@ -114,7 +115,16 @@ def run_round(client, name, node, loudword, commands, quiet, stats):
     started = time.monotonic()
     seconds = []
     for future in as_completed(futures):
-        _, took, peak_mb, worker = future.result()  # raises the step's ShardStepFailed here
+        try:
+            _, took, peak_mb, worker = future.result()  # raises the step's ShardStepFailed here
+        except Exception:
+            # The round's other steps may still be writing into WORKDIR. Let them end before the
+            # failure is reported, so the caller can remove WORKDIR without racing a writer.
+            try:
+                wait(futures, timeout=STRAGGLER_SECONDS)
+            except Exception:  # a timeout, or a worker lost meanwhile: report the first failure anyway
+                pass
+            raise
         seconds.append(took)
         stats["peakStepMB"] = max(stats.get("peakStepMB", 0), peak_mb)  # the largest worker's Node process
         peaks = stats.setdefault("workerPeakMB", {})

@@ -46,7 +46,20 @@ export async function reviewWithDask(o: CliOptions, scheduler: string): Promise<
     const reportFile = await runDriver(args);
     return JSON.parse(await fs.readFile(reportFile, 'utf8')) as Report;
   } finally {
-    if (ownWorkdir) await fs.rm(workdir, { recursive: true, force: true });
+    if (ownWorkdir) await removeWorkdir(workdir);
+  }
+}
+
+/**
+ * Removes the review's own working folder. A step that outlived the driver can still be writing
+ * into it; a folder left behind must never hide the review's result or its error, so a failure
+ * here is retried, then only said.
+ */
+async function removeWorkdir(workdir: string): Promise<void> {
+  try {
+    await fs.rm(workdir, { recursive: true, force: true, maxRetries: 5, retryDelay: 200 });
+  } catch (e) {
+    process.stderr.write(`loudword: could not remove the working folder ${workdir} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})\n`);
   }
 }
 
