@@ -72,7 +72,7 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
       waiting.fail(e);
     };
     worker.on('message', (reply: TokenizeReply) => {
-      if (reply.batch !== null) waiting.resolve(reply.seq, { ...reply.batch, stream: w });
+      if (reply.batch !== null) waiting.resolve(reply.seq, received(reply.batch, w));
       else waiting.reject(reply.seq, new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
     });
     worker.on('error', fail);
@@ -109,5 +109,27 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
       };
     },
     close,
+  };
+}
+
+/**
+ * A batch as it came from thread `stream`, rebuilt as one object literal. The objects the
+ * structured clone makes take their maps from its own transitions, and `{ ...batch, stream }` kept
+ * them: the main thread's CountAccumulator.add, compiled for one of those maps, was deoptimised
+ * for a "wrong map" a dozen times at 100k documents (--trace-deopt), each time back to the
+ * interpreter and then compiled again. Every batch read here has the literal's one map.
+ */
+function received(b: EncodedBatch, stream: number): EncodedBatch {
+  return {
+    stream,
+    firstNewId: b.firstNewId,
+    newTerms: b.newTerms,
+    rowEnds: b.rowEnds,
+    cols: b.cols,
+    counts: b.counts,
+    tokens: b.tokens,
+    previews: b.previews,
+    longRunDocs: b.longRunDocs,
+    longRuns: b.longRuns,
   };
 }
