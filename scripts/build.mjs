@@ -2,6 +2,7 @@
 // skipped with a note, so the project builds while parts are still being written.
 import { build } from 'esbuild';
 import { existsSync, mkdirSync, copyFileSync } from 'node:fs';
+import { buildSettingsValidator } from './settings-validator.mjs';
 
 const production = process.argv.includes('--production');
 const common = {
@@ -45,5 +46,7 @@ for (const e of entries) {
     external: e.external ?? [],
   });
 }
+// The settings schema compiled once here; the bundles above load it from beside them.
+await buildSettingsValidator('dist/settings-validator.js', { minify: production });
 if (existsSync('webview/src/panel.css')) copyFileSync('webview/src/panel.css', 'dist/webview.css');
 console.log('build: done');

@@ -1,3 +1,5 @@
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
 import type { ValidateFunction } from 'ajv';
 import schemaJson from '../../../../loudword.schema.json';
 
@@ -29,16 +31,25 @@ export const SETTINGS_SCHEMA = schemaJson as unknown as SchemaNode;
 let compiled: ValidateFunction | null = null;
 
 /**
- * The compiled schema, built on first use: loading and compiling ajv costs ~0.3 s, which
- * `loudword --help`, `--version` and a command-line mistake should not pay.
+ * The compiled schema, on first use: `loudword --help`, `--version` and a command-line mistake
+ * need none. The build writes it beside the bundles (scripts/settings-validator.mjs, ajv's
+ * standalone code for the same schema and options), since loading ajv and compiling the schema
+ * cost ~0.1 s of CPU at every review's start, before the first document could be tokenised;
+ * running from source (tests), ajv compiles it here.
  */
 function validator(): ValidateFunction {
   if (compiled === null) {
-    const Ajv = (require('ajv') as typeof import('ajv')).default;
-    // allowUnionTypes: "type": ["string", "null"] is how the schema says "or null".
-    compiled = new Ajv({ allowUnionTypes: true }).compile(schemaJson);
+    const built = join(__dirname, 'settings-validator.js');
+    compiled = existsSync(built) ? (require(built) as ValidateFunction) : compileSettingsSchema();
   }
   return compiled;
+}
+
+/** loudword.schema.json compiled by ajv, with the options the build's standalone validator uses. */
+export function compileSettingsSchema(): ValidateFunction {
+  const Ajv = (require('ajv') as typeof import('ajv')).default;
+  // allowUnionTypes: "type": ["string", "null"] is how the schema says "or null".
+  return new Ajv({ allowUnionTypes: true }).compile(schemaJson);
 }
 
 /** One thing wrong with a settings value: where (keys and item indexes) and what, in words. */
