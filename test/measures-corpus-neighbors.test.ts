@@ -7,7 +7,7 @@ import { weigh } from '../extension/src/engine/matrix/weigh';
 import { corpusNeighbors, mergeNeighborLists, neighborSearchWork } from '../extension/src/engine/measures/corpus-neighbors';
 import { selectRows } from '../extension/src/engine/matrix/select-rows';
 import { NO_NEIGHBOR } from '../extension/src/engine/measures/knn';
-import { corpusPrecision, searchInProcess } from '../extension/src/engine/terms/corpus-precision';
+import { corpusPrecision, searchedQueries, searchedRows, searchInProcess } from '../extension/src/engine/terms/corpus-precision';
 import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
 import { arrayCorpusSource } from './reference/array-corpus-source';
 import { readFortunes } from './reference/read-fortunes';
@@ -95,6 +95,29 @@ describe('corpusNeighbors against scikit-learn (Debian fortunes)', function () {
     assert.ok(sameIds >= 0.9 * compared, `same documents at ${sameIds} of ${compared} ranks`);
   });
 
+  it('with no stop list (the commonest terms added as dense runs) lists the brute-force nearest, to the bit', () => {
+    const sampleRows = selectRows(weights, queries);
+    const none = new Uint8Array(weights.cols);
+    // Terms held by a quarter of the queries or more are added as dense runs (corpus-neighbors.ts).
+    const qdf = new Uint32Array(weights.cols);
+    for (const c of sampleRows.indices) qdf[c]!++;
+    assert.ok(qdf.some((n) => n >= 0.25 * queries.length), 'some term is dense');
+    const ours = corpusNeighbors(sampleRows, queries, weights, 0, none, K, new Uint32Array(weights.rows).map((_, i) => i));
+    for (let q = 0; q < queries.length; q++) {
+      // The test's own brute force: every document's cosine, highest first, ties to the lower index.
+      const ranked = Array.from({ length: weights.rows }, (_, d) => ({ d, s: d === queries[q] ? 0 : maskedCosine(weights, queries[q]!, d, none) }))
+        .filter((x) => x.s > 0)
+        .sort((a, b) => b.s - a.s || a.d - b.d);
+      for (let r = 0; r < K; r++) {
+        if (r >= ranked.length) {
+          assert.equal(ours.docs[q * K + r], NO_NEIGHBOR, `query ${queries[q]} rank ${r}: only ${ranked.length} documents share a term`);
+          continue;
+        }
+        assert.ok(Math.abs(ours.sims[q * K + r]! - ranked[r]!.s) <= 1e-12, `query ${queries[q]} rank ${r}: ${ours.sims[q * K + r]} vs ${ranked[r]!.s}`);
+      }
+    }
+  });
+
   it('searches only the candidates, and lists over consecutive parts merge to the whole corpus\'s', () => {
     const sampleRows = selectRows(weights, queries);
     const all = new Uint32Array(weights.rows).map((_, i) => i);
@@ -150,5 +173,37 @@ describe('corpusNeighbors against scikit-learn (Debian fortunes)', function () {
     assert.deepEqual(corpusPrecision({ ...input, budget: work / 2 }), part, 'seeded: the same part every time');
     assert.equal(corpusPrecision({ ...input, budget: work / 4 }), null, 'a part under twice the sample is not worth it');
     assert.equal(corpusPrecision({ ...input, documents: queries.length }), null, 'the sample is the corpus');
+  });
+
+  it('corpusPrecision above the budget: fewer sampled documents searched for in the whole corpus, down to the floor, then a part', () => {
+    const labels = Array.from({ length: weights.rows }, (_, d) => `kind ${d % 3}`);
+    const sampleRows = selectRows(weights, queries);
+    const df = new Float64Array(weights.cols);
+    for (const c of weights.indices) df[c]!++;
+    const none = new Uint8Array(weights.cols);
+    const input = { searcher: searchInProcess(weights, sampleRows, queries, labels, K), sampleRows, documents: weights.rows, df, before: none, after: removed, seed: 1, minQueries: 10 };
+    const whole = corpusPrecision(input)!;
+    const work = neighborSearchWork(sampleRows, df, none) + neighborSearchWork(sampleRows, df, removed) + 2 * weights.rows * queries.length;
+    const fewer = corpusPrecision({ ...input, budget: work / 2 })!;
+    assert.equal(fewer.among, weights.rows, 'the whole corpus is searched');
+    assert.equal(fewer.queries, queries.length / 2);
+    // Each query's neighbours do not depend on the others searched with it: the subset's figures
+    // are the whole search's, to the bit, and the rest are NaN (left out of the bootstrap).
+    const searched = searchedQueries({ documents: weights.rows, among: weights.rows, queries: fewer.queries, seed: 1 }, queries.length);
+    assert.equal(searched.length, fewer.queries);
+    for (let q = 0; q < queries.length; q++) {
+      const inSubset = searched.includes(q);
+      for (const [got, want] of [[fewer.before, whole.before], [fewer.after, whole.after]] as const) {
+        if (inSubset) assert.equal(got[q], want[q], `query ${q}`);
+        else assert.ok(Number.isNaN(got[q]!), `query ${q} was not searched for`);
+      }
+    }
+    const floor = corpusPrecision({ ...input, budget: work / 8 })!;
+    assert.equal(floor.queries, 10, 'at the floor');
+    assert.equal(floor.among, Math.floor((weights.rows * (work / 8)) / ((work * 10) / queries.length)), 'then a part of the corpus');
+    // The searched rows are the sample's own rows (what a shard step searches for, sum-shard.ts).
+    const rows = searchedRows(sampleRows, queries, { documents: weights.rows, among: weights.rows, queries: 10, seed: 1 });
+    assert.deepEqual([...rows.docs], [...rows.positions].map((q) => queries[q]));
+    assert.equal(rows.rows.rows, 10);
   });
 });

@@ -93,6 +93,8 @@ export interface Verdict {
     method: 'seeds' | 'bootstrap';
     /** With labels on a corpus larger than the sample: the documents the sampled documents' neighbours were sought among. */
     neighborsAmong?: number;
+    /** With neighborsAmong: how many sampled documents were searched for (fewer than the sample when the search of the corpus would cost too much). */
+    neighborsFor?: number;
   } | null;
   /** Measures that moved the other way, each explained in a sentence. */
   caveats: Array<{ measure: string; sentence: string }>;

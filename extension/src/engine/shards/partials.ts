@@ -9,7 +9,7 @@ import { UserError } from '../user-error';
  * different settings or versions are never merged. Float arrays travel as base64 of their
  * IEEE-754 bytes, so a figure survives the trip to the last bit.
  */
-export const PARTIAL_FORMAT = 2;
+export const PARTIAL_FORMAT = 3;
 
 export type ShardStep = 'count' | 'plan' | 'sums';
 
@@ -70,6 +70,8 @@ export interface NeighborRequest {
   columns: number[];
   documents: number;
   among: number;
+  /** How many of the sampled documents are searched for (terms/corpus-precision.ts searchedQueries). */
+  queries: number;
   seed: number;
   k: number;
 }
@@ -83,8 +85,8 @@ export interface EncodedNeighbors {
 }
 
 /** An id for a neighbour request's content, the same in every step. */
-export function neighborRequestId(columns: readonly number[], search: { documents: number; among: number; seed: number }, k: number): string {
-  return `${maskId(columns)}-${search.documents}-${search.among}-${search.seed}-${k}`;
+export function neighborRequestId(columns: readonly number[], search: { documents: number; among: number; queries: number; seed: number }, k: number): string {
+  return `${maskId(columns)}-${search.documents}-${search.among}-${search.queries}-${search.seed}-${k}`;
 }
 
 /** The merge: vocabulary, idf, the sample, and which exact sums round 2 computes. */

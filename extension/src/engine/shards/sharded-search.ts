@@ -1,5 +1,5 @@
 import { mergeNeighborLists, type NeighborLists } from '../measures/corpus-neighbors';
-import { isLabel, labelPrecision, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
+import { isLabel, labelPrecision, searchedQueries, spreadToSample, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
 import { maskColumns, neighborRequestId, type NeighborRequest } from './partials';
 
 /** A neighbour search's answer over the whole corpus: the lists and each listed document's label. */
@@ -29,11 +29,16 @@ export class ShardedSearch implements CorpusSearcher {
     const id = neighborRequestId(columns, search, this.k);
     const found = this.known.get(id);
     const k = this.k;
+    const m = this.sampleLabels.length;
     if (found === undefined) {
-      this.missing.set(id, { id, columns, documents: search.documents, among: search.among, seed: search.seed, k });
-      return new Float64Array(this.sampleLabels.length).fill(Number.NaN);
+      this.missing.set(id, { id, columns, documents: search.documents, among: search.among, queries: search.queries, seed: search.seed, k });
+      return new Float64Array(m).fill(Number.NaN);
     }
-    return labelPrecision(found.lists.docs, k, (q) => isLabel(this.sampleLabels[q]), (q, r) => found.labels[q * k + r] === this.sampleLabels[q]);
+    // The lists are the searched positions' (searchedQueries), in order.
+    const positions = searchedQueries(search, m);
+    const labelOf = (q: number): string | null => this.sampleLabels[positions[q]!] ?? null;
+    const precision = labelPrecision(found.lists.docs, k, (q) => isLabel(labelOf(q)), (q, r) => found.labels[q * k + r] === labelOf(q));
+    return spreadToSample(precision, positions, m);
   }
 }
 

@@ -13,7 +13,7 @@ import type { ShardCounts } from './shard-counts';
 import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedCountStats, type EncodedNeighbors, type EncodedSums, type NeighborRequest, type PlanPartial, type SumsPartial } from './partials';
 import { corpusNeighbors } from '../measures/corpus-neighbors';
 import { NO_NEIGHBOR } from '../measures/knn';
-import { searchCandidates } from '../terms/corpus-precision';
+import { searchCandidates, searchedRows } from '../terms/corpus-precision';
 import { planSampleRows } from './sample-rows';
 
 /**
@@ -67,7 +67,8 @@ function shardNeighbors(request: NeighborRequest, cols: number, queries: { rows:
   const removed = new Uint8Array(cols);
   for (const c of request.columns) removed[c] = 1;
   const candidates = searchCandidates(request, offset, weights.rows);
-  const lists = corpusNeighbors(queries.rows, queries.docs, weights, offset, removed, request.k, candidates);
+  const searched = searchedRows(queries.rows, queries.docs, request);
+  const lists = corpusNeighbors(searched.rows, searched.docs, weights, offset, removed, request.k, candidates);
   const listed = Array.from(lists.docs, (d) => (d === NO_NEIGHBOR || labels === null ? null : (labels[d - offset] ?? null)));
   return { id: request.id, docs: encodeUint32(lists.docs), sims: encodeFloat64(lists.sims), labels: listed };
 }

@@ -70,10 +70,11 @@ export class SumsTotals {
   /** Every neighbour request all shards have answered, merged over the corpus (in shard order, which is document order). */
   neighborLists(k: number): Map<string, LabelledNeighbors> {
     const out = new Map<string, LabelledNeighbors>();
-    const m = this.plan.sample.docs.length;
     for (const [id, byShard] of this.neighbors) {
       if (byShard.size !== this.plan.shards.length) continue;
-      out.set(id, mergeShardNeighbors(this.plan.shards.map((s) => byShard.get(s.key)!), m, k));
+      const parts = this.plan.shards.map((s) => byShard.get(s.key)!);
+      // Each list holds the searched sampled documents' neighbours (all of the sample, or a subset).
+      out.set(id, mergeShardNeighbors(parts, parts[0]!.lists.docs.length / k, k));
     }
     return out;
   }

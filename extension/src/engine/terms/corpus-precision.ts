@@ -1,6 +1,7 @@
 import type { Csr } from '../matrix/csr';
 import { corpusNeighbors, neighborSearchWork } from '../measures/corpus-neighbors';
 import { NO_NEIGHBOR } from '../measures/knn';
+import { selectRows } from '../matrix/select-rows';
 import { sampleIndices } from '../random/seeded-random';
 
 /**
@@ -13,10 +14,23 @@ import { sampleIndices } from '../random/seeded-random';
  */
 export const SEARCH_WORK = 1e8;
 
-/** Which documents the neighbours are sought among: all n, or `among` of them drawn with `seed`. */
+/**
+ * The fewest sampled documents the verdict is measured on when the corpus is searched whole for
+ * fewer of them: with q documents the bootstrap interval is about √(2,000/q) times as wide as
+ * with the default sample, so 500 keep it within twice that width. A round number chosen for that
+ * width, not on any corpus.
+ */
+export const MIN_QUERIES = 500;
+
+/**
+ * Whose neighbours are sought, and among which documents: the first is the sampled documents
+ * (all m, or `queries` of them drawn with `seed`), the second the corpus's n documents (all, or
+ * `among` of them drawn with `seed`).
+ */
 export interface CorpusSearch {
   documents: number;
   among: number;
+  queries: number;
   seed: number;
 }
 
@@ -33,6 +47,8 @@ export interface CorpusPrecision {
   /** How many documents the neighbours were sought among (the corpus, or the part that fits), of how many. */
   among: number;
   documents: number;
+  /** How many sampled documents were searched for (the others are NaN in before and after). */
+  queries: number;
 }
 
 export interface CorpusPrecisionInput {
@@ -46,6 +62,8 @@ export interface CorpusPrecisionInput {
   seed: number;
   /** The work allowed (SEARCH_WORK unless a test sets it). */
   budget?: number;
+  /** MIN_QUERIES unless a test sets it. */
+  minQueries?: number;
 }
 
 /**
@@ -53,19 +71,56 @@ export interface CorpusPrecisionInput {
  * document's k nearest neighbours are sought in the corpus rather than in the sample, under the
  * current list and the suggested one. In a sample a tenth of the corpus the neighbours are
  * farther apart, and a list can look better there than it does on the corpus (docs/methods.md
- * §9). The corpus is searched whole when the work fits the budget, else among a seeded random
- * part of it; null when the sample is the corpus, or when that part would be under twice the
- * sample (the sample's own figure is then about as good).
+ * §9). The work grows with the corpus times the sampled documents searched for; when the whole
+ * search does not fit the budget, fewer sampled documents are searched for (a seeded subset, at
+ * least MIN_QUERIES: an estimate of the corpus's figure with a wider interval, rather than a
+ * narrower one of something else), and only below that among a seeded random part of the corpus.
+ * Null when the sample is the corpus, or when that part would be under twice the sample (the
+ * sample's own figure is then about as good).
  */
 export function corpusPrecision(input: CorpusPrecisionInput): CorpusPrecision | null {
-  const { sampleRows, documents: n, df, before, after, seed, budget = SEARCH_WORK } = input;
+  const { sampleRows, documents: n, df, before, after, seed, budget = SEARCH_WORK, minQueries = MIN_QUERIES } = input;
   const m = sampleRows.rows;
   if (n <= m) return null;
   const work = neighborSearchWork(sampleRows, df, before) + neighborSearchWork(sampleRows, df, after) + 2 * n * m;
-  const among = work <= budget ? n : Math.floor((n * budget) / work);
-  if (among < n && among < 2 * m) return null;
-  const search = { documents: n, among, seed };
-  return { before: input.searcher.precision(before, search), after: input.searcher.precision(after, search), among, documents: n };
+  const plan = searchPlan(work, n, m, budget, minQueries);
+  if (plan === null) return null;
+  const search = { documents: n, ...plan, seed };
+  return { before: input.searcher.precision(before, search), after: input.searcher.precision(after, search), among: plan.among, documents: n, queries: plan.queries };
+}
+
+/**
+ * How many of the m sampled documents to search for and among how many of the n documents, for
+ * a search over all of them that would cost `work` steps (it scales with both).
+ */
+export function searchPlan(work: number, n: number, m: number, budget: number, minQueries = MIN_QUERIES): { queries: number; among: number } | null {
+  if (work <= budget) return { queries: m, among: n };
+  const queries = Math.floor((m * budget) / work);
+  if (queries >= minQueries) return { queries, among: n };
+  const fewest = Math.min(m, minQueries);
+  const among = Math.floor((n * budget) / ((work * fewest) / m));
+  return among >= 2 * m ? { queries: fewest, among } : null;
+}
+
+/** The positions in the sample (0 … m − 1) whose neighbours `search` seeks, ascending. */
+export function searchedQueries(search: CorpusSearch, m: number): Uint32Array {
+  return sampleIndices(m, Math.min(search.queries, m), search.seed ^ 0x9e37);
+}
+
+/** The rows and documents of the sampled documents `search` seeks the neighbours of, with their positions in the sample. */
+export function searchedRows(sampleRows: Csr, sampleDocs: Uint32Array, search: CorpusSearch): { positions: Uint32Array; rows: Csr; docs: Uint32Array } {
+  const m = sampleRows.rows;
+  const positions = searchedQueries(search, m);
+  if (positions.length === m) return { positions, rows: sampleRows, docs: sampleDocs };
+  return { positions, rows: selectRows(sampleRows, positions), docs: positions.map((q) => sampleDocs[q]!) };
+}
+
+/** Per-query figures of the searched positions spread to all m, NaN for the others. */
+export function spreadToSample(values: Float64Array, positions: Uint32Array, m: number): Float64Array {
+  if (positions.length === m) return values;
+  const out = new Float64Array(m).fill(Number.NaN);
+  positions.forEach((q, i) => (out[q] = values[i]!));
+  return out;
 }
 
 /** The documents of first, first + 1, …, first + count − 1 that `search` seeks among, ascending. */
@@ -79,8 +134,10 @@ export function searchCandidates(search: CorpusSearch, first: number, count: num
 export function searchInProcess(weights: Csr, sampleRows: Csr, sample: Uint32Array, labels: readonly (string | null)[], k: number): CorpusSearcher {
   return {
     precision(removed, search) {
-      const lists = corpusNeighbors(sampleRows, sample, weights, 0, removed, k, searchCandidates(search, 0, weights.rows));
-      return labelPrecision(lists.docs, k, (q) => isLabel(labels[sample[q]!]), (q, r) => labels[lists.docs[q * k + r]!] === labels[sample[q]!]);
+      const { positions, rows, docs } = searchedRows(sampleRows, sample, search);
+      const lists = corpusNeighbors(rows, docs, weights, 0, removed, k, searchCandidates(search, 0, weights.rows));
+      const precision = labelPrecision(lists.docs, k, (q) => isLabel(labels[docs[q]!]), (q, r) => labels[lists.docs[q * k + r]!] === labels[docs[q]!]);
+      return spreadToSample(precision, positions, sampleRows.rows);
     },
   };
 }

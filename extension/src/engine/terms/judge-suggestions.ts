@@ -95,10 +95,14 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats };
   }
   const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
-  const among = useLabels && corpus !== null ? corpus.among : null;
-  const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const, ...(among !== null ? { neighborsAmong: among } : {}) };
+  const searched = useLabels && corpus !== null ? { neighborsAmong: corpus.among, neighborsFor: corpus.queries } : {};
+  const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const, ...searched };
   const digits = useLabels ? 3 : 2;
-  const interval = `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${formatCount(boot.queries)} sampled documents`;
+  const sampled = lab.sampleRows.rows;
+  const fewer = useLabels && corpus !== null && corpus.queries < sampled;
+  const interval =
+    `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${formatCount(boot.queries)} sampled documents` +
+    (fewer ? ` (${formatCount(corpus.queries)} of the ${formatCount(sampled)} drawn at random: a search of the corpus for all of them would cost too much)` : '');
   const outcome: Verdict['outcome'] = boot.low > 0 ? 'helps' : boot.high < 0 ? 'hurts' : 'no clear change';
   let headline: string;
   if (useLabels) {
@@ -106,9 +110,13 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
       ? `${f3(meanOf(corpus.before))} → ${f3(meanOf(corpus.after))}`
       : `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
     const verb = outcome === 'helps' ? agree('raises', 'raise') : outcome === 'hurts' ? agree('lowers', 'lower') : agree('does', 'do') + ' not clearly change';
-    const where = whereSought(corpus, input.documents ?? lab.sampleRows.rows, lab.sampleRows.rows);
+    const where = whereSought(corpus, input.documents ?? sampled, sampled);
     headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, 3)}; ${interval}${where}). The list was chosen without the labels, so every sampled document is held out.`;
-    if (outcome === 'no clear change') headline += ' A difference this small needs a larger sample (sample.documents) to resolve.';
+    if (outcome === 'no clear change') {
+      headline += fewer
+        ? ' A difference this small needs more documents searched for than a search of this corpus can take here.'
+        : ' A difference this small needs a larger sample (sample.documents) to resolve.';
+    }
   } else {
     const make = agree('makes', 'make');
     const verb = outcome === 'helps' ? `${make} nearest neighbours stand out more` : outcome === 'hurts' ? `${make} nearest neighbours stand out less` : `${agree('does', 'do')} not clearly change how much nearest neighbours stand out`;
