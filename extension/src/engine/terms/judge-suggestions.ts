@@ -100,9 +100,11 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const digits = useLabels ? 3 : 2;
   const sampled = lab.sampleRows.rows;
   const fewer = useLabels && corpus !== null && corpus.queries < sampled;
-  const interval =
-    `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${formatCount(boot.queries)} sampled documents` +
-    (fewer ? ` (${formatCount(corpus.queries)} of the ${formatCount(sampled)} drawn at random: a search of the corpus for all of them would cost too much)` : '');
+  // boot.queries: the documents with a label and a neighbour in both settings, of those searched for.
+  const over = fewer
+    ? `${formatCount(boot.queries)} sampled documents, ${boot.queries === corpus.queries ? '' : `of ${formatCount(corpus.queries)} `}drawn at random from the ${formatCount(sampled)} (a search of the corpus for all of them would cost too much)`
+    : `${formatCount(boot.queries)} sampled documents`;
+  const interval = `95% interval ${signed(boot.low, digits)} to ${signed(boot.high, digits)} over ${over}`;
   const outcome: Verdict['outcome'] = boot.low > 0 ? 'helps' : boot.high < 0 ? 'hurts' : 'no clear change';
   let headline: string;
   if (useLabels) {
