@@ -170,27 +170,39 @@ export class SharedRowSweep {
 
   /** The next block of sweep `ticket`, claimed; −1 when none is left or another sweep is open. */
   private claim(ticket: number): number {
-    const { control, blocks } = this;
-    for (;;) {
-      const word = Atomics.load(control, CLAIM);
-      if (word >>> 16 !== (ticket & 0x7fff)) return -1;
-      const next = word & 0xffff;
-      if (next >= blocks) return -1;
-      if (Atomics.compareExchange(control, CLAIM, word, word + 1) === word) return next;
-    }
+    return claimBlock(this.control, CLAIM, ticket, this.blocks);
   }
 
   /** Stops the claims of sweep `ticket`; returns how many blocks were claimed. */
   private close(ticket: number): number {
-    const { control, blocks } = this;
-    for (;;) {
-      const word = Atomics.load(control, CLAIM);
-      const next = Math.min(word & 0xffff, blocks);
-      if (Atomics.compareExchange(control, CLAIM, word, claimWord(ticket, blocks)) === word) return next;
-    }
+    return closeClaims(this.control, CLAIM, ticket, this.blocks);
   }
 }
 
-function claimWord(ticket: number, next: number): number {
+/**
+ * The word a work shared in blocks is claimed by: (ticket & 0x7fff)·2^16 + the next block, so a
+ * claim and the work it is for change together (SharedRowSweep, what-if/shared-column-gather.ts).
+ */
+export function claimWord(ticket: number, next: number): number {
   return (ticket & 0x7fff) * 0x10000 + next;
+}
+
+/** Claims the next of `blocks` blocks of work `ticket` at control[slot]; −1 when none is left or other work is open. */
+export function claimBlock(control: Int32Array, slot: number, ticket: number, blocks: number): number {
+  for (;;) {
+    const word = Atomics.load(control, slot);
+    if (word >>> 16 !== (ticket & 0x7fff)) return -1;
+    const next = word & 0xffff;
+    if (next >= blocks) return -1;
+    if (Atomics.compareExchange(control, slot, word, word + 1) === word) return next;
+  }
+}
+
+/** Stops the claims of work `ticket` at control[slot]; returns how many blocks were claimed. */
+export function closeClaims(control: Int32Array, slot: number, ticket: number, blocks: number): number {
+  for (;;) {
+    const word = Atomics.load(control, slot);
+    const next = Math.min(word & 0xffff, blocks);
+    if (Atomics.compareExchange(control, slot, word, claimWord(ticket, blocks)) === word) return next;
+  }
 }

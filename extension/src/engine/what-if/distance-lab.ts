@@ -9,6 +9,7 @@ import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { termSums } from '../measures/term-sums';
 import { IncrementalGram } from './incremental-gram';
 import { IncrementalTermSums, sameMask } from './incremental-term-sums';
+import type { SharedColumnGatherBuffers } from './shared-column-gather';
 import { WHAT_IF_BLOCK_ROWS } from './sample-side';
 
 export type DistanceResult = ReturnType<typeof measureDistances>;
@@ -80,9 +81,22 @@ export class DistanceLab {
     return { sums: termSums(this.weights), rowsWithWeight: rowsWithWeight(this.weights) };
   }
 
-  /** The exact sums `measure` uses; a review in shards answers them from summed partials. */
-  protected exactSums(removed: Uint8Array, incremental: boolean): MaskedTermSums {
-    return this.exact.at(removed, incremental);
+  /**
+   * The exact sums `measure` uses; a review in shards answers them from summed partials. With a
+   * `ticket`, a click's gather is opened to a helping thread under it (IncrementalTermSums.at).
+   */
+  protected exactSums(removed: Uint8Array, incremental: boolean, ticket?: number): MaskedTermSums {
+    return this.exact.at(removed, incremental, undefined, ticket);
+  }
+
+  /**
+   * The shared memory a thread needs to help with the clicks' gather of the exact sums
+   * (SharedColumnGather), with the column postings built; null when this lab's exact sums are
+   * not its own (a ShardedLab) or the column copy holds no weights (a large corpus).
+   */
+  exactGather(): SharedColumnGatherBuffers | null {
+    if (this.exactSums !== DistanceLab.prototype.exactSums) return null;
+    return this.exact.gatherBuffers();
   }
 
   /** The sampled rows with `removed` stopped, renormalised (reused buffers: valid until the next call). */
@@ -120,9 +134,10 @@ export class DistanceLab {
 
   /**
    * whatIf's exact half alone: the pair mass from the exact sums, reached from the previous
-   * call's state. ParallelWhatIf runs it here while the sample's half runs on its own thread.
+   * call's state. ParallelWhatIf runs it here while the sample's half runs on its own thread,
+   * which helps with a click's gather under `ticket` once its half is done (exactSums).
    */
-  whatIfExact(removed: Uint8Array): ExactMeasures {
+  whatIfExact(removed: Uint8Array, ticket?: number): ExactMeasures {
     const held = this.speculation;
     this.speculation = null;
     if (held !== null && this.spareExact !== null && held.mask.length === removed.length && sameMask(removed, held.mask)) {
@@ -130,7 +145,7 @@ export class DistanceLab {
       [this.exact, this.spareExact] = [this.spareExact, this.exact];
       return held.measures;
     }
-    const { sums, rowsWithWeight } = this.exactSums(removed, true);
+    const { sums, rowsWithWeight } = this.exactSums(removed, true, ticket);
     return exactMeasures(sums, rowsWithWeight);
   }
 

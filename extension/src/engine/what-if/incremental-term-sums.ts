@@ -1,5 +1,6 @@
 import type { Csr } from '../matrix/csr';
 import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
+import { SharedColumnGather, type SharedColumnGatherBuffers } from './shared-column-gather';
 
 /**
  * The exact term sums of a what-if (S1, S2, df over every document, each row renormalised after
@@ -10,7 +11,8 @@ import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
  * up to COLUMN_WEIGHTS_UP_TO non-zeros, the weights (postings, 12 bytes per non-zero: 91 MB at
  * 100k documents; 4 above the bound: ~0.3 GB at 1M; in the editor only, where the what-if runs),
  * built before the first incremental step; a click on a term in most rows reads the kept columns
- * from it (updateOne).
+ * from it (updateOne). With the weights the copy lives in shared memory, so that the what-if's
+ * sample thread can take part in that read (SharedColumnGather).
  *
  * Rounding: a row's norm is never updated by subtraction, so it is exact; the sums S1 and S2
  * are, and drift by ~1e-16 relative per update. A term whose df drops to 0 is reset to exact 0,
@@ -34,8 +36,6 @@ export class IncrementalTermSums {
   private rowsWithWeight = 0;
   private ready = false;
   private postings: ColumnPostings | null = null;
-  /** Per row, updateOne's (inv_new − inv_old, 1/norm²_new − 1/norm²_old) side by side; 0 for rows it does not rescale. */
-  private rowChange: Float64Array | null = null;
   private delta: Float64Array | null = null;
   /** Entries visited by incremental updates since the last full pass. */
   private updatedEntries = 0;
@@ -74,9 +74,11 @@ export class IncrementalTermSums {
    * computed by a full pass — bit for bit what a fresh review with that stop list computes — and
    * kept as a checkpoint (the first and the latest), restored exactly when that mask returns.
    * `interrupt` (a prefetch's, computed in a twin) is called every few rows of an update and
-   * throws to abandon it: the state is then unusable until the next copyFrom.
+   * throws to abandon it: the state is then unusable until the next copyFrom. With a `ticket`
+   * (above every earlier one) a click's gather is opened to a helping thread under it
+   * (SharedColumnGather); the sums are the same bits with or without.
    */
-  at(removed: Uint8Array, incremental = true, interrupt?: () => void): MaskedTermSums {
+  at(removed: Uint8Array, incremental = true, interrupt?: () => void, ticket?: number): MaskedTermSums {
     const X = this.weights;
     if (removed.length < X.cols) throw new RangeError(`removed has ${removed.length} entries for ${X.cols} columns`);
     const nnz = X.indptr[X.rows]!;
@@ -112,7 +114,7 @@ export class IncrementalTermSums {
         for (const t of changed) rowsTouched += postings.start[t + 1]! - postings.start[t]!;
         const estimate = rowsTouched * (nnz / Math.max(1, X.rows));
         if (estimate >= nnz || this.updatedEntries + estimate > REBUILD_AFTER * nnz) this.full(removed);
-        else if (changed.length === 1) this.updateOne(changed[0]!, removed, interrupt);
+        else if (changed.length === 1) this.updateOne(changed[0]!, removed, interrupt, ticket);
         else this.update(changed, removed, interrupt);
       }
     }
@@ -302,20 +304,22 @@ export class IncrementalTermSums {
    * entry's change into a per-term scratch (`delta`), or, when the kept columns hold fewer
    * entries than t's rows (t in most rows, as a function word is), term by term down the
    * column-major copy, gathering each row's
-   * two factors (`rowChange`, 0 for the rows not rescaled, whose +0 leaves a sum as it is). The
+   * two factors (`rowChange`, 0 for the rows not rescaled, whose +0 leaves a sum as it is; the
+   * columns in blocks another thread may share, SharedColumnGather, each column alone). The
    * scatter lands each entry at a random place in a 16-bytes-per-term array; the gather reads the
    * weights in order and only the per-row factors at random, and it skips the stopped columns.
    */
-  private updateOne(t: number, removed: Uint8Array, interrupt?: () => void): void {
+  private updateOne(t: number, removed: Uint8Array, interrupt?: () => void, ticket?: number): void {
     const { s1, s2, mask } = this;
     const postings = this.columnPostings();
     const stopping = removed[t] !== 0;
     const from = postings.start[t]!;
     const to = postings.start[t + 1]!;
     const entries = entriesOfRows(this.weights.indptr, postings.rows, from, to);
-    const gather = postings.values !== null && keptColumnEntries(postings.start, mask, t) < this.gatherBelow * entries;
+    const gatherer = postings.gather;
+    const gather = gatherer !== null && keptColumnEntries(postings.start, mask, t) < this.gatherBelow * entries;
     const delta = gather ? null : this.deltaScratch();
-    const rowChange = gather ? this.rowChangeScratch() : null;
+    const rowChange = gather ? gatherer!.rowChange : null;
     // The loops live in small functions called many times per click (a block of rows, a block
     // of columns): V8 then optimises each as a whole function with the feedback of many calls,
     // where one long loop here was compiled part way through a call (on-stack replacement) and
@@ -327,10 +331,8 @@ export class IncrementalTermSums {
       this.rescaleRows(t, stopping, removed, q, Math.min(to, q + RESCALE_BLOCK), delta, rowChange);
     }
     if (rowChange !== null) {
-      for (let u = 0, cols = s1.length; u < cols; u += GATHER_BLOCK) {
-        if (interrupt !== undefined) this.interrupted(interrupt);
-        gatherColumns(postings, rowChange, mask, t, s1, s2, u, Math.min(cols, u + GATHER_BLOCK));
-      }
+      const check = interrupt === undefined ? undefined : () => this.interrupted(interrupt);
+      gatherer!.gather(t, mask, s1, s2, ticket, check);
       clearRowChange(rowChange, postings.rows, from, to);
     } else {
       addDelta(delta!, mask, t, s1, s2);
@@ -429,7 +431,7 @@ export class IncrementalTermSums {
     } catch (e) {
       this.ready = false;
       this.delta?.fill(0);
-      this.rowChange?.fill(0);
+      this.postings?.gather?.rowChange.fill(0);
       throw e;
     }
   }
@@ -445,15 +447,17 @@ export class IncrementalTermSums {
     return this.delta;
   }
 
-  /** Zeroed scratch of 2 entries per row for updateOne's gather, kept from call to call. */
-  private rowChangeScratch(): Float64Array {
-    if (this.rowChange === null) this.rowChange = new Float64Array(2 * this.weights.rows);
-    return this.rowChange;
-  }
-
   /** Builds the column postings ahead of the first incremental step. */
   prepare(): void {
     this.columnPostings();
+  }
+
+  /**
+   * The shared memory of the clicks' gather (the column postings with their weights), for a
+   * thread that helps (SharedColumnGather.help); null when the column copy holds no weights.
+   */
+  gatherBuffers(): SharedColumnGatherBuffers | null {
+    return this.columnPostings().gather?.buffers ?? null;
   }
 
   /** Row ids and weights per column, rows ascending: the column-major copy the toggles walk. */
@@ -465,8 +469,11 @@ export class IncrementalTermSums {
     for (let p = 0; p < nnz; p++) start[indices[p]! + 1]++;
     for (let t = 0; t < cols; t++) start[t + 1] += start[t]!;
     const fill = start.slice(0, cols);
-    const rowIds = new Uint32Array(nnz);
-    const values = nnz <= this.columnWeightsUpTo ? new Float64Array(nnz) : null;
+    // With the weights, the copy lives in shared memory, where another thread can gather from it.
+    const gather = nnz <= this.columnWeightsUpTo ? SharedColumnGather.create(rows, cols, nnz) : null;
+    gather?.start.set(start);
+    const rowIds = gather?.rowIds ?? new Uint32Array(nnz);
+    const values = gather?.values ?? null;
     for (let r = 0; r < rows; r++) {
       for (let p = indptr[r]!, end = indptr[r + 1]!; p < end; p++) {
         const slot = fill[indices[p]!]!++;
@@ -474,7 +481,8 @@ export class IncrementalTermSums {
         if (values !== null) values[slot] = data[p]!;
       }
     }
-    this.postings = { start, rows: rowIds, values };
+    gather?.divide();
+    this.postings = { start: gather?.start ?? start, rows: rowIds, values, gather };
     return this.postings;
   }
 }
@@ -485,6 +493,8 @@ interface ColumnPostings {
   rows: Uint32Array;
   /** The weights, in the same order; null above COLUMN_WEIGHTS_UP_TO non-zeros (no gather then). */
   values: Float64Array | null;
+  /** The gather over these arrays (they live in its shared memory), with its per-row scratch; null without weights. */
+  gather: SharedColumnGather | null;
 }
 
 /**
@@ -508,9 +518,6 @@ const GATHER_BELOW = 1;
 const SETTLE_AFTER = 12;
 /** The same bound inside a call (a full pass on a click's path): only reached by one big update. */
 const REBUILD_AFTER = 16;
-
-/** Columns between interrupt checks in updateOne's gather. */
-const GATHER_BLOCK = 4096;
 
 /** Rows of the toggled term per rescaleRows call (and between interrupt checks). */
 const RESCALE_BLOCK = 64;
@@ -565,28 +572,6 @@ function clearRowChange(rowChange: Float64Array, rows: Uint32Array, from: number
     const c = 2 * rows[q]!;
     rowChange[c] = 0;
     rowChange[c + 1] = 0;
-  }
-}
-
-/**
- * updateOne's gather for the kept columns u ≠ t in [from, to): each one's Σ w·Δinv and
- * Σ w²·Δ(1/norm²) down its column, rows ascending, added to S1 and S2.
- */
-function gatherColumns(postings: ColumnPostings, rowChange: Float64Array, mask: Uint8Array, t: number, s1: Float64Array, s2: Float64Array, from: number, to: number): void {
-  const { start, rows } = postings;
-  const values = postings.values!;
-  for (let u = from; u < to; u++) {
-    if (mask[u] !== 0 || u === t) continue;
-    let a = 0;
-    let b = 0;
-    for (let q = start[u]!, qEnd = start[u + 1]!; q < qEnd; q++) {
-      const c = 2 * rows[q]!;
-      const w = values[q]!;
-      a += w * rowChange[c]!;
-      b += w * w * rowChange[c + 1]!;
-    }
-    s1[u] += a;
-    s2[u] += b;
   }
 }
 

@@ -1,12 +1,13 @@
 import type { Worker } from 'node:worker_threads';
 import type { Measures } from '../../protocol';
 import type { Csr } from '../matrix/csr';
-import { joinMeasures, type SampledFields } from '../measures/measure-distances';
+import { joinMeasures, type ExactMeasures, type SampledFields } from '../measures/measure-distances';
 import { SharedRowSweep } from '../measures/shared-row-sweep';
 import { PendingReplies } from '../threads/pending-replies';
 import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
 import { WHAT_IF_BLOCK_ROWS } from './sample-side';
+import { SharedColumnGather } from './shared-column-gather';
 import { SpeculationStopped, stopOnClick } from './speculation-stopped';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
@@ -17,7 +18,10 @@ import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thre
  * The two halves share no input, so a toggle costs the longer of the two instead of their sum;
  * and the sample's half is the longer (its sweep over the m×m products), so once the exact sums
  * are done this thread takes blocks of that sweep's rows too (SharedRowSweep: the thread keeps
- * its products in shared memory and opens each sweep under the request's number).
+ * its products in shared memory and opens each sweep under the request's number). When the exact
+ * half is the longer (a click on a term in most rows gathers ~5M non-zeros at 100k), the thread,
+ * its answer sent, takes blocks of columns of that gather the same way (SharedColumnGather, under
+ * the same number; a click that does not gather passes it over, so the thread stops waiting).
  * The answers are DistanceLab.whatIf's, bit for bit: the thread's SampleSide walks the same
  * masks in the same order as the lab's own dot products would, and the sweep sums in the same
  * blocks whichever thread swept them (test/what-if-parallel.test.ts).
@@ -33,11 +37,18 @@ export class ParallelWhatIf {
   /** Blocks of the sample's sweeps this thread swept, for the tests and the benchmark. */
   helpedBlocks = 0;
 
+  /** Blocks of the exact sums' gathers the thread took, for the tests and the benchmark. */
+  get gatherBlocksHelped(): number {
+    return this.gather?.helped ?? 0;
+  }
+
   private constructor(
     private readonly lab: DistanceLab,
     private readonly baselineNeighbors: Uint32Array | null,
     private readonly worker: Worker,
     private readonly sweep: SharedRowSweep,
+    /** The exact sums' gather the thread helps with (null: the exact half stays here). */
+    private readonly gather: SharedColumnGather | null,
   ) {
     worker.on('message', (reply: SampleReply) => {
       if (reply.measures !== null) this.replies.resolve(reply.seq, reply.measures);
@@ -60,8 +71,9 @@ export class ParallelWhatIf {
     if (script === null) return null;
     const { rows, cols, indptr, indices, data } = lab.sampleRows;
     const sweep = SharedRowSweep.create(rows, lab.k, WHAT_IF_BLOCK_ROWS);
-    const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors, sweep: sweep.buffers };
-    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }), sweep);
+    const gather = lab.exactGather();
+    const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors, sweep: sweep.buffers, ...(gather === null ? {} : { gather }) };
+    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }), sweep, gather === null ? null : SharedColumnGather.from(gather));
     // A failure shows again on the first toggle, which then falls back.
     parallel.opened = parallel.request(opening, true).reply.then(
       () => undefined,
@@ -73,9 +85,16 @@ export class ParallelWhatIf {
   /** Measures with the column mask `removed` stopped (DistanceLab.whatIf's, reached on two threads). */
   async whatIf(removed: Uint8Array): Promise<Measures> {
     if (this.replies.failure !== null) return this.lab.whatIf(removed, this.baselineNeighbors);
-    // Posted first, so the thread works while this one sums, then helps it sweep.
-    const { reply: sampled, ticket } = this.request(removed, false, false, true);
-    const exact = this.lab.whatIfExact(removed);
+    // Posted first, so the thread works while this one sums, then helps it sweep; the thread
+    // helps with this one's gather once its own half is done.
+    const { reply: sampled, ticket } = this.request(removed, false, false, true, this.gather !== null);
+    let exact: ExactMeasures;
+    try {
+      exact = this.lab.whatIfExact(removed, this.gather === null || ticket === 0 ? undefined : ticket);
+    } finally {
+      // A click that did not gather (or failed) lets the thread stop waiting for it.
+      if (ticket !== 0) this.gather?.pass(ticket);
+    }
     try {
       await this.help(ticket, sampled);
       const measures = joinMeasures(await sampled, exact);
@@ -148,6 +167,7 @@ export class ParallelWhatIf {
     full: boolean,
     speculative: boolean | { counter: Int32Array; seen: number } = false,
     helped = false,
+    gather = false,
   ): { reply: Promise<SampledFields>; ticket: number } {
     let ticket = 0;
     const reply = this.replies.request((seq) => {
@@ -156,6 +176,7 @@ export class ParallelWhatIf {
       if (helped) {
         request.ticket = seq;
         ticket = seq;
+        if (gather) request.gather = true;
       }
       this.worker.postMessage(request);
       this.worker.ref();

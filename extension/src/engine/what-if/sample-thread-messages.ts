@@ -1,8 +1,13 @@
 import type { SampledFields } from '../measures/measure-distances';
 import type { SampleSideInput } from './sample-side';
+import type { SharedColumnGatherBuffers } from './shared-column-gather';
 
-/** workerData of sample-thread.ts: the sampled rows as plain arrays, and the measures' settings. */
-export type SampleThreadData = SampleSideInput;
+/**
+ * workerData of sample-thread.ts: the sampled rows as plain arrays, and the measures' settings;
+ * with `gather`, the shared memory of the exact sums' gather, which the thread helps with once
+ * a click's own half is done (SharedColumnGather).
+ */
+export type SampleThreadData = SampleSideInput & { gather?: SharedColumnGatherBuffers };
 
 /**
  * Review thread → sample thread: the sampled measures with `removed` stopped. `full` asks for a
@@ -24,6 +29,11 @@ export interface SampleRequest {
    * blocks of rows once its own half is done (SharedRowSweep).
    */
   ticket?: number;
+  /**
+   * With `ticket`: once this request is answered, help with the exact sums' gather of the same
+   * ticket (the review's thread opens it, or passes it over when the click does not gather).
+   */
+  gather?: boolean;
 }
 
 /** Sample thread → review thread: the answer to request `seq`, or why there is none. */

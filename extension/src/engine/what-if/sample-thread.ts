@@ -5,12 +5,15 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { afterIdleDelay } from './idle-delay';
 import { SampleSide } from './sample-side';
+import { SharedColumnGather } from './shared-column-gather';
 import { stopOnClick } from './speculation-stopped';
 import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thread-messages';
 
 const port = parentPort;
 if (port === null) throw new Error('sample-thread must run as a worker thread');
-const side = new SampleSide(workerData as SampleThreadData);
+const data = workerData as SampleThreadData;
+const side = new SampleSide(data);
+const gather = data.gather === undefined ? null : SharedColumnGather.from(data.gather);
 
 port.on('message', (request: SampleRequest) => {
   let reply: SampleReply;
@@ -22,6 +25,10 @@ port.on('message', (request: SampleRequest) => {
     reply = { seq: request.seq, measures: null, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
   port.postMessage(reply);
+  // The click's exact sums may still be gathering on the review's thread: take blocks of them.
+  // It always opens or passes over the gather once its sums are done, so the wait is bounded by
+  // the click itself; the limit is only for a review's thread that went away.
+  if (gather !== null && request.gather === true && request.ticket !== undefined) gather.help(request.ticket, GATHER_WAIT_MS);
   // The answer is on its way: a rebuild that has come due is done once it has been drawn,
   // rather than on the next request's path (which does it first if it comes sooner).
   afterIdleDelay(() => {
@@ -32,3 +39,6 @@ port.on('message', (request: SampleRequest) => {
     }
   });
 });
+
+/** The longest the thread waits for a click's gather to be opened or passed over (ms). */
+const GATHER_WAIT_MS = 2000;

@@ -1,0 +1,258 @@
+import { claimBlock, claimWord, closeClaims } from '../measures/shared-row-sweep';
+
+/** The shared memory of a SharedColumnGather, to post to the thread that helps. */
+export interface SharedColumnGatherBuffers {
+  rows: number;
+  cols: number;
+  /** Column t's entries are start[t]..start[t+1] of rowIds and values (Uint32, cols + 1). */
+  start: SharedArrayBuffer;
+  /** Row ids per column, rows ascending (Uint32, one per non-zero). */
+  rowIds: SharedArrayBuffer;
+  /** The weights in the same order (Float64). */
+  values: SharedArrayBuffer;
+  /** The first column of each block and the end (Uint32, blocks + 1). */
+  blockStart: SharedArrayBuffer;
+  /** Per row, the rescaled rows' two factors side by side (Float64, 2 per row). */
+  rowChange: SharedArrayBuffer;
+  /** The mask the open gather skips (Uint8, one per column). */
+  mask: SharedArrayBuffer;
+  /** Per column, the gathered Σ w·Δinv and Σ w²·Δ(1/norm²) side by side (Float64, 2 per column). */
+  out: SharedArrayBuffer;
+  control: SharedArrayBuffer;
+}
+
+// Slots of the control array.
+/** (ticket & 0x7fff)·2^16 + the next block to claim: a claim and the gather it is for in one word. */
+const CLAIM = 0;
+/** Blocks finished in the open gather. */
+const DONE = 1;
+/** The ticket of the latest gather opened, or passed over (see pass). */
+const OPENED = 2;
+/** The toggled column of the open gather (its own sums are not gathered). */
+const TERM = 3;
+/** Set by a helper whose block failed: the owner then gathers every block again itself. */
+const FAILED = 4;
+/** Blocks the helper has gathered, over every gather (for the tests and the benchmark). */
+const HELPED = 5;
+const CONTROL_SLOTS = 6;
+
+/**
+ * Blocks of columns a gather is claimed in. The bounds are set by entries (each block holds about
+ * 1/GATHER_BLOCKS of the non-zeros; a column is never cut), so a block is ~1–3 ms at 100k
+ * documents whether it holds one function word or thousands of rare terms: small enough that
+ * neither thread waits long for the other's last one. A choice of ours, no source.
+ */
+const GATHER_BLOCKS = 64;
+
+/**
+ * The gather of IncrementalTermSums.updateOne (a click on a term in most rows) shared by two
+ * threads: each kept column u's change Σ w·Δinv and Σ w²·Δ(1/norm²), summed down its postings in
+ * row order, is a function of that column's run of the column-major copy and the per-row factors
+ * alone. So the owner (the review's thread) writes the factors, opens the gather under a ticket,
+ * and it and a helper (the what-if's sample thread, once its own half is done) claim blocks of
+ * columns from a counter in shared memory until none is left; each column's two sums are written
+ * to its own slots, and the owner adds them to S1 and S2 in column order once every claimed block
+ * is done. Whoever gathered a column, its sums are the same bits, and the same as one thread
+ * gathering every block (gather without a ticket), which is what the one-thread what-if does.
+ * Claims work as in SharedRowSweep: a compare-and-swap on one word holding the ticket and the next
+ * block, so a helper late for its gather can never claim a block of the next one.
+ */
+export class SharedColumnGather {
+  readonly start: Uint32Array;
+  readonly rowIds: Uint32Array;
+  readonly values: Float64Array;
+  /** The owner's scratch for the per-row factors: zero outside a gather (the owner clears it). */
+  readonly rowChange: Float64Array;
+  readonly blocks: number;
+  private readonly blockStart: Uint32Array;
+  private readonly mask: Uint8Array;
+  private readonly out: Float64Array;
+  private readonly control: Int32Array;
+
+  private constructor(readonly buffers: SharedColumnGatherBuffers) {
+    this.start = new Uint32Array(buffers.start);
+    this.rowIds = new Uint32Array(buffers.rowIds);
+    this.values = new Float64Array(buffers.values);
+    this.blockStart = new Uint32Array(buffers.blockStart);
+    this.rowChange = new Float64Array(buffers.rowChange);
+    this.mask = new Uint8Array(buffers.mask);
+    this.out = new Float64Array(buffers.out);
+    this.control = new Int32Array(buffers.control);
+    this.blocks = this.blockStart.length - 1;
+  }
+
+  /**
+   * Shared memory for the column postings of a rows × cols matrix with `nnz` non-zeros; the
+   * caller fills `start`, `rowIds` and `values`, then calls `divide`.
+   */
+  static create(rows: number, cols: number, nnz: number): SharedColumnGather {
+    const blocks = Math.max(1, Math.min(GATHER_BLOCKS, cols));
+    return new SharedColumnGather({
+      rows,
+      cols,
+      start: new SharedArrayBuffer(4 * (cols + 1)),
+      rowIds: new SharedArrayBuffer(4 * nnz),
+      values: new SharedArrayBuffer(8 * nnz),
+      blockStart: new SharedArrayBuffer(4 * (blocks + 1)),
+      rowChange: new SharedArrayBuffer(8 * 2 * rows),
+      mask: new SharedArrayBuffer(cols),
+      out: new SharedArrayBuffer(8 * 2 * cols),
+      control: new SharedArrayBuffer(4 * CONTROL_SLOTS),
+    });
+  }
+
+  /** The same shared memory seen from another thread. */
+  static from(buffers: SharedColumnGatherBuffers): SharedColumnGather {
+    return new SharedColumnGather(buffers);
+  }
+
+  /** Sets the blocks' column bounds from the filled `start`: about equal numbers of entries. */
+  divide(): void {
+    const { start, blockStart, blocks } = this;
+    const cols = start.length - 1;
+    const nnz = start[cols]!;
+    let u = 0;
+    for (let b = 0; b < blocks; b++) {
+      blockStart[b] = u;
+      const until = Math.floor((nnz * (b + 1)) / blocks);
+      while (u < cols && start[u + 1]! <= until) u++;
+    }
+    blockStart[blocks] = cols;
+  }
+
+  /** The ticket of the latest gather opened or passed over. */
+  get opened(): number {
+    return Atomics.load(this.control, OPENED);
+  }
+
+  /** Blocks a helper has gathered so far, over every gather. */
+  get helped(): number {
+    return Atomics.load(this.control, HELPED);
+  }
+
+  /**
+   * Adds to s1 and s2 each kept column's (mask[u] = 0, u ≠ t) change from the factors in
+   * `rowChange`, summed down its postings in row order. With a `ticket` (above every earlier one)
+   * the blocks are shared with a helper (help); without one this thread gathers them all. The
+   * sums are the same bits either way. `interrupt` is called before each block claimed here; when
+   * it throws, no block is claimed any more and the throw goes on once the helper's block is done.
+   */
+  gather(t: number, mask: Uint8Array, s1: Float64Array, s2: Float64Array, ticket?: number, interrupt?: () => void): void {
+    const { control, blocks } = this;
+    this.mask.set(mask.subarray(0, this.mask.length));
+    if (ticket === undefined) {
+      for (let b = 0; b < blocks; b++) {
+        interrupt?.();
+        this.block(b, t);
+      }
+    } else {
+      Atomics.store(control, DONE, 0);
+      Atomics.store(control, FAILED, 0);
+      Atomics.store(control, TERM, t);
+      Atomics.store(control, CLAIM, claimWord(ticket, 0));
+      Atomics.store(control, OPENED, ticket);
+      Atomics.notify(control, OPENED);
+      try {
+        for (;;) {
+          interrupt?.();
+          const b = this.claim(ticket);
+          if (b < 0) break;
+          this.block(b, t);
+          Atomics.add(control, DONE, 1);
+        }
+      } finally {
+        const claimed = this.close(ticket);
+        for (let done = Atomics.load(control, DONE); done < claimed; done = Atomics.load(control, DONE)) Atomics.wait(control, DONE, done, 1000);
+      }
+      if (Atomics.load(control, FAILED) !== 0) for (let b = 0; b < blocks; b++) this.block(b, t);
+    }
+    addColumnChanges(this.out, this.mask, t, s1, s2);
+  }
+
+  /**
+   * The owner's word that gather `ticket` will not be opened (the click did not gather): a helper
+   * waiting for it stops waiting. Does nothing if it was opened.
+   */
+  pass(ticket: number): void {
+    const { control, blocks } = this;
+    if (Atomics.load(control, OPENED) >= ticket) return;
+    Atomics.store(control, CLAIM, claimWord(ticket, blocks));
+    Atomics.store(control, OPENED, ticket);
+    Atomics.notify(control, OPENED);
+  }
+
+  /**
+   * The helper's part of gather `ticket`: waits (blocking this thread, at most `waitMs`) until
+   * the owner opens it or passes it over, then gathers blocks until none is left. Returns how
+   * many it gathered.
+   */
+  help(ticket: number, waitMs: number): number {
+    const { control } = this;
+    const until = Date.now() + waitMs;
+    for (let opened = this.opened; opened < ticket; opened = this.opened) {
+      const left = until - Date.now();
+      if (left <= 0) return 0;
+      Atomics.wait(control, OPENED, opened, left);
+    }
+    if (this.opened !== ticket) return 0;
+    let gathered = 0;
+    for (let b = this.claim(ticket); b >= 0; b = this.claim(ticket)) {
+      try {
+        // Read only once a block is claimed: until then the owner may still be writing it.
+        this.block(b, Atomics.load(control, TERM));
+        gathered++;
+      } catch {
+        Atomics.store(control, FAILED, 1);
+      } finally {
+        Atomics.add(control, DONE, 1);
+        Atomics.notify(control, DONE);
+      }
+    }
+    Atomics.add(control, HELPED, gathered);
+    return gathered;
+  }
+
+  private block(b: number, t: number): void {
+    gatherColumnChanges(this.start, this.rowIds, this.values, this.rowChange, this.mask, t, this.out, this.blockStart[b]!, this.blockStart[b + 1]!);
+  }
+
+  /** The next block of gather `ticket`, claimed; −1 when none is left or another gather is open. */
+  private claim(ticket: number): number {
+    return claimBlock(this.control, CLAIM, ticket, this.blocks);
+  }
+
+  /** Stops the claims of gather `ticket`; returns how many blocks were claimed. */
+  private close(ticket: number): number {
+    return closeClaims(this.control, CLAIM, ticket, this.blocks);
+  }
+}
+
+/**
+ * For the kept columns u ≠ t in [from, to): Σ w·Δinv and Σ w²·Δ(1/norm²) down the column, rows
+ * ascending, into out[2u] and out[2u + 1].
+ */
+function gatherColumnChanges(start: Uint32Array, rows: Uint32Array, values: Float64Array, rowChange: Float64Array, mask: Uint8Array, t: number, out: Float64Array, from: number, to: number): void {
+  for (let u = from; u < to; u++) {
+    if (mask[u] !== 0 || u === t) continue;
+    let a = 0;
+    let b = 0;
+    for (let q = start[u]!, qEnd = start[u + 1]!; q < qEnd; q++) {
+      const c = 2 * rows[q]!;
+      const w = values[q]!;
+      a += w * rowChange[c]!;
+      b += w * w * rowChange[c + 1]!;
+    }
+    out[2 * u] = a;
+    out[2 * u + 1] = b;
+  }
+}
+
+/** The gathered changes added to the sums of the kept columns other than t, in column order. */
+function addColumnChanges(out: Float64Array, mask: Uint8Array, t: number, s1: Float64Array, s2: Float64Array): void {
+  for (let u = 0, cols = s1.length; u < cols; u++) {
+    if (mask[u] === 0 && u !== t) {
+      s1[u] += out[2 * u]!;
+      s2[u] += out[2 * u + 1]!;
+    }
+  }
+}
