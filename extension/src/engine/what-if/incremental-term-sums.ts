@@ -508,11 +508,14 @@ const COLUMN_WEIGHTS_UP_TO = 16_000_000;
 
 /**
  * updateOne gathers term by term when the kept columns hold fewer entries than the rows holding
- * the toggled term, times this (a gathered entry cost about what a scattered one did at 100k:
- * the gather wins by reading fewer, as it skips the stopped columns); the choice changes the
- * time, never the bits.
+ * the toggled term, times this; the choice changes the time, never the bits. Measured on the
+ * bench's 100k corpus (its clicks replayed in one process, each way in turn, 2026-12-03, load
+ * 5–7): the gather read the 4.9M kept entries in ~70 ms whatever the term (~14 ns an entry, in
+ * order), the scatter ~30–40 ns an entry of the term's rows (each lands at a random place), so
+ * they broke even at ~1.8–2.3M entries, where the kept columns hold 2.1–2.7× as many; at 1 the
+ * terms in 2.4–4.9M entries' worth of rows scattered, 1.5–2.5× slower.
  */
-const GATHER_BELOW = 1;
+const GATHER_BELOW = 2;
 
 /** Incremental updates visiting this many times nnz entries make settle() reset drift by a full pass. */
 const SETTLE_AFTER = 12;
