@@ -37,6 +37,20 @@ describe('tokenize/chunk-table', () => {
     for (const probe of ['ab', 'zzz', 'a'.repeat(13), '東東東東東東東東東東東東東']) if (!m.has(probe)) assert.equal(t.getKey(probe), ABSENT, probe);
   });
 
+  it('ChunkTable begun with 16 slots (the scan\'s warm-up) agrees with a Map as it grows, long keys included', () => {
+    const t = new ChunkTable(undefined, 16);
+    const m = new Map<string, number>();
+    for (let i = 0; i < 5_000; i++) {
+      // Short keys and keys past the ten code units kept in a slot, so the long-key store grows too.
+      const key = i % 3 === 0 ? `internationalisation-${i}` : `k${i.toString(36)}`;
+      t.set(key, i);
+      m.set(key, i);
+    }
+    assert.equal(t.size, m.size);
+    for (const [key, value] of m) assert.equal(t.getKey(key), value, key);
+    assert.equal(t.getKey('internationalisation-1'), ABSENT);
+  });
+
   it('ChunkTable tells apart keys that differ in their last code unit, on both sides of the length kept in a slot', () => {
     // Short keys are compared two code units at a time, long ones unit by unit: near-identical
     // keys of every length from 1 to 14 (the slot keeps 10), with units above 0x7fff (negative

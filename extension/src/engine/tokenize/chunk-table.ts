@@ -35,17 +35,24 @@ export class ChunkTable {
   private mask = 0;
   size = 0;
 
-  /** `maxEntries`: how many entries it keeps before it starts over (tests pass a small one). */
-  constructor(private readonly maxEntries = MAX_ENTRIES) {
+  /**
+   * `maxEntries`: how many entries it keeps before it starts over (tests pass a small one);
+   * `capacity`: slots to begin with, a power of two (a warm-up passes a small one, so that a few
+   * keys take the paths of probing, growing and long keys).
+   */
+  constructor(
+    private readonly maxEntries = MAX_ENTRIES,
+    private readonly capacity = 1 << 16,
+  ) {
     this.clear();
   }
 
   /** Forgets every entry (when maxEntries is reached; the caller is told by `set`'s result). */
   clear(): void {
-    const capacity = 1 << 16;
+    const capacity = this.capacity;
     this.slots = new Int32Array(capacity * SLOT);
     for (let s = 0; s < capacity; s++) this.slots[s * SLOT + VALUE] = ABSENT;
-    this.chars = new Uint16Array(1 << 14);
+    this.chars = new Uint16Array(capacity >>> 2);
     this.used = 0;
     this.mask = capacity - 1;
     this.size = 0;

@@ -1,5 +1,5 @@
 import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME } from './chunk-table';
-import type { IdList } from './id-list';
+import { IdList } from './id-list';
 import { Vocabulary, type TermCoder } from './term-coder';
 
 /**
@@ -16,8 +16,46 @@ import { Vocabulary, type TermCoder } from './term-coder';
  * `minLength` drops runs shorter than that many code points (as the regex path does after it).
  */
 export function wordRunCoder(lowercase: boolean, minLength: number): TermCoder {
+  warmUp();
   return new WordRunCoder(lowercase, Math.max(2, minLength));
 }
+
+let warmedUp = false;
+
+/**
+ * Runs a coder of its own, once per thread, over a few texts that take every branch of the scan
+ * and of the table (a new and a known run, short and long keys, a run too short, a word character
+ * outside the ASCII range, a word character and an emoji beyond the BMP, a lone surrogate; and,
+ * with a table of 16 slots, probing past a taken slot, the table growing and its long keys'
+ * store growing), so that when the first real batch makes the scan hot, the optimising compiler
+ * sees feedback for all of them and the table's fields already replaced once. Compiled before a
+ * branch had run, the scan was deoptimised when a batch first took it ("insufficient type
+ * feedback" in --trace-deopt: the first probe past a slot, the first growth, the first astral
+ * character), or when a growth replaced a field the code had taken as constant ("code
+ * dependencies"), and compiled again: 9 compiles of the scan in the two tokenising threads of a
+ * 100k pattern review, ~70-110 ms each on V8's helper threads. The coder and its table are
+ * dropped; the module's cache of astral code points keeps what it learnt, which is the same for
+ * every text.
+ */
+function warmUp(): void {
+  if (warmedUp) return;
+  warmedUp = true;
+  const coder = new WordRunCoder(true, 2, 16);
+  const out = new IdList(16);
+  const ends = new Uint32Array(WARM_UP_TEXTS.length);
+  // Twice: the second time every run is known.
+  for (let round = 0; round < 2; round++) {
+    out.length = 0;
+    coder.encodeAll(WARM_UP_TEXTS, out, ends);
+  }
+}
+
+const WARM_UP_TEXTS: readonly string[] = [
+  'The cat and the hat, a b c: x_1 42 3.14 internationalisation internationalisation',
+  'Caf\u00e9 na\u00efve \u00c9cole \u03b1\u03b2\u03b3 \u4e2d\u6587 over-the-top',
+  'ab\ud835\udc00cd \ud835\udc00\ud835\udc01 x\ud83d\ude00y \ud83d\ude00 z\ud800 \udc00q w',
+  'ends with a lone \ud800',
+];
 
 /**
  * The coder's state. The scan of one text is a function of its own (`encodeRuns`) that gets
@@ -31,7 +69,7 @@ class WordRunCoder implements TermCoder {
   private readonly vocabulary = new Vocabulary();
   // A cache in front of the vocabulary: when it starts over (a bound on its memory), runs are
   // found through the vocabulary again and get the ids they had.
-  private readonly table = new ChunkTable();
+  private readonly table: ChunkTable;
   // Until the table first starts over, it holds every term met so far (each is stored as soon as
   // it gets its id), so a run it lacks is a new term: appended without a look-up in the vocabulary.
   private tableHoldsAll = true;
@@ -43,7 +81,10 @@ class WordRunCoder implements TermCoder {
     private readonly lowercase: boolean,
     /** Fewest code points a run needs to be a token (2 or more). */
     private readonly shortest: number,
-  ) {}
+    tableCapacity?: number,
+  ) {
+    this.table = new ChunkTable(undefined, tableCapacity);
+  }
 
   encodeAll(texts: readonly string[], out: IdList, docEnds: Uint32Array): void {
     for (let d = 0; d < texts.length; d++) {
