@@ -153,7 +153,7 @@ export interface SettingsProvenance {
   sources: Record<string, { from: SettingSourceKind; where: string }>;
 }
 
-export type CorpusFormatName = 'csv' | 'tsv' | 'jsonl' | 'text' | 'parquet';
+export type CorpusFormatName = 'csv' | 'tsv' | 'jsonl' | 'text' | 'parquet' | 'files';
 /** The token kinds a user can keep (`tokens.kinds`): the one list; loudword.schema.json's enum is held equal by a test. */
 export const TOKEN_KINDS = ['word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol', 'punctuation', 'currency', 'ordinal', 'time', 'shortForm'] as const;
 export type TokenKind = (typeof TOKEN_KINDS)[number];

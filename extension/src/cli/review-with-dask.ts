@@ -24,6 +24,9 @@ const PYTHON = process.env.LOUDWORD_PYTHON ?? '/usr/bin/python3';
 export async function reviewWithDask(o: CliOptions, scheduler: string): Promise<Report> {
   const input = reviewInputOf(o);
   const { settings, configDir, sources } = await loadReviewSettings(input);
+  if (settings.format === 'files') {
+    throw new UserError('--dask reviews shard files (tables or lines); a folder of one document per file (format "files") is reviewed without --dask', input.file, null);
+  }
   const provenance = provenanceOf(input, sources);
   const shards = await listCorpusFiles(input.file);
   const packageRoot = findPackageRoot();

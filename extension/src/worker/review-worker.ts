@@ -4,8 +4,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { startReview } from '../engine/review/start-review';
 import type { ReviewSession, ReviewStage } from '../engine/review/review-api';
-import { isManyFilesInput } from '../engine/read/corpus-files';
-import { reviewShardsInThreads, type ThreadedShardsSession } from '../engine/shards/review-in-threads';
+import { isShardsInput, reviewShardsInThreads, type ThreadedShardsSession } from '../engine/shards/review-in-threads';
 import { isUserError } from '../engine/user-error';
 import { isHostToWorker, type HostToWorker, type WorkerErrorMessage, type WorkerToHost } from './worker-protocol';
 
@@ -34,7 +33,7 @@ async function review(runId: number, input: HostToWorker & { type: 'review' }): 
   try {
     const hooks = { signal: controller.signal, onStage: (stage: ReviewStage, fraction: number) => post({ type: 'stage', runId, stage, fraction }) };
     // A folder or glob of shards is reviewed in shards on worker threads (engine/shards/review-in-threads.ts; dask's hook).
-    const shards = input.input.text === undefined && (await isManyFilesInput(input.input.file));
+    const shards = await isShardsInput(input.input);
     const next = shards ? await reviewShardsInThreads(input.input, hooks) : await startReview(input.input, hooks);
     controller.signal.throwIfAborted();
     if (session !== null) void session.close?.();

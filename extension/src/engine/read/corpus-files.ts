@@ -47,7 +47,9 @@ export async function listCorpusFiles(input: string): Promise<CorpusFile[]> {
     }
     if (!isDir) return [{ path: input, key: path.basename(input) }];
     const files = (await walk(input)).filter((rel) => CORPUS_FILE.test(rel));
-    if (files.length === 0) throw new UserError('the folder holds no corpus files (.csv, .tsv, .jsonl, .txt, .parquet, optionally .gz)', input, null);
+    if (files.length === 0) {
+      throw new UserError('the folder holds no corpus files (.csv, .tsv, .jsonl, .txt, .parquet, optionally .gz); for a folder of documents, one per file, use --input-format files (format "files")', input, null);
+    }
     return sorted(files.map((rel) => ({ path: path.join(input, rel), key: rel })));
   }
   const { root, pattern } = splitGlob(input);
@@ -103,7 +105,7 @@ export function globToRegExp(pattern: string): RegExp {
 }
 
 /** Every file under `dir`, as '/'-separated paths relative to it; hidden entries are skipped. */
-async function walk(dir: string): Promise<string[]> {
+export async function walk(dir: string): Promise<string[]> {
   const out: string[] = [];
   const visit = async (rel: string): Promise<void> => {
     const entries = await readdir(rel === '' ? dir : path.join(dir, rel), { withFileTypes: true });

@@ -57,6 +57,8 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
       return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, quoted: false, notes, sampled: 1 };
     case 'parquet':
       throw new UserError('this is not a Parquet file (name it .parquet, or choose another format)', file, null);
+    case 'files':
+      throw new UserError('format "files" reads a folder, one document per file; this is a single file', file, null);
   }
 }
 

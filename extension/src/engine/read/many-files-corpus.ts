@@ -4,6 +4,7 @@ import { UserError } from '../user-error';
 import { listCorpusFiles, type CorpusFile } from './corpus-files';
 import type { CorpusRow, CorpusSource, ReadOptions, SkippedRow } from './corpus-source';
 import { openCorpusFile } from './open-corpus-file';
+import { openFilePerDocument } from './file-per-document-corpus';
 import { DEFAULT_BATCH_SIZE } from './open-corpus';
 import { MAX_SKIPPED_EXAMPLES } from './row-stream';
 
@@ -29,6 +30,7 @@ export interface PlacedCorpusSource extends CorpusSource {
  * notes name their file.
  */
 export async function openCorpusInput(input: string, options: ReadOptions = {}): Promise<PlacedCorpusSource> {
+  if (options.format === 'files') return openFilePerDocument(input, options);
   const files = await listCorpusFiles(input);
   if (files.length === 1 && files[0]!.path === input) {
     const source = await openCorpusFile(input, options);
@@ -125,6 +127,9 @@ class ManyFilesCorpus implements FileByFileSource {
       if (source.truncated !== null) this.truncated = source.truncated;
     }
     if (formats.size > 1) notes.push(`the files hold different formats (${[...formats].join(', ')}); each was read as its own`);
+    if (formats.size === 1 && formats.has('text')) {
+      notes.push('each line of these plain-text files is a document; for one document per file, use --input-format files (format "files")');
+    }
   }
 
   /** Later files are read with the fields the first one settled on, so every row means the same. */

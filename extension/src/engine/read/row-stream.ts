@@ -46,6 +46,8 @@ export function createRowSink(file: string, layout: CorpusLayout, state: PassSta
       }, skip);
     case 'parquet':
       throw new UserError('a Parquet file is read by the Parquet reader, not as text', file, null);
+    case 'files':
+      throw new UserError('a folder of one document per file is read by its own reader, not as lines', file, null);
   }
 }
 

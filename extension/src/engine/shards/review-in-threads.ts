@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import type { Measures, Report } from '../../protocol';
-import { listCorpusFiles } from '../read/corpus-files';
+import { isManyFilesInput, listCorpusFiles } from '../read/corpus-files';
 import type { ReviewHooks, ReviewInput } from '../review/review-api';
 import { loadReviewSettings, provenanceOf } from '../review/review-settings';
 import { inProcessRunner, startShardedReview } from './review-shards';
@@ -14,6 +14,15 @@ export interface ThreadedShardsSession {
   readonly report: Report;
   whatIf(removed: readonly string[]): Promise<Measures>;
   close(): Promise<void>;
+}
+
+/**
+ * Whether the input is reviewed in shards: a folder or a glob of shard files, unless the settings
+ * read a folder as one document per file (format "files"), which is reviewed as one corpus.
+ */
+export async function isShardsInput(input: ReviewInput): Promise<boolean> {
+  if (input.text !== undefined || !(await isManyFilesInput(input.file))) return false;
+  return (await loadReviewSettings(input)).settings.format !== 'files';
 }
 
 /**

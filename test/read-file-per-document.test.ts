@@ -1,0 +1,138 @@
+// A folder read one document per file (format "files", engine/read/file-per-document-corpus.ts).
+// Outside reference: scikit-learn's load_files (Debian python3-sklearn), which reads a folder with
+// a subfolder per class, on Debian fortunes written one saying per file (source: Debian package
+// "fortunes"). The encodings, skipped files and errors are checked on small files made here.
+import { strict as assert } from 'node:assert';
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { openCorpusInput } from '../extension/src/engine/read/many-files-corpus';
+import type { CorpusRow } from '../extension/src/engine/read/corpus-source';
+import { startReview } from '../extension/src/engine/review/start-review';
+import { isShardsInput } from '../extension/src/engine/shards/review-in-threads';
+import { isUserError } from '../extension/src/engine/user-error';
+import { readFortunes } from './corpora/fortunes';
+import { reportDifferences } from './support/report-diff';
+import { PYTHON, requireSklearn } from './reference/run-sklearn';
+
+async function allRows(folder: string, options: Parameters<typeof openCorpusInput>[1]) {
+  const source = await openCorpusInput(folder, options);
+  const rows: CorpusRow[] = [];
+  for await (const batch of source.batches(7)) rows.push(...batch);
+  return { source, rows };
+}
+
+describe('a folder read one document per file (format "files")', function () {
+  this.timeout(120_000);
+  let dir = '';
+  before(() => {
+    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-files-'));
+  });
+  after(() => rmSync(dir, { recursive: true, force: true }));
+
+  it('gives the documents and labels scikit-learn\'s load_files gives, in the same order (Debian fortunes)', async () => {
+    requireSklearn();
+    const folder = path.join(dir, 'fortunes');
+    const fortunes = readFortunes(['food', 'law', 'science'], 30);
+    fortunes.forEach((f, i) => {
+      mkdirSync(path.join(folder, f.category), { recursive: true });
+      writeFileSync(path.join(folder, f.category, `saying-${String(i).padStart(3, '0')}.txt`), `${f.text}\n`);
+    });
+    const { source, rows } = await allRows(folder, { format: 'files', labelField: 'folder' });
+    const script = [
+      'import json, sys',
+      'from sklearn.datasets import load_files',
+      'b = load_files(sys.argv[1], shuffle=False, encoding="utf-8")',
+      'print(json.dumps({"texts": b.data, "labels": [b.target_names[t] for t in b.target]}))',
+    ].join('\n');
+    const r = spawnSync(PYTHON, ['-c', script, folder], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+    assert.equal(r.status, 0, r.stderr);
+    const theirs = JSON.parse(r.stdout) as { texts: string[]; labels: string[] };
+    assert.equal(rows.length, fortunes.length);
+    assert.deepEqual(rows.map((row) => row.text), theirs.texts);
+    assert.deepEqual(rows.map((row) => row.label), theirs.labels);
+    assert.deepEqual(source.places.documents, rows.map(() => 1));
+    assert.ok(rows.every((row) => row.line === 1));
+    assert.deepEqual(source.notes, [`${fortunes.length} files read as one document each`]);
+  });
+
+  it('decodes each file like a corpus file, skips binary and empty ones with their reason, and leaves hidden ones out', async () => {
+    const folder = path.join(dir, 'mixed');
+    for (const sub of ['a', 'b', 'c', '.git']) mkdirSync(path.join(folder, sub), { recursive: true });
+    writeFileSync(path.join(folder, 'a', 'plain.text'), 'plain UTF-8 text, déjà vu\n');
+    writeFileSync(path.join(folder, 'a', 'latin.txt'), Buffer.from([0x63, 0x61, 0x66, 0xe9, 0x20, 0x6e, 0x6f, 0x69, 0x72])); // "café noir" in windows-1252
+    writeFileSync(path.join(folder, 'b', 'wide.rst'), Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from('UTF-16 with a mark', 'utf16le')]));
+    writeFileSync(path.join(folder, 'b', 'empty.txt'), '  \n');
+    writeFileSync(path.join(folder, 'c', 'image.png'), Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x00, 0x01]));
+    writeFileSync(path.join(folder, '.git', 'HEAD'), 'ref: refs/heads/main\n');
+    writeFileSync(path.join(folder, '.hidden.txt'), 'never read\n');
+    writeFileSync(path.join(folder, 'top.txt'), 'a document at the top has no folder\n');
+    const { source, rows } = await allRows(folder, { format: 'files', labelField: 'folder' });
+    assert.deepEqual(
+      rows.map((r) => [r.label, r.text.trim()]),
+      [
+        ['a', 'café noir'],
+        ['a', 'plain UTF-8 text, déjà vu'],
+        ['b', 'UTF-16 with a mark'],
+        [null, 'a document at the top has no folder'],
+      ],
+    );
+    assert.equal(source.skipped.count, 2);
+    assert.deepEqual(source.skipped.examples.map((e) => e.reason), ['b/empty.txt: an empty file', 'c/image.png: a binary file (a NUL byte), not text']);
+    assert.ok(source.notes?.some((n) => n.startsWith('a/latin.txt: not valid UTF-8')), JSON.stringify(source.notes));
+    assert.deepEqual(source.places.keys, ['a/latin.txt', 'a/plain.text', 'b/empty.txt', 'b/wide.rst', 'c/image.png', 'top.txt']);
+    assert.deepEqual(source.places.documents, [1, 1, 0, 1, 0, 1]);
+    const unlabelled = await allRows(folder, { format: 'files' });
+    assert.ok(unlabelled.rows.every((r) => r.label === null), 'no label unless the label field is "folder"');
+  });
+
+  it('refuses what it cannot mean, naming the file', async () => {
+    const folder = path.join(dir, 'refuse');
+    mkdirSync(path.join(folder, 'x'), { recursive: true });
+    writeFileSync(path.join(folder, 'x', 'one.txt'), 'one\n');
+    const refusal = async (input: string, options: Parameters<typeof openCorpusInput>[1]): Promise<{ message: string; file: string | null }> => {
+      try {
+        await allRows(input, options);
+      } catch (e) {
+        assert.ok(isUserError(e), String(e));
+        return { message: e.message, file: e.file };
+      }
+      assert.fail('no error');
+    };
+    assert.match((await refusal(folder, { format: 'files', labelField: 'topic' })).message, /the label can only be "folder".*not "topic"/);
+    assert.match((await refusal(folder, { format: 'files', textField: 'body' })).message, /the text field is "text", not "body"/);
+    const single = await refusal(path.join(folder, 'x', 'one.txt'), { format: 'files' });
+    assert.match(single.message, /format "files" reads a folder/);
+    assert.equal(single.file, path.join(folder, 'x', 'one.txt'));
+    assert.match((await refusal(path.join(dir, 'no-such-folder'), { format: 'files' })).message, /cannot list the folder \(ENOENT\)/);
+  });
+
+  it('is reviewed as one corpus, with the Report of the same documents as JSON Lines', async () => {
+    const folder = path.join(dir, 'review');
+    const fortunes = readFortunes(['computers', 'food', 'law', 'love'], 60);
+    const lines: string[] = [];
+    fortunes.forEach((f, i) => {
+      mkdirSync(path.join(folder, f.category), { recursive: true });
+      writeFileSync(path.join(folder, f.category, `${String(i).padStart(4, '0')}.txt`), f.text);
+      lines.push(JSON.stringify({ text: f.text, label: f.category }));
+    });
+    const jsonl = path.join(dir, 'review.jsonl');
+    writeFileSync(jsonl, `${lines.join('\n')}\n`);
+    // The sample is drawn by place (file, line), which differs between the two layouts: with a
+    // sample larger than the corpus both measure every document.
+    const settings = { stopList: null, sample: { documents: 300 } };
+    const input = { file: folder, configPath: null, overrides: { ...settings, format: 'files' as const, label: 'folder' } };
+    assert.equal(await isShardsInput(input), false, 'a folder of documents is not a folder of shards');
+    assert.equal(await isShardsInput({ ...input, overrides: settings }), true);
+    const fromFolder = (await startReview(input)).report;
+    const fromLines = (await startReview({ file: jsonl, configPath: null, overrides: { ...settings, label: 'label' } })).report;
+    const { differences } = reportDifferences({ ...fromLines, input: null, settings: null, provenance: null, hubs: null }, { ...fromFolder, input: null, settings: null, provenance: null, hubs: null });
+    assert.deepEqual(differences, []);
+    assert.equal(fromFolder.input.documents, fortunes.length);
+    assert.equal(fromFolder.input.format, 'files');
+    assert.ok(fromFolder.baseline.labelPrecisionAtK !== null, 'the folders are the labels');
+    // A hub's place is its file, line 1.
+    assert.ok(fromFolder.hubs.every((h) => h.line === 1));
+  });
+});
