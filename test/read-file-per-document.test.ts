@@ -12,6 +12,7 @@ import type { CorpusRow } from '../extension/src/engine/read/corpus-source';
 import { startReview } from '../extension/src/engine/review/start-review';
 import { isShardsInput } from '../extension/src/engine/shards/review-in-threads';
 import { isUserError } from '../extension/src/engine/user-error';
+import { formatText } from '../extension/src/cli/format-text';
 import { readFortunes } from './corpora/fortunes';
 import { reportDifferences } from './support/report-diff';
 import { PYTHON, requireSklearn } from './reference/run-sklearn';
@@ -117,6 +118,8 @@ describe('a folder read one document per file (format "files")', function () {
       writeFileSync(path.join(folder, f.category, `${String(i).padStart(4, '0')}.txt`), f.text);
       lines.push(JSON.stringify({ text: f.text, label: f.category }));
     });
+    // A file that is not text: skipped, and said so as a file, not as a row.
+    writeFileSync(path.join(folder, 'food', 'photo.jpg'), Buffer.from([0xff, 0xd8, 0xff, 0x00, 0x10]));
     const jsonl = path.join(dir, 'review.jsonl');
     writeFileSync(jsonl, `${lines.join('\n')}\n`);
     // The sample is drawn by place (file, line), which differs between the two layouts: with a
@@ -134,5 +137,8 @@ describe('a folder read one document per file (format "files")', function () {
     assert.ok(fromFolder.baseline.labelPrecisionAtK !== null, 'the folders are the labels');
     // A hub's place is its file, line 1.
     assert.ok(fromFolder.hubs.every((h) => h.line === 1));
+    const text = formatText(fromFolder);
+    assert.match(text, /; 1 file skipped\n/);
+    assert.match(text, /\nSkipped food\/photo\.jpg: a binary file \(a NUL byte\), not text\n/);
   });
 });

@@ -4,6 +4,7 @@
 import type { Report } from '../../extension/src/protocol';
 import { el, type Child } from './create-element';
 import { formatBytes, formatCount, formatNumber } from './format';
+import { skippedWording } from '../../extension/src/skipped-wording';
 
 export function renderReportHeader(report: Report, actions: readonly HTMLElement[]): HTMLElement {
   const input = report.input;
@@ -27,12 +28,13 @@ export function renderReportHeader(report: Report, actions: readonly HTMLElement
   }
   if (input.skipped > 0) {
     const examples = input.skippedExamples ?? [];
-    const summary = `${formatCount(input.skipped)} row${input.skipped === 1 ? '' : 's'} skipped`;
+    const wording = skippedWording(input.format);
+    const summary = `${formatCount(input.skipped)} ${wording.unit}${input.skipped === 1 ? '' : 's'} skipped`;
     notes.push(
       examples.length > 0
         ? el('details', { className: 'lw-note' }, [
             el('summary', { text: summary }),
-            el('ul', {}, examples.map((x) => el('li', { text: `line ${formatCount(x.line)}: ${x.reason}` }))),
+            el('ul', {}, examples.map((x) => el('li', { text: wording.example(x) }))),
           ])
         : el('p', { className: 'lw-note', text: summary }),
     );

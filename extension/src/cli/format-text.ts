@@ -5,6 +5,7 @@ import { formatCount } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 import { suggestionLines } from '../engine/terms/stop-list-spelling';
+import { skippedWording } from '../skipped-wording';
 
 const TERMS_SHOWN = 15;
 const HUBS_SHOWN = 5;
@@ -24,12 +25,13 @@ export function formatText(report: Report): string {
     for (const c of verdict.caveats) out.push(`  ${lead}: ${c}`);
     out.push('');
   }
+  const skipped = skippedWording(input.format);
   out.push(
     `${count(input.documents, 'document')}, ${count(vocabulary.terms, 'term')}, ${count(vocabulary.tokens, 'token')} ` +
-      `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${count(input.skipped, 'row')} skipped`,
+      `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${count(input.skipped, skipped.unit)} skipped`,
   );
   for (const note of input.notes ?? []) out.push(`Note: ${note}`);
-  for (const s of input.skippedExamples ?? []) out.push(`Skipped line ${s.line}: ${s.reason}`);
+  for (const s of input.skippedExamples ?? []) out.push(`Skipped ${skipped.example(s)}`);
   if (input.truncated) out.push(`Read only the first ${count(input.truncated.bytesRead, 'byte')} (limit ${formatCount(input.truncated.limitBytes)}).`);
   out.push(`Stop list: ${report.stopList.file ?? 'none'} (${count(report.stopList.terms, 'term')}${report.stopList.unused.length ? `, ${report.stopList.unused.length} never ${verb(report.stopList.unused.length, 'occurs', 'occur')}` : ''})`);
   const provenance = provenanceLine(report);
