@@ -1,7 +1,7 @@
 import type { Report } from '../protocol';
 import { provenanceLine } from './format-provenance';
 import { count, verb, wrapLines } from './text-layout';
-import { formatCount } from '../number-format';
+import { formatCount, formatNumber } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 import { suggestionLines } from '../engine/terms/stop-list-spelling';
@@ -28,7 +28,7 @@ export function formatText(report: Report): string {
   const skipped = skippedWording(input.format);
   out.push(
     `${count(input.documents, 'document')}, ${count(vocabulary.terms, 'term')}, ${count(vocabulary.tokens, 'token')} ` +
-      `(mean ${vocabulary.meanDocLength.toFixed(1)} per document); ${count(input.skipped, skipped.unit)} skipped`,
+      `(mean ${formatNumber(vocabulary.meanDocLength)} per document); ${count(input.skipped, skipped.unit)} skipped`,
   );
   for (const note of input.notes ?? []) out.push(`Note: ${note}`);
   for (const s of input.skippedExamples ?? []) out.push(`Skipped ${skipped.example(s)}`);
