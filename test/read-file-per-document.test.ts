@@ -88,7 +88,7 @@ describe('a folder read one document per file (format "files")', function () {
     assert.ok(unlabelled.rows.every((r) => r.label === null), 'no label unless the label field is "folder"');
   });
 
-  it('refuses what it cannot mean, naming the file', async () => {
+  it('refuses what it cannot read, naming the file, and leaves column settings aside with a note', async () => {
     const folder = path.join(dir, 'refuse');
     mkdirSync(path.join(folder, 'x'), { recursive: true });
     writeFileSync(path.join(folder, 'x', 'one.txt'), 'one\n');
@@ -101,8 +101,11 @@ describe('a folder read one document per file (format "files")', function () {
       }
       assert.fail('no error');
     };
-    assert.match((await refusal(folder, { format: 'files', labelField: 'topic' })).message, /the label can only be "folder".*not "topic"/);
-    assert.match((await refusal(folder, { format: 'files', textField: 'body' })).message, /the text field is "text", not "body"/);
+    // A text or label setting that names a column (a loudword.json written for the project's
+    // tables) is left aside with a note, as plain text does.
+    const aside = await allRows(folder, { format: 'files', textField: 'body', labelField: 'topic' });
+    assert.deepEqual(aside.rows.map((r) => [r.text, r.label]), [['one\n', null]]);
+    assert.match(aside.source.notes?.join('\n') ?? '', /the settings text "body" and label "topic" were ignored \(its label can be "folder"/);
     const single = await refusal(path.join(folder, 'x', 'one.txt'), { format: 'files' });
     assert.match(single.message, /format "files" reads a folder/);
     assert.equal(single.file, path.join(folder, 'x', 'one.txt'));

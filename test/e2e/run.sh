@@ -149,6 +149,8 @@ echo "e2e: extension installed by $installed"
 [[ -d "$REPO/samples" ]] && cp -R "$REPO/samples/." "$WORKSPACE/"
 cp -R "$REPO/test/e2e/fixtures/." "$WORKSPACE/"
 rm -f "$WORKSPACE/.keep"
+# A folder of documents, one per file (the "folder of .md documents" scenario).
+node "$REPO/test/e2e/lib/write-ticket-notes.mjs" "$WORKSPACE"
 # The bench's 100k corpus (what-if latency, cancel): created before the editor starts so that
 # quick open indexes it; its own loudword.json names its columns.
 mkdir -p "$WORKSPACE/bench100k"

@@ -10,7 +10,8 @@ import { malformedCorpus } from './scenarios/malformed-corpus.mjs';
 import { exportHtmlReport } from './scenarios/export-html-report.mjs';
 import { cancelReview, whatIfLatency, whatIfLatency100k } from './scenarios/what-if-latency.mjs';
 import { reviewShardsFolder } from './scenarios/review-shards-folder.mjs';
+import { reviewDocumentsFolder } from './scenarios/review-documents-folder.mjs';
 import { corpusMarkers } from './scenarios/corpus-markers.mjs';
 import { columnPicker } from './scenarios/column-picker.mjs';
 
-export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, corpusMarkers, columnPicker, reviewShardsFolder, whatIfLatency, cancelReview, whatIfLatency100k];
+export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, corpusMarkers, columnPicker, reviewShardsFolder, reviewDocumentsFolder, whatIfLatency, cancelReview, whatIfLatency100k];

@@ -1,5 +1,6 @@
 // What the commands, the panel and the listeners share: the reviews, the panel, and the few
 // operations more than one of them starts. Lives as long as the extension.
+import { promises as fs } from 'node:fs';
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import type { Report } from '../protocol';
@@ -14,6 +15,7 @@ import { isCancelled } from '../worker/review-worker-client';
 import { isUserError } from '../engine/user-error';
 import type { SettingsOverrides } from '../engine/config/settings-overrides';
 import { pickMissingColumn } from './column-picker';
+import { offersFilePerDocument } from './pure/file-per-document-offer';
 
 export class HostContext {
   panel: DistanceReviewViewProvider | null = null;
@@ -53,20 +55,30 @@ export class HostContext {
       // The text or label field is not in the file: offer its columns rather than only the error.
       // Each field is asked for at most once, so a file missing both gets two picks, then a review.
       if (isUserError(e)) {
-        const picked = await pickMissingColumn(uri, e.message, Object.keys(overrides));
-        if (picked !== null) {
-          const chosen = { ...overrides, ...picked };
-          const again = await this.review(uri, reveal, chosen);
-          if (again !== null && Object.keys(overrides).length === 0) {
-            const pairs = Object.entries(again.lastOverrides).map(([key, value]) => `"${key}": ${JSON.stringify(value)}`);
-            void vscode.window.showInformationMessage(`Loudword: reviewed with ${pairs.join(', ')}. To keep ${pairs.length === 1 ? 'it' : 'them'}, set ${pairs.join(', ')} in loudword.json.`);
-          }
-          return again;
+        if (offersFilePerDocument(e.message, Object.keys(overrides))) {
+          const read = 'Review each file as one document';
+          const answer = await vscode.window.showWarningMessage(`Loudword: ${path.basename(uri.fsPath)} holds no table or line files (.csv, .jsonl, .txt…).`, read);
+          // A label the settings name (for a table elsewhere in the project) is no field of a
+          // folder of files: its subfolders are the labels, where it has any.
+          if (answer === read) return this.reviewWith(uri, reveal, overrides, { format: 'files', label: (await hasSubfolders(uri.fsPath)) ? 'folder' : null });
+          return null;
         }
+        const picked = await pickMissingColumn(uri, e.message, Object.keys(overrides));
+        if (picked !== null) return this.reviewWith(uri, reveal, overrides, picked);
       }
       void showReviewError(e);
       return null;
     }
+  }
+
+  /** Reviews again with what the user chose after an error, and says how to keep the choice. */
+  private async reviewWith(uri: vscode.Uri, reveal: boolean, overrides: SettingsOverrides, chosen: SettingsOverrides): Promise<CorpusReview | null> {
+    const again = await this.review(uri, reveal, { ...overrides, ...chosen });
+    if (again !== null && Object.keys(overrides).length === 0) {
+      const pairs = Object.entries(again.lastOverrides).map(([key, value]) => `"${key}": ${JSON.stringify(value)}`);
+      void vscode.window.showInformationMessage(`Loudword: reviewed with ${pairs.join(', ')}. To keep ${pairs.length === 1 ? 'it' : 'them'}, set ${pairs.join(', ')} in loudword.json.`);
+    }
+    return again;
   }
 
   /** The review a command without arguments means: the active editor's, else the panel's. */
@@ -128,5 +140,14 @@ export class HostContext {
     const review = editor === undefined ? undefined : this.store.get(editor.document.uri);
     if (refocus && review?.report != null) this.store.focus(review);
     await vscode.commands.executeCommand('setContext', 'loudword.activeEditorReviewed', review?.report != null);
+  }
+}
+
+/** Whether the folder holds a subfolder that is not hidden (a class, in the layout format "files" reads). */
+async function hasSubfolders(folder: string): Promise<boolean> {
+  try {
+    return (await fs.readdir(folder, { withFileTypes: true })).some((e) => e.isDirectory() && !e.name.startsWith('.'));
+  } catch {
+    return false;
   }
 }

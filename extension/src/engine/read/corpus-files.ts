@@ -14,6 +14,9 @@ export interface CorpusFile {
   key: string;
 }
 
+/** The start of the error for a folder with no file a table or lines can be read from (the editor then offers format "files"). */
+export const NO_CORPUS_FILES = 'the folder holds no corpus files';
+
 /** File names a folder of shards may hold; anything else in it (a README, a .crc) is left out. */
 const CORPUS_FILE = /\.(csv|tsv|tab|jsonl|ndjson|txt|text|parquet)(\.gz)?$/i;
 
@@ -48,7 +51,7 @@ export async function listCorpusFiles(input: string): Promise<CorpusFile[]> {
     if (!isDir) return [{ path: input, key: path.basename(input) }];
     const files = (await walk(input)).filter((rel) => CORPUS_FILE.test(rel));
     if (files.length === 0) {
-      throw new UserError('the folder holds no corpus files (.csv, .tsv, .jsonl, .txt, .parquet, optionally .gz); for a folder of documents, one per file, use --input-format files (format "files")', input, null);
+      throw new UserError(`${NO_CORPUS_FILES} (.csv, .tsv, .jsonl, .txt, .parquet, optionally .gz); for a folder of documents, one per file, use --input-format files (format "files")`, input, null);
     }
     return sorted(files.map((rel) => ({ path: path.join(input, rel), key: rel })));
   }

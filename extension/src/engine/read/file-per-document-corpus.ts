@@ -25,12 +25,11 @@ export const FILE_FOLDER_FIELD = 'folder';
  * else windows-1252, with a note). Its place is (path, line 1).
  */
 export async function openFilePerDocument(folder: string, options: ReadOptions = {}): Promise<PlacedCorpusSource> {
-  if (options.textField !== undefined && options.textField !== null && options.textField !== FILE_TEXT_FIELD) {
-    throw new UserError(`with format "files" each file is one document's text: the text field is "${FILE_TEXT_FIELD}", not "${options.textField}"`, folder, null);
-  }
-  if (options.labelField !== undefined && options.labelField !== null && options.labelField !== FILE_FOLDER_FIELD) {
-    throw new UserError(`with format "files" the label can only be "${FILE_FOLDER_FIELD}" (each file's first subfolder), not "${options.labelField}"`, folder, null);
-  }
+  // Like plain text, a folder of files has no columns: a text or label setting that names one
+  // (a project's loudword.json written for its tables) is left aside, and a note says so.
+  const ignored: string[] = [];
+  if (options.textField != null && options.textField !== FILE_TEXT_FIELD) ignored.push(`text "${options.textField}"`);
+  if (options.labelField != null && options.labelField !== FILE_FOLDER_FIELD) ignored.push(`label "${options.labelField}"`);
   let keys: string[];
   try {
     keys = (await walk(folder)).sort(compareUtf8);
@@ -39,7 +38,10 @@ export async function openFilePerDocument(folder: string, options: ReadOptions =
     throw new UserError(code === 'ENOTDIR' ? 'format "files" reads a folder, one document per file; this is a file' : `cannot list the folder (${code ?? (e as Error).message})`, folder, null);
   }
   if (keys.length === 0) throw new UserError('the folder holds no files (hidden ones are left out)', folder, null);
-  return new FilePerDocumentCorpus(folder, keys, options.labelField === FILE_FOLDER_FIELD ? FILE_FOLDER_FIELD : null, options.maxBytes ?? null);
+  const note = ignored.length === 0
+    ? null
+    : `a folder read one document per file has no columns: the setting${ignored.length === 1 ? '' : 's'} ${ignored.join(' and ')} ${ignored.length === 1 ? 'was' : 'were'} ignored (its label can be "${FILE_FOLDER_FIELD}", each file's first subfolder)`;
+  return new FilePerDocumentCorpus(folder, keys, options.labelField === FILE_FOLDER_FIELD ? FILE_FOLDER_FIELD : null, options.maxBytes ?? null, note);
 }
 
 class FilePerDocumentCorpus implements PlacedCorpusSource {
@@ -56,16 +58,17 @@ class FilePerDocumentCorpus implements PlacedCorpusSource {
     private readonly keys: readonly string[],
     readonly labelField: string | null,
     private readonly maxBytes: number | null,
+    private readonly settingsNote: string | null,
   ) {
     this.places = { keys: [...keys], documents: keys.map(() => 0) };
-    this.notes = [this.countNote()];
+    this.notes = this.firstNotes();
   }
 
   async *batches(batchSize = DEFAULT_BATCH_SIZE): AsyncGenerator<CorpusRow[]> {
     const skipped = { count: 0, examples: [] as SkippedRow[] };
     this.skipped = skipped;
     this.truncated = null;
-    const notes = [this.countNote()];
+    const notes = this.firstNotes();
     this.notes = notes;
     const skip = (key: string, reason: string): void => {
       skipped.count++;
@@ -108,8 +111,9 @@ class FilePerDocumentCorpus implements PlacedCorpusSource {
     if (rows.length > 0) yield rows;
   }
 
-  private countNote(): string {
-    return `${this.keys.length} file${this.keys.length === 1 ? '' : 's'} read as one document each`;
+  private firstNotes(): string[] {
+    const count = `${this.keys.length} file${this.keys.length === 1 ? '' : 's'} read as one document each`;
+    return this.settingsNote === null ? [count] : [count, this.settingsNote];
   }
 }
 
