@@ -176,8 +176,8 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
 /**
  * Begins the term review's work that needs no distance measure, so that it overlaps the
  * baseline's: the prior and protected columns and, where the matrix is shared, the baseline's
- * spread pass (the baseline's measure adopts it as its exact sums) and then the suggestion rule's
- * joint-share passes, in series on one thread (each a pass over every non-zero, ~0.3 s at 100k
+ * spread pass on a thread (the baseline's measure adopts it as its exact sums) and the suggestion
+ * rule's joint-share passes in series on another (each a pass over every non-zero, ~0.3 s at 100k
  * documents). The rule's asks depend on whether the corpus reads as opinion text,
  * which the opinion check tells only later: the passes begun are those of topic text, what nearly
  * every corpus is and every corpus of long documents must be. reviewTerms uses a pass only where
@@ -194,18 +194,12 @@ export function startTermReview(input: TermReviewStart): BegunTermReview {
   let baseSpread: PendingTermSums | null = null;
   if (lab.sums === DistanceLab.prototype.sums) {
     const asks = plannedShareAsks(choiceInput(input, prior, protect, false));
-    // The baseline's spread pass, with each row's norm: its sums are also the baseline's exact
-    // sums (the spread adds Σ x ln x and changes no other sum), so the baseline's measure adopts
-    // it (DistanceLab.measure) instead of a pass of its own, and the table reads its spread. It
-    // goes first on the thread of the rule's passes, since the baseline needs it first: while
-    // this thread measures, the passes have one core between them, so a thread of its own for
-    // it only made the two share that core (and started one more thread, which compiles the
-    // same pass again).
-    const [spread, ...pending] = startMaskedTermSumsInSeries(lab.weights, [
-      { removed: input.baseMask, withSpread: true, rowNorms: true },
-      ...asks.map((a) => ({ removed: a.removed, withSpread: false })),
-    ]);
-    baseSpread = spread!;
+    // The baseline's spread pass, with each row's norm, on a thread of its own: its sums are also
+    // the baseline's exact sums (the spread adds Σ x ln x and changes no other sum), so the
+    // baseline's measure adopts it (DistanceLab.measure) instead of a pass of its own, and the
+    // table reads its spread. Not in series with the rule's passes: the baseline needs it first.
+    baseSpread = startMaskedTermSums(lab.weights, input.baseMask, true, undefined, true);
+    const pending = startMaskedTermSumsInSeries(lab.weights, asks.map((a) => ({ removed: a.removed, withSpread: false })));
     asks.forEach((ask, i) => shares.push({ ask, pending: pending[i]! }));
   }
   return { prior, protect, opinion, shares, baseSpread };
