@@ -250,6 +250,9 @@ describe('webview in Chromium', function () {
       assert.deepEqual(await row('sample.documents'), ['sample.documents', String(report.settings.sample.documents), 'editor setting', 'loudword.sampleSize']);
       assert.match((await details.textContent()) ?? '', /Stop list: \/work\/project\/lists\/stoplist\.txt \(41 terms\)/);
       assert.deepEqual(seen.errors, []);
+      // Without a config file the line says so, not "Settings from no loudword.json".
+      const none = await openStandalone({ ...report, provenance: { config: { file: null, how: 'none' }, sources: {} } });
+      assert.equal(await none.page.locator('.lw-provenance summary').textContent(), 'Settings without a loudword.json (none found); stop list stoplist.txt');
     });
 
     it('shows 500 rows of a 20,000-term report and 500 more on request', async () => {

@@ -69,7 +69,8 @@ const HOW: Record<NonNullable<Report['provenance']>['config']['how'], string> = 
 export function renderProvenance(report: Report): HTMLElement | null {
   const p = report.provenance;
   if (p === undefined) return null;
-  const config = p.config.file === null ? `no loudword.json (${HOW[p.config.how]})` : `${baseName(p.config.file)} (${HOW[p.config.how]})`;
+  // "Settings without a loudword.json (none found)", never "Settings from no loudword.json".
+  const config = p.config.file === null ? `without a loudword.json (${HOW[p.config.how]})` : `from ${baseName(p.config.file)} (${HOW[p.config.how]})`;
   const stop = report.stopList.file === null ? 'no stop list' : `stop list ${baseName(report.stopList.file)}`;
   const keys = Object.keys(p.sources).sort();
   const rows = keys.map((key) => {
@@ -82,7 +83,7 @@ export function renderProvenance(report: Report): HTMLElement | null {
     ]);
   });
   return el('details', { className: 'lw-note lw-provenance' }, [
-    el('summary', { text: `Settings from ${config}; ${stop}` }),
+    el('summary', { text: `Settings ${config}; ${stop}` }),
     el('p', {}, [
       'Config: ',
       el('span', { className: 'lw-provenance__path', text: p.config.file ?? HOW[p.config.how] }),

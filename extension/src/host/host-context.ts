@@ -52,9 +52,8 @@ export class HostContext {
         if (review.cancelledByUser) void vscode.window.showInformationMessage('Loudword: Review cancelled.');
         return null;
       }
-      // The text or label field is not in the file: offer its columns rather than only the error.
-      // Each field is asked for at most once, so a file missing both gets two picks, then a review.
       if (isUserError(e)) {
+        // A folder with no table or line files: offer to read each file in it as one document.
         if (offersFilePerDocument(e.message, Object.keys(overrides))) {
           const read = 'Review each file as one document';
           const answer = await vscode.window.showWarningMessage(`Loudword: ${path.basename(uri.fsPath)} holds no table or line files (.csv, .jsonl, .txt…).`, read);
@@ -63,6 +62,8 @@ export class HostContext {
           if (answer === read) return this.reviewWith(uri, reveal, overrides, { format: 'files', label: (await hasSubfolders(uri.fsPath)) ? 'folder' : null });
           return null;
         }
+        // The text or label field is not in the file: offer its columns rather than only the error.
+        // Each field is asked for at most once, so a file missing both gets two picks, then a review.
         const picked = await pickMissingColumn(uri, e.message, Object.keys(overrides));
         if (picked !== null) return this.reviewWith(uri, reveal, overrides, picked);
       }
