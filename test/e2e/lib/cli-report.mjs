@@ -5,11 +5,11 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 
-/** E2E_CLI (set by run.sh) is the CLI bundled in the installed extension: the same build. */
-export function cliReport(repo, corpus, config) {
+/** E2E_CLI (set by run.sh) is the CLI bundled in the installed extension: the same build. `flags` go before --config. */
+export function cliReport(repo, corpus, config, flags = []) {
   const bin = process.env.E2E_CLI || path.join(repo, 'bin', 'loudword.js');
   return new Promise((resolve, reject) => {
-    execFile(process.execPath, [bin, 'review', corpus, '--config', config, '--format', 'json', '-q'],
+    execFile(process.execPath, [bin, 'review', corpus, ...flags, '--config', config, '--format', 'json', '-q'],
       { maxBuffer: 256 * 1024 * 1024, timeout: 180000 },
       (error, stdout, stderr) => {
         if (error) reject(new Error(`loudword review ${path.basename(corpus)} failed: ${stderr.trim() || error.message}`));

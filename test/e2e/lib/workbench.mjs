@@ -183,3 +183,16 @@ export async function saveActiveEditor(page, fileName) {
     return dirty === null;
   }, { timeout: 10000 });
 }
+
+/** Right-clicks `folder` in the explorer and picks "Review distances" from its context menu. */
+export async function reviewFolderFromExplorer(page, folder) {
+  const row = await waitUntil(`the folder ${folder} in the explorer`, () => page.$(`.explorer-folders-view .monaco-list-row[aria-label^="${folder}"]`), { timeout: 30000 });
+  await row.click({ button: 'right' });
+  const item = await waitUntil('"Review distances" in the explorer context menu', async () => {
+    for (const handle of await page.$$('.monaco-menu .action-item .action-label')) {
+      if (((await handle.textContent()) ?? '').trim() === 'Review distances') return handle;
+    }
+    return null;
+  }, { timeout: 15000 });
+  await item.click();
+}

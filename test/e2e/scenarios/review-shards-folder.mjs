@@ -7,8 +7,7 @@ import path from 'node:path';
 import { cliReport } from '../lib/cli-report.mjs';
 import { panelShowing } from '../lib/distance-review-panel.mjs';
 import { headlineMismatches } from '../lib/headline-mismatches.mjs';
-import { waitForCommand } from '../lib/workbench.mjs';
-import { waitUntil } from '../lib/wait-until.mjs';
+import { reviewFolderFromExplorer, waitForCommand } from '../lib/workbench.mjs';
 
 const FOLDER = 'ticket-shards';
 
@@ -20,15 +19,7 @@ export const reviewShardsFolder = {
     const cli = cliReport(ctx.repo, path.join(ctx.workspace, FOLDER), path.join(ctx.workspace, 'loudword.json'));
     cli.catch(() => {});
     await waitForCommand(page, 'Loudword: Review distances');
-    const row = await waitUntil(`the folder ${FOLDER} in the explorer`, () => page.$(`.explorer-folders-view .monaco-list-row[aria-label^="${FOLDER}"]`), { timeout: 30000 });
-    await row.click({ button: 'right' });
-    const item = await waitUntil('"Review distances" in the explorer context menu', async () => {
-      for (const handle of await page.$$('.monaco-menu .action-item .action-label')) {
-        if (((await handle.textContent()) ?? '').trim() === 'Review distances') return handle;
-      }
-      return null;
-    }, { timeout: 15000 });
-    await item.click();
+    await reviewFolderFromExplorer(page, FOLDER);
     const frame = await panelShowing(page, FOLDER, 240000);
     const report = await cli;
     const problems = await headlineMismatches(frame, report);
