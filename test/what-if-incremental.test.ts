@@ -169,6 +169,37 @@ describe('incremental what-if', () => {
     }
   });
 
+  it('IncrementalGram: a full build is restored bit for bit after the state (or its twin) moved on, though it is copied out only then', () => {
+    // The checkpoints are kept by reference until the arrays that hold them change (keepCheckpoint);
+    // restoring must give the full build's bits whether it was copied out or is read from its
+    // owner's arrays (a twin restoring its sibling's latest build). Reference: a fresh state's full
+    // build at the same mask (the Report's figure; common practice, no source).
+    const bits = (g: IncrementalGram, mask: Uint8Array): Float64Array => g.scaled(mask, false).dots.slice();
+    for (let seed = 1; seed <= 3; seed++) {
+      const random = generator(900 + seed);
+      const rows = textLikeRows(120, 40, random);
+      const [first, second, third] = toggleSequence(rows.cols, 3, random);
+      const want = (mask: Uint8Array): Float64Array => bits(new IncrementalGram(rows), mask);
+      const gram = new IncrementalGram(rows);
+      bits(gram, first!);
+      bits(gram, second!); // the first build is copied out here; the second is held by reference
+      const twin = gram.twin();
+      twin.copyFrom(gram);
+      // The twin restores the second build from the live arrays of `gram`, which still hold it.
+      twin.scaled(third!, true);
+      assert.deepEqual(bits(twin, second!), want(second!));
+      assert.equal(twin.lastStep.kind, 'restored');
+      // `gram` moves on by toggles: the second build is copied out before its arrays change.
+      for (const mask of toggleSequence(rows.cols, 8, random)) gram.scaled(mask, true);
+      assert.deepEqual(bits(gram, second!), want(second!));
+      assert.equal(gram.lastStep.kind, 'restored');
+      assert.deepEqual(bits(gram, first!), want(first!));
+      assert.equal(gram.lastStep.kind, 'restored');
+      assert.deepEqual(bits(twin, first!), want(first!));
+      assert.equal(twin.lastStep.kind, 'restored');
+    }
+  });
+
   it('IncrementalTermSums.at: one term toggled at a time (a panel click), the same term twice, a term in every row', () => {
     for (let seed = 1; seed <= 4; seed++) {
       const random = generator(500 + seed);

@@ -33,7 +33,7 @@ export class IncrementalGram {
   private ready = false;
   private updatedPairs = 0;
   /** D of full builds (the review's baseline and the latest Report figure), restored bit for bit. */
-  private checkpoints: Array<{ mask: Uint8Array; dots: Float64Array; shared: Uint16Array | Uint32Array }> = [];
+  private checkpoints: Checkpoint[] = [];
   /** Whether D is what a full build gives (not reached by updates). */
   private exact = false;
   /** A rebuild at the current mask is due (see settle). */
@@ -115,6 +115,7 @@ export class IncrementalGram {
    */
   copyFrom(other: IncrementalGram): void {
     if (other.rows !== this.rows) throw new Error('copyFrom: a state over other rows');
+    this.keepCheckpoint();
     this.dots.set(other.dots);
     this.shared.set(other.shared);
     this.inv.set(other.inv);
@@ -144,16 +145,23 @@ export class IncrementalGram {
     if (this.ready && sameMask(removed, this.mask) && (incremental || this.exact)) {
       this.lastStep = { kind: 'unchanged', pairs: 0 };
     } else if (checkpoint !== undefined) {
-      this.dots.set(checkpoint.dots);
-      this.shared.set(checkpoint.shared);
+      // Not this state's own unsaved checkpoint: that one's mask is this state's, caught above.
+      const owner = checkpoint.owner;
+      const dots = owner !== null ? owner.dots : checkpoint.dots!;
+      const shared = owner !== null ? owner.shared : checkpoint.shared!;
+      this.keepCheckpoint();
+      this.dots.set(dots);
+      this.shared.set(shared);
       this.mask.set(checkpoint.mask);
       this.updatedPairs = 0;
       this.settleDue = false;
       this.exact = true;
       this.lastStep = { kind: 'restored', pairs: 0 };
     } else if (!this.ready || !incremental) {
+      // The latest checkpoint is about to be replaced: no need to copy it out first.
+      if (this.checkpoints.length === 2 && this.checkpoints[1]!.owner === this) this.checkpoints.pop();
       this.build(removed);
-      const saved = { mask: this.mask.slice(), dots: this.dots.slice(), shared: this.shared.slice() };
+      const saved: Checkpoint = { mask: this.mask.slice(), dots: null, shared: null, owner: this };
       if (this.checkpoints.length < 2) this.checkpoints.push(saved);
       else this.checkpoints[1] = saved;
     } else {
@@ -171,8 +179,25 @@ export class IncrementalGram {
     }
   }
 
+  /**
+   * Copies out a checkpoint still held by this state's own arrays, before they change. A full
+   * build's D is kept by reference at first and copied only when the state moves on: the copy is
+   * 40 MB at the default 2,000 sampled documents (D and the shared counts), and a review without
+   * a panel never moves on from its last build, so it never pays for that one (each fresh page
+   * of the copy is a page fault, which costs this machine's kernel 10-20 µs).
+   */
+  private keepCheckpoint(): void {
+    for (const c of this.checkpoints) {
+      if (c.owner !== this) continue;
+      c.dots = this.dots.slice();
+      c.shared = this.shared.slice();
+      c.owner = null;
+    }
+  }
+
   /** D and the shared-term counts from scratch, through an inverted index of the rows seen. */
   private build(removed: Uint8Array): void {
+    this.keepCheckpoint();
     const { m, dots, shared } = this;
     const { indptr, indices, data, cols } = this.rows;
     const start = new Uint32Array(cols + 1);
@@ -221,6 +246,7 @@ export class IncrementalGram {
   }
 
   private update(changed: number[], removed: Uint8Array, cost: number, interrupt?: () => void): void {
+    this.keepCheckpoint();
     const { m, dots, shared, postPos, postVal } = this;
     const touched = new Uint8Array(m);
     for (const t of changed) {
@@ -272,6 +298,17 @@ export class IncrementalGram {
     this.lastStep = { kind: 'incremental', pairs: cost };
   }
 
+}
+
+/**
+ * A full build's D and shared-term counts at `mask`: copied out (`dots`, `shared`), or still the
+ * live arrays of `owner`, which copies them out before it changes them (keepCheckpoint).
+ */
+interface Checkpoint {
+  mask: Uint8Array;
+  dots: Float64Array | null;
+  shared: Uint16Array | Uint32Array | null;
+  owner: IncrementalGram | null;
 }
 
 /** Incremental pair updates, in multiples of m², after which settle() rebuilds D to reset drift. */
