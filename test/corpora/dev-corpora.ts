@@ -5,7 +5,7 @@ import { KERNEL_DOCS } from './kernel-docs';
 import { KJV_CHAPTERS } from './kjv-chapters';
 import type { DevCorpus } from './labelled-corpus';
 import { MAN_PAGES } from './man-pages';
-import { PACKAGE_DESCRIPTIONS } from './package-descriptions';
+import { PACKAGE_DESCRIPTIONS, PACKAGE_DESCRIPTIONS_20K } from './package-descriptions';
 import { PYTHON_DOCS } from './python-docs';
 import { RATED_SENTENCES } from './rated-sentences';
 import { REUTERS_SAMPLE } from './reuters-sample';
@@ -28,3 +28,18 @@ export const FORTUNES: DevCorpus = {
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
 export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS, KERNEL_DOCS, PYTHON_DOCS];
+
+/**
+ * Larger versions of development corpora, run only when named (`npm run quality -- <name>`):
+ * they check that the rule holds at the size a user's corpus may have, and take minutes each.
+ */
+export const LARGE_CORPORA: readonly DevCorpus[] = [PACKAGE_DESCRIPTIONS_20K];
+
+/** The corpora a quality script runs: the development set, or the ones named (large ones included). */
+export function corporaNamed(names: readonly string[]): DevCorpus[] {
+  if (names.length === 0) return [...DEV_CORPORA];
+  const all = [...DEV_CORPORA, ...LARGE_CORPORA];
+  const unknown = names.filter((n) => !all.some((c) => c.name === n));
+  if (unknown.length > 0) throw new Error(`unknown corpus ${unknown.join(', ')}; known: ${all.map((c) => c.name).join(', ')}`);
+  return all.filter((c) => names.includes(c.name));
+}

@@ -5,11 +5,11 @@
 // python3-sklearn) via test/quality/precision_at_k.py.
 //
 //   npm run quality            all corpora available on this machine
-//   npm run quality -- sotu    only the named ones
+//   npm run quality -- sotu    only the named ones (and larger corpora, which run only when named)
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
-import { DEV_CORPORA } from '../corpora/dev-corpora';
+import { corporaNamed } from '../corpora/dev-corpora';
 import { bounds, qualityRow, type Row } from './quality-row';
 
 async function main(): Promise<void> {
@@ -28,8 +28,7 @@ async function main(): Promise<void> {
   }
   const rows: Row[] = [];
   try {
-    for (const corpus of DEV_CORPORA) {
-      if (only.length > 0 && !only.includes(corpus.name)) continue;
+    for (const corpus of corporaNamed(only)) {
       if (!corpus.available()) {
         console.log(`${corpus.name}: not available — ${corpus.missing}`);
         continue;
