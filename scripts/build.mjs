@@ -3,6 +3,7 @@
 import { build } from 'esbuild';
 import { existsSync, mkdirSync, copyFileSync } from 'node:fs';
 import { buildSettingsValidator } from './settings-validator.mjs';
+import { wordRanges } from './word-ranges.mjs';
 
 const production = process.argv.includes('--production');
 const common = {
@@ -44,6 +45,8 @@ for (const e of entries) {
     format: e.format ?? 'cjs',
     target: e.platform === 'node' ? 'node20' : 'es2022',
     external: e.external ?? [],
+    // The token pattern scan's table of word characters, worked out once here (word-ranges.mjs).
+    define: e.platform === 'node' ? { LOUDWORD_WORD_RANGES: JSON.stringify(JSON.stringify(wordRanges())) } : {},
   });
 }
 // The settings schema compiled once here; the bundles above load it from beside them.

@@ -1,7 +1,11 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { strict as assert } from 'node:assert';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { createTermCoder, createTokenizer } from '../extension/src/engine/tokenize/create-tokenizer';
 import { IdList } from '../extension/src/engine/tokenize/id-list';
+import { wordUnitsByTest, wordUnitsFromRanges } from '../extension/src/engine/tokenize/word-run-coder';
 import { translatePythonPattern } from '../extension/src/engine/tokenize/pattern-tokenizer';
 import { UserError } from '../extension/src/engine/user-error';
 import { requireSklearn } from './reference/run-sklearn';
@@ -79,6 +83,22 @@ describe('tokenize: tokenizer "pattern" equals scikit-learn\'s analyzer', functi
       assert.equal(scanned.some((terms) => terms.includes('\ud835\udc9c\ud835\udcb7')), options.minLength < 3);
       assert.deepEqual(scanned, decode(true), JSON.stringify(options));
     }
+  });
+
+  it('the word-character table from the build\'s ranges (scripts/word-ranges.mjs) is the one testing every code unit gives, and the bundle carries those ranges', async () => {
+    // The reference is the scan's own test of each code unit (wordUnitsByTest), the same one the
+    // regex path makes (checked against Python above); the build must change nothing but when the
+    // table is made. Common practice, no source.
+    const script = pathToFileURL(join(__dirname, '..', 'scripts', 'word-ranges.mjs')).href;
+    const { wordRanges } = (await import(script)) as { wordRanges(): number[] };
+    const ranges = wordRanges();
+    assert.ok(ranges.length > 200, `only ${ranges.length / 2} ranges`);
+    assert.deepEqual(wordUnitsFromRanges(ranges), wordUnitsByTest());
+    // npm test builds first: the tokenising threads' bundle has the ranges written in.
+    const bundle = readFileSync(join(__dirname, '..', 'dist', 'tokenize-worker.js'), 'utf8');
+    const written = /wordUnitsFromRanges\(JSON\.parse\(("(?:[^"\\]|\\.)*")\)/.exec(bundle);
+    assert.ok(written !== null, 'dist/tokenize-worker.js does not build the table from ranges');
+    assert.deepEqual(JSON.parse(JSON.parse(written[1]!) as string), ranges);
   });
 
   it('user patterns in Python syntax: \\w+ with \\b, a class with \\d, a capturing group (the group is the token)', () => {
