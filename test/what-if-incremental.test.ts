@@ -200,6 +200,23 @@ describe('incremental what-if', () => {
     }
   });
 
+  it('IncrementalGram without checkpoints (a review asked no what-if) gives the same bits, building a mask met again instead of restoring it', () => {
+    // Reference: the same sequence on a state that keeps its checkpoints (common practice, no source).
+    for (let seed = 1; seed <= 3; seed++) {
+      const random = generator(950 + seed);
+      const rows = textLikeRows(120, 40, random);
+      const [first, second] = toggleSequence(rows.cols, 2, random);
+      const keeping = new IncrementalGram(rows);
+      const lean = new IncrementalGram(rows, undefined, false);
+      const steps: Array<[Uint8Array, boolean]> = [[first!, false], [second!, false], ...toggleSequence(rows.cols, 6, random).map((mask): [Uint8Array, boolean] => [mask, true]), [first!, false], [second!, false]];
+      for (const [mask, incremental] of steps) {
+        assert.deepEqual(lean.scaled(mask, incremental).dots.slice(), keeping.scaled(mask, incremental).dots.slice());
+      }
+      assert.equal(keeping.lastStep.kind, 'restored');
+      assert.equal(lean.lastStep.kind, 'full');
+    }
+  });
+
   it('IncrementalTermSums.at: one term toggled at a time (a panel click), the same term twice, a term in every row', () => {
     for (let seed = 1; seed <= 4; seed++) {
       const random = generator(500 + seed);

@@ -58,7 +58,7 @@ async function main(argv: readonly string[]): Promise<number> {
   if (options.out !== null) checkWriteTarget('--out', options.out, [...inputs, { role: 'the stop list', file: options.stopList }]);
   if (options.command === 'apply' && options.stopList !== null) checkWriteTarget('--stoplist', options.stopList, inputs);
   progress = progressLine(process.stderr, !options.quiet);
-  const report = options.dask !== null ? await reviewWithDask(options, options.dask) : (await startReview(input, { onStage: (stage) => progress?.stage(escapeControls(stage)) })).report;
+  const report = options.dask !== null ? await reviewWithDask(options, options.dask) : (await startReview(input, { onStage: (stage) => progress?.stage(escapeControls(stage)), reportOnly: true })).report;
   progress.clear();
   if (options.command === 'apply') return applySuggestions(report, options, inputs);
 

@@ -36,6 +36,11 @@ export interface ReviewHooks {
   onStage?(stage: ReviewStage, fraction: number): void;
   /** Aborting stops the review between batches; startReview then rejects with an AbortError. */
   signal?: AbortSignal;
+  /**
+   * The caller reads the Report and asks the session no what-if (the CLI): what only makes
+   * later what-ifs faster is skipped. A what-if asked anyway gets the same answers.
+   */
+  reportOnly?: boolean;
 }
 
 /**

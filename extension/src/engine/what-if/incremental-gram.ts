@@ -44,6 +44,11 @@ export class IncrementalGram {
     readonly rows: Csr,
     /** Where D and the row scales live (m×m and m entries; shared memory for SampleSide), else new arrays. */
     storage?: { dots: Float64Array; scale: Float64Array },
+    /**
+     * Whether full builds are kept for restoring. Without (a review nobody will ask a what-if,
+     * the CLI), a mask met again is built again: the same bits, without a second m×m copy.
+     */
+    private readonly keepsCheckpoints = true,
   ) {
     const m = rows.rows;
     this.m = m;
@@ -104,7 +109,7 @@ export class IncrementalGram {
    * as it was, and adopted by swapping the two (SampleSide).
    */
   twin(storage?: { dots: Float64Array; scale: Float64Array }): IncrementalGram {
-    const twin = new IncrementalGram(this.rows, storage);
+    const twin = new IncrementalGram(this.rows, storage, this.keepsCheckpoints);
     twin.checkpoints = this.checkpoints;
     return twin;
   }
@@ -161,6 +166,7 @@ export class IncrementalGram {
       // The latest checkpoint is about to be replaced: no need to copy it out first.
       if (this.checkpoints.length === 2 && this.checkpoints[1]!.owner === this) this.checkpoints.pop();
       this.build(removed);
+      if (!this.keepsCheckpoints) return;
       const saved: Checkpoint = { mask: this.mask.slice(), dots: null, shared: null, owner: this };
       if (this.checkpoints.length < 2) this.checkpoints.push(saved);
       else this.checkpoints[1] = saved;
