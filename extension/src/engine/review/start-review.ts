@@ -108,10 +108,10 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   stage('measuring');
   const places = { keys: source.places.keys, documents: source.places.documents, lines: prepared.lines };
   const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels, places);
-  // A review asked no what-if keeps no copy of the sample's baseline build for restoring it: 40 MB
-  // at 2,000 sampled documents, copied (~10k page faults, ~0.1 s of this thread's CPU) when the
-  // suggestions' build replaces it.
-  const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels, { checkpoints: hooks.reportOnly !== true });
+  // A review asked no what-if keeps no copy of the sample's baseline build for restoring it (40 MB
+  // at 2,000 sampled documents, copied when the suggestions' build replaced it: ~10k page faults,
+  // ~0.1 s of this thread's CPU) and counts no shared terms for updates that never come.
+  const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels, { whatIf: hooks.reportOnly !== true });
   // The suggestion rule's passes over the corpus need no measure: begun on other threads now,
   // they run while this one measures the baseline. The baseline's spread pass among them is
   // also the baseline's exact sums: its measure adopts it.

@@ -58,15 +58,15 @@ export class DistanceLab {
     readonly seed: number,
     /** Label id per sample position, −1 where the document has none; null without labels. */
     readonly sampleLabels: Int32Array | null,
-    /** Whether the sample's full builds are kept for restoring (IncrementalGram); off for a review asked no what-if. */
-    options: { checkpoints?: boolean } = {},
+    /** Whether the sample's state serves what-ifs after its full builds (IncrementalGram); off for a review asked no what-if. */
+    options: { whatIf?: boolean } = {},
   ) {
     this.sampleRows = selectRows(weights, sample);
     this.positions = new Uint32Array(sample.length).map((_, i) => i);
     const nnz = this.sampleRows.indptr[this.sampleRows.rows]!;
     this.buffers = { indptr: new Uint32Array(sample.length + 1), indices: new Uint32Array(nnz), data: new Float64Array(nnz) };
     this.exact = new IncrementalTermSums(weights);
-    this.gram = new IncrementalGram(this.sampleRows, undefined, options.checkpoints ?? true);
+    this.gram = new IncrementalGram(this.sampleRows, undefined, options.whatIf ?? true);
   }
 
   /** Exact term sums of the whole corpus with `removed` stopped. */

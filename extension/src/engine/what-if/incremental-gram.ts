@@ -36,6 +36,8 @@ export class IncrementalGram {
   private checkpoints: Checkpoint[] = [];
   /** Whether D is what a full build gives (not reached by updates). */
   private exact = false;
+  /** Whether `shared` holds the state's counts (a build without `forWhatIf` leaves them to countShared). */
+  private sharedValid = false;
   /** A rebuild at the current mask is due (see settle). */
   private settleDue = false;
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; pairs: number } = { kind: 'unchanged', pairs: 0 };
@@ -45,10 +47,13 @@ export class IncrementalGram {
     /** Where D and the row scales live (m×m and m entries; shared memory for SampleSide), else new arrays. */
     storage?: { dots: Float64Array; scale: Float64Array },
     /**
-     * Whether full builds are kept for restoring. Without (a review nobody will ask a what-if,
-     * the CLI), a mask met again is built again: the same bits, without a second m×m copy.
+     * Whether the state serves what-ifs after its full builds: keeps them for restoring, and
+     * counts the shared terms that updates need as it builds. Without (a review nobody will ask
+     * a what-if, the CLI), a mask met again is built again, and the counts are made only when an
+     * update first needs them: the same bits, without a second m×m copy, and a build ~35% cheaper
+     * (the counts are a second m×m array written in both halves).
      */
-    private readonly keepsCheckpoints = true,
+    private readonly forWhatIf = true,
   ) {
     const m = rows.rows;
     this.m = m;
@@ -109,7 +114,7 @@ export class IncrementalGram {
    * as it was, and adopted by swapping the two (SampleSide).
    */
   twin(storage?: { dots: Float64Array; scale: Float64Array }): IncrementalGram {
-    const twin = new IncrementalGram(this.rows, storage, this.keepsCheckpoints);
+    const twin = new IncrementalGram(this.rows, storage, this.forWhatIf);
     twin.checkpoints = this.checkpoints;
     return twin;
   }
@@ -122,7 +127,8 @@ export class IncrementalGram {
     if (other.rows !== this.rows) throw new Error('copyFrom: a state over other rows');
     this.keepCheckpoint();
     this.dots.set(other.dots);
-    this.shared.set(other.shared);
+    if (other.sharedValid) this.shared.set(other.shared);
+    this.sharedValid = other.sharedValid;
     this.inv.set(other.inv);
     this.mask.set(other.mask);
     this.ready = other.ready;
@@ -166,7 +172,7 @@ export class IncrementalGram {
       // The latest checkpoint is about to be replaced: no need to copy it out first.
       if (this.checkpoints.length === 2 && this.checkpoints[1]!.owner === this) this.checkpoints.pop();
       this.build(removed);
-      if (!this.keepsCheckpoints) return;
+      if (!this.forWhatIf) return;
       const saved: Checkpoint = { mask: this.mask.slice(), dots: null, shared: null, owner: this };
       if (this.checkpoints.length < 2) this.checkpoints.push(saved);
       else this.checkpoints[1] = saved;
@@ -204,6 +210,10 @@ export class IncrementalGram {
   /** D and the shared-term counts from scratch, through an inverted index of the rows seen. */
   private build(removed: Uint8Array): void {
     this.keepCheckpoint();
+    if (!this.forWhatIf) {
+      this.buildDots(removed);
+      return;
+    }
     const { m, dots, shared } = this;
     const { indptr, indices, data, cols } = this.rows;
     const start = new Uint32Array(cols + 1);
@@ -243,6 +253,12 @@ export class IncrementalGram {
       dots[base + i] = self;
       shared[base + i] = selfCount;
     }
+    this.sharedValid = true;
+    this.built(removed);
+  }
+
+  /** What every full build leaves besides D. */
+  private built(removed: Uint8Array): void {
     this.mask.set(removed.subarray(0, this.mask.length));
     this.ready = true;
     this.exact = true;
@@ -251,8 +267,75 @@ export class IncrementalGram {
     this.lastStep = { kind: 'full', pairs: this.fullCost };
   }
 
+  /** build's D alone, the same sums in the same order; the shared counts are left to countShared. */
+  private buildDots(removed: Uint8Array): void {
+    const { m, dots } = this;
+    const { indptr, indices, data, cols } = this.rows;
+    const start = new Uint32Array(cols + 1);
+    start.set(this.start);
+    const fill = start.slice(0, cols);
+    const pos = new Uint32Array(this.postPos.length);
+    const val = new Float64Array(this.postPos.length);
+    const acc = new Float64Array(m);
+    for (let i = 0; i < m; i++) {
+      let self = 0;
+      for (let p = indptr[i]!, end = indptr[i + 1]!; p < end; p++) {
+        const x = data[p]!;
+        const t = indices[p]!;
+        if (x === 0 || removed[t] !== 0) continue;
+        self += x * x;
+        const stop = fill[t]!;
+        for (let q = start[t]!; q < stop; q++) acc[pos[q]!] += x * val[q]!;
+        pos[stop] = i;
+        val[stop] = x;
+        fill[t] = stop + 1;
+      }
+      const base = i * m;
+      for (let j = 0; j < i; j++) {
+        dots[base + j] = acc[j]!;
+        dots[j * m + i] = acc[j]!;
+        acc[j] = 0;
+      }
+      dots[base + i] = self;
+    }
+    this.sharedValid = false;
+    this.built(removed);
+  }
+
+  /** The shared kept terms of every pair at the state's mask, as build counts them (before an update needs them). */
+  private countShared(): void {
+    const { m, shared, mask } = this;
+    const { indptr, indices, data, cols } = this.rows;
+    const start = new Uint32Array(cols + 1);
+    start.set(this.start);
+    const fill = start.slice(0, cols);
+    const pos = new Uint32Array(this.postPos.length);
+    const cnt = new Uint32Array(m);
+    for (let i = 0; i < m; i++) {
+      let selfCount = 0;
+      for (let p = indptr[i]!, end = indptr[i + 1]!; p < end; p++) {
+        const t = indices[p]!;
+        if (data[p] === 0 || mask[t] !== 0) continue;
+        selfCount++;
+        const stop = fill[t]!;
+        for (let q = start[t]!; q < stop; q++) cnt[pos[q]!]++;
+        pos[stop] = i;
+        fill[t] = stop + 1;
+      }
+      const base = i * m;
+      for (let j = 0; j < i; j++) {
+        shared[base + j] = cnt[j]!;
+        shared[j * m + i] = cnt[j]!;
+        cnt[j] = 0;
+      }
+      shared[base + i] = selfCount;
+    }
+    this.sharedValid = true;
+  }
+
   private update(changed: number[], removed: Uint8Array, cost: number, interrupt?: () => void): void {
     this.keepCheckpoint();
+    if (!this.sharedValid) this.countShared();
     const { m, dots, shared, postPos, postVal } = this;
     const touched = new Uint8Array(m);
     for (const t of changed) {
