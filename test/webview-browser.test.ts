@@ -509,6 +509,34 @@ describe('webview in Chromium', function () {
       }
     });
 
+    it('a button pressed on a toggle asks for its what-if at once, without the hover\'s rest; the right button and a cell without a toggle ask nothing', async () => {
+      // Issue 10's design (a click's answer asked as early as the panel can know it); common practice, no source.
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel();
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        const prefetches = async () => (await posted(page)).filter((m) => m.type === 'whatIfPrefetch') as unknown as Array<{ removed: string[] }>;
+        // Synthetic events: no pointer movement comes before them, so no hover timer runs.
+        await page.dispatchEvent('tr[data-term="the"] input.lw-check', 'pointerdown', { button: 2 });
+        await page.dispatchEvent('tr[data-term="order"] td:nth-child(2)', 'pointerdown', { button: 0 });
+        assert.equal((await prefetches()).length, 0);
+        await page.dispatchEvent('tr[data-term="the"] input.lw-check', 'pointerdown', { button: 0 });
+        // Asked inside the event's own handler: no wait at all.
+        const asked = await prefetches();
+        assert.equal(asked.length, 1);
+        assert.deepEqual([...asked[0]!.removed].sort(), report.suggestions.filter((t) => t !== 'the').sort());
+        // Space down on a toggle (the box toggles when it comes up) asks for that box's; sent
+        // without focusing the box, whose focus alone would ask after the hover's rest.
+        await page.dispatchEvent('tr[data-term="order"] input.lw-check', 'keydown', { key: ' ' });
+        const afterKey = await prefetches();
+        assert.ok(afterKey.some((m) => [...m.removed].sort().join(',') === [...report.suggestions, 'order'].sort().join(',')), JSON.stringify(afterKey));
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+
     it('says when the review is out of date, counts the suggestions added since, and offers to review again', async () => {
       const report = fixture('report-small.json');
       const { context, page, seen } = await openPanel();

@@ -111,6 +111,7 @@ export class PanelApp {
       actions: [liveSlot, checkedCount, resetButton, addButton].filter((x): x is HTMLElement => x !== null),
       onToggle: (term, on) => this.toggle(term, on),
       onToggleHover: (term) => this.hover(term),
+      onTogglePress: (term) => this.press(term),
       onViewChange: () => this.save(),
     });
     const stripSlot = el('div', { className: 'lw-strip-slot' });
@@ -228,6 +229,19 @@ export class PanelApp {
       this.hoverTimer = null;
       this.prefetch(term);
     }, PREFETCH_AFTER_MS);
+  }
+
+  /**
+   * A button went down on `term`'s toggle: ask for its what-if now, without the rest a hover
+   * waits for. A pointer that presses as it arrives (no rest) then still gains the press's
+   * length before the click; a press that ends elsewhere only costs a prefetch.
+   */
+  private press(term: string): void {
+    if (this.bridge.mode !== 'panel') return;
+    if (this.hoverTimer !== null) clearTimeout(this.hoverTimer);
+    this.hoverTimer = null;
+    this.hovered = term;
+    this.prefetch(term);
   }
 
   /** Asks ahead for the selection a click on `term` would make (none needed for the suggestions: the Report has them). */

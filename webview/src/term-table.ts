@@ -56,6 +56,12 @@ export interface TermTableOptions {
    * (`term`), or left it (null): the app may prefetch that toggle's what-if.
    */
   onToggleHover?(term: string | null): void;
+  /**
+   * A button went down on a term's toggle (the pointer, or Space on the focused box): its click
+   * comes when the button is released, typically ~0.1 s later (a common figure, from memory), so
+   * the app may ask for that toggle's what-if now.
+   */
+  onTogglePress?(term: string): void;
   onViewChange(): void;
 }
 
@@ -148,6 +154,17 @@ export class TermTable {
     this.tbody.addEventListener('pointerleave', () => hover(null));
     this.tbody.addEventListener('focusin', (event) => hover(toggleOf(event.target)));
     this.tbody.addEventListener('focusout', () => hover(null));
+    const press = (term: string | null): void => {
+      if (term !== null) this.options.onTogglePress?.(term);
+    };
+    // Only the main button: a right button opens a menu, and the checkbox toggles on the release
+    // of the left one (and of Space, not its press).
+    this.tbody.addEventListener('pointerdown', (event) => {
+      if (event.button === 0) press(toggleOf(event.target));
+    });
+    this.tbody.addEventListener('keydown', (event) => {
+      if (event.key === ' ' && !event.repeat) press(toggleOf(event.target));
+    });
 
     const table = el('table', { className: 'lw-table', attrs: { 'aria-label': 'Terms ranked by how loud they are' } }, [el('thead', {}, [this.headRow]), this.tbody]);
 
