@@ -29,11 +29,13 @@ function median(values) {
 
 /**
  * Clicks `term`'s checkbox inside the frame and resolves with ms until the strip shows the answer,
- * and the engine's ms for that answer (measured in the worker, passed on by the host).
+ * and the engine's ms for that answer (measured in the worker, passed on by the host). With
+ * `pressMs`, the main button goes down on the box that long before the click (a pointerdown in
+ * the page, timed there, so no round trip to the test stretches it); ms still count from the click.
  */
-async function timedClick(frame, term) {
+async function timedClick(frame, term, pressMs = 0) {
   return frame.evaluate(
-    (t) =>
+    ([t, press]) =>
       new Promise((resolve, reject) => {
         const box = document.querySelector(`tr[data-term="${CSS.escape(t)}"] input.lw-check`);
         const legend = () => document.querySelector('.lw-strip__legend')?.textContent ?? '';
@@ -49,12 +51,19 @@ async function timedClick(frame, term) {
           delete slot.dataset.source;
           delete slot.dataset.hops;
         }
-        const clickAt = Date.now();
-        const start = performance.now();
-        box.click();
-        // The click's own handler (selection, strip marked pending, request posted) runs inside click().
-        const clickMs = performance.now() - start;
-        const deadline = start + 60000;
+        let start = 0;
+        let clickAt = 0;
+        let clickMs = 0;
+        let deadline = 0;
+        const click = () => {
+          clickAt = Date.now();
+          start = performance.now();
+          box.click();
+          // The click's own handler (selection, strip marked pending, request posted) runs inside click().
+          clickMs = performance.now() - start;
+          deadline = start + 60000;
+          requestAnimationFrame(poll);
+        };
         const poll = () => {
           const now = performance.now();
           const text = legend();
@@ -62,13 +71,18 @@ async function timedClick(frame, term) {
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
             const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
             const hops = slot?.dataset.hops === undefined ? null : { clickAt, ...JSON.parse(slot.dataset.hops), shownAt: Date.now() };
-            resolve({ ms: now - start, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null, hops });
+            resolve({ ms: now - start, pressedMs: pressedAt === null ? null : start - pressedAt, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null, hops });
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
-        requestAnimationFrame(poll);
+        let pressedAt = null;
+        if (press > 0) {
+          pressedAt = performance.now();
+          box.dispatchEvent(new PointerEvent('pointerdown', { bubbles: true, button: 0 }));
+          setTimeout(click, press);
+        } else click();
       }),
-    term,
+    [term, pressMs],
   );
 }
 
@@ -133,23 +147,29 @@ async function measure(ctx, fileName, label) {
 
   // (b) The pointer rests on the box for HOVER_MS, then clicks; (c) as a person's pointer does,
   // it enters the box and presses HUMAN_MS later. Between clicks it leaves the panel.
-  const rested = async (restMs, name, arrive = (t) => frame.hover(box(t))) => {
+  const rested = async (restMs, name, pressMs = 0) => {
     await pause(FIRST_PAUSE_MS);
     const clicks = [];
     for (const t of order) {
       await pointerAway();
       await pause(PAUSE_MS);
-      await arrive(t);
-      await pause(restMs);
+      if (restMs > 0) {
+        await frame.hover(box(t));
+        await pause(restMs);
+      }
       // The pointer leaves right after the click (the click runs first: the evaluate is sent
       // first), so the panel does not also prefetch the next toggle while the strip updates.
-      const clicked = timedClick(frame, t);
+      const clicked = timedClick(frame, t, pressMs);
       await pointerAway();
       clicks.push(await clicked);
     }
     await tidy();
     await addSocketTimes(ctx.page, clicks);
-    report(`${label}, ${name}`, clicks, `each after ${PAUSE_MS} ms away from the panel, then ${restMs} ms on the box`);
+    report(`${label}, ${name}`, clicks, `each after ${PAUSE_MS} ms away from the panel, then ${restMs > 0 ? `${restMs} ms on the box` : `the button down on the box ${pressMs} ms`}`);
+    if (pressMs > 0) {
+      const held = clicks.map((c) => Math.round(c.pressedMs));
+      console.log(`  ${name.slice(0, 3)} the button was down for median ${median(held)} ms before the click (asked for ${pressMs}); all ${held.join(', ')}`);
+    }
     const sources = { held: 0, prefetch: 0, answer: 0 };
     for (const c of clicks) if (c.source in sources) sources[c.source]++;
     console.log(
@@ -162,8 +182,7 @@ async function measure(ctx, fileName, label) {
   const human = await rested(HUMAN_MS, `(c) click ${HUMAN_MS} ms after the pointer entered the box`);
   // The button goes down on the box with no pointer movement before it (a synthetic pointerdown,
   // so no hover prefetch can start), and the click comes PRESS_MS later.
-  const pressDown = (t) => frame.dispatchEvent(box(t), 'pointerdown', { button: 0 });
-  const pressed = await rested(PRESS_MS, `(d) click released ${PRESS_MS} ms after a press with no rest`, pressDown);
+  const pressed = await rested(0, `(d) click released ${PRESS_MS} ms after a press with no rest`, PRESS_MS);
   return { plain: median(plain.map((c) => c.ms)), rested: median(afterRest.map((c) => c.ms)), human: median(human.map((c) => c.ms)), pressed: median(pressed.map((c) => c.ms)) };
 }
 
