@@ -1,5 +1,5 @@
 // Speculative what-if answers: while the pointer rests on a term's toggle (or the keyboard focus
-// is on it), the panel asks the host for the selection that clicking it would make, so that the
+// is on it), or once a button goes down on it, the panel asks the host for the selection that clicking it would make, so that the
 // click can show its answer at once instead of waiting for a round trip through the editor's
 // webview messaging and the engine. The host computes a prefetch only when no click waits, and
 // a click for the same selection adopts the engine's work (ReviewSession.speculate).
