@@ -207,54 +207,16 @@ export class IncrementalGram {
     }
   }
 
-  /** D and the shared-term counts from scratch, through an inverted index of the rows seen. */
+  /**
+   * D from scratch, through an inverted index of the rows seen, and for a state that serves
+   * what-ifs the shared-term counts its updates need, in a second pass of the same shape (one
+   * m×m array written per pass; the counts alone are ~35% of a build, so a review nobody asks a
+   * what-if skips them and countShared makes them when an update first needs them).
+   */
   private build(removed: Uint8Array): void {
     this.keepCheckpoint();
-    if (!this.forWhatIf) {
-      this.buildDots(removed);
-      return;
-    }
-    const { m, dots, shared } = this;
-    const { indptr, indices, data, cols } = this.rows;
-    const start = new Uint32Array(cols + 1);
-    start.set(this.start);
-    const fill = start.slice(0, cols);
-    const pos = new Uint32Array(this.postPos.length);
-    const val = new Float64Array(this.postPos.length);
-    const acc = new Float64Array(m);
-    const cnt = new Uint32Array(m);
-    for (let i = 0; i < m; i++) {
-      let self = 0;
-      let selfCount = 0;
-      for (let p = indptr[i]!, end = indptr[i + 1]!; p < end; p++) {
-        const x = data[p]!;
-        const t = indices[p]!;
-        if (x === 0 || removed[t] !== 0) continue;
-        self += x * x;
-        selfCount++;
-        const stop = fill[t]!;
-        for (let q = start[t]!; q < stop; q++) {
-          acc[pos[q]!] += x * val[q]!;
-          cnt[pos[q]!]++;
-        }
-        pos[stop] = i;
-        val[stop] = x;
-        fill[t] = stop + 1;
-      }
-      const base = i * m;
-      for (let j = 0; j < i; j++) {
-        dots[base + j] = acc[j]!;
-        dots[j * m + i] = acc[j]!;
-        shared[base + j] = cnt[j]!;
-        shared[j * m + i] = cnt[j]!;
-        acc[j] = 0;
-        cnt[j] = 0;
-      }
-      dots[base + i] = self;
-      shared[base + i] = selfCount;
-    }
-    this.sharedValid = true;
-    this.built(removed);
+    this.buildDots(removed);
+    if (this.forWhatIf) this.countShared();
   }
 
   /** What every full build leaves besides D. */
@@ -267,7 +229,7 @@ export class IncrementalGram {
     this.lastStep = { kind: 'full', pairs: this.fullCost };
   }
 
-  /** build's D alone, the same sums in the same order; the shared counts are left to countShared. */
+  /** D alone: each pair's kept products summed in row order; the shared counts are countShared's. */
   private buildDots(removed: Uint8Array): void {
     const { m, dots } = this;
     const { indptr, indices, data, cols } = this.rows;
