@@ -27,6 +27,7 @@ describe('loudword: which config and stop list a review uses', function () {
       assert.equal(r.code, 0, r.stderr);
       const report = JSON.parse(r.stdout);
       assert.equal(report.stopList.file, path.join(proj, 'stoplist.txt'));
+      assert.equal(report.stopList.exists, true);
       assert.deepEqual(report.provenance.config, { file: path.join(proj, 'loudword.json'), how: 'nearest' });
       assert.deepEqual(report.provenance.sources, {
         'sample.documents': { from: 'loudword.json', where: `${path.join(proj, 'loudword.json')}:2` },
@@ -45,7 +46,8 @@ describe('loudword: which config and stop list a review uses', function () {
     const none = runCli(['review', 'data/sub/tickets.csv', '--no-config', '--sample', '20', '--k', '3'], proj);
     assert.match(none.stdout, /^Config: ignored, --no-config; flags: --sample, --k$/m);
     // Without a config the default stop list lies beside the corpus.
-    assert.match(none.stdout, new RegExp(`^Stop list: ${path.join(proj, 'data', 'sub', 'stoplist.txt').replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`, 'm'));
+    // It is not there yet: the summary says so rather than "(0 terms)", which reads as an empty file.
+    assert.match(none.stdout, new RegExp(`^Stop list: ${path.join(proj, 'data', 'sub', 'stoplist.txt').replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} \\(not created yet\\)$`, 'm'));
   });
 
   it('a parent config’s label that the corpus lacks names the config line where it was set (issue 10)', () => {
@@ -64,6 +66,7 @@ describe('loudword: which config and stop list a review uses', function () {
       assert.equal(report.provenance.config.file, path.join(proj, 'data', 'loudword.json'));
       assert.equal(report.settings.label, null); // the root's label does not leak in
       assert.equal(report.stopList.file, path.join(proj, 'data', 'stoplist.txt'));
+      assert.equal(report.stopList.exists, false);
     } finally {
       rmSync(path.join(proj, 'data', 'loudword.json'));
     }

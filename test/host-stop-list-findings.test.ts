@@ -40,7 +40,7 @@ function report(terms: TermRow[], unused: string[], suggestions: string[] = [], 
     suggestions,
     verdict: { outcome: 'nothing suggested', headline: '', estimate: null, caveats: [] },
     hubs: [],
-    stopList: { file: '/p/stoplist.txt', terms: 4, unused },
+    stopList: { file: '/p/stoplist.txt', exists: true, terms: 4, unused },
   };
 }
 

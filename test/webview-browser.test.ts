@@ -228,7 +228,7 @@ describe('webview in Chromium', function () {
     it('says which config and stop list were used and where each setting came from, one click away', async () => {
       const report: Report = {
         ...fixture('report-small.json'),
-        stopList: { file: '/work/project/lists/stoplist.txt', terms: 41, unused: [] },
+        stopList: { file: '/work/project/lists/stoplist.txt', exists: true, terms: 41, unused: [] },
         provenance: {
           config: { file: '/work/project/loudword.json', how: 'nearest' },
           sources: {

@@ -130,8 +130,11 @@ export interface Report {
   /** What the suggested list does to neighbour quality, read first (engine/terms/judge-suggestions.ts). */
   verdict: Verdict;
   hubs: HubRow[];
-  /** The stop list in force for the baseline (from the project's stop list file). */
-  stopList: { file: string | null; terms: number; unused: string[] };
+  /**
+   * The stop list in force for the baseline (from the project's stop list file). `exists` is false
+   * when the settings name a file that is not there yet (the first term added creates it).
+   */
+  stopList: { file: string | null; exists: boolean; terms: number; unused: string[] };
   timings?: Record<string, number> | undefined;
   /** Which loudword.json the review read and where each setting came from. */
   provenance?: SettingsProvenance | undefined;

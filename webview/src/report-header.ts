@@ -5,6 +5,7 @@ import type { Report } from '../../extension/src/protocol';
 import { el, type Child } from './create-element';
 import { formatBytes, formatCount, formatNumber } from './format';
 import { skippedWording } from '../../extension/src/skipped-wording';
+import { stopListSize } from '../../extension/src/stop-list-wording';
 
 export function renderReportHeader(report: Report, actions: readonly HTMLElement[]): HTMLElement {
   const input = report.input;
@@ -90,7 +91,7 @@ export function renderProvenance(report: Report): HTMLElement | null {
       el('br', {}),
       'Stop list: ',
       el('span', { className: 'lw-provenance__path', text: report.stopList.file ?? 'none' }),
-      ` (${formatCount(report.stopList.terms)} term${report.stopList.terms === 1 ? '' : 's'})`,
+      ` (${stopListSize(report.stopList)})`,
     ]),
     keys.length === 0
       ? el('p', { text: 'Every setting is at its default.' })

@@ -12,7 +12,7 @@ export interface ReportParts {
   settings: EffectiveSettings;
   source: CorpusSource;
   prepared: PreparedWeights;
-  stopList: { file: string | null; terms: string[]; unused: string[] };
+  stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[] };
   baseline: DistanceResult;
   termReview: TermReview;
   sample: ReviewSample;
@@ -43,7 +43,7 @@ export function assembleReport(p: ReportParts): Report {
     suggestionSpellings: p.termReview.spellings,
     verdict: p.termReview.verdict,
     hubs: hubRows(p),
-    stopList: { file: p.stopList.file, terms: p.stopList.terms.length, unused: p.stopList.unused },
+    stopList: { file: p.stopList.file, exists: p.stopList.exists, terms: p.stopList.terms.length, unused: p.stopList.unused },
   };
 }
 

@@ -9,7 +9,8 @@ import { UserError } from '../user-error';
  * different settings or versions are never merged. Float arrays travel as base64 of their
  * IEEE-754 bytes, so a figure survives the trip to the last bit.
  */
-export const PARTIAL_FORMAT = 3;
+// 4: the plan says whether the stop list file exists.
+export const PARTIAL_FORMAT = 4;
 
 export type ShardStep = 'count' | 'plan' | 'sums';
 
@@ -120,7 +121,7 @@ export interface PlanPartial extends PartialHeader {
   previewDocs: number[];
   input: Omit<Report['input'], 'documents'>;
   tokenizerNotes: string[];
-  stopList: { file: string | null; terms: string[]; unused: string[] };
+  stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[] };
 }
 
 export interface EncodedSums {

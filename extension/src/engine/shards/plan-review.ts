@@ -146,7 +146,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     input: mergedInput(input.corpus, parts),
     // As one process says them (matrix/count-each-file.ts): with more than one shard, each names its file.
     tokenizerNotes: parts.flatMap((p) => (parts.length > 1 ? p.tokenizerNotes.map((note) => `${p.key}: ${note}`) : p.tokenizerNotes)),
-    stopList: { file: stopList.file, terms: stopList.terms, unused: stopList.entries.filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
+    stopList: { file: stopList.file, exists: stopList.exists, terms: stopList.terms, unused: stopList.entries.filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
   };
 }
 
