@@ -6,7 +6,7 @@ import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
 import { startRowAssembler, type RowAssembler } from '../tokenize/row-assembler';
-import type { RowCountSums } from '../tokenize/row-count-sums';
+import { PartCountSums, type RowCountSums } from '../tokenize/row-count-sums';
 import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
 import { CodePointSortedTerms } from './code-point-sorted-terms';
 import type { CountMatrix } from './csr';
@@ -22,8 +22,8 @@ export interface BuiltCorpus {
   /** What the Report's input notes should say about tokenising (over-long runs cut). */
   notes: string[];
   /**
-   * The raw counts' per-term sums of `counts` (row-count-sums.ts), when the threads that wrote
-   * its rows added them up on the way; null when the rows were written here.
+   * The raw counts' per-term sums of `counts` (row-count-sums.ts), added up as the batches came
+   * in; null where they were not (count-each-file.ts).
    */
   countSums: RowCountSums | null;
 }
@@ -175,6 +175,7 @@ class CountAccumulator {
   /** Per stream, in order of first batch: the stream's number and its ids' global ids. */
   private readonly streams = new Map<number, { index: number; globalOf: GrowingUint32 }>();
   private parts: CountedPart[] = [];
+  private readonly sums = new PartCountSums();
   private readonly tokensPerDoc = new GrowingUint32();
   private nonzeros = 0;
   rows = 0;
@@ -197,7 +198,9 @@ class CountAccumulator {
       globalOf.push(id);
     }
     this.inOrder.tidy();
-    this.parts.push({ stream: stream.index, rowEnds: batch.rowEnds, cols: batch.cols, counts: batch.counts });
+    const part: CountedPart = { stream: stream.index, rowEnds: batch.rowEnds, cols: batch.cols, counts: batch.counts };
+    this.sums.add(part, globalOf.length);
+    this.parts.push(part);
     for (let d = 0; d < batch.tokens.length; d++) this.tokensPerDoc.push(batch.tokens[d]!);
     this.rows += batch.rowEnds.length;
     this.nonzeros += batch.cols.length;
@@ -210,7 +213,7 @@ class CountAccumulator {
    * the main thread's CPU after the tokenising threads had finished); else here, one part after
    * another.
    */
-  async finish(assembler: RowAssembler | null = null): Promise<{ counts: CountMatrix; countSums: RowCountSums | null }> {
+  async finish(assembler: RowAssembler | null = null): Promise<{ counts: CountMatrix; countSums: RowCountSums }> {
     const cols = this.idOf.size;
     const sortedTerms = this.inOrder.sorted();
     const rank = new Uint32Array(cols);
@@ -239,10 +242,14 @@ class CountAccumulator {
     const shared = assembler !== null && parts.length > 1;
     const indices = new Uint32Array(shared ? new SharedArrayBuffer(4 * nonzeros) : new ArrayBuffer(4 * nonzeros));
     const data = new Float64Array(shared ? new SharedArrayBuffer(8 * nonzeros) : new ArrayBuffer(8 * nonzeros));
-    let countSums: RowCountSums | null = null;
+    let countSums: RowCountSums;
     if (shared) {
-      countSums = await assembler.assemble({ ranks, columns: cols, indices, data, parts, starts, countSums: true });
+      // The parts are posted at once; their sums move to columns here while the threads write.
+      const writing = assembler.assemble({ ranks, columns: cols, indices, data, parts, starts });
+      countSums = this.sums.result(ranks, cols);
+      await writing;
     } else {
+      countSums = this.sums.result(ranks, cols);
       const writer = new RowWriter(ranks, cols, indices, data);
       for (let p = 0; p < parts.length; p++) {
         writer.write(parts[p]!, starts[p]!);

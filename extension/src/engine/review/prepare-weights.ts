@@ -117,7 +117,7 @@ export async function prepareWeights(
     minDf: settings.prune.minDf,
     maxDf: settings.prune.maxDf,
     stopTerms: new Set(),
-    // The writing threads' sums hold df (every stored count is ≥ 1, so a column's entries are its documents).
+    // The counted batches' sums hold df (every stored count is ≥ 1, so a column's entries are its documents).
     ...(built.countSums !== null ? { df: built.countSums.df } : {}),
   });
   if (counts.cols === 0) {
@@ -125,7 +125,7 @@ export async function prepareWeights(
   }
   // The raw-count statistics first: the weights are then written over the counts. Their df is
   // the idf's (every stored count is ≥ 1, so a column's entries are its documents).
-  // The threads that wrote the rows summed them already when nothing was pruned (the same matrix).
+  // Counting summed them already (row-count-sums.ts): used when nothing was pruned (the same matrix).
   const countStats = counts === built.counts && built.countSums !== null ? built.countSums : termCountStats(counts);
   // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
   const { weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' }, countStats.df);

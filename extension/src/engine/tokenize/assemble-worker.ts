@@ -4,7 +4,6 @@
 // the chunk tables: hundreds of MB each at a million documents) are gone by then; this bundle
 // holds no wink, so it starts in milliseconds.
 import { parentPort } from 'node:worker_threads';
-import { RowCountAccumulator, type RowCountSums } from './row-count-sums';
 import { RowWriter } from './rows-in-rank-order';
 import type { AssembleReply, AssembleRequest } from './tokenize-messages';
 
@@ -13,22 +12,18 @@ if (port === null) throw new Error('assemble-worker must run as a worker thread'
 
 port.on('message', (request: AssembleRequest) => {
   let reply: AssembleReply;
-  let transfer: ArrayBuffer[] = [];
   try {
     const writer = new RowWriter(request.ranks, request.columns, request.indices, request.data);
     const { parts, starts } = request;
-    const accumulator = request.countSums ? new RowCountAccumulator(request.columns) : null;
     for (let k = 0; k < parts.length; k++) {
-      writer.write(parts[k]!, starts[k]!, accumulator);
+      writer.write(parts[k]!, starts[k]!);
       parts[k] = EMPTY_PART; // let each part go as soon as it is written
     }
-    const sums: RowCountSums | null = accumulator?.result() ?? null;
-    reply = { type: 'assembled', seq: request.seq, error: null, sums };
-    if (sums !== null) transfer = [sums.df.buffer, sums.cf.buffer, sums.sumCountSq.buffer, sums.sumCountLength.buffer] as ArrayBuffer[];
+    reply = { type: 'assembled', seq: request.seq, error: null };
   } catch (e) {
-    reply = { type: 'assembled', seq: request.seq, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e), sums: null };
+    reply = { type: 'assembled', seq: request.seq, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
-  port.postMessage(reply, transfer);
+  port.postMessage(reply);
 });
 
 const EMPTY_PART = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
@@ -44,7 +39,7 @@ try {
  * batches are still being tokenised: a fresh thread runs `write` unoptimised at first, and at
  * 100k documents its first two real parts cost ~80-140 and ~35-100 ms against 5-10 ms each after
  * (the rows' writing is ~0.5 s, which everything after tokenising waits for). The same kinds of
- * arrays as a real job (the matrix on SharedArrayBuffers, with and without the count sums).
+ * arrays as a real job (the matrix on SharedArrayBuffers).
  */
 function warmUp(): void {
   const rows = 96;
@@ -67,7 +62,6 @@ function warmUp(): void {
   const indices = new Uint32Array(new SharedArrayBuffer(4 * n));
   const data = new Float64Array(new SharedArrayBuffer(8 * n));
   const writer = new RowWriter(ranks, columns, indices, data);
-  const accumulator = new RowCountAccumulator(columns);
   // Parts of growing size, so that the scratch arrays are grown again after the engine has begun
   // collecting type feedback (it does not on a function's first calls): with one size, the first
   // real part, larger, met code compiled without it, was thrown away and compiled again.
@@ -75,6 +69,6 @@ function warmUp(): void {
   // and compiled code that met only those was thrown away at the first real part too.
   for (let r = 1; r <= rows; r++) {
     const part = structuredClone({ stream: 0, rowEnds: rowEnds.slice(0, r), cols: cols.slice(0, r * perRow), counts: counts.slice(0, r * perRow) });
-    writer.write(part, 0, r % 3 === 0 ? null : accumulator);
+    writer.write(part, 0);
   }
 }

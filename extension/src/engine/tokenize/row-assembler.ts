@@ -1,7 +1,6 @@
 import { existsSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
 import { PendingReplies } from '../threads/pending-replies';
-import { addRowCountSums, type RowCountSums } from './row-count-sums';
 import type { CountedPart } from './rows-in-rank-order';
 import type { AssembleReply, AssembleRequest } from './tokenize-messages';
 
@@ -15,17 +14,12 @@ export interface AssembleJob {
   data: Float64Array;
   parts: CountedPart[];
   starts: number[];
-  /** Also sum the rows' raw counts per term (row-count-sums.ts) while the parts are at hand. */
-  countSums?: boolean;
 }
 
 /** Threads that write the finished count matrix's rows, each a run of consecutive parts. */
 export interface RowAssembler {
-  /**
-   * Writes every part; the parts' arrays are handed over (transferred), not copied. With
-   * `countSums`, resolves with the count sums of every row (the threads' shares added), else null.
-   */
-  assemble(job: AssembleJob): Promise<RowCountSums | null>;
+  /** Writes every part; the parts' arrays are handed over (transferred), not copied. */
+  assemble(job: AssembleJob): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -38,11 +32,11 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
   if (threads < 1 || !existsSync(script)) return null;
   const pool: Worker[] = [];
   // A request's number is its thread's index: each thread writes one run of parts per job.
-  const pending = new PendingReplies<RowCountSums | null>();
+  const pending = new PendingReplies<null>();
   for (let w = 0; w < threads; w++) {
     const worker = new Worker(script);
     worker.on('message', (reply: AssembleReply) => {
-      if (reply.error === null) pending.resolve(reply.seq, reply.sums);
+      if (reply.error === null) pending.resolve(reply.seq, null);
       else pending.reject(reply.seq, new Error(`assemble worker: ${reply.error}`));
     });
     worker.on('error', (e) => pending.fail(e));
@@ -60,25 +54,16 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
         shares[Math.min(pool.length - 1, Math.floor((done * pool.length) / Math.max(1, total)))]!.push(k);
         done += job.parts[k]!.cols.length;
       }
-      const replies = await Promise.all(
+      await Promise.all(
         shares.map((share, w) => {
           if (share.length === 0) return Promise.resolve(null);
           const parts = share.map((k) => job.parts[k]!);
           const transfer: ArrayBuffer[] = [];
           for (const p of parts) transfer.push(p.rowEnds.buffer as ArrayBuffer, p.cols.buffer as ArrayBuffer, p.counts.buffer as ArrayBuffer);
-          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!), countSums: job.countSums === true };
+          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!) };
           return pending.request(() => pool[w]!.postMessage(request, transfer), w);
         }),
       );
-      if (job.countSums !== true) return null;
-      // Whole numbers: the shares add up exactly, in any order (row-count-sums.ts).
-      let summed: RowCountSums | null = null;
-      for (const sums of replies) {
-        if (sums === null) continue;
-        if (summed === null) summed = sums;
-        else addRowCountSums(summed, sums);
-      }
-      return summed;
     },
     async close() {
       pending.fail(new Error('assemble pool closed'));

@@ -1,5 +1,3 @@
-import type { RowCountAccumulator } from './row-count-sums';
-
 /**
  * A counted batch (encode-batch.ts): document d's distinct terms are cols[rowEnds[d-1] ..
  * rowEnds[d]) (rowEnds[-1] = 0), with their counts; the ids are those of the coder that made
@@ -19,10 +17,9 @@ const RADIX_MASK = (1 << RADIX_BITS) - 1;
 /**
  * Writes counted parts into a CSR matrix's `indices` and `data` with each row's columns
  * ascending: ranks[stream][id] is the final column of a coder's term id (code point order of
- * the terms). It lives
- * beside the encoder because the tokenising threads run it too, on their own share of the
- * parts, once the vocabulary is complete: each part writes only its own rows, so the shares
- * never overlap and the result does not depend on who wrote which part.
+ * the terms). The threads that assemble the matrix (row-assembler.ts) run it on their own share
+ * of the parts once the vocabulary is complete: each part writes only its own rows, so the
+ * shares never overlap and the result does not depend on who wrote which part.
  *
  * Rows in column order by counting, not by sorting each row (an insertion sort per row cost
  * ~1.2 s of the main thread at 100k documents): a part's entries are sorted by rank with a
@@ -39,7 +36,6 @@ export class RowWriter {
   private atB = new Uint32Array(0);
   private rowOf = new Uint32Array(0);
   private fill = new Uint32Array(0);
-  private rowLength = new Float64Array(0);
 
   /** `columns`: how many columns the matrix has (every rank is below it). */
   constructor(
@@ -51,12 +47,8 @@ export class RowWriter {
     this.passes = Math.max(1, Math.ceil(Math.log2(Math.max(2, columns)) / RADIX_BITS));
   }
 
-  /**
-   * Writes `part`, whose first row starts at `start` in `indices`/`data`; with `sums`, adds its
-   * rows' raw-count sums there too (row-count-sums.ts), in the last loop, which visits the
-   * entries in column order, so a term's sums are reached one after another.
-   */
-  write(part: CountedPart, start: number, sums: RowCountAccumulator | null = null): void {
+  /** Writes `part`, whose first row starts at `start` in `indices`/`data`. */
+  write(part: CountedPart, start: number): void {
     const { rowEnds, cols, counts } = part;
     const n = cols.length;
     const rows = rowEnds.length;
@@ -103,44 +95,11 @@ export class RowWriter {
       [at, at2] = [at2, at];
     }
     const { indices, data } = this;
-    if (sums === null) {
-      for (let i = 0; i < n; i++) {
-        const from = at[i]!;
-        const to = fill[rowOf[from]!]!++;
-        indices[to] = key[i]!;
-        data[to] = counts[from]!;
-      }
-      return;
-    }
-    if (this.rowLength.length < rows) this.rowLength = new Float64Array(rows);
-    const { rowLength } = this;
-    k = 0;
-    for (let d = 0; d < rows; d++) {
-      const end = rowEnds[d]!;
-      let length = 0;
-      for (; k < end; k++) length += counts[k]!;
-      rowLength[d] = length;
-      if (length > 0) {
-        sums.documents++;
-        sums.totalTokens += length;
-        sums.sumLengthSq += length * length;
-      }
-    }
-    const perTerm = sums.perTerm;
     for (let i = 0; i < n; i++) {
       const from = at[i]!;
-      const row = rowOf[from]!;
-      const to = fill[row]!++;
-      const t = key[i]!;
-      const c = counts[from]!;
-      indices[to] = t;
-      data[to] = c;
-      // Every stored count is ≥ 1, so its row has a length > 0.
-      const q = 4 * t;
-      perTerm[q] += 1;
-      perTerm[q + 1] += c;
-      perTerm[q + 2] += c * c;
-      perTerm[q + 3] += c * rowLength[row]!;
+      const to = fill[rowOf[from]!]!++;
+      indices[to] = key[i]!;
+      data[to] = counts[from]!;
     }
   }
 }

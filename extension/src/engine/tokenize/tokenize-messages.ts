@@ -1,7 +1,6 @@
 import type { TokenSettings } from './create-tokenizer';
 import type { EncodedBatch } from './encode-batch';
 import type { AssembleJob } from './row-assembler';
-import type { RowCountSums } from './row-count-sums';
 
 /**
  * main → tokenize worker, first of all: the token settings. A thread can be started before they
@@ -35,10 +34,9 @@ export interface AssembleRequest extends AssembleJob {
   seq: number;
 }
 
-/** assemble worker → main: the parts are written (and their rows' count sums, when asked), or the error text. */
+/** assemble worker → main: the parts are written, or the error text. */
 export interface AssembleReply {
   type: 'assembled';
   seq: number;
   error: string | null;
-  sums: RowCountSums | null;
 }
