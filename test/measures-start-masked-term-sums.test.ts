@@ -47,6 +47,7 @@ describe('startMaskedTermSums', function () {
   const removed = new Uint8Array(cols);
   for (let c = 0; c < cols; c += 7) removed[c] = 1;
 
+  // The second pass goes to the thread the first left waiting (engine/threads/lasting-thread.ts).
   it('on its own thread (shared matrix) gives maskedTermSums to the bit, with and without the spread', () => {
     const X = randomRows(3000, cols, 11, true);
     for (const withSpread of [true, false]) {

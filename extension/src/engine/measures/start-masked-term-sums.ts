@@ -1,3 +1,4 @@
+import { LastingThreads, type LastingLink } from '../threads/lasting-thread';
 import { startOneShots, type PendingResult } from '../threads/one-shot-thread';
 import { threadScript } from '../threads/thread-script';
 import type { Csr } from '../matrix/csr';
@@ -15,17 +16,45 @@ export interface MaskedTermSumsOut {
   rowsWithWeight: Int32Array;
 }
 
-/** What the thread is given: the matrix (indices and data shared), and the passes to make in order. */
-export interface MaskedTermSumsJob {
+/** Passes to make in order, and where to say each is done. */
+export interface MaskedTermSumsWork {
+  passes: Array<{ removed: Uint8Array; withSpread: boolean; out: MaskedTermSumsOut }>;
+  /** status[i]: PENDING, DONE or FAILED for pass i (engine/threads/one-shot-thread.ts). */
+  status: Int32Array;
+}
+
+/**
+ * What the thread is started with: the matrix (indices and data shared), its first passes, and
+ * the link on which it waits for more passes over the same matrix once they are done.
+ */
+export interface MaskedTermSumsThreadData extends MaskedTermSumsWork {
   rows: number;
   cols: number;
   indptr: Uint32Array;
   indices: Uint32Array;
   data: Float64Array;
-  passes: Array<{ removed: Uint8Array; withSpread: boolean; out: MaskedTermSumsOut }>;
-  /** status[i]: PENDING, DONE or FAILED for pass i (engine/threads/one-shot-thread.ts). */
-  status: Int32Array;
+  link: LastingLink;
 }
+
+/** The matrix and script a pass thread was started on: a later pass goes to it only for the same ones. */
+interface PassThreadTag {
+  script: string;
+  indptr: Uint32Array;
+  indices: Uint32Array;
+  data: Float64Array;
+}
+
+/**
+ * Pass threads waiting for another pass over their matrix, by its indices' buffer. A review's
+ * passes come in two rounds: the baseline's spread and the suggestion rule's passes together,
+ * then, a fraction of a second to a second or two later, the suggestions' measure's (a fresh
+ * thread there cost ~65 ms of CPU to start and ran its pass unoptimised at first, while the
+ * review's thread waited for it: ~190 ms of CPU for a ~120 ms pass at 100k documents).
+ */
+const passThreads = new LastingThreads<PassThreadTag>();
+
+/** How long a pass thread waits for another pass once its own are done. */
+export const PASS_THREAD_WAIT_MS = 3000;
 
 /** maskedTermSums, begun now and read by `take()` (which waits for it when it runs elsewhere). */
 export type PendingTermSums = PendingResult<MaskedTermSums>;
@@ -60,8 +89,9 @@ export function startMaskedTermSums(X: Csr, removed: Uint8Array, withSpread: boo
  * its own (two passes on two threads would each take a share of it), and the first is ready after
  * one pass. The masks are copied now. Without a shared matrix or a script, or where the thread
  * fails, each `take()` computes its pass here; every answer is maskedTermSums's, to the bit. A
- * pass the caller will not read is dropped (`drop()`); once every pass is taken or dropped the
- * thread is stopped.
+ * pass the caller will not read is dropped (`drop()`). Once every pass is taken the thread waits
+ * PASS_THREAD_WAIT_MS for more passes over the same matrix, which a later call hands it instead of
+ * starting a thread; a pass dropped before it was made stops it.
  */
 export function startMaskedTermSumsInSeries(X: Csr, asks: readonly MaskedTermSumsAsk[], script: string | null = defaultScript()): PendingTermSums[] {
   const shared = X.indices.buffer instanceof SharedArrayBuffer && X.data.buffer instanceof SharedArrayBuffer;
@@ -88,10 +118,16 @@ export function startMaskedTermSumsInSeries(X: Csr, asks: readonly MaskedTermSum
       }))
     : [];
   const status = new Int32Array(new SharedArrayBuffer(4 * copies.length));
-  const job: MaskedTermSumsJob = { rows: X.rows, cols, indptr: X.indptr, indices: X.indices, data: X.data, passes, status };
+  const work: MaskedTermSumsWork = { passes, status };
+  // A thread waiting with the same matrix takes the passes; else one is started with them.
+  const lasting = thread
+    ? (passThreads.claim(X.indices.buffer, (t) => t.script === script && t.indptr === X.indptr && t.indices === X.indices && t.data === X.data, work) ??
+      passThreads.start(script, X.indices.buffer, { script, indptr: X.indptr, indices: X.indices, data: X.data }, PASS_THREAD_WAIT_MS, (link): MaskedTermSumsThreadData => ({ rows: X.rows, cols, indptr: X.indptr, indices: X.indices, data: X.data, ...work, link })))
+    : null;
   return startOneShots<MaskedTermSums>({
-    script: thread ? script : null,
-    workerData: job,
+    script: null,
+    ...(lasting !== null ? { thread: lasting } : {}),
+    workerData: null,
     status,
     // A generous bound for a thread that died before it could set a status: ~40 times a pass's
     // time on an idle core, and at least a minute, for each pass up to this one. Past it the

@@ -1,3 +1,4 @@
+import type { Worker } from 'node:worker_threads';
 import { startThread } from './thread-script';
 
 /** Values of a one-shot job's status words (status[i] for result i), set by the thread. */
@@ -41,6 +42,13 @@ export interface OneShotJob<T> {
   here: (i: number) => T;
   /** Result i from the shared buffers once status[i] is DONE. */
   read: (i: number) => T;
+  /**
+   * A thread the caller has already started, or handed this job, used instead of starting one
+   * from `script`: once every result is taken or dropped it is given back through `release`
+   * instead of being stopped (`unfinishedDropped`: a result was dropped before the thread had
+   * made it, and it may be making it now). The caller listens for its errors.
+   */
+  thread?: { worker: Worker; release(unfinishedDropped: boolean): void };
 }
 
 /**
@@ -51,7 +59,7 @@ export interface OneShotJob<T> {
  * because this thread's event loop does not run meanwhile. The thread never keeps the process
  * alive, its errors are read from the status words, and any failure (no script, a thread that
  * cannot start, dies or gives up) falls back to `here(i)`, which must give the same answer.
- * The thread is stopped once every result has been taken or dropped.
+ * The thread is stopped once every result has been taken or dropped (or given back: `thread`).
  */
 export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
   const count = job.status.length;
@@ -60,18 +68,26 @@ export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
       let answer: { value: T } | null = null;
       return { take: () => (answer ??= { value: job.here(i) }).value, drop: () => undefined, fromThread: false };
     });
-  if (job.script === null || count === 0) return inThisThread();
-  let worker: ReturnType<typeof startThread>;
-  try {
-    worker = startThread(job.script, { workerData: job.workerData });
-  } catch {
-    return inThisThread();
+  if (count === 0) return inThisThread();
+  let worker: Worker;
+  if (job.thread !== undefined) {
+    worker = job.thread.worker;
+  } else {
+    if (job.script === null) return inThisThread();
+    try {
+      worker = startThread(job.script, { workerData: job.workerData });
+    } catch {
+      return inThisThread();
+    }
+    worker.on('error', () => undefined);
+    worker.unref();
   }
-  worker.on('error', () => undefined);
-  worker.unref();
   let open = count;
+  let unfinishedDropped = false;
   const close = (): void => {
-    if (--open === 0) void worker.terminate();
+    if (--open > 0) return;
+    if (job.thread !== undefined) job.thread.release(unfinishedDropped);
+    else void worker.terminate();
   };
   return Array.from({ length: count }, (_, i) => {
     let fromThread = false;
@@ -97,7 +113,7 @@ export function startOneShots<T>(job: OneShotJob<T>): PendingResult<T>[] {
       drop() {
         if (closed) return;
         closed = true;
-        Atomics.compareExchange(job.status, i, PENDING, DROPPED);
+        if (Atomics.compareExchange(job.status, i, PENDING, DROPPED) === PENDING) unfinishedDropped = true;
         close();
       },
     };
