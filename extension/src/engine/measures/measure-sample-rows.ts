@@ -234,7 +234,7 @@ export class SweepRows {
     const base = i * m;
     const si = rowScale[i]!;
     const ni = norms[i]!;
-    const limit = radiusBound(gram, i, m, valid, rowScale, norms, Math.min(10 * k, validTotal - 1), validTotal - 1, this.probe);
+    const limit = radiusBound(gram, i, m, valid, rowScale, norms, Math.min(10 * k, validTotal - 1), validTotal - 1, this.probe, this.rankBuckets);
     let filled = 0;
     let bar = -Infinity; // a score must beat this to enter the full list
     let keep = -Infinity; // a score at least this is kept aside as a possible tie at the k-th place
@@ -489,9 +489,11 @@ const RADIUS_PROBE_STRIDE = 8;
 /**
  * A squared distance below which about 2·far of row i's `others` distances lie, read from every
  * RADIUS_PROBE_STRIDE-th entry (Infinity when the row is too short to tell): its quantile is
- * twice far/others plus a few entries, so falling short of `far` (one more pass) is rare.
+ * twice far/others plus a few entries, so falling short of `far` (one more pass) is rare. Any
+ * bound gives the same radius slack (the values under it are the row's smallest, so their ranks
+ * are the row's; too few and the row is gathered again): the bound only sets the work.
  */
-function radiusBound(gram: Float64Array, i: number, m: number, valid: Uint8Array, rowScale: Float64Array, norms: Float64Array, far: number, others: number, probe: Float64Array): number {
+function radiusBound(gram: Float64Array, i: number, m: number, valid: Uint8Array, rowScale: Float64Array, norms: Float64Array, far: number, others: number, probe: Float64Array, buckets: Int32Array): number {
   const base = i * m;
   const si = rowScale[i]!;
   const ni = norms[i]!;
@@ -501,7 +503,37 @@ function radiusBound(gram: Float64Array, i: number, m: number, valid: Uint8Array
     probe[n++] = ni + norms[j]! - 2 * (gram[base + j]! * si * rowScale[j]!);
   }
   const rank = Math.ceil((2 * far * n) / Math.max(1, others)) + 4;
-  return rank >= n - 1 ? Infinity : selectRank(probe, 0, n - 1, rank);
+  return rank >= n - 1 ? Infinity : bucketBound(probe, n, rank, buckets);
+}
+
+/**
+ * A value at least the rank-th smallest of a[0..n) (0 = smallest): the top of the range, of
+ * `buckets.length` equal ranges between the least and the greatest value, where the running
+ * count passes `rank` (twoRanks' counts, without its selection). A quickselect here cost ~3 ms
+ * more per what-if sweep at m = 2,000 (its comparisons are a coin toss for the branch
+ * predictor), for a bound that only needs to be about right.
+ */
+function bucketBound(a: Float64Array, n: number, rank: number, buckets: Int32Array): number {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let t = 0; t < n; t++) {
+    const x = a[t]!;
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
+  }
+  if (!(hi > lo)) return hi;
+  const last = buckets.length - 1;
+  const perUnit = buckets.length / (hi - lo);
+  buckets.fill(0);
+  for (let t = 0; t < n; t++) {
+    const b = Math.floor((a[t]! - lo) * perUnit);
+    buckets[b < last ? b : last]++;
+  }
+  let b = 0;
+  let below = buckets[0]!;
+  while (below <= rank) below += buckets[++b]!;
+  // Rounding may put a value just past its range's computed top: the next range's top is safe.
+  return b + 1 >= last ? hi : lo + (b + 2) / perUnit;
 }
 
 /** Every distance of row i to the other valid rows into `out`; returns the count. */
