@@ -39,7 +39,7 @@ const entries = [
   { entry: 'extension/src/host/extension.ts', out: 'dist/extension.js', platform: 'node', external: ['vscode'] },
   { entry: 'extension/src/worker/review-worker.ts', out: 'dist/review-worker.js', platform: 'node' },
   { entry: 'extension/src/engine/tokenize/tokenize-worker.ts', out: 'dist/tokenize-worker.js', platform: 'node' },
-  { entry: 'extension/src/engine/tokenize/assemble-worker.ts', out: 'dist/assemble-worker.js', platform: 'node' },
+  { entry: 'extension/src/engine/measures/matrix-thread.ts', out: 'dist/assemble-worker.js', platform: 'node' },
   { entry: 'extension/src/engine/shards/shard-thread.ts', out: 'dist/shard-thread.js', platform: 'node' },
   { entry: 'extension/src/engine/what-if/sample-thread.ts', out: 'dist/what-if-thread.js', platform: 'node' },
   { entry: 'extension/src/engine/measures/masked-term-sums-thread.ts', out: 'dist/masked-term-sums-thread.js', platform: 'node' },

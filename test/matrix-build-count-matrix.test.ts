@@ -10,6 +10,10 @@ import { createTokenizer, type TokenSettings } from '../extension/src/engine/tok
 import { arrayCorpusSource } from './reference/array-corpus-source';
 import { readFortunes } from './reference/read-fortunes';
 import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
+import { maskedTermSums } from '../extension/src/engine/measures/masked-term-sums';
+import type { MaskedTermSumsWork } from '../extension/src/engine/measures/start-masked-term-sums';
+import { matrixPassThreads, sameMatrix } from '../extension/src/engine/threads/matrix-pass-threads';
+import { startOneShot } from '../extension/src/engine/threads/one-shot-thread';
 
 const tokens: TokenSettings = { lowercase: true, minLength: 2, kinds: ['word', 'number', 'hashtag', 'emoji'], stem: false, ngrams: 1 };
 
@@ -110,9 +114,9 @@ describe('matrix/build-count-matrix', () => {
       dir = mkdtempSync(join(tmpdir(), 'loudword-tokenize-worker-'));
       script = join(dir, 'tokenize-worker.js');
       // The threads that write the matrix's rows are looked for beside the tokenising ones.
-      for (const name of ['tokenize-worker', 'assemble-worker']) {
+      for (const [entry, name] of [['tokenize/tokenize-worker', 'tokenize-worker'], ['measures/matrix-thread', 'assemble-worker']] as const) {
         await build({
-          entryPoints: [`extension/src/engine/tokenize/${name}.ts`],
+          entryPoints: [`extension/src/engine/${entry}.ts`],
           outfile: join(dir, `${name}.js`),
           bundle: true,
           platform: 'node',
@@ -157,6 +161,25 @@ describe('matrix/build-count-matrix', () => {
           for (const key of ['df', 'cf', 'sumCountSq', 'sumCountLength'] as const) assert.deepEqual(Array.from(built.countSums[key]), Array.from(stats[key]), key);
         }
       }
+    });
+
+    it('the threads that wrote the rows then wait for passes over the matrix, and make them to the bit', async () => {
+      const built = await buildCountMatrix(arrayCorpusSource(readFortunes(300)), tokens, { workers: 2, batchSize: 23, workerScript: script });
+      const X = built.counts;
+      const removed = new Uint8Array(X.cols);
+      for (let c = 0; c < X.cols; c += 5) removed[c] = 1;
+      const f64 = (n: number): Float64Array => new Float64Array(new SharedArrayBuffer(8 * n));
+      const out = { s1: f64(X.cols), s2: f64(X.cols), df: new Uint32Array(new SharedArrayBuffer(4 * X.cols)), sxlogx: f64(X.cols), rowNorm2: null, rowsWithWeight: new Int32Array(new SharedArrayBuffer(4)) };
+      const work: MaskedTermSumsWork = { passes: [{ removed, withSpread: true, out }], status: new Int32Array(new SharedArrayBuffer(4)) };
+      // A thread has gone from writing to waiting just after its reply.
+      await new Promise((resolve) => setTimeout(resolve, 200));
+      const waiting = matrixPassThreads.claim(X.indices.buffer, (t) => sameMatrix(t, X), work);
+      assert.ok(waiting !== null, 'a thread that wrote the rows is waiting over this matrix');
+      const pending = startOneShot({ script: null, thread: waiting, workerData: null, status: work.status, patienceMs: 30_000, here: () => -1, read: () => out.rowsWithWeight[0]! });
+      const expected = maskedTermSums(X, removed, true);
+      assert.equal(pending.take(), expected.rowsWithWeight);
+      assert.ok(pending.fromThread);
+      for (const key of ['s1', 's2', 'df', 'sxlogx'] as const) assert.deepEqual(Array.from(out[key]), Array.from(expected.sums[key]), key);
     });
 
     it('buildCountMatrix carries the over-long-run note back from the worker threads, the same as in-process', async () => {

@@ -245,7 +245,7 @@ class CountAccumulator {
     let countSums: RowCountSums;
     if (shared) {
       // The parts are posted at once; their sums move to columns here while the threads write.
-      const writing = assembler.assemble({ ranks, columns: cols, indices, data, parts, starts });
+      const writing = assembler.assemble({ ranks, columns: cols, indptr, indices, data, parts, starts });
       countSums = this.sums.result(ranks, cols);
       await writing;
     } else {

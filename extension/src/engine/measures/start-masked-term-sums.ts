@@ -1,4 +1,5 @@
-import { LastingThreads, type LastingLink } from '../threads/lasting-thread';
+import type { LastingLink } from '../threads/lasting-thread';
+import { matrixPassThreads, PASS_THREAD_WAIT_MS, sameMatrix } from '../threads/matrix-pass-threads';
 import { startOneShots, type PendingResult } from '../threads/one-shot-thread';
 import { threadScript } from '../threads/thread-script';
 import type { Csr } from '../matrix/csr';
@@ -36,25 +37,7 @@ export interface MaskedTermSumsThreadData extends MaskedTermSumsWork {
   link: LastingLink;
 }
 
-/** The matrix and script a pass thread was started on: a later pass goes to it only for the same ones. */
-interface PassThreadTag {
-  script: string;
-  indptr: Uint32Array;
-  indices: Uint32Array;
-  data: Float64Array;
-}
 
-/**
- * Pass threads waiting for another pass over their matrix, by its indices' buffer. A review's
- * passes come in two rounds: the baseline's spread and the suggestion rule's passes together,
- * then, a fraction of a second to a second or two later, the suggestions' measure's (a fresh
- * thread there cost ~65 ms of CPU to start and ran its pass unoptimised at first, while the
- * review's thread waited for it: ~190 ms of CPU for a ~120 ms pass at 100k documents).
- */
-const passThreads = new LastingThreads<PassThreadTag>();
-
-/** How long a pass thread waits for another pass once its own are done. */
-export const PASS_THREAD_WAIT_MS = 3000;
 
 /** maskedTermSums, begun now and read by `take()` (which waits for it when it runs elsewhere). */
 export type PendingTermSums = PendingResult<MaskedTermSums>;
@@ -119,10 +102,14 @@ export function startMaskedTermSumsInSeries(X: Csr, asks: readonly MaskedTermSum
     : [];
   const status = new Int32Array(new SharedArrayBuffer(4 * copies.length));
   const work: MaskedTermSumsWork = { passes, status };
-  // A thread waiting with the same matrix takes the passes; else one is started with them.
+  // A thread waiting with the same matrix takes the passes (one that wrote its rows, or made
+  // earlier passes: a review's passes come in two rounds, the baseline's spread and the rule's
+  // passes together, then a moment later the suggestions' measure's); else one is started with
+  // them. A fresh thread cost ~65 ms of CPU to start and ran its pass unoptimised at first.
+  const matrix = { indptr: X.indptr, indices: X.indices, data: X.data };
   const lasting = thread
-    ? (passThreads.claim(X.indices.buffer, (t) => t.script === script && t.indptr === X.indptr && t.indices === X.indices && t.data === X.data, work) ??
-      passThreads.start(script, X.indices.buffer, { script, indptr: X.indptr, indices: X.indices, data: X.data }, PASS_THREAD_WAIT_MS, (link): MaskedTermSumsThreadData => ({ rows: X.rows, cols, indptr: X.indptr, indices: X.indices, data: X.data, ...work, link })))
+    ? (matrixPassThreads.claim(X.indices.buffer, (t) => sameMatrix(t, matrix), work) ??
+      matrixPassThreads.start(script, X.indices.buffer, matrix, PASS_THREAD_WAIT_MS, (link): MaskedTermSumsThreadData => ({ rows: X.rows, cols, ...matrix, ...work, link })))
     : null;
   return startOneShots<MaskedTermSums>({
     script: null,

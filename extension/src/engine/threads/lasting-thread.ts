@@ -109,27 +109,45 @@ export class LastingThreads<Tag> {
    * waits on), kept under `key` for later claims; null when it cannot start.
    */
   start(script: string, key: object, tag: Tag, waitMs: number, data: (link: LastingLink) => unknown): LastingHandle | null {
-    const control = new Int32Array(new SharedArrayBuffer(4));
-    const { port1, port2 } = new MessageChannel();
+    const prepared = this.prepare(waitMs);
     let worker: Worker;
     try {
-      worker = startThread(script, { workerData: data({ control, port: port2, waitMs }), transferList: [port2] });
+      worker = startThread(script, { workerData: data(prepared.link), transferList: [prepared.link.port] });
     } catch {
-      port1.close();
+      prepared.cancel();
       return null;
     }
     worker.on('error', () => undefined);
     worker.unref();
+    return prepared.keep(worker, key, tag);
+  }
+
+  /**
+   * A link for a thread that is already running another kind of job (the threads that write the
+   * count matrix's rows): hand `link` to it (its port in the message's transfer list), and once
+   * it is waiting on it, `keep` it under `key` for later claims; `cancel` if it never will be.
+   */
+  prepare(waitMs: number): { link: LastingLink; keep(worker: Worker, key: object, tag: Tag): LastingHandle; cancel(): void } {
+    const control = new Int32Array(new SharedArrayBuffer(4));
+    const { port1, port2 } = new MessageChannel();
     port1.unref();
-    const t: Waiting<Tag> = { worker, control, port: port1, tag };
-    const list = this.byKey.get(key) ?? [];
-    list.push(t);
-    this.byKey.set(key, list);
-    worker.on('exit', () => {
-      Atomics.store(control, 0, GONE);
-      this.forget(key, t);
-    });
-    return this.handle(key, t);
+    return {
+      link: { control, port: port2, waitMs },
+      keep: (worker, key, tag) => {
+        // A waiting thread never keeps the process alive: it is only there in case a job comes.
+        worker.unref();
+        const t: Waiting<Tag> = { worker, control, port: port1, tag };
+        const list = this.byKey.get(key) ?? [];
+        list.push(t);
+        this.byKey.set(key, list);
+        worker.on('exit', () => {
+          Atomics.store(control, 0, GONE);
+          this.forget(key, t);
+        });
+        return this.handle(key, t);
+      },
+      cancel: () => port1.close(),
+    };
   }
 
   private handle(key: object, t: Waiting<Tag>): LastingHandle {

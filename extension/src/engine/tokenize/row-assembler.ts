@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
-import { Worker } from 'node:worker_threads';
+import { Worker, type MessagePort } from 'node:worker_threads';
+import { matrixPassThreads, PASS_THREAD_WAIT_MS } from '../threads/matrix-pass-threads';
 import { PendingReplies } from '../threads/pending-replies';
 import type { CountedPart } from './rows-in-rank-order';
 import type { AssembleReply, AssembleRequest } from './tokenize-messages';
@@ -9,6 +10,8 @@ export interface AssembleJob {
   ranks: Uint32Array[];
   /** How many columns the matrix has. */
   columns: number;
+  /** The matrix's row pointers (rows + 1), for the passes the threads make over it afterwards. */
+  indptr: Uint32Array;
   /** On SharedArrayBuffers, so that every thread writes into the one matrix. */
   indices: Uint32Array;
   data: Float64Array;
@@ -18,8 +21,12 @@ export interface AssembleJob {
 
 /** Threads that write the finished count matrix's rows, each a run of consecutive parts. */
 export interface RowAssembler {
-  /** Writes every part; the parts' arrays are handed over (transferred), not copied. */
+  /**
+   * Writes every part; the parts' arrays are handed over (transferred), not copied. The threads
+   * that wrote then wait a while for passes over the matrix (engine/threads/matrix-pass-threads.ts).
+   */
   assemble(job: AssembleJob): Promise<void>;
+  /** Stops the threads that are not waiting for passes. */
   close(): Promise<void>;
 }
 
@@ -33,6 +40,8 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
   const pool: Worker[] = [];
   // A request's number is its thread's index: each thread writes one run of parts per job.
   const pending = new PendingReplies<null>();
+  // Threads handed to matrixPassThreads once they have written: they leave on their own.
+  const kept = new Set<Worker>();
   for (let w = 0; w < threads; w++) {
     const worker = new Worker(script);
     worker.on('message', (reply: AssembleReply) => {
@@ -54,20 +63,30 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
         shares[Math.min(pool.length - 1, Math.floor((done * pool.length) / Math.max(1, total)))]!.push(k);
         done += job.parts[k]!.cols.length;
       }
+      const tag = { indptr: job.indptr, indices: job.indices, data: job.data };
       await Promise.all(
-        shares.map((share, w) => {
-          if (share.length === 0) return Promise.resolve(null);
+        shares.map(async (share, w) => {
+          if (share.length === 0) return;
           const parts = share.map((k) => job.parts[k]!);
-          const transfer: ArrayBuffer[] = [];
+          const link = matrixPassThreads.prepare(PASS_THREAD_WAIT_MS);
+          const transfer: Array<ArrayBuffer | MessagePort> = [link.link.port];
           for (const p of parts) transfer.push(p.rowEnds.buffer as ArrayBuffer, p.cols.buffer as ArrayBuffer, p.counts.buffer as ArrayBuffer);
-          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!) };
-          return pending.request(() => pool[w]!.postMessage(request, transfer), w);
+          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indptr: job.indptr, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!), link: link.link };
+          try {
+            await pending.request(() => pool[w]!.postMessage(request, transfer), w);
+          } catch (e) {
+            link.cancel();
+            throw e;
+          }
+          // Written: the thread now waits for passes over this matrix.
+          kept.add(pool[w]!);
+          link.keep(pool[w]!, job.indices.buffer, tag);
         }),
       );
     },
     async close() {
       pending.fail(new Error('assemble pool closed'));
-      await Promise.all(pool.map((w) => w.terminate()));
+      await Promise.all(pool.filter((w) => !kept.has(w)).map((w) => w.terminate()));
     },
   };
 }

@@ -1,5 +1,6 @@
 import type { TokenSettings } from './create-tokenizer';
 import type { EncodedBatch } from './encode-batch';
+import type { LastingLink } from '../threads/lasting-thread';
 import type { AssembleJob } from './row-assembler';
 
 /**
@@ -32,6 +33,11 @@ export interface TokenizeReply {
 export interface AssembleRequest extends AssembleJob {
   type: 'assemble';
   seq: number;
+  /**
+   * Where the thread then waits for passes over the matrix (engine/threads/matrix-pass-threads.ts),
+   * its port in the message's transfer list; null: the thread waits for another request.
+   */
+  link: LastingLink | null;
 }
 
 /** assemble worker → main: the parts are written, or the error text. */

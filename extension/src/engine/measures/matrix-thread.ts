@@ -1,11 +1,17 @@
 // worker_threads entry (bundled to dist/assemble-worker.js): writes a share of the finished
-// count matrix's rows (rows-in-rank-order.ts). A thread of its own, not a tokenising one: the
-// tokenising threads end before the matrix is allocated, so their heaps (wink's grown lexicon,
-// the chunk tables: hundreds of MB each at a million documents) are gone by then; this bundle
-// holds no wink, so it starts in milliseconds.
+// count matrix's rows (tokenize/rows-in-rank-order.ts), then waits as a pass thread over that
+// matrix (make-passes.ts), which is weighed in place and read by the review's exact passes: the
+// first of them is begun a fraction of a second later, and a waiting thread takes it instead of a
+// new one being started (~65 ms of CPU each, engine/threads/matrix-pass-threads.ts). A thread of
+// its own, not a tokenising one: the tokenising threads end before the matrix is allocated, so
+// their heaps (wink's grown lexicon, the chunk tables: hundreds of MB each at a million
+// documents) are gone by then; this bundle holds no wink, so it starts in milliseconds.
 import { parentPort } from 'node:worker_threads';
-import { RowWriter } from './rows-in-rank-order';
-import type { AssembleReply, AssembleRequest } from './tokenize-messages';
+import { nextJob, type LastingLink } from '../threads/lasting-thread';
+import { RowWriter } from '../tokenize/rows-in-rank-order';
+import type { AssembleReply, AssembleRequest } from '../tokenize/tokenize-messages';
+import { makePasses } from './make-passes';
+import type { MaskedTermSumsWork } from './start-masked-term-sums';
 
 const port = parentPort;
 if (port === null) throw new Error('assemble-worker must run as a worker thread');
@@ -24,7 +30,18 @@ port.on('message', (request: AssembleRequest) => {
     reply = { type: 'assembled', seq: request.seq, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
   }
   port.postMessage(reply);
+  if (reply.error === null && request.link !== null) makePassesUntilIdle(request, request.link);
 });
+
+/**
+ * The passes callers hand this thread over the matrix it wrote, until none comes for a while;
+ * then the thread ends. Blocks this thread's event loop: it takes no more messages.
+ */
+function makePassesUntilIdle(request: AssembleRequest, link: LastingLink): void {
+  const X = { rows: request.indptr.length - 1, cols: request.columns, indptr: request.indptr, indices: request.indices, data: request.data };
+  for (let work = nextJob<MaskedTermSumsWork>(link); work !== null; work = nextJob<MaskedTermSumsWork>(link)) makePasses(X, work);
+  process.exit(0);
+}
 
 const EMPTY_PART = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
 
