@@ -171,9 +171,12 @@ describe('matrix/build-count-matrix', () => {
       const f64 = (n: number): Float64Array => new Float64Array(new SharedArrayBuffer(8 * n));
       const out = { s1: f64(X.cols), s2: f64(X.cols), df: new Uint32Array(new SharedArrayBuffer(4 * X.cols)), sxlogx: f64(X.cols), rowNorm2: null, rowsWithWeight: new Int32Array(new SharedArrayBuffer(4)) };
       const work: MaskedTermSumsWork = { passes: [{ removed, withSpread: true, out }], status: new Int32Array(new SharedArrayBuffer(4)) };
-      // A thread has gone from writing to waiting just after its reply.
-      await new Promise((resolve) => setTimeout(resolve, 200));
-      const waiting = matrixPassThreads.claim(X.indices.buffer, (t) => sameMatrix(t, X), work);
+      // A thread goes from writing to waiting just after its reply (a moment, on a loaded machine).
+      let waiting = matrixPassThreads.claim(X.indices.buffer, (t) => sameMatrix(t, X), work);
+      for (let tries = 0; waiting === null && tries < 250; tries++) {
+        await new Promise((resolve) => setTimeout(resolve, 20));
+        waiting = matrixPassThreads.claim(X.indices.buffer, (t) => sameMatrix(t, X), work);
+      }
       assert.ok(waiting !== null, 'a thread that wrote the rows is waiting over this matrix');
       const pending = startOneShot({ script: null, thread: waiting, workerData: null, status: work.status, patienceMs: 30_000, here: () => -1, read: () => out.rowsWithWeight[0]! });
       const expected = maskedTermSums(X, removed, true);
