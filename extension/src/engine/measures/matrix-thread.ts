@@ -18,18 +18,24 @@ if (port === null) throw new Error('assemble-worker must run as a worker thread'
 
 port.on('message', (request: AssembleRequest) => {
   let reply: AssembleReply;
+  // The written parts' buffers go back with the reply: this thread then waits blocked, with no
+  // garbage collection to free them (at 100k documents they are 60 MB, the peak RSS was ~20 MB
+  // higher with them held here), while the review's thread collects its young objects often.
+  const spent: ArrayBuffer[] = [];
   try {
     const writer = new RowWriter(request.ranks, request.columns, request.indices, request.data);
     const { parts, starts } = request;
     for (let k = 0; k < parts.length; k++) {
-      writer.write(parts[k]!, starts[k]!);
+      const part = parts[k]!;
+      writer.write(part, starts[k]!);
       parts[k] = EMPTY_PART; // let each part go as soon as it is written
+      spent.push(part.rowEnds.buffer as ArrayBuffer, part.cols.buffer as ArrayBuffer, part.counts.buffer as ArrayBuffer);
     }
-    reply = { type: 'assembled', seq: request.seq, error: null };
+    reply = { type: 'assembled', seq: request.seq, error: null, spent };
   } catch (e) {
-    reply = { type: 'assembled', seq: request.seq, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e) };
+    reply = { type: 'assembled', seq: request.seq, error: e instanceof Error ? `${e.name}: ${e.message}` : String(e), spent: [] };
   }
-  port.postMessage(reply);
+  port.postMessage(reply, reply.spent);
   if (reply.error === null && request.link !== null) makePassesUntilIdle(request, request.link);
 });
 

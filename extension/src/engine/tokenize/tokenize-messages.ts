@@ -45,4 +45,6 @@ export interface AssembleReply {
   type: 'assembled';
   seq: number;
   error: string | null;
+  /** The written parts' buffers, handed back (transferred) to be let go there. */
+  spent: ArrayBuffer[];
 }
