@@ -449,25 +449,13 @@ const RANK_BUCKETS = 256;
  * and the gather are mostly predictable. Values equal to the same bits as selectRank's.
  */
 export function twoRanks(a: Float64Array, n: number, r1: number, r2: number, buckets: Int32Array, scratch: Float64Array, out: Float64Array): void {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (let t = 0; t < n; t++) {
-    const x = a[t]!;
-    if (x < lo) lo = x;
-    if (x > hi) hi = x;
-  }
-  if (!(hi > lo)) {
-    out[0] = out[1] = lo;
+  if (!countInRanges(a, n, buckets)) {
+    out[0] = out[1] = RANGES[0]!;
     return;
   }
-  const count = buckets.length;
-  const last = count - 1;
-  const perUnit = count / (hi - lo);
-  buckets.fill(0);
-  for (let t = 0; t < n; t++) {
-    const b = Math.floor((a[t]! - lo) * perUnit);
-    buckets[b < last ? b : last]++;
-  }
+  const lo = RANGES[0]!;
+  const perUnit = RANGES[1]!;
+  const last = buckets.length - 1;
   // The bucket holding each rank and how many values lie in the buckets below it.
   let b1 = 0;
   let below1 = 0;
@@ -486,6 +474,37 @@ export function twoRanks(a: Float64Array, n: number, r1: number, r2: number, buc
   }
   out[0] = selectRank(scratch, 0, n1 - 1, r1 - below1);
   out[1] = b2 === b1 ? selectRank(scratch, 0, n1 - 1, r2 - below1) : selectRank(scratch, n2, n - 1, n2 + r2 - below2);
+}
+
+/** countInRanges' answer: the least value, the ranges per unit, the greatest value. */
+const RANGES = new Float64Array(3);
+
+/**
+ * Counts each of a[0..n) in one of `buckets.length` equal ranges between the least and the
+ * greatest value (the greatest in the last range), for twoRanks and bucketBound; RANGES gets the
+ * least value, the ranges per unit and the greatest value. False, with nothing counted, when the
+ * values are all equal (RANGES[0] their value).
+ */
+function countInRanges(a: Float64Array, n: number, buckets: Int32Array): boolean {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let t = 0; t < n; t++) {
+    const x = a[t]!;
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
+  }
+  RANGES[0] = lo;
+  RANGES[2] = hi;
+  if (!(hi > lo)) return false;
+  const last = buckets.length - 1;
+  const perUnit = buckets.length / (hi - lo);
+  RANGES[1] = perUnit;
+  buckets.fill(0);
+  for (let t = 0; t < n; t++) {
+    const b = Math.floor((a[t]! - lo) * perUnit);
+    buckets[b < last ? b : last]++;
+  }
+  return true;
 }
 
 /** Every how many entries radiusBound reads a row. */
@@ -523,21 +542,11 @@ function radiusBound(gram: Float64Array, i: number, m: number, valid: Uint8Array
  * predictor), for a bound that only needs to be about right.
  */
 function bucketBound(a: Float64Array, n: number, rank: number, buckets: Int32Array): number {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (let t = 0; t < n; t++) {
-    const x = a[t]!;
-    if (x < lo) lo = x;
-    if (x > hi) hi = x;
-  }
-  if (!(hi > lo)) return hi;
+  if (!countInRanges(a, n, buckets)) return RANGES[2]!;
+  const lo = RANGES[0]!;
+  const perUnit = RANGES[1]!;
+  const hi = RANGES[2]!;
   const last = buckets.length - 1;
-  const perUnit = buckets.length / (hi - lo);
-  buckets.fill(0);
-  for (let t = 0; t < n; t++) {
-    const b = Math.floor((a[t]! - lo) * perUnit);
-    buckets[b < last ? b : last]++;
-  }
   let b = 0;
   let below = buckets[0]!;
   while (below <= rank) below += buckets[++b]!;
