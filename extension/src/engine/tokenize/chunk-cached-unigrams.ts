@@ -6,6 +6,7 @@ import { cutRun, MAX_RUN } from './long-runs';
 import { lowercaseForms } from './lowercase-forms';
 import { Vocabulary, type TermCoder } from './term-coder';
 import { WINK_SPLITTER_SOURCE } from './wink-splitter';
+import { peekCoreModel } from './wink-core-model';
 
 /** Table values below ABSENT (≥ 0 is the chunk's one term id). */
 const DROPPED = -2; // one token, dropped by the settings
@@ -492,7 +493,7 @@ const SPLIT_CLASS: Uint8Array = (() => {
 function categoryTests(): { isWord(chunk: string): boolean; isWordRP(chunk: string): boolean } {
   const none = { isWord: () => false, isWordRP: () => false };
   try {
-    const model = require('wink-eng-lite-web-model/dist/languages/cur/models/eng-core-web-model.json') as { trex?: { ltc?: [string, string, number][] } };
+    const model = peekCoreModel();
     const ltc = model.trex?.ltc;
     // 1 = word, 15 = wordRP in wink-nlp 2.4's categories (src/constants.js is not exported).
     if (ltc === undefined || ltc.length < 2 || ltc[0]![2] !== 1 || ltc[1]![2] !== 15) return none;

@@ -1,4 +1,5 @@
 import type { WinkMethods } from 'wink-nlp';
+import { peekCoreModel } from './wink-core-model';
 
 /**
  * The plain words (letters only, wink's first category) that a whole-document wink run would
@@ -112,7 +113,7 @@ function wordLetters(): Uint8Array {
 function readWordLetters(): Uint8Array {
   const table = new Uint8Array(0x10000);
   try {
-    const model = require('wink-eng-lite-web-model/dist/languages/cur/models/eng-core-web-model.json') as { trex?: { ltc?: [string, string, number][] } };
+    const model = peekCoreModel();
     const first = model.trex?.ltc?.[0];
     const body = first !== undefined && first[2] === 1 ? /^\^(\[[^\]]+\])\+\$$/.exec(first[0]) : null;
     if (first === undefined || body === null) return table;

@@ -1,3 +1,5 @@
+import { peekCoreModel } from './wink-core-model';
+
 /**
  * How wink-nlp 2.4 cuts a text before tokenising (src/tokenizer.js): `text.split(splitter)` with
  * the model's `trex.helpers.splitter`, then each piece on its own. A piece whose first character
@@ -30,10 +32,8 @@ export function winkSplitsLikeThis(): boolean {
   if (verdict !== null) return verdict;
   try {
     const pkg = require('wink-nlp/package.json') as { version?: string };
-    const model = require('wink-eng-lite-web-model/dist/languages/cur/models/eng-core-web-model.json') as {
-      trex?: { helpers?: { splitter?: [string, string] } };
-    };
-    const splitter = model.trex?.helpers?.splitter;
+    // In the bundles this parse is the one the first wink instance then takes (wink-core-model.ts).
+    const splitter = peekCoreModel().trex?.helpers?.splitter;
     verdict = pkg.version === AUDITED_WINK_VERSION && splitter !== undefined && splitter[0] === WINK_SPLITTER_SOURCE && splitter[1] === '';
   } catch {
     verdict = false;
