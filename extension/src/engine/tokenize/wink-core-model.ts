@@ -28,19 +28,20 @@ const MODEL_FILE = 'eng-core-web-model.json';
 declare const LOUDWORD_WINK_CORE_READER: string | undefined;
 const bundled = typeof LOUDWORD_WINK_CORE_READER !== 'undefined';
 
-let text: string | undefined;
 /** A parse no instance has been given yet (peekCoreModel's), handed to the next readCoreModel. */
 let spare: CoreModel | undefined;
 let peeked: { trex?: CoreRegexes } | undefined;
 
+/**
+ * The file's text, read for each parse rather than kept: it is a two-byte string (a few
+ * thousand characters above U+00FF), 6 MB in every thread that makes an instance, and kept it
+ * raised a 100k review's peak RSS by ~20 MB; reading it again takes a few milliseconds.
+ */
 function modelText(): string {
-  if (text === undefined) {
-    const file = bundled ? join(__dirname, 'wink-model', MODEL_FILE) : require.resolve(`wink-eng-lite-web-model/dist/languages/cur/models/${MODEL_FILE}`);
-    const raw = readFileSync(file, 'utf8');
-    // As Node's require of a .json file: a leading byte-order mark is not part of the JSON.
-    text = raw.charCodeAt(0) === 0xfeff ? raw.slice(1) : raw;
-  }
-  return text;
+  const file = bundled ? join(__dirname, 'wink-model', MODEL_FILE) : require.resolve(`wink-eng-lite-web-model/dist/languages/cur/models/${MODEL_FILE}`);
+  const raw = readFileSync(file, 'utf8');
+  // As Node's require of a .json file: a leading byte-order mark is not part of the JSON.
+  return raw.charCodeAt(0) === 0xfeff ? raw.slice(1) : raw;
 }
 
 /**
