@@ -489,6 +489,8 @@ describe('webview in Chromium', function () {
         await page.waitForSelector('.lw-strip:not([data-pending="true"])');
         assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.432');
         await click('account');
+        // The waiting mark comes once the wait has lasted a moment (panel-app PENDING_MARK_AFTER_MS).
+        await page.waitForSelector('.lw-strip .lw-pending', { timeout: 2000 });
         assert.equal(await page.locator('.lw-strip .lw-pending').count(), 1, 'the earlier state\'s prefetch is not used');
         assert.equal(await stripValue(page, 'backgroundSimilarity', 'selection'), '0.432');
 

@@ -25,6 +25,15 @@ import { WhatIfRequester } from './what-if-requester';
  */
 const PREFETCH_AFTER_MS = 30;
 
+/**
+ * How long a click's answer may take before the strip is marked as waiting ("updating…", the
+ * selection's values faded). Most answers at 100k come in ~100 ms; marking at once restyled the
+ * strip in the click's own frame, which the editor's page renders before it passes the click's
+ * request on, and again in the answer's (docs/performance.md, "What-if in the real editor: the
+ * click's frame").
+ */
+const PENDING_MARK_AFTER_MS = 150;
+
 interface Loaded {
   report: Report;
   checked: Set<string>;
@@ -52,6 +61,9 @@ export class PanelApp {
   private readonly statusSlot: HTMLElement;
   private readonly content: HTMLElement;
   private loaded: Loaded | null = null;
+  /** Whether the strip may show its waiting mark (PENDING_MARK_AFTER_MS after a wait began), and the timer that allows it. */
+  private pendingMarked = false;
+  private pendingTimer: ReturnType<typeof setTimeout> | null = null;
   /** What the strip was last built from (renderStrip): when only `pending` changes, it is marked, not rebuilt. */
   private stripShown: { measures: Measures | null; removedCount: number; suggestedCount: number; addedCount: number } | null = null;
   /** What the host says changed since the shown Report (see StaleMessage). */
@@ -370,8 +382,7 @@ export class PanelApp {
       suggestedCount: l.suggestionSet.size,
       addedCount: this.stale.added.filter((t) => l.suggestionSet.has(t)).length,
       selection: selection ? { measures: selection, removedCount: this.state.whatIf?.removed.length ?? 0 } : null,
-      // Waiting only while the strip does not show the current selection (a prefetch may have).
-      pending: this.requester.pending && !this.showing(this.removedTerms()),
+      pending: this.pendingMark(),
     };
     // A click only marks the strip as waiting: the values shown are the same, so the strip and
     // the live line stay in place and only their pending mark changes. Rebuilding them made the
@@ -397,6 +408,26 @@ export class PanelApp {
     this.stripShown = shown;
     replaceChildren(l.stripSlot, [renderHealthStrip(input)]);
     replaceChildren(l.liveSlot, [renderLiveSummary(input)]);
+  }
+
+  /**
+   * Whether the strip shows its waiting mark: only while the strip does not show the current
+   * selection (a prefetch may have), and once that wait has lasted PENDING_MARK_AFTER_MS.
+   */
+  private pendingMark(): boolean {
+    const waiting = this.requester.pending && !this.showing(this.removedTerms());
+    if (!waiting) {
+      if (this.pendingTimer !== null) clearTimeout(this.pendingTimer);
+      this.pendingTimer = null;
+      this.pendingMarked = false;
+    } else if (!this.pendingMarked && this.pendingTimer === null) {
+      this.pendingTimer = setTimeout(() => {
+        this.pendingTimer = null;
+        this.pendingMarked = true;
+        this.renderStrip();
+      }, PENDING_MARK_AFTER_MS);
+    }
+    return waiting && this.pendingMarked;
   }
 
   private renderSelectionControls(): void {

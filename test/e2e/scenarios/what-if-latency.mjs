@@ -178,6 +178,8 @@ async function measure(ctx, fileName, label) {
     );
     return clicks;
   };
+  // E2E_WHATIF_PLAIN=1: (a) alone, for quick A/B runs of a plain click's parts.
+  if (process.env.E2E_WHATIF_PLAIN === '1') return { plain: median(plain.map((c) => c.ms)) };
   const afterRest = await rested(HOVER_MS, `(b) click after a ${HOVER_MS} ms rest on the box`);
   const human = await rested(HUMAN_MS, `(c) click ${HUMAN_MS} ms after the pointer entered the box`);
   // The button goes down on the box with no pointer movement before it (a synthetic pointerdown,
