@@ -50,6 +50,18 @@ export interface TokenizingThreads {
 }
 
 /**
+ * A tokenising thread's young generation, capped at 12 MB (semi-spaces of 4 MB; V8's default
+ * lets them grow to 16 MB each). The thread makes short-lived strings all along (the texts as
+ * they arrive, their lowercase copies, wink's tokens): in the small young generation they die
+ * in memory already touched and still in cache, where the grown one kept taking fresh pages
+ * (~12 µs of CPU each here). Alternating runs of the 100k reviews: CPU −3 to −5% with either
+ * tokenizer, ~10k fewer page faults; 6 MB gave the pattern review as much and the wink review
+ * 2% more CPU than 12, 24 MB the pattern review 2% more (docs/performance.md, "Wink's model
+ * reads and the tokenising threads' young generation"). The results do not depend on it.
+ */
+const TOKENIZING_HEAP = { maxYoungGenerationSizeMb: 12 };
+
+/**
  * Starts `workers` tokenising threads without settings: each loads the bundle (~0.1-0.3 s)
  * while the caller reads and checks the settings, and makes its coder (for wink, loading the
  * model) when `encoder(tokens)` sends them. Null when the script is not there or `workers` < 1.
@@ -65,7 +77,7 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
   let configured = false;
 
   for (let w = 0; w < workers; w++) {
-    const worker = new Worker(script);
+    const worker = new Worker(script, { resourceLimits: TOKENIZING_HEAP });
     const waiting = new PendingReplies<EncodedBatch>();
     const fail = (e: Error): void => {
       failure ??= e;

@@ -7,7 +7,8 @@ import { join } from 'node:path';
  * (scripts/build.mjs), which cost ~300 ms of CPU per instance here: it `require`s the JSON once
  * (a parse), then copies it for each instance through JSON.stringify and JSON.parse, and decodes
  * two base64 arrays a character at a time. Parsing the file's text once per instance gives the
- * same object, ~200 ms (docs/performance.md, "The fourteenth session's wink model reads").
+ * same object, ~200 ms (docs/performance.md, "Wink's model reads and the tokenising threads'
+ * young generation").
  * A wink-nlp instance mutates its model (the lexicon grows), so each one gets a fresh parse.
  */
 export type CoreModel = {
