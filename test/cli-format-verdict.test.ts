@@ -6,6 +6,7 @@ import * as path from 'node:path';
 import { formatMarkdown } from '../extension/src/cli/format-markdown';
 import { formatText } from '../extension/src/cli/format-text';
 import type { Report } from '../extension/src/protocol';
+import { verdictCaution } from '../extension/src/verdict-caution';
 
 function withVerdict(): Report {
   const report = JSON.parse(readFileSync(path.join(__dirname, 'fixtures', 'report-small.json'), 'utf8')) as Report;
@@ -36,6 +37,27 @@ describe('verdict in the CLI outputs', () => {
     const lines = formatText(report).split('\n');
     assert.ok(lines.some((l) => /^ {2}Also: Hubness skew rose/.test(l)));
     assert.ok(!lines.some((l) => l.startsWith('  But:')));
+  });
+
+  it('formatText: the closing "Next:" line recommends apply only when the list does not hurt', () => {
+    const helps = formatText(withVerdict()).replace(/\n {4}/g, ' ');
+    assert.match(helps, /Next: review the suggestions, then `loudword apply /);
+    const report = withVerdict();
+    report.verdict!.outcome = 'hurts';
+    report.verdict!.estimate!.change = -0.004;
+    const hurts = formatText(report).replace(/\n {4}/g, ' ');
+    assert.match(hurts, /Next: the review judged this list to lower label precision@10 \(\u22120\.004\), so applying it as a whole is not advised/);
+    assert.doesNotMatch(hurts, /Next: review the suggestions/);
+  });
+
+  it('verdictCaution: a sentence only for a list judged to hurt, with the change in the verdict\'s digits', () => {
+    const report = withVerdict();
+    assert.equal(verdictCaution(report.verdict), null);
+    assert.equal(verdictCaution(undefined), null);
+    report.verdict = { ...report.verdict!, outcome: 'hurts', estimate: { measure: 'neighbour standout', change: -0.0312, low: -0.05, high: -0.01, draws: 400, method: 'bootstrap' } };
+    assert.equal(verdictCaution(report.verdict), 'the review judged this list to lower neighbour standout (\u22120.03)');
+    report.verdict = { ...report.verdict, estimate: null };
+    assert.equal(verdictCaution(report.verdict), null);
   });
 
   it('formatMarkdown: the verdict is the first paragraph under the heading, caveats as a list', () => {

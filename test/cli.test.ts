@@ -71,9 +71,18 @@ describe('loudword CLI', function () {
 
   it('apply adds the suggestions to the stop list once, keeping comments and order', () => {
     const before = readFileSync(path.join(dir, 'stoplist.txt'), 'utf8');
+    const judged = run(['review', 'support-tickets.csv', '--sample', '300', '--format', 'json'], dir);
+    const outcome = (JSON.parse(judged.stdout) as { verdict: { outcome: string } }).verdict.outcome;
     const first = run(['apply', 'support-tickets.csv', '--sample', '300'], dir);
     assert.equal(first.code, 0, first.stderr);
     const after = readFileSync(path.join(dir, 'stoplist.txt'), 'utf8');
+    // The same review judged the list: apply repeats a verdict that it hurts, with the way back.
+    const note = /Note: the review judged this list to lower .*; to undo, delete the last (\d+) lines of \S*stoplist\.txt, just added\./.exec(first.stdout.replace(/\n {4}/g, ' '));
+    assert.equal(note !== null, outcome === 'hurts', first.stdout);
+    if (note !== null) {
+      const kept = after.split('\n').slice(0, -1 - Number(note[1]));
+      assert.equal(kept.join('\n') + '\n', before, 'deleting the lines named gives the list back');
+    }
     assert.ok(after.startsWith(before), 'existing lines and comments are kept in place');
     const lines = after.split('\n').filter((l) => l && !l.startsWith('#'));
     assert.equal(new Set(lines).size, lines.length, 'no duplicates');

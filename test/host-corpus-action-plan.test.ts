@@ -39,10 +39,17 @@ describe('planCorpusActions', () => {
 
   it('planCorpusActions bounds the single-term fixes and titles without evidence plainly', () => {
     const many = Array.from({ length: 12 }, (_, i) => `t${i}`);
-    const actions = planCorpusActions(many, many, new Set(), new Map(), 4);
+    const actions = planCorpusActions(many, many, new Set(), new Map(), { maxSingle: 4 });
     assert.equal(actions.filter((a) => a.kind === 'addOne').length, 4);
     assert.equal(actions[0]!.title, "Stop 't0'");
     assert.equal(actions[actions.length - 1]!.title, 'Stop all 12 suggested terms');
+  });
+
+  it('planCorpusActions carries the verdict\'s caution on "stop all" only', () => {
+    const caution = 'the review judged this list to lower neighbour standout (\u22120.03)';
+    const actions = planCorpusActions(['via'], suggestions, new Set(), evidence, { caution });
+    assert.equal(actions[0]!.title, "Stop 'via' — 30% of all-pair similarity, lift 0.24");
+    assert.equal(actions[1]!.title, `Stop all 3 suggested terms — 35% of all-pair similarity together (${caution})`);
   });
 
   it('stopTitle writes the share with digits that fit its size', () => {

@@ -9,6 +9,11 @@ export function withMinus(text: string): string {
   return text.startsWith('-') ? MINUS + text.slice(1) : text;
 }
 
+/** A change with its sign always written and a real minus: +0.012, −0.003. */
+export function formatSignedChange(value: number, digits: number): string {
+  return `${value >= 0 ? '+' : MINUS}${Math.abs(value).toFixed(digits)}`;
+}
+
 /** Integers with thousands separators: 12,345. */
 export function formatCount(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return NO_VALUE;

@@ -4,6 +4,7 @@ import { count, verb, wrapLines } from './text-layout';
 import { formatCount, formatNumber } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
+import { verdictCaution } from '../verdict-caution';
 import { suggestionLines } from '../engine/terms/stop-list-spelling';
 import { skippedWording } from '../skipped-wording';
 import { stopListSize } from '../stop-list-wording';
@@ -70,7 +71,12 @@ export function formatText(report: Report): string {
   }
   if (report.suggestions.length > 0) {
     out.push('');
-    out.push(`Next: review the suggestions, then \`loudword apply ${input.file}\` adds them to ${report.stopList.file ?? 'the stop list file'}.`);
+    const target = report.stopList.file ?? 'the stop list file';
+    const caution = verdictCaution(report.verdict);
+    // After a verdict that the list hurts, apply is not the next step to recommend: say so first.
+    out.push(caution === null
+      ? `Next: review the suggestions, then \`loudword apply ${input.file}\` adds them to ${target}.`
+      : `Next: ${caution}, so applying it as a whole is not advised; pick terms from it by hand, or try them in the editor's what-if first. \`loudword apply ${input.file}\` would add all of them to ${target}.`);
   }
   return wrapLines(out).join('\n') + '\n';
 }

@@ -16,7 +16,8 @@ import { UserError } from '../engine/user-error';
 import { lineOfKey } from '../engine/config/confine-to-workspace';
 import { USAGE } from './usage';
 import { progressLine, type ProgressLine } from './progress-line';
-import { count } from './text-layout';
+import { count, wrapLines } from './text-layout';
+import { verdictCaution } from '../verdict-caution';
 import { escapeControls, escapeJsonControls } from './terminal-text';
 import { describeSystemError, guardStdout, writeOutputFile, writeStdout } from './write-output';
 import { reviewInputOf } from './review-input-of';
@@ -109,7 +110,17 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   }
   if (!o.dryRun) await replaceStopList(list, result.bytes);
   const verb = o.dryRun ? 'Would add' : 'Added';
-  await say(`${verb} ${count(result.added.length, 'term')} to ${file}: ${result.added.join(', ')}\n${leftOut}`);
+  const lines = [`${verb} ${count(result.added.length, 'term')} to ${file}: ${result.added.join(', ')}`];
+  if (leftOut !== '') lines.push(leftOut.trimEnd());
+  // apply does what it was told, but it is the moment to repeat a verdict that the list hurts,
+  // with the way back: the lines it wrote are the file's last ones.
+  const caution = verdictCaution(report.verdict);
+  if (caution !== null) {
+    lines.push(o.dryRun
+      ? `Note: ${caution}.`
+      : `Note: ${caution}; to undo, delete the last ${count(result.newLines.length, 'line')} of ${file}, just added.`);
+  }
+  await say(wrapLines(lines).join('\n') + '\n');
   if (o.dryRun) {
     // The lines exactly as they would be written, and where: nothing has changed yet.
     const where = result.afterLine === 0 ? 'as its first lines' : `after line ${result.afterLine}`;

@@ -6,6 +6,7 @@ import type { HostContext } from './host-context';
 import { openConfig } from './open-config';
 import { COMMAND_IDS } from './pure/contribution-ids';
 import { flaggedTermAt } from './pure/flagged-term-spans';
+import { verdictCaution } from '../verdict-caution';
 
 type CommandFactory = (ctx: HostContext) => (...args: unknown[]) => unknown;
 
@@ -71,6 +72,15 @@ export const COMMANDS: Readonly<Record<string, CommandFactory>> = {
     if (open.length === 0) {
       void vscode.window.showInformationMessage('Loudword: no suggested terms are left to add.');
       return;
+    }
+    // The quick fix that runs this is one keystroke from the corpus, far from the verdict: when
+    // the review judged the list harmful, adding all of it waits for a yes.
+    const caution = verdictCaution(review.report.verdict);
+    if (caution !== null) {
+      const addAnyway = `Add all ${open.length}`;
+      const detail = 'Tick terms in the Loudword panel to see what each one does to the measures before adding it.';
+      const choice = await vscode.window.showWarningMessage(`Loudword: ${caution}. Add all ${open.length} suggested terms anyway?`, { modal: true, detail }, addAnyway);
+      if (choice !== addAnyway) return;
     }
     await ctx.addTerms(review, open);
   },

@@ -6,6 +6,7 @@ import { COMMAND_IDS } from './pure/contribution-ids';
 import { planCorpusActions } from './pure/corpus-action-plan';
 import { flaggedTermSpans } from './pure/flagged-term-spans';
 import type { ReviewStore } from './review-store';
+import { verdictCaution } from '../verdict-caution';
 
 /** At most this many lines around the request are scanned (a huge selection stays cheap). */
 const MAX_LINES = 200;
@@ -42,7 +43,7 @@ export class CorpusCodeActions implements vscode.CodeActionProvider {
       }
     }
     const evidence = new Map(review.report.terms.map((t) => [t.term, { pullShare: t.pullShare, neighborLift: t.neighborLift }]));
-    return planCorpusActions(terms, review.report.suggestions, review.addedSinceReview, evidence).map((a) => {
+    return planCorpusActions(terms, review.report.suggestions, review.addedSinceReview, evidence, { caution: verdictCaution(review.report.verdict) }).map((a) => {
       const action = new vscode.CodeAction(a.title, vscode.CodeActionKind.QuickFix);
       if (a.kind === 'addOne') {
         action.command = { command: COMMAND_IDS.addTermToStopList, title: a.title, arguments: [document.uri, a.term] };

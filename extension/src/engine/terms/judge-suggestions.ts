@@ -1,5 +1,6 @@
-import { formatCount } from '../../number-format';
+import { formatCount, formatSignedChange as signed } from '../../number-format';
 import type { Measures, Verdict } from '../../protocol';
+import { changeDigits } from '../../verdict-caution';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
@@ -31,7 +32,6 @@ export type LightGroups = Partial<Record<SuggestionGroup, number>>;
 
 const f2 = (x: number): string => x.toFixed(2);
 const f3 = (x: number): string => x.toFixed(3);
-const signed = (x: number, digits: number): string => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(digits)}`;
 const pct = (x: number): string => `${Math.round(x * 100)}%`;
 const pct1 = (x: number): string => `${(x * 100).toFixed(1)}%`;
 
@@ -97,7 +97,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
   const searched = useLabels && corpus !== null ? { neighborsAmong: corpus.among, neighborsFor: corpus.queries } : {};
   const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const, ...searched };
-  const digits = useLabels ? 3 : 2;
+  const digits = changeDigits(measure);
   const sampled = lab.sampleRows.rows;
   const fewer = useLabels && corpus !== null && corpus.queries < sampled;
   // boot.queries: the documents with a label and a neighbour in both settings, of those searched for.
@@ -113,7 +113,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
       : `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
     const verb = outcome === 'helps' ? agree('raises', 'raise') : outcome === 'hurts' ? agree('lowers', 'lower') : agree('does', 'do') + ' not clearly change';
     const where = whereSought(corpus, input.documents ?? sampled, sampled);
-    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, 3)}; ${interval}${where}). The list was chosen without the labels, so every sampled document is held out.`;
+    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, digits)}; ${interval}${where}). The list was chosen without the labels, so every sampled document is held out.`;
     if (outcome === 'no clear change') {
       headline += fewer
         ? ' A difference this small needs more documents searched for than a search of this corpus can take here.'
@@ -122,7 +122,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   } else {
     const make = agree('makes', 'make');
     const verb = outcome === 'helps' ? `${make} nearest neighbours stand out more` : outcome === 'hurts' ? `${make} nearest neighbours stand out less` : `${agree('does', 'do')} not clearly change how much nearest neighbours stand out`;
-    headline = `${list} ${verb}: ${measure} ${signed(boot.change, 2)} (${interval}). Without labels this is a proxy for neighbour quality; pass --label to measure precision.`;
+    headline = `${list} ${verb}: ${measure} ${signed(boot.change, digits)} (${interval}). Without labels this is a proxy for neighbour quality; pass --label to measure precision.`;
   }
   if (opinion.opinionText) {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;

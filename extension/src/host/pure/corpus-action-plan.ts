@@ -29,14 +29,16 @@ export function stopTitle(term: string, evidence: TermEvidence | undefined): str
  * Offers "Stop '<term>' — …" for each distinct flagged term in the range, then "Stop all N
  * suggested terms — …" when more than one suggestion is still open. `alreadyStopped` holds terms
  * added since the review ran, so a fix is never offered twice. Pull shares add up (each is a
- * share of one total), so the group's share is their sum.
+ * share of one total), so the group's share is their sum. `caution` (verdict-caution.ts) is
+ * appended to the group's title when the review judged the whole list harmful: that action is
+ * one keystroke away from the corpus, far from the verdict at the top of the panel.
  */
 export function planCorpusActions(
   termsInRange: readonly string[],
   suggestions: readonly string[],
   alreadyStopped: ReadonlySet<string>,
   evidence: ReadonlyMap<string, TermEvidence> = new Map(),
-  maxSingle = 5,
+  { maxSingle = 5, caution = null }: { maxSingle?: number; caution?: string | null } = {},
 ): CorpusAction[] {
   const open = suggestions.filter((t) => !alreadyStopped.has(t));
   const openSet = new Set(open);
@@ -51,7 +53,8 @@ export function planCorpusActions(
   if (actions.length > 0 && open.length > 1) {
     const known = open.filter((t) => evidence.has(t));
     const together = known.length === open.length ? ` — ${shareText(open.reduce((s, t) => s + evidence.get(t)!.pullShare, 0))} of all-pair similarity together` : '';
-    actions.push({ kind: 'addAll', title: `Stop all ${open.length} suggested terms${together}`, terms: open });
+    const warning = caution === null ? '' : ` (${caution})`;
+    actions.push({ kind: 'addAll', title: `Stop all ${open.length} suggested terms${together}${warning}`, terms: open });
   }
   return actions;
 }
