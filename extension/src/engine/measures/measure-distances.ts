@@ -45,6 +45,13 @@ export interface MeasureDistancesOptions {
    */
   gram?: Float64Array;
   rowScale?: Float64Array;
+  /**
+   * The exact sums and rows with weight, asked for only once the sample's measures and the
+   * per-term k-NN mass are done (in place of `sums` and `rowsWithWeight`): a full pass begun on
+   * another thread runs meanwhile instead of being waited for first (DistanceLab.measure). The
+   * two halves share no input, so the figures are the same bits either way.
+   */
+  exact?: () => { sums: TermSums; rowsWithWeight: number };
 }
 
 export interface MeasureDistancesResult {
@@ -76,17 +83,21 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   if (options.gram !== undefined && options.gram.length !== sample.length * sample.length) {
     throw new RangeError(`measureDistances: gram is not ${sample.length}×${sample.length}`);
   }
-  const core = measuresFromGram({
-    ...options,
-    sums: options.sums ?? termSums(X),
-    rowsWithWeight: options.rowsWithWeight ?? rowsWithWeight(X),
-    gram: options.gram ?? sampleSimilarities(X, sample),
-    rowOf: (i) => sample[i]!,
-  });
+  // measuresFromGram's two halves, the sampled one first, with the per-term k-NN mass (it needs
+  // only the neighbours) before the exact sums are asked for.
+  const sampled = sampledMeasures({ ...options, gram: options.gram ?? sampleSimilarities(X, sample), rowOf: (i) => sample[i]! });
+  const termKnnMass = knnTermMass(X, sample, sampled.neighbors, k);
+  const given = options.exact?.();
+  const exact = exactMeasures(given?.sums ?? options.sums ?? termSums(X), given?.rowsWithWeight ?? options.rowsWithWeight ?? rowsWithWeight(X));
   return {
-    ...core,
-    hubPositions: topHubPositions(core.kOccurrence, TOP_HUBS),
-    termKnnMass: knnTermMass(X, sample, core.neighbors, k),
+    measures: joinMeasures(sampled.measures, exact),
+    neighbors: sampled.neighbors,
+    neighborSims: sampled.neighborSims,
+    standoutPerQuery: sampled.standoutPerQuery,
+    kOccurrence: sampled.kOccurrence,
+    pairMass: exact.mass,
+    hubPositions: topHubPositions(sampled.kOccurrence, TOP_HUBS),
+    termKnnMass,
   };
 }
 

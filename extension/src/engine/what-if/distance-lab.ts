@@ -184,15 +184,16 @@ export class DistanceLab {
     }
     const { dots, scale } = this.gram.scaled(removed, incremental);
     const sample = this.maskedSample(removed);
-    const { sums, rowsWithWeight } = pass !== null ? this.exact.adopt(removed, pass.take()) : this.exactSums(removed, incremental);
+    // The pass begun elsewhere is taken only after the sampled measures (they need nothing from
+    // it), so that they run while it does instead of after waiting for it.
+    const now = pass === null ? this.exactSums(removed, incremental) : null;
     return measureDistances(sample, {
       sample: this.positions,
       k: this.k,
       seed: this.seed,
       labels: this.sampleLabels,
       baselineNeighbors,
-      sums,
-      rowsWithWeight,
+      ...(now !== null ? { sums: now.sums, rowsWithWeight: now.rowsWithWeight } : { exact: () => this.exact.adopt(removed, pass!.take()) }),
       gram: dots,
       rowScale: scale,
     });
