@@ -1,0 +1,37 @@
+// A research probe, not part of the rule: would keeping the grammar words that "adapt" to the
+// content neighbourhood lift precision@10? For each development corpus, Loudword's suggestions
+// (made without labels) are written beside the texts, and adaptation_probe.py measures, with
+// scikit-learn, each suggested grammar word's adaptation across content neighbours and the
+// precision@10 of the list without the words above a limit (docs/methods.md §9, "adaptation").
+//
+//   npx tsx test/quality/adaptation-probe.ts [corpus ...]
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import { startReview } from '../../extension/src/engine/review/start-review';
+import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
+import { corporaNamed } from '../corpora/dev-corpora';
+
+async function main(): Promise<void> {
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-adaptation-'));
+  try {
+    const names: string[] = [];
+    for (const corpus of corporaNamed(process.argv.slice(2))) {
+      if (!corpus.available()) continue;
+      const docs = await corpus.load();
+      const file = path.join(dir, `${corpus.name}.jsonl`);
+      writeFileSync(file, docs.map((d) => JSON.stringify({ text: d.text, label: d.label })).join('\n') + '\n');
+      const { report } = await startReview({ file, configPath: null, overrides: { text: 'text', label: null, stopList: null } });
+      // Which suggestions rule 2 made (grammar words below half): the candidates the probe may keep.
+      const grammar = report.terms.filter((t) => t.status === 'suggested' && !/more than half/.test(t.why)).map((t) => t.term);
+      writeFileSync(path.join(dir, `${corpus.name}.json`), JSON.stringify({ role: corpus.role, suggestions: suggestionLines(report), grammar }));
+      names.push(corpus.name);
+    }
+    execFileSync('/usr/bin/python3', [path.join(__dirname, 'adaptation_probe.py'), dir, ...names], { stdio: 'inherit' });
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+  process.exit(0);
+}
+void main();

@@ -1,0 +1,88 @@
+"""Adaptation of suggested grammar words across content neighbours (a research probe).
+
+For a corpus and Loudword's suggested list, each document's 10 nearest neighbours are found with
+the list removed (the content words alone; scikit-learn TfidfVectorizer defaults, cosine). A
+suggested grammar word w in df documents of n "adapts" when it turns up in the content neighbours
+of the documents that hold it more often than its rate predicts:
+    adaptation(w) = P(w in a content neighbour | w in the document) / (df / n),
+the neighbour form of Church's adaptation (Church 2000, "Empirical estimates of adaptation: the
+chance of two Noriegas is closer to p/2 than p^2", COLING), with a binomial z for its noise. A
+word that adapts goes where the content already goes: it may mark the kind of document. The probe
+prints precision@10 (leave-one-out, the labels) of the list without the words above each limit.
+Usage: adaptation_probe.py DIR NAME... (DIR holds NAME.jsonl and NAME.json from adaptation-probe.ts)
+"""
+import json
+import os
+import sys
+import warnings
+
+import numpy as np
+from sklearn.feature_extraction.text import CountVectorizer, TfidfVectorizer
+from sklearn.neighbors import NearestNeighbors
+
+sys.path.insert(0, os.path.dirname(__file__))
+from precision_at_k import precision_at_k  # noqa: E402
+
+K = 10
+LIMITS = [1.5, 2, 3]
+MIN_DF = 5
+MIN_Z = 3
+
+
+def adaptation(texts, suggestions, candidates):
+    x = TfidfVectorizer(stop_words=suggestions).fit_transform(texts)
+    has_content = x.getnnz(axis=1) > 0
+    _, idx = NearestNeighbors(n_neighbors=K + 1, metric="cosine", algorithm="brute").fit(x).kneighbors(x)
+    neighbours = [[j for j in row if j != i][:K] for i, row in enumerate(idx)]
+    words = sorted(set(candidates))
+    if not words:
+        return {}
+    holds = CountVectorizer(vocabulary=words, binary=True, token_pattern=r"(?u)\b\w+\b|'s").fit_transform(texts).tocsc()
+    n = len(texts)
+    out = {}
+    for w, col in zip(words, range(len(words))):
+        rows = holds.indices[holds.indptr[col]:holds.indptr[col + 1]]
+        df = len(rows)
+        if df < MIN_DF or df >= n:
+            continue
+        mask = np.zeros(n, bool)
+        mask[rows] = True
+        hits = sum(int(mask[neighbours[d]].sum()) for d in rows if has_content[d])
+        trials = K * sum(1 for d in rows if has_content[d])
+        if trials == 0:
+            continue
+        p = df / n
+        out[w] = ((hits / trials) / p, (hits - trials * p) / np.sqrt(trials * p * (1 - p)))
+    return out
+
+
+def main():
+    warnings.filterwarnings("ignore")
+    directory, names = sys.argv[1], sys.argv[2:]
+    print("| corpus | role | ours | " + " | ".join(f"keep > {t}" for t in LIMITS) + " |")
+    print("|---|---|---|" + "---|" * len(LIMITS))
+    for name in names:
+        meta = json.load(open(os.path.join(directory, f"{name}.json")))
+        docs = [json.loads(line) for line in open(os.path.join(directory, f"{name}.jsonl"))]
+        texts = [d["text"] for d in docs]
+        labels = [d["label"] for d in docs]
+        ours = meta["suggestions"]
+        if not ours:
+            print(f"| {name} | {meta['role']} | nothing suggested |" + " |" * len(LIMITS))
+            continue
+        base = precision_at_k(texts, labels, K, ours)
+        scores = adaptation(texts, ours, meta["grammar"])
+        cells = []
+        for limit in LIMITS:
+            keep = {w for w, (a, z) in scores.items() if a > limit and z > MIN_Z}
+            if not keep:
+                cells.append("+0.0000 (0)")
+                continue
+            p = precision_at_k(texts, labels, K, [w for w in ours if w not in keep])
+            shown = " ".join(sorted(keep, key=lambda w: -scores[w][0])[:4])
+            cells.append(f"{p - base:+.4f} ({len(keep)}: {shown})")
+        print(f"| {name} | {meta['role']} | {base:.4f} | " + " | ".join(cells) + " |", flush=True)
+
+
+if __name__ == "__main__":
+    main()
