@@ -289,8 +289,8 @@ describe('webview in Chromium', function () {
     const origin = 'https://loudword.test';
 
     /** Serves the panel shell and the bundle from one fake origin, like the webview resource host. */
-    async function openPanel(opts: { width?: number; dark?: boolean; state?: unknown } = {}) {
-      const context = await browser.newContext({ viewport: { width: opts.width ?? 1100, height: 900 } });
+    async function openPanel(opts: { width?: number; height?: number; dark?: boolean; state?: unknown } = {}) {
+      const context = await browser.newContext({ viewport: { width: opts.width ?? 1100, height: opts.height ?? 900 } });
       const page = await context.newPage();
       const seen = watch(page);
       const html = panelHtml({ cspSource: origin, nonce: 'dGVzdG5vbmNlLTEyMzQ1Njc4', scriptUri: `${origin}/dist/webview.js`, styleUri: `${origin}/dist/webview.css` });
@@ -427,6 +427,45 @@ describe('webview in Chromium', function () {
         await send(page, { type: 'showReport', report });
         await page.waitForFunction((b) => document.querySelector('.lw-strip') !== b, built);
         assert.equal(inPlace, await stripHtml());
+        assert.deepEqual(seen.errors, []);
+      } finally {
+        await context.close();
+      }
+    });
+
+    it("draws a what-if answer's charts with the strip when they are in view, and after the next frame when scrolled away", async () => {
+      // Drawing charts nobody can see made the answer's frame wait for chart.js (issue 10's click).
+      const report = fixture('report-small.json');
+      const { context, page, seen } = await openPanel({ height: 300 });
+      // Posts an answer and reads, in its own task (a listener added after the panel's), which charts wait.
+      const answer = (message: unknown): Promise<string[]> =>
+        page.evaluate(`new Promise((done) => {
+          window.addEventListener('message', () => done([...document.querySelectorAll('.lw-chart[data-stale]')].map((f) => f.dataset.chart)), { once: true });
+          window.postMessage(${JSON.stringify(message)}, '*');
+        })`);
+      const similarityImage = () => page.evaluate(`document.querySelector('.lw-chart[data-chart="similarity"] canvas').toDataURL()`);
+      try {
+        await send(page, { type: 'showReport', report });
+        await page.waitForSelector('.lw-tile');
+        // Scrolled to the top: the charts are far below the 300 px view.
+        await page.locator('tr[data-term="the"] input[type=checkbox]').uncheck();
+        await page.evaluate(() => window.scrollTo(0, 0));
+        const first = await lastWhatIf(page, 1);
+        const before = await similarityImage();
+        const waiting = await answer({ type: 'whatIfResult', removed: first.removed, measures: report.baseline, requestId: first.requestId });
+        assert.deepEqual(waiting.sort(), ['kOccurrence', 'similarity']);
+        await page.waitForSelector('.lw-charts[data-stale="0"]');
+        assert.notEqual(await similarityImage(), before, 'drawn after the frame');
+
+        // Scrolled to the charts: drawn in the answer's own task.
+        await page.evaluate(`document.querySelector('.lw-chart[data-chart="similarity"]').scrollIntoView({ block: 'start' })`);
+        await page.locator('tr[data-term="please"] input[type=checkbox]').uncheck();
+        await page.evaluate(`document.querySelector('.lw-chart[data-chart="similarity"]').scrollIntoView({ block: 'start' })`);
+        const second = await lastWhatIf(page, 2);
+        const shown = await similarityImage();
+        const waitingInView = await answer({ type: 'whatIfResult', removed: second.removed, measures: report.suggested, requestId: second.requestId });
+        assert.ok(!waitingInView.includes('similarity'), `the chart in view waited: ${waitingInView.join(', ')}`);
+        assert.notEqual(await similarityImage(), shown);
         assert.deepEqual(seen.errors, []);
       } finally {
         await context.close();

@@ -37,6 +37,13 @@ const PENDING_MARK_AFTER_MS = 150;
 interface Loaded {
   report: Report;
   checked: Set<string>;
+  /**
+   * Each term that is not stopped, by its place in the Report's rows (loudness order): the
+   * selection is put in that order from the checked set alone. Filtering the ~115,000 rows of a
+   * 100k corpus instead costs 1–3 ms a pass, and a click's handler made four passes before the
+   * editor's page could pass its request on (the handler took 3.4–5.8 ms in a Chromium trace).
+   */
+  rank: Map<string, number>;
   suggestionSet: Set<string>;
   table: TermTable;
   charts: ChartPanel;
@@ -110,6 +117,10 @@ export class PanelApp {
     const known = new Set(report.terms.map((t) => t.term));
     const suggestionSet = new Set(report.suggestions.filter((t) => !stopped.has(t)));
     const checked = new Set((this.state.checked ?? report.suggestions).filter((t) => known.has(t) && !stopped.has(t)));
+    const rank = new Map<string, number>();
+    report.terms.forEach((t, i) => {
+      if (t.status !== 'stopped' && !rank.has(t.term)) rank.set(t.term, i);
+    });
     const panel = this.bridge.mode === 'panel';
 
     const exportButton = panel ? button('Export HTML report', 'secondary', () => this.bridge.post({ type: 'exportHtml' })) : null;
@@ -129,7 +140,7 @@ export class PanelApp {
     const stripSlot = el('div', { className: 'lw-strip-slot' });
     const charts = new ChartPanel(report, this.currentSetting(report));
 
-    this.loaded = { report, checked, suggestionSet, table, charts, stripSlot, checkedCount, liveSlot, addButton, resetButton };
+    this.loaded = { report, checked, rank, suggestionSet, table, charts, stripSlot, checkedCount, liveSlot, addButton, resetButton };
     this.stripShown = null;
 
     const termNote = panel
@@ -265,7 +276,7 @@ export class PanelApp {
     const next = new Set(l.checked);
     if (next.has(term)) next.delete(term);
     else next.add(term);
-    const removed = l.report.terms.filter((t) => t.status !== 'stopped' && next.has(t.term)).map((t) => t.term);
+    const removed = inReportOrder(next, l.rank);
     if (sameSet(removed, l.suggestionSet)) return;
     this.prefetcher.ask(removed);
   }
@@ -358,7 +369,7 @@ export class PanelApp {
   private removedTerms(): string[] {
     const l = this.loaded;
     if (!l) return [];
-    return l.report.terms.filter((t) => t.status !== 'stopped' && l.checked.has(t.term)).map((t) => t.term);
+    return inReportOrder(l.checked, l.rank);
   }
 
   private selectionMeasures(): Measures | null {
@@ -452,6 +463,13 @@ function button(label: string, kind: 'primary' | 'secondary', onClick: () => voi
   const b = el('button', { className: `lw-button lw-button--${kind}`, text: label, attrs: { type: 'button' } });
   b.addEventListener('click', onClick);
   return b;
+}
+
+/** The terms of `terms` that `rank` holds, in its order (the Report's rows that are not stopped). */
+function inReportOrder(terms: Iterable<string>, rank: ReadonlyMap<string, number>): string[] {
+  const kept: string[] = [];
+  for (const t of terms) if (rank.has(t)) kept.push(t);
+  return kept.sort((a, b) => rank.get(a)! - rank.get(b)!);
 }
 
 function sameSet(list: readonly string[], set: ReadonlySet<string>): boolean {

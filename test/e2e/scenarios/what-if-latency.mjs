@@ -71,7 +71,17 @@ async function timedClick(frame, term, pressMs = 0) {
           if (text !== before && !document.querySelector('.lw-strip .lw-pending') && document.querySelector('.lw-v__num[data-role="selection"]')) {
             const read = (key) => (slot?.dataset[key] === undefined ? null : Number(slot.dataset[key]));
             const hops = slot?.dataset.hops === undefined ? null : { clickAt, ...JSON.parse(slot.dataset.hops), shownAt: Date.now() };
-            resolve({ ms: now - start, pressedMs: pressedAt === null ? null : start - pressedAt, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null, hops });
+            const shown = { ms: now - start, pressedMs: pressedAt === null ? null : start - pressedAt, engineMs: read('engineMs'), panelMs: read('panelMs'), hostMs: read('hostMs'), roundTripMs: read('roundTripMs'), chartsMs: read('chartsMs'), clickMs, source: slot?.dataset.source ?? null, hops };
+            // The charts out of the panel's view are drawn after the strip's frame (ChartPanel.update):
+            // when both charts showed the new selection, and how many waited for that frame.
+            const charts = document.querySelector('.lw-charts');
+            const waited = Number(charts?.dataset.stale ?? 0);
+            const chartsDone = () => {
+              if (charts && charts.dataset.stale !== undefined && charts.dataset.stale !== '0' && performance.now() < deadline) return requestAnimationFrame(chartsDone);
+              const drawnAt = Number(charts?.dataset.drawnAt ?? NaN);
+              resolve({ ...shown, chartsWaited: waited, withChartsMs: Math.max(shown.ms, drawnAt - start) });
+            };
+            chartsDone();
           } else if (now > deadline) reject(new Error(`the strip did not update within 60 s after clicking "${t}"`));
           else requestAnimationFrame(poll);
         };
@@ -211,6 +221,11 @@ function report(label, clicks, spacing) {
   const engine = clicks.map((c) => c.engineMs).filter((e) => e !== null);
   const ms = times.map((t) => Math.round(t));
   console.log(`  what-if latency (${label}): click → strip updated, median ${median(times).toFixed(0)} ms over ${times.length} clicks, ${spacing}; first ${ms[0]} ms; all ${ms.join(', ')} (machine may be shared)`);
+  const withCharts = clicks.filter((c) => Number.isFinite(c.withChartsMs));
+  if (withCharts.length > 0) {
+    const waited = withCharts.filter((c) => c.chartsWaited > 0).length;
+    console.log(`  click → strip and both charts showing the selection: median ${median(withCharts.map((c) => c.withChartsMs)).toFixed(0)} ms (${waited} of ${withCharts.length} clicks found charts out of the panel's view, drawn after the strip's frame)`);
+  }
   if (engine.length > 0) {
     console.log(`  of which the engine in the worker: median ${median(engine).toFixed(0)} ms; all ${engine.map((e) => Math.round(e)).join(', ')}`);
   }
