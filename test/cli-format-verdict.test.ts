@@ -6,7 +6,7 @@ import * as path from 'node:path';
 import { formatMarkdown } from '../extension/src/cli/format-markdown';
 import { formatText } from '../extension/src/cli/format-text';
 import type { Report } from '../extension/src/protocol';
-import { verdictCaution } from '../extension/src/verdict-caution';
+import { verdictCaution } from '../extension/src/verdict-wording';
 
 function withVerdict(): Report {
   const report = JSON.parse(readFileSync(path.join(__dirname, 'fixtures', 'report-small.json'), 'utf8')) as Report;
@@ -58,6 +58,14 @@ describe('verdict in the CLI outputs', () => {
     assert.equal(verdictCaution(report.verdict), 'the review judged this list to lower neighbour standout (\u22120.03)');
     report.verdict = { ...report.verdict, estimate: null };
     assert.equal(verdictCaution(report.verdict), null);
+  });
+
+  it('formatText: without labels the title says what was measured (neighbour standout), never "helps"', () => {
+    const report = withVerdict();
+    report.verdict!.estimate = { measure: 'neighbour standout', change: 5.7, low: 5.5, high: 6, draws: 400, method: 'bootstrap' };
+    const text = formatText(report).replace(/\n {4}/g, ' ');
+    assert.match(text, /Verdict: neighbours stand out more with the suggested list \(without labels, a proxy\)\./);
+    assert.doesNotMatch(text, /the suggested list helps/);
   });
 
   it('formatMarkdown: the verdict is the first paragraph under the heading, caveats as a list', () => {

@@ -643,7 +643,7 @@ describe('webview in Chromium', function () {
         // The verdict and the loudest terms come first, right under the header.
         const order = await page.evaluate(() => Array.from(document.querySelectorAll('.lw-main > *'), (e) => (e as unknown as { className: string }).className));
         assert.match(order[1] ?? '', /lw-verdict/, `second block is ${order[1]}`);
-        assert.equal(await page.locator('.lw-verdict__estimate').textContent(), 'The suggested list helps: Neighbour standout +0.42 (+0.30 to +0.55 over 20 re-drawn samples).');
+        assert.equal(await page.locator('.lw-verdict__estimate').textContent(), 'Neighbours stand out more with the suggested list (without labels, a proxy): Neighbour standout +0.42 (+0.30 to +0.55 over 20 re-drawn samples).');
         // Narrow: term, pull share and status stay; df and the rest open under the term.
         assert.equal(await page.locator('tr[data-term="regards"] .lw-col-df').isVisible(), false);
         assert.equal(await page.locator('tr[data-term="regards"] .lw-col-pullShare').isVisible(), true);

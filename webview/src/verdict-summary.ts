@@ -3,7 +3,8 @@
 // bottom-panel height this is what shows before any scrolling.
 
 import type { Report, Verdict } from '../../extension/src/protocol';
-import { formatShare } from '../../extension/src/number-format';
+import { formatShare, formatSignedChange } from '../../extension/src/number-format';
+import { changeDigits, outcomeWords } from '../../extension/src/verdict-wording';
 import { el, type Child } from './create-element';
 
 /** How many of the loudest terms the summary names. */
@@ -35,10 +36,10 @@ function renderVerdict(v: Verdict): { lead: Child[]; caveats: HTMLElement | null
     // The one judgement first (the CLI leads with the same words), then the figure it rests on,
     // with the digits the headline uses: three for a precision, two for neighbour standout.
     const e = v.estimate;
-    const digits = /precision/i.test(e.measure) ? 3 : 2;
-    // A true minus sign, as the headline writes it.
-    const signed = (x: number) => `${x > 0 ? '+' : x < 0 ? '−' : ''}${Math.abs(x).toFixed(digits)}`;
-    const judged = v.outcome === 'helps' ? 'The suggested list helps' : v.outcome === 'hurts' ? 'The suggested list hurts' : 'No clear change';
+    const digits = changeDigits(e.measure);
+    const signed = (x: number) => formatSignedChange(x, digits);
+    const words = outcomeWords(v);
+    const judged = words.charAt(0).toUpperCase() + words.slice(1);
     const spread = e.method === 'seeds' ? `${signed(e.low)} to ${signed(e.high)} over ${e.draws} re-drawn samples` : `95% interval ${signed(e.low)} to ${signed(e.high)}, ${e.draws} bootstrap draws`;
     out.push(el('p', { className: 'lw-verdict__estimate', text: `${judged}: ${e.measure} ${signed(e.change)} (${spread}).` }));
   }

@@ -4,7 +4,7 @@ import { count, verb, wrapLines } from './text-layout';
 import { formatCount, formatNumber } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
-import { verdictCaution } from '../verdict-caution';
+import { verdictCaution } from '../verdict-wording';
 import { suggestionLines } from '../engine/terms/stop-list-spelling';
 import { skippedWording } from '../skipped-wording';
 import { stopListSize } from '../stop-list-wording';

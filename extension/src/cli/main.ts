@@ -17,7 +17,7 @@ import { lineOfKey } from '../engine/config/confine-to-workspace';
 import { USAGE } from './usage';
 import { progressLine, type ProgressLine } from './progress-line';
 import { count, wrapLines } from './text-layout';
-import { verdictCaution } from '../verdict-caution';
+import { verdictCaution } from '../verdict-wording';
 import { escapeControls, escapeJsonControls } from './terminal-text';
 import { describeSystemError, guardStdout, writeOutputFile, writeStdout } from './write-output';
 import { reviewInputOf } from './review-input-of';

@@ -6,7 +6,7 @@ import type { HostContext } from './host-context';
 import { openConfig } from './open-config';
 import { COMMAND_IDS } from './pure/contribution-ids';
 import { flaggedTermAt } from './pure/flagged-term-spans';
-import { verdictCaution } from '../verdict-caution';
+import { verdictCaution } from '../verdict-wording';
 
 type CommandFactory = (ctx: HostContext) => (...args: unknown[]) => unknown;
 

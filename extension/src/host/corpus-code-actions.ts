@@ -6,7 +6,7 @@ import { COMMAND_IDS } from './pure/contribution-ids';
 import { planCorpusActions } from './pure/corpus-action-plan';
 import { flaggedTermSpans } from './pure/flagged-term-spans';
 import type { ReviewStore } from './review-store';
-import { verdictCaution } from '../verdict-caution';
+import { verdictCaution } from '../verdict-wording';
 
 /** At most this many lines around the request are scanned (a huge selection stays cheap). */
 const MAX_LINES = 200;

@@ -1,6 +1,6 @@
 import { formatCount, formatSignedChange as signed } from '../../number-format';
 import type { Measures, Verdict } from '../../protocol';
-import { changeDigits } from '../../verdict-caution';
+import { changeDigits } from '../../verdict-wording';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
@@ -122,7 +122,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   } else {
     const make = agree('makes', 'make');
     const verb = outcome === 'helps' ? `${make} nearest neighbours stand out more` : outcome === 'hurts' ? `${make} nearest neighbours stand out less` : `${agree('does', 'do')} not clearly change how much nearest neighbours stand out`;
-    headline = `${list} ${verb}: ${measure} ${signed(boot.change, digits)} (${interval}). Without labels this is a proxy for neighbour quality; pass --label to measure precision.`;
+    headline = `${list} ${verb}: ${measure} ${signed(boot.change, digits)} (${interval}). Without labels this is only a proxy for neighbour quality: standout rises whenever common words are removed, also on corpora where label precision falls (docs/methods.md §9); pass --label to measure precision.`;
   }
   if (opinion.opinionText) {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;

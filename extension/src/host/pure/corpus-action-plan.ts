@@ -29,7 +29,7 @@ export function stopTitle(term: string, evidence: TermEvidence | undefined): str
  * Offers "Stop '<term>' — …" for each distinct flagged term in the range, then "Stop all N
  * suggested terms — …" when more than one suggestion is still open. `alreadyStopped` holds terms
  * added since the review ran, so a fix is never offered twice. Pull shares add up (each is a
- * share of one total), so the group's share is their sum. `caution` (verdict-caution.ts) is
+ * share of one total), so the group's share is their sum. `caution` (verdict-wording.ts) is
  * appended to the group's title when the review judged the whole list harmful: that action is
  * one keystroke away from the corpus, far from the verdict at the top of the panel.
  */

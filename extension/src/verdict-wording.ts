@@ -1,0 +1,45 @@
+// How the verdict is put into words wherever it is shown or acted on: the CLI and Markdown
+// summaries, the panel, the editor's "stop all" action and `apply`. One place, so that the
+// judgement reads the same everywhere. Pure: no Node and no DOM, so both bundles import it.
+import type { Verdict } from './protocol';
+import { formatSignedChange } from './number-format';
+
+/** True when the verdict rests on label precision; false for neighbour standout, the label-free proxy. */
+export function measuresPrecision(measure: string): boolean {
+  return /precision/i.test(measure);
+}
+
+/** Digits a change of `measure` is written with: label precision to 0.001, standout to 0.01. */
+export function changeDigits(measure: string): number {
+  return measuresPrecision(measure) ? 3 : 2;
+}
+
+/**
+ * The judgement in a few words, lower case ("the suggested list helps"). Without labels the
+ * verdict rests on neighbour standout, which rises whenever common words are removed, also where
+ * label precision falls (docs/methods.md §9): the words then say what was measured, not "helps".
+ */
+export function outcomeWords(verdict: Verdict): string {
+  const proxy = verdict.estimate !== null && !measuresPrecision(verdict.estimate.measure);
+  switch (verdict.outcome) {
+    case 'helps':
+      return proxy ? 'neighbours stand out more with the suggested list (without labels, a proxy)' : 'the suggested list helps';
+    case 'hurts':
+      return proxy ? 'neighbours stand out less with the suggested list (without labels, a proxy)' : 'the suggested list hurts';
+    case 'no clear change':
+      return 'no clear change';
+    case 'nothing suggested':
+      return 'nothing to suggest';
+  }
+}
+
+/**
+ * "the review judged this list to lower neighbour standout (−0.03)" when the verdict is that the
+ * list hurts; null otherwise (helps, no clear change, nothing suggested, or an older Report).
+ * The verdict comes first in every summary, but a user who reaches for apply may not have read it.
+ */
+export function verdictCaution(verdict: Verdict | undefined): string | null {
+  if (verdict?.outcome !== 'hurts' || verdict.estimate === null) return null;
+  const { measure, change } = verdict.estimate;
+  return `the review judged this list to lower ${measure} (${formatSignedChange(change, changeDigits(measure))})`;
+}
