@@ -73,6 +73,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
     for (const d of batch.longRunDocs) if (longRunLines.length < LINES_NAMED) longRunLines.push(lines.at(firstRow + d));
   };
   let assembler: RowAssembler | null = null;
+  let assemblerAsked = false;
   try {
     for await (const rows of source.batches(options.batchSize ?? DEFAULT_BATCH)) {
       signal?.throwIfAborted();
@@ -92,13 +93,17 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
         onProgress?.(counter.rows);
         signal?.throwIfAborted();
       }
+      // The threads that will write the matrix's rows start once the first batches are counted
+      // (the tokenising threads' own start is over by then), so that they have loaded and
+      // warmed up long before the vocabulary is complete.
+      if (!assemblerAsked && counter.rows > 0) {
+        assemblerAsked = true;
+        assembler = startAssembling(encoder, options);
+      }
     }
-    // Everything is read and the last batches are being tokenised: the threads that will write
-    // the matrix's rows start now, so that they are ready when the vocabulary is complete.
-    if (encoder.threads > 0) {
-      const script = options.assembleScript ?? join(options.workerScript === undefined ? __dirname : dirname(options.workerScript), 'assemble-worker.js');
-      assembler = startRowAssembler(encoder.threads, script);
-    }
+    // Everything is read and the last batches are being tokenised (a corpus of few batches
+    // starts the writing threads only now).
+    if (!assemblerAsked) assembler = startAssembling(encoder, options);
     while (inFlight.length > 0) {
       take(await inFlight.shift()!);
       onProgress?.(counter.rows);
@@ -113,6 +118,13 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
     await encoder.close();
     await assembler?.close();
   }
+}
+
+/** The threads that write the matrix's rows for `encoder`'s batches; null where this thread writes them. */
+function startAssembling(encoder: BatchEncoder, options: BuildOptions): RowAssembler | null {
+  if (encoder.threads === 0) return null;
+  const script = options.assembleScript ?? join(options.workerScript === undefined ? __dirname : dirname(options.workerScript), 'assemble-worker.js');
+  return startRowAssembler(encoder.threads, script);
 }
 
 /**
