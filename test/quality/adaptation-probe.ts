@@ -4,7 +4,7 @@
 // scikit-learn, each suggested grammar word's adaptation across content neighbours and the
 // precision@10 of the list without the words above a limit (docs/methods.md §9, "adaptation").
 //
-//   npx tsx test/quality/adaptation-probe.ts [corpus ...]
+//   npx tsx test/quality/adaptation-probe.ts [--form cohesion] [corpus ...]
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
@@ -14,10 +14,12 @@ import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spel
 import { corporaNamed } from '../corpora/dev-corpora';
 
 async function main(): Promise<void> {
+  const args = process.argv.slice(2);
+  const form = args[0] === '--form' ? args.splice(0, 2) : [];
   const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-adaptation-'));
   try {
     const names: string[] = [];
-    for (const corpus of corporaNamed(process.argv.slice(2))) {
+    for (const corpus of corporaNamed(args)) {
       if (!corpus.available()) continue;
       const docs = await corpus.load();
       const file = path.join(dir, `${corpus.name}.jsonl`);
@@ -28,7 +30,7 @@ async function main(): Promise<void> {
       writeFileSync(path.join(dir, `${corpus.name}.json`), JSON.stringify({ role: corpus.role, suggestions: suggestionLines(report), grammar }));
       names.push(corpus.name);
     }
-    execFileSync('/usr/bin/python3', [path.join(__dirname, 'adaptation_probe.py'), dir, ...names], { stdio: 'inherit' });
+    execFileSync('/usr/bin/python3', [path.join(__dirname, 'adaptation_probe.py'), ...form, dir, ...names], { stdio: 'inherit' });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -9,7 +9,9 @@ the neighbour form of Church's adaptation (Church 2000, "Empirical estimates of 
 chance of two Noriegas is closer to p/2 than p^2", COLING), with a binomial z for its noise. A
 word that adapts goes where the content already goes: it may mark the kind of document. The probe
 prints precision@10 (leave-one-out, the labels) of the list without the words above each limit.
-Usage: adaptation_probe.py DIR NAME... (DIR holds NAME.jsonl and NAME.json from adaptation-probe.ts)
+`--form cohesion` measures the exact, neighbour-free form instead (see cohesion()).
+Usage: adaptation_probe.py [--form cohesion] DIR NAME... (DIR holds NAME.jsonl and NAME.json
+from adaptation-probe.ts)
 """
 import json
 import os
@@ -56,9 +58,38 @@ def adaptation(texts, suggestions, candidates):
     return out
 
 
+def cohesion(texts, suggestions, candidates):
+    """The exact, neighbour-free form: mean content cosine among the documents that hold w, over
+    that of all pairs, from sums of content vectors (|sum|^2 - count over count(count - 1))."""
+    x = TfidfVectorizer(stop_words=suggestions).fit_transform(texts)
+    has_content = x.getnnz(axis=1) > 0
+    m = int(has_content.sum())
+    total = np.asarray(x.sum(axis=0)).ravel()
+    all_pairs = (total @ total - m) / (m * (m - 1))
+    words = sorted(set(candidates))
+    if not words:
+        return {}
+    holds = CountVectorizer(vocabulary=words, binary=True, token_pattern=r"(?u)\b\w+\b|'s").fit_transform(texts).tocsc()
+    out = {}
+    for col, w in enumerate(words):
+        rows = holds.indices[holds.indptr[col]:holds.indptr[col + 1]]
+        rows = rows[has_content[rows]]
+        count = len(rows)
+        if count < MIN_DF:
+            continue
+        s = np.asarray(x[rows].sum(axis=0)).ravel()
+        # No noise model: z is set past MIN_Z so that only the ratio decides.
+        out[w] = (((s @ s - count) / (count * (count - 1))) / all_pairs, np.inf)
+    return out
+
+
 def main():
     warnings.filterwarnings("ignore")
-    directory, names = sys.argv[1], sys.argv[2:]
+    args = sys.argv[1:]
+    form = adaptation
+    if args[:2] == ["--form", "cohesion"]:
+        form, args = cohesion, args[2:]
+    directory, names = args[0], args[1:]
     print("| corpus | role | ours | " + " | ".join(f"keep > {t}" for t in LIMITS) + " |")
     print("|---|---|---|" + "---|" * len(LIMITS))
     for name in names:
@@ -71,7 +102,7 @@ def main():
             print(f"| {name} | {meta['role']} | nothing suggested |" + " |" * len(LIMITS))
             continue
         base = precision_at_k(texts, labels, K, ours)
-        scores = adaptation(texts, ours, meta["grammar"])
+        scores = form(texts, ours, meta["grammar"])
         cells = []
         for limit in LIMITS:
             keep = {w for w, (a, z) in scores.items() if a > limit and z > MIN_Z}
