@@ -443,8 +443,6 @@ describe('webview in Chromium', function () {
           window.addEventListener('message', () => done([...document.querySelectorAll('.lw-chart[data-stale]')].map((f) => f.dataset.chart)), { once: true });
           window.postMessage(${JSON.stringify(message)}, '*');
         })`);
-      // The panel learns where its charts are from an IntersectionObserver, which reports after a frame.
-      const twoFrames = () => page.evaluate('new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done)))');
       const similarityImage = () => page.evaluate(`document.querySelector('.lw-chart[data-chart="similarity"] canvas').toDataURL()`);
       try {
         await send(page, { type: 'showReport', report });
@@ -453,7 +451,6 @@ describe('webview in Chromium', function () {
         await page.locator('tr[data-term="the"] input[type=checkbox]').uncheck();
         await page.evaluate(() => window.scrollTo(0, 0));
         const first = await lastWhatIf(page, 1);
-        await twoFrames();
         const before = await similarityImage();
         const waiting = await answer({ type: 'whatIfResult', removed: first.removed, measures: report.baseline, requestId: first.requestId });
         assert.deepEqual(waiting.sort(), ['kOccurrence', 'similarity']);
@@ -465,7 +462,6 @@ describe('webview in Chromium', function () {
         await page.locator('tr[data-term="please"] input[type=checkbox]').uncheck();
         await page.evaluate(`document.querySelector('.lw-chart[data-chart="similarity"]').scrollIntoView({ block: 'start' })`);
         const second = await lastWhatIf(page, 2);
-        await twoFrames();
         const shown = await similarityImage();
         const waitingInView = await answer({ type: 'whatIfResult', removed: second.removed, measures: report.suggested, requestId: second.requestId });
         assert.ok(!waitingInView.includes('similarity'), `the chart in view waited: ${waitingInView.join(', ')}`);

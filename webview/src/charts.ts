@@ -80,9 +80,6 @@ export class ChartPanel {
   private readonly charts = new Map<ChartId, Chart>();
   /** Charts that do not show the current setting yet (out of view at the update; see update). */
   private readonly stale = new Set<ChartId>();
-  /** What the observer last said of each chart (see inView). */
-  private readonly visible = new Map<ChartId, boolean>();
-  private observer: IntersectionObserver | null = null;
   private laterFrame: number | null = null;
   private laterTimer: ReturnType<typeof setTimeout> | null = null;
   private current: Setting;
@@ -119,7 +116,6 @@ export class ChartPanel {
       const canvas = this.canvases.get(id);
       if (canvas) this.charts.set(id, new Chart(canvas, config as ChartConfiguration));
     }
-    this.observe();
   }
 
   /**
@@ -147,9 +143,6 @@ export class ChartPanel {
   }
 
   destroy(): void {
-    this.observer?.disconnect();
-    this.observer = null;
-    this.visible.clear();
     this.cancelLater();
     this.stale.clear();
     this.markStale();
@@ -174,31 +167,16 @@ export class ChartPanel {
   }
 
   /**
-   * Whether chart `id` is within IN_VIEW_MARGIN_PX of the panel's view, as the observer last saw
-   * it (in view until it has reported). Read from the observer, not from the layout: a layout read
-   * in the answer's task, after anything had changed the page (the strip's waiting mark, under
-   * load before a frame had run), made the browser lay the page out there and then (~8–9 ms in
-   * the e2e runs at load 5–9).
+   * Whether chart `id` is within IN_VIEW_MARGIN_PX of the panel's view. Read before anything in
+   * the answer's task changes the page, so the layout is the last frame's and nothing is laid
+   * out again for it.
    */
   private inView(id: ChartId): boolean {
-    return this.visible.get(id) ?? true;
-  }
-
-  /** Starts watching the canvases' distance to the view (IntersectionObserver, against this document's viewport). */
-  private observe(): void {
-    if (this.observer !== null || typeof IntersectionObserver === 'undefined') return;
-    const ids = new Map<Element, ChartId>();
-    for (const [id, canvas] of this.canvases) ids.set(canvas, id);
-    this.observer = new IntersectionObserver(
-      (entries) => {
-        for (const entry of entries) {
-          const id = ids.get(entry.target);
-          if (id !== undefined) this.visible.set(id, entry.isIntersecting);
-        }
-      },
-      { root: document, rootMargin: `${IN_VIEW_MARGIN_PX}px 0px` },
-    );
-    for (const canvas of this.canvases.values()) this.observer.observe(canvas);
+    const canvas = this.canvases.get(id);
+    if (!canvas || !canvas.isConnected) return true;
+    const r = canvas.getBoundingClientRect();
+    if (r.width === 0 && r.height === 0) return false;
+    return r.bottom >= -IN_VIEW_MARGIN_PX && r.top <= window.innerHeight + IN_VIEW_MARGIN_PX;
   }
 
   /** The stale charts, drawn in a task after the next frame (the one that shows the strip). */
