@@ -39,9 +39,9 @@ interface Loaded {
   checked: Set<string>;
   /**
    * Each term that is not stopped, by its place in the Report's rows (loudness order): the
-   * selection is put in that order from the checked set alone. Filtering the ~115,000 rows of a
-   * 100k corpus instead costs 1–3 ms a pass, and a click's handler made four passes before the
-   * editor's page could pass its request on (the handler took 3.4–5.8 ms in a Chromium trace).
+   * selection is put in that order from the checked set alone, instead of filtering the ~115,000
+   * rows of a 100k corpus four times in a click's handler (in a Chromium trace of the e2e clicks
+   * the handler's median fell from 1.7 to 1.4 ms).
    */
   rank: Map<string, number>;
   suggestionSet: Set<string>;
