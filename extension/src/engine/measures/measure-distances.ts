@@ -89,16 +89,7 @@ export function measureDistances(X: Csr, options: MeasureDistancesOptions): Meas
   const termKnnMass = knnTermMass(X, sample, sampled.neighbors, k);
   const given = options.exact?.();
   const exact = exactMeasures(given?.sums ?? options.sums ?? termSums(X), given?.rowsWithWeight ?? options.rowsWithWeight ?? rowsWithWeight(X));
-  return {
-    measures: joinMeasures(sampled.measures, exact),
-    neighbors: sampled.neighbors,
-    neighborSims: sampled.neighborSims,
-    standoutPerQuery: sampled.standoutPerQuery,
-    kOccurrence: sampled.kOccurrence,
-    pairMass: exact.mass,
-    hubPositions: topHubPositions(sampled.kOccurrence, TOP_HUBS),
-    termKnnMass,
-  };
+  return { ...joinHalves(sampled, exact), hubPositions: topHubPositions(sampled.kOccurrence, TOP_HUBS), termKnnMass };
 }
 
 export interface MeasuresFromGramOptions {
@@ -139,8 +130,11 @@ export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions'
  * them on two threads and join them (joinMeasures) into the same object.
  */
 export function measuresFromGram(options: MeasuresFromGramOptions): MeasuresFromGramResult {
-  const sampled = sampledMeasures(options);
-  const exact = exactMeasures(options.sums, options.rowsWithWeight);
+  return joinHalves(sampledMeasures(options), exactMeasures(options.sums, options.rowsWithWeight));
+}
+
+/** The result both entry points share, from the sampled half and the exact half. */
+function joinHalves(sampled: ReturnType<typeof sampledMeasures>, exact: ExactMeasures): MeasuresFromGramResult {
   return {
     measures: joinMeasures(sampled.measures, exact),
     neighbors: sampled.neighbors,
