@@ -1,0 +1,84 @@
+// The what-if's sweep over the sample's products (measureSampleRows), timed alone on states
+// written from real clicks, with its outputs hashed: for A/B runs of the sweep that need no
+// editor and no review per run (the sweep is the largest part of a click's CPU).
+//
+//   node --import tsx test/bench/what-if-sweep-states.ts dump FILE.csv DIR   # one review, then the
+//        e2e's clicks (the first suggestion unticked, then the second toggled) in one thread; each
+//        click's dot products and row scales written to DIR/stateN.{dots,scale}
+//   taskset -c 1 node --import tsx test/bench/what-if-sweep-states.ts time DIR [rounds]
+//        # CPU ms per sweep (blocks of 16, as the what-if), median and least after the first
+//        # round, and a hash of every output of the first round (equal hashes: the same bits)
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+
+const engine = (path: string) => resolve(__dirname, '../../extension/src/engine', path);
+
+async function dump(file: string, dir: string): Promise<void> {
+  const { IncrementalGram } = (await import(engine('what-if/incremental-gram.ts'))) as typeof import('../../extension/src/engine/what-if/incremental-gram');
+  const { startReview } = (await import(engine('review/start-review.ts'))) as typeof import('../../extension/src/engine/review/start-review');
+  let capture = false;
+  const states: Array<{ dots: Float64Array; scale: Float64Array }> = [];
+  const scaled = IncrementalGram.prototype.scaled;
+  IncrementalGram.prototype.scaled = function (this: InstanceType<typeof IncrementalGram>, ...args: Parameters<typeof scaled>) {
+    const out = scaled.apply(this, args);
+    if (capture) states.push({ dots: out.dots.slice(), scale: out.scale.slice() });
+    return out;
+  };
+  // No prepareWhatIf: the session answers in this thread, so the sample's state is this one's.
+  const session = await startReview({ file: resolve(file), configPath: null, overrides: { text: 'text', label: 'topic' } }, {});
+  const [first, second] = session.report.suggestions;
+  const without = session.report.suggestions.filter((t) => t !== first);
+  const withoutBoth = without.filter((t) => t !== second);
+  capture = true;
+  for (const selection of [without, withoutBoth, without, withoutBoth]) await session.whatIf(selection);
+  capture = false;
+  states.forEach((s, i) => {
+    writeFileSync(join(dir, `state${i}.dots`), Buffer.from(s.dots.buffer));
+    writeFileSync(join(dir, `state${i}.scale`), Buffer.from(s.scale.buffer));
+  });
+  console.log(JSON.stringify({ states: states.length, m: states[0]?.scale.length, k: session.report.baseline.sample.k }));
+  await session.close?.();
+}
+
+async function time(dir: string, rounds: number): Promise<void> {
+  const { measureSampleRows } = (await import(engine('measures/measure-sample-rows.ts'))) as typeof import('../../extension/src/engine/measures/measure-sample-rows');
+  const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
+  const read = (name: string) => {
+    const b = readFileSync(join(dir, name));
+    return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.length));
+  };
+  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
+  const states = names.map((n) => {
+    const dots = read(n);
+    const scale = read(n.replace('.dots', '.scale'));
+    return { dots, scale, m: scale.length, valid: validRowsFromGram(dots, scale.length) };
+  });
+  const hash = createHash('sha256');
+  const ms: number[] = [];
+  for (let r = 0; r < rounds; r++) {
+    for (const s of states) {
+      const cpu = process.cpuUsage();
+      const out = measureSampleRows(s.dots, s.m, 10, s.valid, s.scale, undefined, 16);
+      const d = process.cpuUsage(cpu);
+      if (r > 0) ms.push((d.user + d.system) / 1000);
+      if (r === 0) {
+        const { knn, kOccurrence, standoutPerQuery, nnDist, ...rest } = out;
+        for (const a of [knn.neighbors, knn.sims, kOccurrence, standoutPerQuery, nnDist]) hash.update(Buffer.from(a.buffer, a.byteOffset, a.byteLength));
+        hash.update(JSON.stringify(rest));
+      }
+    }
+  }
+  ms.sort((a, b) => a - b);
+  console.log(JSON.stringify({ hash: hash.digest('hex').slice(0, 16), sweeps: ms.length, medianMs: ms[ms.length >> 1], leastMs: ms[0] }));
+}
+
+const [mode, a, b, c] = process.argv.slice(2);
+const run = mode === 'dump' && a && b ? dump(a, b) : mode === 'time' && a ? time(a, Number(b ?? c ?? '6')) : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds]'));
+run.then(
+  () => process.exit(0),
+  (e: unknown) => {
+    console.error(e instanceof Error ? e.stack ?? e.message : String(e));
+    process.exit(1);
+  },
+);
