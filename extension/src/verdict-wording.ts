@@ -5,7 +5,7 @@ import type { Verdict } from './protocol';
 import { formatSignedChange } from './number-format';
 
 /** True when the verdict rests on label precision; false for neighbour standout, the label-free proxy. */
-export function measuresPrecision(measure: string): boolean {
+function measuresPrecision(measure: string): boolean {
   return /precision/i.test(measure);
 }
 

@@ -9,9 +9,9 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
-import { startReview } from '../../extension/src/engine/review/start-review';
 import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
 import { corporaNamed } from '../corpora/dev-corpora';
+import { reviewWithoutLabels } from './quality-row';
 
 async function main(): Promise<void> {
   const args = process.argv.slice(2);
@@ -21,10 +21,7 @@ async function main(): Promise<void> {
     const names: string[] = [];
     for (const corpus of corporaNamed(args)) {
       if (!corpus.available()) continue;
-      const docs = await corpus.load();
-      const file = path.join(dir, `${corpus.name}.jsonl`);
-      writeFileSync(file, docs.map((d) => JSON.stringify({ text: d.text, label: d.label })).join('\n') + '\n');
-      const { report } = await startReview({ file, configPath: null, overrides: { text: 'text', label: null, stopList: null } });
+      const { report } = await reviewWithoutLabels(corpus, dir, null);
       // Which suggestions rule 2 made (grammar words below half): the candidates the probe may keep.
       const grammar = report.terms.filter((t) => t.status === 'suggested' && !/more than half/.test(t.why)).map((t) => t.term);
       writeFileSync(path.join(dir, `${corpus.name}.json`), JSON.stringify({ role: corpus.role, suggestions: suggestionLines(report), grammar }));

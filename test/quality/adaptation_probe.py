@@ -31,19 +31,27 @@ MIN_DF = 5
 MIN_Z = 3
 
 
-def adaptation(texts, suggestions, candidates):
+def content_and_holders(texts, suggestions, candidates):
+    """The content vectors (the list removed), which documents have any, and for each candidate
+    word the documents that hold it (None when there is no candidate)."""
     x = TfidfVectorizer(stop_words=suggestions).fit_transform(texts)
-    has_content = x.getnnz(axis=1) > 0
-    _, idx = NearestNeighbors(n_neighbors=K + 1, metric="cosine", algorithm="brute").fit(x).kneighbors(x)
-    neighbours = [[j for j in row if j != i][:K] for i, row in enumerate(idx)]
     words = sorted(set(candidates))
     if not words:
-        return {}
+        return x, x.getnnz(axis=1) > 0, None
     holds = CountVectorizer(vocabulary=words, binary=True, token_pattern=r"(?u)\b\w+\b|'s").fit_transform(texts).tocsc()
+    holders = {w: holds.indices[holds.indptr[col]:holds.indptr[col + 1]] for col, w in enumerate(words)}
+    return x, x.getnnz(axis=1) > 0, holders
+
+
+def adaptation(texts, suggestions, candidates):
+    x, has_content, holders = content_and_holders(texts, suggestions, candidates)
+    if holders is None:
+        return {}
+    _, idx = NearestNeighbors(n_neighbors=K + 1, metric="cosine", algorithm="brute").fit(x).kneighbors(x)
+    neighbours = [[j for j in row if j != i][:K] for i, row in enumerate(idx)]
     n = len(texts)
     out = {}
-    for w, col in zip(words, range(len(words))):
-        rows = holds.indices[holds.indptr[col]:holds.indptr[col + 1]]
+    for w, rows in holders.items():
         df = len(rows)
         if df < MIN_DF or df >= n:
             continue
@@ -61,18 +69,14 @@ def adaptation(texts, suggestions, candidates):
 def cohesion(texts, suggestions, candidates):
     """The exact, neighbour-free form: mean content cosine among the documents that hold w, over
     that of all pairs, from sums of content vectors (|sum|^2 - count over count(count - 1))."""
-    x = TfidfVectorizer(stop_words=suggestions).fit_transform(texts)
-    has_content = x.getnnz(axis=1) > 0
+    x, has_content, holders = content_and_holders(texts, suggestions, candidates)
+    if holders is None:
+        return {}
     m = int(has_content.sum())
     total = np.asarray(x.sum(axis=0)).ravel()
     all_pairs = (total @ total - m) / (m * (m - 1))
-    words = sorted(set(candidates))
-    if not words:
-        return {}
-    holds = CountVectorizer(vocabulary=words, binary=True, token_pattern=r"(?u)\b\w+\b|'s").fit_transform(texts).tocsc()
     out = {}
-    for col, w in enumerate(words):
-        rows = holds.indices[holds.indptr[col]:holds.indptr[col + 1]]
+    for w, rows in holders.items():
         rows = rows[has_content[rows]]
         count = len(rows)
         if count < MIN_DF:

@@ -7,7 +7,8 @@ import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { startReview } from '../../extension/src/engine/review/start-review';
 import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
-import type { DevCorpus } from '../corpora/labelled-corpus';
+import type { DevCorpus, LabelledDoc } from '../corpora/labelled-corpus';
+import type { Report } from '../../extension/src/protocol';
 
 const PYTHON = '/usr/bin/python3';
 
@@ -24,17 +25,25 @@ export interface Row {
   outcome: string;
 }
 
-/** Reviews `corpus` (its texts written to `dir`) with `configPath`, and scores the four lists. */
-export async function qualityRow(corpus: DevCorpus, dir: string, configPath: string | null): Promise<Row> {
+/**
+ * Writes `corpus` to `dir` as NAME.jsonl (text and label) and reviews it with `configPath`,
+ * WITHOUT its labels and without a stop list; `seconds` is the review's wall time.
+ */
+export async function reviewWithoutLabels(corpus: DevCorpus, dir: string, configPath: string | null): Promise<{ docs: LabelledDoc[]; report: Report; seconds: number }> {
   const docs = await corpus.load();
   const file = path.join(dir, `${corpus.name}.jsonl`);
   // The label is written for scikit-learn's check only; the review is told not to read it.
   writeFileSync(file, docs.map((d) => JSON.stringify({ text: d.text, label: d.label })).join('\n') + '\n');
   const started = performance.now();
   const session = await startReview({ file, configPath, overrides: { text: 'text', label: null, stopList: null } });
-  const seconds = (performance.now() - started) / 1000;
+  return { docs, report: session.report, seconds: (performance.now() - started) / 1000 };
+}
+
+/** Reviews `corpus` (its texts written to `dir`) with `configPath`, and scores the four lists. */
+export async function qualityRow(corpus: DevCorpus, dir: string, configPath: string | null): Promise<Row> {
+  const { docs, report, seconds } = await reviewWithoutLabels(corpus, dir, configPath);
   // What `loudword apply` writes to a stop list file (plain spellings: "through", not "thru").
-  const suggestions = suggestionLines(session.report);
+  const suggestions = suggestionLines(report);
   const job = {
     texts: docs.map((d) => d.text),
     labels: docs.map((d) => d.label),
@@ -50,7 +59,7 @@ export async function qualityRow(corpus: DevCorpus, dir: string, configPath: str
     ...p,
     suggested: suggestions.length,
     seconds,
-    outcome: session.report.verdict?.outcome ?? '—',
+    outcome: report.verdict?.outcome ?? '—',
   };
 }
 
