@@ -4,7 +4,7 @@
 // scikit-learn, each suggested grammar word's adaptation across content neighbours and the
 // precision@10 of the list without the words above a limit (docs/methods.md §9, "adaptation").
 //
-//   npx tsx test/quality/adaptation-probe.ts [--form cohesion] [corpus ...]
+//   npx tsx test/quality/adaptation-probe.ts [--form cohesion|cohesion-length] [corpus ...]
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import * as os from 'node:os';
