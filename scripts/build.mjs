@@ -5,6 +5,7 @@ import { existsSync, mkdirSync, copyFileSync, readdirSync } from 'node:fs';
 import { basename, join, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildSettingsValidator } from './settings-validator.mjs';
+import { sweepRowsWasm } from './sweep-rows-wasm.mjs';
 import { wordRanges } from './word-ranges.mjs';
 
 const production = process.argv.includes('--production');
@@ -69,6 +70,11 @@ const entries = [
   { entry: 'webview/src/main.ts', out: 'dist/webview.js', platform: 'browser', format: 'iife' },
 ];
 
+// The sampled measures' row sweep in WebAssembly (extension/src/engine/measures/sweep-rows.wat),
+// assembled once here and carried in the Node bundles as base64 (~4 KB): the extension host, the
+// CLI and the what-if's threads all sweep rows; the webview does not.
+const sweepRows = Buffer.from(await sweepRowsWasm()).toString('base64');
+
 mkdirSync('dist', { recursive: true });
 for (const e of entries) {
   if (!existsSync(e.entry)) {
@@ -85,7 +91,7 @@ for (const e of entries) {
     external: e.external ?? [],
     plugins: e.platform === 'node' ? [winkModelOutside, winkCoreReader] : [],
     // The token pattern scan's table of word characters, worked out once here (word-ranges.mjs).
-    define: e.platform === 'node' ? { LOUDWORD_WORD_RANGES: JSON.stringify(JSON.stringify(wordRanges())), LOUDWORD_WINK_CORE_READER: '"bundled"' } : {},
+    define: e.platform === 'node' ? { LOUDWORD_WORD_RANGES: JSON.stringify(JSON.stringify(wordRanges())), LOUDWORD_WINK_CORE_READER: '"bundled"', LOUDWORD_SWEEP_ROWS_WASM: JSON.stringify(sweepRows) } : {},
   });
 }
 // The settings schema compiled once here; the bundles above load it from beside them.

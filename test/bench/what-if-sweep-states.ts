@@ -5,9 +5,10 @@
 //   node --import tsx test/bench/what-if-sweep-states.ts dump FILE.csv DIR   # one review, then the
 //        e2e's clicks (the first suggestion unticked, then the second toggled) in one thread; each
 //        click's dot products and row scales written to DIR/stateN.{dots,scale}
-//   taskset -c 1 node --import tsx test/bench/what-if-sweep-states.ts time DIR [rounds]
-//        # CPU ms per sweep (blocks of 16, as the what-if), median and least after the first
-//        # round, and a hash of every output of the first round (equal hashes: the same bits)
+//   taskset -c 1 node --import tsx test/bench/what-if-sweep-states.ts time DIR [rounds] [--js]
+//        # CPU ms per sweep (blocks of 16, as the what-if; its rows in WebAssembly as SharedRowSweep
+//        # runs them, or with --js in the TypeScript), median and least after the first round,
+//        # and a hash of every output of the first round (equal hashes: the same bits)
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -41,40 +42,65 @@ async function dump(file: string, dir: string): Promise<void> {
   await session.close?.();
 }
 
-async function time(dir: string, rounds: number): Promise<void> {
-  const { measureSampleRows } = (await import(engine('measures/measure-sample-rows.ts'))) as typeof import('../../extension/src/engine/measures/measure-sample-rows');
+async function time(dir: string, rounds: number, js: boolean): Promise<void> {
+  const { pairShift, reduceSweep, SweepRows } = (await import(engine('measures/measure-sample-rows.ts'))) as typeof import('../../extension/src/engine/measures/measure-sample-rows');
+  const W = (await import(engine('measures/sweep-rows-wasm.ts'))) as typeof import('../../extension/src/engine/measures/sweep-rows-wasm');
   const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
+  const module = W.sweepRowsModule();
+  if (!js && module === null) throw new Error('the WebAssembly sweep did not load');
   const read = (name: string) => {
     const b = readFileSync(join(dir, name));
     return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.length));
   };
   const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
-  const states = names.map((n) => {
-    const dots = read(n);
-    const scale = read(n.replace('.dots', '.scale'));
-    return { dots, scale, m: scale.length, valid: validRowsFromGram(dots, scale.length) };
+  const m = read(names[0]!.replace('.dots', '.scale')).length;
+  const [k, blockRows] = [10, 16]; // the what-if's (WHAT_IF_BLOCK_ROWS)
+  const blocks = Math.ceil(m / blockRows);
+  // Every state in one memory laid out as SharedRowSweep's (sweep-rows-wasm.ts), filled before the clock starts.
+  const layout = W.sweepLayout(m, k, blocks, names.length, 1);
+  const memory = W.sweepMemory(layout);
+  const buffer = memory.buffer;
+  const out = W.outputsAt(buffer, layout);
+  const valid = new Uint8Array(buffer, layout.valid, m);
+  const states = names.map((n, i) => {
+    const at = layout.states[i]!;
+    const dots = new Float64Array(buffer, at.dots, m * m);
+    const scale = new Float64Array(buffer, at.scale, m);
+    dots.set(read(n));
+    scale.set(read(n.replace('.dots', '.scale')));
+    return { at, dots, scale, valid: validRowsFromGram(dots, m) };
   });
+  const wasm = js ? null : new W.WasmSweepRows(module!, memory, layout, blockRows, 0);
   const hash = createHash('sha256');
   const ms: number[] = [];
   for (let r = 0; r < rounds; r++) {
     for (const s of states) {
+      // A what-if's sweep as SharedRowSweep.sweep runs it on one thread: the shift, the blocks, the sums.
       const cpu = process.cpuUsage();
-      const out = measureSampleRows(s.dots, s.m, 10, s.valid, s.scale, undefined, 16);
+      valid.set(s.valid);
+      const shift = pairShift(s.dots, m, valid, s.scale);
+      const rows = new SweepRows(s.dots, m, k, valid, s.scale, shift, out, blockRows);
+      if (wasm === null) for (let b = 0; b < blocks; b++) rows.block(b);
+      else {
+        wasm.state(s.at.dots, s.at.scale, shift);
+        for (let b = 0; b < blocks; b++) wasm.block(b);
+      }
+      const result = reduceSweep(rows, out, blocks);
       const d = process.cpuUsage(cpu);
       if (r > 0) ms.push((d.user + d.system) / 1000);
       if (r === 0) {
-        const { knn, kOccurrence, standoutPerQuery, nnDist, ...rest } = out;
+        const { knn, kOccurrence, standoutPerQuery, nnDist, ...rest } = result;
         for (const a of [knn.neighbors, knn.sims, kOccurrence, standoutPerQuery, nnDist]) hash.update(Buffer.from(a.buffer, a.byteOffset, a.byteLength));
         hash.update(JSON.stringify(rest));
       }
     }
   }
   ms.sort((a, b) => a - b);
-  console.log(JSON.stringify({ hash: hash.digest('hex').slice(0, 16), sweeps: ms.length, medianMs: ms[ms.length >> 1], leastMs: ms[0] }));
+  console.log(JSON.stringify({ rows: js ? 'JavaScript' : 'WebAssembly', hash: hash.digest('hex').slice(0, 16), sweeps: ms.length, medianMs: ms[ms.length >> 1], leastMs: ms[0] }));
 }
 
 const [mode, a, b, c] = process.argv.slice(2);
-const run = mode === 'dump' && a && b ? dump(a, b) : mode === 'time' && a ? time(a, Number(b ?? c ?? '6')) : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds]'));
+const run = mode === 'dump' && a && b ? dump(a, b) : mode === 'time' && a ? time(a, Number(b !== undefined && b !== '--js' ? b : '6'), b === '--js' || c === '--js') : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds] [--js]'));
 run.then(
   () => process.exit(0),
   (e: unknown) => {

@@ -221,7 +221,11 @@ export class SweepRows {
     out.tieGroup[i] = 0;
   }
 
-  /** Row i's part of every measure (i a valid row). */
+  /**
+   * Row i's part of every measure (i a valid row). measures/sweep-rows.wat is this (with block,
+   * noRow and the helpers below) in WebAssembly, which the what-if's SharedRowSweep runs: a change
+   * here is made there too (test/measures-sweep-rows-wasm.test.ts compares the two byte for byte).
+   */
   row(i: number): void {
     const { gram, m, k, valid, rowScale, norms, bestScore, bestPos, tieScore, near, validTotal, shift, pairBins, out } = this;
     const { knn, zScores, contrast, slack, nnDist } = out;

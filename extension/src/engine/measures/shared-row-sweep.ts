@@ -1,17 +1,23 @@
-import { pairShift, reduceSweep, SweepRows, sweepOutputs, type SampleRowMeasures, type SweepOutputs } from './measure-sample-rows';
+import { pairShift, reduceSweep, SweepRows, type SampleRowMeasures, type SweepOutputs } from './measure-sample-rows';
+import { outputsAt, sweepLayout, sweepMemory, sweepRowsModule, WasmSweepRows, type SweepLayout } from './sweep-rows-wasm';
 
 /** The shared memory of a SharedRowSweep, to post to the thread that helps. */
 export interface SharedRowSweepBuffers {
   m: number;
   k: number;
   blockRows: number;
+  /** How many states (dot products m×m and row scales m) the memory holds. */
+  states: number;
   control: SharedArrayBuffer;
   shift: SharedArrayBuffer;
-  valid: SharedArrayBuffer;
-  /** The sweep's outputs (sweepOutputs' arrays, in its order), one buffer each. */
-  outputs: SharedArrayBuffer[];
-  /** The inputs a sweep may read: dot products (m×m) and row scales (m), one pair per state. */
-  grams: Array<{ dots: SharedArrayBuffer; scale: SharedArrayBuffer }>;
+  /**
+   * The rows' validity, the sweep's outputs, each thread's scratch and the states, as
+   * sweepLayout(m, k, blocks, states, 2) lays them out: in a shared WebAssembly memory, so that the
+   * sweep's rows run in WebAssembly (sweep-rows-wasm.ts), or, where no such memory can be had, in
+   * a plain shared buffer (the rows then run in JavaScript: the same bits).
+   */
+  memory: WebAssembly.Memory | null;
+  buffer: SharedArrayBuffer;
 }
 
 // Slots of the control array.
@@ -27,6 +33,10 @@ const GRAM = 3;
 const FAILED = 4;
 const CONTROL_SLOTS = 5;
 
+/** Whose scratch a sweep's rows use (sweepLayout's threads): the owner's sweeps, the helper's blocks. */
+const OWNER = 0;
+const HELPER = 1;
+
 /**
  * One sweep of the sampled measures (measureSampleRows' rows, in blocks) shared by two threads:
  * the owner (the what-if's sample thread) opens it under a ticket once its dot products are up
@@ -37,6 +47,9 @@ const CONTROL_SLOTS = 5;
  * which block, and the same as one thread sweeping every block (measureSampleRows with the same
  * blockRows). Blocks are claimed with a compare-and-swap on one word holding the ticket and the
  * next block, so a helper late for its sweep can never claim a block of the next one.
+ * The rows run in WebAssembly (sweep-rows-wasm.ts: the same bits as SweepRows, about half its
+ * CPU), each thread with its own instance and scratch, over the one shared memory that holds the
+ * states and the outputs; where no such memory or module can be had, SweepRows sweeps them.
  */
 export class SharedRowSweep {
   private readonly control: Int32Array;
@@ -44,39 +57,35 @@ export class SharedRowSweep {
   private readonly valid: Uint8Array;
   private readonly out: SweepOutputs;
   private readonly grams: Array<{ dots: Float64Array; scale: Float64Array }>;
+  private readonly layout: SweepLayout;
+  /** The WebAssembly rows of the owner's sweeps and of the helper's (each its own scratch); null: JavaScript. */
+  private wasmRows: [WasmSweepRows | null | undefined, WasmSweepRows | null | undefined] = [undefined, undefined];
   readonly blocks: number;
 
   private constructor(readonly buffers: SharedRowSweepBuffers) {
-    const { m, k, blockRows } = buffers;
+    const { m, k, blockRows, buffer } = buffers;
     this.control = new Int32Array(buffers.control);
     this.shift = new Float64Array(buffers.shift);
-    this.valid = new Uint8Array(buffers.valid);
     this.blocks = Math.ceil(m / blockRows);
-    const given = [...buffers.outputs];
-    this.out = sweepOutputs(m, k, this.blocks, () => given.shift()!);
-    this.grams = buffers.grams.map((g) => ({ dots: new Float64Array(g.dots), scale: new Float64Array(g.scale) }));
+    this.layout = sweepLayout(m, k, this.blocks, buffers.states, 2);
+    this.valid = new Uint8Array(buffer, this.layout.valid, m);
+    this.out = outputsAt(buffer, this.layout);
+    this.grams = this.layout.states.map((g) => ({ dots: new Float64Array(buffer, g.dots, m * m), scale: new Float64Array(buffer, g.scale, m) }));
   }
 
   /** Shared memory for sweeps over m rows and k neighbours, reading one of `states` m×m states. */
   static create(m: number, k: number, blockRows: number, states = 2): SharedRowSweep {
     if (!(blockRows >= 1) || Math.ceil(m / blockRows) >= 0x10000) throw new RangeError(`SharedRowSweep: ${m} rows in blocks of ${blockRows}`);
-    const outputs: SharedArrayBuffer[] = [];
-    sweepOutputs(m, k, Math.ceil(m / blockRows), (bytes) => {
-      const b = new SharedArrayBuffer(bytes);
-      outputs.push(b);
-      return b;
-    });
-    const grams = Array.from({ length: states }, () => ({ dots: new SharedArrayBuffer(8 * m * m), scale: new SharedArrayBuffer(8 * m) }));
-    return new SharedRowSweep({
-      m,
-      k,
-      blockRows,
-      control: new SharedArrayBuffer(4 * CONTROL_SLOTS),
-      shift: new SharedArrayBuffer(8),
-      valid: new SharedArrayBuffer(m),
-      outputs,
-      grams,
-    });
+    const layout = sweepLayout(m, k, Math.ceil(m / blockRows), states, 2);
+    let memory: WebAssembly.Memory | null = null;
+    try {
+      // A WebAssembly memory holds at most 4 GiB: beyond (m above ~16,000) the rows run in JavaScript.
+      if (sweepRowsModule() !== null) memory = sweepMemory(layout);
+    } catch {
+      memory = null;
+    }
+    const buffer = memory !== null ? (memory.buffer as SharedArrayBuffer) : new SharedArrayBuffer(layout.bytes);
+    return new SharedRowSweep({ m, k, blockRows, states, control: new SharedArrayBuffer(4 * CONTROL_SLOTS), shift: new SharedArrayBuffer(8), memory, buffer });
   }
 
   /** The same shared memory seen from another thread. */
@@ -91,7 +100,7 @@ export class SharedRowSweep {
 
   /** Which state `dots` is (−1 when it is not in this shared memory). */
   stateOf(dots: Float64Array): number {
-    return this.grams.findIndex((g) => g.dots.buffer === dots.buffer);
+    return this.grams.findIndex((g) => g.dots.buffer === dots.buffer && g.dots.byteOffset === dots.byteOffset && g.dots.length === dots.length);
   }
 
   /** The control word the ticket of the latest sweep is in, for Atomics.wait/waitAsync on it. */
@@ -109,7 +118,7 @@ export class SharedRowSweep {
     const { control, buffers } = this;
     const index = this.stateOf(gram);
     const { dots, scale } = this.grams[index] ?? {};
-    if (dots === undefined || scale === undefined || rowScale === undefined || rowScale.buffer !== scale.buffer) throw new Error('SharedRowSweep: the dot products and scales are not one of its states');
+    if (dots === undefined || scale === undefined || rowScale === undefined || rowScale.buffer !== scale.buffer || rowScale.byteOffset !== scale.byteOffset) throw new Error('SharedRowSweep: the dot products and scales are not one of its states');
     this.valid.set(valid);
     this.shift[0] = pairShift(dots, buffers.m, this.valid, scale);
     Atomics.store(control, DONE, 0);
@@ -118,7 +127,7 @@ export class SharedRowSweep {
     Atomics.store(control, CLAIM, claimWord(ticket, 0));
     Atomics.store(control, OPENED, ticket);
     Atomics.notify(control, OPENED);
-    const rows = this.rows(index);
+    const rows = this.rows(index, OWNER);
     try {
       for (;;) {
         // Before the claim: a block claimed is always swept.
@@ -134,7 +143,7 @@ export class SharedRowSweep {
       for (let done = Atomics.load(control, DONE); done < claimed; done = Atomics.load(control, DONE)) Atomics.wait(control, DONE, done, 1000);
     }
     if (Atomics.load(control, FAILED) !== 0) for (let b = 0; b < this.blocks; b++) rows.block(b);
-    return reduceSweep(rows, this.out, this.blocks);
+    return reduceSweep(rows.reads, this.out, this.blocks);
   }
 
   /**
@@ -145,11 +154,11 @@ export class SharedRowSweep {
     const { control } = this;
     if (Atomics.load(control, OPENED) !== ticket) return 0;
     let swept = 0;
-    let rows: SweepRows | null = null;
+    let rows: { block(b: number): void } | null = null;
     for (let b = this.claim(ticket); b >= 0; b = this.claim(ticket)) {
       try {
         // Read only once a block is claimed: until then the owner may still be writing them.
-        rows ??= this.rows(Atomics.load(control, GRAM));
+        rows ??= this.rows(Atomics.load(control, GRAM), HELPER);
         rows.block(b);
         swept++;
       } catch {
@@ -162,10 +171,25 @@ export class SharedRowSweep {
     return swept;
   }
 
-  private rows(index: number): SweepRows {
+  /**
+   * The rows of a sweep of state `index` by `role` (the owner's, OWNER, or the helper's): what
+   * reduceSweep reads (the inputs) and what sweeps the blocks, WebAssembly where this memory is
+   * one, else the SweepRows itself.
+   */
+  private rows(index: number, role: typeof OWNER | typeof HELPER): { reads: SweepRows; block(b: number): void } {
     const { dots, scale } = this.grams[index]!;
-    const { m, k, blockRows } = this.buffers;
-    return new SweepRows(dots, m, k, this.valid, scale, this.shift[0]!, this.out, blockRows);
+    const { m, k, blockRows, memory } = this.buffers;
+    const shift = this.shift[0]!;
+    const reads = new SweepRows(dots, m, k, this.valid, scale, shift, this.out, blockRows);
+    let wasm = this.wasmRows[role];
+    if (wasm === undefined) {
+      const module = memory !== null ? sweepRowsModule() : null;
+      wasm = this.wasmRows[role] = module !== null && memory !== null ? new WasmSweepRows(module, memory, this.layout, blockRows, role) : null;
+    }
+    if (wasm === null) return { reads, block: (b) => reads.block(b) };
+    const at = this.layout.states[index]!;
+    wasm.state(at.dots, at.scale, shift);
+    return { reads, block: (b) => wasm.block(b) };
   }
 
   /** The next block of sweep `ticket`, claimed; −1 when none is left or another sweep is open. */

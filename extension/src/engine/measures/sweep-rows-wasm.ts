@@ -1,0 +1,190 @@
+import { execFileSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { threadId } from 'node:worker_threads';
+import type { SweepOutputs } from './measure-sample-rows';
+import { SIMILARITY_BINS } from './similarity-histograms';
+
+/**
+ * The sampled measures' row sweep in WebAssembly (sweep-rows.wat: SweepRows.block, .row and .noRow
+ * with the same IEEE double operations in the same order, so the same bits; the TypeScript stays
+ * the reference and the fallback). It reads and writes one memory that the threads sweeping
+ * blocks of the same sweep share (SharedRowSweep), laid out by sweepLayout: the outputs, the rows'
+ * validity, each thread's scratch, and the states' dot products and row scales.
+ *
+ * Why: the row is the largest part of a what-if's CPU, and V8's code for it in JavaScript (typed
+ * array bounds, the k-NN offers and the histogram's index checks inside a 2,000-step loop) costs
+ * more than the same operations in WebAssembly; docs/performance.md has the figures.
+ */
+
+/** Defined by scripts/build.mjs in the Node bundles: the module's bytes, base64. */
+declare const LOUDWORD_SWEEP_ROWS_WASM: string | undefined;
+
+let compiled: WebAssembly.Module | null | undefined;
+
+/** The compiled module, or null where it cannot be had (the sweep then runs in JavaScript). */
+export function sweepRowsModule(): WebAssembly.Module | null {
+  if (compiled === undefined) {
+    try {
+      const bytes = typeof LOUDWORD_SWEEP_ROWS_WASM !== 'undefined' ? Buffer.from(LOUDWORD_SWEEP_ROWS_WASM, 'base64') : assembledFromSource();
+      compiled = new WebAssembly.Module(bytes);
+    } catch {
+      compiled = null;
+    }
+  }
+  return compiled;
+}
+
+/**
+ * Running from source (tsx: tests, benchmarks): the module assembled from sweep-rows.wat by
+ * scripts/sweep-rows-wasm.mjs (wabt's assembler starts asynchronously, so in a process of its
+ * own), kept in node_modules/.cache under a hash of the text so that each thread after the first
+ * reads a file.
+ */
+function assembledFromSource(): Buffer {
+  const root = path.resolve(__dirname, '../../../..');
+  const wat = path.join(__dirname, 'sweep-rows.wat');
+  const script = path.join(root, 'scripts', 'sweep-rows-wasm.mjs');
+  const key = createHash('sha256').update(readFileSync(wat)).update(readFileSync(script)).digest('hex').slice(0, 16);
+  const cacheDir = path.join(root, 'node_modules', '.cache', 'loudword');
+  const cached = path.join(cacheDir, `sweep-rows-${key}.wasm`);
+  try {
+    return readFileSync(cached);
+  } catch {
+    const bytes = execFileSync(process.execPath, [script, wat], { maxBuffer: 1 << 20 });
+    mkdirSync(cacheDir, { recursive: true });
+    // Written whole under another name, then renamed: another thread may be reading the cache.
+    const part = `${cached}.${process.pid}.${threadId}`;
+    writeFileSync(part, bytes);
+    renameSync(part, cached);
+    return bytes;
+  }
+}
+
+/** Byte offsets of one thread's scratch (SweepRows' per-row arrays). */
+interface ScratchAt {
+  norms: number;
+  best: number;
+  bestPos: number;
+  tie: number;
+  near: number;
+  rankScratch: number;
+  probe: number;
+  buckets: number;
+  counts: number;
+}
+
+/** Where everything of a sweep lies in its memory (byte offsets), and the memory's size. */
+export interface SweepLayout {
+  m: number;
+  k: number;
+  blocks: number;
+  bytes: number;
+  outputs: Record<keyof Omit<SweepOutputs, 'knn'> | 'neighbors' | 'sims', number>;
+  valid: number;
+  scratch: ScratchAt[];
+  states: Array<{ dots: number; scale: number }>;
+}
+
+/** The buckets twoRanks counts in: RANK_BUCKETS of measure-sample-rows.ts, fixed in sweep-rows.wat. */
+const WASM_RANK_BUCKETS = 256;
+
+/**
+ * The layout of a sweep over m rows and k neighbours in `blocks` blocks, with scratch for
+ * `threads` threads and room for `states` states. Each array starts on a 64-byte line, so the
+ * threads' scratch never shares a cache line.
+ */
+export function sweepLayout(m: number, k: number, blocks: number, states: number, threads: number): SweepLayout {
+  let at = 0;
+  const take = (bytes: number): number => {
+    const start = at;
+    at += Math.ceil(bytes / 64) * 64;
+    return start;
+  };
+  const outputs = {
+    neighbors: take(4 * m * k),
+    sims: take(8 * m * k),
+    nnDist: take(8 * m * k),
+    zScores: take(8 * m),
+    contrast: take(8 * m),
+    slack: take(8 * m),
+    rowMean: take(8 * m),
+    rowMin: take(8 * m),
+    nearBin: take(4 * m),
+    tieGroup: take(4 * m),
+    blockPairs: take(8 * 2 * blocks),
+    blockBins: take(8 * SIMILARITY_BINS * blocks),
+  };
+  const valid = take(m);
+  const scratch = Array.from({ length: threads }, () => ({
+    norms: take(8 * m),
+    best: take(8 * k),
+    bestPos: take(4 * k),
+    tie: take(8 * m),
+    near: take(8 * m),
+    rankScratch: take(8 * m),
+    probe: take(8 * (Math.ceil(m / 8) + 1)),
+    buckets: take(4 * WASM_RANK_BUCKETS),
+    counts: take(4 * 4 * SIMILARITY_BINS),
+  }));
+  const stateAt = Array.from({ length: states }, () => ({ dots: take(8 * m * m), scale: take(8 * m) }));
+  return { m, k, blocks, bytes: at, outputs, valid, scratch, states: stateAt };
+}
+
+/** A shared memory that holds `layout`. */
+export function sweepMemory(layout: SweepLayout): WebAssembly.Memory {
+  const pages = Math.max(1, Math.ceil(layout.bytes / 65536));
+  return new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+}
+
+/** The layout's outputs as SweepOutputs (views of `buffer`). */
+export function outputsAt(buffer: ArrayBufferLike, layout: SweepLayout): SweepOutputs {
+  const { m, k, blocks, outputs: o } = layout;
+  const f64 = (at: number, n: number) => new Float64Array(buffer, at, n);
+  const i32 = (at: number, n: number) => new Int32Array(buffer, at, n);
+  return {
+    knn: { neighbors: new Uint32Array(buffer, o.neighbors, m * k), sims: f64(o.sims, m * k) },
+    nnDist: f64(o.nnDist, m * k),
+    zScores: f64(o.zScores, m),
+    contrast: f64(o.contrast, m),
+    slack: f64(o.slack, m),
+    rowMean: f64(o.rowMean, m),
+    rowMin: f64(o.rowMin, m),
+    nearBin: i32(o.nearBin, m),
+    tieGroup: i32(o.tieGroup, m),
+    blockPairs: f64(o.blockPairs, 2 * blocks),
+    blockBins: f64(o.blockBins, SIMILARITY_BINS * blocks),
+  };
+}
+
+interface SweepRowsExports {
+  layout(...at: number[]): void;
+  state(gram: number, scale: number, shift: number): void;
+  block(b: number): void;
+}
+
+/**
+ * One thread's WebAssembly sweep over `memory` (laid out as `layout`), with scratch `thread`:
+ * SweepRows.block's outputs, to the bit, for the state set by `state`.
+ */
+export class WasmSweepRows {
+  private readonly exports: SweepRowsExports;
+
+  constructor(module: WebAssembly.Module, memory: WebAssembly.Memory, layout: SweepLayout, blockRows: number, thread: number) {
+    this.exports = new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as SweepRowsExports;
+    const { m, k, outputs: o, valid } = layout;
+    const s = layout.scratch[thread]!;
+    this.exports.layout(m, k, blockRows, o.neighbors, o.sims, o.nnDist, o.zScores, o.contrast, o.slack, o.rowMean, o.rowMin, o.nearBin, o.tieGroup, o.blockPairs, o.blockBins, valid, s.norms, s.best, s.bestPos, s.tie, s.near, s.rankScratch, s.probe, s.buckets, s.counts);
+  }
+
+  /** The state the next blocks read: dot products and row scales at these byte offsets; pairShift's value. */
+  state(dots: number, scale: number, shift: number): void {
+    this.exports.state(dots, scale, shift);
+  }
+
+  /** SweepRows.block(b). */
+  block(b: number): void {
+    this.exports.block(b);
+  }
+}

@@ -1,0 +1,113 @@
+// The sampled measures' row sweep in WebAssembly (measures/sweep-rows.wat) must write what the
+// TypeScript's SweepRows writes, byte for byte (NaN's bits and −0 included): every output of every
+// row and every block's sums, on random rows, on rows with ties at the k-th place, with invalid
+// (empty) rows, with rows too short for k neighbours or for the radius slack's 10k-th distance,
+// with rows whose distances are all equal, and with rows whose radius bound falls short (the row's
+// distances gathered again). The TypeScript is held to each measure's own function in
+// test/measures-measure-sample-rows.test.ts.
+import { strict as assert } from 'node:assert';
+import { validRowsFromGram } from '../extension/src/engine/measures/gram-distances';
+import { pairShift, sweepOutputs, SweepRows, type SweepOutputs } from '../extension/src/engine/measures/measure-sample-rows';
+import { sampleSimilarities } from '../extension/src/engine/measures/sample-similarity';
+import { outputsAt, sweepLayout, sweepMemory, sweepRowsModule, WasmSweepRows } from '../extension/src/engine/measures/sweep-rows-wasm';
+import { mulberry32 } from '../extension/src/engine/random/seeded-random';
+import { denseToCsr, randomUnitRows } from './measures-fixtures';
+
+/** Kept dot products and row scales of unit rows (as the what-if keeps them: dots·scale_i·scale_j are the cosines). */
+function products(seed: number, n: number, cols: number, density: number, emptyEvery: number, duplicateEvery = 0): { gram: Float64Array; scale: Float64Array } {
+  const random = mulberry32(seed);
+  const rows = randomUnitRows(random, n, cols, density, emptyEvery);
+  if (duplicateEvery > 0) for (let r = 5; r < n; r += duplicateEvery) rows[r] = rows[r - 3]!.slice();
+  const scale = Float64Array.from({ length: n }, () => 0.5 + random());
+  const scaled = rows.map((row, i) => row.map((v) => v / scale[i]!));
+  return { gram: sampleSimilarities(denseToCsr(scaled, cols), Uint32Array.from({ length: n }, (_, i) => i)), scale };
+}
+
+const FIELDS: Array<keyof Omit<SweepOutputs, 'knn'>> = ['nnDist', 'zScores', 'contrast', 'slack', 'rowMean', 'rowMin', 'nearBin', 'tieGroup', 'blockPairs', 'blockBins'];
+
+function bytes(a: ArrayBufferView): Buffer {
+  return Buffer.from(a.buffer, a.byteOffset, a.byteLength);
+}
+
+/** Both sweeps' outputs; the WebAssembly's blocks in reverse order, into memory filled with 0xa5 first. */
+function bothSweeps(gram: Float64Array, m: number, k: number, scale: Float64Array, blockRows: number): { js: SweepOutputs; wasm: SweepOutputs } {
+  const valid = validRowsFromGram(gram, m);
+  const blocks = Math.ceil(m / blockRows);
+  const shift = pairShift(gram, m, valid, scale);
+  const js = sweepOutputs(m, k, blocks);
+  const rows = new SweepRows(gram, m, k, valid, scale, shift, js, blockRows);
+  for (let b = 0; b < blocks; b++) rows.block(b);
+
+  const module = sweepRowsModule();
+  assert.ok(module !== null, 'the WebAssembly sweep did not load');
+  const layout = sweepLayout(m, k, blocks, 2, 2);
+  const memory = sweepMemory(layout);
+  new Uint8Array(memory.buffer).fill(0xa5);
+  const state = layout.states[1]!;
+  new Float64Array(memory.buffer, state.dots, m * m).set(gram);
+  new Float64Array(memory.buffer, state.scale, m).set(scale);
+  new Uint8Array(memory.buffer, layout.valid, m).set(valid);
+  const wasm = new WasmSweepRows(module, memory, layout, blockRows, 1);
+  wasm.state(state.dots, state.scale, shift);
+  for (let b = blocks - 1; b >= 0; b--) wasm.block(b);
+  return { js, wasm: outputsAt(memory.buffer, layout) };
+}
+
+function assertSameBytes(js: SweepOutputs, wasm: SweepOutputs, what: string): void {
+  assert.ok(bytes(js.knn.neighbors).equals(bytes(wasm.knn.neighbors)), `${what}: knn.neighbors`);
+  assert.ok(bytes(js.knn.sims).equals(bytes(wasm.knn.sims)), `${what}: knn.sims`);
+  for (const f of FIELDS) assert.ok(bytes(js[f]).equals(bytes(wasm[f])), `${what}: ${f}`);
+}
+
+describe('measures/sweep-rows-wasm', () => {
+  it('random rows with empty ones, in blocks and in one block: the same bytes as SweepRows', () => {
+    const n = 301;
+    const { gram, scale } = products(11, n, 40, 0.3, 17);
+    for (const [k, blockRows] of [[10, 16], [10, n], [3, 7], [1, 50]] as const) {
+      const { js, wasm } = bothSweeps(gram, n, k, scale, blockRows);
+      assert.ok(js.zScores.some((z) => Number.isNaN(z)) && js.zScores.some((z) => !Number.isNaN(z)), 'both valid and empty rows');
+      assertSameBytes(js, wasm, `k ${k}, blocks of ${blockRows}`);
+    }
+  });
+
+  it('few columns and duplicate rows (ties at the k-th place, equal distances): the same bytes', () => {
+    const n = 160;
+    const { gram, scale } = products(12, n, 3, 0.6, 11, 13);
+    for (const k of [5, 10]) {
+      const { js, wasm } = bothSweeps(gram, n, k, scale, 16);
+      // Rows whose k-th score is tied beyond the list's own entries: the kept-aside tie scores count.
+      assert.ok(js.tieGroup.some((g, i) => g > 1 && !Number.isNaN(js.zScores[i]!)), 'no tie group at a k-th place');
+      assertSameBytes(js, wasm, `ties, k ${k}`);
+    }
+  });
+
+  it('rows too short for k neighbours or 10k distances, all rows equal, and every row empty: the same bytes', () => {
+    const short = products(13, 31, 8, 0.4, 7);
+    for (const k of [5, 29, 40]) {
+      const { js, wasm } = bothSweeps(short.gram, 31, k, short.scale, 4);
+      assertSameBytes(js, wasm, `31 rows, k ${k}`);
+    }
+    // Every row the same point: all distances 0 (countInRanges finds one value), no contrast.
+    const same = new Float64Array(20 * 20).fill(1);
+    const ones = new Float64Array(20).fill(1);
+    const equal = bothSweeps(same, 20, 3, ones, 6);
+    assert.ok(Number.isNaN(equal.js.slack[0]!) && Number.isNaN(equal.js.contrast[0]!));
+    assertSameBytes(equal.js, equal.wasm, 'equal rows');
+    const empty = bothSweeps(new Float64Array(12 * 12), 12, 3, new Float64Array(12).fill(1), 5);
+    assertSameBytes(empty.js, empty.wasm, 'empty rows');
+  });
+
+  it('rows whose every 16th entry is near and the rest far (the radius bound falls short, the row is read again): the same bytes', () => {
+    // A made-up symmetric matrix of unit diagonal, not a Gram matrix: the sweep only reads it.
+    const m = 400;
+    const random = mulberry32(14);
+    const gram = new Float64Array(m * m);
+    for (let i = 0; i < m; i++) {
+      gram[i * m + i] = 1;
+      for (let j = i + 1; j < m; j++) gram[i * m + j] = gram[j * m + i] = (i % 16 === 0) === (j % 16 === 0) ? 0.9 + 0.05 * random() : 0.1 * random();
+    }
+    const { js, wasm } = bothSweeps(gram, m, 5, new Float64Array(m).fill(1), 16);
+    assert.ok(js.slack.every((s) => Number.isFinite(s)), 'every row has a radius slack');
+    assertSameBytes(js, wasm, 'a short radius bound');
+  });
+});
