@@ -16,6 +16,7 @@ const CLASS_NAMES: Record<PriorClass, string> = {
   degree: 'degree word',
   contrast: 'contrast word',
   quantity: 'quantifier',
+  number: 'number word',
   markup: 'markup residue (an HTML tag or entity name)',
   phrase: 'pair of grammar words',
 };

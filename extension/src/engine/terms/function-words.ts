@@ -26,7 +26,7 @@ export const FUNCTION_WORD_CLASSES = {
 
 /**
  * Closed-class words that change what a sentence says rather than only how it is built:
- * negations, degree words (intensifiers), contrast and concession, quantity. On opinion text they
+ * negations, degree words (intensifiers), contrast and concession, quantity, number words. On opinion text they
  * carry the opinion (docs/methods.md §8: every list that removed them lowered precision on rated
  * reviews), so the method only suggests them where they are in more than half the documents of
  * a corpus that does not read as opinion text.
@@ -38,6 +38,12 @@ export const MEANING_WORDS = {
   contrast: ['but', 'yet', 'however', 'although', 'though', 'whereas', 'despite', 'except', 'otherwise', 'instead',
     'than'],
   quantity: ['all', 'many', 'few', 'several'],
+  // Cardinal and ordinal number words: they count rather than name ("two", "third"), and a
+  // rating can be one ("one star"), hence with the words that carry meaning. Joined the prior in
+  // the sixteenth session on the TUNE corpora (docs/methods.md §9).
+  number: ['one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve',
+    'twenty', 'thirty', 'forty', 'fifty', 'sixty', 'seventy', 'eighty', 'ninety', 'hundred', 'thousand', 'million',
+    'billion', 'first', 'second', 'third', 'fourth', 'fifth', 'sixth', 'seventh', 'eighth', 'ninth', 'tenth'],
 } as const;
 
 export type WordClass = keyof typeof FUNCTION_WORD_CLASSES | keyof typeof MEANING_WORDS;
