@@ -4,29 +4,19 @@
 // scikit-learn, each suggested grammar word's adaptation across content neighbours and the
 // precision@10 of the list without the words above a limit (docs/methods.md §9, "adaptation").
 //
-//   npx tsx test/quality/adaptation-probe.ts [--form cohesion] [corpus ...]
+//   npx tsx test/quality/adaptation-probe.ts [--form cohesion|cohesion-length] [corpus ...]
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
-import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
-import { corporaNamed } from '../corpora/dev-corpora';
-import { reviewWithoutLabels } from './quality-row';
+import { dumpSuggestions } from './dump-suggestions';
 
 async function main(): Promise<void> {
   const args = process.argv.slice(2);
   const form = args[0] === '--form' ? args.splice(0, 2) : [];
   const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-adaptation-'));
   try {
-    const names: string[] = [];
-    for (const corpus of corporaNamed(args)) {
-      if (!corpus.available()) continue;
-      const { report } = await reviewWithoutLabels(corpus, dir, null);
-      // Which suggestions rule 2 made (grammar words below half): the candidates the probe may keep.
-      const grammar = report.terms.filter((t) => t.status === 'suggested' && !/more than half/.test(t.why)).map((t) => t.term);
-      writeFileSync(path.join(dir, `${corpus.name}.json`), JSON.stringify({ role: corpus.role, suggestions: suggestionLines(report), grammar }));
-      names.push(corpus.name);
-    }
+    const names = await dumpSuggestions(dir, args);
     execFileSync('/usr/bin/python3', [path.join(__dirname, 'adaptation_probe.py'), ...form, dir, ...names], { stdio: 'inherit' });
   } finally {
     rmSync(dir, { recursive: true, force: true });

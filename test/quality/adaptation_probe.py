@@ -9,8 +9,9 @@ the neighbour form of Church's adaptation (Church 2000, "Empirical estimates of 
 chance of two Noriegas is closer to p/2 than p^2", COLING), with a binomial z for its noise. A
 word that adapts goes where the content already goes: it may mark the kind of document. The probe
 prints precision@10 (leave-one-out, the labels) of the list without the words above each limit.
-`--form cohesion` measures the exact, neighbour-free form instead (see cohesion()).
-Usage: adaptation_probe.py [--form cohesion] DIR NAME... (DIR holds NAME.jsonl and NAME.json
+`--form cohesion` measures the exact, neighbour-free form instead (see cohesion()), and
+`--form cohesion-length` that form against a length-matched expectation (cohesion_length()).
+Usage: adaptation_probe.py [--form cohesion|cohesion-length] DIR NAME... (DIR holds NAME.jsonl and NAME.json
 from adaptation-probe.ts)
 """
 import json
@@ -87,12 +88,45 @@ def cohesion(texts, suggestions, candidates):
     return out
 
 
+def cohesion_length(texts, suggestions, candidates, bins=10):
+    """The exact form against a length-matched expectation: longer documents are alike to more
+    documents, and a grammar word's holders are the longer ones, so cohesion alone rates every
+    common word as marking a kind. The documents with content are put in ten bins by their number
+    of whitespace-separated words (deciles); the mean content cosine between two documents of bins
+    p and q comes from the bins' sums of content vectors, and w's expected mean cosine is that of
+    its holders' pairs bin by bin. Exact and without neighbours, as cohesion()."""
+    x, has_content, holders = content_and_holders(texts, suggestions, candidates)
+    if holders is None:
+        return {}
+    lengths = np.array([len(t.split()) for t in texts])
+    edges = np.quantile(lengths[has_content], np.linspace(0, 1, bins + 1)[1:-1])
+    bin_of = np.searchsorted(edges, lengths, side="right")
+    with_content = np.flatnonzero(has_content)
+    sums = np.vstack([np.asarray(x[with_content[bin_of[with_content] == b]].sum(axis=0)).ravel() for b in range(bins)])
+    sizes = np.bincount(bin_of[with_content], minlength=bins).astype(float)
+    dots = sums @ sums.T
+    pairs = np.outer(sizes, sizes) - np.diag(sizes)  # ordered pairs of distinct documents
+    mean_cos = np.divide(dots - np.diag(sizes), pairs, out=np.zeros_like(dots), where=pairs > 0)
+    out = {}
+    for w, rows in holders.items():
+        rows = rows[has_content[rows]]
+        count = len(rows)
+        if count < MIN_DF:
+            continue
+        h = np.bincount(bin_of[rows], minlength=bins).astype(float)
+        expected = (h @ mean_cos @ h - h @ np.diag(mean_cos)) / (count * (count - 1))
+        s = np.asarray(x[rows].sum(axis=0)).ravel()
+        out[w] = (((s @ s - count) / (count * (count - 1))) / expected, np.inf)
+    return out
+
+
 def main():
     warnings.filterwarnings("ignore")
     args = sys.argv[1:]
     form = adaptation
-    if args[:2] == ["--form", "cohesion"]:
-        form, args = cohesion, args[2:]
+    forms = {"cohesion": cohesion, "cohesion-length": cohesion_length}
+    if args[:1] == ["--form"]:
+        form, args = forms[args[1]], args[2:]
     directory, names = args[0], args[1:]
     print("| corpus | role | ours | " + " | ".join(f"keep > {t}" for t in LIMITS) + " |")
     print("|---|---|---|" + "---|" * len(LIMITS))
