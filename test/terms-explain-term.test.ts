@@ -17,11 +17,13 @@ describe('explainTerm', () => {
     assert.doesNotMatch(why, /function word|pronoun|determiner|grammar/);
   });
 
-  it('explainTerm: a number word of the prior is called a number word, not a function word', () => {
+  it('explainTerm: a number word of the prior is called a number word, an adverb of frequency one, not a function word', () => {
     const n: Decision = { suggested: true, reason: 'grammar', signal: { ...signal, docFraction: 0.2 }, cls: 'number' };
     const why = explainTerm(row('four', 'suggested'), 100, n);
     assert.match(why, /^number word in 60% of documents, spread evenly/);
     assert.doesNotMatch(why, /function word|pronoun|determiner/);
+    const f: Decision = { ...n, cls: 'frequency' };
+    assert.match(explainTerm(row('usually', 'suggested'), 100, f), /^adverb of frequency in 60% of documents/);
   });
 
   it('explainTerm: a grammar word names its class and its burstiness; a bursty one says it clusters', () => {

@@ -17,6 +17,7 @@ const CLASS_NAMES: Record<PriorClass, string> = {
   contrast: 'contrast word',
   quantity: 'quantifier',
   number: 'number word',
+  frequency: 'adverb of frequency',
   markup: 'markup residue (an HTML tag or entity name)',
   phrase: 'pair of grammar words',
 };

@@ -26,10 +26,10 @@ export const FUNCTION_WORD_CLASSES = {
 
 /**
  * Closed-class words that change what a sentence says rather than only how it is built:
- * negations, degree words (intensifiers), contrast and concession, quantity, number words. On opinion text they
- * carry the opinion (docs/methods.md §8: every list that removed them lowered precision on rated
- * reviews), so the method only suggests them where they are in more than half the documents of
- * a corpus that does not read as opinion text.
+ * negations, degree words (intensifiers), contrast and concession, quantity, number words, adverbs
+ * of frequency. On opinion text they carry the opinion (docs/methods.md §8: every list that
+ * removed them lowered precision on rated reviews), so the method only suggests them where they
+ * are in more than half the documents of a corpus that does not read as opinion text.
  */
 export const MEANING_WORDS = {
   negation: ['no', 'not', 'nor', 'never', 'none', 'nobody', 'nothing', 'nowhere', 'neither', 'cannot', 'without'],
@@ -44,6 +44,10 @@ export const MEANING_WORDS = {
   number: ['one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve',
     'twenty', 'thirty', 'forty', 'fifty', 'sixty', 'seventy', 'eighty', 'ninety', 'hundred', 'thousand', 'million',
     'billion', 'first', 'second', 'third', 'fourth', 'fifth', 'sixth', 'seventh', 'eighth', 'ninth', 'tenth'],
+  // Adverbs of frequency: how often, not what ("usually", "rarely"); on opinion text they carry
+  // the stance ("always breaks"). Joined the prior in the sixteenth session on the TUNE corpora.
+  frequency: ['always', 'usually', 'often', 'sometimes', 'seldom', 'rarely', 'occasionally', 'frequently',
+    'generally', 'normally', 'typically', 'commonly'],
 } as const;
 
 export type WordClass = keyof typeof FUNCTION_WORD_CLASSES | keyof typeof MEANING_WORDS;
