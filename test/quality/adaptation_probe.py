@@ -76,16 +76,21 @@ def cohesion(texts, suggestions, candidates):
     m = int(has_content.sum())
     total = np.asarray(x.sum(axis=0)).ravel()
     all_pairs = (total @ total - m) / (m * (m - 1))
-    out = {}
+    return {w: (mean, np.inf) for w, mean, _ in holders_mean_cosine(x, has_content, holders, lambda _: all_pairs)}
+
+
+def holders_mean_cosine(x, has_content, holders, expected):
+    """(w, observed ÷ expected mean content cosine between the documents that hold w, their rows)
+    for each w in at least MIN_DF documents with content; `expected(rows)` gives the divisor. The
+    observed mean is (|sum of their unit rows|² − count) / (count(count − 1)). No noise model:
+    callers set z past MIN_Z so that only the ratio decides."""
     for w, rows in holders.items():
         rows = rows[has_content[rows]]
         count = len(rows)
         if count < MIN_DF:
             continue
         s = np.asarray(x[rows].sum(axis=0)).ravel()
-        # No noise model: z is set past MIN_Z so that only the ratio decides.
-        out[w] = (((s @ s - count) / (count * (count - 1))) / all_pairs, np.inf)
-    return out
+        yield w, ((s @ s - count) / (count * (count - 1))) / expected(rows), rows
 
 
 def cohesion_length(texts, suggestions, candidates, bins=10):
@@ -107,17 +112,12 @@ def cohesion_length(texts, suggestions, candidates, bins=10):
     dots = sums @ sums.T
     pairs = np.outer(sizes, sizes) - np.diag(sizes)  # ordered pairs of distinct documents
     mean_cos = np.divide(dots - np.diag(sizes), pairs, out=np.zeros_like(dots), where=pairs > 0)
-    out = {}
-    for w, rows in holders.items():
-        rows = rows[has_content[rows]]
-        count = len(rows)
-        if count < MIN_DF:
-            continue
+
+    def expected(rows):
         h = np.bincount(bin_of[rows], minlength=bins).astype(float)
-        expected = (h @ mean_cos @ h - h @ np.diag(mean_cos)) / (count * (count - 1))
-        s = np.asarray(x[rows].sum(axis=0)).ravel()
-        out[w] = (((s @ s - count) / (count * (count - 1))) / expected, np.inf)
-    return out
+        return (h @ mean_cos @ h - h @ np.diag(mean_cos)) / (len(rows) * (len(rows) - 1))
+
+    return {w: (ratio, np.inf) for w, ratio, _ in holders_mean_cosine(x, has_content, holders, expected)}
 
 
 def main():
