@@ -439,8 +439,9 @@ function tiedPositions(sweep: SweepRows, i: number, last: number, tol: number): 
  * row, most of twoRanks' time is the quickselects inside the two ranges it picks, so finer ranges
  * pay: a what-if sweep at m = 2,000 took ~80 ms with 16, ~57 with 64, ~54 with 256, ~56 with 1,024
  * and ~70 with 4,096 ranges (clearing the counts then costs more than the selections save).
+ * sweep-rows.wat has the same number written in (its counts' size and scale).
  */
-const RANK_BUCKETS = 256;
+export const RANK_BUCKETS = 256;
 
 /**
  * The values of ranks r1 and r2 (0 = smallest) among a[0..n), into out[0] and out[1]; `a` is

@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { threadId } from 'node:worker_threads';
-import type { SweepOutputs } from './measure-sample-rows';
+import { RANK_BUCKETS, type SweepOutputs } from './measure-sample-rows';
 import { SIMILARITY_BINS } from './similarity-histograms';
 
 /**
@@ -87,9 +87,6 @@ export interface SweepLayout {
   states: Array<{ dots: number; scale: number }>;
 }
 
-/** The buckets twoRanks counts in: RANK_BUCKETS of measure-sample-rows.ts, fixed in sweep-rows.wat. */
-const WASM_RANK_BUCKETS = 256;
-
 /**
  * The layout of a sweep over m rows and k neighbours in `blocks` blocks, with scratch for
  * `threads` threads and room for `states` states. Each array starts on a 64-byte line, so the
@@ -125,7 +122,7 @@ export function sweepLayout(m: number, k: number, blocks: number, states: number
     near: take(8 * m),
     rankScratch: take(8 * m),
     probe: take(8 * (Math.ceil(m / 8) + 1)),
-    buckets: take(4 * WASM_RANK_BUCKETS),
+    buckets: take(4 * RANK_BUCKETS),
     counts: take(4 * 4 * SIMILARITY_BINS),
   }));
   const stateAt = Array.from({ length: states }, () => ({ dots: take(8 * m * m), scale: take(8 * m) }));
