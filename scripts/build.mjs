@@ -5,7 +5,7 @@ import { existsSync, mkdirSync, copyFileSync, readdirSync } from 'node:fs';
 import { basename, join, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildSettingsValidator } from './settings-validator.mjs';
-import { sweepRowsWasm } from './sweep-rows-wasm.mjs';
+import { assembleWat, ENGINE_WAT } from './assemble-wat.mjs';
 import { wordRanges } from './word-ranges.mjs';
 
 const production = process.argv.includes('--production');
@@ -70,10 +70,12 @@ const entries = [
   { entry: 'webview/src/main.ts', out: 'dist/webview.js', platform: 'browser', format: 'iife' },
 ];
 
-// The sampled measures' row sweep in WebAssembly (extension/src/engine/measures/sweep-rows.wat),
-// assembled once here and carried in the Node bundles as base64 (~4 KB): the extension host, the
-// CLI and the what-if's threads all sweep rows; the webview does not.
-const sweepRows = Buffer.from(await sweepRowsWasm()).toString('base64');
+// The engine's WebAssembly (the sampled measures' row sweep, extension/src/engine/measures/
+// sweep-rows.wat; the what-if's column gather, what-if/column-gather.wat), assembled once here
+// and carried in the Node bundles as base64 (a few KB): the extension host, the CLI and the
+// what-if's threads run them; the webview does not.
+const wasmModules = {};
+for (const [name, wat] of Object.entries(ENGINE_WAT)) wasmModules[name] = JSON.stringify(Buffer.from(await assembleWat(wat)).toString('base64'));
 
 mkdirSync('dist', { recursive: true });
 for (const e of entries) {
@@ -91,7 +93,7 @@ for (const e of entries) {
     external: e.external ?? [],
     plugins: e.platform === 'node' ? [winkModelOutside, winkCoreReader] : [],
     // The token pattern scan's table of word characters, worked out once here (word-ranges.mjs).
-    define: e.platform === 'node' ? { LOUDWORD_WORD_RANGES: JSON.stringify(JSON.stringify(wordRanges())), LOUDWORD_WINK_CORE_READER: '"bundled"', LOUDWORD_SWEEP_ROWS_WASM: JSON.stringify(sweepRows) } : {},
+    define: e.platform === 'node' ? { LOUDWORD_WORD_RANGES: JSON.stringify(JSON.stringify(wordRanges())), LOUDWORD_WINK_CORE_READER: '"bundled"', ...wasmModules } : {},
   });
 }
 // The settings schema compiled once here; the bundles above load it from beside them.

@@ -1,8 +1,4 @@
-import { execFileSync } from 'node:child_process';
-import { createHash } from 'node:crypto';
-import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
-import path from 'node:path';
-import { threadId } from 'node:worker_threads';
+import { assembledModule } from '../wasm/assembled-module';
 import { RANK_BUCKETS, type SweepOutputs } from './measure-sample-rows';
 import { SIMILARITY_BINS } from './similarity-histograms';
 
@@ -21,45 +17,9 @@ import { SIMILARITY_BINS } from './similarity-histograms';
 /** Defined by scripts/build.mjs in the Node bundles: the module's bytes, base64. */
 declare const LOUDWORD_SWEEP_ROWS_WASM: string | undefined;
 
-let compiled: WebAssembly.Module | null | undefined;
-
 /** The compiled module, or null where it cannot be had (the sweep then runs in JavaScript). */
 export function sweepRowsModule(): WebAssembly.Module | null {
-  if (compiled === undefined) {
-    try {
-      const bytes = typeof LOUDWORD_SWEEP_ROWS_WASM !== 'undefined' ? Buffer.from(LOUDWORD_SWEEP_ROWS_WASM, 'base64') : assembledFromSource();
-      compiled = new WebAssembly.Module(bytes);
-    } catch {
-      compiled = null;
-    }
-  }
-  return compiled;
-}
-
-/**
- * Running from source (tsx: tests, benchmarks): the module assembled from sweep-rows.wat by
- * scripts/sweep-rows-wasm.mjs (wabt's assembler starts asynchronously, so in a process of its
- * own), kept in node_modules/.cache under a hash of the text so that each thread after the first
- * reads a file.
- */
-function assembledFromSource(): Buffer {
-  const root = path.resolve(__dirname, '../../../..');
-  const wat = path.join(__dirname, 'sweep-rows.wat');
-  const script = path.join(root, 'scripts', 'sweep-rows-wasm.mjs');
-  const key = createHash('sha256').update(readFileSync(wat)).update(readFileSync(script)).digest('hex').slice(0, 16);
-  const cacheDir = path.join(root, 'node_modules', '.cache', 'loudword');
-  const cached = path.join(cacheDir, `sweep-rows-${key}.wasm`);
-  try {
-    return readFileSync(cached);
-  } catch {
-    const bytes = execFileSync(process.execPath, [script, wat], { maxBuffer: 1 << 20 });
-    mkdirSync(cacheDir, { recursive: true });
-    // Written whole under another name, then renamed: another thread may be reading the cache.
-    const part = `${cached}.${process.pid}.${threadId}`;
-    writeFileSync(part, bytes);
-    renameSync(part, cached);
-    return bytes;
-  }
+  return assembledModule('measures/sweep-rows.wat', typeof LOUDWORD_SWEEP_ROWS_WASM !== 'undefined' ? LOUDWORD_SWEEP_ROWS_WASM : undefined);
 }
 
 /** Byte offsets of one thread's scratch (SweepRows' per-row arrays). */

@@ -57,6 +57,8 @@ export class IncrementalTermSums {
     private readonly gatherBelow = GATHER_BELOW,
     /** The column copy holds the weights only up to this many non-zeros (COLUMN_WEIGHTS_UP_TO; the tests set it). */
     private readonly columnWeightsUpTo = COLUMN_WEIGHTS_UP_TO,
+    /** Whether the gather may run in WebAssembly (SharedColumnGather.create; false: the TypeScript, for the tests and the benchmark). */
+    private readonly webAssembly = true,
   ) {
     const cols = weights.cols;
     this.s1 = new Float64Array(cols);
@@ -175,7 +177,7 @@ export class IncrementalTermSums {
    * clicks walk is left as it was, and adopted by swapping the two (DistanceLab.whatIfExact).
    */
   twin(): IncrementalTermSums {
-    const twin = new IncrementalTermSums(this.weights, this.gatherBelow, this.columnWeightsUpTo);
+    const twin = new IncrementalTermSums(this.weights, this.gatherBelow, this.columnWeightsUpTo, this.webAssembly);
     twin.postings = this.columnPostings();
     twin.checkpoints = this.checkpoints;
     return twin;
@@ -470,7 +472,7 @@ export class IncrementalTermSums {
     for (let t = 0; t < cols; t++) start[t + 1] += start[t]!;
     const fill = start.slice(0, cols);
     // With the weights, the copy lives in shared memory, where another thread can gather from it.
-    const gather = nnz <= this.columnWeightsUpTo ? SharedColumnGather.create(rows, cols, nnz) : null;
+    const gather = nnz <= this.columnWeightsUpTo ? SharedColumnGather.create(rows, cols, nnz, this.webAssembly) : null;
     gather?.start.set(start);
     const rowIds = gather?.rowIds ?? new Uint32Array(nnz);
     const values = gather?.values ?? null;

@@ -1,24 +1,70 @@
+import { assembledModule } from '../wasm/assembled-module';
 import { claimBlock, claimWord, closeClaims } from '../measures/shared-row-sweep';
+
+/** Defined by scripts/build.mjs in the Node bundles: column-gather.wat's bytes, base64. */
+declare const LOUDWORD_COLUMN_GATHER_WASM: string | undefined;
+
+/** The compiled column gather, or null where it cannot be had (the gather then runs in JavaScript). */
+export function columnGatherModule(): WebAssembly.Module | null {
+  return assembledModule('what-if/column-gather.wat', typeof LOUDWORD_COLUMN_GATHER_WASM !== 'undefined' ? LOUDWORD_COLUMN_GATHER_WASM : undefined);
+}
 
 /** The shared memory of a SharedColumnGather, to post to the thread that helps. */
 export interface SharedColumnGatherBuffers {
   rows: number;
   cols: number;
-  /** Column t's entries are start[t]..start[t+1] of rowIds and values (Uint32, cols + 1). */
-  start: SharedArrayBuffer;
-  /** Row ids per column, rows ascending (Uint32, one per non-zero). */
-  rowIds: SharedArrayBuffer;
-  /** The weights in the same order (Float64). */
-  values: SharedArrayBuffer;
-  /** The first column of each block and the end (Uint32, blocks + 1). */
-  blockStart: SharedArrayBuffer;
-  /** Per row, the rescaled rows' two factors side by side (Float64, 2 per row). */
-  rowChange: SharedArrayBuffer;
-  /** The mask the open gather skips (Uint8, one per column). */
-  mask: SharedArrayBuffer;
-  /** Per column, the gathered Σ w·Δinv and Σ w²·Δ(1/norm²) side by side (Float64, 2 per column). */
-  out: SharedArrayBuffer;
+  nnz: number;
+  blocks: number;
+  /**
+   * The arrays, as gatherLayout(rows, cols, nnz, blocks) lays them out: in a shared WebAssembly
+   * memory, so that the columns are gathered in WebAssembly (column-gather.wat), or, where no such
+   * memory or module can be had, in a plain shared buffer (then in JavaScript: the same bits).
+   */
+  memory: WebAssembly.Memory | null;
+  buffer: SharedArrayBuffer;
   control: SharedArrayBuffer;
+}
+
+/** Byte offsets of a gather's arrays in its memory, and the memory's size. */
+export interface GatherLayout {
+  /** Column t's entries are start[t]..start[t+1] of rowIds and values (Uint32, cols + 1). */
+  start: number;
+  /** Row ids per column, rows ascending (Uint32, one per non-zero). */
+  rowIds: number;
+  /** The weights in the same order (Float64). */
+  values: number;
+  /** The first column of each block and the end (Uint32, blocks + 1). */
+  blockStart: number;
+  /** Per row, the rescaled rows' two factors side by side (Float64, 2 per row). */
+  rowChange: number;
+  /** The mask the open gather skips (Uint8, one per column). */
+  mask: number;
+  /** Per column, the gathered Σ w·Δinv and Σ w²·Δ(1/norm²) side by side (Float64, 2 per column). */
+  out: number;
+  bytes: number;
+}
+
+/** The layout of a gather's memory (each array on a 64-byte line). */
+export function gatherLayout(rows: number, cols: number, nnz: number, blocks: number): GatherLayout {
+  let at = 0;
+  const take = (bytes: number): number => {
+    const start = at;
+    at += Math.ceil(bytes / 64) * 64;
+    return start;
+  };
+  const start = take(4 * (cols + 1));
+  const rowIds = take(4 * nnz);
+  const values = take(8 * nnz);
+  const blockStart = take(4 * (blocks + 1));
+  const rowChange = take(8 * 2 * rows);
+  const mask = take(cols);
+  const out = take(8 * 2 * cols);
+  return { start, rowIds, values, blockStart, rowChange, mask, out, bytes: at };
+}
+
+interface ColumnGatherExports {
+  layout(start: number, rowIds: number, values: number, rowChange: number, mask: number, out: number): void;
+  gather(t: number, from: number, to: number): void;
 }
 
 // Slots of the control array.
@@ -56,6 +102,10 @@ const GATHER_BLOCKS = 64;
  * gathering every block (gather without a ticket), which is what the one-thread what-if does.
  * Claims work as in SharedRowSweep: a compare-and-swap on one word holding the ticket and the next
  * block, so a helper late for its gather can never claim a block of the next one.
+ * The columns are gathered in WebAssembly (column-gather.wat: the same additions in the same order,
+ * so the same bits, at about half the CPU of V8's code for the loop; docs/performance.md), each
+ * thread with its own instance over the one shared memory that holds every array here; where no
+ * such memory or module can be had, gatherColumnChanges gathers them.
  */
 export class SharedColumnGather {
   readonly start: Uint32Array;
@@ -68,42 +118,51 @@ export class SharedColumnGather {
   private readonly mask: Uint8Array;
   private readonly out: Float64Array;
   private readonly control: Int32Array;
+  /** This thread's instance of the WebAssembly gather over `buffers.memory` (null: JavaScript; undefined: not yet made). */
+  private wasm: ColumnGatherExports | null | undefined;
 
   private constructor(readonly buffers: SharedColumnGatherBuffers) {
-    this.start = new Uint32Array(buffers.start);
-    this.rowIds = new Uint32Array(buffers.rowIds);
-    this.values = new Float64Array(buffers.values);
-    this.blockStart = new Uint32Array(buffers.blockStart);
-    this.rowChange = new Float64Array(buffers.rowChange);
-    this.mask = new Uint8Array(buffers.mask);
-    this.out = new Float64Array(buffers.out);
+    const { rows, cols, nnz, blocks, buffer } = buffers;
+    const at = gatherLayout(rows, cols, nnz, blocks);
+    this.start = new Uint32Array(buffer, at.start, cols + 1);
+    this.rowIds = new Uint32Array(buffer, at.rowIds, nnz);
+    this.values = new Float64Array(buffer, at.values, nnz);
+    this.blockStart = new Uint32Array(buffer, at.blockStart, blocks + 1);
+    this.rowChange = new Float64Array(buffer, at.rowChange, 2 * rows);
+    this.mask = new Uint8Array(buffer, at.mask, cols);
+    this.out = new Float64Array(buffer, at.out, 2 * cols);
     this.control = new Int32Array(buffers.control);
-    this.blocks = this.blockStart.length - 1;
+    this.blocks = blocks;
   }
 
   /**
    * Shared memory for the column postings of a rows × cols matrix with `nnz` non-zeros; the
-   * caller fills `start`, `rowIds` and `values`, then calls `divide`.
+   * caller fills `start`, `rowIds` and `values`, then calls `divide`. With `webAssembly` (and the
+   * module at hand, and the arrays within a WebAssembly memory's 4 GiB) the columns are gathered
+   * in WebAssembly, else in JavaScript: the same bits.
    */
-  static create(rows: number, cols: number, nnz: number): SharedColumnGather {
+  static create(rows: number, cols: number, nnz: number, webAssembly = true): SharedColumnGather {
     const blocks = Math.max(1, Math.min(GATHER_BLOCKS, cols));
-    return new SharedColumnGather({
-      rows,
-      cols,
-      start: new SharedArrayBuffer(4 * (cols + 1)),
-      rowIds: new SharedArrayBuffer(4 * nnz),
-      values: new SharedArrayBuffer(8 * nnz),
-      blockStart: new SharedArrayBuffer(4 * (blocks + 1)),
-      rowChange: new SharedArrayBuffer(8 * 2 * rows),
-      mask: new SharedArrayBuffer(cols),
-      out: new SharedArrayBuffer(8 * 2 * cols),
-      control: new SharedArrayBuffer(4 * CONTROL_SLOTS),
-    });
+    const layout = gatherLayout(rows, cols, nnz, blocks);
+    let memory: WebAssembly.Memory | null = null;
+    const pages = Math.max(1, Math.ceil(layout.bytes / 65536));
+    try {
+      if (webAssembly && pages <= 65536 && columnGatherModule() !== null) memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+    } catch {
+      memory = null;
+    }
+    const buffer = memory !== null ? (memory.buffer as SharedArrayBuffer) : new SharedArrayBuffer(layout.bytes);
+    return new SharedColumnGather({ rows, cols, nnz, blocks, memory, buffer, control: new SharedArrayBuffer(4 * CONTROL_SLOTS) });
   }
 
   /** The same shared memory seen from another thread. */
   static from(buffers: SharedColumnGatherBuffers): SharedColumnGather {
     return new SharedColumnGather(buffers);
+  }
+
+  /** Whether this thread gathers in WebAssembly (for the tests and the benchmark). */
+  get inWebAssembly(): boolean {
+    return this.exports() !== null;
   }
 
   /** Sets the blocks' column bounds from the filled `start`: about equal numbers of entries. */
@@ -213,7 +272,25 @@ export class SharedColumnGather {
   }
 
   private block(b: number, t: number): void {
-    gatherColumnChanges(this.start, this.rowIds, this.values, this.rowChange, this.mask, t, this.out, this.blockStart[b]!, this.blockStart[b + 1]!);
+    const wasm = this.exports();
+    if (wasm !== null) wasm.gather(t, this.blockStart[b]!, this.blockStart[b + 1]!);
+    else gatherColumnChanges(this.start, this.rowIds, this.values, this.rowChange, this.mask, t, this.out, this.blockStart[b]!, this.blockStart[b + 1]!);
+  }
+
+  /** This thread's WebAssembly gather over the shared memory, made at its first use; null where there is none. */
+  private exports(): ColumnGatherExports | null {
+    if (this.wasm === undefined) {
+      const { memory, rows, cols, nnz, blocks } = this.buffers;
+      const module = memory !== null ? columnGatherModule() : null;
+      if (module === null || memory === null) this.wasm = null;
+      else {
+        const wasm = new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as ColumnGatherExports;
+        const at = gatherLayout(rows, cols, nnz, blocks);
+        wasm.layout(at.start, at.rowIds, at.values, at.rowChange, at.mask, at.out);
+        this.wasm = wasm;
+      }
+    }
+    return this.wasm;
   }
 
   /** The next block of gather `ticket`, claimed; −1 when none is left or another gather is open. */
@@ -229,7 +306,8 @@ export class SharedColumnGather {
 
 /**
  * For the kept columns u ≠ t in [from, to): Σ w·Δinv and Σ w²·Δ(1/norm²) down the column, rows
- * ascending, into out[2u] and out[2u + 1].
+ * ascending, into out[2u] and out[2u + 1]. column-gather.wat does the same, operation for
+ * operation: a change here is made there too (test/what-if-column-gather-wasm.test.ts).
  */
 function gatherColumnChanges(start: Uint32Array, rows: Uint32Array, values: Float64Array, rowChange: Float64Array, mask: Uint8Array, t: number, out: Float64Array, from: number, to: number): void {
   for (let u = from; u < to; u++) {
