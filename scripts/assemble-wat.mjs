@@ -13,6 +13,7 @@ const engine = (path) => fileURLToPath(new URL(`../extension/src/engine/${path}`
 export const ENGINE_WAT = {
   LOUDWORD_SWEEP_ROWS_WASM: engine('measures/sweep-rows.wat'),
   LOUDWORD_COLUMN_GATHER_WASM: engine('what-if/column-gather.wat'),
+  LOUDWORD_GRAM_UPDATE_WASM: engine('what-if/gram-update.wat'),
 };
 
 /** A module's bytes, assembled from its text. */

@@ -70,10 +70,10 @@ const entries = [
   { entry: 'webview/src/main.ts', out: 'dist/webview.js', platform: 'browser', format: 'iife' },
 ];
 
-// The engine's WebAssembly (the sampled measures' row sweep, extension/src/engine/measures/
-// sweep-rows.wat; the what-if's column gather, what-if/column-gather.wat), assembled once here
-// and carried in the Node bundles as base64 (a few KB): the extension host, the CLI and the
-// what-if's threads run them; the webview does not.
+// The engine's WebAssembly (scripts/assemble-wat.mjs lists it: the sampled measures' row sweep,
+// the what-if's column gather and dot-product update), assembled once here and carried in the
+// Node bundles as base64 (a few KB): the extension host, the CLI and the what-if's threads run
+// them; the webview does not.
 const wasmModules = {};
 for (const [name, wat] of Object.entries(ENGINE_WAT)) wasmModules[name] = JSON.stringify(Buffer.from(await assembleWat(wat)).toString('base64'));
 

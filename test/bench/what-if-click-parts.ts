@@ -99,8 +99,12 @@ async function time(dir: string, part: string, rounds: number, js: boolean): Pro
     settle = () => sums.settle();
   } else if (part === 'gram') {
     const { IncrementalGram } = (await import(engine('what-if/incremental-gram.ts'))) as typeof import('../../extension/src/engine/what-if/incremental-gram');
+    const { SharedRowSweep } = (await import(engine('measures/shared-row-sweep.ts'))) as typeof import('../../extension/src/engine/measures/shared-row-sweep');
     const Gram = IncrementalGram as unknown as new (...a: unknown[]) => InstanceType<typeof IncrementalGram>;
-    const gram = js ? new Gram(weights, undefined, true, false) : new Gram(weights);
+    // The state in shared memory as the what-if's thread keeps it (SampleSide), with room for its update.
+    const needs = (IncrementalGram as unknown as { storageNeeds?: (rows: Csr) => unknown }).storageNeeds?.(weights);
+    const sweep = (SharedRowSweep.create as (...a: unknown[]) => InstanceType<typeof SharedRowSweep>)(weights.rows, 10, 16, 1, needs);
+    const gram = new Gram(weights, sweep.state(0), true, !js);
     step = (mask, incremental) => {
       const { dots, scale } = gram.scaled(mask, incremental);
       return [dots, scale];

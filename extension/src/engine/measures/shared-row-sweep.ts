@@ -1,5 +1,5 @@
 import { pairShift, reduceSweep, SweepRows, type SampleRowMeasures, type SweepOutputs } from './measure-sample-rows';
-import { outputsAt, sweepLayout, sweepMemory, sweepRowsModule, WasmSweepRows, type SweepLayout } from './sweep-rows-wasm';
+import { outputsAt, sweepLayout, sweepMemory, sweepRowsModule, WasmSweepRows, type GramRoom, type SweepLayout } from './sweep-rows-wasm';
 
 /** The shared memory of a SharedRowSweep, to post to the thread that helps. */
 export interface SharedRowSweepBuffers {
@@ -8,6 +8,8 @@ export interface SharedRowSweepBuffers {
   blockRows: number;
   /** How many states (dot products m×m and row scales m) the memory holds. */
   states: number;
+  /** Room for the states' updates beside them (see SweepState), if any. */
+  gram?: GramRoom;
   control: SharedArrayBuffer;
   shift: SharedArrayBuffer;
   /**
@@ -38,6 +40,21 @@ const OWNER = 0;
 const HELPER = 1;
 
 /**
+ * One state of a SharedRowSweep: the dot products and row scales a sweep reads; where the memory
+ * was made with room for them (SharedRowSweep.create's `gram`), the state's shared-term counts and
+ * the sample's postings (one copy for every state) as IncrementalGram keeps them, and the
+ * WebAssembly memory all of them are in, so that the state's update runs there (gram-update.wat).
+ */
+export interface SweepState {
+  dots: Float64Array;
+  scale: Float64Array;
+  counts?: Uint16Array | Uint32Array;
+  postPos?: Uint32Array;
+  postVal?: Float64Array;
+  memory?: WebAssembly.Memory;
+}
+
+/**
  * One sweep of the sampled measures (measureSampleRows' rows, in blocks) shared by two threads:
  * the owner (the what-if's sample thread) opens it under a ticket once its dot products are up
  * to date, and it and a helper (the review's thread, once its exact sums are done) claim blocks
@@ -56,27 +73,39 @@ export class SharedRowSweep {
   private readonly shift: Float64Array;
   private readonly valid: Uint8Array;
   private readonly out: SweepOutputs;
-  private readonly grams: Array<{ dots: Float64Array; scale: Float64Array }>;
+  private readonly grams: SweepState[];
   private readonly layout: SweepLayout;
   /** The WebAssembly rows of the owner's sweeps and of the helper's (each its own scratch); null: JavaScript. */
   private wasmRows: [WasmSweepRows | null | undefined, WasmSweepRows | null | undefined] = [undefined, undefined];
   readonly blocks: number;
 
   private constructor(readonly buffers: SharedRowSweepBuffers) {
-    const { m, k, blockRows, buffer } = buffers;
+    const { m, k, blockRows, buffer, gram, memory } = buffers;
     this.control = new Int32Array(buffers.control);
     this.shift = new Float64Array(buffers.shift);
     this.blocks = Math.ceil(m / blockRows);
-    this.layout = sweepLayout(m, k, this.blocks, buffers.states, 2);
+    this.layout = sweepLayout(m, k, this.blocks, buffers.states, 2, gram);
     this.valid = new Uint8Array(buffer, this.layout.valid, m);
     this.out = outputsAt(buffer, this.layout);
-    this.grams = this.layout.states.map((g) => ({ dots: new Float64Array(buffer, g.dots, m * m), scale: new Float64Array(buffer, g.scale, m) }));
+    const { postPos, postVal } = this.layout;
+    this.grams = this.layout.states.map((g) => {
+      const state: SweepState = { dots: new Float64Array(buffer, g.dots, m * m), scale: new Float64Array(buffer, g.scale, m) };
+      if (gram === undefined) return state;
+      state.counts = gram.countBytes === 2 ? new Uint16Array(buffer, g.counts, m * m) : new Uint32Array(buffer, g.counts, m * m);
+      state.postPos = new Uint32Array(buffer, postPos, gram.postings);
+      state.postVal = new Float64Array(buffer, postVal, gram.postings);
+      if (memory !== null) state.memory = memory;
+      return state;
+    });
   }
 
-  /** Shared memory for sweeps over m rows and k neighbours, reading one of `states` m×m states. */
-  static create(m: number, k: number, blockRows: number, states = 2): SharedRowSweep {
+  /**
+   * Shared memory for sweeps over m rows and k neighbours, reading one of `states` m×m states;
+   * with `gram`, room beside each state for its update (SweepState).
+   */
+  static create(m: number, k: number, blockRows: number, states = 2, gram?: GramRoom): SharedRowSweep {
     if (!(blockRows >= 1) || Math.ceil(m / blockRows) >= 0x10000) throw new RangeError(`SharedRowSweep: ${m} rows in blocks of ${blockRows}`);
-    const layout = sweepLayout(m, k, Math.ceil(m / blockRows), states, 2);
+    const layout = sweepLayout(m, k, Math.ceil(m / blockRows), states, 2, gram);
     let memory: WebAssembly.Memory | null = null;
     try {
       // A WebAssembly memory holds at most 4 GiB: beyond (m above ~16,000) the rows run in JavaScript.
@@ -85,7 +114,7 @@ export class SharedRowSweep {
       memory = null;
     }
     const buffer = memory !== null ? (memory.buffer as SharedArrayBuffer) : new SharedArrayBuffer(layout.bytes);
-    return new SharedRowSweep({ m, k, blockRows, states, control: new SharedArrayBuffer(4 * CONTROL_SLOTS), shift: new SharedArrayBuffer(8), memory, buffer });
+    return new SharedRowSweep({ m, k, blockRows, states, ...(gram === undefined ? {} : { gram }), control: new SharedArrayBuffer(4 * CONTROL_SLOTS), shift: new SharedArrayBuffer(8), memory, buffer });
   }
 
   /** The same shared memory seen from another thread. */
@@ -93,8 +122,8 @@ export class SharedRowSweep {
     return new SharedRowSweep(buffers);
   }
 
-  /** State `index`'s dot products and row scales, for the owner to keep its state in. */
-  state(index: number): { dots: Float64Array; scale: Float64Array } {
+  /** State `index`'s arrays, for the owner to keep its state in. */
+  state(index: number): SweepState {
     return this.grams[index]!;
   }
 

@@ -44,15 +44,29 @@ export interface SweepLayout {
   outputs: Record<keyof Omit<SweepOutputs, 'knn'> | 'neighbors' | 'sims', number>;
   valid: number;
   scratch: ScratchAt[];
-  states: Array<{ dots: number; scale: number }>;
+  /** Per state: its dot products and row scales, and with `gram` its shared-term counts (else −1). */
+  states: Array<{ dots: number; scale: number; counts: number }>;
+  /** With `gram`, the sample's postings the what-if's updates read (IncrementalGram), else −1. */
+  postPos: number;
+  postVal: number;
+}
+
+/**
+ * Room a what-if's states need beside their dot products, so that their update can run in
+ * WebAssembly on the same memory (IncrementalGram.storageNeeds): bytes per shared-term count (2 or
+ * 4) and the sample's postings.
+ */
+export interface GramRoom {
+  countBytes: 2 | 4;
+  postings: number;
 }
 
 /**
  * The layout of a sweep over m rows and k neighbours in `blocks` blocks, with scratch for
- * `threads` threads and room for `states` states. Each array starts on a 64-byte line, so the
- * threads' scratch never shares a cache line.
+ * `threads` threads and room for `states` states (with `gram`, room for their updates too). Each
+ * array starts on a 64-byte line, so the threads' scratch never shares a cache line.
  */
-export function sweepLayout(m: number, k: number, blocks: number, states: number, threads: number): SweepLayout {
+export function sweepLayout(m: number, k: number, blocks: number, states: number, threads: number, gram?: GramRoom): SweepLayout {
   let at = 0;
   const take = (bytes: number): number => {
     const start = at;
@@ -85,8 +99,10 @@ export function sweepLayout(m: number, k: number, blocks: number, states: number
     buckets: take(4 * RANK_BUCKETS),
     counts: take(4 * 4 * SIMILARITY_BINS),
   }));
-  const stateAt = Array.from({ length: states }, () => ({ dots: take(8 * m * m), scale: take(8 * m) }));
-  return { m, k, blocks, bytes: at, outputs, valid, scratch, states: stateAt };
+  const stateAt = Array.from({ length: states }, () => ({ dots: take(8 * m * m), scale: take(8 * m), counts: gram === undefined ? -1 : take(gram.countBytes * m * m) }));
+  const postPos = gram === undefined ? -1 : take(4 * gram.postings);
+  const postVal = gram === undefined ? -1 : take(8 * gram.postings);
+  return { m, k, blocks, bytes: at, outputs, valid, scratch, states: stateAt, postPos, postVal };
 }
 
 /** A shared memory that holds `layout`. */

@@ -1,5 +1,33 @@
 import type { Csr } from '../matrix/csr';
+import type { GramRoom } from '../measures/sweep-rows-wasm';
+import { assembledModule } from '../wasm/assembled-module';
 import { sameMask } from './incremental-term-sums';
+
+/** Defined by scripts/build.mjs in the Node bundles: gram-update.wat's bytes, base64. */
+declare const LOUDWORD_GRAM_UPDATE_WASM: string | undefined;
+
+/** The compiled dot-product update, or null where it cannot be had (the update then runs in JavaScript). */
+export function gramUpdateModule(): WebAssembly.Module | null {
+  return assembledModule('what-if/gram-update.wat', typeof LOUDWORD_GRAM_UPDATE_WASM !== 'undefined' ? LOUDWORD_GRAM_UPDATE_WASM : undefined);
+}
+
+/**
+ * Where a state's arrays live when not in arrays of its own: the dot products and row scales
+ * (SharedRowSweep's state, which another thread sweeps), and, for the update to run in
+ * WebAssembly, the shared-term counts and the sample's postings in the same WebAssembly memory.
+ */
+export interface GramStorage {
+  dots: Float64Array;
+  scale: Float64Array;
+  counts?: Uint16Array | Uint32Array;
+  postPos?: Uint32Array;
+  postVal?: Float64Array;
+  memory?: WebAssembly.Memory;
+}
+
+interface GramUpdateExports {
+  update(dots: number, counts: number, wide: number, pos: number, val: number, m: number, from: number, to: number, aFrom: number, aTo: number, sign: number): void;
+}
 
 /**
  * The sample's m×m cosine matrix under a what-if, kept up to date across toggles instead of
@@ -30,6 +58,8 @@ export class IncrementalGram {
   private readonly postVal: Float64Array;
   /** Σ_t |P_s(t)|²/2: the multiply-adds of a full build, to choose between update and rebuild. */
   private readonly fullCost: number;
+  /** The update's pair loop in WebAssembly over the storage's memory, or null (JavaScript). */
+  private readonly wasm: GramUpdateExports | null;
   private ready = false;
   private updatedPairs = 0;
   /** D of full builds (the review's baseline and the latest Report figure), restored bit for bit. */
@@ -44,8 +74,12 @@ export class IncrementalGram {
 
   constructor(
     readonly rows: Csr,
-    /** Where D and the row scales live (m×m and m entries; shared memory for SampleSide), else new arrays. */
-    storage?: { dots: Float64Array; scale: Float64Array },
+    /**
+     * Where D and the row scales live (m×m and m entries; shared memory for SampleSide), else new
+     * arrays; with the counts and postings there too (storageNeeds), in a WebAssembly memory, the
+     * update's pair loop runs in WebAssembly (gram-update.wat: the same bits).
+     */
+    private readonly storage?: GramStorage,
     /**
      * Whether the state serves what-ifs after its full builds: keeps them for restoring, and
      * counts the shared terms that updates need as it builds. Without (a review nobody will ask
@@ -54,6 +88,8 @@ export class IncrementalGram {
      * (the counts are a second m×m array written in both halves).
      */
     private readonly forWhatIf = true,
+    /** Whether the update may run in WebAssembly (false: the TypeScript, for the tests and the benchmark). */
+    private readonly webAssembly = true,
   ) {
     const m = rows.rows;
     this.m = m;
@@ -61,7 +97,10 @@ export class IncrementalGram {
     for (let i = 0; i < m; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
     if (storage !== undefined && (storage.dots.length !== m * m || storage.scale.length !== m)) throw new RangeError(`IncrementalGram: storage is not for ${m} rows`);
     this.dots = storage?.dots ?? new Float64Array(m * m);
-    this.shared = longest < 0xffff ? new Uint16Array(m * m) : new Uint32Array(m * m);
+    const countBytes = longest < 0xffff ? 2 : 4;
+    const counts = storage?.counts;
+    if (counts !== undefined && (counts.length !== m * m || counts.BYTES_PER_ELEMENT !== countBytes)) throw new RangeError(`IncrementalGram: the storage's counts are not for ${m} rows of up to ${longest} terms`);
+    this.shared = counts ?? (countBytes === 2 ? new Uint16Array(m * m) : new Uint32Array(m * m));
     this.inv = storage?.scale ?? new Float64Array(m);
     this.mask = new Uint8Array(rows.cols);
 
@@ -75,8 +114,11 @@ export class IncrementalGram {
       start[t + 1] += start[t]!;
     }
     const fill = start.slice(0, cols);
-    this.postPos = new Uint32Array(start[cols]!);
-    this.postVal = new Float64Array(start[cols]!);
+    const postings = start[cols]!;
+    if ((storage?.postPos !== undefined && storage.postPos.length !== postings) || (storage?.postVal !== undefined && storage.postVal.length !== postings)) throw new RangeError(`IncrementalGram: the storage's postings are not ${postings}`);
+    // A twin over the same storage writes the same postings again: harmless, and it is made once.
+    this.postPos = storage?.postPos ?? new Uint32Array(postings);
+    this.postVal = storage?.postVal ?? new Float64Array(postings);
     for (let i = 0; i < m; i++) {
       for (let p = rows.indptr[i]!, end = rows.indptr[i + 1]!; p < end; p++) {
         const x = rows.data[p]!;
@@ -88,6 +130,39 @@ export class IncrementalGram {
     }
     this.start = start;
     this.fullCost = cost;
+    this.wasm = this.updateInWebAssembly();
+  }
+
+  /**
+   * What a state over `rows` needs beside its dot products for its update to run in WebAssembly
+   * in the same memory (SharedRowSweep.create's room): the bytes of a shared-term count and the
+   * number of sample postings (non-zero entries).
+   */
+  static storageNeeds(rows: Csr): GramRoom {
+    let longest = 0;
+    for (let i = 0; i < rows.rows; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
+    let postings = 0;
+    for (let p = 0, nnz = rows.indptr[rows.rows]!; p < nnz; p++) if (rows.data[p] !== 0) postings++;
+    return { countBytes: longest < 0xffff ? 2 : 4, postings };
+  }
+
+  /** The WebAssembly update, when the storage holds every array it reads in one WebAssembly memory. */
+  private updateInWebAssembly(): GramUpdateExports | null {
+    const memory = this.storage?.memory;
+    if (!this.webAssembly || memory === undefined || this.storage?.counts !== this.shared || this.storage.postPos !== this.postPos || this.storage.postVal !== this.postVal) return null;
+    if ([this.dots, this.shared, this.postPos, this.postVal].some((a) => a.buffer !== memory.buffer)) return null;
+    const module = gramUpdateModule();
+    if (module === null) return null;
+    try {
+      return new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as GramUpdateExports;
+    } catch {
+      return null;
+    }
+  }
+
+  /** Whether this state's updates run in WebAssembly (for the tests and the benchmark). */
+  get inWebAssembly(): boolean {
+    return this.wasm !== null;
   }
 
   /**
@@ -113,8 +188,8 @@ export class IncrementalGram {
    * answers are computed in it (copyFrom, then scaled) so that the state the clicks walk is left
    * as it was, and adopted by swapping the two (SampleSide).
    */
-  twin(storage?: { dots: Float64Array; scale: Float64Array }): IncrementalGram {
-    const twin = new IncrementalGram(this.rows, storage, this.forWhatIf);
+  twin(storage?: GramStorage): IncrementalGram {
+    const twin = new IncrementalGram(this.rows, storage, this.forWhatIf, this.webAssembly);
     twin.checkpoints = this.checkpoints;
     return twin;
   }
@@ -298,22 +373,25 @@ export class IncrementalGram {
   private update(changed: number[], removed: Uint8Array, cost: number, interrupt?: () => void): void {
     this.keepCheckpoint();
     if (!this.sharedValid) this.countShared();
-    const { m, dots, shared, postPos, postVal } = this;
+    const { m, dots, shared, postPos, postVal, wasm } = this;
     const touched = new Uint8Array(m);
     for (const t of changed) {
       const sign = removed[t] !== 0 ? -1 : 1;
       const from = this.start[t]!;
       const to = this.start[t + 1]!;
-      for (let a = from; a < to; a++) {
-        if (interrupt !== undefined && ((a - from) & 31) === 0) {
-          try {
-            interrupt();
-          } catch (e) {
-            // Half-updated: unusable until the next copyFrom (a full build first otherwise).
-            this.ready = false;
-            throw e;
-          }
+      if (wasm !== null) {
+        // The same pairs in the same order, 32 postings (rows) per call, with the interrupt between.
+        const wide = shared.BYTES_PER_ELEMENT === 4 ? 1 : 0;
+        for (let a = from; a < to; a += 32) {
+          if (interrupt !== undefined) this.interrupted(interrupt);
+          const aTo = Math.min(to, a + 32);
+          for (let x = a; x < aTo; x++) touched[postPos[x]!] = 1;
+          wasm.update(dots.byteOffset, shared.byteOffset, wide, postPos.byteOffset, postVal.byteOffset, m, from, to, a, aTo, sign);
         }
+        continue;
+      }
+      for (let a = from; a < to; a++) {
+        if (interrupt !== undefined && ((a - from) & 31) === 0) this.interrupted(interrupt);
         const i = postPos[a]!;
         touched[i] = 1;
         const wi = sign * postVal[a]!;
@@ -349,6 +427,15 @@ export class IncrementalGram {
     this.lastStep = { kind: 'incremental', pairs: cost };
   }
 
+  /** Calls an update's `interrupt`; when it throws, the half-updated state is unusable until the next copyFrom (a full build first otherwise). */
+  private interrupted(interrupt: () => void): void {
+    try {
+      interrupt();
+    } catch (e) {
+      this.ready = false;
+      throw e;
+    }
+  }
 }
 
 /**

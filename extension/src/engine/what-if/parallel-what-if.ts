@@ -6,6 +6,7 @@ import { SharedRowSweep } from '../measures/shared-row-sweep';
 import { PendingReplies } from '../threads/pending-replies';
 import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
+import { IncrementalGram } from './incremental-gram';
 import { WHAT_IF_BLOCK_ROWS } from './sample-side';
 import { SharedColumnGather } from './shared-column-gather';
 import { SpeculationStopped, stopOnClick } from './speculation-stopped';
@@ -70,7 +71,8 @@ export class ParallelWhatIf {
   static open(lab: DistanceLab, baselineNeighbors: Uint32Array | null, opening: Uint8Array, script: string | null = threadScript(__dirname, 'what-if-thread.js', 'sample-thread.ts')): ParallelWhatIf | null {
     if (script === null) return null;
     const { rows, cols, indptr, indices, data } = lab.sampleRows;
-    const sweep = SharedRowSweep.create(rows, lab.k, WHAT_IF_BLOCK_ROWS);
+    // With room for the thread's states' updates beside their products (IncrementalGram.storageNeeds).
+    const sweep = SharedRowSweep.create(rows, lab.k, WHAT_IF_BLOCK_ROWS, 2, IncrementalGram.storageNeeds(lab.sampleRows));
     const gather = lab.exactGather();
     const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors, sweep: sweep.buffers, ...(gather === null ? {} : { gather }) };
     const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }), sweep, gather === null ? null : SharedColumnGather.from(gather));

@@ -17,7 +17,9 @@ export interface SampleSideInput {
   /**
    * Shared memory for the sweep over the dot products (SharedRowSweep.create(m, k,
    * WHAT_IF_BLOCK_ROWS)), so that another thread can take part in it: the dot products live
-   * there. Without it everything stays in this thread; the answers are the same bits.
+   * there, and, made with room for them (IncrementalGram.storageNeeds), the shared-term counts and
+   * the postings the updates read, which then run in WebAssembly. Without it everything stays in
+   * this thread; the answers are the same bits.
    */
   sweep?: SharedRowSweepBuffers;
 }
