@@ -1,8 +1,9 @@
 // Writes samples/support-tickets.csv: an invented corpus for the demo and the editor tests.
 // Scenario (ours): Tallowby, a made-up maker of smart heating controllers, exports its support
 // inbox. Every message shares helpdesk boilerplate (greetings, sign-offs, the app's footer,
-// ticket references) — the loud terms a review should find — while the topic words carry the
-// neighbour signal. Seeded, so the file is the same on every machine.
+// ticket references) and the grammar words of sentences about nothing in particular, while the
+// topic words carry the neighbour signal. It shows a review at work and judges nothing (the
+// development corpora of test/corpora/ do). Seeded, so the file is the same on every machine.
 import { writeFileSync } from 'node:fs';
 import { tsImport } from 'tsx/esm/api';
 
@@ -87,6 +88,10 @@ function ticket(topic, i) {
   if (chance(0.4)) body.push(pick(topics[topic])());
   // Real inboxes mix subjects: one ticket in eight also mentions another topic in passing.
   if (chance(0.12)) body.push(pick(topics[pick(topicNames)])());
+  // People frame a question in sentences that are about nothing in particular; they share the
+  // grammar words of every topic, as in a real inbox.
+  if (chance(0.5)) body.unshift(pick(['Not sure if this is the right place to ask, but here goes.', 'I hope someone can help me with this.', 'Sorry to bother you again about this.', 'I am writing because I have a problem.', 'I tried the help pages first but found nothing there.', 'This has been going on for a while now.']));
+  if (chance(0.5)) body.push(pick(['Is this something you can fix from your side?', 'Could you please let me know what I should do next?', 'I would be grateful if you could look into it as soon as possible.', 'Is there anything else I can try before I send it back?', 'Let me know if you need any more details from me.', 'I have been a customer for years and this is the first time it has happened.']));
   if (chance(0.35)) body.push(pick(['I have already tried restarting everything.', 'This is urgent as it is very cold.', 'I have attached a photo.', 'My order number is in the previous email.', 'Please call me back.']));
   const parts = [];
   if (chance(0.85)) parts.push(pick(greetings));
