@@ -6,7 +6,8 @@ import * as path from 'node:path';
 import { formatMarkdown } from '../extension/src/cli/format-markdown';
 import { formatText } from '../extension/src/cli/format-text';
 import type { Report } from '../extension/src/protocol';
-import { verdictCaution } from '../extension/src/verdict-wording';
+import { formatSignedChange } from '../extension/src/number-format';
+import { estimateDigits, verdictCaution } from '../extension/src/verdict-wording';
 
 function withVerdict(): Report {
   const report = JSON.parse(readFileSync(path.join(__dirname, 'fixtures', 'report-small.json'), 'utf8')) as Report;
@@ -72,5 +73,21 @@ describe('verdict in the CLI outputs', () => {
     const md = formatMarkdown(withVerdict()).split('\n');
     assert.match(md[2]!, /^\*\*Verdict: the suggested list helps\.\*\* These 3 terms raise/);
     assert.match(md[4]!, /^- Hubness skew rose/);
+  });
+});
+
+describe('the digits of the verdict figure and its interval', () => {
+  it('a bound that is not zero is never written as zero (it is why the verdict is not "no clear change")', () => {
+    // The demo's interval once read "+0.000 to +0.007" beside "helps" (low was 0.00033).
+    assert.equal(estimateDigits('label precision@10', 0.00033, 0.0066), 4);
+    assert.equal(formatSignedChange(0.00033, estimateDigits('label precision@10', 0.00033, 0.0066)), '+0.0003');
+    assert.equal(estimateDigits('label precision@10', -0.0066, -0.00004), 5);
+    // Bounds that round to something other than zero keep the measure's usual digits.
+    assert.equal(estimateDigits('label precision@10', 0.02, 0.08), 3);
+    assert.equal(estimateDigits('neighbour standout', 0.05, 0.4), 2);
+    // A bound that is exactly zero, or not a number, asks for no extra digits; five at most.
+    assert.equal(estimateDigits('label precision@10', 0, 0.01), 3);
+    assert.equal(estimateDigits('label precision@10', Number.NaN, 0.01), 3);
+    assert.equal(estimateDigits('label precision@10', 1e-9, 0.01), 5);
   });
 });

@@ -15,6 +15,19 @@ export function changeDigits(measure: string): number {
 }
 
 /**
+ * Digits for a change and its interval read together: changeDigits(measure), or more while a
+ * bound other than zero would be written as zero (at most 5). "+0.003 (interval +0.000 to
+ * +0.007)" reads as an interval that touches zero when it does not (it is why the verdict says
+ * "helps"); "+0.0031 (+0.0003 to +0.0066)" does not.
+ */
+export function estimateDigits(measure: string, ...bounds: number[]): number {
+  let digits = changeDigits(measure);
+  const roundsToZero = (x: number): boolean => x !== 0 && Number.isFinite(x) && Math.abs(x) < 0.5 * 10 ** -digits;
+  while (digits < 5 && bounds.some(roundsToZero)) digits++;
+  return digits;
+}
+
+/**
  * The judgement in a few words, lower case ("the suggested list helps"). Without labels the
  * verdict rests on neighbour standout, which rises whenever common words are removed, also where
  * label precision falls (docs/methods.md §9): the words then say what was measured, not "helps".

@@ -4,7 +4,7 @@
 
 import type { Report, Verdict } from '../../extension/src/protocol';
 import { formatShare, formatSignedChange } from '../../extension/src/number-format';
-import { changeDigits, outcomeWords } from '../../extension/src/verdict-wording';
+import { estimateDigits, outcomeWords } from '../../extension/src/verdict-wording';
 import { el, type Child } from './create-element';
 
 /** How many of the loudest terms the summary names. */
@@ -34,9 +34,10 @@ function renderVerdict(v: Verdict): { lead: Child[]; caveats: HTMLElement | null
   const out: Child[] = [];
   if (v.estimate) {
     // The one judgement first (the CLI leads with the same words), then the figure it rests on,
-    // with the digits the headline uses: three for a precision, two for neighbour standout.
+    // with the digits the headline uses: three for a precision, two for neighbour standout, more
+    // when a bound would otherwise read as zero.
     const e = v.estimate;
-    const digits = changeDigits(e.measure);
+    const digits = estimateDigits(e.measure, e.low, e.high);
     const signed = (x: number) => formatSignedChange(x, digits);
     const words = outcomeWords(v);
     const judged = words.charAt(0).toUpperCase() + words.slice(1);

@@ -1,6 +1,6 @@
 import { formatCount, formatSignedChange as signed } from '../../number-format';
 import type { Measures, Verdict } from '../../protocol';
-import { changeDigits } from '../../verdict-wording';
+import { estimateDigits } from '../../verdict-wording';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
@@ -97,7 +97,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
   const searched = useLabels && corpus !== null ? { neighborsAmong: corpus.among, neighborsFor: corpus.queries } : {};
   const estimate = { measure, change: boot.change, low: boot.low, high: boot.high, draws: VERDICT_DRAWS, method: 'bootstrap' as const, ...searched };
-  const digits = changeDigits(measure);
+  const digits = estimateDigits(measure, boot.low, boot.high);
   const sampled = lab.sampleRows.rows;
   const fewer = useLabels && corpus !== null && corpus.queries < sampled;
   // boot.queries: the documents with a label and a neighbour in both settings, of those searched for.
