@@ -31,6 +31,9 @@ describe('explainTerm', () => {
     assert.match(explainTerm(row('they', 'suggested'), 100, g), /^pronoun in 60% of documents, spread evenly \(burstiness 0\.12 ± 0\.03/);
     const b: Decision = { suggested: false, reason: 'bursty', signal: { ...signal, burstiness: 6 }, cls: 'pronoun' };
     assert.match(explainTerm(row('she', 'kept'), 100, b), /^kept: pronoun .* clusters in some documents/);
+    // Spread more evenly than chance: written with a real minus, as the measures table writes it.
+    const even: Decision = { ...g, signal: { ...signal, burstiness: -0.25 } };
+    assert.match(explainTerm(row('they', 'suggested'), 100, even), /\(burstiness \u22120\.25 ± 0\.03/);
   });
 
   it('explainTerm: markup residue and opinion text say so', () => {

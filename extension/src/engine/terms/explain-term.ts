@@ -1,3 +1,4 @@
+import { withMinus } from '../../number-format';
 import type { TermRow } from '../../protocol';
 import { GROUP_SHARE, type Decision } from './choose-suggestions';
 import type { PriorClass } from './prior-columns';
@@ -29,7 +30,7 @@ export function wordKind(cls: PriorClass | null): string | null {
 
 function burst(d: Decision): string {
   const b = d.signal.burstiness;
-  return Number.isFinite(b) ? `burstiness ${b.toFixed(2)} ± ${d.signal.burstinessSe.toFixed(2)}, where 0 means spread like chance` : 'burstiness unknown';
+  return Number.isFinite(b) ? `burstiness ${withMinus(b.toFixed(2))} ± ${d.signal.burstinessSe.toFixed(2)}, where 0 means spread like chance` : 'burstiness unknown';
 }
 
 /**

@@ -1,4 +1,4 @@
-import { formatCount, formatSignedChange as signed } from '../../number-format';
+import { formatCount, formatSignedChange as signed, withMinus } from '../../number-format';
 import type { Measures, Verdict } from '../../protocol';
 import { estimateDigits } from '../../verdict-wording';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
@@ -30,8 +30,9 @@ export interface JudgeInput {
 /** Per group kept as light (choose-suggestions.ts, GROUP_SHARE): its joint share. */
 export type LightGroups = Partial<Record<SuggestionGroup, number>>;
 
-const f2 = (x: number): string => x.toFixed(2);
-const f3 = (x: number): string => x.toFixed(3);
+// A real minus, as in the measures table (number-format.ts).
+const f2 = (x: number): string => withMinus(x.toFixed(2));
+const f3 = (x: number): string => withMinus(x.toFixed(3));
 const pct = (x: number): string => `${Math.round(x * 100)}%`;
 const pct1 = (x: number): string => `${(x * 100).toFixed(1)}%`;
 
