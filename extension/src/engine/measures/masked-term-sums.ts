@@ -18,12 +18,14 @@ export interface MaskedTermSums {
  * each row's kept Σw² is written there too (0 for a row with nothing kept): with them the pass is
  * the whole state of a full pass of the what-if's IncrementalTermSums, which can adopt it.
  */
-export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, rowNorm2: Float64Array | null = null): MaskedTermSums {
+export function maskedTermSums(X: Csr, removed: Uint8Array, withSpread: boolean, rowNorm2: Float64Array | null = null, into?: TermSums): MaskedTermSums {
   const cols = X.cols;
-  const s1 = new Float64Array(cols);
-  const s2 = new Float64Array(cols);
-  const df = new Uint32Array(cols);
-  const sxlogx = new Float64Array(cols);
+  // `into`: arrays of X.cols zeros that the sums are added into (a pass thread's shared answer,
+  // make-passes.ts), instead of fresh ones copied there afterwards.
+  const s1 = into?.s1 ?? new Float64Array(cols);
+  const s2 = into?.s2 ?? new Float64Array(cols);
+  const df = into?.df ?? new Uint32Array(cols);
+  const sxlogx = into?.sxlogx ?? new Float64Array(cols);
   const { indptr, indices, data } = X;
   let rowsWithWeight = 0;
   for (let r = 0; r < X.rows; r++) {
