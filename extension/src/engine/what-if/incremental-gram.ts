@@ -379,6 +379,8 @@ export class IncrementalGram {
       const sign = removed[t] !== 0 ? -1 : 1;
       const from = this.start[t]!;
       const to = this.start[t + 1]!;
+      // The pair loop below and gram-update.wat do the same operations in the same order: a change
+      // to one is made to the other (test/what-if-gram-update-wasm.test.ts).
       if (wasm !== null) {
         // The same pairs in the same order, 32 postings (rows) per call, with the interrupt between.
         const wide = shared.BYTES_PER_ELEMENT === 4 ? 1 : 0;
