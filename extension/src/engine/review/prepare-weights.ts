@@ -2,6 +2,7 @@ import type { EffectiveSettings } from '../../protocol';
 import { stat } from 'node:fs/promises';
 import { buildCountMatrix, countingEncoder, startCountingThreads } from '../matrix/build-count-matrix';
 import type { BatchEncoder, TokenizingThreads } from '../tokenize/batch-encoder';
+import { closeEarlyThreads } from '../tokenize/early-threads';
 import { hasGlob } from '../read/corpus-files';
 import { countEachFile } from '../matrix/count-each-file';
 import { isFileByFile } from '../read/many-files-corpus';
@@ -66,14 +67,21 @@ export function startTokenizing(tokens: EffectiveSettings['tokens'], size: numbe
  * Pass them to startTokenizing, which gives them the settings or closes them.
  */
 export async function prestartTokenizing(file: string, options: { workerScript?: string } = {}): Promise<TokenizingThreads | null> {
-  if (hasGlob(file)) return null;
+  const threads = await threadsFor(file) ? startCountingThreads(options) : null;
+  // Threads the launcher started for this review and nobody took (bin/loudword.js).
+  closeEarlyThreads();
+  return threads;
+}
+
+/** Whether `file` is one plain file large enough for tokenising threads. */
+async function threadsFor(file: string): Promise<boolean> {
+  if (hasGlob(file)) return false;
   try {
     const s = await stat(file);
-    if (!s.isFile() || s.size < IN_THREAD_BYTES) return null;
+    return s.isFile() && s.size >= IN_THREAD_BYTES;
   } catch {
-    return null;
+    return false;
   }
-  return startCountingThreads(options);
 }
 
 /**

@@ -4,6 +4,7 @@ import { createTermCoder, type TokenSettings } from './create-tokenizer';
 import { batchEncoding, type EncodedBatch } from './encode-batch';
 import type { TermCoder } from './term-coder';
 import { PendingReplies } from '../threads/pending-replies';
+import { takeEarlyThreads } from './early-threads';
 import type { TokenizeReply, TokenizeRequest, TokenizeSetup } from './tokenize-messages';
 
 /** Tokenises batches of texts, in this thread or in a pool of worker threads. */
@@ -59,7 +60,7 @@ export interface TokenizingThreads {
  * 2% more CPU than 12, 24 MB the pattern review 2% more (docs/performance.md, "Wink's model
  * reads and the tokenising threads' young generation"). The results do not depend on it.
  */
-const TOKENIZING_HEAP = { maxYoungGenerationSizeMb: 12 };
+const TOKENIZING_HEAP = { maxYoungGenerationSizeMb: 12 }; // bin/loudword.js starts early threads with the same
 
 /**
  * Starts `workers` tokenising threads without settings: each loads the bundle (~0.1-0.3 s)
@@ -76,8 +77,10 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
   let failure: Error | null = null;
   let configured = false;
 
+  // Threads the launcher started before the CLI's bundle was loaded (early-threads.ts), if they are these.
+  const early = takeEarlyThreads(script, workers, TOKENIZING_HEAP.maxYoungGenerationSizeMb);
   for (let w = 0; w < workers; w++) {
-    const worker = new Worker(script, { resourceLimits: TOKENIZING_HEAP });
+    const worker = early?.[w] ?? new Worker(script, { resourceLimits: TOKENIZING_HEAP });
     const waiting = new PendingReplies<EncodedBatch>();
     const fail = (e: Error): void => {
       failure ??= e;
