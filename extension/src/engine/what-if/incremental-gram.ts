@@ -1,4 +1,5 @@
 import type { Csr } from '../matrix/csr';
+import type { SweepState } from '../measures/shared-row-sweep';
 import type { GramRoom } from '../measures/sweep-rows-wasm';
 import { assembledModule } from '../wasm/assembled-module';
 import { sameMask } from './incremental-term-sums';
@@ -12,18 +13,11 @@ export function gramUpdateModule(): WebAssembly.Module | null {
 }
 
 /**
- * Where a state's arrays live when not in arrays of its own: the dot products and row scales
- * (SharedRowSweep's state, which another thread sweeps), and, for the update to run in
- * WebAssembly, the shared-term counts and the sample's postings in the same WebAssembly memory.
+ * Where a state's arrays live when not in arrays of its own: a SharedRowSweep's state (the dot
+ * products and row scales another thread sweeps, and, for the update to run in WebAssembly, the
+ * shared-term counts and the sample's postings in the same WebAssembly memory).
  */
-export interface GramStorage {
-  dots: Float64Array;
-  scale: Float64Array;
-  counts?: Uint16Array | Uint32Array;
-  postPos?: Uint32Array;
-  postVal?: Float64Array;
-  memory?: WebAssembly.Memory;
-}
+export type GramStorage = SweepState;
 
 interface GramUpdateExports {
   update(dots: number, counts: number, wide: number, pos: number, val: number, m: number, from: number, to: number, aFrom: number, aTo: number, sign: number): void;
