@@ -1,5 +1,6 @@
 import { pairShift, reduceSweep, SweepRows, type SampleRowMeasures, type SweepOutputs } from './measure-sample-rows';
-import { outputsAt, sweepLayout, sweepMemory, sweepRowsModule, WasmSweepRows, type GramRoom, type SweepLayout } from './sweep-rows-wasm';
+import { sharedMemoryFor } from '../wasm/shared-memory';
+import { outputsAt, sweepLayout, sweepRowsModule, WasmSweepRows, type GramRoom, type SweepLayout } from './sweep-rows-wasm';
 
 /** The shared memory of a SharedRowSweep, to post to the thread that helps. */
 export interface SharedRowSweepBuffers {
@@ -106,14 +107,8 @@ export class SharedRowSweep {
   static create(m: number, k: number, blockRows: number, states = 2, gram?: GramRoom): SharedRowSweep {
     if (!(blockRows >= 1) || Math.ceil(m / blockRows) >= 0x10000) throw new RangeError(`SharedRowSweep: ${m} rows in blocks of ${blockRows}`);
     const layout = sweepLayout(m, k, Math.ceil(m / blockRows), states, 2, gram);
-    let memory: WebAssembly.Memory | null = null;
-    try {
-      // A WebAssembly memory holds at most 4 GiB: beyond (m above ~16,000) the rows run in JavaScript.
-      if (sweepRowsModule() !== null) memory = sweepMemory(layout);
-    } catch {
-      memory = null;
-    }
-    const buffer = memory !== null ? (memory.buffer as SharedArrayBuffer) : new SharedArrayBuffer(layout.bytes);
+    // Beyond a WebAssembly memory's 4 GiB (m above ~16,000) the rows run in JavaScript.
+    const { memory, buffer } = sharedMemoryFor(layout.bytes, sweepRowsModule() !== null);
     return new SharedRowSweep({ m, k, blockRows, states, ...(gram === undefined ? {} : { gram }), control: new SharedArrayBuffer(4 * CONTROL_SLOTS), shift: new SharedArrayBuffer(8), memory, buffer });
   }
 

@@ -1,4 +1,5 @@
 import { assembledModule } from '../wasm/assembled-module';
+import { lineAllocator, sharedWasmMemory } from '../wasm/shared-memory';
 import { RANK_BUCKETS, type SweepOutputs } from './measure-sample-rows';
 import { SIMILARITY_BINS } from './similarity-histograms';
 
@@ -67,12 +68,8 @@ export interface GramRoom {
  * array starts on a 64-byte line, so the threads' scratch never shares a cache line.
  */
 export function sweepLayout(m: number, k: number, blocks: number, states: number, threads: number, gram?: GramRoom): SweepLayout {
-  let at = 0;
-  const take = (bytes: number): number => {
-    const start = at;
-    at += Math.ceil(bytes / 64) * 64;
-    return start;
-  };
+  const lines = lineAllocator();
+  const take = lines.take;
   const outputs = {
     neighbors: take(4 * m * k),
     sims: take(8 * m * k),
@@ -102,13 +99,12 @@ export function sweepLayout(m: number, k: number, blocks: number, states: number
   const stateAt = Array.from({ length: states }, () => ({ dots: take(8 * m * m), scale: take(8 * m), counts: gram === undefined ? -1 : take(gram.countBytes * m * m) }));
   const postPos = gram === undefined ? -1 : take(4 * gram.postings);
   const postVal = gram === undefined ? -1 : take(8 * gram.postings);
-  return { m, k, blocks, bytes: at, outputs, valid, scratch, states: stateAt, postPos, postVal };
+  return { m, k, blocks, bytes: lines.bytes, outputs, valid, scratch, states: stateAt, postPos, postVal };
 }
 
 /** A shared memory that holds `layout`. */
 export function sweepMemory(layout: SweepLayout): WebAssembly.Memory {
-  const pages = Math.max(1, Math.ceil(layout.bytes / 65536));
-  return new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+  return sharedWasmMemory(layout.bytes);
 }
 
 /** The layout's outputs as SweepOutputs (views of `buffer`). */

@@ -19,6 +19,16 @@ export function gramUpdateModule(): WebAssembly.Module | null {
  */
 export type GramStorage = SweepState;
 
+/**
+ * Bytes of one shared-term count: a pair of rows shares at most as many terms as the longer row
+ * holds, so 16 bits do unless a row holds 65,535 terms or more.
+ */
+function sharedCountBytes(rows: Csr): 2 | 4 {
+  let longest = 0;
+  for (let i = 0; i < rows.rows; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
+  return longest < 0xffff ? 2 : 4;
+}
+
 interface GramUpdateExports {
   update(dots: number, counts: number, wide: number, pos: number, val: number, m: number, from: number, to: number, aFrom: number, aTo: number, sign: number): void;
 }
@@ -87,13 +97,11 @@ export class IncrementalGram {
   ) {
     const m = rows.rows;
     this.m = m;
-    let longest = 0;
-    for (let i = 0; i < m; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
     if (storage !== undefined && (storage.dots.length !== m * m || storage.scale.length !== m)) throw new RangeError(`IncrementalGram: storage is not for ${m} rows`);
     this.dots = storage?.dots ?? new Float64Array(m * m);
-    const countBytes = longest < 0xffff ? 2 : 4;
+    const countBytes = sharedCountBytes(rows);
     const counts = storage?.counts;
-    if (counts !== undefined && (counts.length !== m * m || counts.BYTES_PER_ELEMENT !== countBytes)) throw new RangeError(`IncrementalGram: the storage's counts are not for ${m} rows of up to ${longest} terms`);
+    if (counts !== undefined && (counts.length !== m * m || counts.BYTES_PER_ELEMENT !== countBytes)) throw new RangeError(`IncrementalGram: the storage's counts are not ${countBytes}-byte counts for ${m} rows`);
     this.shared = counts ?? (countBytes === 2 ? new Uint16Array(m * m) : new Uint32Array(m * m));
     this.inv = storage?.scale ?? new Float64Array(m);
     this.mask = new Uint8Array(rows.cols);
@@ -133,11 +141,9 @@ export class IncrementalGram {
    * number of sample postings (non-zero entries).
    */
   static storageNeeds(rows: Csr): GramRoom {
-    let longest = 0;
-    for (let i = 0; i < rows.rows; i++) longest = Math.max(longest, rows.indptr[i + 1]! - rows.indptr[i]!);
     let postings = 0;
     for (let p = 0, nnz = rows.indptr[rows.rows]!; p < nnz; p++) if (rows.data[p] !== 0) postings++;
-    return { countBytes: longest < 0xffff ? 2 : 4, postings };
+    return { countBytes: sharedCountBytes(rows), postings };
   }
 
   /** The WebAssembly update, when the storage holds every array it reads in one WebAssembly memory. */

@@ -1,4 +1,5 @@
 import { assembledModule } from '../wasm/assembled-module';
+import { lineAllocator, sharedMemoryFor } from '../wasm/shared-memory';
 import { claimBlock, claimWord, closeClaims } from '../measures/shared-row-sweep';
 
 /** Defined by scripts/build.mjs in the Node bundles: column-gather.wat's bytes, base64. */
@@ -46,12 +47,8 @@ export interface GatherLayout {
 
 /** The layout of a gather's memory (each array on a 64-byte line). */
 export function gatherLayout(rows: number, cols: number, nnz: number, blocks: number): GatherLayout {
-  let at = 0;
-  const take = (bytes: number): number => {
-    const start = at;
-    at += Math.ceil(bytes / 64) * 64;
-    return start;
-  };
+  const lines = lineAllocator();
+  const take = lines.take;
   const start = take(4 * (cols + 1));
   const rowIds = take(4 * nnz);
   const values = take(8 * nnz);
@@ -59,7 +56,7 @@ export function gatherLayout(rows: number, cols: number, nnz: number, blocks: nu
   const rowChange = take(8 * 2 * rows);
   const mask = take(cols);
   const out = take(8 * 2 * cols);
-  return { start, rowIds, values, blockStart, rowChange, mask, out, bytes: at };
+  return { start, rowIds, values, blockStart, rowChange, mask, out, bytes: lines.bytes };
 }
 
 interface ColumnGatherExports {
@@ -144,14 +141,7 @@ export class SharedColumnGather {
   static create(rows: number, cols: number, nnz: number, webAssembly = true): SharedColumnGather {
     const blocks = Math.max(1, Math.min(GATHER_BLOCKS, cols));
     const layout = gatherLayout(rows, cols, nnz, blocks);
-    let memory: WebAssembly.Memory | null = null;
-    const pages = Math.max(1, Math.ceil(layout.bytes / 65536));
-    try {
-      if (webAssembly && pages <= 65536 && columnGatherModule() !== null) memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
-    } catch {
-      memory = null;
-    }
-    const buffer = memory !== null ? (memory.buffer as SharedArrayBuffer) : new SharedArrayBuffer(layout.bytes);
+    const { memory, buffer } = sharedMemoryFor(layout.bytes, webAssembly && columnGatherModule() !== null);
     return new SharedColumnGather({ rows, cols, nnz, blocks, memory, buffer, control: new SharedArrayBuffer(4 * CONTROL_SLOTS) });
   }
 
