@@ -12,6 +12,7 @@ import { REUTERS_SAMPLE } from './reuters-sample';
 import { SOTU } from './sotu';
 import { SPAM_ASSASSIN } from './spam-assassin';
 import { WEBSTER_DEFINITIONS } from './webster-definitions';
+import { WEBSTER_PARTS_OF_SPEECH } from './webster-parts-of-speech';
 import { WORDNET_GLOSSES } from './wordnet-glosses';
 
 /**
@@ -29,7 +30,7 @@ export const FORTUNES: DevCorpus = {
 };
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
-export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, WEBSTER_DEFINITIONS, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS, KERNEL_DOCS, PYTHON_DOCS, WORDNET_GLOSSES];
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, WEBSTER_DEFINITIONS, WEBSTER_PARTS_OF_SPEECH, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS, KERNEL_DOCS, PYTHON_DOCS, WORDNET_GLOSSES];
 
 /**
  * Larger versions of development corpora, run only when named (`npm run quality -- <name>`):
