@@ -10,7 +10,8 @@ const MAX_DOCUMENTS = 3000;
 /**
  * The part of speech on an entry line, after the pronunciation and any variant in parentheses:
  * "Abdicator \Ab"di*ca`tor\, n." → "n.". Only a plain noun, adjective, adverb, transitive or
- * intransitive verb; a mark that goes on ("n. pl.", "v. t. & i.", "n.; pl. …") is no single class or puts inflections first.
+ * intransitive verb; a mark that goes on ("n. pl.", "v. t. & i.") is no single class, and one
+ * followed by inflections ("n.; pl. …") puts them before the definition.
  */
 const PART_OF_SPEECH = /^[^\s].*?\\[^\\]*\\\s*(?:\([^)]*\)\s*)*,\s*(n\.|a\.|adv\.|v\. t\.|v\. i\.)(?=\s*(?:\[|,\s|$))/;
 
