@@ -83,6 +83,29 @@ describe('measures/shared-row-sweep', () => {
     assert.deepStrictEqual(owner.sweep(2, dots, scale, validB), measureSampleRows(b.dots, n, k, validB, b.scale, undefined, blockRows));
   });
 
+  it('with views, the answer is the same and its per-row arrays are the shared outputs, which the next sweep writes over', () => {
+    const a = products(7, n);
+    const b = products(8, n);
+    const validA = validRowsFromGram(a.dots, n);
+    const validB = validRowsFromGram(b.dots, n);
+    const owner = SharedRowSweep.create(n, k, blockRows, 1);
+    const { dots, scale } = owner.state(0);
+    dots.set(a.dots);
+    scale.set(a.scale);
+    const want = measureSampleRows(a.dots, n, k, validA, a.scale, undefined, blockRows);
+    const copied = owner.sweep(1, dots, scale, validA);
+    const viewed = owner.sweep(2, dots, scale, validA, undefined, true);
+    assert.deepStrictEqual(copied, want);
+    assert.deepStrictEqual({ ...viewed, knn: { neighbors: viewed.knn.neighbors.slice(), sims: viewed.knn.sims.slice() }, standoutPerQuery: viewed.standoutPerQuery.slice(), nnDist: viewed.nnDist.slice() }, want);
+    assert.ok(viewed.knn.neighbors.buffer === owner.buffers.buffer && viewed.nnDist.buffer === owner.buffers.buffer, 'the views are in the shared memory');
+    assert.notEqual(copied.knn.neighbors.buffer, owner.buffers.buffer);
+    dots.set(b.dots);
+    scale.set(b.scale);
+    const next = owner.sweep(3, dots, scale, validB);
+    assert.deepStrictEqual(Array.from(viewed.knn.neighbors), Array.from(next.knn.neighbors), 'the views show the latest sweep');
+    assert.deepStrictEqual(copied, want, 'the copies kept the first');
+  });
+
   it('refuses products that are not one of its states (the sweep would read the wrong memory)', () => {
     const { dots, scale } = products(6, n);
     const owner = SharedRowSweep.create(n, k, blockRows);

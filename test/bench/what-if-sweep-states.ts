@@ -9,6 +9,12 @@
 //        # CPU ms per sweep (blocks of 16, as the what-if; its rows in WebAssembly as SharedRowSweep
 //        # runs them, or with --js in the TypeScript), median and least after the first round,
 //        # and a hash of every output of the first round (equal hashes: the same bits)
+//   taskset -c 1 node --import tsx test/bench/what-if-sweep-states.ts tail DIR [rounds]
+//        # what the what-if's thread does after a sweep while the review's thread waits for it:
+//        # reduceSweep on the sweep's own outputs and the fields read off them (sampledFieldsOf),
+//        # each state swept once beforehand; ms per state (median and least after the first
+//        # round) and a hash of the fields. The dump holds no labels: labels are position mod 20,
+//        # and the baseline's neighbours the first state's
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -99,8 +105,74 @@ async function time(dir: string, rounds: number, js: boolean): Promise<void> {
   console.log(JSON.stringify({ rows: js ? 'JavaScript' : 'WebAssembly', hash: hash.digest('hex').slice(0, 16), sweeps: ms.length, medianMs: ms[ms.length >> 1], leastMs: ms[0] }));
 }
 
+async function tail(dir: string, rounds: number): Promise<void> {
+  const { pairShift, reduceSweep, SweepRows } = (await import(engine('measures/measure-sample-rows.ts'))) as typeof import('../../extension/src/engine/measures/measure-sample-rows');
+  const { sampledFieldsOf } = (await import(engine('measures/measure-distances.ts'))) as typeof import('../../extension/src/engine/measures/measure-distances');
+  const W = (await import(engine('measures/sweep-rows-wasm.ts'))) as typeof import('../../extension/src/engine/measures/sweep-rows-wasm');
+  const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
+  const module = W.sweepRowsModule();
+  if (module === null) throw new Error('the WebAssembly sweep did not load');
+  const read = (name: string) => {
+    const b = readFileSync(join(dir, name));
+    return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.length));
+  };
+  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
+  const m = read(names[0]!.replace('.dots', '.scale')).length;
+  const [k, blockRows] = [10, 16];
+  const blocks = Math.ceil(m / blockRows);
+  const layout = W.sweepLayout(m, k, blocks, 1, 1);
+  const memory = W.sweepMemory(layout);
+  const buffer = memory.buffer;
+  const out = W.outputsAt(buffer, layout);
+  const valid = new Uint8Array(buffer, layout.valid, m);
+  const at = layout.states[0]!;
+  const wasm = new W.WasmSweepRows(module, memory, layout, blockRows, 0);
+  // Each state swept once, in its own memory's outputs; those kept and put back before its timed tail.
+  const outputs = (): Array<Float64Array | Uint32Array | Int32Array> => [out.knn.neighbors, out.knn.sims, out.nnDist, out.zScores, out.contrast, out.slack, out.rowMean, out.rowMin, out.nearBin, out.tieGroup, out.blockPairs, out.blockBins];
+  const swept = names.map((n) => {
+    const dots = read(n);
+    const scale = read(n.replace('.dots', '.scale'));
+    new Float64Array(buffer, at.dots, m * m).set(dots);
+    new Float64Array(buffer, at.scale, m).set(scale);
+    const v = validRowsFromGram(dots, m);
+    valid.set(v);
+    const shift = pairShift(dots, m, valid, scale);
+    wasm.state(at.dots, at.scale, shift);
+    for (let b = 0; b < blocks; b++) wasm.block(b);
+    return { dots, scale, valid: v, shift, saved: outputs().map((a) => a.slice()) };
+  });
+  const labels = Int32Array.from({ length: m }, (_, i) => i % 20);
+  const baselineNeighbors = (swept[0]!.saved[0] as Uint32Array).slice();
+  const hash = createHash('sha256');
+  const ms: number[] = [];
+  for (let r = 0; r < rounds; r++) {
+    for (const s of swept) {
+      new Float64Array(buffer, at.dots, m * m).set(s.dots);
+      new Float64Array(buffer, at.scale, m).set(s.scale);
+      valid.set(s.valid);
+      outputs().forEach((a, i) => a.set(s.saved[i]! as never));
+      const rows = new SweepRows(new Float64Array(buffer, at.dots, m * m), m, k, valid, new Float64Array(buffer, at.scale, m), s.shift, out, blockRows);
+      // From here as SharedRowSweep.sweep (its answer in views) and sampledMeasures run it.
+      const t = performance.now();
+      const { measures } = sampledFieldsOf(reduceSweep(rows, out, blocks, false), valid, { k, seed: 1, labels, baselineNeighbors });
+      const elapsed = performance.now() - t;
+      if (r > 0) ms.push(elapsed);
+      if (r === 0) hash.update(JSON.stringify(measures));
+    }
+  }
+  ms.sort((a, b) => a - b);
+  console.log(JSON.stringify({ part: 'tail', hash: hash.digest('hex').slice(0, 16), tails: ms.length, medianMs: ms[ms.length >> 1], leastMs: ms[0] }));
+}
+
 const [mode, a, b, c] = process.argv.slice(2);
-const run = mode === 'dump' && a && b ? dump(a, b) : mode === 'time' && a ? time(a, Number(b !== undefined && b !== '--js' ? b : '6'), b === '--js' || c === '--js') : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds] [--js]'));
+const run =
+  mode === 'dump' && a && b
+    ? dump(a, b)
+    : mode === 'time' && a
+      ? time(a, Number(b !== undefined && b !== '--js' ? b : '6'), b === '--js' || c === '--js')
+      : mode === 'tail' && a
+        ? tail(a, Number(b ?? '40'))
+        : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds] [--js] | tail DIR [rounds]'));
 run.then(
   () => process.exit(0),
   (e: unknown) => {

@@ -10,6 +10,9 @@ import { NO_NEIGHBOR } from './knn';
 export function labelPrecisionAtK(neighbors: Uint32Array, labels: Int32Array, k: number): number | null {
   const m = labels.length;
   if (neighbors.length !== m * k) throw new RangeError(`labelPrecisionAtK: expected ${m}×${k} neighbours, got ${neighbors.length}`);
+  // Read once into a local: a module loader may reach an import through a getter (tsx's does),
+  // a call per neighbour here (the what-if computes this on every click).
+  const none = NO_NEIGHBOR;
   let sum = 0;
   let queries = 0;
   for (let i = 0; i < m; i++) {
@@ -19,7 +22,7 @@ export function labelPrecisionAtK(neighbors: Uint32Array, labels: Int32Array, k:
     let present = 0;
     for (let r = 0; r < k; r++) {
       const j = neighbors[i * k + r];
-      if (j === NO_NEIGHBOR) continue;
+      if (j === none) continue;
       present++;
       if (labels[j] === label) hits++;
     }

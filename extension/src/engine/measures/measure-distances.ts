@@ -5,7 +5,7 @@ import { validRowsFromGram } from './gram-distances';
 import { hubnessSummary, kOccurrenceHistogram, topHubPositions } from './hubness';
 import { knnTermMass } from './knn-term-mass';
 import { labelPrecisionAtK } from './label-precision';
-import { measureSampleRows } from './measure-sample-rows';
+import { measureSampleRows, type SampleRowMeasures } from './measure-sample-rows';
 import { mleDimension } from './mle-dimension';
 import { neighborTurnover } from './neighbor-turnover';
 import { sampleSimilarities } from './sample-similarity';
@@ -116,8 +116,10 @@ export interface MeasuresFromGramOptions {
   /**
    * The sweep shared with another thread (the what-if's): `gram` and `rowScale` are one of its
    * states, and the sweep is opened under `ticket`; the same bits as without it, with its blockRows.
+   * With `views`, the per-row arrays returned (neighbors, neighborSims, standoutPerQuery) are the
+   * sweep's shared outputs, valid until its next sweep opens (SharedRowSweep.sweep), not copies.
    */
-  shared?: { sweep: SharedRowSweep; ticket: number };
+  shared?: { sweep: SharedRowSweep; ticket: number; views?: boolean };
 }
 
 export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions' | 'termKnnMass'>;
@@ -169,7 +171,7 @@ export function exactMeasures(sums: TermSums, rowsWithWeight: number): ExactMeas
 
 /** The sampled measures and the k-NN state behind them (measuresFromGram's options less the sums). */
 export function sampledMeasures(options: Omit<MeasuresFromGramOptions, 'sums' | 'rowsWithWeight'>): { measures: SampledFields } & Omit<MeasuresFromGramResult, 'measures' | 'pairMass'> {
-  const { k, seed, labels, baselineNeighbors, gram } = options;
+  const { k, labels, baselineNeighbors, gram } = options;
   const m = Math.round(Math.sqrt(gram.length));
   if (m * m !== gram.length) throw new RangeError(`measuresFromGram: gram of ${gram.length} entries is not square`);
   if (!Number.isInteger(k) || k < 1) throw new RangeError(`measureDistances: k must be a positive integer, got ${k}`);
@@ -190,8 +192,19 @@ export function sampledMeasures(options: Omit<MeasuresFromGramOptions, 'sums' | 
 
   const rows =
     options.shared !== undefined
-      ? options.shared.sweep.sweep(options.shared.ticket, gram, scale, valid, options.interrupt)
+      ? options.shared.sweep.sweep(options.shared.ticket, gram, scale, valid, options.interrupt, options.shared.views === true)
       : measureSampleRows(gram, m, k, valid, scale, options.interrupt, options.blockRows);
+  return sampledFieldsOf(rows, valid, options);
+}
+
+/**
+ * sampledMeasures once the sweep is done: the fields read off its rows (`valid` the sample's
+ * valid rows). On the what-if's thread this runs while the review's thread waits for it
+ * (test/bench/what-if-sweep-states.ts `tail` times it alone).
+ */
+export function sampledFieldsOf(rows: SampleRowMeasures, valid: Uint8Array, options: Pick<MeasuresFromGramOptions, 'k' | 'seed' | 'labels' | 'baselineNeighbors'>): { measures: SampledFields } & Omit<MeasuresFromGramResult, 'measures' | 'pairMass'> {
+  const { k, seed, labels, baselineNeighbors } = options;
+  const m = valid.length;
   const { knn, kOccurrence: counts } = rows;
   const hubness = hubnessSummary(counts, valid, k);
 

@@ -76,7 +76,8 @@ export function measureSampleRows(
   // not by on-stack replacement part way through each call (which, under tsx, was thrown away
   // again at the end of every call).
   for (let b = 0; b < blocks; b++) sweep.block(b, interrupt);
-  return reduceSweep(sweep, out, blocks);
+  // The outputs are this call's own: handed over as they are.
+  return reduceSweep(sweep, out, blocks, false);
 }
 
 /**
@@ -357,10 +358,16 @@ export class SweepRows {
  * k-th place share the remaining slots. When they are no more than those slots they are the
  * list's own tied entries (each candidate the sweep kept aside is in the list or beyond it), so
  * each list entry counts 1; otherwise the row is read again for them (tiedPositions).
+ * With `copy` (the default) the per-row arrays handed back (knn, standoutPerQuery, nnDist) are
+ * copies of `out`'s; without, `out`'s own, for a caller that owns `out` or reads them before the
+ * next sweep writes it (the what-if's thread: a click's copies were ~0.4 MB of garbage).
  */
-export function reduceSweep(sweep: SweepRows, out: SweepOutputs, blocks: number): SampleRowMeasures {
+export function reduceSweep(sweep: SweepRows, out: SweepOutputs, blocks: number, copy = true): SampleRowMeasures {
   const { m, k, valid, validTotal } = sweep;
   const { knn, tieGroup } = out;
+  // Imports read once into locals (see SweepRows.row).
+  const none = NO_NEIGHBOR;
+  const tieTolerance = TIE_TOLERANCE;
   const kOccurrence = new Float64Array(m);
   const nearBins = new Array<number>(SIMILARITY_BINS).fill(0);
   const toNearest = meanToNearestSums();
@@ -377,10 +384,10 @@ export function reduceSweep(sweep: SweepRows, out: SweepOutputs, blocks: number)
       toNearest.queries++;
     }
     let filled = 0;
-    while (filled < k && knn.neighbors[i * k + filled] !== NO_NEIGHBOR) filled++;
+    while (filled < k && knn.neighbors[i * k + filled] !== none) filled++;
     if (filled === 0) continue;
     const last = knn.sims[i * k + filled - 1]!;
-    const tol = TIE_TOLERANCE * Math.max(1, Math.abs(last));
+    const tol = tieTolerance * Math.max(1, Math.abs(last));
     let firm = 0;
     for (let r = 0; r < filled; r++) if (!(Math.abs(knn.sims[i * k + r]! - last) <= tol)) firm++;
     const slots = filled - firm;
@@ -403,16 +410,16 @@ export function reduceSweep(sweep: SweepRows, out: SweepOutputs, blocks: number)
     for (let c = 0; c < SIMILARITY_BINS; c++) pairBins[c] += out.blockBins[b * SIMILARITY_BINS + c]!;
   }
   return {
-    knn: { neighbors: knn.neighbors.slice(), sims: knn.sims.slice() },
+    knn: copy ? { neighbors: knn.neighbors.slice(), sims: knn.sims.slice() } : { neighbors: knn.neighbors, sims: knn.sims },
     kOccurrence,
     standout: medianStandout(out.zScores),
-    standoutPerQuery: out.zScores.slice(),
+    standoutPerQuery: copy ? out.zScores.slice() : out.zScores,
     similarity: { start: 0, binWidth: 1 / SIMILARITY_BINS, pairs: Array.from(pairBins), nearest: nearBins },
     contrast: contrastSummary(out.contrast),
     meanToNearest: meanToNearestOf(toNearest),
     iidEquivalentDimension: iidDimensionOfCv(shiftedCv(pairSum, pairSumSq, pairCount, sweep.shift)),
     radiusSlack: radiusSlackSummary(out.slack),
-    nnDist: out.nnDist.slice(),
+    nnDist: copy ? out.nnDist.slice() : out.nnDist,
   };
 }
 

@@ -1,4 +1,4 @@
-import { medianOf } from './quantile';
+import { quantilesOf } from './quantile';
 
 /**
  * Neighbour standout: per query, the z-score of its nearest neighbour's similarity against
@@ -13,11 +13,7 @@ export function neighborStandout(sims: Float64Array, m: number, valid: Uint8Arra
 
 /** The median of per-query z-scores (NaN = none); null if none. */
 export function medianStandout(perQuery: Float64Array): number | null {
-  const m = perQuery.length;
-  const z = new Float64Array(m);
-  let count = 0;
-  for (let i = 0; i < m; i++) if (!Number.isNaN(perQuery[i]!)) z[count++] = perQuery[i]!;
-  return count === 0 ? null : medianOf(z, count);
+  return quantilesOf(perQuery, [0.5])?.[0] ?? null;
 }
 
 /** Each query's z-score (see neighborStandout); NaN where a query has none. */

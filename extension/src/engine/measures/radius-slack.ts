@@ -1,4 +1,4 @@
-import { medianOf } from './quantile';
+import { quantilesOf } from './quantile';
 import { selectRank } from './select-rank';
 
 /**
@@ -97,6 +97,6 @@ export function radiusSlack(dist: Float64Array, m: number, valid: Uint8Array, k:
 
 /** The median of per-query slacks (NaN = none); null if none. */
 export function radiusSlackSummary(perQuery: Float64Array): { median: number } | null {
-  const kept = perQuery.filter((v) => !Number.isNaN(v));
-  return kept.length === 0 ? null : { median: medianOf(kept) };
+  const at = quantilesOf(perQuery, [0.5]);
+  return at === null ? null : { median: at[0]! };
 }

@@ -1,4 +1,4 @@
-import { quantileSorted } from './quantile';
+import { quantilesOf } from './quantile';
 
 export interface ContrastSummary {
   median: number;
@@ -43,7 +43,6 @@ export function relativeContrast(dist: Float64Array, m: number, valid: Uint8Arra
 
 /** The summary of per-query RC values (NaN = none). */
 export function contrastSummary(perQuery: Float64Array): ContrastSummary | null {
-  const kept = perQuery.filter((v) => !Number.isNaN(v)).sort();
-  if (kept.length === 0) return null;
-  return { median: quantileSorted(kept, 0.5), p10: quantileSorted(kept, 0.1), p90: quantileSorted(kept, 0.9) };
+  const at = quantilesOf(perQuery, [0.5, 0.1, 0.9]);
+  return at === null ? null : { median: at[0]!, p10: at[1]!, p90: at[2]! };
 }

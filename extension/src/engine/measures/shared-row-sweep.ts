@@ -136,9 +136,11 @@ export class SharedRowSweep {
    * The owner's sweep under `ticket` (> the previous one) of the state `gram`, `rowScale` (both
    * one of `state`'s): measureSampleRows' answer with these blockRows, to the bit. `interrupt` is
    * called before each claim; when it throws, no block is claimed any more and the throw goes on
-   * once the helper's block is done.
+   * once the helper's block is done. With `views`, the per-row arrays of the answer (knn,
+   * standoutPerQuery, nnDist) are the shared outputs themselves, valid until the next sweep opens
+   * (reduceSweep's `copy`); without, copies.
    */
-  sweep(ticket: number, gram: Float64Array, rowScale: Float64Array | undefined, valid: Uint8Array, interrupt?: () => void): SampleRowMeasures {
+  sweep(ticket: number, gram: Float64Array, rowScale: Float64Array | undefined, valid: Uint8Array, interrupt?: () => void, views = false): SampleRowMeasures {
     const { control, buffers } = this;
     const index = this.stateOf(gram);
     const { dots, scale } = this.grams[index] ?? {};
@@ -167,7 +169,7 @@ export class SharedRowSweep {
       for (let done = Atomics.load(control, DONE); done < claimed; done = Atomics.load(control, DONE)) Atomics.wait(control, DONE, done, 1000);
     }
     if (Atomics.load(control, FAILED) !== 0) for (let b = 0; b < this.blocks; b++) rows.block(b);
-    return reduceSweep(rows.reads, this.out, this.blocks);
+    return reduceSweep(rows.reads, this.out, this.blocks, !views);
   }
 
   /**

@@ -93,7 +93,8 @@ export class SampleSide {
   private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean, interrupt?: () => void, ticket?: number): SampledFields {
     const { dots, scale } = gram.scaled(removed, incremental, interrupt);
     const { k, seed, labels, baselineNeighbors } = this.input;
-    const shared = ticket !== undefined && this.shared !== null ? { shared: { sweep: this.shared, ticket } } : {};
+    // Only the Measures leave here: the sweep's per-row arrays need not be copied out.
+    const shared = ticket !== undefined && this.shared !== null ? { shared: { sweep: this.shared, ticket, views: true } } : {};
     return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale, blockRows: WHAT_IF_BLOCK_ROWS, ...(interrupt === undefined ? {} : { interrupt }), ...shared }).measures;
   }
 }
