@@ -14,6 +14,8 @@ import { maskedTermSums } from '../extension/src/engine/measures/masked-term-sum
 import type { MaskedTermSumsWork } from '../extension/src/engine/measures/start-masked-term-sums';
 import { matrixPassThreads, sameMatrix } from '../extension/src/engine/threads/matrix-pass-threads';
 import { startOneShot } from '../extension/src/engine/threads/one-shot-thread';
+import { weighInPlace, type WeightingSettings } from '../extension/src/engine/matrix/weigh';
+import { weighingAhead } from '../extension/src/engine/review/prepare-weights';
 
 const tokens: TokenSettings = { lowercase: true, minLength: 2, kinds: ['word', 'number', 'hashtag', 'emoji'], stem: false, ngrams: 1 };
 
@@ -183,6 +185,49 @@ describe('matrix/build-count-matrix', () => {
       assert.equal(pending.take(), expected.rowsWithWeight);
       assert.ok(pending.fromThread);
       for (const key of ['s1', 's2', 'df', 'sxlogx'] as const) assert.deepEqual(Array.from(out[key]), Array.from(expected.sums[key]), key);
+    });
+
+    it('rows weighed by the threads as they write them are weighInPlace\'s weights to the bit, for every tf and idf', async () => {
+      const rows = readFortunes(300);
+      const bits = (a: Float64Array): Buffer => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
+      const kinds: Array<Pick<WeightingSettings, 'tf' | 'idf'>> = [
+        { tf: 'raw', idf: 'smooth' },
+        { tf: 'sublinear', idf: 'plain' },
+        { tf: 'binary', idf: 'plainPlusOne' },
+        { tf: 'raw', idf: 'none' },
+      ];
+      for (const kind of kinds) {
+        const settings = { prune: { minDf: 1, maxDf: 1 }, weighting: { ...kind, norm: 'l1' as const } };
+        let asked = 0;
+        const threaded = await buildCountMatrix(arrayCorpusSource(rows), tokens, {
+          workers: 2,
+          batchSize: 23,
+          workerScript: script,
+          weighAhead: (sums, n) => {
+            asked++;
+            return weighingAhead(settings, sums, n);
+          },
+        });
+        assert.equal(asked, 1);
+        // Counted in this thread, then weighed as prepareWeights weighs (l2 whatever `norm` says).
+        const inProcess = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 0, batchSize: 23 });
+        const expected = weighInPlace(inProcess.counts, { ...settings.weighting, norm: 'l2' });
+        assert.ok(threaded.weighedWith !== null, `${kind.tf}/${kind.idf}: weighed ahead`);
+        assert.ok(bits(threaded.weighedWith).equals(bits(expected.idf)), `${kind.tf}/${kind.idf}: idf`);
+        assert.deepEqual(threaded.counts.indices, inProcess.counts.indices);
+        assert.ok(bits(threaded.counts.data).equals(bits(expected.weights.data)), `${kind.tf}/${kind.idf}: weights`);
+        assert.equal(inProcess.weighedWith, null);
+      }
+    });
+
+    it('rows are left as counts when weighAhead declines (a prune bound that drops a column)', async () => {
+      const rows = readFortunes(300);
+      const settings = { prune: { minDf: 2, maxDf: 1 }, weighting: { tf: 'raw' as const, idf: 'smooth' as const, norm: 'l2' as const } };
+      const threaded = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 2, batchSize: 23, workerScript: script, weighAhead: (sums, n) => weighingAhead(settings, sums, n) });
+      const inProcess = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers: 0, batchSize: 23 });
+      assert.equal(threaded.weighedWith, null);
+      assert.deepEqual(threaded.counts.data, inProcess.counts.data);
+      assertCsrInvariants(threaded.counts);
     });
 
     it('buildCountMatrix carries the over-long-run note back from the worker threads, the same as in-process', async () => {

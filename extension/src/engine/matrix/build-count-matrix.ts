@@ -5,7 +5,7 @@ import { inProcessEncoder, startTokenizingThreads, type BatchEncoder, type Token
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
-import { startRowAssembler, type RowAssembler } from '../tokenize/row-assembler';
+import { startRowAssembler, type RowAssembler, type RowWeighing } from '../tokenize/row-assembler';
 import { PartCountSums, type RowCountSums } from '../tokenize/row-count-sums';
 import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
 import { CodePointSortedTerms } from './code-point-sorted-terms';
@@ -26,6 +26,11 @@ export interface BuiltCorpus {
    * in; null where they were not (count-each-file.ts).
    */
   countSums: RowCountSums | null;
+  /**
+   * The idf `counts.data` was weighed with, row by row as the rows were written (BuildOptions.weighAhead):
+   * then `counts.data` holds the weights, not the counts. null: it holds the raw counts.
+   */
+  weighedWith: Float64Array | null;
 }
 
 export interface BuildOptions {
@@ -42,6 +47,12 @@ export interface BuildOptions {
   batchSize?: number;
   /** Who tokenises, instead of the default pool (count-each-file.ts passes a fresh one per file). */
   encoder?: BatchEncoder;
+  /**
+   * Asked once the vocabulary is complete, before threads write the rows, with the counts' sums:
+   * how to weigh each row as it is written (then `data` holds the weights, BuiltCorpus.weighedWith),
+   * or null to leave the raw counts. Not asked where this thread writes the rows.
+   */
+  weighAhead?: (sums: RowCountSums, rows: number, columns: number) => RowWeighing | null;
 }
 
 const DEFAULT_BATCH = 1000;
@@ -112,8 +123,8 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
     // The tokenising threads end before the matrix is allocated, and their heaps with them.
     await encoder.close();
     const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
-    const { counts, countSums } = await counter.finish(assembler);
-    return { counts, lines: lines.toArray(), labels, previews, notes, countSums };
+    const { counts, countSums, weighedWith } = await counter.finish(assembler, options.weighAhead);
+    return { counts, lines: lines.toArray(), labels, previews, notes, countSums, weighedWith };
   } finally {
     await encoder.close();
     await assembler?.close();
@@ -238,7 +249,10 @@ class CountAccumulator {
    * the main thread's CPU after the tokenising threads had finished); else here, one part after
    * another.
    */
-  async finish(assembler: RowAssembler | null = null): Promise<{ counts: CountMatrix; countSums: RowCountSums }> {
+  async finish(
+    assembler: RowAssembler | null = null,
+    weighAhead?: BuildOptions['weighAhead'],
+  ): Promise<{ counts: CountMatrix; countSums: RowCountSums; weighedWith: Float64Array | null }> {
     const cols = this.idOf.size;
     const sortedTerms = this.inOrder.sorted();
     const rank = new Uint32Array(cols);
@@ -268,11 +282,21 @@ class CountAccumulator {
     const indices = new Uint32Array(shared ? new SharedArrayBuffer(4 * nonzeros) : new ArrayBuffer(4 * nonzeros));
     const data = new Float64Array(shared ? new SharedArrayBuffer(8 * nonzeros) : new ArrayBuffer(8 * nonzeros));
     let countSums: RowCountSums;
+    let weighedWith: Float64Array | null = null;
     if (shared) {
-      // The parts are posted at once; their sums move to columns here while the threads write.
-      const writing = assembler.assemble({ ranks, columns: cols, indptr, indices, data, parts, starts });
-      countSums = this.sums.result(ranks, cols);
-      await writing;
+      let weigh: RowWeighing | null = null;
+      if (weighAhead !== undefined) {
+        // The sums by column first (a few ms): the idf the threads weigh each row with comes from their df.
+        countSums = this.sums.result(ranks, cols);
+        weigh = weighAhead(countSums, rows, cols);
+        weighedWith = weigh?.idf ?? null;
+        await assembler.assemble({ ranks, columns: cols, indptr, indices, data, parts, starts, weigh });
+      } else {
+        // The parts are posted at once; their sums move to columns here while the threads write.
+        const writing = assembler.assemble({ ranks, columns: cols, indptr, indices, data, parts, starts, weigh });
+        countSums = this.sums.result(ranks, cols);
+        await writing;
+      }
     } else {
       countSums = this.sums.result(ranks, cols);
       const writer = new RowWriter(ranks, cols, indices, data);
@@ -281,7 +305,7 @@ class CountAccumulator {
         parts[p] = EMPTY_PART; // let each part go as soon as it is written
       }
     }
-    return { counts: { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() }, countSums };
+    return { counts: { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() }, countSums, weighedWith };
   }
 }
 

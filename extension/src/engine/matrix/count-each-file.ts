@@ -65,7 +65,7 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
     r0 += c.rows;
     at += n;
   }
-  return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null };
+  return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null, weighedWith: null };
 }
 
 /** Counts a many-file corpus file by file, each with a fresh tokeniser, as its shards would be. */

@@ -51,9 +51,7 @@ function idfOfColumns(counts: Csr, weighting: WeightingSettings, known?: ArrayLi
     for (let k = 0; k < total; k++) if (counts.data[k] !== 0) counted[counts.indices[k]]++;
     df = counted;
   }
-  const idf = new Float64Array(cols);
-  for (let j = 0; j < cols; j++) idf[j] = idfOf(weighting.idf, n, df[j]);
-  return idf;
+  return idfFromDf(weighting.idf, n, df);
 }
 
 /**
@@ -65,29 +63,49 @@ export function weighWithIdf(counts: Csr, idf: Float64Array, weighting: Weightin
   const n = counts.rows;
   const total = counts.indptr[n];
   const data = out ?? new Float64Array(total);
-  const tf = weighting.tf;
-  const { data: c, indices } = counts;
   const { indptr } = counts;
   // Row by row, each row normalised right after its weights are written, while it is in cache
   // (two passes over the whole matrix read every non-zero from memory twice); the same
-  // arithmetic in the same order as weighing everything and then normalizeRows. One loop per tf
-  // kind, so the hot loop does not compare strings per entry.
-  const norm = weighting.norm;
-  const sublinear = tf === 'sublinear';
-  const raw = tf === 'raw';
-  for (let r = 0; r < n; r++) {
-    const start = indptr[r];
-    const end = indptr[r + 1];
-    if (raw) {
-      for (let k = start; k < end; k++) data[k] = c[k] * idf[indices[k]];
-    } else if (sublinear) {
-      for (let k = start; k < end; k++) data[k] = (c[k] === 0 ? 0 : 1 + Math.log(c[k])) * idf[indices[k]];
-    } else {
-      for (let k = start; k < end; k++) data[k] = (c[k] === 0 ? 0 : 1) * idf[indices[k]];
-    }
-    normalizeRow(data, start, end, norm);
-  }
+  // arithmetic in the same order as weighing everything and then normalizeRows.
+  for (let r = 0; r < n; r++) weighRow(counts.data, counts.indices, idf, weighting.tf, weighting.norm, data, indptr[r], indptr[r + 1]);
   return { rows: n, cols: counts.cols, indptr: counts.indptr, indices: counts.indices, data };
+}
+
+/**
+ * The weights of one row, entries start..end: counts `c` times idf of their column (`tf` applied),
+ * written to `data` (which may be `c` itself) and normalised. weighWithIdf's step, and that of the
+ * threads that weigh the rows they have just written (matrix-thread.ts): the same arithmetic
+ * wherever a row is weighed. One loop per tf kind, so the hot loop compares no strings per entry.
+ */
+export function weighRow(
+  c: Float64Array,
+  indices: Uint32Array,
+  idf: Float64Array,
+  tf: WeightingSettings['tf'],
+  norm: WeightingSettings['norm'],
+  data: Float64Array,
+  start: number,
+  end: number,
+): void {
+  if (tf === 'raw') {
+    for (let k = start; k < end; k++) data[k] = c[k] * idf[indices[k]];
+  } else if (tf === 'sublinear') {
+    for (let k = start; k < end; k++) data[k] = (c[k] === 0 ? 0 : 1 + Math.log(c[k])) * idf[indices[k]];
+  } else {
+    for (let k = start; k < end; k++) data[k] = (c[k] === 0 ? 0 : 1) * idf[indices[k]];
+  }
+  normalizeRow(data, start, end, norm);
+}
+
+/**
+ * The idf of every column from its document frequency, as `weigh` computes it, for `n` documents:
+ * for a caller that has the df before the matrix is written (build-count-matrix.ts weighs the
+ * rows as they are written, when pruning will keep every column).
+ */
+export function idfFromDf(kind: WeightingSettings['idf'], n: number, df: ArrayLike<number>): Float64Array {
+  const idf = new Float64Array(df.length);
+  for (let j = 0; j < df.length; j++) idf[j] = idfOf(kind, n, df[j]);
+  return idf;
 }
 
 /** The idf of a term in `df` of `n` documents (see `weigh`). */

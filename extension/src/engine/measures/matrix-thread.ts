@@ -1,6 +1,7 @@
 // worker_threads entry (bundled to dist/assemble-worker.js): writes a share of the finished
-// count matrix's rows (tokenize/rows-in-rank-order.ts), then waits as a pass thread over that
-// matrix (make-passes.ts), which is weighed in place and read by the review's exact passes: the
+// count matrix's rows (tokenize/rows-in-rank-order.ts), weighing each part's rows right after
+// them when the job says how (their counts' weights, in place), then waits as a pass thread over
+// that matrix (make-passes.ts), which the review's exact passes read: the
 // first of them is begun a fraction of a second later, and a waiting thread takes it instead of a
 // new one being started (~65 ms of CPU each, engine/threads/matrix-pass-threads.ts). A thread of
 // its own, not a tokenising one: the tokenising threads end before the matrix is allocated, so
@@ -8,7 +9,9 @@
 // documents) are gone by then; this bundle holds no wink, so it starts in milliseconds.
 import { parentPort } from 'node:worker_threads';
 import { nextJob, type LastingLink } from '../threads/lasting-thread';
-import { RowWriter } from '../tokenize/rows-in-rank-order';
+import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
+import type { RowWeighing } from '../tokenize/row-assembler';
+import { weighRow } from '../matrix/weigh';
 import type { AssembleReply, AssembleRequest } from '../tokenize/tokenize-messages';
 import { makePasses } from './make-passes';
 import type { MaskedTermSumsWork } from './start-masked-term-sums';
@@ -28,6 +31,7 @@ port.on('message', (request: AssembleRequest) => {
     for (let k = 0; k < parts.length; k++) {
       const part = parts[k]!;
       writer.write(part, starts[k]!);
+      if (request.weigh !== null) weighPart(part, starts[k]!, request.data, request.indices, request.weigh);
       parts[k] = EMPTY_PART; // let each part go as soon as it is written
       spent.push(part.rowEnds.buffer as ArrayBuffer, part.cols.buffer as ArrayBuffer, part.counts.buffer as ArrayBuffer);
     }
@@ -38,6 +42,22 @@ port.on('message', (request: AssembleRequest) => {
   port.postMessage(reply, reply.spent);
   if (reply.error === null && request.link !== null) makePassesUntilIdle(request, request.link);
 });
+
+/**
+ * Weighs the rows of a part just written (its entries from `start` on), over their counts, while
+ * they are in cache: the review's thread then has no pass of its own over the whole matrix to
+ * make (~0.1 s at 100k documents, with one core idle), and every row gets weighRow's arithmetic,
+ * as weighWithIdf gives it there.
+ */
+function weighPart(part: CountedPart, start: number, data: Float64Array, indices: Uint32Array, { idf, tf, norm }: RowWeighing): void {
+  const { rowEnds } = part;
+  let from = start;
+  for (let d = 0; d < rowEnds.length; d++) {
+    const to = start + rowEnds[d]!;
+    weighRow(data, indices, idf, tf, norm, data, from, to);
+    from = to;
+  }
+}
 
 /**
  * The passes callers hand this thread over the matrix it wrote, until none comes for a while;
@@ -61,8 +81,8 @@ try {
  * Runs the writer on small made-up parts until the engine has compiled it, while the last
  * batches are still being tokenised: a fresh thread runs `write` unoptimised at first, and at
  * 100k documents its first two real parts cost ~80-140 and ~35-100 ms against 5-10 ms each after
- * (the rows' writing is ~0.5 s, which everything after tokenising waits for). The same kinds of
- * arrays as a real job (the matrix on SharedArrayBuffers).
+ * (the rows' writing is ~0.5 s, which everything after tokenising waits for); and the weighing
+ * of the rows written. The same kinds of arrays as a real job (the matrix on SharedArrayBuffers).
  */
 function warmUp(): void {
   const rows = 96;
@@ -90,8 +110,11 @@ function warmUp(): void {
   // real part, larger, met code compiled without it, was thrown away and compiled again.
   // Each part as a message gives it (structured clone): objects built by hand have other shapes,
   // and compiled code that met only those was thrown away at the first real part too.
+  // The rows are weighed as a job with the default weighting (raw tf, l2) weighs them.
+  const weigh: RowWeighing = structuredClone({ idf: new Float64Array(columns).map((_, i) => 1 + (i % 7) / 8), tf: 'raw', norm: 'l2' });
   for (let r = 1; r <= rows; r++) {
     const part = structuredClone({ stream: 0, rowEnds: rowEnds.slice(0, r), cols: cols.slice(0, r * perRow), counts: counts.slice(0, r * perRow) });
     writer.write(part, 0);
+    weighPart(part, 0, data, indices, weigh);
   }
 }

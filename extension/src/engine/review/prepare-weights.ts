@@ -7,8 +7,10 @@ import { hasGlob } from '../read/corpus-files';
 import { countEachFile } from '../matrix/count-each-file';
 import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
-import { pruneTerms } from '../matrix/prune-terms';
-import { weighInPlace } from '../matrix/weigh';
+import { documentCount, pruneTerms } from '../matrix/prune-terms';
+import { idfFromDf, weighInPlace } from '../matrix/weigh';
+import type { RowWeighing } from '../tokenize/row-assembler';
+import type { RowCountSums } from '../tokenize/row-count-sums';
 import type { CorpusSource } from '../read/corpus-source';
 import { UserError } from '../user-error';
 import type { FileSnapshot } from './file-snapshot';
@@ -111,6 +113,7 @@ export async function prepareWeights(
     built = await countEachFile(source, settings.tokens, signal);
   } else {
     built = await buildCountMatrix(source, settings.tokens, {
+      weighAhead: (sums, rows) => weighingAhead(settings, sums, rows),
       ...(signal === undefined ? {} : { signal }),
       ...(started !== null ? { encoder: started } : workers === undefined ? {} : { workers }),
     });
@@ -119,40 +122,78 @@ export async function prepareWeights(
   if (built.counts.rows === 0) throw new UserError('no documents with text were found', source.file);
 
   onWeighting(built.previews);
-  // The stop list is applied later as a column mask, not here, so that the review can still say
-  // how much a stopped term would pull and whether it carries neighbour signal.
-  const { counts } = pruneTerms(built.counts, {
-    minDf: settings.prune.minDf,
-    maxDf: settings.prune.maxDf,
-    stopTerms: new Set(),
-    // The counted batches' sums hold df (every stored count is ≥ 1, so a column's entries are its documents).
-    ...(built.countSums !== null ? { df: built.countSums.df } : {}),
-  });
-  if (counts.cols === 0) {
-    throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', source.file);
+  let weights: Csr;
+  let idf: Float64Array;
+  let terms: readonly string[];
+  let countStats: TermCountStats;
+  if (built.weighedWith !== null && built.countSums !== null) {
+    // Weighed as the rows were written (weighingAhead: pruning keeps every column, so this is the
+    // matrix pruneTerms would give and weighInPlace would weigh, to the bit).
+    const { rows, cols, indptr, indices, data } = built.counts;
+    weights = { rows, cols, indptr, indices, data };
+    idf = built.weighedWith;
+    terms = built.counts.terms;
+    countStats = built.countSums;
+  } else {
+    // The stop list is applied later as a column mask, not here, so that the review can still say
+    // how much a stopped term would pull and whether it carries neighbour signal.
+    const { counts } = pruneTerms(built.counts, {
+      minDf: settings.prune.minDf,
+      maxDf: settings.prune.maxDf,
+      stopTerms: new Set(),
+      // The counted batches' sums hold df (every stored count is ≥ 1, so a column's entries are its documents).
+      ...(built.countSums !== null ? { df: built.countSums.df } : {}),
+    });
+    if (counts.cols === 0) {
+      throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', source.file);
+    }
+    // The raw-count statistics first: the weights are then written over the counts. Their df is
+    // the idf's (every stored count is ≥ 1, so a column's entries are its documents).
+    // Counting summed them already (row-count-sums.ts): used when nothing was pruned (the same matrix).
+    countStats = counts === built.counts && built.countSums !== null ? built.countSums : termCountStats(counts);
+    // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
+    ({ weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' }, countStats.df));
+    terms = counts.terms;
   }
-  // The raw-count statistics first: the weights are then written over the counts. Their df is
-  // the idf's (every stored count is ≥ 1, so a column's entries are its documents).
-  // Counting summed them already (row-count-sums.ts): used when nothing was pruned (the same matrix).
-  const countStats = counts === built.counts && built.countSums !== null ? built.countSums : termCountStats(counts);
-  // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
-  const { weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' }, countStats.df);
   let tokens = 0;
   for (let r = 0; r < built.counts.rows; r++) tokens += built.counts.tokensPerDoc[r]!;
   return {
     weights,
     idf,
-    terms: counts.terms,
+    terms,
     seenTerms: built.counts.terms,
-    documents: counts.rows,
+    documents: weights.rows,
     tokens,
-    nonzeros: nnz(counts),
+    nonzeros: nnz(weights),
     lines: built.lines,
     labels: built.labels,
     previews: built.previews,
     counts: countStats,
     notes: built.notes,
   };
+}
+
+/**
+ * How the threads that write the count matrix's rows weigh them as they write (BuildOptions.weighAhead),
+ * when that gives the weights prepareWeights would: when the prune bounds keep every column at
+ * these df (pruneTerms' test; the stop list is a mask applied later), so the matrix is the one
+ * weighInPlace would weigh, with the idf from the same df and the same row arithmetic (weighRow).
+ * null otherwise (and when the bounds are invalid, so that pruneTerms says so as before). The
+ * review's thread then makes no weighing pass over the matrix while one core is idle.
+ */
+export function weighingAhead(settings: Pick<EffectiveSettings, 'prune' | 'weighting'>, sums: RowCountSums, rows: number): RowWeighing | null {
+  let minCount;
+  let maxCount;
+  try {
+    minCount = documentCount('prune.minDf', settings.prune.minDf, rows, false);
+    maxCount = documentCount('prune.maxDf', settings.prune.maxDf, rows, true);
+  } catch {
+    return null;
+  }
+  const { df } = sums;
+  if (df.length === 0) return null;
+  for (let j = 0; j < df.length; j++) if (df[j]! < minCount || df[j]! > maxCount) return null;
+  return { idf: idfFromDf(settings.weighting.idf, rows, df), tf: settings.weighting.tf, norm: 'l2' };
 }
 
 /**

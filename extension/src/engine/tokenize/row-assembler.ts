@@ -4,6 +4,18 @@ import { matrixPassThreads, PASS_THREAD_WAIT_MS } from '../threads/matrix-pass-t
 import { PendingReplies } from '../threads/pending-replies';
 import type { CountedPart } from './rows-in-rank-order';
 import type { AssembleReply, AssembleRequest } from './tokenize-messages';
+import type { EffectiveSettings } from '../../protocol';
+
+/**
+ * How the threads weigh each row right after they have written it (matrix/weigh.ts, weighRow): the
+ * matrix's idf, tf and norm. The caller knows the idf before the rows are written when pruning
+ * keeps every column (build-count-matrix.ts).
+ */
+export interface RowWeighing {
+  idf: Float64Array;
+  tf: EffectiveSettings['weighting']['tf'];
+  norm: EffectiveSettings['weighting']['norm'];
+}
 
 /** The matrix's columns (ranks[stream][id]: the column of a coder's term id) and where each part goes. */
 export interface AssembleJob {
@@ -17,6 +29,8 @@ export interface AssembleJob {
   data: Float64Array;
   parts: CountedPart[];
   starts: number[];
+  /** null: `data` gets the raw counts; else their weights, each row weighed as it is written. */
+  weigh: RowWeighing | null;
 }
 
 /** Threads that write the finished count matrix's rows, each a run of consecutive parts. */
@@ -71,7 +85,7 @@ export function startRowAssembler(threads: number, script: string): RowAssembler
           const link = matrixPassThreads.prepare(PASS_THREAD_WAIT_MS);
           const transfer: Array<ArrayBuffer | MessagePort> = [link.link.port];
           for (const p of parts) transfer.push(p.rowEnds.buffer as ArrayBuffer, p.cols.buffer as ArrayBuffer, p.counts.buffer as ArrayBuffer);
-          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indptr: job.indptr, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!), link: link.link };
+          const request: AssembleRequest = { type: 'assemble', seq: w, ranks: job.ranks, columns: job.columns, indptr: job.indptr, indices: job.indices, data: job.data, parts, starts: share.map((k) => job.starts[k]!), weigh: job.weigh, link: link.link };
           try {
             await pending.request(() => pool[w]!.postMessage(request, transfer), w);
           } catch (e) {
