@@ -107,4 +107,34 @@ describe('measures/term-sums', () => {
     assert.deepEqual(Array.from(perTerm), [1, 5, 3, 1]);
     assert.deepEqual(cumulativeMassShare(perTerm, 0, 2), [0, 0]);
   });
+
+  it('cumulativeMassShare gives the shares of the whole vocabulary sorted, to the bit (ties, zeros of both signs, infinities; a NaN answered as before)', () => {
+    // The reference: every mass sorted, the heaviest first, summed in that order.
+    const sortedShares = (perTerm: Float64Array, total: number, maxTerms: number): number[] => {
+      const all = perTerm.slice().sort().reverse().subarray(0, Math.min(maxTerms, perTerm.length));
+      let sum = 0;
+      return Array.from(all, (x) => {
+        sum += x;
+        return total > 0 ? sum / total : 0;
+      });
+    };
+    const random = mulberry32(41);
+    const pool = [0, -0, 1, 2, 0.5, Infinity, -Infinity, -1, 1e-300];
+    for (const n of [1, 2, 5, 199, 200, 201, 1000, 5000]) {
+      for (let round = 0; round < 10; round++) {
+        const perTerm = Float64Array.from({ length: n }, () => (random() < 0.3 ? pool[Math.floor(random() * pool.length)]! : Math.round(random() * 64) / 8));
+        const before = perTerm.slice();
+        for (const maxTerms of [1, 10, 200]) {
+          const got = cumulativeMassShare(perTerm, 97.5, maxTerms);
+          const want = sortedShares(perTerm, 97.5, maxTerms);
+          assert.equal(got.length, want.length);
+          got.forEach((x, i) => assert.ok(Object.is(x, want[i]), `n=${n} round ${round} max ${maxTerms} at ${i}: ${x} against ${want[i]}`));
+        }
+        assert.deepEqual(Array.from(perTerm), Array.from(before), 'the input is untouched');
+      }
+    }
+    // With a NaN the answer is the selection's, as before the heap: here NaN sorts last and is not among the top.
+    const withNaN = Float64Array.from([3, NaN, 1, 2, 5, 4]);
+    assert.deepEqual(cumulativeMassShare(withNaN, 15, 3), [5 / 15, 9 / 15, 12 / 15]);
+  });
 });
