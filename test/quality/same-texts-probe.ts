@@ -5,9 +5,12 @@
 // labels and against the part of speech. Whatever a label-free rule suggests, it suggests for
 // both; whether it should depends on what the labels are about (docs/methods.md §9).
 //
-//   npx tsx test/quality/same-texts-probe.ts
+// With --search it then asks, using the labels, whether any list meets the issue's bounds for both
+// labellings at once (list_for_both_labels.py: the English list, keeping one word at a time).
+//
+//   npx tsx test/quality/same-texts-probe.ts [--search]
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
@@ -34,6 +37,19 @@ async function main(): Promise<void> {
       const p = JSON.parse(out.toString()) as Record<'none' | 'english' | 'maxDf' | 'ours', number>;
       const d = (x: number) => (x >= 0 ? '+' : '−') + Math.abs(x).toFixed(4);
       console.log(`| ${name} | ${p.none.toFixed(4)} | ${p.english.toFixed(4)} | ${p.maxDf.toFixed(4)} | ${p.ours.toFixed(4)} | ${d(p.ours - p.none)} | ${d(p.english - p.none)} |`);
+    }
+    if (process.argv.includes('--search')) {
+      const both = path.join(dir, 'both-labels.jsonl');
+      writeFileSync(both, docs.map((d) => JSON.stringify({ text: d.text, subject: d.label, pos: d.pos })).join('\n') + '\n');
+      console.log('');
+      const search = execFileSync('/usr/bin/python3', [path.join(__dirname, 'list_for_both_labels.py'), both, 'subject', 'pos']).toString();
+      console.log(search.trimEnd());
+      // What the review, without labels, said of the words the search kept.
+      const kept = /less (.+)$/m.exec(search)?.[1]?.split(', ') ?? [];
+      for (const word of kept) {
+        const row = report.terms.find((t) => t.term === word);
+        console.log(`  "${word}" in Loudword's review: ${row === undefined ? 'not in the term table' : `${row.status}, ${row.why}`}`);
+      }
     }
   } finally {
     rmSync(dir, { recursive: true, force: true });
