@@ -58,6 +58,8 @@ describe('matrix/build-count-matrix', () => {
     assert.deepEqual([...built.lines], [2, 3, 7]);
     assert.deepEqual(built.labels, ['pets', null, 'pets']);
     assert.deepEqual(built.previews, ['the cat sat on the mat', '', 'Dogs chase cats. The end']);
+    // Each document's first token: "the", none, "dogs".
+    assert.deepEqual([...m.firstTerms].map((c) => (c < 0 ? null : m.terms[c])), ['the', null, 'dogs']);
   });
 
   it('buildCountMatrix gives null labels when the source has no label field, and cuts previews at 120', async () => {
@@ -83,7 +85,9 @@ describe('matrix/build-count-matrix', () => {
     const tokenize = createTokenizer(tokens);
     for (let r = 0; r < rows.length; r++) {
       const expected = new Map<string, number>();
-      for (const t of tokenize(rows[r]!.text)) expected.set(t, (expected.get(t) ?? 0) + 1);
+      const all = tokenize(rows[r]!.text);
+      for (const t of all) expected.set(t, (expected.get(t) ?? 0) + 1);
+      assert.equal(m.firstTerms[r]! < 0 ? undefined : m.terms[m.firstTerms[r]!], all[0], `row ${r}'s first token`);
       const got = new Map<string, number>();
       for (let k = m.indptr[r]!; k < m.indptr[r + 1]!; k++) got.set(m.terms[m.indices[k]!]!, m.data[k]!);
       assert.deepEqual([...got].sort(), [...expected].sort(), `row ${r}`);
@@ -153,6 +157,7 @@ describe('matrix/build-count-matrix', () => {
         assert.deepEqual(threaded.counts.indices, inProcess.counts.indices);
         assert.deepEqual(threaded.counts.data, inProcess.counts.data);
         assert.deepEqual(threaded.counts.tokensPerDoc, inProcess.counts.tokensPerDoc);
+        assert.deepEqual(threaded.counts.firstTerms, inProcess.counts.firstTerms);
         assert.deepEqual(threaded.previews, inProcess.previews);
         // The raw counts' sums added up as the batches came (by each coder's ids, then moved to
         // columns) are termCountStats's over the finished matrix, to the bit, on either path.

@@ -12,6 +12,8 @@ const counts: CountMatrix = {
   data: Float64Array.from([1, 2, 1, 1, 1, 3, 1, 1, 1]),
   terms: ['a', 'b', 'c', 'd'],
   tokensPerDoc: Uint32Array.from([4, 2, 4, 2]),
+  // The documents open with c, d, a and b.
+  firstTerms: Int32Array.from([2, 3, 0, 1]),
 };
 
 describe('matrix/prune-terms', () => {
@@ -33,6 +35,8 @@ describe('matrix/prune-terms', () => {
     assert.deepEqual([...r.counts.indices], [0, 1, 1, 0]);
     assert.deepEqual([...r.counts.data], [2, 1, 1, 1]);
     assert.equal(r.counts.tokensPerDoc, counts.tokensPerDoc);
+    // Opening with c, d, a, b: the dropped c and a open nothing now; d and b are columns 1 and 0.
+    assert.deepEqual([...r.counts.firstTerms], [-1, 1, -1, 0]);
   });
 
   it('pruneTerms with the df given (a=4, b=2, c=1, d=2, by hand) prunes as when it counts them, and refuses a df of the wrong length', () => {

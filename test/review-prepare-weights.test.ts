@@ -48,6 +48,7 @@ describe('weighingAhead', () => {
     data: new Float64Array([2, 1, 1, 3, 1, 4, 1]),
     terms: ['a', 'b', 'c', 'd'],
     tokensPerDoc: new Uint32Array([3, 5, 5]),
+    firstTerms: new Int32Array([1, 0, 2]),
   };
   const df = new Float64Array([1, 2, 3, 1]);
   const sums = { df } as unknown as RowCountSums;

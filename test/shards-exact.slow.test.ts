@@ -51,6 +51,22 @@ describe('review in shards = review in one process', function () {
     assertSame(one, shards, 'fortunes');
   });
 
+  it('definitions whose formula opens with a grammar word, in 4 shards: the same Report, the head kept in both', async () => {
+    // Generated (seeded) definitions: a third open "someone who …", the rest "the …" or a topic
+    // word, so "someone" opens most of the documents it is in; the shards must add up the counts.
+    const shardDir = path.join(dir, 'formula');
+    mkdirSync(shardDir);
+    const docs = generatedDocs(600, 5).map((d, i) => ({ text: `${i % 3 === 0 ? 'someone who' : i % 3 === 1 ? 'the' : ''} ${d.text}`, label: d.label }));
+    docs[1] = { text: `${docs[1]!.text} for someone`, label: docs[1]!.label };
+    writeShards(shardDir, docs, 4);
+    const { one, shards } = await bothWays(path.join(shardDir, '*.jsonl'));
+    for (const report of [one, shards]) {
+      const row = report.terms.find((t) => t.term === 'someone');
+      assert.ok(row !== undefined && row.status === 'kept' && /open a document/.test(row.why), `someone: ${row?.status} ${row?.why}`);
+    }
+    assertSame(one, shards, 'formula');
+  });
+
   it('generated data in 8 shards of three formats (JSON Lines, .jsonl.gz, Parquet): the same Report', async () => {
     const shardDir = path.join(dir, 'generated');
     mkdirSync(shardDir);

@@ -107,6 +107,7 @@ describe('review in shards: merge checks and errors', function () {
     const reread = await readShardCounts(countsFile, origin);
     assert.ok(reread !== null);
     assert.deepEqual(reread.counts.terms, kept.counts.terms);
+    assert.deepEqual(reread.counts.firstTerms, kept.counts.firstTerms);
     assert.deepEqual(await sumShard(shard, plan, settings, reread), await sumShard(shard, plan, settings));
     // Another settings key, or the file touched since round 1: the kept counts are not used.
     assert.equal(await readShardCounts(countsFile, { ...origin, settingsKey: 'another' }), null);

@@ -2,7 +2,7 @@
 // by construction. Sources: max_df = 0.5 as scikit-learn documents it (TfidfVectorizer);
 // burstiness from Church & Gale (1995), "Poisson mixtures".
 import { strict as assert } from 'node:assert';
-import { chooseSuggestions, contentBurstiness, GROUP_SHARE, plannedShareAsks, type Decision } from '../extension/src/engine/terms/choose-suggestions';
+import { chooseSuggestions, contentBurstiness, FORMULA_MIN_DOCS, FORMULA_OPENS, GROUP_SHARE, plannedShareAsks, type Decision } from '../extension/src/engine/terms/choose-suggestions';
 import { termSignal } from '../extension/src/engine/terms/term-signals';
 import type { PriorClass } from '../extension/src/engine/terms/prior-columns';
 import { termCountStats } from '../extension/src/engine/terms/term-count-stats';
@@ -182,6 +182,33 @@ describe('chooseSuggestions', () => {
     const plain = run(shares({}, calls), false);
     assert.equal(brief(plain.get(0)), 'suggest:everywhere');
     assert.deepEqual(calls, []);
+  });
+
+  it('chooseSuggestions: a grammar word that opens most of the documents it occurs in heads the formula and is kept', () => {
+    // 40 definitions of 10 tokens: column 0 ('someone', prior pronoun) opens documents 0..11 and
+    // occurs once more, inside document 12: 12 of its 13 occurrences open a document (92%).
+    // Column 1 ('of', prior preposition) is in documents 0..19 once each, opening none of them.
+    // Column 2 fills. Both are spread evenly, so without the opening share both are suggested.
+    const dense: number[][] = [];
+    for (let d = 0; d < 40; d++) dense.push([d < 13 ? 1 : 0, d < 20 ? 1 : 0, 0]);
+    for (const row of dense) row[2] = 10 - row[0]! - row[1]!;
+    const firstTerms = Int32Array.from(dense, (_, d) => (d < 12 ? 0 : 2));
+    const prior = new Map<number, PriorClass>([[0, 'pronoun'], [1, 'preposition']]);
+    const choose = (opens: Int32Array) =>
+      chooseSuggestions({ stats: termCountStats(csrOf(dense), opens), prior, stopped: new Uint8Array(3), protect: new Set(), opinion: false, usePrior: true, jointShares: shares({ 0: 0.2, 1: 0.2 }) });
+    const d = choose(firstTerms);
+    assert.equal(brief(d.get(0)), 'keep:formula');
+    assert.ok(Math.abs((d.get(0) as { opensShare: number }).opensShare - 12 / 13) < 1e-12);
+    assert.equal(brief(d.get(1)), 'suggest:grammar');
+    // The same corpus with no document opening with it: an ordinary grammar word, suggested.
+    assert.equal(brief(choose(new Int32Array(40).fill(2)).get(0)), 'suggest:grammar');
+    // Below the bounds: opening under FORMULA_OPENS of its occurrences, or fewer than FORMULA_MIN_DOCS documents.
+    const fewer = Math.floor(FORMULA_OPENS * 13) - 1; // 5 of 13
+    assert.equal(brief(choose(Int32Array.from(dense, (_, d) => (d < fewer ? 0 : 2))).get(0)), 'suggest:grammar');
+    const tiny: number[][] = dense.map((row, d) => [d < FORMULA_MIN_DOCS - 1 ? 1 : 0, row[1]!, 10 - (d < FORMULA_MIN_DOCS - 1 ? 1 : 0) - row[1]!]);
+    const tinyStats = termCountStats(csrOf(tiny), Int32Array.from(tiny, (_, d) => (d < FORMULA_MIN_DOCS - 1 ? 0 : 2)));
+    const t = chooseSuggestions({ stats: tinyStats, prior, stopped: new Uint8Array(3), protect: new Set(), opinion: false, usePrior: true, jointShares: shares({ 0: 0.2, 1: 0.2 }) });
+    assert.notEqual(brief(t.get(0)), 'keep:formula', 'a word in fewer documents than FORMULA_MIN_DOCS');
   });
 
   it('plannedShareAsks: the very asks chooseSuggestions then makes, in its order (a review begins them early)', () => {

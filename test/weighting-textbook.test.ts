@@ -87,6 +87,7 @@ describe('weighting against published examples', () => {
       data: new Float64Array(indices.length).fill(1),
       terms: ['car', 'auto', 'insurance', 'best'],
       tokensPerDoc: new Uint32Array(n),
+      firstTerms: Int32Array.from({ length: n }, (_, r) => dfs.findIndex((df) => r < df)),
     };
     const { idf } = weigh(counts, { tf: 'raw', idf: 'plain', norm: 'none' });
     assertClose([...idf].map((v) => v / Math.LN10), expected, 0.005, 'idf');

@@ -269,6 +269,7 @@ class CountAccumulator {
     const nonzeros = this.nonzeros;
     const parts = this.parts;
     this.parts = [];
+    const firstTerms = firstColumns(parts, ranks, rows);
     const indptr = new Uint32Array(rows + 1);
     const starts: number[] = new Array<number>(parts.length);
     let r = 0;
@@ -305,8 +306,26 @@ class CountAccumulator {
         parts[p] = EMPTY_PART; // let each part go as soon as it is written
       }
     }
-    return { counts: { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray() }, countSums, weighedWith };
+    return { counts: { rows, cols, indptr, indices, data, terms: sortedTerms, tokensPerDoc: this.tokensPerDoc.toArray(), firstTerms }, countSums, weighedWith };
   }
+}
+
+/**
+ * Each row's first entry's column: a counted part lists a document's distinct terms in order of
+ * first use (encode-batch.ts), so its first entry is the document's first token.
+ */
+function firstColumns(parts: readonly CountedPart[], ranks: readonly Uint32Array[], rows: number): Int32Array {
+  const out = new Int32Array(rows).fill(-1);
+  let r = 0;
+  for (const { stream, rowEnds, cols } of parts) {
+    const rank = ranks[stream]!;
+    let start = 0;
+    for (let d = 0; d < rowEnds.length; d++, r++) {
+      if (rowEnds[d]! > start) out[r] = rank[cols[start]!]!;
+      start = rowEnds[d]!;
+    }
+  }
+  return out;
 }
 
 const EMPTY_PART: CountedPart = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };

@@ -42,6 +42,7 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
   const indices = new Uint32Array(total);
   const data = new Float64Array(total);
   const tokensPerDoc = new Uint32Array(rows);
+  const firstTerms = new Int32Array(rows);
   const lines = new Uint32Array(rows);
   const labelled = parts.some((p) => p.labels !== null);
   const labels: (string | null)[] | null = labelled ? [] : null;
@@ -59,13 +60,14 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
     }
     for (let r = 0; r < c.rows; r++) indptr[r0 + r + 1] = at + c.indptr[r + 1]!;
     tokensPerDoc.set(c.tokensPerDoc, r0);
+    for (let r = 0; r < c.rows; r++) firstTerms[r0 + r] = c.firstTerms[r]! < 0 ? -1 : map[c.firstTerms[r]!]!;
     lines.set(p.lines, r0);
     if (labels !== null) for (let r = 0; r < c.rows; r++) labels.push(p.labels === null ? null : (p.labels[r] ?? null));
     for (const preview of p.previews) previews.push(preview);
     r0 += c.rows;
     at += n;
   }
-  return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null, weighedWith: null };
+  return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc, firstTerms }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null, weighedWith: null };
 }
 
 /** Counts a many-file corpus file by file, each with a fresh tokeniser, as its shards would be. */

@@ -17,6 +17,12 @@ export interface CountMatrix extends Csr {
   readonly terms: readonly string[];
   /** Tokens per document before pruning (for meanDocLength and the Report). */
   readonly tokensPerDoc: Uint32Array;
+  /**
+   * Each document's first token's column, −1 for a document without one (or whose first term
+   * was pruned): how many documents a term opens, for the suggestion rule's formula heads
+   * (terms/term-count-stats.ts, docs/methods.md §9).
+   */
+  readonly firstTerms: Int32Array;
 }
 
 export function nnz(m: Csr): number {

@@ -34,7 +34,8 @@ export interface PruneResult {
  * df ≤ maxDf·n), with one difference forced by JSON having one number type: the value itself
  * chooses the reading — minDf < 1 and maxDf ≤ 1 are proportions, the rest counts. So minDf 1
  * means scikit-learn's min_df=1 (int), and maxDf 1 means max_df=1.0 (float), the two defaults.
- * Rows whose every term is dropped stay, empty; tokensPerDoc is kept as it was.
+ * Rows whose every term is dropped stay, empty; tokensPerDoc is kept as it was, and a first term
+ * that is dropped becomes −1.
  */
 export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneResult {
   const n = counts.rows;
@@ -96,7 +97,7 @@ export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneRes
     indptr[r + 1] = at;
   }
   return {
-    counts: { rows: n, cols: terms.length, indptr, indices, data, terms, tokensPerDoc: counts.tokensPerDoc },
+    counts: { rows: n, cols: terms.length, indptr, indices, data, terms, tokensPerDoc: counts.tokensPerDoc, firstTerms: counts.firstTerms.map((c) => (c < 0 ? -1 : newCol[c]!)) },
     prunedByDf,
     stopped,
     unusedStopTerms,

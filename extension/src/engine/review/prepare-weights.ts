@@ -14,7 +14,7 @@ import type { RowCountSums } from '../tokenize/row-count-sums';
 import type { CorpusSource } from '../read/corpus-source';
 import { UserError } from '../user-error';
 import type { FileSnapshot } from './file-snapshot';
-import { termCountStats, type TermCountStats } from '../terms/term-count-stats';
+import { termCountStats, withOpenings, type TermCountStats } from '../terms/term-count-stats';
 
 /** What the rest of a review needs from the counting step, and nothing bigger. */
 export interface PreparedWeights {
@@ -133,7 +133,7 @@ export async function prepareWeights(
     weights = { rows, cols, indptr, indices, data };
     idf = built.weighedWith;
     terms = built.counts.terms;
-    countStats = built.countSums;
+    countStats = withOpenings(built.countSums, built.counts.firstTerms);
   } else {
     // The stop list is applied later as a column mask, not here, so that the review can still say
     // how much a stopped term would pull and whether it carries neighbour signal.
@@ -150,7 +150,7 @@ export async function prepareWeights(
     // The raw-count statistics first: the weights are then written over the counts. Their df is
     // the idf's (every stored count is ≥ 1, so a column's entries are its documents).
     // Counting summed them already (row-count-sums.ts): used when nothing was pruned (the same matrix).
-    countStats = counts === built.counts && built.countSums !== null ? built.countSums : termCountStats(counts);
+    countStats = counts === built.counts && built.countSums !== null ? withOpenings(built.countSums, counts.firstTerms) : termCountStats(counts, counts.firstTerms);
     // Distances are cosine: rows are l2-normalised for measuring whatever `norm` says.
     ({ weights, idf } = weighInPlace(counts, { ...settings.weighting, norm: 'l2' }, countStats.df));
     terms = counts.terms;

@@ -159,6 +159,8 @@ export interface EncodedCountStats {
   cf: string;
   sumCountSq: string;
   sumCountLength: string;
+  /** Documents each column opens (TermCountStats.opens). */
+  opens: string;
 }
 
 export type AnyPartial = CountPartial | PlanPartial | SumsPartial;

@@ -12,7 +12,8 @@ import { UserError } from '../user-error';
  * On disk (`loudword shard count --counts FILE`, read by `shard sums --counts FILE`): the bytes
  * "LWCOUNTS", a little-endian uint32 length, that many bytes of JSON (the header below, the terms
  * and the previews), zero padding to a multiple of 4, then the uint32 arrays indptr (rows + 1),
- * indices (nonzeros), data (nonzeros: counts are whole numbers) and tokensPerDoc (rows).
+ * indices (nonzeros), data (nonzeros: counts are whole numbers) and tokensPerDoc (rows), then the
+ * int32 array firstTerms (rows).
  */
 export interface ShardCounts {
   counts: CountMatrix;
@@ -43,7 +44,7 @@ interface Header extends ShardCountsOrigin {
 }
 
 const MAGIC = Buffer.from('LWCOUNTS', 'latin1');
-const FORMAT = 2;
+const FORMAT = 3;
 
 export function encodeShardCounts(kept: ShardCounts, origin: ShardCountsOrigin): Buffer {
   const { counts } = kept;
@@ -79,6 +80,7 @@ export function encodeShardCounts(kept: ShardCounts, origin: ShardCountsOrigin):
     bytes(counts.indices.subarray(0, nonzeros)),
     bytes(data),
     bytes(counts.tokensPerDoc.subarray(0, counts.rows)),
+    Buffer.from(counts.firstTerms.buffer, counts.firstTerms.byteOffset, 4 * counts.rows),
   ]);
 }
 
@@ -93,7 +95,7 @@ export function decodeShardCounts(buffer: Buffer, origin: ShardCountsOrigin, fil
   at += jsonLength;
   at += (4 - (at % 4)) % 4;
   const { rows, nonzeros } = header;
-  const expected = at + 4 * (rows + 1 + 2 * nonzeros + rows);
+  const expected = at + 4 * (rows + 1 + 2 * nonzeros + rows + rows);
   if (buffer.length !== expected) throw new UserError(`shard counts cut short (${buffer.length} bytes, expected ${expected})`, file, null);
   // Copies, so the arrays are aligned whatever the Buffer's offset in its pool.
   const take = (n: number): Uint32Array => {
@@ -106,7 +108,8 @@ export function decodeShardCounts(buffer: Buffer, origin: ShardCountsOrigin, fil
   const indices = take(nonzeros);
   const data = Float64Array.from(take(nonzeros));
   const tokensPerDoc = take(rows);
-  return { counts: { rows, cols: header.cols, indptr, indices, data, terms: header.terms, tokensPerDoc }, previews: header.previews, labels: header.labels };
+  const firstTerms = new Int32Array(take(rows).buffer);
+  return { counts: { rows, cols: header.cols, indptr, indices, data, terms: header.terms, tokensPerDoc, firstTerms }, previews: header.previews, labels: header.labels };
 }
 
 /** The origin of a shard's counts now: its file's size and modification time under these settings. */

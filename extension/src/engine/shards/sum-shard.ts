@@ -48,7 +48,7 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
   let countStats: EncodedCountStats | null = null;
   const previews: Array<{ doc: number; preview: string }> = [];
   if (plan.full) {
-    countStats = encodeCountStats(termCountStats(counts));
+    countStats = encodeCountStats(termCountStats(counts, counts.firstTerms));
     for (const doc of plan.previewDocs) {
       const row = doc - known.offset;
       if (row >= 0 && row < known.documents) previews.push({ doc, preview: built.previews[row] ?? '' });
@@ -73,8 +73,11 @@ function shardNeighbors(request: NeighborRequest, cols: number, queries: { rows:
   return { id: request.id, docs: encodeUint32(lists.docs), sims: encodeFloat64(lists.sims), labels: listed };
 }
 
-/** The shard's counts re-indexed to the plan's columns; terms the merge pruned are dropped. */
-function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr {
+/**
+ * The shard's counts re-indexed to the plan's columns, with each document's first column; terms
+ * the merge pruned are dropped (a first term so dropped becomes −1).
+ */
+function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr & { firstTerms: Int32Array } {
   const columnOf = new Map<string, number>();
   for (let j = 0; j < planTerms.length; j++) columnOf.set(planTerms[j]!, j);
   const local = counts.terms.map((t) => columnOf.get(t) ?? -1);
@@ -95,7 +98,8 @@ function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr {
     }
     indptr[r + 1] = at;
   }
-  return { rows: counts.rows, cols: planTerms.length, indptr, indices, data };
+  const firstTerms = counts.firstTerms.map((c) => (c < 0 ? -1 : local[c]!));
+  return { rows: counts.rows, cols: planTerms.length, indptr, indices, data, firstTerms };
 }
 
 /** Sparse: only the columns this shard touches. */
@@ -127,5 +131,6 @@ function encodeCountStats(stats: TermCountStats): EncodedCountStats {
     cf: pick(stats.cf),
     sumCountSq: pick(stats.sumCountSq),
     sumCountLength: pick(stats.sumCountLength),
+    opens: pick(stats.opens),
   };
 }

@@ -35,7 +35,7 @@ export class SumsTotals {
     if (plan.settingsKey !== this.key) throw new UserError('the plan was made with other settings: every shard step must use the same loudword.json and options');
     const cols = plan.terms.length;
     this.full = running(cols);
-    this.counts = { documents: 0, totalTokens: 0, sumLengthSq: 0, df: new Float64Array(cols), cf: new Float64Array(cols), sumCountSq: new Float64Array(cols), sumCountLength: new Float64Array(cols) };
+    this.counts = { documents: 0, totalTokens: 0, sumLengthSq: 0, df: new Float64Array(cols), cf: new Float64Array(cols), sumCountSq: new Float64Array(cols), sumCountLength: new Float64Array(cols), opens: new Float64Array(cols) };
     this.previews.length = plan.documents;
   }
 
@@ -145,6 +145,7 @@ function addCounts(total: TermCountStats, part: EncodedCountStats): void {
     [total.cf, decodeFloat64(part.cf)],
     [total.sumCountSq, decodeFloat64(part.sumCountSq)],
     [total.sumCountLength, decodeFloat64(part.sumCountLength)],
+    [total.opens, decodeFloat64(part.opens)],
   ] as const;
   for (const [into, from] of fields) for (let i = 0; i < c.length; i++) into[c[i]!]! += from[i]!;
 }

@@ -7,6 +7,7 @@ import type { TermCountStats } from './term-count-stats';
 export type Decision =
   | { suggested: true; reason: 'everywhere' | 'grammar' | 'markup'; signal: TermSignal; cls: PriorClass | null }
   | { suggested: false; reason: 'bursty' | 'opinion' | 'protected' | 'format'; signal: TermSignal; cls: PriorClass | null }
+  | { suggested: false; reason: 'formula'; signal: TermSignal; cls: PriorClass | null; opensShare: number }
   | { suggested: false; reason: 'light'; group: SuggestionGroup; signal: TermSignal; cls: PriorClass | null; groupShare: number };
 
 /**
@@ -51,6 +52,18 @@ export const FALLBACK_LIMIT = 1;
  * 15.5%, and used unchanged for the common group (docs/methods.md §9).
  */
 export const GROUP_SHARE = 0.15;
+/**
+ * A prior word is kept as the head of the corpus's formula when at least this share of its
+ * occurrences are a document's first token, in at least FORMULA_MIN_DOCS documents: "Someone who
+ * …", "Any of …", "One who …", "Having …". In text written to a formula its head names the kind
+ * of thing the document is, which may be what the user's groups are (a definition of a person,
+ * of an act; an adjective's definition), and it is a few words, so keeping it costs little where
+ * the groups are topics instead. Half (most of its occurrences) and 5 documents were fixed before
+ * the rule was run, and it was adopted on the TUNE corpora (docs/methods.md §9): elsewhere a
+ * grammar word occurs mostly inside the text, and in long documents always.
+ */
+export const FORMULA_OPENS = 0.5;
+export const FORMULA_MIN_DOCS = 5;
 
 /** Median burstiness of the terms outside the prior in at least CONTENT_DF of the documents and CONTENT_MIN_DOCS documents. */
 export function contentBurstiness(stats: TermCountStats, prior: ReadonlyMap<number, PriorClass>): number {
@@ -104,6 +117,9 @@ export interface ChoiceInput {
  * - A closed-class word of the prior is suggested unless the corpus shows it is burstier than its
  *   typical content word (it then carries a topic here), and only when the words so chosen carry
  *   together at least GROUP_SHARE in the same way.
+ * - A prior word that opens a document in at least FORMULA_OPENS of its occurrences (in at least
+ *   FORMULA_MIN_DOCS documents) heads the corpus's formula and is kept, whatever the rules above
+ *   would say: it names the kind of document.
  * - Markup residue (tag and entity names, pieces of web addresses) in at least CONTENT_DF of the
  *   documents is suggested on opinion text only. On topic text it is kept unless in more than
  *   half the documents: there the markup marks a kind of document (HTML mail against plain mail),
@@ -199,6 +215,10 @@ function decide(input: Omit<ChoiceInput, 'jointShares'>, c: number, limit: numbe
   if (!everywhere && !inPrior) return null;
   const signal = termSignal(stats, c);
   if (protect.has(c)) return { suggested: false, reason: 'protected', signal, cls };
+  if (inPrior && cls !== 'markup') {
+    const opensShare = stats.cf[c]! > 0 ? stats.opens[c]! / stats.cf[c]! : 0;
+    if (opensShare >= FORMULA_OPENS && stats.df[c]! >= FORMULA_MIN_DOCS) return { suggested: false, reason: 'formula', signal, cls, opensShare };
+  }
   const meaning = cls !== null && cls !== 'markup' && cls !== 'phrase' && isMeaningClass(cls);
   if (opinion) {
     // Markup residue needs to be common to be residue: a tag name in a handful of documents is

@@ -59,6 +59,8 @@ export function explainTerm(row: TermRow, documents: number, decision: Decision 
         return d.group === 'common'
           ? `${inDocs}: more than half, but the words above half that are not grammar words together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GROUP_SHARE)}): too little to distort distances, and such words can be the collection's own subject`
           : `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GROUP_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
+      case 'formula':
+        return `${kind ?? 'grammar word'} ${inDocs}, but ${pct(d.opensShare)} of its occurrences open a document: it heads this corpus's formula ("someone who …", "of or pertaining to …"), which names the kind of document, so it is kept`;
       case 'protected':
         return `protected by "suggest.protect"`;
       case 'format':
