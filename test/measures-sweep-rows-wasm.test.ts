@@ -1,5 +1,5 @@
 // The sampled measures' row sweep in WebAssembly (measures/sweep-rows.wat) must write what the
-// TypeScript's SweepRows writes, byte for byte (NaN's bits and −0 included): every output of every
+// TypeScript's SweepRows writes, byte for byte (−0 included; a NaN as a NaN, whatever its bits): every output of every
 // row and every block's sums, on random rows, on rows with ties at the k-th place, with invalid
 // (empty) rows, with rows too short for k neighbours or for the radius slack's 10k-th distance,
 // with rows whose distances are all equal, and with rows whose radius bound falls short (the row's
@@ -25,8 +25,15 @@ function products(seed: number, n: number, cols: number, density: number, emptyE
 
 const FIELDS: Array<keyof Omit<SweepOutputs, 'knn'>> = ['nnDist', 'zScores', 'contrast', 'slack', 'rowMean', 'rowMin', 'nearBin', 'tieGroup', 'blockPairs', 'blockBins'];
 
+/**
+ * The bytes to compare, every NaN of a float array written as the one canonical NaN: a NaN's sign
+ * and payload are fixed by neither side (WebAssembly leaves arithmetic NaNs' bits open; V8 gives
+ * the CPU's default NaN in optimised code and the canonical one elsewhere), so they can differ from
+ * run to run. Every other value, −0 included, is compared bit for bit.
+ */
 function bytes(a: ArrayBufferView): Buffer {
-  return Buffer.from(a.buffer, a.byteOffset, a.byteLength);
+  const view = a instanceof Float64Array || a instanceof Float32Array ? a.map((x) => (Number.isNaN(x) ? Number.NaN : x)) : a;
+  return Buffer.from(view.buffer, view.byteOffset, view.byteLength);
 }
 
 /** Both sweeps' outputs; the WebAssembly's blocks in reverse order, into memory filled with 0xa5 first. */

@@ -1,7 +1,7 @@
 // The what-if's dot-product update in WebAssembly (what-if/gram-update.wat) must leave what the
 // TypeScript's IncrementalGram.update leaves, byte for byte: every dot product (an exact +0 where a
-// pair's count of shared terms reaches 0, infinities and NaN as they come) and every count, after each
-// click. Compared on text-like rows (duplicates: tied pairs; rows of one or two terms that empty
+// pair's count of shared terms reaches 0, infinities and NaN as they come, a NaN compared as a
+// NaN) and every count, after each click. Compared on text-like rows (duplicates: tied pairs; rows of one or two terms that empty
 // out), with single toggles, several terms at once, a term in every row and one in a single row,
 // weights of both signs with zeros, huge and tiny values, and a row long enough for 32-bit counts.
 // The TypeScript is held to a full recompute in test/what-if-incremental.test.ts.
@@ -12,8 +12,15 @@ import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { gramUpdateModule, IncrementalGram } from '../extension/src/engine/what-if/incremental-gram';
 import { textLikeRows } from './support/text-like-rows';
 
+/**
+ * The bytes to compare, every NaN of a float array written as the one canonical NaN: a NaN's sign
+ * and payload are fixed by neither side (WebAssembly leaves arithmetic NaNs' bits open; V8 gives
+ * the CPU's default NaN in optimised code and the canonical one elsewhere), so they can differ from
+ * run to run. Every other value, −0 included, is compared bit for bit.
+ */
 function bytes(a: ArrayBufferView): Buffer {
-  return Buffer.from(a.buffer, a.byteOffset, a.byteLength);
+  const view = a instanceof Float64Array || a instanceof Float32Array ? a.map((x) => (Number.isNaN(x) ? Number.NaN : x)) : a;
+  return Buffer.from(view.buffer, view.byteOffset, view.byteLength);
 }
 
 /** Two states over `rows`, each in shared memory as the what-if's thread keeps it: the update in WebAssembly and in TypeScript. */
