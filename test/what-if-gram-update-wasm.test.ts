@@ -1,8 +1,8 @@
 // The what-if's dot-product update in WebAssembly (what-if/gram-update.wat) must leave what the
 // TypeScript's IncrementalGram.update leaves, byte for byte: every dot product (an exact +0 where a
 // pair's count of shared terms reaches 0, infinities and NaN as they come, a NaN compared as a
-// NaN) and every count, after each click. Compared on text-like rows (duplicates: tied pairs; rows of one or two terms that empty
-// out), with single toggles, several terms at once, a term in every row and one in a single row,
+// NaN) and every count, after each click. Compared on text-like rows (duplicates: tied pairs;
+// rows of one or two terms that empty out), with single toggles, several terms at once, a term in every row and one in a single row,
 // weights of both signs with zeros, huge and tiny values, and a row long enough for 32-bit counts.
 // The TypeScript is held to a full recompute in test/what-if-incremental.test.ts.
 import { strict as assert } from 'node:assert';
