@@ -5,6 +5,7 @@ import { createTermCoder, type TokenSettings } from '../tokenize/create-tokenize
 import { freshWinkInstance } from '../tokenize/wink-instance';
 import { buildCountMatrix, type BuiltCorpus } from './build-count-matrix';
 import { compareCodePoints } from './compare-code-points';
+import { renumberFirstTerms } from './csr';
 
 /**
  * A tokeniser that has seen nothing before this file, in this thread. wink-nlp's output depends
@@ -60,7 +61,7 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
     }
     for (let r = 0; r < c.rows; r++) indptr[r0 + r + 1] = at + c.indptr[r + 1]!;
     tokensPerDoc.set(c.tokensPerDoc, r0);
-    for (let r = 0; r < c.rows; r++) firstTerms[r0 + r] = c.firstTerms[r]! < 0 ? -1 : map[c.firstTerms[r]!]!;
+    firstTerms.set(renumberFirstTerms(c.firstTerms, map), r0);
     lines.set(p.lines, r0);
     if (labels !== null) for (let r = 0; r < c.rows; r++) labels.push(p.labels === null ? null : (p.labels[r] ?? null));
     for (const preview of p.previews) previews.push(preview);

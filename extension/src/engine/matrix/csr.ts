@@ -25,6 +25,11 @@ export interface CountMatrix extends Csr {
   readonly firstTerms: Int32Array;
 }
 
+/** `firstTerms` under a new numbering of the columns: `columnOf[c]` is column c's new one, < 0 where it is dropped. */
+export function renumberFirstTerms(firstTerms: Int32Array, columnOf: ArrayLike<number>): Int32Array {
+  return firstTerms.map((c) => (c < 0 || columnOf[c]! < 0 ? -1 : columnOf[c]!));
+}
+
 export function nnz(m: Csr): number {
   return m.indptr[m.rows] ?? 0;
 }

@@ -1,5 +1,5 @@
 import { UserError } from '../user-error';
-import type { CountMatrix } from './csr';
+import { renumberFirstTerms, type CountMatrix } from './csr';
 
 export interface PruneOptions {
   /**
@@ -39,11 +39,7 @@ export interface PruneResult {
  */
 export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneResult {
   const n = counts.rows;
-  const minCount = documentCount('prune.minDf', options.minDf, n, false);
-  const maxCount = documentCount('prune.maxDf', options.maxDf, n, true);
-  if (maxCount < minCount) {
-    throw new UserError(`prune.maxDf (${options.maxDf}) allows fewer documents than prune.minDf (${options.minDf}).`);
-  }
+  const { minCount, maxCount } = dfBounds(options, n);
   const total = counts.indptr[counts.rows];
   let df: ArrayLike<number>;
   if (options.df !== undefined) {
@@ -97,11 +93,24 @@ export function pruneTerms(counts: CountMatrix, options: PruneOptions): PruneRes
     indptr[r + 1] = at;
   }
   return {
-    counts: { rows: n, cols: terms.length, indptr, indices, data, terms, tokensPerDoc: counts.tokensPerDoc, firstTerms: counts.firstTerms.map((c) => (c < 0 ? -1 : newCol[c]!)) },
+    counts: { rows: n, cols: terms.length, indptr, indices, data, terms, tokensPerDoc: counts.tokensPerDoc, firstTerms: renumberFirstTerms(counts.firstTerms, newCol) },
     prunedByDf,
     stopped,
     unusedStopTerms,
   };
+}
+
+/**
+ * The document counts a term's df must lie between (inclusive) for `n` documents: the prune
+ * settings read as documentCount reads them; a UserError when either is invalid or they leave no
+ * room. One reading for every place that prunes (pruneTerms, a review in shards' plan, the rows
+ * weighed as they are written).
+ */
+export function dfBounds(prune: { minDf: number; maxDf: number }, n: number): { minCount: number; maxCount: number } {
+  const minCount = documentCount('prune.minDf', prune.minDf, n, false);
+  const maxCount = documentCount('prune.maxDf', prune.maxDf, n, true);
+  if (maxCount < minCount) throw new UserError(`prune.maxDf (${prune.maxDf}) allows fewer documents than prune.minDf (${prune.minDf}).`);
+  return { minCount, maxCount };
 }
 
 /** The df bound a setting stands for, as scikit-learn computes it (proportion × n, unrounded). */

@@ -7,7 +7,7 @@ import { hasGlob } from '../read/corpus-files';
 import { countEachFile } from '../matrix/count-each-file';
 import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
-import { documentCount, pruneTerms } from '../matrix/prune-terms';
+import { dfBounds, pruneTerms } from '../matrix/prune-terms';
 import { idfFromDf, weighInPlace } from '../matrix/weigh';
 import type { RowWeighing } from '../tokenize/row-assembler';
 import type { RowCountSums } from '../tokenize/row-count-sums';
@@ -182,14 +182,13 @@ export async function prepareWeights(
  * review's thread then makes no weighing pass over the matrix while one core is idle.
  */
 export function weighingAhead(settings: Pick<EffectiveSettings, 'prune' | 'weighting'>, sums: RowCountSums, rows: number): RowWeighing | null {
-  let minCount;
-  let maxCount;
+  let bounds;
   try {
-    minCount = documentCount('prune.minDf', settings.prune.minDf, rows, false);
-    maxCount = documentCount('prune.maxDf', settings.prune.maxDf, rows, true);
+    bounds = dfBounds(settings.prune, rows);
   } catch {
     return null;
   }
+  const { minCount, maxCount } = bounds;
   const { df } = sums;
   if (df.length === 0) return null;
   for (let j = 0; j < df.length; j++) if (df[j]! < minCount || df[j]! > maxCount) return null;

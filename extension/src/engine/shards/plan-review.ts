@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import * as path from 'node:path';
 import type { EffectiveSettings } from '../../protocol';
 import { compareCodePoints } from '../matrix/compare-code-points';
-import { documentCount } from '../matrix/prune-terms';
+import { dfBounds } from '../matrix/prune-terms';
 import { idfOf } from '../matrix/weigh';
 import { BottomK, compareRanked, type Ranked } from '../random/bottom-k';
 import { MAX_SKIPPED_EXAMPLES } from '../read/row-stream';
@@ -100,9 +100,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
   }
   if (documents === 0) throw new UserError('no documents with text were found', input.corpus);
   const allTerms = [...dfOf.keys()].sort(compareCodePoints);
-  const minCount = documentCount('prune.minDf', settings.prune.minDf, documents, false);
-  const maxCount = documentCount('prune.maxDf', settings.prune.maxDf, documents, true);
-  if (maxCount < minCount) throw new UserError(`prune.maxDf (${settings.prune.maxDf}) allows fewer documents than prune.minDf (${settings.prune.minDf}).`);
+  const { minCount, maxCount } = dfBounds(settings.prune, documents);
   const terms: string[] = [];
   const idf: number[] = [];
   let nonzeros = 0;

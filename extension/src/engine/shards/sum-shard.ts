@@ -1,6 +1,6 @@
 import type { EffectiveSettings } from '../../protocol';
 import { countFile } from '../matrix/count-each-file';
-import type { CountMatrix, Csr } from '../matrix/csr';
+import { renumberFirstTerms, type CountMatrix, type Csr } from '../matrix/csr';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { weighWithIdf } from '../matrix/weigh';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
@@ -98,8 +98,7 @@ function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr &
     }
     indptr[r + 1] = at;
   }
-  const firstTerms = counts.firstTerms.map((c) => (c < 0 ? -1 : local[c]!));
-  return { rows: counts.rows, cols: planTerms.length, indptr, indices, data, firstTerms };
+  return { rows: counts.rows, cols: planTerms.length, indptr, indices, data, firstTerms: renumberFirstTerms(counts.firstTerms, local) };
 }
 
 /** Sparse: only the columns this shard touches. */
