@@ -5,7 +5,7 @@ import { KERNEL_DOCS } from './kernel-docs';
 import { KJV_CHAPTERS } from './kjv-chapters';
 import type { DevCorpus } from './labelled-corpus';
 import { MAN_PAGES } from './man-pages';
-import { PACKAGE_DESCRIPTIONS, PACKAGE_DESCRIPTIONS_20K } from './package-descriptions';
+import { PACKAGE_DESCRIPTIONS, PACKAGE_DESCRIPTIONS_20K, PACKAGE_SYNOPSES } from './package-descriptions';
 import { PYTHON_DOCS } from './python-docs';
 import { RATED_SENTENCES } from './rated-sentences';
 import { REUTERS_SAMPLE } from './reuters-sample';
@@ -30,7 +30,7 @@ export const FORTUNES: DevCorpus = {
 };
 
 /** The development set (test/corpora/README.md): TUNE first, then CHECK. */
-export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, WEBSTER_DEFINITIONS, WEBSTER_PARTS_OF_SPEECH, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS, KERNEL_DOCS, PYTHON_DOCS, WORDNET_GLOSSES];
+export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES, WEBSTER_DEFINITIONS, WEBSTER_PARTS_OF_SPEECH, FORTUNES, PACKAGE_DESCRIPTIONS, KJV_CHAPTERS, RATED_SENTENCES, REUTERS_SAMPLE, AUSTEN_CHAPTERS, FINE_FOOD_REVIEWS, KERNEL_DOCS, PYTHON_DOCS, WORDNET_GLOSSES, PACKAGE_SYNOPSES];
 
 /**
  * Larger versions of development corpora, run only when named (`npm run quality -- <name>`):
