@@ -5,7 +5,7 @@
 // test/quality/precision_at_k.py; the corpora come from Debian and npm packages.
 // Left out: package-descriptions and package-synopses (they need apt's English translations, which
 // a CI machine's apt may not fetch), and the three open failures docs/methods.md §9 reports: kernel-docs (−0.004 against
-// the English list), wordnet-glosses (−0.017 against no list) and webster-parts-of-speech (−0.043
+// the English list), wordnet-glosses (−0.013 against no list) and webster-parts-of-speech (−0.027
 // against no list: definitions grouped by part of speech, whose grammar words are the signal).
 // This test guards what holds; the quality table (`npm run quality`) shows all.
 import { strict as assert } from 'node:assert';
