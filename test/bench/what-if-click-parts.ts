@@ -6,11 +6,13 @@
 //   node --import tsx test/bench/what-if-click-parts.ts dump FILE.csv DIR   # one review, then the
 //        bench's clicks (what-if-latency.ts: 9 toggles, every other one undone) in one thread;
 //        the weights, the sampled rows, the opening mask and every click's mask written to DIR
-//   taskset -c 1 node --import tsx test/bench/what-if-click-parts.ts time DIR exact|gram [rounds] [--js]
+//   taskset -c 1 node --import tsx test/bench/what-if-click-parts.ts time DIR exact|gram|sample [rounds] [--js]
 //        # CPU ms per click of that part in one thread (each round from the opening state, the
 //        # idle-time drift resets between clicks untimed, as in the editor), median and least
 //        # after the first round, and a hash of every click's output in the first round (equal
-//        # hashes: the same bits); --js: the TypeScript loops instead of the WebAssembly ones
+//        # hashes: the same bits); --js: the TypeScript loops instead of the WebAssembly ones;
+//        # `sample`: the what-if thread's whole half (SampleSide.measures: the dot products,
+//        # the sweep in its shared memory with no helper, the fields), its Measures hashed
 import { createHash } from 'node:crypto';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -110,6 +112,24 @@ async function time(dir: string, part: string, rounds: number, js: boolean): Pro
       return [dots, scale];
     };
     settle = () => gram.settle();
+  } else if (part === 'sample') {
+    const { SampleSide } = (await import(engine('what-if/sample-side.ts'))) as typeof import('../../extension/src/engine/what-if/sample-side');
+    const { IncrementalGram } = (await import(engine('what-if/incremental-gram.ts'))) as typeof import('../../extension/src/engine/what-if/incremental-gram');
+    const { SharedRowSweep } = (await import(engine('measures/shared-row-sweep.ts'))) as typeof import('../../extension/src/engine/measures/shared-row-sweep');
+    // The what-if thread's whole half (SampleSide: the dot products' update, the sweep opened
+    // under a ticket as the thread opens it, with no helper, and the fields read off it), in
+    // the thread's shared memory. The dump holds no labels: position mod 20, as
+    // what-if-sweep-states.ts tail does; no baseline neighbours.
+    const m = weights.rows;
+    const labels = Int32Array.from({ length: m }, (_, i) => i % 20);
+    const sweep = SharedRowSweep.create(m, 10, 16, 2, IncrementalGram.storageNeeds(weights));
+    // With the shared list of a click's terms where this build has one (GramRowsUpdate): the update row by row in the sweep.
+    const rowsUpdate = (await import(engine('what-if/gram-rows-update.ts')).catch(() => null)) as { GramRowsUpdate?: { buffer(): SharedArrayBuffer } } | null;
+    const list = rowsUpdate?.GramRowsUpdate?.buffer();
+    const side = new SampleSide({ rows: weights, k: 10, seed: 1, labels, baselineNeighbors: null, sweep: sweep.buffers, ...(list === undefined ? {} : { rowsUpdate: list }) });
+    let ticket = 0;
+    step = (mask, incremental) => [Buffer.from(JSON.stringify(side.measures(mask, incremental, ++ticket)))];
+    settle = () => side.settle();
   } else throw new Error(`no part ${part}`);
   const hash = createHash('sha256');
   const ms: number[] = [];
@@ -135,7 +155,7 @@ const run =
     ? dump(a, b)
     : mode === 'time' && a && b
       ? time(a, b, Number(rest.find((x) => x !== '--js') ?? '4'), rest.includes('--js'))
-      : Promise.reject(new Error('usage: what-if-click-parts.ts dump FILE.csv DIR | time DIR exact|gram [rounds] [--js]'));
+      : Promise.reject(new Error('usage: what-if-click-parts.ts dump FILE.csv DIR | time DIR exact|gram|sample [rounds] [--js]'));
 run.then(
   () => process.exit(0),
   (e: unknown) => {

@@ -9,7 +9,7 @@ import { measureSampleRows, type SampleRowMeasures } from './measure-sample-rows
 import { mleDimension } from './mle-dimension';
 import { neighborTurnover } from './neighbor-turnover';
 import { sampleSimilarities } from './sample-similarity';
-import type { SharedRowSweep } from './shared-row-sweep';
+import type { PrepareRows, SharedRowSweep } from './shared-row-sweep';
 import { cumulativeMassShare, pairMass, termSums, type PairMass, type TermSums } from './term-sums';
 import { twoNN } from './two-nn';
 
@@ -118,8 +118,11 @@ export interface MeasuresFromGramOptions {
    * states, and the sweep is opened under `ticket`; the same bits as without it, with its blockRows.
    * With `views`, the per-row arrays returned (neighbors, neighborSims, standoutPerQuery) are the
    * sweep's shared outputs, valid until its next sweep opens (SharedRowSweep.sweep), not copies.
+   * With `prepare`, each block's rows of `gram` are prepared just before they are swept
+   * (SharedRowSweep.sweep: the what-if's dot-product update, row by row); the diagonal and
+   * `rowScale` are final already.
    */
-  shared?: { sweep: SharedRowSweep; ticket: number; views?: boolean };
+  shared?: { sweep: SharedRowSweep; ticket: number; views?: boolean; prepare?: PrepareRows };
 }
 
 export type MeasuresFromGramResult = Omit<MeasureDistancesResult, 'hubPositions' | 'termKnnMass'>;
@@ -192,7 +195,7 @@ export function sampledMeasures(options: Omit<MeasuresFromGramOptions, 'sums' | 
 
   const rows =
     options.shared !== undefined
-      ? options.shared.sweep.sweep(options.shared.ticket, gram, scale, valid, options.interrupt, options.shared.views === true)
+      ? options.shared.sweep.sweep(options.shared.ticket, gram, scale, valid, options.interrupt, options.shared.views === true, options.shared.prepare)
       : measureSampleRows(gram, m, k, valid, scale, options.interrupt, options.blockRows);
   return sampledFieldsOf(rows, valid, options);
 }

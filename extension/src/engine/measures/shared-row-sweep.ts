@@ -34,7 +34,11 @@ const OPENED = 2;
 const GRAM = 3;
 /** Set by a helper whose block failed: the owner then sweeps every block again itself. */
 const FAILED = 4;
-const CONTROL_SLOTS = 5;
+/** 1 when each block of the open sweep is prepared first (the owner's `prepare`, the helper's too). */
+const PREPARE = 5;
+/** The block the owner prepared before opening the sweep (for pairShift), −1 if none. */
+const PREPARED = 6;
+const CONTROL_SLOTS = 7;
 
 /** Whose scratch a sweep's rows use (sweepLayout's threads): the owner's sweeps, the helper's blocks. */
 const OWNER = 0;
@@ -56,9 +60,18 @@ export interface SweepState {
 }
 
 /**
+ * Work a sweep's rows need before they are read, on rows [first, end) of the state the sweep reads
+ * (the what-if's dot-product update of those rows, what-if/gram-rows-update.ts): it writes only
+ * those rows, so whichever thread sweeps a block prepares it, just before (the rows are then in
+ * its cache when swept). Each thread passes its own (SharedRowSweep.sweep, help).
+ */
+export type PrepareRows = (first: number, end: number) => void;
+
+/**
  * One sweep of the sampled measures (measureSampleRows' rows, in blocks) shared by two threads:
  * the owner (the what-if's sample thread) opens it under a ticket once its dot products are up
- * to date, and it and a helper (the review's thread, once its exact sums are done) claim blocks
+ * to date (or, with a `prepare`, once their diagonal and the row scales are, each block's rows
+ * then brought up to date by the thread that sweeps them), and it and a helper (the review's thread, once its exact sums are done) claim blocks
  * of rows one at a time from a counter in shared memory until none is left. Each block writes
  * its own rows' outputs and its own partial sums, and the owner adds them up in row order
  * (reduceSweep) once every claimed block is done, so the answer is the same bits whoever swept
@@ -139,16 +152,32 @@ export class SharedRowSweep {
    * once the helper's block is done. With `views`, the per-row arrays of the answer (knn,
    * standoutPerQuery, nnDist) are the shared outputs themselves, valid until the next sweep opens
    * (reduceSweep's `copy`); without, copies.
+   * With `prepare`, each block's rows are prepared by the thread that sweeps them, just before (the
+   * helper then needs its own `prepare`, or it takes no block); the diagonal and the row scales
+   * must be final already, and the first valid row's block is prepared before the sweep opens
+   * (pairShift reads that row). A sweep whose rows were prepared cannot be swept again, so when a
+   * helper's block fails this throws instead of sweeping every block again.
    */
-  sweep(ticket: number, gram: Float64Array, rowScale: Float64Array | undefined, valid: Uint8Array, interrupt?: () => void, views = false): SampleRowMeasures {
+  sweep(ticket: number, gram: Float64Array, rowScale: Float64Array | undefined, valid: Uint8Array, interrupt?: () => void, views = false, prepare?: PrepareRows): SampleRowMeasures {
     const { control, buffers } = this;
     const index = this.stateOf(gram);
     const { dots, scale } = this.grams[index] ?? {};
     if (dots === undefined || scale === undefined || rowScale === undefined || rowScale.buffer !== scale.buffer || rowScale.byteOffset !== scale.byteOffset) throw new Error('SharedRowSweep: the dot products and scales are not one of its states');
     this.valid.set(valid);
+    let prepared = -1;
+    if (prepare !== undefined) {
+      let first = 0;
+      while (first < buffers.m && !valid[first]) first++;
+      if (first < buffers.m) {
+        prepared = Math.floor(first / buffers.blockRows);
+        this.prepareBlock(prepare, prepared);
+      }
+    }
     this.shift[0] = pairShift(dots, buffers.m, this.valid, scale);
     Atomics.store(control, DONE, 0);
     Atomics.store(control, FAILED, 0);
+    Atomics.store(control, PREPARE, prepare === undefined ? 0 : 1);
+    Atomics.store(control, PREPARED, prepared);
     Atomics.store(control, GRAM, index);
     Atomics.store(control, CLAIM, claimWord(ticket, 0));
     Atomics.store(control, OPENED, ticket);
@@ -160,6 +189,7 @@ export class SharedRowSweep {
         interrupt?.();
         const b = this.claim(ticket);
         if (b < 0) break;
+        if (prepare !== undefined && b !== prepared) this.prepareBlock(prepare, b);
         rows.block(b);
         Atomics.add(control, DONE, 1);
       }
@@ -168,23 +198,32 @@ export class SharedRowSweep {
       const claimed = this.close(ticket);
       for (let done = Atomics.load(control, DONE); done < claimed; done = Atomics.load(control, DONE)) Atomics.wait(control, DONE, done, 1000);
     }
-    if (Atomics.load(control, FAILED) !== 0) for (let b = 0; b < this.blocks; b++) rows.block(b);
+    if (Atomics.load(control, FAILED) !== 0) {
+      if (prepare !== undefined) throw new Error('SharedRowSweep: a helper failed on a block whose rows it may have prepared part way');
+      for (let b = 0; b < this.blocks; b++) rows.block(b);
+    }
     return reduceSweep(rows.reads, this.out, this.blocks, !views);
   }
 
   /**
    * The helper's part of sweep `ticket`, if it is the one open: blocks claimed and swept until
-   * none is left. Returns how many it swept (0 when that sweep is over or not open).
+   * none is left. Returns how many it swept (0 when that sweep is over or not open). A sweep whose
+   * blocks are prepared first (the owner's `prepare`) is helped only with a `prepare` of this
+   * thread's, which it calls before sweeping each block it claims.
    */
-  help(ticket: number): number {
+  help(ticket: number, prepare?: PrepareRows): number {
     const { control } = this;
     if (Atomics.load(control, OPENED) !== ticket) return 0;
+    const preparing = Atomics.load(control, PREPARE) !== 0;
+    if (preparing && prepare === undefined) return 0;
+    const prepared = Atomics.load(control, PREPARED);
     let swept = 0;
     let rows: { block(b: number): void } | null = null;
     for (let b = this.claim(ticket); b >= 0; b = this.claim(ticket)) {
       try {
         // Read only once a block is claimed: until then the owner may still be writing them.
         rows ??= this.rows(Atomics.load(control, GRAM), HELPER);
+        if (preparing && b !== prepared) this.prepareBlock(prepare!, b);
         rows.block(b);
         swept++;
       } catch {
@@ -216,6 +255,13 @@ export class SharedRowSweep {
     const at = this.layout.states[index]!;
     wasm.state(at.dots, at.scale, shift);
     return { reads, block: (b) => wasm.block(b) };
+  }
+
+  /** `prepare` on block b's rows. */
+  private prepareBlock(prepare: PrepareRows, b: number): void {
+    const { m, blockRows } = this.buffers;
+    const first = b * blockRows;
+    prepare(first, Math.min(m, first + blockRows));
   }
 
   /** The next block of sweep `ticket`, claimed; −1 when none is left or another sweep is open. */

@@ -74,6 +74,12 @@ export class IncrementalGram {
   private sharedValid = false;
   /** A rebuild at the current mask is due (see settle). */
   private settleDue = false;
+  /** While scaledPending runs: the most toggled terms whose pair loops it leaves to the caller (0: none). */
+  private deferUpTo = 0;
+  /** What scaledPending leaves to the caller: the terms' postings and signs (see there), or null. */
+  private pending: Int32Array | null = null;
+  /** Whether the pair loops scaledPending left are still to run (the state is not ready until then). */
+  private rowsPending = false;
   lastStep: { kind: 'full' | 'incremental' | 'unchanged' | 'restored'; pairs: number } = { kind: 'unchanged', pairs: 0 };
 
   constructor(
@@ -184,6 +190,35 @@ export class IncrementalGram {
   }
 
   /**
+   * scaled(removed, incremental, interrupt), except that when the step is an update in
+   * WebAssembly of at most `maxTerms` toggled terms, its pair loops are left to the caller, to run
+   * row by row just before each row is read (GramRowsUpdate, as the sweep reaches the row): each
+   * row's pairs write only that row's dot products and counts, and no pair writes a diagonal
+   * entry. The diagonal and the row scales returned are final; `pending` lists, in the update's
+   * order, each toggled term's sample postings [from, to) and its sign (+1 restored, −1 stopped),
+   * three i32 per term, or is null when nothing is left (a build, a restore, no change, or an
+   * update run here). Until rowsUpdated() the state is not ready: a call that comes first (the
+   * rows left part way: an interrupted sweep) builds it afresh.
+   */
+  scaledPending(removed: Uint8Array, incremental: boolean, maxTerms: number, interrupt?: () => void): { dots: Float64Array; scale: Float64Array; pending: Int32Array | null } {
+    this.deferUpTo = this.wasm === null ? 0 : maxTerms;
+    try {
+      const { dots, scale } = this.scaled(removed, incremental, interrupt);
+      return { dots, scale, pending: this.pending };
+    } finally {
+      this.deferUpTo = 0;
+      this.pending = null;
+    }
+  }
+
+  /** Every row has run the pair loops scaledPending left: the state is ready again. */
+  rowsUpdated(): void {
+    if (!this.rowsPending) return;
+    this.rowsPending = false;
+    this.ready = true;
+  }
+
+  /**
    * A second state over the same rows (in `storage` if given), sharing the checkpoints: the what-if's speculative
    * answers are computed in it (copyFrom, then scaled) so that the state the clicks walk is left
    * as it was, and adopted by swapping the two (SampleSide).
@@ -207,6 +242,7 @@ export class IncrementalGram {
     this.inv.set(other.inv);
     this.mask.set(other.mask);
     this.ready = other.ready;
+    this.rowsPending = false;
     this.updatedPairs = other.updatedPairs;
     this.exact = other.exact;
     this.settleDue = other.settleDue;
@@ -375,7 +411,17 @@ export class IncrementalGram {
     if (!this.sharedValid) this.countShared();
     const { m, dots, shared, postPos, postVal, wasm } = this;
     const touched = new Uint8Array(m);
-    for (const t of changed) {
+    // Left to the caller (scaledPending): the pair loops, term by term as below.
+    const pending = wasm !== null && changed.length <= this.deferUpTo ? new Int32Array(3 * changed.length) : null;
+    if (pending !== null) {
+      changed.forEach((t, n) => {
+        const from = this.start[t]!;
+        const to = this.start[t + 1]!;
+        pending.set([from, to, removed[t] !== 0 ? -1 : 1], 3 * n);
+        for (let x = from; x < to; x++) touched[postPos[x]!] = 1;
+      });
+    }
+    for (const t of pending === null ? changed : []) {
       const sign = removed[t] !== 0 ? -1 : 1;
       const from = this.start[t]!;
       const to = this.start[t + 1]!;
@@ -427,6 +473,11 @@ export class IncrementalGram {
     this.settleDue = this.updatedPairs > SETTLE_AFTER * m * m;
     this.exact = false;
     this.lastStep = { kind: 'incremental', pairs: cost };
+    if (pending !== null) {
+      this.pending = pending;
+      this.rowsPending = true;
+      this.ready = false;
+    }
   }
 
   /** Calls an update's `interrupt`; when it throws, the half-updated state is unusable until the next copyFrom (a full build first otherwise). */

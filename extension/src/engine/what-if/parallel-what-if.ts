@@ -6,6 +6,7 @@ import { SharedRowSweep } from '../measures/shared-row-sweep';
 import { PendingReplies } from '../threads/pending-replies';
 import { startThread, threadScript } from '../threads/thread-script';
 import type { DistanceLab } from './distance-lab';
+import { GramRowsUpdate } from './gram-rows-update';
 import { IncrementalGram } from './incremental-gram';
 import { WHAT_IF_BLOCK_ROWS } from './sample-side';
 import { SharedColumnGather } from './shared-column-gather';
@@ -19,7 +20,9 @@ import type { SampleReply, SampleRequest, SampleThreadData } from './sample-thre
  * The two halves share no input, so a toggle costs the longer of the two instead of their sum;
  * and the sample's half is the longer (its sweep over the m×m products), so once the exact sums
  * are done this thread takes blocks of that sweep's rows too (SharedRowSweep: the thread keeps
- * its products in shared memory and opens each sweep under the request's number). When the exact
+ * its products in shared memory and opens each sweep under the request's number; a click's
+ * update of the products runs block by block in that sweep, each block's by the thread that
+ * sweeps it, GramRowsUpdate). When the exact
  * half is the longer (a click on a term in most rows gathers ~5M non-zeros at 100k), the thread,
  * its answer sent, takes blocks of columns of that gather the same way (SharedColumnGather, under
  * the same number; a click that does not gather passes it over, so the thread stops waiting).
@@ -50,6 +53,8 @@ export class ParallelWhatIf {
     private readonly sweep: SharedRowSweep,
     /** The exact sums' gather the thread helps with (null: the exact half stays here). */
     private readonly gather: SharedColumnGather | null,
+    /** This thread's share of the dot products' update, run in the blocks it sweeps (null: the thread updates them whole first). */
+    private readonly rowsUpdate: GramRowsUpdate | null,
   ) {
     worker.on('message', (reply: SampleReply) => {
       if (reply.measures !== null) this.replies.resolve(reply.seq, reply.measures);
@@ -74,8 +79,20 @@ export class ParallelWhatIf {
     // With room for the thread's states' updates beside their products (IncrementalGram.storageNeeds).
     const sweep = SharedRowSweep.create(rows, lab.k, WHAT_IF_BLOCK_ROWS, 2, IncrementalGram.storageNeeds(lab.sampleRows));
     const gather = lab.exactGather();
-    const workerData: SampleThreadData = { rows: { rows, cols, indptr, indices, data }, k: lab.k, seed: lab.seed, labels: lab.sampleLabels, baselineNeighbors, sweep: sweep.buffers, ...(gather === null ? {} : { gather }) };
-    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }), sweep, gather === null ? null : SharedColumnGather.from(gather));
+    // The update row by row in the sweep only where this thread can take its share of it too.
+    const list = GramRowsUpdate.buffer();
+    const rowsUpdate = GramRowsUpdate.open(sweep, list);
+    const workerData: SampleThreadData = {
+      rows: { rows, cols, indptr, indices, data },
+      k: lab.k,
+      seed: lab.seed,
+      labels: lab.sampleLabels,
+      baselineNeighbors,
+      sweep: sweep.buffers,
+      ...(rowsUpdate === null ? {} : { rowsUpdate: list }),
+      ...(gather === null ? {} : { gather }),
+    };
+    const parallel = new ParallelWhatIf(lab, baselineNeighbors, startThread(script, { workerData }), sweep, gather === null ? null : SharedColumnGather.from(gather), rowsUpdate);
     // A failure shows again on the first toggle, which then falls back.
     parallel.opened = parallel.request(opening, true).reply.then(
       () => undefined,
@@ -203,7 +220,7 @@ export class ParallelWhatIf {
     for (;;) {
       const opened = Atomics.load(array, index);
       if (opened === ticket) {
-        this.helpedBlocks += this.sweep.help(ticket);
+        this.helpedBlocks += this.sweep.help(ticket, this.rowsUpdate?.rows);
         return;
       }
       if (opened > ticket || settled || this.replies.failure !== null) return;

@@ -1,6 +1,7 @@
 import type { Csr } from '../matrix/csr';
 import { sampledMeasures, type SampledFields } from '../measures/measure-distances';
 import { SharedRowSweep, type SharedRowSweepBuffers } from '../measures/shared-row-sweep';
+import { GRAM_ROWS_UPDATE_TERMS, GramRowsUpdate } from './gram-rows-update';
 import { IncrementalGram } from './incremental-gram';
 import { sameMask } from './incremental-term-sums';
 
@@ -22,6 +23,12 @@ export interface SampleSideInput {
    * this thread; the answers are the same bits.
    */
   sweep?: SharedRowSweepBuffers;
+  /**
+   * With `sweep`: the shared list of a click's toggled terms (GramRowsUpdate.buffer()), so that the
+   * dot products' update runs row by row as the sweep reaches each block, on either thread
+   * (the helper opens its own GramRowsUpdate over it). Without it the update runs whole first.
+   */
+  rowsUpdate?: SharedArrayBuffer;
 }
 
 /**
@@ -47,9 +54,12 @@ export class SampleSide {
   private speculation: { mask: Uint8Array; measures: SampledFields } | null = null;
 
   private readonly shared: SharedRowSweep | null;
+  /** The update run row by row in the sweep (GramRowsUpdate), or null (it runs whole first). */
+  private readonly rowsUpdate: GramRowsUpdate | null;
 
   constructor(private readonly input: SampleSideInput) {
     this.shared = input.sweep !== undefined ? SharedRowSweep.from(input.sweep) : null;
+    this.rowsUpdate = this.shared !== null && input.rowsUpdate !== undefined ? GramRowsUpdate.open(this.shared, input.rowsUpdate) : null;
     this.gram = new IncrementalGram(input.rows, this.shared?.state(0));
   }
 
@@ -91,10 +101,17 @@ export class SampleSide {
   }
 
   private read(gram: IncrementalGram, removed: Uint8Array, incremental: boolean, interrupt?: () => void, ticket?: number): SampledFields {
-    const { dots, scale } = gram.scaled(removed, incremental, interrupt);
+    const sweep = ticket !== undefined ? this.shared : null;
+    const rowsUpdate = sweep !== null ? this.rowsUpdate : null;
+    // In a shared sweep an update's pair loops run block by block as the sweep reaches them.
+    const { dots, scale, pending } = rowsUpdate !== null ? gram.scaledPending(removed, incremental, GRAM_ROWS_UPDATE_TERMS, interrupt) : { ...gram.scaled(removed, incremental, interrupt), pending: null };
+    if (pending !== null) rowsUpdate!.set(dots, pending);
     const { k, seed, labels, baselineNeighbors } = this.input;
     // Only the Measures leave here: the sweep's per-row arrays need not be copied out.
-    const shared = ticket !== undefined && this.shared !== null ? { shared: { sweep: this.shared, ticket, views: true } } : {};
-    return sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale, blockRows: WHAT_IF_BLOCK_ROWS, ...(interrupt === undefined ? {} : { interrupt }), ...shared }).measures;
+    const shared = sweep !== null ? { shared: { sweep, ticket: ticket!, views: true, ...(pending === null ? {} : { prepare: rowsUpdate!.rows }) } } : {};
+    const measures = sampledMeasures({ k, seed, labels, baselineNeighbors, gram: dots, rowScale: scale, blockRows: WHAT_IF_BLOCK_ROWS, ...(interrupt === undefined ? {} : { interrupt }), ...shared }).measures;
+    // Every row was swept, so every row ran its pair loops (a throw above leaves the state to be built again).
+    if (pending !== null) gram.rowsUpdated();
+    return measures;
   }
 }
