@@ -47,6 +47,8 @@ export class DistanceLab {
    * moves the exact sums drops it (settle does not: it changes no answer, see IncrementalTermSums).
    */
   private speculation: { mask: Uint8Array; measures: ExactMeasures } | null = null;
+  /** The measures of the exact sums the latest whatIfExactSums reached, until read (readUnread). */
+  private unread: (() => ExactMeasures) | null = null;
 
   constructor(
     /** l2-normalised weights of every kept term; removing a column and renormalising equals
@@ -140,15 +142,38 @@ export class DistanceLab {
    * which helps with a click's gather under `ticket` once its half is done (exactSums).
    */
   whatIfExact(removed: Uint8Array, ticket?: number): ExactMeasures {
+    return this.whatIfExactSums(removed, ticket)();
+  }
+
+  /**
+   * whatIfExact in two steps: the exact sums now, the measures read off them when the function
+   * returned is called, before the next call moves the sums (they are the live state).
+   * ParallelWhatIf calls it once its share of the sample's sweep is done, while the thread reads
+   * the sampled measures off the sweep: the review's thread would otherwise wait for those.
+   * Whatever moves the exact state first (another call, the idle-time settle, a Report measure)
+   * reads them before it does (readUnread), so the function always answers for these sums.
+   */
+  whatIfExactSums(removed: Uint8Array, ticket?: number): () => ExactMeasures {
+    this.readUnread();
     const held = this.speculation;
     this.speculation = null;
     if (held !== null && this.spareExact !== null && held.mask.length === removed.length && sameMask(removed, held.mask)) {
       // The speculation went from this very state to `removed` the way this call would: adopt it.
       [this.exact, this.spareExact] = [this.spareExact, this.exact];
-      return held.measures;
+      return () => held.measures;
     }
     const { sums, rowsWithWeight } = this.exactSums(removed, true, ticket);
-    return exactMeasures(sums, rowsWithWeight);
+    let measures: ExactMeasures | undefined;
+    const read = () => (measures ??= exactMeasures(sums, rowsWithWeight));
+    this.unread = read;
+    return read;
+  }
+
+  /** The measures a whatIfExactSums left unread, read now: the exact state is about to move. */
+  private readUnread(): void {
+    const read = this.unread;
+    this.unread = null;
+    read?.();
   }
 
   /**
@@ -171,6 +196,7 @@ export class DistanceLab {
   }
 
   private measureFrom(removed: Uint8Array, baselineNeighbors: Uint32Array | null, incremental: boolean, begun: BegunPass | null = null): DistanceResult {
+    this.readUnread();
     this.speculation = null;
     // A full pass over every non-zero (the Report's figures) runs on another thread beside the
     // sample's dot products, which need nothing from it, and the exact state adopts it: the
@@ -205,6 +231,7 @@ export class DistanceLab {
    * would do them first anyway, so the answers are the same whether this runs or not.
    */
   settle(): void {
+    this.readUnread();
     this.exact.settle();
     this.gram.settle();
   }

@@ -107,16 +107,19 @@ export class ParallelWhatIf {
     // Posted first, so the thread works while this one sums, then helps it sweep; the thread
     // helps with this one's gather once its own half is done.
     const { reply: sampled, ticket } = this.request(removed, false, false, true, this.gather !== null);
-    let exact: ExactMeasures;
+    let exact: () => ExactMeasures;
     try {
-      exact = this.lab.whatIfExact(removed, this.gather === null || ticket === 0 ? undefined : ticket);
+      exact = this.lab.whatIfExactSums(removed, this.gather === null || ticket === 0 ? undefined : ticket);
     } finally {
       // A click that did not gather (or failed) lets the thread stop waiting for it.
       if (ticket !== 0) this.gather?.pass(ticket);
     }
     try {
       await this.help(ticket, sampled);
-      const measures = joinMeasures(await sampled, exact);
+      // The exact half's measures once the sweep's blocks are taken: while the thread reads its
+      // own off the sweep, rather than before this thread's share of the sweep.
+      const exactHalf = exact();
+      const measures = joinMeasures(await sampled, exactHalf);
       this.threadAnswers++;
       return measures;
     } catch {
