@@ -52,6 +52,12 @@ export interface MeasureDistancesOptions {
    * two halves share no input, so the figures are the same bits either way.
    */
   exact?: () => { sums: TermSums; rowsWithWeight: number };
+  /**
+   * The sweep `gram` and `rowScale` live in (one of its states), in blocks of all m rows, so
+   * that the rows run in WebAssembly over the products where they were built (DistanceLab):
+   * the same bits as measureSampleRows' one block (MeasuresFromGramOptions' `shared`).
+   */
+  shared?: { sweep: SharedRowSweep; ticket: number };
 }
 
 export interface MeasureDistancesResult {

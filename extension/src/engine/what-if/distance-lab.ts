@@ -6,6 +6,8 @@ import { startMaskedTermSums, type PendingTermSums } from '../measures/start-mas
 import { exactMeasures, joinMeasures, measureDistances, sampledMeasures, type ExactMeasures } from '../measures/measure-distances';
 import type { Measures } from '../../protocol';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
+import { SharedRowSweep } from '../measures/shared-row-sweep';
+import { sweepRowsModule } from '../measures/sweep-rows-wasm';
 import { termSums } from '../measures/term-sums';
 import { IncrementalGram } from './incremental-gram';
 import { IncrementalTermSums, sameMask } from './incremental-term-sums';
@@ -40,6 +42,13 @@ export class DistanceLab {
   private readonly buffers: CsrBuffers;
   private exact: IncrementalTermSums;
   private readonly gram: IncrementalGram;
+  /**
+   * The memory the sample's dot products are built in, swept there in WebAssembly in one block of
+   * all m rows (the Report's sums: measureSampleRows' bits); null where no module or memory can
+   * be had (the products then live in arrays of their own and the TypeScript sweeps them).
+   */
+  private readonly sweep: SharedRowSweep | null;
+  private sweeps = 0;
   /** The second state speculative answers are computed in (IncrementalTermSums.twin), once needed. */
   private spareExact: IncrementalTermSums | null = null;
   /**
@@ -68,7 +77,8 @@ export class DistanceLab {
     const nnz = this.sampleRows.indptr[this.sampleRows.rows]!;
     this.buffers = { indptr: new Uint32Array(sample.length + 1), indices: new Uint32Array(nnz), data: new Float64Array(nnz) };
     this.exact = new IncrementalTermSums(weights);
-    this.gram = new IncrementalGram(this.sampleRows, undefined, options.whatIf ?? true);
+    this.sweep = reportSweep(sample.length, k);
+    this.gram = new IncrementalGram(this.sampleRows, this.sweep?.state(0), options.whatIf ?? true);
   }
 
   /** Exact term sums of the whole corpus with `removed` stopped. */
@@ -222,6 +232,7 @@ export class DistanceLab {
       ...(now !== null ? { sums: now.sums, rowsWithWeight: now.rowsWithWeight } : { exact: () => this.exact.adopt(removed, pass!.take()) }),
       gram: dots,
       rowScale: scale,
+      ...(this.sweep !== null ? { shared: { sweep: this.sweep, ticket: ++this.sweeps } } : {}),
     });
   }
 
@@ -246,5 +257,21 @@ export class DistanceLab {
     const mask = base.slice();
     for (const col of extra) mask[col] = 1;
     return mask;
+  }
+}
+
+/**
+ * The sweep memory of a lab's full measures: one state (the products IncrementalGram builds in
+ * it) swept in one block of all m rows. Written into where they are swept, the products need no
+ * copy into the module's memory, whose fresh pages (32 MB at m = 2,000) had cost what the
+ * WebAssembly rows save (docs/performance.md). Null without the module or such a memory.
+ */
+function reportSweep(m: number, k: number): SharedRowSweep | null {
+  if (m < 1 || sweepRowsModule() === null) return null;
+  try {
+    const sweep = SharedRowSweep.create(m, k, m, 1);
+    return sweep.buffers.memory !== null ? sweep : null;
+  } catch {
+    return null;
   }
 }
