@@ -106,18 +106,19 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
   const baseMask = index.mask(stopList.terms);
 
   stage('measuring');
+  // The suggestion rule's passes over the corpus need no measure nor sample: begun on other threads
+  // first (the baseline's spread pass among them, which is also the baseline's exact sums: its
+  // measure adopts it), they run while this thread chooses the sample and measures the baseline.
+  const termStart = { baseMask, index, tokenize, settings, counts: prepared.counts, previews: prepared.previews, opinion };
+  const begun = startTermReview({ ...termStart, weights, passThreads: true });
   const places = { keys: source.places.keys, documents: source.places.documents, lines: prepared.lines };
   const sample = chooseSample(weights, settings.sample.documents, settings.sample.seed, prepared.labels, places);
   // A review asked no what-if keeps no copy of the sample's baseline build for restoring it (40 MB
   // at 2,000 sampled documents, copied when the suggestions' build replaced it: ~10k page faults,
   // ~0.1 s of this thread's CPU) and counts no shared terms for updates that never come.
   const lab = new DistanceLab(weights, sample.positions, settings.sample.k, settings.sample.seed, sample.labels, { whatIf: hooks.reportOnly !== true });
-  // The suggestion rule's passes over the corpus need no measure: begun on other threads now,
-  // they run while this one measures the baseline. The baseline's spread pass among them is
-  // also the baseline's exact sums: its measure adopts it.
   const corpusSearch = prepared.labels === null ? null : searchInProcess(weights, lab.sampleRows, sample.positions, prepared.labels, settings.sample.k);
-  const termInput = { lab, baseMask, index, tokenize, settings, counts: prepared.counts, previews: prepared.previews, opinion, corpusSearch };
-  const begun = startTermReview(termInput);
+  const termInput = { ...termStart, lab, corpusSearch };
   const baseline = lab.measure(baseMask, null, begun.baseSpread !== null ? { removed: baseMask, pending: begun.baseSpread } : null);
 
   stage('reviewing terms');

@@ -1,4 +1,5 @@
 import type { EffectiveSettings, TermRow, Verdict } from '../../protocol';
+import type { Csr } from '../matrix/csr';
 import { knnTermMass } from '../measures/knn-term-mass';
 import { pairMass, termSpread } from '../measures/term-sums';
 import { selectRank } from '../measures/select-rank';
@@ -37,6 +38,16 @@ export interface TermReviewInput extends TermReviewStart {
   baseline: DistanceResult;
   documents: number;
   idf: Float64Array;
+}
+
+/**
+ * What startTermReview needs: TermReviewStart before the sample is chosen and the lab made, with the
+ * weights and whether the passes may run on threads over them (false for a lab that answers its
+ * sums its own way, a review in shards).
+ */
+export interface TermReviewBegin extends Omit<TermReviewStart, 'lab' | 'corpusSearch'> {
+  weights: Csr;
+  passThreads: boolean;
 }
 
 /** The part of the term review that does not need the baseline, begun by startTermReview. */
@@ -79,7 +90,7 @@ const REPORT_ROWS = 2000;
  * *suggested* setting: on the raw corpus the neighbours are themselves picked by the loud terms,
  * which flatters them (docs/methods.md §8).
  */
-export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = startTermReview(input)): TermReview {
+export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = startTermReview({ ...input, weights: input.lab.weights, passThreads: input.lab.sums === DistanceLab.prototype.sums })): TermReview {
   const { lab, baseMask, baseline, documents, idf, index, tokenize, settings, counts } = input;
   const { prior, protect } = begun;
   const cols = lab.weights.cols;
@@ -96,7 +107,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const full = baseMask.includes(1) ? lab.fullSums() : null;
   const fullPairMass = full === null ? basePairMass : pairMass(full.sums, full.rowsWithWeight).perTerm;
   const decisions = chooseSuggestions({
-    ...choiceInput(input, prior, protect, opinionText),
+    ...choiceInput(input, cols, prior, protect, opinionText),
     jointShares: (asks) => {
       // The passes startTermReview began (the same asks: the same decisions from the same
       // inputs); an ask it did not foresee is computed here. The same function either way, so
@@ -184,35 +195,35 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
  * the rule asks for exactly it and computes any other, so the answer never depends on the guess.
  * Pass the result to reviewTerms.
  */
-export function startTermReview(input: TermReviewStart): BegunTermReview {
-  const { lab, index, tokenize, settings } = input;
+export function startTermReview(input: TermReviewBegin): BegunTermReview {
+  const { weights, index, tokenize, settings } = input;
+  // The baseline's spread pass, with each row's norm, on a thread of its own, first of all (it
+  // needs only the stop list's mask, and the baseline's measure and the rule wait for the passes):
+  // its sums are also the baseline's exact sums (the spread adds Σ x ln x and changes no other
+  // sum), so the baseline's measure adopts it (DistanceLab.measure) instead of a pass of its own,
+  // and the table reads its spread. Not in series with the rule's passes: the baseline needs it first.
+  const baseSpread = input.passThreads ? startMaskedTermSums(weights, input.baseMask, true, undefined, true) : null;
   const prior = priorColumns(index, tokenize, settings.tokens.ngrams === 2);
   const protect = protectedColumns(index, tokenize, settings.suggest.protect);
   // Evenly spaced documents, not the seeded sample: the decision must not change with the seed.
   const opinion = input.opinion ?? startOpinionCheck(input.previews, false);
   const shares: BegunTermReview['shares'] = [];
-  let baseSpread: PendingTermSums | null = null;
-  if (lab.sums === DistanceLab.prototype.sums) {
-    const asks = plannedShareAsks(choiceInput(input, prior, protect, false));
-    // The baseline's spread pass, with each row's norm, on a thread of its own: its sums are also
-    // the baseline's exact sums (the spread adds Σ x ln x and changes no other sum), so the
-    // baseline's measure adopts it (DistanceLab.measure) instead of a pass of its own, and the
-    // table reads its spread. Not in series with the rule's passes: the baseline needs it first.
-    baseSpread = startMaskedTermSums(lab.weights, input.baseMask, true, undefined, true);
-    const pending = startMaskedTermSumsInSeries(lab.weights, asks.map((a) => ({ removed: a.removed, withSpread: false })));
+  if (input.passThreads) {
+    const asks = plannedShareAsks(choiceInput(input, weights.cols, prior, protect, false));
+    const pending = startMaskedTermSumsInSeries(weights, asks.map((a) => ({ removed: a.removed, withSpread: false })));
     asks.forEach((ask, i) => shares.push({ ask, pending: pending[i]! }));
   }
   return { prior, protect, opinion, shares, baseSpread };
 }
 
 /** The suggestion rule's input less its joint shares. */
-function choiceInput(input: TermReviewStart, prior: ReadonlyMap<number, PriorClass>, protect: Set<number>, opinion: boolean) {
+function choiceInput(input: Pick<TermReviewStart, 'counts' | 'settings'>, cols: number, prior: ReadonlyMap<number, PriorClass>, protect: Set<number>, opinion: boolean) {
   return {
     stats: input.counts,
     prior,
     // Decisions do not depend on the stop list: a stopped term is judged like any other, so its
     // row can say whether the rule agrees with the list.
-    stopped: new Uint8Array(input.lab.weights.cols),
+    stopped: new Uint8Array(cols),
     protect,
     opinion,
     usePrior: input.settings.suggest.functionWordPrior,
