@@ -2,7 +2,7 @@ import type { Csr } from '../matrix/csr';
 import type { SweepState } from '../measures/shared-row-sweep';
 import type { GramRoom } from '../measures/sweep-rows-wasm';
 import { assembledModule } from '../wasm/assembled-module';
-import { sameMask } from './incremental-term-sums';
+import { changedColumns, sameMask } from './incremental-term-sums';
 
 /** Defined by scripts/build.mjs in the Node bundles: gram-update.wat's bytes, base64. */
 declare const LOUDWORD_GRAM_UPDATE_WASM: string | undefined;
@@ -288,11 +288,9 @@ export class IncrementalGram {
       if (this.checkpoints.length < 2) this.checkpoints.push(saved);
       else this.checkpoints[1] = saved;
     } else {
-      const changed: number[] = [];
+      const changed = changedColumns(removed, this.mask);
       let cost = 0;
-      for (let t = 0; t < this.mask.length; t++) {
-        if ((removed[t] !== 0) === (this.mask[t] !== 0)) continue;
-        changed.push(t);
+      for (const t of changed) {
         const len = this.start[t + 1]! - this.start[t]!;
         cost += len * len;
       }

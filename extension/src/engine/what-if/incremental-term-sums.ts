@@ -104,8 +104,7 @@ export class IncrementalTermSums {
       this.full(removed);
       this.checkpoint();
     } else {
-      const changed: number[] = [];
-      for (let t = 0; t < X.cols; t++) if ((removed[t] !== 0) !== (this.mask[t] !== 0)) changed.push(t);
+      const changed = changedColumns(removed, this.mask);
       if (changed.length === 0) {
         this.lastStep = { kind: 'unchanged', entries: 0 };
       } else {
@@ -580,10 +579,52 @@ function clearRowChange(rowChange: Float64Array, rows: Uint32Array, from: number
   }
 }
 
-/** Whether two column masks stop the same columns (the first `b.length` of `a`). */
+/**
+ * Whether two column masks stop the same columns (the first `b.length` of `a`; any non-zero byte
+ * stops its column). Four columns at a time while the two masks' bytes are equal (equal bytes stop
+ * the same columns), byte by byte in a word that differs: a click's masks differ in a column or two
+ * of ~115,000 at 100k, and each thread compares a click's mask with its state's and checkpoints'
+ * (~0.1 ms a comparison byte by byte).
+ */
 export function sameMask(a: Uint8Array, b: Uint8Array): boolean {
-  for (let t = 0; t < b.length; t++) if ((a[t] !== 0) !== (b[t] !== 0)) return false;
+  const n = b.length;
+  let t = 0;
+  const words = maskWords(a, b);
+  if (words !== null) {
+    const [wa, wb] = words;
+    for (let w = 0; w < wa.length; w++) {
+      if (wa[w] === wb[w]) continue;
+      for (let u = 4 * w; u < 4 * w + 4; u++) if ((a[u] !== 0) !== (b[u] !== 0)) return false;
+    }
+    t = 4 * wa.length;
+  }
+  for (; t < n; t++) if ((a[t] !== 0) !== (b[t] !== 0)) return false;
   return true;
+}
+
+/** The columns below `b.length` that one of the masks stops and the other does not, ascending (as sameMask reads them). */
+export function changedColumns(a: Uint8Array, b: Uint8Array): number[] {
+  const changed: number[] = [];
+  const n = b.length;
+  let t = 0;
+  const words = maskWords(a, b);
+  if (words !== null) {
+    const [wa, wb] = words;
+    for (let w = 0; w < wa.length; w++) {
+      if (wa[w] === wb[w]) continue;
+      for (let u = 4 * w; u < 4 * w + 4; u++) if ((a[u] !== 0) !== (b[u] !== 0)) changed.push(u);
+    }
+    t = 4 * wa.length;
+  }
+  for (; t < n; t++) if ((a[t] !== 0) !== (b[t] !== 0)) changed.push(t);
+  return changed;
+}
+
+/** The first ⌊b.length/4⌋ words of both masks as 32-bit views, or null when either is not 4-byte aligned or `a` is shorter. */
+function maskWords(a: Uint8Array, b: Uint8Array): [Uint32Array, Uint32Array] | null {
+  const words = b.length >>> 2;
+  if (a.length < b.length || ((a.byteOffset | b.byteOffset) & 3) !== 0) return null;
+  return [new Uint32Array(a.buffer, a.byteOffset, words), new Uint32Array(b.buffer, b.byteOffset, words)];
 }
 
 /** Position of column t in a row's ascending columns indices[start..end) (t must be there). */
