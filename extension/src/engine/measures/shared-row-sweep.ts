@@ -71,8 +71,9 @@ export type PrepareRows = (first: number, end: number) => void;
  * One sweep of the sampled measures (measureSampleRows' rows, in blocks) shared by two threads:
  * the owner (the what-if's sample thread) opens it under a ticket once its dot products are up
  * to date (or, with a `prepare`, once their diagonal and the row scales are, each block's rows
- * then brought up to date by the thread that sweeps them), and it and a helper (the review's thread, once its exact sums are done) claim blocks
- * of rows one at a time from a counter in shared memory until none is left. Each block writes
+ * then brought up to date by the thread that sweeps them), and it and a helper (the review's
+ * thread, once its exact sums are done) claim blocks of rows one at a time from a counter in
+ * shared memory until none is left. Each block writes
  * its own rows' outputs and its own partial sums, and the owner adds them up in row order
  * (reduceSweep) once every claimed block is done, so the answer is the same bits whoever swept
  * which block, and the same as one thread sweeping every block (measureSampleRows with the same
