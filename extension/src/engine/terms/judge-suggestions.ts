@@ -4,7 +4,7 @@ import { estimateDigits } from '../../verdict-wording';
 import type { DistanceLab, DistanceResult } from '../what-if/distance-lab';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
-import type { SuggestionGroup } from './choose-suggestions';
+import type { Decision, SuggestionGroup } from './choose-suggestions';
 import type { CorpusPrecision } from './corpus-precision';
 
 /** Bootstrap draws behind the verdict's interval. */
@@ -25,7 +25,35 @@ export interface JudgeInput {
   corpus?: CorpusPrecision | null;
   /** Documents in the corpus (more than the sample: the headline says where the neighbours were sought). */
   documents?: number;
+  /** The prior's words the rule kept as the heads of the corpus's formula, and how many documents they open. */
+  formula?: FormulaHeads | null;
 }
+
+/** The formula heads kept (choose-suggestions.ts, FORMULA_OPENS), most documents opened first. */
+export interface FormulaHeads {
+  heads: string[];
+  /** Documents whose first token is one of the heads (exact: CountMatrix.firstTerms). */
+  documentsOpened: number;
+}
+
+/** The kept formula heads (not on the stop list) by the rule's decisions, most documents opened first. */
+export function formulaHeads(decisions: ReadonlyMap<number, Decision>, stopped: Uint8Array, opens: Float64Array, terms: readonly string[]): FormulaHeads {
+  const cols: number[] = [];
+  for (const [c, d] of decisions) if (d.reason === 'formula' && stopped[c] === 0) cols.push(c);
+  cols.sort((a, b) => opens[b]! - opens[a]! || a - b);
+  let documentsOpened = 0;
+  for (const c of cols) documentsOpened += opens[c]!;
+  return { heads: cols.map((c) => terms[c]!), documentsOpened };
+}
+
+/**
+ * Without labels the verdict warns that the texts follow a formula when at least this share of
+ * the documents open with a kept formula head. A round value, chosen on no corpus's precision: it
+ * decides only whether a sentence is shown. On the development corpora (docs/methods.md §9) the
+ * share is 11% on WordNet's glosses and on Webster's definitions grouped by part of speech, 7% on
+ * Webster's subject-labelled definitions, at most 0.5% on the others.
+ */
+export const FORMULA_CAUTION_SHARE = 0.05;
 
 /** Per group kept as light (choose-suggestions.ts, GROUP_SHARE): its joint share. */
 export type LightGroups = Partial<Record<SuggestionGroup, number>>;
@@ -46,6 +74,24 @@ function lightSentences(light: LightGroups): string {
     out.push(`Grammar words in fewer than half the documents were kept: together they carry only ${pct1(light.grammar)} of the all-pair similarity left once the other suggestions are removed, too little to distort distances, and in long documents they can mark the kind of document (docs/methods.md §9).`);
   }
   return out.join(' ');
+}
+
+/**
+ * The caution for text written to a formula, '' when too few documents open with a kept head.
+ * In such text the formula's grammar words may name the kind of document ("someone who …", "the
+ * act of …"), and whether the user's groups are kinds or topics is what no measure without labels
+ * can see (docs/methods.md §9, "Why the glosses cannot be told from Webster without labels").
+ */
+export function formulaSentence(formula: FormulaHeads | null | undefined, documents: number): string {
+  if (formula == null || formula.heads.length === 0 || documents <= 0) return '';
+  const share = formula.documentsOpened / documents;
+  if (share < FORMULA_CAUTION_SHARE) return '';
+  const n = formula.heads.length;
+  const quoted = formula.heads.slice(0, 4).map((h) => `"${h}"`);
+  const heads = n === 1
+    ? `the grammar word ${quoted[0]}, which mostly opens the documents it occurs in and was kept`
+    : `one of ${formatCount(n)} grammar words (${quoted.join(', ')}${n > quoted.length ? ', …' : ''}), which mostly open the documents they occur in and were kept`;
+  return `These texts follow a formula: ${pct(share)} of the documents open with ${heads}. If your groups are kinds of document (a person against an act) rather than topics, the formula's other grammar words may carry them, which standout cannot see: measure with --label before applying the list.`;
 }
 
 /**
@@ -124,6 +170,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     const make = agree('makes', 'make');
     const verb = outcome === 'helps' ? `${make} nearest neighbours stand out more` : outcome === 'hurts' ? `${make} nearest neighbours stand out less` : `${agree('does', 'do')} not clearly change how much nearest neighbours stand out`;
     headline = `${list} ${verb}: ${measure} ${signed(boot.change, digits)} (${interval}). Without labels this is only a proxy for neighbour quality: standout rises whenever common words are removed, also on corpora where label precision falls (docs/methods.md §9); pass --label to measure precision.`;
+    const formula = formulaSentence(input.formula, input.documents ?? sampled);
+    if (formula !== '') headline += ` ${formula}`;
   }
   if (opinion.opinionText) {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;

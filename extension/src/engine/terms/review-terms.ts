@@ -8,7 +8,7 @@ import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
 import { corpusPrecision, type CorpusSearcher } from './corpus-precision';
-import { judgeSuggestions, type LightGroups } from './judge-suggestions';
+import { formulaHeads, judgeSuggestions, type LightGroups } from './judge-suggestions';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
@@ -175,11 +175,12 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   for (const [c, d] of decisions) if (d.suggested && baseMask[c] === 1) agreedStopped++;
   const light: LightGroups = {};
   for (const d of decisions.values()) if (d.reason === 'light') light[d.group] = d.groupShare;
+  const formula = formulaHeads(decisions, baseMask, counts.opens, index.terms);
   // With labels, the verdict's precision is measured with neighbours from the corpus, not the sample.
   const corpus = input.corpusSearch != null && accepted.length > 0
     ? corpusPrecision({ searcher: input.corpusSearch, sampleRows: lab.sampleRows, documents, df: counts.df, before: baseMask, after: suggestedMask, seed: lab.seed })
     : null;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents });
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
