@@ -1,5 +1,5 @@
 import { AUSTEN_CHAPTERS } from './austen-chapters';
-import { FINE_FOOD_REVIEWS } from './fine-food-reviews';
+import { FINE_FOOD_REVIEWS, FINE_FOOD_REVIEWS_5K } from './fine-food-reviews';
 import { FORTUNE_CATEGORIES, fortunesAvailable, readFortunes } from './fortunes';
 import { KERNEL_DOCS } from './kernel-docs';
 import { KJV_CHAPTERS } from './kjv-chapters';
@@ -36,7 +36,7 @@ export const DEV_CORPORA: readonly DevCorpus[] = [SPAM_ASSASSIN, SOTU, MAN_PAGES
  * Larger versions of development corpora, run only when named (`npm run quality -- <name>`):
  * they check that the rule holds at the size a user's corpus may have, and take minutes each.
  */
-export const LARGE_CORPORA: readonly DevCorpus[] = [PACKAGE_DESCRIPTIONS_20K];
+export const LARGE_CORPORA: readonly DevCorpus[] = [PACKAGE_DESCRIPTIONS_20K, FINE_FOOD_REVIEWS_5K];
 
 /** The corpora a quality script runs: the development set, or the ones named (large ones included). */
 export function corporaNamed(names: readonly string[]): DevCorpus[] {

@@ -25,18 +25,31 @@ export const FINE_FOOD_REVIEWS: DevCorpus = {
   source: 'Debian r-cran-modeldata (small_fine_foods: Amazon fine-food reviews); label = score (great / other)',
   missing: 'apt-get update (the corpus is unpacked from `apt-get download r-cran-modeldata`)',
   available: availableWhen(unpack),
-  load: async () => {
-    const docs: LabelledDoc[] = [];
-    for (const frame of ['training_data', 'testing_data']) {
-      const columns = readRLazyLoadFrame(unpack(), frame);
-      const reviews = columns.get('review');
-      const scores = columns.get('score');
-      if (reviews === undefined || scores === undefined) throw new Error(`modeldata ${frame}: no review or score column`);
-      reviews.forEach((review, i) => {
-        const text = squeeze(review);
-        if (text.length > 0) docs.push({ text, label: scores[i]! });
-      });
-    }
-    return evenlySpaced(docs, 3000);
-  },
+  load: async () => evenlySpaced(allReviews(), 3000),
 };
+
+/**
+ * All 5,000 of the same reviews, uncapped: run only when named (test/corpora/README.md, "Larger
+ * versions"), to see whether the capped corpus's row holds on every review the package has.
+ */
+export const FINE_FOOD_REVIEWS_5K: DevCorpus = {
+  ...FINE_FOOD_REVIEWS,
+  name: 'fine-food-reviews-5k',
+  load: async () => allReviews(),
+};
+
+/** Every review of both frames, in the package's order. */
+function allReviews(): LabelledDoc[] {
+  const docs: LabelledDoc[] = [];
+  for (const frame of ['training_data', 'testing_data']) {
+    const columns = readRLazyLoadFrame(unpack(), frame);
+    const reviews = columns.get('review');
+    const scores = columns.get('score');
+    if (reviews === undefined || scores === undefined) throw new Error(`modeldata ${frame}: no review or score column`);
+    reviews.forEach((review, i) => {
+      const text = squeeze(review);
+      if (text.length > 0) docs.push({ text, label: scores[i]! });
+    });
+  }
+  return docs;
+}
