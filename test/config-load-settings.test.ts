@@ -6,6 +6,7 @@ import { confineToWorkspace } from '../extension/src/engine/config/confine-to-wo
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { loadSettings } from '../extension/src/engine/config/load-settings';
 import { UserError } from '../extension/src/engine/user-error';
+import { scratchFolder } from './support/scratch-folder';
 
 let badInputCases = 0;
 
@@ -23,11 +24,7 @@ function userError(fn: () => unknown, file: string | null, line: number | null, 
 after(() => console.log(`      config bad-input cases run: ${badInputCases}`));
 
 describe('loadSettings', () => {
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(tmpdir(), 'loudword-config-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-config-');
 
   it('loadSettings without a file gives the defaults', async () => {
     const { settings, configDir } = await loadSettings(null);
@@ -36,7 +33,7 @@ describe('loadSettings', () => {
   });
 
   it('loadSettings layers file over defaults and overrides over the file; stopList relative to the config folder', async () => {
-    const sub = path.join(dir, 'project');
+    const sub = path.join(dir(), 'project');
     mkdirSync(sub);
     writeFileSync(path.join(sub, 'loudword.json'), '{"stopList": "lists/stop.txt", "sample": {"k": 5, "seed": 9}, "text": "body"}');
     const loaded = await loadSettings(path.join(sub, 'loudword.json'), { text: 'title', sample: { seed: 3 } });
@@ -49,7 +46,7 @@ describe('loadSettings', () => {
   });
 
   it('loadSettings: a missing config file, and k not below the sample size, are UserErrors', async () => {
-    const missing = path.join(dir, 'none.json');
+    const missing = path.join(dir(), 'none.json');
     await assert.rejects(loadSettings(missing), (e: unknown) => e instanceof UserError && e.file === missing && /not found/.test(e.message));
     badInputCases++;
     await assert.rejects(loadSettings(null, { sample: { documents: 10, k: 10 } }), (e: unknown) => e instanceof UserError && /sample.k/.test(e.message));
@@ -59,7 +56,7 @@ describe('loadSettings', () => {
   });
 
   it('loadSettings layers defaults < editor settings < loudword.json < flags and says where each setting came from', async () => {
-    const sub = path.join(dir, 'layers');
+    const sub = path.join(dir(), 'layers');
     mkdirSync(sub);
     writeFileSync(path.join(sub, 'loudword.json'), '{\n  "label": "topic",\n  "sample": {\n    "k": 5\n  }\n}\n');
     const editor = { values: { sample: { documents: 300, k: 20 } }, from: 'editor setting' as const, names: { 'sample.documents': 'loudword.sampleSize', 'sample.k': 'loudword.neighbors' } };
@@ -74,18 +71,18 @@ describe('loadSettings', () => {
   });
 
   it('loadSettings resolves the default stop list beside the config, else beside the corpus; a flag’s against the working directory', async () => {
-    const proj = path.join(dir, 'stops');
+    const proj = path.join(dir(), 'stops');
     mkdirSync(path.join(proj, 'data'), { recursive: true });
     writeFileSync(path.join(proj, 'loudword.json'), '{}');
     const corpus = path.join(proj, 'data', 'c.csv');
     assert.equal((await loadSettings(path.join(proj, 'loudword.json'), {}, { corpusFile: corpus })).stopListPath, path.join(proj, 'stoplist.txt'));
     assert.equal((await loadSettings(null, {}, { corpusFile: corpus })).stopListPath, path.join(proj, 'data', 'stoplist.txt'));
-    assert.equal((await loadSettings(null, { stopList: 'x.txt' }, { corpusFile: corpus, baseDir: dir })).stopListPath, path.join(dir, 'x.txt'));
+    assert.equal((await loadSettings(null, { stopList: 'x.txt' }, { corpusFile: corpus, baseDir: dir() })).stopListPath, path.join(dir(), 'x.txt'));
     assert.equal((await loadSettings(null, { stopList: null }, { corpusFile: corpus })).stopListPath, null);
   });
 
   it('loadSettings: k not below the sample size names both places', async () => {
-    const sub = path.join(dir, 'kdocs');
+    const sub = path.join(dir(), 'kdocs');
     mkdirSync(sub);
     const file = path.join(sub, 'loudword.json');
     writeFileSync(file, '{\n "sample": {\n  "k": 50\n }\n}');

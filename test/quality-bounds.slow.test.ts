@@ -9,27 +9,21 @@
 // against no list: definitions grouped by part of speech, whose grammar words are the signal).
 // This test guards what holds; the quality table (`npm run quality`) shows all.
 import { strict as assert } from 'node:assert';
-import { mkdtempSync, rmSync } from 'node:fs';
-import * as os from 'node:os';
-import * as path from 'node:path';
 import { DEV_CORPORA } from './corpora/dev-corpora';
 import { bounds, qualityRow } from './quality/quality-row';
+import { scratchFolder } from './support/scratch-folder';
 
 const LEFT_OUT = new Set(['package-descriptions', 'package-synopses', 'kernel-docs', 'wordnet-glosses', 'webster-parts-of-speech']);
 
 describe('suggestions without labels against the generic lists (development set)', function () {
   this.timeout(900_000);
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-quality-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-quality-');
 
   for (const corpus of DEV_CORPORA.filter((c) => !LEFT_OUT.has(c.name))) {
     it(`${corpus.name} (${corpus.role}): ours ≥ max(English, max_df) − 0.002 and ≥ no list − 0.005`, async () => {
       // Not a skip: every corpus here comes from packages CI installs or downloads.
       assert.ok(corpus.available(), `${corpus.name} is not available: ${corpus.missing}`);
-      const row = await qualityRow(corpus, dir, null);
+      const row = await qualityRow(corpus, dir(), null);
       const b = bounds(row);
       const figures = `none ${row.none.toFixed(4)}, English ${row.english.toFixed(4)}, max_df ${row.maxDf.toFixed(4)}, ours ${row.ours.toFixed(4)} (${row.suggested} terms)`;
       console.log(`      ${corpus.name}: ${figures}`);

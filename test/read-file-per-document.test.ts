@@ -4,8 +4,7 @@
 // "fortunes"). The encodings, skipped files and errors are checked on small files made here.
 import { strict as assert } from 'node:assert';
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import * as os from 'node:os';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { openCorpusInput } from '../extension/src/engine/read/many-files-corpus';
 import type { CorpusRow } from '../extension/src/engine/read/corpus-source';
@@ -16,6 +15,7 @@ import { formatText } from '../extension/src/cli/format-text';
 import { readFortunes } from './corpora/fortunes';
 import { reportDifferences } from './support/report-diff';
 import { PYTHON, requireSklearn } from './reference/run-sklearn';
+import { scratchFolder } from './support/scratch-folder';
 
 async function allRows(folder: string, options: Parameters<typeof openCorpusInput>[1]) {
   const source = await openCorpusInput(folder, options);
@@ -26,15 +26,11 @@ async function allRows(folder: string, options: Parameters<typeof openCorpusInpu
 
 describe('a folder read one document per file (format "files")', function () {
   this.timeout(120_000);
-  let dir = '';
-  before(() => {
-    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-files-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-files-');
 
   it('gives the documents and labels scikit-learn\'s load_files gives, in the same order (Debian fortunes)', async () => {
     requireSklearn();
-    const folder = path.join(dir, 'fortunes');
+    const folder = path.join(dir(), 'fortunes');
     const fortunes = readFortunes(['food', 'law', 'science'], 30);
     fortunes.forEach((f, i) => {
       mkdirSync(path.join(folder, f.category), { recursive: true });
@@ -59,7 +55,7 @@ describe('a folder read one document per file (format "files")', function () {
   });
 
   it('decodes each file like a corpus file, skips binary and empty ones with their reason, and leaves hidden ones out', async () => {
-    const folder = path.join(dir, 'mixed');
+    const folder = path.join(dir(), 'mixed');
     for (const sub of ['a', 'b', 'c', '.git']) mkdirSync(path.join(folder, sub), { recursive: true });
     writeFileSync(path.join(folder, 'a', 'plain.text'), 'plain UTF-8 text, déjà vu\n');
     writeFileSync(path.join(folder, 'a', 'latin.txt'), Buffer.from([0x63, 0x61, 0x66, 0xe9, 0x20, 0x6e, 0x6f, 0x69, 0x72])); // "café noir" in windows-1252
@@ -89,7 +85,7 @@ describe('a folder read one document per file (format "files")', function () {
   });
 
   it('refuses what it cannot read, naming the file, and leaves column settings aside with a note', async () => {
-    const folder = path.join(dir, 'refuse');
+    const folder = path.join(dir(), 'refuse');
     mkdirSync(path.join(folder, 'x'), { recursive: true });
     writeFileSync(path.join(folder, 'x', 'one.txt'), 'one\n');
     const refusal = async (input: string, options: Parameters<typeof openCorpusInput>[1]): Promise<{ message: string; file: string | null }> => {
@@ -109,11 +105,11 @@ describe('a folder read one document per file (format "files")', function () {
     const single = await refusal(path.join(folder, 'x', 'one.txt'), { format: 'files' });
     assert.match(single.message, /format "files" reads a folder/);
     assert.equal(single.file, path.join(folder, 'x', 'one.txt'));
-    assert.match((await refusal(path.join(dir, 'no-such-folder'), { format: 'files' })).message, /cannot list the folder \(ENOENT\)/);
+    assert.match((await refusal(path.join(dir(), 'no-such-folder'), { format: 'files' })).message, /cannot list the folder \(ENOENT\)/);
   });
 
   it('is reviewed as one corpus, with the Report of the same documents as JSON Lines', async () => {
-    const folder = path.join(dir, 'review');
+    const folder = path.join(dir(), 'review');
     const fortunes = readFortunes(['computers', 'food', 'law', 'love'], 60);
     const lines: string[] = [];
     fortunes.forEach((f, i) => {
@@ -123,7 +119,7 @@ describe('a folder read one document per file (format "files")', function () {
     });
     // A file that is not text: skipped, and said so as a file, not as a row.
     writeFileSync(path.join(folder, 'food', 'photo.jpg'), Buffer.from([0xff, 0xd8, 0xff, 0x00, 0x10]));
-    const jsonl = path.join(dir, 'review.jsonl');
+    const jsonl = path.join(dir(), 'review.jsonl');
     writeFileSync(jsonl, `${lines.join('\n')}\n`);
     // The sample is drawn by place (file, line), which differs between the two layouts: with a
     // sample larger than the corpus both measure every document.

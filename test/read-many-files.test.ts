@@ -4,8 +4,7 @@
 // Parquet files are written by hyparquet-writer (a second, independent writer of the format, from
 // npm) and must read back as the rows written.
 import { strict as assert } from 'node:assert';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import * as os from 'node:os';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { parquetWriteBuffer } from 'hyparquet-writer';
 import { globToRegExp, listCorpusFiles, splitGlob } from '../extension/src/engine/read/corpus-files';
@@ -14,6 +13,7 @@ import { openCorpusFile } from '../extension/src/engine/read/open-corpus-file';
 import { openCorpusInput } from '../extension/src/engine/read/many-files-corpus';
 import { isUserError, type UserError } from '../extension/src/engine/user-error';
 import { writeGzipJsonl, type Doc } from './support/shard-corpora';
+import { scratchFolder } from './support/scratch-folder';
 
 async function rowsOf(source: CorpusSource): Promise<CorpusRow[]> {
   const out: CorpusRow[] = [];
@@ -24,11 +24,7 @@ async function rowsOf(source: CorpusSource): Promise<CorpusRow[]> {
 const DOCS: Doc[] = Array.from({ length: 40 }, (_, i) => ({ text: `document ${i} says ünïcödé things ${'x'.repeat(i % 5)}`, label: `l${i % 3}` }));
 
 describe('reading many files', () => {
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-many-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-many-');
 
   it('globToRegExp: *, ?, [..] stay in one path segment, ** crosses them', () => {
     assert.ok(globToRegExp('*.jsonl').test('a.jsonl'));
@@ -43,7 +39,7 @@ describe('reading many files', () => {
   });
 
   it('listCorpusFiles: a glob or a folder gives the files in code point order of their keys; hidden and non-corpus files are left out', async () => {
-    const root = path.join(dir, 'tree');
+    const root = path.join(dir(), 'tree');
     mkdirSync(path.join(root, 'b'), { recursive: true });
     mkdirSync(path.join(root, '.hidden'), { recursive: true });
     for (const f of ['b/z.jsonl', 'a10.jsonl', 'a2.jsonl', 'B.jsonl', 'README.md', '.hidden/x.jsonl', 'c.csv.gz']) writeFileSync(path.join(root, f), 'x\n');
@@ -56,11 +52,11 @@ describe('reading many files', () => {
   });
 
   it('openCorpusFile on .jsonl.gz: the same rows (text, label, line) as the plain file', async () => {
-    const plain = path.join(dir, 'docs.jsonl');
+    const plain = path.join(dir(), 'docs.jsonl');
     writeFileSync(plain, DOCS.map((d) => JSON.stringify(d)).join('\n') + '\n');
-    writeGzipJsonl(path.join(dir, 'docs.jsonl.gz'), DOCS);
+    writeGzipJsonl(path.join(dir(), 'docs.jsonl.gz'), DOCS);
     const a = await openCorpusFile(plain, { labelField: 'label' });
-    const b = await openCorpusFile(path.join(dir, 'docs.jsonl.gz'), { labelField: 'label' });
+    const b = await openCorpusFile(path.join(dir(), 'docs.jsonl.gz'), { labelField: 'label' });
     assert.equal(b.format, 'jsonl');
     assert.equal(b.textField, 'text');
     assert.deepEqual(await rowsOf(b), await rowsOf(a));
@@ -68,13 +64,13 @@ describe('reading many files', () => {
   });
 
   it('openCorpusFile on a broken .gz fails naming the file', async () => {
-    const bad = path.join(dir, 'broken.jsonl.gz');
+    const bad = path.join(dir(), 'broken.jsonl.gz');
     writeFileSync(bad, Buffer.from('not gzip at all'));
     await assert.rejects(openCorpusFile(bad), (e: unknown) => isUserError(e) && (e as UserError).file === bad && /gzip/.test(e.message));
   });
 
   it('openCorpusFile on Parquet (written by hyparquet-writer, 3 row groups): the rows written, line = row number; columns by name', async () => {
-    const file = path.join(dir, 'docs.parquet');
+    const file = path.join(dir(), 'docs.parquet');
     const buffer = parquetWriteBuffer({
       columnData: [
         { name: 'id', data: DOCS.map((_, i) => i), type: 'INT32' },
@@ -93,7 +89,7 @@ describe('reading many files', () => {
   });
 
   it('openCorpusInput on a folder: one corpus, file after file, places per file, skipped rows named by file', async () => {
-    const shards = path.join(dir, 'shards');
+    const shards = path.join(dir(), 'shards');
     mkdirSync(shards);
     writeFileSync(path.join(shards, 'p0.jsonl'), DOCS.slice(0, 10).map((d) => JSON.stringify(d)).join('\n') + '\n{"label":"x"}\n');
     writeGzipJsonl(path.join(shards, 'p1.jsonl.gz'), DOCS.slice(10, 25));
@@ -107,7 +103,7 @@ describe('reading many files', () => {
   });
 
   it('openCorpusInput: a file whose text field differs from the first file\'s fails naming that file', async () => {
-    const shards = path.join(dir, 'mixed');
+    const shards = path.join(dir(), 'mixed');
     mkdirSync(shards);
     writeFileSync(path.join(shards, 'a.jsonl'), DOCS.slice(0, 5).map((d) => JSON.stringify(d)).join('\n') + '\n');
     writeFileSync(path.join(shards, 'b.jsonl'), DOCS.slice(0, 5).map((d) => JSON.stringify({ body: d.text })).join('\n') + '\n');

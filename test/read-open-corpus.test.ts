@@ -1,11 +1,11 @@
 import assert from 'node:assert/strict';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import fc from 'fast-check';
 import Papa from 'papaparse';
 import type { CorpusRow, CorpusSource } from '../extension/src/engine/read/corpus-source';
 import { openCorpus, openCorpusFromText } from '../extension/src/engine/read/open-corpus';
+import { scratchFolder } from './support/scratch-folder';
 
 async function readAll(source: CorpusSource, batchSize?: number): Promise<CorpusRow[]> {
   const rows: CorpusRow[] = [];
@@ -103,15 +103,11 @@ describe('openCorpusFromText', () => {
 });
 
 describe('openCorpus (files)', () => {
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(tmpdir(), 'loudword-read-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-read-');
 
   it('openCorpus streams a file in small chunks with the same rows as one read', async () => {
     const body = 'id,text\n' + Array.from({ length: 300 }, (_, i) => `${i},"héllo ${i}\r\nwörld 😀 ${i}"`).join('\r\n') + '\r\n';
-    const file = path.join(dir, 'chunks.csv');
+    const file = path.join(dir(), 'chunks.csv');
     writeFileSync(file, body, 'utf8');
     const whole = await readAll(await openCorpus(file, {}));
     for (const chunkBytes of [1, 2, 3, 7, 64]) {
@@ -151,7 +147,7 @@ describe('openCorpus (files)', () => {
         if (expected.length === 0) return; // all texts blank: covered by the "no documents" case
         let source: CorpusSource;
         if (onDisk) {
-          const file = path.join(dir, `prop-${fileNo++}.csv`);
+          const file = path.join(dir(), `prop-${fileNo++}.csv`);
           writeFileSync(file, csv, 'utf8');
           source = await openCorpus(file, options);
         } else source = openCorpusFromText('prop.csv', csv, options);

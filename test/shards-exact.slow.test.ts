@@ -5,8 +5,7 @@
 // is that map (per shard) + merge gives the same Report — same sample, same suggestions, every
 // figure equal to 1e-12 (only the order in which shard subtotals are added differs).
 import { strict as assert } from 'node:assert';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import * as os from 'node:os';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { parquetWriteBuffer } from 'hyparquet-writer';
 import type { Report } from '../extension/src/protocol';
@@ -15,6 +14,7 @@ import { startReview } from '../extension/src/engine/review/start-review';
 import { reviewShards } from '../extension/src/engine/shards/review-shards';
 import { reportDifferences } from './support/report-diff';
 import { fortuneDocs, generatedDocs, writeGzipJsonl, writeShards } from './support/shard-corpora';
+import { scratchFolder } from './support/scratch-folder';
 
 const OVERRIDES = { label: 'label', stopList: null, sample: { documents: 400 } };
 
@@ -36,14 +36,10 @@ function assertSame(one: Report, shards: Report, name: string): void {
 
 describe('review in shards = review in one process', function () {
   this.timeout(300_000);
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-shards-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-shards-');
 
   it('Debian fortunes in 8 JSON Lines shards: the same Report', async () => {
-    const shardDir = path.join(dir, 'fortunes');
+    const shardDir = path.join(dir(), 'fortunes');
     mkdirSync(shardDir);
     writeShards(shardDir, fortuneDocs(150), 8);
     const { one, shards } = await bothWays(path.join(shardDir, '*.jsonl'));
@@ -54,7 +50,7 @@ describe('review in shards = review in one process', function () {
   it('definitions whose formula opens with a grammar word, in 4 shards: the same Report, the head kept in both', async () => {
     // Generated (seeded) definitions: a third open "someone who …", the rest "the …" or a topic
     // word, so "someone" opens most of the documents it is in; the shards must add up the counts.
-    const shardDir = path.join(dir, 'formula');
+    const shardDir = path.join(dir(), 'formula');
     mkdirSync(shardDir);
     const docs = generatedDocs(600, 5).map((d, i) => ({ text: `${i % 3 === 0 ? 'someone who' : i % 3 === 1 ? 'the' : ''} ${d.text}`, label: d.label }));
     docs[1] = { text: `${docs[1]!.text} for someone`, label: docs[1]!.label };
@@ -68,7 +64,7 @@ describe('review in shards = review in one process', function () {
   });
 
   it('generated data in 8 shards of three formats (JSON Lines, .jsonl.gz, Parquet): the same Report', async () => {
-    const shardDir = path.join(dir, 'generated');
+    const shardDir = path.join(dir(), 'generated');
     mkdirSync(shardDir);
     const docs = generatedDocs(2400, 11);
     // One document with a run far over the tokenizer's limit, so both paths must carry its note.

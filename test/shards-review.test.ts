@@ -1,8 +1,7 @@
 // The merge of a review in shards: what it refuses and how errors name their shard (issue 11).
 // Corpus: generated documents (seeded; common practice, no source).
 import { strict as assert } from 'node:assert';
-import { mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
-import * as os from 'node:os';
+import { mkdirSync, utimesSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { loadSettings } from '../extension/src/engine/config/load-settings';
 import { countShard, countShardKeeping } from '../extension/src/engine/shards/count-shard';
@@ -15,19 +14,16 @@ import { sumShard } from '../extension/src/engine/shards/sum-shard';
 import { SumsTotals } from '../extension/src/engine/shards/sums-totals';
 import { isUserError, type UserError } from '../extension/src/engine/user-error';
 import { generatedDocs, writeShards } from './support/shard-corpora';
+import { scratchFolder } from './support/scratch-folder';
 
 const OVERRIDES = { label: 'label', stopList: null, sample: { documents: 400 } };
 
 describe('review in shards: merge checks and errors', function () {
   this.timeout(300_000);
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-shards-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-shards-');
 
   it('planReview refuses partials from other settings, and a partial from another version, naming the file', async () => {
-    const shardDir = path.join(dir, 'settings');
+    const shardDir = path.join(dir(), 'settings');
     mkdirSync(shardDir);
     const [a, b] = writeShards(shardDir, generatedDocs(60, 3), 2);
     const one = await loadSettings(null, OVERRIDES);
@@ -44,7 +40,7 @@ describe('review in shards: merge checks and errors', function () {
   });
 
   it('the merge does not depend on the order the partials arrive in', async () => {
-    const shardDir = path.join(dir, 'order');
+    const shardDir = path.join(dir(), 'order');
     mkdirSync(shardDir);
     const files = writeShards(shardDir, generatedDocs(300, 5), 4);
     const { settings } = await loadSettings(null, OVERRIDES);
@@ -55,7 +51,7 @@ describe('review in shards: merge checks and errors', function () {
   });
 
   it('planReview refuses to guess when pruning empties most sample candidates (the sample could not be exact)', async () => {
-    const shardDir = path.join(dir, 'pruned');
+    const shardDir = path.join(dir(), 'pruned');
     mkdirSync(shardDir);
     // Nine documents in ten hold only "filler", which maxDf 0.5 prunes: their rows are empty.
     const docs = Array.from({ length: 600 }, (_, i) => ({ text: i % 10 === 0 ? `rare${i} word${i % 7}` : 'filler filler', label: 'x' }));
@@ -67,7 +63,7 @@ describe('review in shards: merge checks and errors', function () {
   });
 
   it('SumsTotals refuses a second partial for a shard and names a shard whose sums are missing', async () => {
-    const shardDir = path.join(dir, 'totals');
+    const shardDir = path.join(dir(), 'totals');
     mkdirSync(shardDir);
     const files = writeShards(shardDir, generatedDocs(120, 8), 2);
     const { settings } = await loadSettings(null, OVERRIDES);
@@ -81,7 +77,7 @@ describe('review in shards: merge checks and errors', function () {
   });
 
   it('an unparsable shard fails the review naming the shard and the line', async () => {
-    const shardDir = path.join(dir, 'broken');
+    const shardDir = path.join(dir(), 'broken');
     mkdirSync(shardDir);
     writeShards(shardDir, generatedDocs(80, 9), 3);
     writeFileSync(path.join(shardDir, 'part-3.csv'), 'text,label\nfine words here,a\nmore words,b\n"an open quote that never closes,c\n');
@@ -93,14 +89,14 @@ describe('review in shards: merge checks and errors', function () {
   });
 
   it('counts kept by round 1 give the sums of a second tokenisation, bit for bit, and are ignored once the shard changes', async () => {
-    const shardDir = path.join(dir, 'kept');
+    const shardDir = path.join(dir(), 'kept');
     mkdirSync(shardDir);
     const files = writeShards(shardDir, generatedDocs(300, 12), 2);
     const { settings } = await loadSettings(null, OVERRIDES);
     const shard = { file: files[0]!, key: 'part-0.jsonl' };
     const origin = await shardCountsOrigin(shard.file, shard.key, settingsKey(settings));
     const { partial, kept } = await countShardKeeping(shard, settings);
-    const countsFile = path.join(dir, 'kept-0.bin');
+    const countsFile = path.join(dir(), 'kept-0.bin');
     await writeShardCounts(countsFile, kept, origin);
     const other = await countShard({ file: files[1]!, key: 'part-1.jsonl' }, settings);
     const plan = await planReview({ corpus: shardDir, settings, configDir: null, partials: [{ partial, file: 'c0' }, { partial: other, file: 'c1' }] });
@@ -113,7 +109,7 @@ describe('review in shards: merge checks and errors', function () {
     assert.equal(await readShardCounts(countsFile, { ...origin, settingsKey: 'another' }), null);
     utimesSync(shard.file, new Date(), new Date(Date.now() + 5000));
     assert.equal(await readShardCounts(countsFile, await shardCountsOrigin(shard.file, shard.key, settingsKey(settings))), null);
-    assert.equal(await readShardCounts(path.join(dir, 'missing.bin'), origin), null);
+    assert.equal(await readShardCounts(path.join(dir(), 'missing.bin'), origin), null);
     writeFileSync(countsFile, 'not counts');
     await assert.rejects(readShardCounts(countsFile, origin), (e: unknown) => isUserError(e) && /not a file of Loudword shard counts/.test(e.message));
   });

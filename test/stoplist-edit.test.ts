@@ -1,6 +1,5 @@
 import assert from 'node:assert/strict';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import fc from 'fast-check';
 import { addTermsToStopList } from '../extension/src/engine/stoplist/add-terms-to-stop-list';
@@ -9,6 +8,7 @@ import { readStopListFile } from '../extension/src/engine/stoplist/read-stop-lis
 import { removeTermsFromStopList } from '../extension/src/engine/stoplist/remove-terms-from-stop-list';
 import type { TextEdit } from '../extension/src/engine/stoplist/text-edit';
 import { UserError } from '../extension/src/engine/user-error';
+import { scratchFolder } from './support/scratch-folder';
 
 /** Applies edits the way an editor does: positions are 0-based line/UTF-16 character, line breaks CRLF, CR or LF. */
 function applyAsEditor(text: string, edits: readonly TextEdit[]): string {
@@ -108,26 +108,22 @@ describe('addTermsToStopList / removeTermsFromStopList', () => {
 });
 
 describe('readStopListFile', () => {
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(tmpdir(), 'loudword-stop-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-stop-');
 
   it('readStopListFile gives empty text and exists=false for a missing file', async () => {
-    assert.deepEqual(await readStopListFile(path.join(dir, 'none.txt')), { text: '', exists: false });
+    assert.deepEqual(await readStopListFile(path.join(dir(), 'none.txt')), { text: '', exists: false });
     badInputCases++;
   });
 
   it('readStopListFile refuses a file with a NUL byte, naming file and line', async () => {
-    const file = path.join(dir, 'bin.txt');
+    const file = path.join(dir(), 'bin.txt');
     writeFileSync(file, Buffer.from('the\r\nof\n\0x'));
     await assert.rejects(readStopListFile(file), (e: unknown) => e instanceof UserError && e.file === file && e.line === 3 && /NUL/.test(e.message));
     badInputCases++;
   });
 
   it('readStopListFile drops a UTF-8 BOM and keeps CRLF', async () => {
-    const file = path.join(dir, 'bom.txt');
+    const file = path.join(dir(), 'bom.txt');
     // Source: Unicode standard — UTF-8 BOM is EF BB BF.
     writeFileSync(file, Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from('the\r\nöf\r\n')]));
     assert.deepEqual(await readStopListFile(file), { text: 'the\r\nöf\r\n', exists: true });

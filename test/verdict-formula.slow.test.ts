@@ -5,19 +5,13 @@
 // Debian packages (wordnet-base, dict-gcide, fortunes); that definitions are written to a formula
 // whose head names the kind of thing defined is a fact of the trade (common practice, no source).
 import { strict as assert } from 'node:assert';
-import { mkdtempSync, rmSync } from 'node:fs';
-import * as os from 'node:os';
-import * as path from 'node:path';
 import { corporaNamed } from './corpora/dev-corpora';
 import { reviewWithoutLabels } from './quality/quality-row';
+import { scratchFolder } from './support/scratch-folder';
 
 describe('the verdict says when the texts follow a formula (real corpora, no labels)', function () {
   this.timeout(300_000);
-  let dir: string;
-  before(() => {
-    dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-formula-'));
-  });
-  after(() => rmSync(dir, { recursive: true, force: true }));
+  const dir = scratchFolder('loudword-formula-');
 
   const expect: Record<string, RegExp | null> = {
     'wordnet-glosses': /These texts follow a formula: \d+% of the documents open with one of \d+ grammar words \([^)]*"someone"/,
@@ -28,7 +22,7 @@ describe('the verdict says when the texts follow a formula (real corpora, no lab
     const pattern = expect[corpus.name]!;
     it(`${corpus.name}: ${pattern === null ? 'no formula caution' : 'the formula caution, with its heads'}`, async () => {
       assert.ok(corpus.available(), `${corpus.name} is not available: ${corpus.missing}`);
-      const { report } = await reviewWithoutLabels(corpus, dir, null);
+      const { report } = await reviewWithoutLabels(corpus, dir(), null);
       const headline = report.verdict?.headline ?? '';
       if (pattern === null) assert.doesNotMatch(headline, /follow a formula/);
       else assert.match(headline, pattern);
