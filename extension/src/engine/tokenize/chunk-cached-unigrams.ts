@@ -3,15 +3,17 @@ import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME, hashOf } from './chunk-table
 import { deferredLexemesOf, isWordLetter, replay, wordClassKnown } from './deferred-lexemes';
 import type { IdList } from './id-list';
 import { cutRun, MAX_RUN } from './long-runs';
+import { LexemeFilter } from './lexeme-filter';
 import { lowercaseForms } from './lowercase-forms';
 import { Vocabulary, type TermCoder } from './term-coder';
+import { winkLexemeList } from './wink-instance';
 import { WINK_SPLITTER_SOURCE } from './wink-splitter';
 import { peekCoreModel } from './wink-core-model';
 
 /** Table values below ABSENT (≥ 0 is the chunk's one term id). */
 const DROPPED = -2; // one token, dropped by the settings
 const REDO = -3; // a conditional entry that no longer holds: send the chunk to wink again
-const MULTI = -4; // MULTI - k: the ids in multis[k]
+const MULTI = -4; // MULTI - k: the ids of multis' list k
 
 /**
  * Unigram term ids of a document, identical token for token to running wink-nlp on the whole
@@ -99,11 +101,14 @@ export function chunkCachedUnigrams(
   const vocabulary = new Vocabulary();
   const table = new ChunkTable();
   // Ids of the chunks that give several (or no) terms, and whether each entry is conditional.
-  let multis: Uint32Array[] = [];
+  const multis = new IdLists();
   let conditional: boolean[] = [];
   let conditionals = 0;
   // Any document of `nlp` answers isLexeme from the instance's one lexeme cache.
   const lexemes = nlp.readDoc('');
+  // Most strings asked about are no lexemes; the filter says so without asking wink.
+  const lexemeList = winkLexemeList(nlp);
+  const lexemeFilter = lexemeList === null ? null : new LexemeFilter(lexemeList);
   const { isWord, isWordRP } = categoryTests();
   const deferred = deferredLexemesOf(nlp);
   const defer = wordClassKnown();
@@ -111,13 +116,13 @@ export function chunkCachedUnigrams(
   const store = (chunk: string, value: number): void => {
     if (!table.set(chunk, value)) {
       // The table was full and started over: what it pointed to goes too (but not `value`'s).
-      const keep = value <= MULTI ? multis[MULTI - value]! : null;
+      const keep = value <= MULTI ? multis.copy(MULTI - value) : null;
       const keepConditional = value <= MULTI ? conditional[MULTI - value]! : false;
-      multis = [];
+      multis.clear();
       conditional = [];
       conditionals = 0;
       if (keep !== null) {
-        multis.push(keep);
+        multis.add(keep);
         conditional.push(keepConditional);
         if (keepConditional) conditionals++;
         table.set(chunk, MULTI);
@@ -129,10 +134,10 @@ export function chunkCachedUnigrams(
     if (to - from === 1 && values[from] === chunk) {
       store(chunk, ids.length === 1 ? ids[0]! : DROPPED);
     } else if (isWordRP(chunk) && lexemeEntry(chunk) === null) {
-      multis.push(Uint32Array.from(ids));
+      const k = multis.add(ids);
       conditional.push(true);
       conditionals++;
-      store(chunk, MULTI - (multis.length - 1));
+      store(chunk, MULTI - k);
     }
   };
 
@@ -168,15 +173,15 @@ export function chunkCachedUnigrams(
    * (nothing done) when any of that does not hold. Not while a pending miss might change any of
    * it: one that could reach the word could reach the chunk, which holds it, too.
    */
-  const composeWordRP = (text: string, start: number, end: number, out: IdList): boolean => {
+  const composeWordRP = (text: string, start: number, end: number, hash: number, out: IdList): boolean => {
     const chunk = text.slice(start, end);
-    if (!isWordRP(chunk) || lexemeEntry(chunk) !== null) return false;
+    if (!isWordRP(chunk) || lexemeEntry(chunk, hash) !== null) return false;
     const w = chunk.slice(0, -1);
     // A pending miss that could reach the word could also make the chunk (which holds it) a lexeme.
     if (unsafeMisses > 0 && reachedByPending(w.toLowerCase())) return false;
     const sign = signValue(chunk.slice(-1));
     if (sign === ABSENT) return false;
-    const entry = lexemeEntry(w);
+    const entry = lexemeEntry(w, hashOf(text, start, end - 1));
     let word: number;
     if (entry === null) {
       if (!defer) return false;
@@ -192,10 +197,10 @@ export function chunkCachedUnigrams(
     if (word >= 0) ids.push(word);
     if (sign >= 0) ids.push(sign);
     for (const id of ids) out.push(id);
-    multis.push(Uint32Array.from(ids));
+    const k = multis.add(ids);
     conditional.push(true);
     conditionals++;
-    store(chunk, MULTI - (multis.length - 1));
+    store(chunk, MULTI - k);
     return true;
   };
   /**
@@ -227,9 +232,9 @@ export function chunkCachedUnigrams(
   };
 
   /** Point 7 for a plain-word chunk: appends its id and caches it for good; false if it is a lexeme. */
-  const resolvePlainWord = (text: string, start: number, end: number, out: IdList): boolean => {
+  const resolvePlainWord = (text: string, start: number, end: number, hash: number, out: IdList): boolean => {
     const chunk = text.slice(start, end);
-    if (!defer || !isWord(chunk) || lexemeEntry(chunk) !== null) return false;
+    if (!defer || !isWord(chunk) || lexemeEntry(chunk, hash) !== null) return false;
     if (unsafeMisses > 0 && reachedByPending(chunk.toLowerCase())) return false;
     const id = deferWord(chunk);
     if (id >= 0) out.push(id);
@@ -247,8 +252,14 @@ export function chunkCachedUnigrams(
     runJoined([lexeme]);
     return table.getKey(lexeme);
   };
-  /** wink's `cache.lookup`: null, or [lexeme index], or 4 numbers per part of a contraction. */
-  const lexemeEntry = (text: string): readonly number[] | null => lexemes.isLexeme(text) as unknown as readonly number[] | null;
+  /**
+   * wink's `cache.lookup`: null, or [lexeme index], or 4 numbers per part of a contraction.
+   * `hash`: text's FNV-1a hash, where the caller has it.
+   */
+  const lexemeEntry = (text: string, hash?: number): readonly number[] | null => {
+    if (lexemeFilter !== null && !lexemeFilter.mayHave(hash ?? hashOf(text, 0, text.length))) return null;
+    return lexemes.isLexeme(text) as unknown as readonly number[] | null;
+  };
 
   /** Runs wink once on the chunks joined by single spaces; element k holds chunk k's term ids. */
   const runJoined = (chunks: readonly string[]): number[][] => {
@@ -319,12 +330,13 @@ export function chunkCachedUnigrams(
     if (v >= 0) {
       out.push(v);
     } else if (v <= MULTI) {
-      const ids = multis[MULTI - v]!;
-      for (let i = 0; i < ids.length; i++) out.push(ids[i]!);
+      const k = MULTI - v;
+      const { ids, ends } = multis;
+      for (let i = k === 0 ? 0 : ends[k - 1]!, end = ends[k]!; i < end; i++) out.push(ids[i]!);
     } else if (v !== DROPPED) {
       if (v === ABSENT) {
-        if (resolvePlainWord(text, start, end, out)) return;
-        if (end - start > 2 && composeWordRP(text, start, end, out)) return;
+        if (resolvePlainWord(text, start, end, hash, out)) return;
+        if (end - start > 2 && composeWordRP(text, start, end, hash, out)) return;
       }
       const chunk = text.slice(start, end);
       misses.push(chunk);
@@ -503,4 +515,43 @@ function categoryTests(): { isWord(chunk: string): boolean; isWordRP(chunk: stri
   } catch {
     return none;
   }
+}
+
+/**
+ * The id lists of the chunks that give several (or no) terms, one after another in one array
+ * (list k is ids[ends[k-1] .. ends[k]), ends[-1] = 0): ~80k lists for half the 100k bench
+ * corpus, which as a typed array each were as many small objects for the young generation to
+ * copy and promote.
+ */
+class IdLists {
+  ids: Uint32Array = new Uint32Array(1 << 12);
+  ends: Uint32Array = new Uint32Array(1 << 10);
+  count = 0;
+
+  /** Appends a list; its index. */
+  add(list: ArrayLike<number>): number {
+    const start = this.count === 0 ? 0 : this.ends[this.count - 1]!;
+    const end = start + list.length;
+    if (end > this.ids.length) this.ids = grownTo(this.ids, end);
+    if (this.count === this.ends.length) this.ends = grownTo(this.ends, this.count + 1);
+    for (let i = 0; i < list.length; i++) this.ids[start + i] = list[i]!;
+    this.ends[this.count] = end;
+    return this.count++;
+  }
+
+  /** List k, copied out. */
+  copy(k: number): number[] {
+    return Array.from(this.ids.subarray(k === 0 ? 0 : this.ends[k - 1]!, this.ends[k]!));
+  }
+
+  clear(): void {
+    this.count = 0;
+  }
+}
+
+/** `a`'s contents in an array at least `size` long (twice as long, or more). */
+function grownTo(a: Uint32Array, size: number): Uint32Array {
+  const grown = new Uint32Array(Math.max(size, 2 * a.length));
+  grown.set(a);
+  return grown;
 }

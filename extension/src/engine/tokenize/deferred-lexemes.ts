@@ -11,8 +11,12 @@ import { peekCoreModel } from './wink-core-model';
  * instance's: every coder and whole-document tokenizer on one instance must see the same words.
  */
 export class DeferredLexemes {
-  /** The deferred strings by their lowercase (the key a run's lookup can reach them by). */
-  private readonly byLower = new Map<string, string[]>();
+  /**
+   * The deferred strings by their lowercase (the key a run's lookup can reach them by): the one
+   * string, or a list when there are several (~185k words for half the 100k bench corpus, nearly
+   * all alone under their key: a list each was as many small objects for the collector).
+   */
+  private readonly byLower = new Map<string, string | string[]>();
   private count = 0;
   /** Longest lowercase key, in code units: no longer substring needs looking at. */
   private longest = 0;
@@ -26,9 +30,12 @@ export class DeferredLexemes {
 
   /** Records `word` (not a wink lexeme; `lower` is its lowercase) as deferred. */
   add(word: string, lower: string): void {
-    const list = this.byLower.get(lower);
-    if (list === undefined) this.byLower.set(lower, [word]);
-    else if (!list.includes(word)) list.push(word);
+    const held = this.byLower.get(lower);
+    if (held === undefined) this.byLower.set(lower, word);
+    else if (typeof held === 'string') {
+      if (held === word) return;
+      this.byLower.set(lower, [held, word]);
+    } else if (!held.includes(word)) held.push(word);
     else return;
     this.count++;
     this.deferredEver++;
@@ -65,19 +72,28 @@ export class DeferredLexemes {
 
   /** Moves every deferred string to `out`. */
   takeAll(out: string[]): void {
-    for (const list of this.byLower.values()) for (const w of list) out.push(w);
+    for (const held of this.byLower.values()) pushHeld(held, out);
     this.byLower.clear();
     this.count = 0;
     this.longest = 0;
   }
 
   private take(key: string, out: string[]): void {
-    const list = this.byLower.get(key);
-    if (list === undefined) return;
+    const held = this.byLower.get(key);
+    if (held === undefined) return;
     this.byLower.delete(key);
-    this.count -= list.length;
-    for (const w of list) out.push(w);
+    this.count -= pushHeld(held, out);
   }
+}
+
+/** Appends the string or strings held under one key to `out`; how many. */
+function pushHeld(held: string | string[], out: string[]): number {
+  if (typeof held === 'string') {
+    out.push(held);
+    return 1;
+  }
+  for (const w of held) out.push(w);
+  return held.length;
 }
 
 /** False when the model's word class could not be read: then nothing may be deferred. */

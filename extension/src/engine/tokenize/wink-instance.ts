@@ -28,9 +28,25 @@ export function winkInstance(pipe: WinkPipe): WinkMethods {
 export function freshWinkInstance(pipe: WinkPipe): WinkMethods {
   // Required here rather than imported at the top so the model is parsed only when needed.
   const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
-  const nlp = winkNLP(reusableModel(), pipe === 'tokens' ? [] : ['sbd']);
+  // The core model wink reads for this instance (once, when it is made), kept to find its lexemes.
+  const model = reusableModel();
+  let core: { features?: { lexeme?: { list?: unknown } } } | undefined;
+  const nlp = winkNLP({ ...model, core: () => (core = model.core() as typeof core) }, pipe === 'tokens' ? [] : ['sbd']);
+  const list = core?.features?.lexeme?.list;
+  if (Array.isArray(list)) lexemeLists.set(nlp, list);
   assertItsRecognised(nlp);
   return nlp;
+}
+
+const lexemeLists = new WeakMap<WinkMethods, readonly unknown[]>();
+
+/**
+ * The lexemes of an instance made by freshWinkInstance, by index (`model.features.lexeme.list`,
+ * which the instance's lexeme cache is built from and only ever pushes onto: lexeme-filter.ts);
+ * null for an instance made elsewhere, or a model without that list.
+ */
+export function winkLexemeList(nlp: WinkMethods): readonly unknown[] | null {
+  return lexemeLists.get(nlp) ?? null;
 }
 
 /** Porter stemmer shipped with the model (the same one `its.stem` calls). */
@@ -38,7 +54,7 @@ export function winkStemmer(): (word: string) => string {
   return winkModel().addons.stem;
 }
 
-let reusable: unknown;
+let reusable: { core(): unknown } | undefined;
 
 /**
  * The model as wink-nlp may load it any number of times. wink-eng-lite-web-model 1.8's
@@ -46,11 +62,11 @@ let reusable: unknown;
  * answer stringified again (quotes escaped, ~2× longer): the ~10th wink instance of a process
  * fails with "Invalid string length". Its first answer is kept and handed out again.
  */
-function reusableModel(): unknown {
+function reusableModel(): { core(): unknown } {
   if (reusable === undefined) {
-    const model = require('wink-eng-lite-web-model') as { metaCER(): unknown };
+    const model = require('wink-eng-lite-web-model') as { core(): unknown; metaCER(): unknown };
     let meta: unknown;
-    reusable = { ...model, metaCER: () => (meta ??= model.metaCER()) };
+    reusable = { ...model, metaCER: () => (meta ??= model.metaCER()) } as { core(): unknown };
   }
   return reusable;
 }
