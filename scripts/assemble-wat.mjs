@@ -19,8 +19,9 @@ export const ENGINE_WAT = {
 /** A module's bytes, assembled from its text. */
 export async function assembleWat(watPath) {
   const w = await wabt();
-  // Shared memory (the threads of one sweep or gather read one), memory.fill, the saturating conversions.
-  const features = { threads: true, bulk_memory: true, sat_float_to_int: true };
+  // Shared memory (the threads of one sweep or gather read one), memory.fill, the saturating
+  // conversions, and 128-bit SIMD (the sweep's rows two at a time).
+  const features = { threads: true, bulk_memory: true, sat_float_to_int: true, simd: true };
   const parsed = w.parseWat(watPath, readFileSync(watPath, 'utf8'), features);
   try {
     parsed.resolveNames();

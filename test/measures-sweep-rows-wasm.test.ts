@@ -2,8 +2,10 @@
 // TypeScript's SweepRows writes, byte for byte (−0 included; a NaN as a NaN, whatever its bits): every output of every
 // row and every block's sums, on random rows, on rows with ties at the k-th place, with invalid
 // (empty) rows, with rows too short for k neighbours or for the radius slack's 10k-th distance,
-// with rows whose distances are all equal, and with rows whose radius bound falls short (the row's
-// distances gathered again). The TypeScript is held to each measure's own function in
+// with rows whose distances are all equal, with rows whose radius bound falls short (the row's
+// distances gathered again), and with NaN, infinite, huge and −0 products where the .wat sweeps
+// two rows side by side (rowPair: invalid rows between the two, a pair at a block's start and
+// end, an odd row left alone). The TypeScript is held to each measure's own function in
 // test/measures-measure-sample-rows.test.ts.
 import { strict as assert } from 'node:assert';
 import { validRowsFromGram } from '../extension/src/engine/measures/gram-distances';
@@ -102,6 +104,27 @@ describe('measures/sweep-rows-wasm', () => {
     assertSameBytes(equal.js, equal.wasm, 'equal rows');
     const empty = bothSweeps(new Float64Array(12 * 12), 12, 3, new Float64Array(12).fill(1), 5);
     assertSameBytes(empty.js, empty.wasm, 'empty rows');
+  });
+
+  it('products with NaN, ±∞, huge and ±0 values and invalid rows between valid ones, rows paired in every way: the same bytes', () => {
+    const n = 97;
+    const { gram, scale } = products(15, n, 12, 0.5, 5);
+    const random = mulberry32(16);
+    const odd = [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 1e300, -1e300, -0, 0, 5e-324];
+    for (let t = 0; t < 300; t++) {
+      const i = Math.floor(random() * n);
+      const j = Math.floor(random() * n);
+      if (i !== j) gram[i * n + j] = odd[t % odd.length]!;
+    }
+    // Rows 0 and 1 valid (each the other's first column), then runs of invalid rows between valid ones.
+    for (const r of [3, 4, 5, 9, 12, 13]) for (let j = 0; j < n; j++) gram[r * n + j] = gram[j * n + r] = 0;
+    const valid = validRowsFromGram(gram, n);
+    assert.ok(valid[0] && valid[1] && !valid[3] && !valid[4] && !valid[5], 'the rows meant to be valid or not');
+    for (const [k, blockRows] of [[3, 1], [3, 2], [4, 5], [10, 16], [5, n]] as const) {
+      const { js, wasm } = bothSweeps(gram, n, k, scale, blockRows);
+      assert.ok(js.blockBins.some((c) => c > 0) && js.blockPairs.some((x) => Number.isNaN(x)) && js.zScores.some((z) => Number.isFinite(z)), 'NaN pair sums and counted pairs');
+      assertSameBytes(js, wasm, `odd values, k ${k}, blocks of ${blockRows}`);
+    }
   });
 
   it('rows whose every 16th entry is near and the rest far (the radius bound falls short, the row is read again): the same bytes', () => {

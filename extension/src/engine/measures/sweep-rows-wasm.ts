@@ -34,6 +34,10 @@ interface ScratchAt {
   probe: number;
   buckets: number;
   counts: number;
+  /** A pair's second row's scores, nearby distances and pair terms (sweep-rows.wat's rowPair). */
+  rankScratch2: number;
+  near2: number;
+  pairTail: number;
 }
 
 /** Where everything of a sweep lies in its memory (byte offsets), and the memory's size. */
@@ -94,7 +98,10 @@ export function sweepLayout(m: number, k: number, blocks: number, states: number
     rankScratch: take(8 * m),
     probe: take(8 * (Math.ceil(m / 8) + 1)),
     buckets: take(4 * RANK_BUCKETS),
-    counts: take(4 * 4 * SIMILARITY_BINS),
+    counts: take(4 * 8 * SIMILARITY_BINS),
+    rankScratch2: take(8 * m),
+    near2: take(8 * m),
+    pairTail: take(8 * m),
   }));
   const stateAt = Array.from({ length: states }, () => ({ dots: take(8 * m * m), scale: take(8 * m), counts: gram === undefined ? -1 : take(gram.countBytes * m * m) }));
   const postPos = gram === undefined ? -1 : take(4 * gram.postings);
@@ -144,7 +151,7 @@ export class WasmSweepRows {
     this.exports = new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as SweepRowsExports;
     const { m, k, outputs: o, valid } = layout;
     const s = layout.scratch[thread]!;
-    this.exports.layout(m, k, blockRows, o.neighbors, o.sims, o.nnDist, o.zScores, o.contrast, o.slack, o.rowMean, o.rowMin, o.nearBin, o.tieGroup, o.blockPairs, o.blockBins, valid, s.norms, s.best, s.bestPos, s.tie, s.near, s.rankScratch, s.probe, s.buckets, s.counts);
+    this.exports.layout(m, k, blockRows, o.neighbors, o.sims, o.nnDist, o.zScores, o.contrast, o.slack, o.rowMean, o.rowMin, o.nearBin, o.tieGroup, o.blockPairs, o.blockBins, valid, s.norms, s.best, s.bestPos, s.tie, s.near, s.rankScratch, s.probe, s.buckets, s.counts, s.rankScratch2, s.near2, s.pairTail);
   }
 
   /** The state the next blocks read: dot products and row scales at these byte offsets; pairShift's value. */

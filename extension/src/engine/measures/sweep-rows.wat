@@ -16,7 +16,12 @@
 ;; - binOf is written out in the loop (a call there spills the loop's doubles), and the row's pair
 ;;   counts go to four interleaved integer tables added to the block's histogram at the row's end:
 ;;   the histogram holds whole numbers far below 2^53, so adding a count at once gives the double
-;;   that adding its ones one by one gives.
+;;   that adding its ones one by one gives;
+;; - a block's valid rows are swept two at a time (rowPair), their first passes side by side in the
+;;   two lanes of f64x2 values (SIMD): each lane does its row's operations in its row's order, so
+;;   each row's sums are the bits of its own pass; the block's pair sums take the first row's terms,
+;;   then the second's (kept aside in column order), as when the rows are swept one after the
+;;   other. About 15% less CPU a sweep (docs/performance.md, "What-if: two rows a pass").
 ;; Where the TypeScript compares a double that Math.floor gave with an integer, this compares the
 ;; doubles first and converts only a value known to be a small integer (or −0), so NaN goes where
 ;; it goes there. Math.max(1, x) and Math.max(0, x) are f64.max: both give NaN for a NaN and +0
@@ -50,7 +55,10 @@
   (global $rscr (mut i32) (i32.const 0))     ;; rankScratch (m)
   (global $probe (mut i32) (i32.const 0))    ;; probe (ceil(m/8)+1)
   (global $buckets (mut i32) (i32.const 0))  ;; rankBuckets (i32, 256)
-  (global $counts (mut i32) (i32.const 0))   ;; the row's pair counts per bin, 4 interleaved sets (i32, 4·40; zero between rows)
+  (global $counts (mut i32) (i32.const 0))   ;; the rows' pair counts per bin, 4 interleaved sets a row of a pair (i32, 8·40; zero between rows)
+  (global $rscr2 (mut i32) (i32.const 0))    ;; rankScratch of a pair's second row (m)
+  (global $near2 (mut i32) (i32.const 0))    ;; near of a pair's second row (m)
+  (global $eTail (mut i32) (i32.const 0))    ;; a pair's second row's pair terms d − shift, in column order (m)
   (global $gram (mut i32) (i32.const 0))     ;; the state's dot products (m·m)
   (global $scale (mut i32) (i32.const 0))    ;; the state's row scales (m)
   (global $shift (mut f64) (f64.const 0))
@@ -73,6 +81,7 @@
     (param $rmean i32) (param $rmin i32) (param $nbin i32) (param $tgrp i32) (param $bpairs i32) (param $bbins i32)
     (param $valid i32) (param $norms i32) (param $best i32) (param $bpos i32) (param $tie i32) (param $near i32)
     (param $rscr i32) (param $probe i32) (param $buckets i32) (param $counts i32)
+    (param $rscr2 i32) (param $near2 i32) (param $eTail i32)
     (global.set $m (local.get $m)) (global.set $k (local.get $k)) (global.set $blockRows (local.get $blockRows))
     (global.set $nbr (local.get $nbr)) (global.set $sims (local.get $sims)) (global.set $nnd (local.get $nnd))
     (global.set $z (local.get $z)) (global.set $con (local.get $con)) (global.set $slk (local.get $slk))
@@ -82,7 +91,8 @@
     (global.set $bpos (local.get $bpos)) (global.set $tie (local.get $tie)) (global.set $near (local.get $near))
     (global.set $rscr (local.get $rscr)) (global.set $probe (local.get $probe)) (global.set $buckets (local.get $buckets))
     (global.set $counts (local.get $counts))
-    (memory.fill (local.get $counts) (i32.const 0) (i32.const 640)))
+    (global.set $rscr2 (local.get $rscr2)) (global.set $near2 (local.get $near2)) (global.set $eTail (local.get $eTail))
+    (memory.fill (local.get $counts) (i32.const 0) (i32.const 1280)))
 
   ;; The state a sweep reads: SweepRows' constructor (squaredNorms, validTotal) for these inputs.
   (func (export "state") (param $gram i32) (param $scale i32) (param $shift f64)
@@ -106,7 +116,7 @@
 
   ;; SweepRows.block(b): the block's rows in order, its pair sums and histogram.
   (func (export "block") (param $b i32)
-    (local $i i32) (local $end i32) (local $t i32)
+    (local $i i32) (local $end i32) (local $t i32) (local $i2 i32)
     (local.set $i (i32.mul (local.get $b) (global.get $blockRows)))
     (local.set $end (i32.add (local.get $i) (global.get $blockRows)))
     (if (i32.gt_s (local.get $end) (global.get $m)) (then (local.set $end (global.get $m))))
@@ -118,12 +128,26 @@
       (br $clear)))
     (global.set $pairSum (f64.const 0))
     (global.set $pairSumSq (f64.const 0))
+    ;; The block's valid rows two at a time (rowPair: each row's operations in its own order, the
+    ;; pair sums row after row), the last one of an odd count alone; the invalid ones in between.
     (block $done (loop $rows
       (br_if $done (i32.ge_s (local.get $i) (local.get $end)))
-      (if (i32.load8_u (i32.add (global.get $valid) (local.get $i)))
-        (then (call $row (local.get $i)))
-        (else (call $noRow (local.get $i))))
-      (local.set $i (i32.add (local.get $i) (i32.const 1)))
+      (if (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $i)))) (then
+        (call $noRow (local.get $i))
+        (local.set $i (i32.add (local.get $i) (i32.const 1)))
+        (br $rows)))
+      (local.set $i2 (i32.add (local.get $i) (i32.const 1)))
+      (block $found (loop $seek
+        (br_if $found (i32.ge_s (local.get $i2) (local.get $end)))
+        (br_if $found (i32.load8_u (i32.add (global.get $valid) (local.get $i2))))
+        (call $noRow (local.get $i2))
+        (local.set $i2 (i32.add (local.get $i2) (i32.const 1)))
+        (br $seek)))
+      (if (i32.ge_s (local.get $i2) (local.get $end)) (then
+        (call $row (local.get $i))
+        (br $done)))
+      (call $rowPair (local.get $i) (local.get $i2))
+      (local.set $i (i32.add (local.get $i2) (i32.const 1)))
       (br $rows)))
     (f64.store (i32.add (global.get $bpairs) (i32.shl (local.get $b) (i32.const 4))) (global.get $pairSum))
     (f64.store (i32.add (global.get $bpairs) (i32.add (i32.shl (local.get $b) (i32.const 4)) (i32.const 8))) (global.get $pairSumSq)))
@@ -148,21 +172,26 @@
     (i32.store (i32.add (global.get $nbin) (i32.shl (local.get $i) (i32.const 2))) (i32.const -1))
     (i32.store (i32.add (global.get $tgrp) (i32.shl (local.get $i) (i32.const 2))) (i32.const 0)))
 
-;; The row's pair counts into the block's histogram (doubles that count in ones: adding a count
-  ;; at once is the same double as adding its ones one by one), and the counts cleared.
+  ;; The row's (or the pair's) counts into the block's histogram (doubles that count in ones: adding
+  ;; a count at once is the same double as adding its ones one by one, row after row), and the
+  ;; counts cleared.
   (func $flushCounts
-    (local $c i32) (local $at i32)
+    (local $c i32) (local $at i32) (local $n i32) (local $set i32)
     (block $done (loop $each
       (br_if $done (i32.ge_s (local.get $c) (i32.const 40)))
+      (local.set $n (i32.const 0))
+      (local.set $set (i32.const 0))
+      (block $summed (loop $sets
+        (br_if $summed (i32.ge_s (local.get $set) (i32.const 8)))
+        (local.set $n (i32.add (local.get $n)
+          (i32.load (i32.add (global.get $counts) (i32.shl (i32.add (i32.mul (local.get $set) (i32.const 40)) (local.get $c)) (i32.const 2))))))
+        (local.set $set (i32.add (local.get $set) (i32.const 1)))
+        (br $sets)))
       (local.set $at (i32.add (global.get $pairBins) (i32.shl (local.get $c) (i32.const 3))))
-      (f64.store (local.get $at) (f64.add (f64.load (local.get $at)) (f64.convert_i32_s
-        (i32.add (i32.add (i32.load (i32.add (global.get $counts) (i32.shl (local.get $c) (i32.const 2))))
-                          (i32.load (i32.add (global.get $counts) (i32.shl (i32.add (local.get $c) (i32.const 40)) (i32.const 2)))))
-                 (i32.add (i32.load (i32.add (global.get $counts) (i32.shl (i32.add (local.get $c) (i32.const 80)) (i32.const 2))))
-                          (i32.load (i32.add (global.get $counts) (i32.shl (i32.add (local.get $c) (i32.const 120)) (i32.const 2)))))))))
+      (f64.store (local.get $at) (f64.add (f64.load (local.get $at)) (f64.convert_i32_s (local.get $n))))
       (local.set $c (i32.add (local.get $c) (i32.const 1)))
       (br $each)))
-    (memory.fill (global.get $counts) (i32.const 0) (i32.const 640)))
+    (memory.fill (global.get $counts) (i32.const 0) (i32.const 1280)))
 
   ;; binOf(s, 40) as an index, or −1 where binOf gives NaN (s NaN: a typed array ignores that index).
   (func $binOf (param $s f64) (result i32)
@@ -195,8 +224,6 @@
     (if (i32.lt_s (i32.sub (global.get $validTotal) (i32.const 1)) (local.get $farRows))
       (then (local.set $farRows (i32.sub (global.get $validTotal) (i32.const 1)))))
     (local.set $limit (call $radiusBound (local.get $i) (local.get $farRows) (i32.sub (global.get $validTotal) (i32.const 1))))
-    (local.set $bar (f64.const -inf))
-    (local.set $keep (f64.const -inf))
     (local.set $first (f64.const nan))
     (local.set $dMin (f64.const inf))
     (local.set $dMax (f64.const -inf))
@@ -247,6 +274,28 @@
           (local.set $eSumSq (f64.add (local.get $eSumSq) (f64.mul (local.get $e) (local.get $e)))))))
       (local.set $j (i32.add (local.get $j) (i32.const 1)))
       (br $cols)))
+    (global.set $pairSum (local.get $eSum))
+    (global.set $pairSumSq (local.get $eSumSq))
+    (call $flushCounts)
+    (call $finishRow (local.get $i) (global.get $rscr) (global.get $near) (local.get $nNear)
+      (local.get $sum) (local.get $others) (local.get $devSum) (local.get $devSumSq) (local.get $dMin) (local.get $dMax) (local.get $dSum)))
+
+  ;; The rest of row i's part once its first pass is done (SweepRows.row after its first loop): the
+  ;; k-NN offers over the row's scores (at `scores`, by column), the list, the per-row summaries
+  ;; and the radius slack (from the nNear distances at `nearAt`).
+  (func $finishRow (param $i i32) (param $scores i32) (param $nearAt i32) (param $nNear i32)
+    (param $sum f64) (param $others i32) (param $devSum f64) (param $devSumSq f64) (param $dMin f64) (param $dMax f64) (param $dSum f64)
+    (local $m i32) (local $k i32) (local $ni f64)
+    (local $filled i32) (local $bar f64) (local $keep f64) (local $ties i32)
+    (local $j i32) (local $s f64) (local $nj f64) (local $sq f64) (local $slot i32)
+    (local $prev f64) (local $kth f64) (local $at i32)
+    (local $r i32) (local $nearest f64) (local $mean f64) (local $meanDev f64) (local $sd f64)
+    (local $group i32) (local $last f64) (local $tol f64) (local $g i32) (local $far i32) (local $rK f64)
+    (local.set $m (global.get $m))
+    (local.set $k (global.get $k))
+    (local.set $ni (f64.load (i32.add (global.get $norms) (i32.shl (local.get $i) (i32.const 3)))))
+    (local.set $bar (f64.const -inf))
+    (local.set $keep (f64.const -inf))
     ;; The k-NN offers (the first pass's scores, in the same order): a pass of their own, since
     ;; in the first one their code cost more than it does here.
     (local.set $j (i32.const 0))
@@ -255,7 +304,7 @@
       (block $skip
         (br_if $skip (i32.eq (local.get $j) (local.get $i)))
         (br_if $skip (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
-        (local.set $s (f64.load (i32.add (global.get $rscr) (i32.shl (local.get $j) (i32.const 3)))))
+        (local.set $s (f64.load (i32.add (local.get $scores) (i32.shl (local.get $j) (i32.const 3)))))
         (if (f64.ge (local.get $s) (local.get $keep)) (then
           (f64.store (i32.add (global.get $tie) (i32.shl (local.get $ties) (i32.const 3))) (local.get $s))
           (local.set $ties (i32.add (local.get $ties) (i32.const 1)))
@@ -283,9 +332,6 @@
                 (f64.mul (f64.mul (f64.const 4) (f64.const 1e-12)) (f64.max (f64.const 1) (f64.abs (local.get $kth)))))))))))))
       (local.set $j (i32.add (local.get $j) (i32.const 1)))
       (br $offers)))
-    (global.set $pairSum (local.get $eSum))
-    (global.set $pairSumSq (local.get $eSumSq))
-    (call $flushCounts)
 
     (block $listed (loop $list
       (br_if $listed (i32.ge_s (local.get $r) (local.get $k)))
@@ -347,12 +393,238 @@
     (if (i32.ge_s (local.get $others) (local.get $k)) (then
       (local.set $far (i32.mul (i32.const 10) (local.get $k)))
       (if (i32.lt_s (local.get $others) (local.get $far)) (then (local.set $far (local.get $others))))
-      (if (i32.lt_s (local.get $nNear) (local.get $far)) (then (local.set $nNear (call $gatherDistances (local.get $i) (global.get $near)))))
-      (call $twoRanks (global.get $near) (local.get $nNear) (i32.sub (local.get $k) (i32.const 1)) (i32.sub (local.get $far) (i32.const 1)))
+      (if (i32.lt_s (local.get $nNear) (local.get $far)) (then (local.set $nNear (call $gatherDistances (local.get $i) (local.get $nearAt)))))
+      (call $twoRanks (local.get $nearAt) (local.get $nNear) (i32.sub (local.get $k) (i32.const 1)) (i32.sub (local.get $far) (i32.const 1)))
       (local.set $rK (global.get $rank1))
       (if (f64.gt (local.get $rK) (f64.const 0)) (then
         (f64.store (i32.add (global.get $slk) (local.get $at))
           (f64.div (f64.sub (global.get $rank2) (local.get $rK)) (local.get $rK))))))))
+
+  ;; SweepRows.row(i1) and .row(i2) for two valid rows i1 < i2 of one block with no valid row
+  ;; between them, their first passes side by side: i1's values in lane 0 of each f64x2, i2's in
+  ;; lane 1, each lane with the scalar $row's operations in its order (columns ascending), so the
+  ;; same bits. Column i2 of row i1 and column i1 of row i2 are their lane's alone (lane by lane, as
+  ;; in $row). A row's `others` is validTotal − 1 (every valid column but its own), and its
+  ;; `first` the score of the first of them. The block's pair sums run down i1's terms, then
+  ;; i2's (kept aside in column order), as when the rows are swept one after the other; the pair
+  ;; counts are whole numbers, so the order they are counted in changes nothing.
+  (func $rowPair (param $i1 i32) (param $i2 i32)
+    (local $m i32) (local $farRows i32) (local $others i32) (local $end i32)
+    (local $g1 i32) (local $g2 i32) (local $s1 i32) (local $s2 i32) (local $n1 i32) (local $n2 i32)
+    (local $nNear1 i32) (local $nNear2 i32) (local $nTail i32) (local $j i32) (local $at i32)
+    (local $bits i32) (local $q i32) (local $c i32) (local $t i32)
+    (local $si v128) (local $ni v128) (local $limit v128) (local $first v128) (local $shift v128)
+    (local $sum v128) (local $devSum v128) (local $devSumSq v128) (local $dMin v128) (local $dMax v128) (local $dSum v128)
+    (local $s v128) (local $nn v128) (local $sq v128) (local $d v128) (local $dev v128) (local $b v128) (local $e v128) (local $bin v128)
+    (local $eSum f64) (local $eSumSq f64) (local $x f64) (local $eL f64)
+    (local $sc f64) (local $nj f64) (local $niL f64) (local $sqL f64) (local $dL f64) (local $devL f64) (local $bL f64)
+    (local.set $m (global.get $m))
+    (local.set $g1 (i32.add (global.get $gram) (i32.shl (i32.mul (local.get $i1) (local.get $m)) (i32.const 3))))
+    (local.set $g2 (i32.add (global.get $gram) (i32.shl (i32.mul (local.get $i2) (local.get $m)) (i32.const 3))))
+    (local.set $s1 (global.get $rscr))
+    (local.set $s2 (global.get $rscr2))
+    (local.set $n1 (global.get $near))
+    (local.set $n2 (global.get $near2))
+    (local.set $si (f64x2.replace_lane 1
+      (f64x2.splat (f64.load (i32.add (global.get $scale) (i32.shl (local.get $i1) (i32.const 3)))))
+      (f64.load (i32.add (global.get $scale) (i32.shl (local.get $i2) (i32.const 3))))))
+    (local.set $ni (f64x2.replace_lane 1
+      (f64x2.splat (f64.load (i32.add (global.get $norms) (i32.shl (local.get $i1) (i32.const 3)))))
+      (f64.load (i32.add (global.get $norms) (i32.shl (local.get $i2) (i32.const 3))))))
+    (local.set $shift (f64x2.splat (global.get $shift)))
+    (local.set $others (i32.sub (global.get $validTotal) (i32.const 1)))
+    ;; Math.min(10 * k, validTotal - 1)
+    (local.set $farRows (i32.mul (i32.const 10) (global.get $k)))
+    (if (i32.lt_s (local.get $others) (local.get $farRows)) (then (local.set $farRows (local.get $others))))
+    (local.set $limit (f64x2.replace_lane 1
+      (f64x2.splat (call $radiusBound (local.get $i1) (local.get $farRows) (local.get $others)))
+      (call $radiusBound (local.get $i2) (local.get $farRows) (local.get $others))))
+    ;; the lane's first score: that of the first valid column other than its row (the scalar's `first`)
+    (local.set $j (i32.const 0))
+    (block $found0 (loop $seek0
+      (br_if $found0 (i32.and (i32.ne (local.get $j) (local.get $i1)) (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
+      (local.set $j (i32.add (local.get $j) (i32.const 1)))
+      (br $seek0)))
+    (local.set $at (i32.shl (local.get $j) (i32.const 3)))
+    (local.set $first (f64x2.replace_lane 0 (local.get $first)
+      (f64.mul (f64.mul (f64.load (i32.add (local.get $g1) (local.get $at))) (f64x2.extract_lane 0 (local.get $si)))
+        (f64.load (i32.add (global.get $scale) (local.get $at))))))
+    ;; the lane's first score: that of the first valid column other than its row (the scalar's `first`)
+    (local.set $j (i32.const 0))
+    (block $found1 (loop $seek1
+      (br_if $found1 (i32.and (i32.ne (local.get $j) (local.get $i2)) (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
+      (local.set $j (i32.add (local.get $j) (i32.const 1)))
+      (br $seek1)))
+    (local.set $at (i32.shl (local.get $j) (i32.const 3)))
+    (local.set $first (f64x2.replace_lane 1 (local.get $first)
+      (f64.mul (f64.mul (f64.load (i32.add (local.get $g2) (local.get $at))) (f64x2.extract_lane 1 (local.get $si)))
+        (f64.load (i32.add (global.get $scale) (local.get $at))))))
+    (local.set $dMin (v128.const f64x2 inf inf))
+    (local.set $dMax (v128.const f64x2 -inf -inf))
+    (local.set $eSum (global.get $pairSum))
+    (local.set $eSumSq (global.get $pairSumSq))
+
+    ;; Columns [0, i1): both rows, no pair counted (j < i1 < i2).
+    (local.set $end (local.get $i1))
+    (block $sweptA (loop $colsA
+      (br_if $sweptA (i32.ge_s (local.get $j) (local.get $end)))
+      (block $next
+        (br_if $next (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
+        (local.set $at (i32.shl (local.get $j) (i32.const 3)))
+        ;; s = gram[base + j] · si · rowScale[j], for i1 in lane 0 and i2 in lane 1
+        (local.set $s (f64x2.mul (f64x2.mul
+          (v128.load64_lane 1 (i32.add (local.get $g2) (local.get $at)) (v128.load64_splat (i32.add (local.get $g1) (local.get $at))))
+          (local.get $si))
+          (v128.load64_splat (i32.add (global.get $scale) (local.get $at)))))
+        ;; ni + nj; sq = ni + nj − 2·s; d = sq > SAME_POINT·(ni + nj) ? √sq : 0
+        (local.set $nn (f64x2.add (local.get $ni) (v128.load64_splat (i32.add (global.get $norms) (local.get $at)))))
+        (local.set $sq (f64x2.sub (local.get $nn) (f64x2.mul (v128.const f64x2 2 2) (local.get $s))))
+        (local.set $d (v128.bitselect (f64x2.sqrt (local.get $sq)) (v128.const i64x2 0 0)
+          (f64x2.gt (local.get $sq) (f64x2.mul (v128.const f64x2 1e-12 1e-12) (local.get $nn)))))
+        (v128.store64_lane 0 (i32.add (local.get $s1) (local.get $at)) (local.get $s))
+        (v128.store64_lane 1 (i32.add (local.get $s2) (local.get $at)) (local.get $s))
+        (v128.store64_lane 0 (i32.add (local.get $n1) (i32.shl (local.get $nNear1) (i32.const 3))) (local.get $d))
+        (v128.store64_lane 1 (i32.add (local.get $n2) (i32.shl (local.get $nNear2) (i32.const 3))) (local.get $d))
+        (local.set $bits (i64x2.bitmask (f64x2.le (local.get $sq) (local.get $limit))))
+        (local.set $nNear1 (i32.add (local.get $nNear1) (i32.and (local.get $bits) (i32.const 1))))
+        (local.set $nNear2 (i32.add (local.get $nNear2) (i32.shr_u (local.get $bits) (i32.const 1))))
+        (local.set $sum (f64x2.add (local.get $sum) (local.get $s)))
+        (local.set $dev (f64x2.sub (local.get $s) (local.get $first)))
+        (local.set $devSum (f64x2.add (local.get $devSum) (local.get $dev)))
+        (local.set $devSumSq (f64x2.add (local.get $devSumSq) (f64x2.mul (local.get $dev) (local.get $dev))))
+        (local.set $dMin (v128.bitselect (local.get $d) (local.get $dMin) (f64x2.lt (local.get $d) (local.get $dMin))))
+        (local.set $dMax (v128.bitselect (local.get $d) (local.get $dMax) (f64x2.gt (local.get $d) (local.get $dMax))))
+        (local.set $dSum (f64x2.add (local.get $dSum) (local.get $d))))
+      (local.set $j (i32.add (local.get $j) (i32.const 1)))
+      (br $colsA)))
+    ;; Column i1: row i2's alone (j < i2: no pair).
+    (local.set $j (local.get $i1))
+        (local.set $at (i32.shl (local.get $j) (i32.const 3)))
+        (local.set $sc (f64.mul (f64.mul (f64.load (i32.add (local.get $g2) (local.get $at))) (f64x2.extract_lane 1 (local.get $si)))
+          (f64.load (i32.add (global.get $scale) (local.get $at)))))
+        (local.set $nj (f64.load (i32.add (global.get $norms) (local.get $at))))
+        (local.set $niL (f64x2.extract_lane 1 (local.get $ni)))
+        (local.set $sqL (f64.sub (f64.add (local.get $niL) (local.get $nj)) (f64.mul (f64.const 2) (local.get $sc))))
+        (local.set $dL
+          (select (f64.sqrt (local.get $sqL)) (f64.const 0)
+            (f64.gt (local.get $sqL) (f64.mul (f64.const 1e-12) (f64.add (local.get $niL) (local.get $nj))))))
+        (f64.store (i32.add (local.get $s2) (local.get $at)) (local.get $sc))
+        (f64.store (i32.add (local.get $n2) (i32.shl (local.get $nNear2) (i32.const 3))) (local.get $dL))
+        (local.set $nNear2 (i32.add (local.get $nNear2) (f64.le (local.get $sqL) (f64x2.extract_lane 1 (local.get $limit)))))
+        (local.set $x (f64x2.extract_lane 1 (local.get $sum)))
+        (local.set $sum (f64x2.replace_lane 1 (local.get $sum) (f64.add (local.get $x) (local.get $sc))))
+        (local.set $devL (f64.sub (local.get $sc) (f64x2.extract_lane 1 (local.get $first))))
+        (local.set $x (f64x2.extract_lane 1 (local.get $devSum)))
+        (local.set $devSum (f64x2.replace_lane 1 (local.get $devSum) (f64.add (local.get $x) (local.get $devL))))
+        (local.set $x (f64x2.extract_lane 1 (local.get $devSumSq)))
+        (local.set $devSumSq (f64x2.replace_lane 1 (local.get $devSumSq) (f64.add (local.get $x) (f64.mul (local.get $devL) (local.get $devL)))))
+        (if (f64.lt (local.get $dL) (f64x2.extract_lane 1 (local.get $dMin))) (then (local.set $dMin (f64x2.replace_lane 1 (local.get $dMin) (local.get $dL)))))
+        (if (f64.gt (local.get $dL) (f64x2.extract_lane 1 (local.get $dMax))) (then (local.set $dMax (f64x2.replace_lane 1 (local.get $dMax) (local.get $dL)))))
+        (local.set $x (f64x2.extract_lane 1 (local.get $dSum)))
+        (local.set $dSum (f64x2.replace_lane 1 (local.get $dSum) (f64.add (local.get $x) (local.get $dL))))
+    ;; Columns between i1 and i2 are invalid. Column i2: row i1's alone (j > i1: a pair).
+    (local.set $j (local.get $i2))
+        (local.set $at (i32.shl (local.get $j) (i32.const 3)))
+        (local.set $sc (f64.mul (f64.mul (f64.load (i32.add (local.get $g1) (local.get $at))) (f64x2.extract_lane 0 (local.get $si)))
+          (f64.load (i32.add (global.get $scale) (local.get $at)))))
+        (local.set $nj (f64.load (i32.add (global.get $norms) (local.get $at))))
+        (local.set $niL (f64x2.extract_lane 0 (local.get $ni)))
+        (local.set $sqL (f64.sub (f64.add (local.get $niL) (local.get $nj)) (f64.mul (f64.const 2) (local.get $sc))))
+        (local.set $dL
+          (select (f64.sqrt (local.get $sqL)) (f64.const 0)
+            (f64.gt (local.get $sqL) (f64.mul (f64.const 1e-12) (f64.add (local.get $niL) (local.get $nj))))))
+        (f64.store (i32.add (local.get $s1) (local.get $at)) (local.get $sc))
+        (f64.store (i32.add (local.get $n1) (i32.shl (local.get $nNear1) (i32.const 3))) (local.get $dL))
+        (local.set $nNear1 (i32.add (local.get $nNear1) (f64.le (local.get $sqL) (f64x2.extract_lane 0 (local.get $limit)))))
+        (local.set $x (f64x2.extract_lane 0 (local.get $sum)))
+        (local.set $sum (f64x2.replace_lane 0 (local.get $sum) (f64.add (local.get $x) (local.get $sc))))
+        (local.set $devL (f64.sub (local.get $sc) (f64x2.extract_lane 0 (local.get $first))))
+        (local.set $x (f64x2.extract_lane 0 (local.get $devSum)))
+        (local.set $devSum (f64x2.replace_lane 0 (local.get $devSum) (f64.add (local.get $x) (local.get $devL))))
+        (local.set $x (f64x2.extract_lane 0 (local.get $devSumSq)))
+        (local.set $devSumSq (f64x2.replace_lane 0 (local.get $devSumSq) (f64.add (local.get $x) (f64.mul (local.get $devL) (local.get $devL)))))
+        (if (f64.lt (local.get $dL) (f64x2.extract_lane 0 (local.get $dMin))) (then (local.set $dMin (f64x2.replace_lane 0 (local.get $dMin) (local.get $dL)))))
+        (if (f64.gt (local.get $dL) (f64x2.extract_lane 0 (local.get $dMax))) (then (local.set $dMax (f64x2.replace_lane 0 (local.get $dMax) (local.get $dL)))))
+        (local.set $x (f64x2.extract_lane 0 (local.get $dSum)))
+        (local.set $dSum (f64x2.replace_lane 0 (local.get $dSum) (f64.add (local.get $x) (local.get $dL))))
+        (local.set $bL (f64.floor (f64.mul (local.get $sc) (f64.const 40))))
+        (local.set $c (i32.trunc_sat_f64_s (local.get $bL)))
+        (local.set $c (select (i32.const 0) (local.get $c) (i32.lt_s (local.get $c) (i32.const 0))))
+        (local.set $c (select (i32.const 39) (local.get $c) (i32.gt_s (local.get $c) (i32.const 39))))
+        (if (f64.eq (local.get $bL) (local.get $bL)) (then
+          (local.set $c (i32.add (global.get $counts) (i32.shl (i32.add (i32.mul (i32.add (i32.and (local.get $j) (i32.const 3)) (i32.const 0)) (i32.const 40)) (local.get $c)) (i32.const 2))))
+          (i32.store (local.get $c) (i32.add (i32.load (local.get $c)) (i32.const 1)))))
+        (local.set $eL (f64.sub (local.get $dL) (global.get $shift)))
+        (local.set $eSum (f64.add (local.get $eSum) (local.get $eL)))
+        (local.set $eSumSq (f64.add (local.get $eSumSq) (f64.mul (local.get $eL) (local.get $eL))))
+    ;; Columns (i2, m): both rows, both pairs counted.
+    (local.set $j (i32.add (local.get $i2) (i32.const 1)))
+    (block $sweptC (loop $colsC
+      (br_if $sweptC (i32.ge_s (local.get $j) (local.get $m)))
+      (block $nextC
+        (br_if $nextC (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
+        (local.set $at (i32.shl (local.get $j) (i32.const 3)))
+        ;; s = gram[base + j] · si · rowScale[j], for i1 in lane 0 and i2 in lane 1
+        (local.set $s (f64x2.mul (f64x2.mul
+          (v128.load64_lane 1 (i32.add (local.get $g2) (local.get $at)) (v128.load64_splat (i32.add (local.get $g1) (local.get $at))))
+          (local.get $si))
+          (v128.load64_splat (i32.add (global.get $scale) (local.get $at)))))
+        ;; ni + nj; sq = ni + nj − 2·s; d = sq > SAME_POINT·(ni + nj) ? √sq : 0
+        (local.set $nn (f64x2.add (local.get $ni) (v128.load64_splat (i32.add (global.get $norms) (local.get $at)))))
+        (local.set $sq (f64x2.sub (local.get $nn) (f64x2.mul (v128.const f64x2 2 2) (local.get $s))))
+        (local.set $d (v128.bitselect (f64x2.sqrt (local.get $sq)) (v128.const i64x2 0 0)
+          (f64x2.gt (local.get $sq) (f64x2.mul (v128.const f64x2 1e-12 1e-12) (local.get $nn)))))
+        (v128.store64_lane 0 (i32.add (local.get $s1) (local.get $at)) (local.get $s))
+        (v128.store64_lane 1 (i32.add (local.get $s2) (local.get $at)) (local.get $s))
+        (v128.store64_lane 0 (i32.add (local.get $n1) (i32.shl (local.get $nNear1) (i32.const 3))) (local.get $d))
+        (v128.store64_lane 1 (i32.add (local.get $n2) (i32.shl (local.get $nNear2) (i32.const 3))) (local.get $d))
+        (local.set $bits (i64x2.bitmask (f64x2.le (local.get $sq) (local.get $limit))))
+        (local.set $nNear1 (i32.add (local.get $nNear1) (i32.and (local.get $bits) (i32.const 1))))
+        (local.set $nNear2 (i32.add (local.get $nNear2) (i32.shr_u (local.get $bits) (i32.const 1))))
+        (local.set $sum (f64x2.add (local.get $sum) (local.get $s)))
+        (local.set $dev (f64x2.sub (local.get $s) (local.get $first)))
+        (local.set $devSum (f64x2.add (local.get $devSum) (local.get $dev)))
+        (local.set $devSumSq (f64x2.add (local.get $devSumSq) (f64x2.mul (local.get $dev) (local.get $dev))))
+        (local.set $dMin (v128.bitselect (local.get $d) (local.get $dMin) (f64x2.lt (local.get $d) (local.get $dMin))))
+        (local.set $dMax (v128.bitselect (local.get $d) (local.get $dMax) (f64x2.gt (local.get $d) (local.get $dMax))))
+        (local.set $dSum (f64x2.add (local.get $dSum) (local.get $d)))
+          ;; binOf(s, 40) per lane (a NaN counts 0), into lane 0's sets 0–3 and lane 1's 4–7
+          (local.set $b (f64x2.floor (f64x2.mul (local.get $s) (v128.const f64x2 40 40))))
+          (local.set $bin (i32x4.min_s (i32x4.max_s (i32x4.trunc_sat_f64x2_s_zero (local.get $b)) (v128.const i32x4 0 0 0 0)) (v128.const i32x4 39 39 39 39)))
+          (local.set $bits (i64x2.bitmask (f64x2.eq (local.get $b) (local.get $b))))
+          (local.set $q (i32.mul (i32.and (local.get $j) (i32.const 3)) (i32.const 40)))
+          (local.set $c (i32.add (global.get $counts) (i32.shl (i32.add (local.get $q) (i32x4.extract_lane 0 (local.get $bin))) (i32.const 2))))
+          (i32.store (local.get $c) (i32.add (i32.load (local.get $c)) (i32.and (local.get $bits) (i32.const 1))))
+          (local.set $c (i32.add (global.get $counts) (i32.shl (i32.add (i32.add (local.get $q) (i32.const 160)) (i32x4.extract_lane 1 (local.get $bin))) (i32.const 2))))
+          (i32.store (local.get $c) (i32.add (i32.load (local.get $c)) (i32.shr_u (local.get $bits) (i32.const 1))))
+          ;; the pair sums' terms: i1's added now, i2's kept for after i1's
+          (local.set $e (f64x2.sub (local.get $d) (local.get $shift)))
+          (local.set $eL (f64x2.extract_lane 0 (local.get $e)))
+          (local.set $eSum (f64.add (local.get $eSum) (local.get $eL)))
+          (local.set $eSumSq (f64.add (local.get $eSumSq) (f64.mul (local.get $eL) (local.get $eL))))
+          (v128.store64_lane 1 (i32.add (global.get $eTail) (i32.shl (local.get $nTail) (i32.const 3))) (local.get $e))
+          (local.set $nTail (i32.add (local.get $nTail) (i32.const 1))))
+      (local.set $j (i32.add (local.get $j) (i32.const 1)))
+      (br $colsC)))
+    ;; The pair sums: i2's terms after i1's.
+    (block $added (loop $add
+      (br_if $added (i32.ge_s (local.get $t) (local.get $nTail)))
+      (local.set $eL (f64.load (i32.add (global.get $eTail) (i32.shl (local.get $t) (i32.const 3)))))
+      (local.set $eSum (f64.add (local.get $eSum) (local.get $eL)))
+      (local.set $eSumSq (f64.add (local.get $eSumSq) (f64.mul (local.get $eL) (local.get $eL))))
+      (local.set $t (i32.add (local.get $t) (i32.const 1)))
+      (br $add)))
+    (global.set $pairSum (local.get $eSum))
+    (global.set $pairSumSq (local.get $eSumSq))
+    (call $flushCounts)
+    ;; i1's rest, then i2's (whose scores and distances are in the second row's scratch; i1's
+    ;; twoRanks may use rankScratch, i1's scores, once i1's offers are done).
+    (call $finishRow (local.get $i1) (local.get $s1) (local.get $n1) (local.get $nNear1)
+      (f64x2.extract_lane 0 (local.get $sum)) (local.get $others) (f64x2.extract_lane 0 (local.get $devSum)) (f64x2.extract_lane 0 (local.get $devSumSq))
+      (f64x2.extract_lane 0 (local.get $dMin)) (f64x2.extract_lane 0 (local.get $dMax)) (f64x2.extract_lane 0 (local.get $dSum)))
+    (call $finishRow (local.get $i2) (local.get $s2) (local.get $n2) (local.get $nNear2)
+      (f64x2.extract_lane 1 (local.get $sum)) (local.get $others) (f64x2.extract_lane 1 (local.get $devSum)) (f64x2.extract_lane 1 (local.get $devSumSq))
+      (f64x2.extract_lane 1 (local.get $dMin)) (f64x2.extract_lane 1 (local.get $dMax)) (f64x2.extract_lane 1 (local.get $dSum))))
 
   ;; countInRanges(a, n, buckets): false (0), with nothing counted, when the values are all equal.
   (func $countInRanges (param $a i32) (param $n i32) (result i32)
