@@ -3,9 +3,10 @@
 // row and every block's sums, on random rows, on rows with ties at the k-th place, with invalid
 // (empty) rows, with rows too short for k neighbours or for the radius slack's 10k-th distance,
 // with rows whose distances are all equal, with rows whose radius bound falls short (the row's
-// distances gathered again), and with NaN, infinite, huge and −0 products where the .wat sweeps
-// two rows side by side (rowPair: invalid rows between the two, a pair at a block's start and
-// end, an odd row left alone). The TypeScript is held to each measure's own function in
+// distances gathered again), with NaN, infinite, huge and −0 products where the .wat sweeps two
+// rows side by side (rowPair: invalid rows between the two, a pair at a block's start and end, an
+// odd row left alone), and with scores tied within the k-NN list's tolerance (the .wat passes over
+// the scores below its listFloor once the list is full). The TypeScript is held to each measure's own function in
 // test/measures-measure-sample-rows.test.ts.
 import { strict as assert } from 'node:assert';
 import { validRowsFromGram } from '../extension/src/engine/measures/gram-distances';
@@ -124,6 +125,29 @@ describe('measures/sweep-rows-wasm', () => {
       const { js, wasm } = bothSweeps(gram, n, k, scale, blockRows);
       assert.ok(js.blockBins.some((c) => c > 0) && js.blockPairs.some((x) => Number.isNaN(x)) && js.zScores.some((z) => Number.isFinite(z)), 'NaN pair sums and counted pairs');
       assertSameBytes(js, wasm, `odd values, k ${k}, blocks of ${blockRows}`);
+    }
+  });
+
+  it('scores tied within the k-NN tolerance at and around the k-th place (the offers after the list fills): the same bytes', () => {
+    // A made-up symmetric matrix of unit diagonal: a few levels of score, each entry moved by 0,
+    // ±1e-13 or ±3e-12 of itself, so that offers meet scores within (or just outside) the
+    // tolerance of the list's entries in every order, and the kept-aside ties count.
+    const m = 180;
+    const random = mulberry32(17);
+    const gram = new Float64Array(m * m);
+    const levels = [0.9, 0.6, 0.3, -0.2];
+    const moves = [0, 1e-13, -1e-13, 3e-12, -3e-12, 2e-12];
+    for (let i = 0; i < m; i++) {
+      gram[i * m + i] = 1;
+      for (let j = i + 1; j < m; j++) {
+        const level = levels[Math.floor(random() * random() * levels.length)]!;
+        gram[i * m + j] = gram[j * m + i] = level * (1 + moves[Math.floor(random() * moves.length)]!);
+      }
+    }
+    for (const k of [3, 10, 25]) {
+      const { js, wasm } = bothSweeps(gram, m, k, new Float64Array(m).fill(1), 16);
+      assert.ok(js.tieGroup.some((g) => g > 1), 'ties at the k-th place');
+      assertSameBytes(js, wasm, `near ties, k ${k}`);
     }
   });
 

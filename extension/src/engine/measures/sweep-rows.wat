@@ -12,6 +12,9 @@
 ;; docs/performance.md, "the sample sweep's rows in WebAssembly"):
 ;; - the k-NN offers are a pass of their own over the row's scores, kept from the first pass (the
 ;;   same scores, offered in the same column order, so the same list, ties and kept-aside values);
+;;   once the list is full, scores below listFloor (under every `keep` the list can still have)
+;;   are passed over two at a time without an offer: the offer would refuse them, and a refused
+;;   score changes nothing;
 ;; - near[nNear++] = d is written without a branch (a store past the count is scratch);
 ;; - binOf is written out in the loop (a call there spills the loop's doubles), and the row's pair
 ;;   counts go to four interleaved integer tables added to the block's histogram at the row's end:
@@ -291,6 +294,7 @@
     (local $prev f64) (local $kth f64) (local $at i32)
     (local $r i32) (local $nearest f64) (local $mean f64) (local $meanDev f64) (local $sd f64)
     (local $group i32) (local $last f64) (local $tol f64) (local $g i32) (local $far i32) (local $rK f64)
+    (local $floor v128) (local $bits i32) (local $j1 i32)
     (local.set $m (global.get $m))
     (local.set $k (global.get $k))
     (local.set $ni (f64.load (i32.add (global.get $norms) (i32.shl (local.get $i) (i32.const 3)))))
@@ -331,7 +335,115 @@
               (local.set $keep (f64.sub (local.get $kth)
                 (f64.mul (f64.mul (f64.const 4) (f64.const 1e-12)) (f64.max (f64.const 1) (f64.abs (local.get $kth)))))))))))))
       (local.set $j (i32.add (local.get $j) (i32.const 1)))
-      (br $offers)))
+      ;; until the list is full; then the scan below
+      (br_if $offers (i32.lt_s (local.get $filled) (local.get $k)))))
+    ;; The list full, the rest of the scores two at a time against a floor below every `keep`
+    ;; the list can have from here on (listFloor): a score below it would be refused by the
+    ;; offer below, so it is passed over unread; the others are offered one by one, in column
+    ;; order, exactly as above.
+    (if (i32.eq (local.get $filled) (local.get $k)) (then
+      (local.set $floor (f64x2.splat (call $listFloor)))
+      (block $scanned (loop $scan
+        (br_if $scanned (i32.ge_s (i32.add (local.get $j) (i32.const 1)) (local.get $m)))
+        (local.set $bits (i64x2.bitmask (f64x2.ge (v128.load (i32.add (local.get $scores) (i32.shl (local.get $j) (i32.const 3)))) (local.get $floor))))
+        (if (local.get $bits) (then
+          (if (i32.and (local.get $bits) (i32.const 1)) (then
+      (block $skip0
+        (br_if $skip0 (i32.eq (local.get $j) (local.get $i)))
+        (br_if $skip0 (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
+        (local.set $s (f64.load (i32.add (local.get $scores) (i32.shl (local.get $j) (i32.const 3)))))
+        (if (f64.ge (local.get $s) (local.get $keep)) (then
+          (f64.store (i32.add (global.get $tie) (i32.shl (local.get $ties) (i32.const 3))) (local.get $s))
+          (local.set $ties (i32.add (local.get $ties) (i32.const 1)))
+          (if (i32.or (i32.lt_s (local.get $filled) (local.get $k)) (f64.gt (local.get $s) (local.get $bar))) (then
+            ;; nearestOfRow's rule: shift clearly worse entries down; equal scores stay ahead.
+            (if (i32.lt_s (local.get $filled) (local.get $k))
+              (then (local.set $slot (local.get $filled)) (local.set $filled (i32.add (local.get $filled) (i32.const 1))))
+              (else (local.set $slot (i32.sub (local.get $k) (i32.const 1)))))
+            (block $placed (loop $shift
+              (br_if $placed (i32.le_s (local.get $slot) (i32.const 0)))
+              (local.set $prev (f64.load (i32.add (global.get $best) (i32.shl (i32.sub (local.get $slot) (i32.const 1)) (i32.const 3)))))
+              (br_if $placed (i32.eqz (f64.gt (local.get $s)
+                (f64.add (local.get $prev) (f64.mul (f64.const 1e-12) (f64.max (f64.const 1) (f64.abs (local.get $prev))))))))
+              (f64.store (i32.add (global.get $best) (i32.shl (local.get $slot) (i32.const 3))) (local.get $prev))
+              (i32.store (i32.add (global.get $bpos) (i32.shl (local.get $slot) (i32.const 2)))
+                (i32.load (i32.add (global.get $bpos) (i32.shl (i32.sub (local.get $slot) (i32.const 1)) (i32.const 2)))))
+              (local.set $slot (i32.sub (local.get $slot) (i32.const 1)))
+              (br $shift)))
+            (f64.store (i32.add (global.get $best) (i32.shl (local.get $slot) (i32.const 3))) (local.get $s))
+            (i32.store (i32.add (global.get $bpos) (i32.shl (local.get $slot) (i32.const 2))) (local.get $j))
+            (if (i32.eq (local.get $filled) (local.get $k)) (then
+              (local.set $kth (f64.load (i32.add (global.get $best) (i32.shl (i32.sub (local.get $k) (i32.const 1)) (i32.const 3)))))
+              (local.set $bar (f64.add (local.get $kth) (f64.mul (f64.const 1e-12) (f64.max (f64.const 1) (f64.abs (local.get $kth))))))
+              (local.set $keep (f64.sub (local.get $kth)
+                (f64.mul (f64.mul (f64.const 4) (f64.const 1e-12)) (f64.max (f64.const 1) (f64.abs (local.get $kth)))))))))))))
+          ))
+          (if (i32.and (local.get $bits) (i32.const 2)) (then
+            (local.set $j1 (i32.add (local.get $j) (i32.const 1)))
+      (block $skip1
+        (br_if $skip1 (i32.eq (local.get $j1) (local.get $i)))
+        (br_if $skip1 (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $j1)))))
+        (local.set $s (f64.load (i32.add (local.get $scores) (i32.shl (local.get $j1) (i32.const 3)))))
+        (if (f64.ge (local.get $s) (local.get $keep)) (then
+          (f64.store (i32.add (global.get $tie) (i32.shl (local.get $ties) (i32.const 3))) (local.get $s))
+          (local.set $ties (i32.add (local.get $ties) (i32.const 1)))
+          (if (i32.or (i32.lt_s (local.get $filled) (local.get $k)) (f64.gt (local.get $s) (local.get $bar))) (then
+            ;; nearestOfRow's rule: shift clearly worse entries down; equal scores stay ahead.
+            (if (i32.lt_s (local.get $filled) (local.get $k))
+              (then (local.set $slot (local.get $filled)) (local.set $filled (i32.add (local.get $filled) (i32.const 1))))
+              (else (local.set $slot (i32.sub (local.get $k) (i32.const 1)))))
+            (block $placed (loop $shift
+              (br_if $placed (i32.le_s (local.get $slot) (i32.const 0)))
+              (local.set $prev (f64.load (i32.add (global.get $best) (i32.shl (i32.sub (local.get $slot) (i32.const 1)) (i32.const 3)))))
+              (br_if $placed (i32.eqz (f64.gt (local.get $s)
+                (f64.add (local.get $prev) (f64.mul (f64.const 1e-12) (f64.max (f64.const 1) (f64.abs (local.get $prev))))))))
+              (f64.store (i32.add (global.get $best) (i32.shl (local.get $slot) (i32.const 3))) (local.get $prev))
+              (i32.store (i32.add (global.get $bpos) (i32.shl (local.get $slot) (i32.const 2)))
+                (i32.load (i32.add (global.get $bpos) (i32.shl (i32.sub (local.get $slot) (i32.const 1)) (i32.const 2)))))
+              (local.set $slot (i32.sub (local.get $slot) (i32.const 1)))
+              (br $shift)))
+            (f64.store (i32.add (global.get $best) (i32.shl (local.get $slot) (i32.const 3))) (local.get $s))
+            (i32.store (i32.add (global.get $bpos) (i32.shl (local.get $slot) (i32.const 2))) (local.get $j1))
+            (if (i32.eq (local.get $filled) (local.get $k)) (then
+              (local.set $kth (f64.load (i32.add (global.get $best) (i32.shl (i32.sub (local.get $k) (i32.const 1)) (i32.const 3)))))
+              (local.set $bar (f64.add (local.get $kth) (f64.mul (f64.const 1e-12) (f64.max (f64.const 1) (f64.abs (local.get $kth))))))
+              (local.set $keep (f64.sub (local.get $kth)
+                (f64.mul (f64.mul (f64.const 4) (f64.const 1e-12)) (f64.max (f64.const 1) (f64.abs (local.get $kth)))))))))))))
+          ))
+          (local.set $floor (f64x2.splat (call $listFloor)))))
+        (local.set $j (i32.add (local.get $j) (i32.const 2)))
+        (br $scan)))
+      (if (i32.lt_s (local.get $j) (local.get $m)) (then
+      (block $skip2
+        (br_if $skip2 (i32.eq (local.get $j) (local.get $i)))
+        (br_if $skip2 (i32.eqz (i32.load8_u (i32.add (global.get $valid) (local.get $j)))))
+        (local.set $s (f64.load (i32.add (local.get $scores) (i32.shl (local.get $j) (i32.const 3)))))
+        (if (f64.ge (local.get $s) (local.get $keep)) (then
+          (f64.store (i32.add (global.get $tie) (i32.shl (local.get $ties) (i32.const 3))) (local.get $s))
+          (local.set $ties (i32.add (local.get $ties) (i32.const 1)))
+          (if (i32.or (i32.lt_s (local.get $filled) (local.get $k)) (f64.gt (local.get $s) (local.get $bar))) (then
+            ;; nearestOfRow's rule: shift clearly worse entries down; equal scores stay ahead.
+            (if (i32.lt_s (local.get $filled) (local.get $k))
+              (then (local.set $slot (local.get $filled)) (local.set $filled (i32.add (local.get $filled) (i32.const 1))))
+              (else (local.set $slot (i32.sub (local.get $k) (i32.const 1)))))
+            (block $placed (loop $shift
+              (br_if $placed (i32.le_s (local.get $slot) (i32.const 0)))
+              (local.set $prev (f64.load (i32.add (global.get $best) (i32.shl (i32.sub (local.get $slot) (i32.const 1)) (i32.const 3)))))
+              (br_if $placed (i32.eqz (f64.gt (local.get $s)
+                (f64.add (local.get $prev) (f64.mul (f64.const 1e-12) (f64.max (f64.const 1) (f64.abs (local.get $prev))))))))
+              (f64.store (i32.add (global.get $best) (i32.shl (local.get $slot) (i32.const 3))) (local.get $prev))
+              (i32.store (i32.add (global.get $bpos) (i32.shl (local.get $slot) (i32.const 2)))
+                (i32.load (i32.add (global.get $bpos) (i32.shl (i32.sub (local.get $slot) (i32.const 1)) (i32.const 2)))))
+              (local.set $slot (i32.sub (local.get $slot) (i32.const 1)))
+              (br $shift)))
+            (f64.store (i32.add (global.get $best) (i32.shl (local.get $slot) (i32.const 3))) (local.get $s))
+            (i32.store (i32.add (global.get $bpos) (i32.shl (local.get $slot) (i32.const 2))) (local.get $j))
+            (if (i32.eq (local.get $filled) (local.get $k)) (then
+              (local.set $kth (f64.load (i32.add (global.get $best) (i32.shl (i32.sub (local.get $k) (i32.const 1)) (i32.const 3)))))
+              (local.set $bar (f64.add (local.get $kth) (f64.mul (f64.const 1e-12) (f64.max (f64.const 1) (f64.abs (local.get $kth))))))
+              (local.set $keep (f64.sub (local.get $kth)
+                (f64.mul (f64.mul (f64.const 4) (f64.const 1e-12)) (f64.max (f64.const 1) (f64.abs (local.get $kth)))))))))))))
+      ))))
 
     (block $listed (loop $list
       (br_if $listed (i32.ge_s (local.get $r) (local.get $k)))
@@ -625,6 +737,25 @@
     (call $finishRow (local.get $i2) (local.get $s2) (local.get $n2) (local.get $nNear2)
       (f64x2.extract_lane 1 (local.get $sum)) (local.get $others) (f64x2.extract_lane 1 (local.get $devSum)) (f64x2.extract_lane 1 (local.get $devSumSq))
       (f64x2.extract_lane 1 (local.get $dMin)) (f64x2.extract_lane 1 (local.get $dMax)) (f64x2.extract_lane 1 (local.get $dSum))))
+
+  ;; A floor under every `keep` a full k-NN list can have from now on: the list's least score x
+  ;; only grows (an offer that enters a full list puts out its k-th score, below the new one), so
+  ;; every later k-th score is at least x, and every later keep at least keep(x) = x − 4e-12·max(1,
+  ;; |x|), which grows with x; the floor is keep(x) less 1e-9·max(1, |keep(x)|) more, so that no
+  ;; rounding can lift it over a keep. −∞ (no floor) where that is NaN (x = +∞).
+  (func $listFloor (result f64)
+    (local $r i32) (local $x f64) (local $least f64) (local $floor f64)
+    (local.set $least (f64.const inf))
+    (block $done (loop $each
+      (br_if $done (i32.ge_s (local.get $r) (global.get $k)))
+      (local.set $x (f64.load (i32.add (global.get $best) (i32.shl (local.get $r) (i32.const 3)))))
+      (if (f64.lt (local.get $x) (local.get $least)) (then (local.set $least (local.get $x))))
+      (local.set $r (i32.add (local.get $r) (i32.const 1)))
+      (br $each)))
+    (local.set $floor (f64.sub (local.get $least)
+      (f64.mul (f64.mul (f64.const 4) (f64.const 1e-12)) (f64.max (f64.const 1) (f64.abs (local.get $least))))))
+    (local.set $floor (f64.sub (local.get $floor) (f64.mul (f64.const 1e-9) (f64.max (f64.const 1) (f64.abs (local.get $floor))))))
+    (if (result f64) (f64.eq (local.get $floor) (local.get $floor)) (then (local.get $floor)) (else (f64.const -inf))))
 
   ;; countInRanges(a, n, buckets): false (0), with nothing counted, when the values are all equal.
   (func $countInRanges (param $a i32) (param $n i32) (result i32)
