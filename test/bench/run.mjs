@@ -17,6 +17,7 @@ import { cpus, loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { DATA_DIR, ensureCorpus, parseSize, sizeLabel } from './generate-corpus.mjs';
 import { measureActivation } from './activation-cost.mjs';
+import { clockProbe, clockProbeText } from './clock-probe.mjs';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..', '..');
@@ -176,14 +177,14 @@ function table(rows, align = 'lrr') {
   return rows.map((r) => r.map(cell).join('   ').trimEnd()).join('\n');
 }
 
-function printSize(label, corpus, lw, sk, whatIf, pattern) {
+function printSize(label, corpus, lw, sk, whatIf, pattern, clock) {
   const queries = sk?.queries ?? lw?.sample?.documents ?? DEFAULT_QUERIES;
   const k = sk?.k ?? lw?.sample?.k ?? DEFAULT_K;
   const lwOk = lw && !lw.error;
   const skOk = sk && !sk.error;
   const ratio = lwOk && skOk ? lw.wall / sk.fitTransformSeconds : null;
   const cpuRatio = lwOk && skOk && lw.cpuSeconds != null ? lw.cpuSeconds / sk.fitTransformCpuSeconds : null;
-  console.log(`\n== ${label} documents — ${corpus.file.replace(root + '/', '')} (${megabytes(corpus.bytes)}${corpus.cached ? ', cached' : `, generated in ${seconds(corpus.seconds)}`}) — load average now ${loadavg()[0].toFixed(1)} on ${cpus().length} cores ==`);
+  console.log(`\n== ${label} documents — ${corpus.file.replace(root + '/', '')} (${megabytes(corpus.bytes)}${corpus.cached ? ', cached' : `, generated in ${seconds(corpus.seconds)}`}) — load average now ${loadavg()[0].toFixed(1)} on ${cpus().length} cores; clock probe ${clock.review.toFixed(3)} ns a step before the review${clock.whatIf === null ? '' : `, ${clock.whatIf.toFixed(3)} before the what-if`} ==`);
   const rows = [
     ['', 'Loudword', 'scikit-learn'],
     ['full review, whole process (wall)', lwOk ? seconds(lw.wall) : dash, dash],
@@ -238,7 +239,7 @@ async function main() {
   const sizes = options.sizes.map(parseSize);
   mkdirSync(DATA_DIR, { recursive: true });
   const gnuTime = existsSync(GNU_TIME);
-  console.log(`Loudword bench — seed ${options.seed}, sizes ${sizes.map(sizeLabel).join(', ')}; node ${process.version}; peak RSS and CPU of the CLI by ${gnuTime ? 'GNU time' : 'a resourceUsage() preload'}; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores (wall figures stretch when it exceeds the cores; CPU figures less so).`);
+  console.log(`Loudword bench — seed ${options.seed}, sizes ${sizes.map(sizeLabel).join(', ')}; node ${process.version}; peak RSS and CPU of the CLI by ${gnuTime ? 'GNU time' : 'a resourceUsage() preload'}; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores (wall figures stretch when it exceeds the cores; CPU figures less so); ${clockProbeText()}, the core's speed, which can move between runs minutes apart.`);
   const python = spawnSync(PYTHON, ['-c', 'import sklearn; print(sklearn.__version__)'], { encoding: 'utf8' });
   if (python.status !== 0) console.log(`scikit-learn not importable with ${PYTHON}: the sklearn columns will be empty.`);
 
@@ -246,9 +247,13 @@ async function main() {
   for (const documents of sizes) {
     const label = sizeLabel(documents);
     const corpus = ensureCorpus(documents, options.seed, { log: (m) => console.log(m) });
+    // The core's speed before the review and before the what-if: a slow run with a slow probe
+    // says more about the host than about the code (clock-probe.mjs).
+    const clock = { review: clockProbe(), whatIf: null };
     const lw = options.loudword ? await runLoudword(options.cli, corpus.file, label) : null;
     const sample = lw && !lw.error && lw.sample ? lw.sample : { documents: DEFAULT_QUERIES, k: DEFAULT_K, seed: DEFAULT_SAMPLE_SEED };
     const sk = options.sklearn && python.status === 0 ? await runSklearn(corpus.file, sample.documents, sample.k, sample.seed, documents <= options.knnMax) : null;
+    if (options.loudword && documents === 100_000) clock.whatIf = clockProbe();
     const whatIf = options.loudword && documents === 100_000 ? await runWhatIf(corpus.file, options.toggles) : null;
     let pattern = null;
     if (options.loudword && documents === 100_000) {
@@ -257,7 +262,7 @@ async function main() {
       pattern = await runLoudword(options.cli, corpus.file, `${label}-pattern`, config);
     }
     results.set(documents, { lw, sk, whatIf, pattern });
-    printSize(label, corpus, lw, sk, whatIf, pattern);
+    printSize(label, corpus, lw, sk, whatIf, pattern, clock);
   }
 
   // Growth: time ∝ nonzeros^e between 100k and 1M; e ≈ 1 means linear in the matrix size.
