@@ -28,7 +28,7 @@ export class LexemeFilter {
   /** False when no lexeme of the instance has the FNV-1a hash `hash` (then the string is none). */
   mayHave(hash: number): boolean {
     if (this.seen !== this.list.length) this.catchUp();
-    const mask = (1 << (hash & 31)) | (1 << ((hash >>> 5) & 31));
+    const mask = bitsOf(hash);
     return (this.words[hash >>> 16]! & mask) === mask;
   }
 
@@ -39,8 +39,13 @@ export class LexemeFilter {
       // A key of the hash is the entry as a property name.
       const key = typeof entry === 'string' ? entry : String(entry);
       const hash = hashOf(key, 0, key.length);
-      words[hash >>> 16] |= (1 << (hash & 31)) | (1 << ((hash >>> 5) & 31));
+      words[hash >>> 16] |= bitsOf(hash);
     }
     this.seen = list.length;
   }
+}
+
+/** The two bits a hash sets in the word its high half picks (from its low ten bits). */
+function bitsOf(hash: number): number {
+  return (1 << (hash & 31)) | (1 << ((hash >>> 5) & 31));
 }
