@@ -98,6 +98,26 @@ export interface Verdict {
   } | null;
   /** Measures that moved the other way, each explained in a sentence. */
   caveats: Array<{ measure: string; sentence: string }>;
+  /**
+   * With labels and suggest.useLabels, when the rule suggested grammar words below half the
+   * documents: what half of the sample said about keeping them. The estimate is then measured on
+   * the other half only.
+   */
+  labelChoice?: LabelChoiceFigures;
+}
+
+/** The labels' choice about the grammar words (Verdict.labelChoice). */
+export interface LabelChoiceFigures {
+  /** The grammar words asked about. */
+  words: number;
+  /** True: they are kept (not suggested), because keeping them clearly raised label precision. */
+  kept: boolean;
+  /** Label precision@k keeping them less suggesting them, on the deciding half, with its 95% interval. */
+  change: number;
+  low: number;
+  high: number;
+  /** Sampled documents that decided (with a label and neighbours). */
+  decidedBy: number;
 }
 
 export interface Report {
@@ -172,7 +192,7 @@ export interface EffectiveSettings {
   weighting: { tf: 'raw' | 'sublinear' | 'binary'; idf: 'smooth' | 'plain' | 'plainPlusOne' | 'none'; norm: 'l2' | 'l1' | 'none' };
   prune: { minDf: number; maxDf: number };
   sample: { documents: number; k: number; seed: number };
-  suggest: { max: number; protect: string[]; functionWordPrior: boolean };
+  suggest: { max: number; protect: string[]; functionWordPrior: boolean; useLabels: boolean };
   limits: { maxBytes: number };
 }
 

@@ -1,13 +1,16 @@
 """Probe for a labelled review (docs/methods.md section 9, "With labels, a held-out choice"):
-choose among three candidate lists by leave-one-out precision@10 of a random half of the
-documents (the queries; neighbours from the whole corpus), and judge the choice on the other
-half, 20 random splits. Candidates: Loudword's list (made without labels), the same without rule
-2's grammar words, and the same with scikit-learn's English list added. Prints per corpus the
-full-corpus precision of every list, how often each candidate was chosen, and the mean on the
-judging halves of (chosen - ours) and (chosen - the better of the English list and max_df 0.5).
+choose between Loudword's list (made without labels) and the same list without rule 2's grammar
+words by the leave-one-out precision@10 of a random half of the documents (the queries;
+neighbours from the whole corpus), and judge the choice on the other half, 20 random splits.
+`--guard` (the product's rule, suggest.useLabels, engine/terms/label-choice.ts): the grammar words
+are kept only when keeping them raises the deciding half's precision with a 95% paired-bootstrap
+interval above zero. `--english`: a third candidate, the list with scikit-learn's English list
+added (the first probe's). Prints per corpus the full-corpus precision of every list, how often
+each candidate was chosen, and the mean on the judging halves of (chosen - ours) and
+(chosen - the better of the English list and max_df 0.5).
 
   npx tsx test/quality/dump-suggestions.ts DIR [corpus ...]
-  /usr/bin/python3 test/quality/held_out_choice.py DIR corpus ...
+  /usr/bin/python3 test/quality/held_out_choice.py [--guard] [--english] DIR corpus ...
 
 Source of the measure: scikit-learn (Debian python3-sklearn) TfidfVectorizer, NearestNeighbors.
 """
@@ -27,8 +30,17 @@ def per_query(texts, labels, k, setting):
         out[i] = np.mean(labels[others] == labels[i])
     return out
 
-d = sys.argv[1]
-for name in sys.argv[2:]:
+def bootstrap_low(before, after, rng, draws=400):
+    """Lower end of the 95% paired percentile bootstrap interval of mean(after - before)."""
+    diff = after - before
+    means = np.array([diff[rng.integers(0, len(diff), len(diff))].mean() for _ in range(draws)])
+    return np.percentile(means, 2.5)
+
+args = [a for a in sys.argv[1:] if not a.startswith("--")]
+guard = "--guard" in sys.argv
+english = "--english" in sys.argv
+d = args[0]
+for name in args[1:]:
     docs = [json.loads(l) for l in open(f"{d}/{name}.jsonl")]
     meta = json.load(open(f"{d}/{name}.json"))
     texts = [x["text"] for x in docs]; labels = np.asarray([x["label"] for x in docs])
@@ -36,15 +48,19 @@ for name in sys.argv[2:]:
     cands = {
         "ours": ours or None,
         "ours-grammar": [w for w in ours if w not in grammar] or None,
-        "ours+english": sorted(set(ours) | set(ENGLISH_STOP_WORDS)),
     }
+    if english:
+        cands["ours+english"] = sorted(set(ours) | set(ENGLISH_STOP_WORDS))
     generic = {"none": None, "english": "english", "maxdf": {"max_df": 0.5}}
     pq = {n: per_query(texts, labels, 10, s) for n, s in {**cands, **generic}.items()}
     rng = np.random.default_rng(1)
+    brng = np.random.default_rng(2)
     gains, vsbest, picks = [], [], []
     for seed in range(20):
         perm = rng.permutation(len(texts)); h1, h2 = perm[: len(texts)//2], perm[len(texts)//2:]
         pick = max(cands, key=lambda n: pq[n][h1].mean())
+        if guard and pick != "ours" and bootstrap_low(pq["ours"][h1], pq[pick][h1], brng) <= 0:
+            pick = "ours"
         picks.append(pick)
         gains.append(pq[pick][h2].mean() - pq["ours"][h2].mean())
         vsbest.append(pq[pick][h2].mean() - max(pq["english"][h2].mean(), pq["maxdf"][h2].mean()))

@@ -19,6 +19,8 @@ export interface CliOptions {
   sample: number | null;
   k: number | null;
   seed: number | null;
+  /** Let the labels decide about the grammar words (suggest.useLabels). */
+  useLabels: boolean;
   failOnSuggestions: boolean;
   dryRun: boolean;
   quiet: boolean;
@@ -74,6 +76,7 @@ export const OPTIONS: readonly OptionSpec[] = [
   { flag: 'sample', setting: 'sample.documents', field: 'sample', value: 'N', check: { kind: 'count', setting: ['sample', 'documents'] }, help: 'documents in the seeded sample for the neighbour measures' },
   { flag: 'k', setting: 'sample.k', field: 'k', value: 'N', check: { kind: 'count', setting: ['sample', 'k'] }, help: 'neighbours per document' },
   { flag: 'seed', setting: 'sample.seed', field: 'seed', value: 'N', check: { kind: 'count', setting: ['sample', 'seed'] }, help: 'sample seed' },
+  { flag: 'use-labels', setting: 'suggest.useLabels', field: 'useLabels', help: 'with --label: let the labels decide whether the grammar words below half the documents are suggested; half the sample decides, the verdict is measured on the other half' },
   { flag: 'dask', field: 'dask', value: 'ADDR', check: { kind: 'name' }, help: 'run the review as shard steps on a Dask cluster (tcp://host:8786), or "local" for a LocalCluster here; the corpus is a glob or a folder of shards' },
   { flag: 'workdir', field: 'workdir', value: 'DIR', check: { kind: 'name' }, help: 'with --dask: the folder for the partial files, readable and writable by every worker (default: a new temporary folder)' },
   { flag: 'fail-on-suggestions', field: 'failOnSuggestions', help: 'exit with status 3 when terms are suggested (for CI)' },
@@ -107,6 +110,7 @@ const DEFAULTS: CliOptions = {
   sample: null,
   k: null,
   seed: null,
+  useLabels: false,
   failOnSuggestions: false,
   dryRun: false,
   quiet: false,

@@ -16,6 +16,7 @@ export function reviewInputOf(o: CliOptions): ReviewInput {
   if (o.sample !== null) overrides.sample!.documents = o.sample;
   if (o.k !== null) overrides.sample!.k = o.k;
   if (o.seed !== null) overrides.sample!.seed = o.seed;
+  if (o.useLabels) overrides.suggest = { useLabels: true };
   // One rule with the editor: the nearest loudword.json from the corpus's folder up (engine/config/find-config.ts).
   const configPath = o.noConfig ? null : o.config ?? findConfig(file);
   const configHow = o.noConfig ? 'ignored' : o.config !== null ? 'given' : configPath !== null ? 'nearest' : 'none';

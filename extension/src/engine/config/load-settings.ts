@@ -132,11 +132,14 @@ function layerValues(overrides: SettingsOverrides, baseDir: string): PartialSett
   const layer: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(overrides)) if (value !== undefined) layer[key] = value;
   if (typeof layer.stopList === 'string' && layer.stopList !== '') layer.stopList = path.resolve(baseDir, layer.stopList);
-  if (overrides.sample !== undefined) {
-    const sample: Record<string, unknown> = {};
-    for (const [k, v] of Object.entries(overrides.sample)) if (v !== undefined) sample[k] = v;
-    if (Object.keys(sample).length > 0) layer.sample = sample;
-    else delete layer.sample;
+  // A section with nothing set adds nothing (and names no source).
+  for (const section of ['sample', 'suggest'] as const) {
+    const given = overrides[section];
+    if (given === undefined) continue;
+    const values: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(given)) if (v !== undefined) values[k] = v;
+    if (Object.keys(values).length > 0) layer[section] = values;
+    else delete layer[section];
   }
   return layer as PartialSettings;
 }

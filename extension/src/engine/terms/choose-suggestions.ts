@@ -8,7 +8,9 @@ export type Decision =
   | { suggested: true; reason: 'everywhere' | 'grammar' | 'markup'; signal: TermSignal; cls: PriorClass | null }
   | { suggested: false; reason: 'bursty' | 'opinion' | 'protected' | 'format'; signal: TermSignal; cls: PriorClass | null }
   | { suggested: false; reason: 'formula'; signal: TermSignal; cls: PriorClass | null; opensShare: number }
-  | { suggested: false; reason: 'light'; group: SuggestionGroup; signal: TermSignal; cls: PriorClass | null; groupShare: number };
+  | { suggested: false; reason: 'light'; group: SuggestionGroup; signal: TermSignal; cls: PriorClass | null; groupShare: number }
+  /** Kept by the labels (label-choice.ts, suggest.useLabels): `change` in label precision on `decidedBy` sampled documents. */
+  | { suggested: false; reason: 'labels'; signal: TermSignal; cls: PriorClass | null; change: number; decidedBy: number };
 
 /**
  * The two groups suggested only when they are loud together (GROUP_SHARE): 'grammar', the prior's

@@ -1,4 +1,4 @@
-import { withMinus } from '../../number-format';
+import { formatCount, formatSignedChange, withMinus } from '../../number-format';
 import type { TermRow } from '../../protocol';
 import { GROUP_SHARE, type Decision } from './choose-suggestions';
 import type { PriorClass } from './prior-columns';
@@ -61,6 +61,8 @@ export function explainTerm(row: TermRow, documents: number, decision: Decision 
           : `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the grammar words below half the documents together carry only ${pct(d.groupShare)} of the all-pair similarity left once the other suggestions are removed (under ${pct(GROUP_SHARE)}): too little to distort distances, and in such corpora they can mark the kind of document`;
       case 'formula':
         return `${kind ?? 'grammar word'} ${inDocs}, but ${pct(d.opensShare)} of its occurrences open a document: it heads this corpus's formula ("someone who …", "of or pertaining to …"), which names the kind of document, so it is kept`;
+      case 'labels':
+        return `${kind ?? 'grammar word'} ${inDocs}, spread evenly, but the labels kept the grammar words below half the documents ("suggest.useLabels"): keeping them raised label precision by ${formatSignedChange(d.change, 3)} on ${formatCount(d.decidedBy)} sampled documents, so here they carry what the labels are about`;
       case 'protected':
         return `protected by "suggest.protect"`;
       case 'format':

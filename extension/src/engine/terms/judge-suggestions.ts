@@ -6,6 +6,7 @@ import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
 import type { Decision, SuggestionGroup } from './choose-suggestions';
 import type { CorpusPrecision } from './corpus-precision';
+import type { LabelChoice } from './label-choice';
 
 /** Bootstrap draws behind the verdict's interval. */
 export const VERDICT_DRAWS = 400;
@@ -27,6 +28,8 @@ export interface JudgeInput {
   documents?: number;
   /** The prior's words the rule kept as the heads of the corpus's formula, and how many documents they open. */
   formula?: FormulaHeads | null;
+  /** With labels and suggest.useLabels: the labels' choice about the grammar words (label-choice.ts); the verdict then counts only the documents that did not decide. */
+  labelChoice?: LabelChoice | null;
 }
 
 /** The formula heads kept (choose-suggestions.ts, FORMULA_OPENS), most documents opened first. */
@@ -108,10 +111,14 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const suggested = input.suggested.measures;
   const caveats = caveatsOf(baseline, suggested);
   const light = lightSentences(input.light);
+  const choice = input.labelChoice ?? null;
+  const labelChoice = choice === null ? {} : { labelChoice: figuresOf(choice) };
   if (suggestions.length === 0) {
     return {
       outcome: 'nothing suggested',
-      headline: input.agreedStopped > 0
+      headline: choice?.kept === true
+        ? `No stop list suggested. ${choiceSentence(choice, lab.k)}`
+        : input.agreedStopped > 0
         ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`
         : opinion.opinionText
         ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
@@ -120,6 +127,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
         : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
       estimate: null,
       caveats: [],
+      ...labelChoice,
     };
   }
   const labels = lab.sampleLabels;
@@ -127,8 +135,9 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const after = perQueryQuality(input.suggested, lab.k, labels);
   // With labels, precision with neighbours from the corpus where it was measured, else from the sample.
   const corpus = input.corpus ?? null;
-  const precisionBefore = corpus?.before ?? before.precision;
-  const precisionAfter = corpus?.after ?? after.precision;
+  // With a label choice, only the documents that did not decide count: the figure is held out.
+  const precisionBefore = heldOut(corpus?.before ?? before.precision, choice);
+  const precisionAfter = heldOut(corpus?.after ?? after.precision, choice);
   const useLabels = precisionBefore !== null && precisionAfter !== null;
   const boot = useLabels
     ? pairedBootstrap(precisionBefore, precisionAfter, 'mean', VERDICT_DRAWS, lab.seed)
@@ -139,7 +148,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   const list = one ? 'This one term' : `These ${formatCount(suggestions.length)} terms`;
   const agree = (singular: string, plural: string): string => (one ? singular : plural);
   if (boot === null) {
-    return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats };
+    return { outcome: 'no clear change', headline: `${list} could not be judged: too few sampled documents have neighbours.`, estimate: null, caveats, ...labelChoice };
   }
   const measure = useLabels ? `label precision@${lab.k}` : 'neighbour standout';
   const searched = useLabels && corpus !== null ? { neighborsAmong: corpus.among, neighborsFor: corpus.queries } : {};
@@ -160,7 +169,10 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
       : `${f3(baseline.labelPrecisionAtK ?? Number.NaN)} → ${f3(suggested.labelPrecisionAtK ?? Number.NaN)}`;
     const verb = outcome === 'helps' ? agree('raises', 'raise') : outcome === 'hurts' ? agree('lowers', 'lower') : agree('does', 'do') + ' not clearly change';
     const where = whereSought(corpus, input.documents ?? sampled, sampled);
-    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, digits)}; ${interval}${where}). The list was chosen without the labels, so every sampled document is held out.`;
+    const heldOutSentence = choice === null
+      ? 'The list was chosen without the labels, so every sampled document is held out.'
+      : `${choiceSentence(choice, lab.k)} The figure above counts only the other sampled documents, which had no part in that choice.`;
+    headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, digits)}; ${interval}${where}). ${heldOutSentence}`;
     if (outcome === 'no clear change') {
       headline += fewer
         ? ' A difference this small needs more documents searched for than a search of this corpus can take here.'
@@ -181,7 +193,31 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
     const sampleSentence = sampleDisagrees(baseline.labelPrecisionAtK, suggested.labelPrecisionAtK, boot.change);
     if (sampleSentence !== null) caveats.push({ measure: 'label precision', sentence: sampleSentence });
   }
-  return { outcome, headline, estimate, caveats };
+  return { outcome, headline, estimate, caveats, ...labelChoice };
+}
+
+/** Per-query values with the deciding documents' set to NaN (left out), or as they are without a choice. */
+function heldOut(values: Float64Array | null, choice: LabelChoice | null): Float64Array | null {
+  if (values === null || choice === null) return values;
+  return values.map((v, q) => (choice.deciding[q] === 1 ? Number.NaN : v));
+}
+
+/** The Report's figures of a label choice (without its columns and masks). */
+function figuresOf(choice: LabelChoice): NonNullable<Verdict['labelChoice']> {
+  const { words, kept, change, low, high, decidedBy } = choice;
+  return { words, kept, change, low, high, decidedBy };
+}
+
+/** What the labels said about the grammar words, one sentence. */
+function choiceSentence(choice: LabelChoice, k: number): string {
+  const words = `${formatCount(choice.words)} grammar word${choice.words === 1 ? '' : 's'} below half the documents`;
+  const measure = `label precision@${k}`;
+  if (!Number.isFinite(choice.change)) return `The labels could not decide about the ${words} (too few deciding documents have a label and neighbours), so the rule's choice stands.`;
+  const digits = estimateDigits(measure, choice.low, choice.high);
+  const figures = `on ${formatCount(choice.decidedBy)} sampled documents keeping them changed ${measure} by ${signed(choice.change, digits)} (95% interval ${signed(choice.low, digits)} to ${signed(choice.high, digits)})`;
+  return choice.kept
+    ? `The labels kept the ${words} that the rule would suggest: ${figures}, so here they carry what the labels are about.`
+    : `The labels were asked whether the ${words} should stay: ${figures}, no clear gain, so they are suggested.`;
 }
 
 /**

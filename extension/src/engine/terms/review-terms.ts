@@ -9,6 +9,7 @@ import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
 import { corpusPrecision, type CorpusSearcher } from './corpus-precision';
 import { formulaHeads, judgeSuggestions, type LightGroups } from './judge-suggestions';
+import { chooseWithLabels, decisionsAfterChoice } from './label-choice';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
@@ -106,7 +107,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   // the matrix is not read again.
   const full = baseMask.includes(1) ? lab.fullSums() : null;
   const fullPairMass = full === null ? basePairMass : pairMass(full.sums, full.rowsWithWeight).perTerm;
-  const decisions = chooseSuggestions({
+  const ruleDecisions = chooseSuggestions({
     ...choiceInput(input, cols, prior, protect, opinionText),
     jointShares: (asks) => {
       // The passes startTermReview began (the same asks: the same decisions from the same
@@ -128,11 +129,17 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   for (const { pending } of begun.shares) pending.drop();
 
   // Heaviest first, so that `suggest.max` keeps the terms that pull the most.
-  const accepted = [...decisions].filter(([c, d]) => d.suggested && baseMask[c] === 0).map(([c]) => c);
-  accepted.sort((a, b) => basePairMass[b]! - basePairMass[a]! || a - b);
-  accepted.length = Math.min(accepted.length, settings.suggest.max);
-  const suggestedMask = DistanceLab.union(baseMask, accepted);
-  const suggested = lab.measure(suggestedMask, baseline.neighbors);
+  const ruleAccepted = [...ruleDecisions].filter(([c, d]) => d.suggested && baseMask[c] === 0).map(([c]) => c);
+  ruleAccepted.sort((a, b) => basePairMass[b]! - basePairMass[a]! || a - b);
+  ruleAccepted.length = Math.min(ruleAccepted.length, settings.suggest.max);
+  const ruleMask = DistanceLab.union(baseMask, ruleAccepted);
+  const ruleMeasured = lab.measure(ruleMask, baseline.neighbors);
+  // With labels and suggest.useLabels, half the sample decides whether the grammar words stay.
+  const choice = settings.suggest.useLabels ? chooseWithLabels({ lab, baseMask, accepted: ruleAccepted, decisions: ruleDecisions, suggested: ruleMeasured, baseline }) : null;
+  const decisions = choice === null ? ruleDecisions : decisionsAfterChoice(ruleDecisions, choice);
+  const accepted = choice?.accepted ?? ruleAccepted;
+  const suggestedMask = choice?.mask ?? ruleMask;
+  const suggested = choice?.measured ?? ruleMeasured;
 
   // Scores for the table: kept terms on the baseline weights; stopped terms as if un-stopped.
   const baseSums = (baseSpreadSums !== null ? baseSpreadSums.take() : lab.sums(baseMask, true)).sums;
@@ -180,7 +187,10 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const corpus = input.corpusSearch != null && accepted.length > 0
     ? corpusPrecision({ searcher: input.corpusSearch, sampleRows: lab.sampleRows, documents, df: counts.df, before: baseMask, after: suggestedMask, seed: lab.seed })
     : null;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula });
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice });
+  if (settings.suggest.useLabels && lab.sampleLabels === null) {
+    verdict.headline += ' "suggest.useLabels" is on, but there is no label field (--label, or "label" in loudword.json), so the labels decided nothing.';
+  }
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
