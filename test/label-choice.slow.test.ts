@@ -29,7 +29,9 @@ describe('suggest.useLabels: the labels decide about the grammar words (real cor
       const choice = report.verdict?.labelChoice;
       assert.ok(choice !== undefined, 'the rule suggested grammar words, so the labels were asked');
       assert.equal(choice.kept, kept, `keeping them changed precision by ${choice.change} [${choice.low}, ${choice.high}]`);
-      assert.match(report.verdict!.headline, /had no part in that choice/);
+      // With something left to judge, the verdict says it counted only the documents that did not decide.
+      if (report.suggestions.length > 0) assert.match(report.verdict!.headline, /had no part in that choice/);
+      else assert.equal(report.verdict!.outcome, 'nothing suggested');
       if (!kept) {
         assert.deepEqual(report.suggestions, rule.suggestions);
         return;
