@@ -19,7 +19,7 @@ describe('the verdict\'s caution for text written to a formula', () => {
     assert.equal(FORMULA_CAUTION_SHARE, 0.05);
     const s = formulaSentence({ heads, documentsOpened: 50 }, 1000);
     assert.match(s, /^These texts follow a formula: 5% of the documents open with one of 3 grammar words \("someone", "any", "an"\), which mostly open the documents they occur in and were kept\./);
-    assert.match(s, /measure with --label before applying the list\.$/);
+    assert.match(s, /measure with --label before applying the list, and with --use-labels let the labels decide whether those words stay\.$/);
     assert.equal(formulaSentence({ heads: [], documentsOpened: 0 }, 1000), '');
     assert.equal(formulaSentence(null, 1000), '');
   });

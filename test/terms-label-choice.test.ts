@@ -76,3 +76,24 @@ describe('the labels decide about the grammar words on half the sample', () => {
     assert.match(v.headline, /^No stop list suggested\. The labels kept the 3 grammar words below half the documents that the rule would suggest: on 60 sampled documents keeping them changed label precision@5 by \+0\.0\d+/);
   });
 });
+
+describe('a labelled verdict that is not "helps" points to --use-labels when grammar words are suggested', () => {
+  const { lab, baseline, opening } = twoLabs(3);
+  const suggested = lab.measure(opening, baseline.neighbors);
+  const m = lab.sampleRows.rows;
+  // Made-up per-document precisions that fall with the list: 0.6 before, 0.4 after.
+  const corpus: CorpusPrecision = { before: new Float64Array(m).fill(0.6), after: new Float64Array(m).fill(0.4), among: 6000, documents: 6000, queries: m };
+  const judge = (suggestions: string[], askable: number) =>
+    judgeSuggestions({ lab, suggestions, baseline, suggested, opinion: { share: 0, opinionText: false }, agreedStopped: 0, light: {}, corpus, documents: 6000, askable });
+
+  it('names how many of the terms are grammar words, with the flag and the setting', () => {
+    const v = judge(['t0', 't3'], 1);
+    assert.equal(v.outcome, 'hurts');
+    assert.match(v.headline, /1 of them is a grammar word below half the documents, which can carry kinds of document rather than blur topics: --use-labels \("suggest\.useLabels": true\) lets half the sample decide whether it stays\./);
+    assert.match(judge(['t0'], 1).headline, / It is a grammar word below half/);
+  });
+
+  it('says nothing when no suggested term is a grammar word below half', () => {
+    assert.doesNotMatch(judge(['t0', 't3'], 0).headline, /--use-labels/);
+  });
+});

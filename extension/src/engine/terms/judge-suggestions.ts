@@ -30,6 +30,8 @@ export interface JudgeInput {
   formula?: FormulaHeads | null;
   /** With labels and suggest.useLabels: the labels' choice about the grammar words (label-choice.ts); the verdict then counts only the documents that did not decide. */
   labelChoice?: LabelChoice | null;
+  /** Suggested grammar words below half the documents (rule 2) that the labels could be asked about with suggest.useLabels; 0 when it is on or none is suggested. */
+  askable?: number;
 }
 
 /** The formula heads kept (choose-suggestions.ts, FORMULA_OPENS), most documents opened first. */
@@ -94,7 +96,7 @@ export function formulaSentence(formula: FormulaHeads | null | undefined, docume
   const heads = n === 1
     ? `the grammar word ${quoted[0]}, which mostly opens the documents it occurs in and was kept`
     : `one of ${formatCount(n)} grammar words (${quoted.join(', ')}${n > quoted.length ? ', …' : ''}), which mostly open the documents they occur in and were kept`;
-  return `These texts follow a formula: ${pct(share)} of the documents open with ${heads}. If your groups are kinds of document (a person against an act) rather than topics, the formula's other grammar words may carry them, which standout cannot see: measure with --label before applying the list.`;
+  return `These texts follow a formula: ${pct(share)} of the documents open with ${heads}. If your groups are kinds of document (a person against an act) rather than topics, the formula's other grammar words may carry them, which standout cannot see: measure with --label before applying the list, and with --use-labels let the labels decide whether those words stay.`;
 }
 
 /**
@@ -173,6 +175,11 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
       ? 'The list was chosen without the labels, so every sampled document is held out.'
       : `${choiceSentence(choice, lab.k)} The figure above counts only the other sampled documents, which had no part in that choice.`;
     headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, digits)}; ${interval}${where}). ${heldOutSentence}`;
+    if (outcome !== 'helps' && choice === null && (input.askable ?? 0) > 0) {
+      const n = input.askable!;
+      const which = one ? 'It is a grammar word' : `${formatCount(n)} of them ${n === 1 ? 'is a grammar word' : 'are grammar words'}`;
+      headline += ` ${which} below half the documents, which can carry kinds of document rather than blur topics: --use-labels ("suggest.useLabels": true) lets half the sample decide whether ${n === 1 ? 'it stays' : 'they stay'}.`;
+    }
     if (outcome === 'no clear change') {
       headline += fewer
         ? ' A difference this small needs more documents searched for than a search of this corpus can take here.'

@@ -187,7 +187,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const corpus = input.corpusSearch != null && accepted.length > 0
     ? corpusPrecision({ searcher: input.corpusSearch, sampleRows: lab.sampleRows, documents, df: counts.df, before: baseMask, after: suggestedMask, seed: lab.seed })
     : null;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice });
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, askable: settings.suggest.useLabels ? 0 : accepted.filter((c) => decisions.get(c)?.reason === 'grammar').length });
   if (settings.suggest.useLabels && lab.sampleLabels === null) {
     verdict.headline += ' "suggest.useLabels" is on, but there is no label field (--label, or "label" in loudword.json), so the labels decided nothing.';
   }
