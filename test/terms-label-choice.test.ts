@@ -40,6 +40,23 @@ describe('the labels decide about the grammar words on half the sample', () => {
     assert.equal(after.get(1)!.reason, 'everywhere');
   });
 
+  it('with the corpus searched, the choice reads its precisions (the verdict\'s neighbours), on the deciding half only', () => {
+    // Made-up per-document precisions from the corpus: keeping the words gains 0.3 on every document.
+    const asked: Array<[Uint8Array, Uint8Array]> = [];
+    const corpus = (before: Uint8Array, after: Uint8Array): CorpusPrecision => {
+      asked.push([before, after]);
+      return { before: new Float64Array(m).fill(0.5), after: new Float64Array(m).fill(0.8), among: 6000, documents: 6000, queries: m };
+    };
+    const c = chooseWithLabels({ ...input, corpus })!;
+    assert.equal(asked.length, 1);
+    assert.deepEqual([...asked[0]![0]].flatMap((x, i) => (x === 1 ? [i] : [])), accepted, 'before: the rule\'s list');
+    assert.deepEqual([...asked[0]![1]].flatMap((x, i) => (x === 1 ? [i] : [])), [1, 6], 'after: the list without the grammar words');
+    assert.equal(c.kept, true);
+    assert.ok(Math.abs(c.change - 0.3) < 1e-12);
+    assert.equal(c.decidedBy, m >> 1);
+    assert.deepEqual(c.accepted, [1, 6]);
+  });
+
   it('nothing to decide without labels or without a rule-2 word', () => {
     const unlabelled = new DistanceLab(X, Uint32Array.from({ length: 120 }, (_, i) => i * 5), 5, 5, null);
     const base = unlabelled.measure(new Uint8Array(X.cols), null);

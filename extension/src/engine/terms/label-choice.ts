@@ -2,6 +2,7 @@ import type { LabelChoiceFigures } from '../../protocol';
 import { sampleIndices } from '../random/seeded-random';
 import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { Decision } from './choose-suggestions';
+import type { CorpusPrecision } from './corpus-precision';
 import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
 
@@ -37,6 +38,12 @@ export interface LabelChoiceInput {
   /** The measures with `accepted` removed; the baseline's neighbours for turnover. */
   suggested: DistanceResult;
   baseline: DistanceResult;
+  /**
+   * With labels on a corpus larger than the sample: each sampled document's precision with
+   * neighbours from the corpus under two masks (corpus-precision.ts), as the verdict measures it;
+   * null where the corpus is not searched (the sample's own neighbours are then used).
+   */
+  corpus?: ((before: Uint8Array, after: Uint8Array) => CorpusPrecision | null) | null;
 }
 
 /**
@@ -44,7 +51,8 @@ export interface LabelChoiceInput {
  * The group is kept only when keeping it raises label precision@k on the deciding half with a
  * 95% paired-bootstrap interval above zero: the rule's list is the default, and the labels move
  * it only when they clearly say so (a noise guard, not a tuned bound). Neighbours are the
- * sample's, so the choice costs one more measure of the sample.
+ * verdict's (from the corpus where it searches the corpus, else the sample's): one more search,
+ * or one more measure of the sample.
  */
 export function chooseWithLabels(input: LabelChoiceInput): LabelChoice | null {
   const { lab, baseMask, accepted, decisions, suggested } = input;
@@ -58,14 +66,19 @@ export function chooseWithLabels(input: LabelChoiceInput): LabelChoice | null {
   const inGroup = new Set(group);
   const without = accepted.filter((c) => !inGroup.has(c));
   const keptMask = DistanceLab.union(baseMask, without);
-  const kept = lab.measure(keptMask, input.baseline.neighbors);
+  const suggestedMask = DistanceLab.union(baseMask, accepted);
   const onDeciding = (p: Float64Array | null): Float64Array => {
     const out = new Float64Array(m).fill(Number.NaN);
     if (p !== null) for (let q = 0; q < m; q++) if (deciding[q] === 1) out[q] = p[q]!;
     return out;
   };
-  const suggesting = onDeciding(perQueryQuality(suggested, lab.k, labels).precision);
-  const keeping = onDeciding(perQueryQuality(kept, lab.k, labels).precision);
+  // Neighbours from the corpus where the verdict seeks them there (inside a sample they are
+  // farther apart, docs/methods.md §9), else from the sample.
+  const searched = input.corpus?.(suggestedMask, keptMask) ?? null;
+  let kept: DistanceResult | null = null;
+  const measureKept = (): DistanceResult => (kept ??= lab.measure(keptMask, input.baseline.neighbors));
+  const suggesting = onDeciding(searched?.before ?? perQueryQuality(suggested, lab.k, labels).precision);
+  const keeping = onDeciding(searched?.after ?? perQueryQuality(measureKept(), lab.k, labels).precision);
   const boot = pairedBootstrap(suggesting, keeping, 'mean', CHOICE_DRAWS, lab.seed ^ 0x1abe1);
   const keep = boot !== null && boot.low > 0;
   const figures: LabelChoiceFigures = {
@@ -77,8 +90,8 @@ export function chooseWithLabels(input: LabelChoiceInput): LabelChoice | null {
     decidedBy: boot?.queries ?? 0,
   };
   return keep
-    ? { ...figures, group, deciding, accepted: without, mask: keptMask, measured: kept }
-    : { ...figures, group, deciding, accepted: [...accepted], mask: DistanceLab.union(baseMask, accepted), measured: suggested };
+    ? { ...figures, group, deciding, accepted: without, mask: keptMask, measured: measureKept() }
+    : { ...figures, group, deciding, accepted: [...accepted], mask: suggestedMask, measured: suggested };
 }
 
 /** The rule's decisions with the group's turned into the labels' decision to keep them. */

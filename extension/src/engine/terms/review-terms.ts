@@ -135,7 +135,12 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const ruleMask = DistanceLab.union(baseMask, ruleAccepted);
   const ruleMeasured = lab.measure(ruleMask, baseline.neighbors);
   // With labels and suggest.useLabels, half the sample decides whether the grammar words stay.
-  const choice = settings.suggest.useLabels ? chooseWithLabels({ lab, baseMask, accepted: ruleAccepted, decisions: ruleDecisions, suggested: ruleMeasured, baseline }) : null;
+  const searchCorpus = input.corpusSearch != null
+    ? (before: Uint8Array, after: Uint8Array) => corpusPrecision({ searcher: input.corpusSearch!, sampleRows: lab.sampleRows, documents, df: counts.df, before, after, seed: lab.seed })
+    : null;
+  const choice = settings.suggest.useLabels
+    ? chooseWithLabels({ lab, baseMask, accepted: ruleAccepted, decisions: ruleDecisions, suggested: ruleMeasured, baseline, corpus: searchCorpus })
+    : null;
   const decisions = choice === null ? ruleDecisions : decisionsAfterChoice(ruleDecisions, choice);
   const accepted = choice?.accepted ?? ruleAccepted;
   const suggestedMask = choice?.mask ?? ruleMask;
@@ -184,9 +189,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   for (const d of decisions.values()) if (d.reason === 'light') light[d.group] = d.groupShare;
   const formula = formulaHeads(decisions, baseMask, counts.opens, index.terms);
   // With labels, the verdict's precision is measured with neighbours from the corpus, not the sample.
-  const corpus = input.corpusSearch != null && accepted.length > 0
-    ? corpusPrecision({ searcher: input.corpusSearch, sampleRows: lab.sampleRows, documents, df: counts.df, before: baseMask, after: suggestedMask, seed: lab.seed })
-    : null;
+  const corpus = searchCorpus !== null && accepted.length > 0 ? searchCorpus(baseMask, suggestedMask) : null;
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, askable: settings.suggest.useLabels ? 0 : accepted.filter((c) => decisions.get(c)?.reason === 'grammar').length });
   if (settings.suggest.useLabels && lab.sampleLabels === null) {
     verdict.headline += ' "suggest.useLabels" is on, but there is no label field (--label, or "label" in loudword.json), so the labels decided nothing.';
