@@ -15,6 +15,12 @@
 //        # each state swept once beforehand; ms per state (median and least after the first
 //        # round) and a hash of the fields. The dump holds no labels: labels are position mod 20,
 //        # and the baseline's neighbours the first state's
+//   taskset -c 1 node --import tsx test/bench/what-if-sweep-states.ts ab DIR A.wat B.wat [rounds]
+//        # two builds of sweep-rows.wat in one process, each state swept by both, which goes first
+//        # alternating round by round: CPU ms per sweep of each (median and least after the first
+//        # round) and each one's hash. The host's clock moves by a quarter or more between runs
+//        # minutes apart (docs/performance.md), and within a minute while another process runs,
+//        # so a change of 2–3% shows only when both builds run side by side like this
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -164,7 +170,65 @@ async function tail(dir: string, rounds: number): Promise<void> {
   console.log(JSON.stringify({ part: 'tail', hash: hash.digest('hex').slice(0, 16), tails: ms.length, medianMs: ms[ms.length >> 1], leastMs: ms[0] }));
 }
 
-const [mode, a, b, c] = process.argv.slice(2);
+async function ab(dir: string, watA: string, watB: string, rounds: number): Promise<void> {
+  const { pairShift, reduceSweep, SweepRows } = (await import(engine('measures/measure-sample-rows.ts'))) as typeof import('../../extension/src/engine/measures/measure-sample-rows');
+  const W = (await import(engine('measures/sweep-rows-wasm.ts'))) as typeof import('../../extension/src/engine/measures/sweep-rows-wasm');
+  const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
+  const { assembleWat } = (await import(resolve(__dirname, '../../scripts/assemble-wat.mjs'))) as { assembleWat(path: string): Promise<Uint8Array> };
+  const modules = [new WebAssembly.Module(await assembleWat(resolve(watA))), new WebAssembly.Module(await assembleWat(resolve(watB)))];
+  const read = (name: string) => {
+    const bytes = readFileSync(join(dir, name));
+    return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.length));
+  };
+  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
+  const m = read(names[0]!.replace('.dots', '.scale')).length;
+  const [k, blockRows] = [10, 16];
+  const blocks = Math.ceil(m / blockRows);
+  const layout = W.sweepLayout(m, k, blocks, names.length, 1);
+  const memory = W.sweepMemory(layout);
+  const out = W.outputsAt(memory.buffer, layout);
+  const valid = new Uint8Array(memory.buffer, layout.valid, m);
+  const states = names.map((n, i) => {
+    const at = layout.states[i]!;
+    const dots = new Float64Array(memory.buffer, at.dots, m * m);
+    const scale = new Float64Array(memory.buffer, at.scale, m);
+    dots.set(read(n));
+    scale.set(read(n.replace('.dots', '.scale')));
+    return { at, dots, scale, valid: validRowsFromGram(dots, m) };
+  });
+  // Both builds over the one memory, each with its own instance (as two threads would be).
+  const sweeps = modules.map((module) => new W.WasmSweepRows(module, memory, layout, blockRows, 0));
+  const hashes = [createHash('sha256'), createHash('sha256')];
+  const ms: number[][] = [[], []];
+  for (let r = 0; r < rounds; r++) {
+    for (const s of states) {
+      for (const first of [0, 1]) {
+        const side = (r + first) % 2;
+        const cpu = process.cpuUsage();
+        valid.set(s.valid);
+        const shift = pairShift(s.dots, m, valid, s.scale);
+        const rows = new SweepRows(s.dots, m, k, valid, s.scale, shift, out, blockRows);
+        sweeps[side]!.state(s.at.dots, s.at.scale, shift);
+        for (let b = 0; b < blocks; b++) sweeps[side]!.block(b);
+        const result = reduceSweep(rows, out, blocks);
+        const d = process.cpuUsage(cpu);
+        if (r > 0) ms[side]!.push((d.user + d.system) / 1000);
+        else {
+          const { knn, kOccurrence, standoutPerQuery, nnDist, ...rest } = result;
+          for (const a of [knn.neighbors, knn.sims, kOccurrence, standoutPerQuery, nnDist]) hashes[side]!.update(Buffer.from(a.buffer, a.byteOffset, a.byteLength));
+          hashes[side]!.update(JSON.stringify(rest));
+        }
+      }
+    }
+  }
+  const figures = (side: number, wat: string) => {
+    const sorted = [...ms[side]!].sort((x, y) => x - y);
+    return { wat, hash: hashes[side]!.digest('hex').slice(0, 16), sweeps: sorted.length, medianMs: sorted[sorted.length >> 1], leastMs: sorted[0] };
+  };
+  console.log(JSON.stringify({ part: 'ab', A: figures(0, watA), B: figures(1, watB) }));
+}
+
+const [mode, a, b, c, d] = process.argv.slice(2);
 const run =
   mode === 'dump' && a && b
     ? dump(a, b)
@@ -172,7 +236,9 @@ const run =
       ? time(a, Number(b !== undefined && b !== '--js' ? b : '6'), b === '--js' || c === '--js')
       : mode === 'tail' && a
         ? tail(a, Number(b ?? '40'))
-        : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds] [--js] | tail DIR [rounds]'));
+        : mode === 'ab' && a && b && c
+          ? ab(a, b, c, Number(d ?? '10'))
+          : Promise.reject(new Error('usage: what-if-sweep-states.ts dump FILE.csv DIR | time DIR [rounds] [--js] | tail DIR [rounds] | ab DIR A.wat B.wat [rounds]'));
 run.then(
   () => process.exit(0),
   (e: unknown) => {
