@@ -7,6 +7,7 @@
 // precision@10 over every document (precision_at_k.py), the measure of docs/methods.md §9.
 import { strict as assert } from 'node:assert';
 import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
 import { suggestionLines } from '../extension/src/engine/terms/stop-list-spelling';
@@ -34,6 +35,13 @@ describe('suggest.useLabels: the labels decide about the grammar words (real cor
       else assert.equal(report.verdict!.outcome, 'nothing suggested');
       if (!kept) {
         assert.deepEqual(report.suggestions, rule.suggestions);
+        // Applied, the list leaves nothing to suggest or decide on a second review (issue: a second
+        // review is quiet).
+        const stopList = path.join(dir(), `${corpus.name}-stoplist.txt`);
+        writeFileSync(stopList, suggestionLines(report).join('\n') + '\n');
+        const again = (await startReview({ file, configPath: null, overrides: { text: 'text', label: 'label', stopList, suggest: { useLabels: true } } })).report;
+        assert.deepEqual(again.suggestions, []);
+        assert.equal(again.verdict?.labelChoice, undefined);
         return;
       }
       // Every grammar word below half is gone from the list; what stays is rule 1's (above half).
