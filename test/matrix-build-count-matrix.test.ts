@@ -170,6 +170,34 @@ describe('matrix/build-count-matrix', () => {
       }
     });
 
+    it('counts above 65,535 (a part kept 32-bit beside 16-bit ones) come out whole, with 0, 1 and 2 workers', async () => {
+      // packedCounts keeps a batch's counts 16-bit when the largest fits: batches of two documents
+      // here give both kinds, so the row writers and the count sums meet both.
+      const texts = ['ab '.repeat(70_000) + 'cd', 'ab cd ef', 'ef '.repeat(65_535) + 'gh '.repeat(65_536), 'gh ab', 'ij ij kl'];
+      const rows = texts.map((text, i) => ({ text, label: null, line: i + 2 }));
+      const want = [
+        { ab: 70_000, cd: 1 },
+        { ab: 1, cd: 1, ef: 1 },
+        { ef: 65_535, gh: 65_536 },
+        { ab: 1, gh: 1 },
+        { ij: 2, kl: 1 },
+      ];
+      for (const workers of [0, 1, 2]) {
+        const built = await buildCountMatrix(arrayCorpusSource(rows), tokens, { workers, batchSize: 2, workerScript: script });
+        const m = built.counts;
+        assertCsrInvariants(m);
+        for (let r = 0; r < m.rows; r++) {
+          const got: Record<string, number> = {};
+          for (let k = m.indptr[r]!; k < m.indptr[r + 1]!; k++) got[m.terms[m.indices[k]!]!] = m.data[k]!;
+          assert.deepEqual(got, want[r], `row ${r}, ${workers} workers`);
+        }
+        const stats = termCountStats(m);
+        assert.ok(built.countSums !== null);
+        for (const key of ['documents', 'totalTokens', 'sumLengthSq'] as const) assert.equal(built.countSums[key], stats[key], key);
+        for (const key of ['df', 'cf', 'sumCountSq', 'sumCountLength'] as const) assert.deepEqual(Array.from(built.countSums[key]), Array.from(stats[key]), key);
+      }
+    });
+
     it('the threads that wrote the rows then wait for passes over the matrix, and make them to the bit', async () => {
       const built = await buildCountMatrix(arrayCorpusSource(readFortunes(300)), tokens, { workers: 2, batchSize: 23, workerScript: script });
       const X = built.counts;

@@ -1,7 +1,7 @@
 import { strict as assert } from 'node:assert';
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { createTermCoder, createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
-import { batchEncoding, type EncodedBatch } from '../extension/src/engine/tokenize/encode-batch';
+import { batchEncoding, packedCounts, type EncodedBatch } from '../extension/src/engine/tokenize/encode-batch';
 import { freshWinkInstance } from '../extension/src/engine/tokenize/wink-instance';
 import { ALL_KINDS, readAllFortunes } from './support/tokenize-oracle';
 
@@ -58,4 +58,27 @@ describe('tokenize/encode-batch', function () {
       });
     });
   }
+});
+
+describe('packedCounts', () => {
+  it('packedCounts keeps the first m counts 16-bit up to 65,535 and 32-bit above, the same numbers', () => {
+    const counted = Uint32Array.from([1, 3, 65_535, 2, 7, 9]);
+    const small = packedCounts(counted, 4, 65_535);
+    assert.ok(small instanceof Uint16Array);
+    assert.deepEqual(Array.from(small), [1, 3, 65_535, 2]);
+    const large = Uint32Array.from([1, 65_536, 70_000, 4]);
+    const wide = packedCounts(large, 3, 70_000);
+    assert.ok(wide instanceof Uint32Array);
+    assert.deepEqual(Array.from(wide), [1, 65_536, 70_000]);
+    assert.equal(packedCounts(counted, 0, 0).length, 0);
+  });
+
+  it('batchEncoding sends 16-bit counts for ordinary documents and 32-bit ones for a count above 65,535', () => {
+    const encode = batchEncoding(createTermCoder({ ...DEFAULT_SETTINGS.tokens, tokenizer: 'pattern' }));
+    const ordinary = encode(['the cat and the hat', 'a cat']);
+    assert.ok(ordinary.counts instanceof Uint16Array);
+    const huge = encode(['zz '.repeat(65_536), 'the cat']);
+    assert.ok(huge.counts instanceof Uint32Array);
+    assert.equal(huge.counts[0], 65_536);
+  });
 });

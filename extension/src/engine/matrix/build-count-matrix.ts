@@ -328,4 +328,4 @@ function firstColumns(parts: readonly CountedPart[], ranks: readonly Uint32Array
   return out;
 }
 
-const EMPTY_PART: CountedPart = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint32Array(0) };
+const EMPTY_PART: CountedPart = { stream: 0, rowEnds: new Uint32Array(0), cols: new Uint32Array(0), counts: new Uint16Array(0) };

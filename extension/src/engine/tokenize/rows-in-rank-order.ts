@@ -7,8 +7,11 @@ export interface CountedPart {
   stream: number;
   rowEnds: Uint32Array;
   cols: Uint32Array;
-  counts: Uint32Array;
+  counts: PartCounts;
 }
+
+/** A part's counts: 16-bit when every one fits (encode-batch.ts, packedCounts), else 32-bit. */
+export type PartCounts = Uint16Array | Uint32Array;
 
 /** Bits of the column rank sorted per radix pass (a 2,048-entry histogram). */
 const RADIX_BITS = 11;
