@@ -22,8 +22,9 @@ describe('the labels decide about the grammar words on half the sample', () => {
   const m = lab.sampleRows.rows;
   const accepted = [1, 2, 4, 6];
   const decisions = new Map<number, Decision>([[1, decision('everywhere')], [2, decision('grammar')], [4, decision('grammar')], [6, decision('everywhere')]]);
-  const suggested = lab.measure(DistanceLab.union(new Uint8Array(X.cols), accepted), baseline.neighbors);
-  const input = { lab, baseMask: new Uint8Array(X.cols), accepted, decisions, suggested, baseline };
+  const suggestedMask = DistanceLab.union(new Uint8Array(X.cols), accepted);
+  const suggested = lab.measure(suggestedMask, baseline.neighbors);
+  const input = { lab, baseMask: new Uint8Array(X.cols), accepted, decisions, suggestedMask, suggested, baseline };
 
   it('half of the sampled documents decide, the same half for the same seed, and the group is the rule-2 words', () => {
     const a = chooseWithLabels(input)!;
@@ -100,8 +101,8 @@ describe('a labelled verdict that is not "helps" points to --use-labels when gra
   const m = lab.sampleRows.rows;
   // Made-up per-document precisions that fall with the list: 0.6 before, 0.4 after.
   const corpus: CorpusPrecision = { before: new Float64Array(m).fill(0.6), after: new Float64Array(m).fill(0.4), among: 6000, documents: 6000, queries: m };
-  const judge = (suggestions: string[], askable: number) =>
-    judgeSuggestions({ lab, suggestions, baseline, suggested, opinion: { share: 0, opinionText: false }, agreedStopped: 0, light: {}, corpus, documents: 6000, askable });
+  const judge = (suggestions: string[], grammarWords: number) =>
+    judgeSuggestions({ lab, suggestions, baseline, suggested, opinion: { share: 0, opinionText: false }, agreedStopped: 0, light: {}, corpus, documents: 6000, grammarWords });
 
   it('names how many of the terms are grammar words, with the flag and the setting', () => {
     const v = judge(['t0', 't3'], 1);

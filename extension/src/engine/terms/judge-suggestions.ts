@@ -6,7 +6,7 @@ import { pairedBootstrap } from './paired-bootstrap';
 import { perQueryQuality } from './per-query-quality';
 import type { Decision, SuggestionGroup } from './choose-suggestions';
 import type { CorpusPrecision } from './corpus-precision';
-import type { LabelChoice } from './label-choice';
+import { onlyWhere, type LabelChoice } from './label-choice';
 
 /** Bootstrap draws behind the verdict's interval. */
 export const VERDICT_DRAWS = 400;
@@ -30,8 +30,10 @@ export interface JudgeInput {
   formula?: FormulaHeads | null;
   /** With labels and suggest.useLabels: the labels' choice about the grammar words (label-choice.ts); the verdict then counts only the documents that did not decide. */
   labelChoice?: LabelChoice | null;
-  /** Suggested grammar words below half the documents (rule 2) that the labels could be asked about with suggest.useLabels; 0 when it is on or none is suggested. */
-  askable?: number;
+  /** The setting suggest.useLabels: with labels, the choice above; without, the headline says the labels decided nothing. */
+  useLabels?: boolean;
+  /** Suggested grammar words below half the documents (rule 2, label-choice.ts grammarGroup): what suggest.useLabels would ask the labels about. */
+  grammarWords?: number;
 }
 
 /** The formula heads kept (choose-suggestions.ts, FORMULA_OPENS), most documents opened first. */
@@ -108,6 +110,15 @@ export function formulaSentence(formula: FormulaHeads | null | undefined, docume
  * precision falls), and the headline says so.
  */
 export function judgeSuggestions(input: JudgeInput): Verdict {
+  const verdict = judgeList(input);
+  if (input.useLabels === true && input.lab.sampleLabels === null) {
+    verdict.headline += ' "suggest.useLabels" is on, but there is no label field (--label, or "label" in loudword.json), so the labels decided nothing.';
+  }
+  return verdict;
+}
+
+/** judgeSuggestions' verdict before the note on suggest.useLabels without labels. */
+function judgeList(input: JudgeInput): Verdict {
   const { lab, suggestions, opinion } = input;
   const baseline = input.baseline.measures;
   const suggested = input.suggested.measures;
@@ -175,8 +186,8 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
       ? 'The list was chosen without the labels, so every sampled document is held out.'
       : `${choiceSentence(choice, lab.k)} The figure above counts only the other sampled documents, which had no part in that choice.`;
     headline = `${list} ${verb} ${measure} (${from}, ${signed(boot.change, digits)}; ${interval}${where}). ${heldOutSentence}`;
-    if (outcome !== 'helps' && choice === null && (input.askable ?? 0) > 0) {
-      const n = input.askable!;
+    const n = input.grammarWords ?? 0;
+    if (outcome !== 'helps' && input.useLabels !== true && n > 0) {
       const which = one ? 'It is a grammar word' : `${formatCount(n)} of them ${n === 1 ? 'is a grammar word' : 'are grammar words'}`;
       headline += ` ${which} below half the documents, which can carry kinds of document rather than blur topics: --use-labels ("suggest.useLabels": true) lets half the sample decide whether ${n === 1 ? 'it stays' : 'they stay'}.`;
     }
@@ -205,8 +216,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
 
 /** Per-query values with the deciding documents' set to NaN (left out), or as they are without a choice. */
 function heldOut(values: Float64Array | null, choice: LabelChoice | null): Float64Array | null {
-  if (values === null || choice === null) return values;
-  return values.map((v, q) => (choice.deciding[q] === 1 ? Number.NaN : v));
+  return values === null || choice === null ? values : onlyWhere(values, choice.deciding, 0);
 }
 
 /** The Report's figures of a label choice (without its columns and masks). */

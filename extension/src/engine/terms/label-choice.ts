@@ -35,7 +35,8 @@ export interface LabelChoiceInput {
   /** The rule's suggestions (columns), and its decisions. */
   accepted: readonly number[];
   decisions: ReadonlyMap<number, Decision>;
-  /** The measures with `accepted` removed; the baseline's neighbours for turnover. */
+  /** The mask with `accepted` removed, and its measures; the baseline's neighbours for turnover. */
+  suggestedMask: Uint8Array;
   suggested: DistanceResult;
   baseline: DistanceResult;
   /**
@@ -55,10 +56,10 @@ export interface LabelChoiceInput {
  * or one more measure of the sample.
  */
 export function chooseWithLabels(input: LabelChoiceInput): LabelChoice | null {
-  const { lab, baseMask, accepted, decisions, suggested } = input;
+  const { lab, baseMask, accepted, decisions, suggestedMask, suggested } = input;
   const labels = lab.sampleLabels;
   if (labels === null) return null;
-  const group = accepted.filter((c) => decisions.get(c)?.reason === 'grammar');
+  const group = grammarGroup(accepted, decisions);
   if (group.length === 0) return null;
   const m = lab.sampleRows.rows;
   const deciding = new Uint8Array(m);
@@ -66,12 +67,7 @@ export function chooseWithLabels(input: LabelChoiceInput): LabelChoice | null {
   const inGroup = new Set(group);
   const without = accepted.filter((c) => !inGroup.has(c));
   const keptMask = DistanceLab.union(baseMask, without);
-  const suggestedMask = DistanceLab.union(baseMask, accepted);
-  const onDeciding = (p: Float64Array | null): Float64Array => {
-    const out = new Float64Array(m).fill(Number.NaN);
-    if (p !== null) for (let q = 0; q < m; q++) if (deciding[q] === 1) out[q] = p[q]!;
-    return out;
-  };
+  const onDeciding = (p: Float64Array | null): Float64Array => onlyWhere(p ?? new Float64Array(m).fill(Number.NaN), deciding, 1);
   // Neighbours from the corpus where the verdict seeks them there (inside a sample they are
   // farther apart, docs/methods.md §9), else from the sample.
   const searched = input.corpus?.(suggestedMask, keptMask) ?? null;
@@ -92,6 +88,16 @@ export function chooseWithLabels(input: LabelChoiceInput): LabelChoice | null {
   return keep
     ? { ...figures, group, deciding, accepted: without, mask: keptMask, measured: measureKept() }
     : { ...figures, group, deciding, accepted: [...accepted], mask: suggestedMask, measured: suggested };
+}
+
+/** The suggested columns the labels are asked about: rule 2's grammar words below half the documents. */
+export function grammarGroup(accepted: readonly number[], decisions: ReadonlyMap<number, Decision>): number[] {
+  return accepted.filter((c) => decisions.get(c)?.reason === 'grammar');
+}
+
+/** Per-query values where `deciding` is `side` (1: the deciding documents, 0: the held-out ones), NaN (left out) elsewhere. */
+export function onlyWhere(values: Float64Array, deciding: Uint8Array, side: 0 | 1): Float64Array {
+  return values.map((v, q) => (deciding[q] === side ? v : Number.NaN));
 }
 
 /** The rule's decisions with the group's turned into the labels' decision to keep them. */

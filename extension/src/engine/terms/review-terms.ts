@@ -9,7 +9,7 @@ import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
 import { corpusPrecision, type CorpusSearcher } from './corpus-precision';
 import { formulaHeads, judgeSuggestions, type LightGroups } from './judge-suggestions';
-import { chooseWithLabels, decisionsAfterChoice } from './label-choice';
+import { chooseWithLabels, decisionsAfterChoice, grammarGroup } from './label-choice';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
@@ -139,7 +139,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
     ? (before: Uint8Array, after: Uint8Array) => corpusPrecision({ searcher: input.corpusSearch!, sampleRows: lab.sampleRows, documents, df: counts.df, before, after, seed: lab.seed })
     : null;
   const choice = settings.suggest.useLabels
-    ? chooseWithLabels({ lab, baseMask, accepted: ruleAccepted, decisions: ruleDecisions, suggested: ruleMeasured, baseline, corpus: searchCorpus })
+    ? chooseWithLabels({ lab, baseMask, accepted: ruleAccepted, decisions: ruleDecisions, suggestedMask: ruleMask, suggested: ruleMeasured, baseline, corpus: searchCorpus })
     : null;
   const decisions = choice === null ? ruleDecisions : decisionsAfterChoice(ruleDecisions, choice);
   const accepted = choice?.accepted ?? ruleAccepted;
@@ -190,10 +190,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const formula = formulaHeads(decisions, baseMask, counts.opens, index.terms);
   // With labels, the verdict's precision is measured with neighbours from the corpus, not the sample.
   const corpus = searchCorpus !== null && accepted.length > 0 ? searchCorpus(baseMask, suggestedMask) : null;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, askable: settings.suggest.useLabels ? 0 : accepted.filter((c) => decisions.get(c)?.reason === 'grammar').length });
-  if (settings.suggest.useLabels && lab.sampleLabels === null) {
-    verdict.headline += ' "suggest.useLabels" is on, but there is no label field (--label, or "label" in loudword.json), so the labels decided nothing.';
-  }
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, useLabels: settings.suggest.useLabels, grammarWords: grammarGroup(accepted, decisions).length });
   const spellings = stopListSpellings(suggestions, tokenize);
   return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
 }
