@@ -27,6 +27,18 @@ import { join, resolve } from 'node:path';
 
 const engine = (path: string) => resolve(__dirname, '../../extension/src/engine', path);
 
+/** The dumped states in `dir` (their .dots files, in order), a reader of their arrays, and the what-if's sweep shape. */
+function dumpedStates(dir: string) {
+  const read = (name: string): Float64Array => {
+    const bytes = readFileSync(join(dir, name));
+    return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.length));
+  };
+  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
+  const m = read(names[0]!.replace('.dots', '.scale')).length;
+  const [k, blockRows] = [10, 16]; // the what-if's (WHAT_IF_BLOCK_ROWS)
+  return { read, names, m, k, blockRows, blocks: Math.ceil(m / blockRows) };
+}
+
 async function dump(file: string, dir: string): Promise<void> {
   const { IncrementalGram } = (await import(engine('what-if/incremental-gram.ts'))) as typeof import('../../extension/src/engine/what-if/incremental-gram');
   const { startReview } = (await import(engine('review/start-review.ts'))) as typeof import('../../extension/src/engine/review/start-review');
@@ -60,14 +72,7 @@ async function time(dir: string, rounds: number, js: boolean): Promise<void> {
   const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
   const module = W.sweepRowsModule();
   if (!js && module === null) throw new Error('the WebAssembly sweep did not load');
-  const read = (name: string) => {
-    const b = readFileSync(join(dir, name));
-    return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.length));
-  };
-  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
-  const m = read(names[0]!.replace('.dots', '.scale')).length;
-  const [k, blockRows] = [10, 16]; // the what-if's (WHAT_IF_BLOCK_ROWS)
-  const blocks = Math.ceil(m / blockRows);
+  const { read, names, m, k, blockRows, blocks } = dumpedStates(dir);
   // Every state in one memory laid out as SharedRowSweep's (sweep-rows-wasm.ts), filled before the clock starts.
   const layout = W.sweepLayout(m, k, blocks, names.length, 1);
   const memory = W.sweepMemory(layout);
@@ -118,14 +123,7 @@ async function tail(dir: string, rounds: number): Promise<void> {
   const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
   const module = W.sweepRowsModule();
   if (module === null) throw new Error('the WebAssembly sweep did not load');
-  const read = (name: string) => {
-    const b = readFileSync(join(dir, name));
-    return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.length));
-  };
-  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
-  const m = read(names[0]!.replace('.dots', '.scale')).length;
-  const [k, blockRows] = [10, 16];
-  const blocks = Math.ceil(m / blockRows);
+  const { read, names, m, k, blockRows, blocks } = dumpedStates(dir);
   const layout = W.sweepLayout(m, k, blocks, 1, 1);
   const memory = W.sweepMemory(layout);
   const buffer = memory.buffer;
@@ -176,14 +174,7 @@ async function ab(dir: string, watA: string, watB: string, rounds: number): Prom
   const { validRowsFromGram } = (await import(engine('measures/gram-distances.ts'))) as typeof import('../../extension/src/engine/measures/gram-distances');
   const { assembleWat } = (await import(resolve(__dirname, '../../scripts/assemble-wat.mjs'))) as { assembleWat(path: string): Promise<Uint8Array> };
   const modules = [new WebAssembly.Module(await assembleWat(resolve(watA))), new WebAssembly.Module(await assembleWat(resolve(watB)))];
-  const read = (name: string) => {
-    const bytes = readFileSync(join(dir, name));
-    return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.length));
-  };
-  const names = readdirSync(dir).filter((n) => /^state\d+\.dots$/.test(n)).sort();
-  const m = read(names[0]!.replace('.dots', '.scale')).length;
-  const [k, blockRows] = [10, 16];
-  const blocks = Math.ceil(m / blockRows);
+  const { read, names, m, k, blockRows, blocks } = dumpedStates(dir);
   const layout = W.sweepLayout(m, k, blocks, names.length, 1);
   const memory = W.sweepMemory(layout);
   const out = W.outputsAt(memory.buffer, layout);
