@@ -255,6 +255,25 @@ describe('webview in Chromium', function () {
       assert.equal(await none.page.locator('.lw-provenance summary').textContent(), 'Settings without a loudword.json (none found); stop list stoplist.txt');
     });
 
+    it('says what label precision needs instead of a tile of dashes when the review had no labels', async () => {
+      const base = fixture('report-small.json');
+      const unlabelled: Report = {
+        ...base,
+        baseline: { ...base.baseline, labelPrecisionAtK: null },
+        suggested: { ...base.suggested, labelPrecisionAtK: null },
+      };
+      const { page, seen } = await openStandalone(unlabelled);
+      const tile = page.locator('.lw-tile[data-measure="labelPrecisionAtK"]');
+      assert.equal(await tile.locator('.lw-tile__absent').textContent(), 'No label column: name one ("label" in loudword.json, or --label) to measure it.');
+      assert.equal(await tile.locator('[data-role]').count(), 0, 'no "— → —"');
+      // The measures that have values keep their chain.
+      assert.equal(await stripValue(page, 'backgroundSimilarity', 'suggested'), '0.0871');
+      assert.deepEqual(seen.errors, []);
+      // With labels the same tile shows its values (the first test) and no note.
+      const labelled = await openStandalone(base);
+      assert.equal(await labelled.page.locator('.lw-tile__absent').count(), 0);
+    });
+
     it('shows 500 rows of a 20,000-term report and 500 more on request', async () => {
       const report = fixture('report-small.json');
       const many: TermRow[] = Array.from({ length: 20000 }, (_, i) => ({

@@ -34,6 +34,11 @@ export interface MeasureSpec {
   format(v: number | null): string;
   /** Optional second line under the value (e.g. a range). */
   detail?(m: Measures): string | null;
+  /**
+   * Shown in place of "— → —" when the measure has no value with or without the suggestions
+   * because the review lacked an input it needs (what to do to get it).
+   */
+  whenAbsent?: string;
 }
 
 export const measureCatalog: readonly MeasureSpec[] = [
@@ -80,6 +85,7 @@ export const measureCatalog: readonly MeasureSpec[] = [
     primary: true,
     value: (m) => m.labelPrecisionAtK,
     format: formatShare,
+    whenAbsent: 'No label column: name one ("label" in loudword.json, or --label) to measure it.',
   },
   {
     id: 'topTermsMassTop10',

@@ -96,6 +96,8 @@ function selectionSpan(spec: MeasureSpec, suggested: Measures, measures: Measure
 function renderTile(spec: MeasureSpec, input: StripInput): HTMLElement {
   const labelId = uniqueId('lw-m');
   const meaningId = uniqueId('lw-d');
+  // A tile of dashes says nothing; say what the measure needs instead (a what-if cannot give it one).
+  const absent = spec.whenAbsent !== undefined && spec.value(input.baseline) === null && spec.value(input.suggested) === null;
   return el(
     'div',
     {
@@ -104,10 +106,17 @@ function renderTile(spec: MeasureSpec, input: StripInput): HTMLElement {
     },
     [
       el('div', { className: 'lw-tile__label', text: spec.label, attrs: { id: labelId } }),
-      el('div', { className: 'lw-tile__values' }, valueChain(spec, input)),
+      absent
+        ? el('p', { className: 'lw-tile__absent' }, absentNote(spec.whenAbsent ?? ''))
+        : el('div', { className: 'lw-tile__values' }, valueChain(spec, input)),
       meaningDetails(spec, meaningId),
     ],
   );
+}
+
+/** The note's flags (`--label`) as unbreakable code, so a narrow tile never splits one at its hyphens. */
+function absentNote(text: string): Child[] {
+  return text.split(/(--[a-z-]+)/).map((part, i) => (i % 2 === 1 ? el('code', { text: part }) : part));
 }
 
 /** The other measures: a compact table with aligned columns, one row per measure. */
