@@ -28,35 +28,46 @@
     (global.set $out (local.get $out)))
 
   ;; For the kept columns u ≠ t in [from, to): a = Σ w·rowChange[2r], b = Σ (w·w)·rowChange[2r + 1]
-  ;; over the column's postings in order, each from +0, into out[2u] and out[2u + 1].
+  ;; over the column's postings in order, each from +0, into out[2u] and out[2u + 1]. The arrays'
+  ;; offsets are read into locals once and a column's postings walked by two pointers: V8 loads a
+  ;; global from the instance at every global.get, also inside a loop (~16% of the gather's CPU;
+  ;; docs/performance.md, "What-if: globals out of the hot loops").
   (func (export "gather") (param $t i32) (param $from i32) (param $to i32)
-    (local $u i32) (local $q i32) (local $qEnd i32) (local $c i32)
+    (local $u i32) (local $c i32) (local $id i32) (local $idEnd i32) (local $v i32)
     (local $a f64) (local $b f64) (local $w f64)
+    (local $start i32) (local $rowIds i32) (local $values i32) (local $rowChange i32) (local $mask i32) (local $out i32)
+    (local.set $start (global.get $start))
+    (local.set $rowIds (global.get $rowIds))
+    (local.set $values (global.get $values))
+    (local.set $rowChange (global.get $rowChange))
+    (local.set $mask (global.get $mask))
+    (local.set $out (global.get $out))
     (local.set $u (local.get $from))
     (block $done
       (loop $column
         (br_if $done (i32.ge_u (local.get $u) (local.get $to)))
         (if (i32.and
-              (i32.eqz (i32.load8_u (i32.add (global.get $mask) (local.get $u))))
+              (i32.eqz (i32.load8_u (i32.add (local.get $mask) (local.get $u))))
               (i32.ne (local.get $u) (local.get $t)))
           (then
             (local.set $a (f64.const 0))
             (local.set $b (f64.const 0))
-            ;; The column's postings: start[u] ≤ q < start[u + 1].
-            (local.set $q (i32.add (global.get $start) (i32.shl (local.get $u) (i32.const 2))))
-            (local.set $qEnd (i32.load offset=4 (local.get $q)))
-            (local.set $q (i32.load (local.get $q)))
+            ;; The column's postings: start[u] ≤ q < start[u + 1], at rowIds + 4q (id) and values + 8q (v).
+            (local.set $c (i32.add (local.get $start) (i32.shl (local.get $u) (i32.const 2))))
+            (local.set $idEnd (i32.add (local.get $rowIds) (i32.shl (i32.load offset=4 (local.get $c)) (i32.const 2))))
+            (local.set $id (i32.add (local.get $rowIds) (i32.shl (i32.load (local.get $c)) (i32.const 2))))
+            (local.set $v (i32.add (local.get $values) (i32.shl (i32.load (local.get $c)) (i32.const 3))))
             (block $column_done
               (loop $entry
-                (br_if $column_done (i32.ge_u (local.get $q) (local.get $qEnd)))
-                (local.set $c (i32.add (global.get $rowChange)
-                  (i32.shl (i32.load (i32.add (global.get $rowIds) (i32.shl (local.get $q) (i32.const 2)))) (i32.const 4))))
-                (local.set $w (f64.load (i32.add (global.get $values) (i32.shl (local.get $q) (i32.const 3)))))
+                (br_if $column_done (i32.ge_u (local.get $id) (local.get $idEnd)))
+                (local.set $c (i32.add (local.get $rowChange) (i32.shl (i32.load (local.get $id)) (i32.const 4))))
+                (local.set $w (f64.load (local.get $v)))
                 (local.set $a (f64.add (local.get $a) (f64.mul (local.get $w) (f64.load (local.get $c)))))
                 (local.set $b (f64.add (local.get $b) (f64.mul (f64.mul (local.get $w) (local.get $w)) (f64.load offset=8 (local.get $c)))))
-                (local.set $q (i32.add (local.get $q) (i32.const 1)))
+                (local.set $id (i32.add (local.get $id) (i32.const 4)))
+                (local.set $v (i32.add (local.get $v) (i32.const 8)))
                 (br $entry)))
-            (local.set $c (i32.add (global.get $out) (i32.shl (local.get $u) (i32.const 4))))
+            (local.set $c (i32.add (local.get $out) (i32.shl (local.get $u) (i32.const 4))))
             (f64.store (local.get $c) (local.get $a))
             (f64.store offset=8 (local.get $c) (local.get $b))))
         (local.set $u (i32.add (local.get $u) (i32.const 1)))
