@@ -79,7 +79,7 @@ export const measureCatalog: readonly MeasureSpec[] = [
     id: 'labelPrecisionAtK',
     label: 'Label precision@k',
     meaning:
-      "Leave-one-out: the mean share of a document's k nearest neighbours that carry the same label. Higher is better. Needs a label column.",
+      "Leave-one-out: the mean share of a document's k nearest neighbours that carry the same label; a place no document sharing a term fills counts as a random document. Higher is better. Needs a label column.",
     better: 'higher',
     methods: 7,
     primary: true,

@@ -226,7 +226,7 @@ export function sampledFieldsOf(rows: SampleRowMeasures, valid: Uint8Array, opti
     hubness,
     intrinsicDimension: { twoNN: twoNN(rows.nnDist, m, k), mle: mleDimension(rows.nnDist, m, k) },
     radiusSlack: rows.radiusSlack,
-    labelPrecisionAtK: labels === null ? null : labelPrecisionAtK(knn.neighbors, labels, k),
+    labelPrecisionAtK: labels === null ? null : labelPrecisionAtK(knn, labels, k),
     neighborTurnover: baselineNeighbors === null ? null : neighborTurnover(baselineNeighbors, knn.neighbors, m, k),
     distributions: {
       similarity: rows.similarity,

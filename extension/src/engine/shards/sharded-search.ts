@@ -1,5 +1,6 @@
 import { mergeNeighborLists, type NeighborLists } from '../measures/corpus-neighbors';
-import { isLabel, labelPrecision, searchedQueries, spreadToSample, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
+import { labelPrecision } from '../measures/label-precision';
+import { isLabel, sampleLabelChance, searchedQueries, spreadToSample, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
 import { maskColumns, neighborRequestId, type NeighborRequest } from './partials';
 
 /** A neighbour search's answer over the whole corpus: the lists and each listed document's label. */
@@ -37,7 +38,8 @@ export class ShardedSearch implements CorpusSearcher {
     // The lists are the searched positions' (searchedQueries), in order.
     const positions = searchedQueries(search, m);
     const labelOf = (q: number): string | null => this.sampleLabels[positions[q]!] ?? null;
-    const precision = labelPrecision(found.lists.docs, k, (q) => isLabel(labelOf(q)), (q, r) => found.labels[q * k + r] === labelOf(q));
+    const chance = sampleLabelChance(this.sampleLabels);
+    const precision = labelPrecision(found.lists.docs, found.lists.sims, k, (q) => isLabel(labelOf(q)), (q, r) => found.labels[q * k + r] === labelOf(q), (q) => chance(labelOf(q)!));
     return spreadToSample(precision, positions, m);
   }
 }

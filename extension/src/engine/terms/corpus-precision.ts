@@ -1,6 +1,6 @@
 import type { Csr } from '../matrix/csr';
 import { corpusNeighbors, neighborSearchWork } from '../measures/corpus-neighbors';
-import { NO_NEIGHBOR } from '../measures/knn';
+import { labelChances, labelPrecision, type LabelChance } from '../measures/label-precision';
 import { selectRows } from '../matrix/select-rows';
 import { sampleIndices } from '../random/seeded-random';
 
@@ -36,7 +36,7 @@ export interface CorpusSearch {
 
 /** Runs a search for the sampled documents; one process's is searchInProcess, a review in shards sums the shards'. */
 export interface CorpusSearcher {
-  /** Per sampled document, the share of its k neighbours with its label; NaN where it has no label or no neighbour. */
+  /** Per sampled document, label precision over its k neighbours (measures/label-precision.ts); NaN where it has no label or was not searched for. */
   precision(removed: Uint8Array, search: CorpusSearch): Float64Array;
 }
 
@@ -138,33 +138,20 @@ export function searchInProcess(weights: Csr, sampleRows: Csr, sample: Uint32Arr
     precision(removed, search) {
       const { positions, rows, docs } = searchedRows(sampleRows, sample, search);
       const lists = corpusNeighbors(rows, docs, weights, 0, removed, k, searchCandidates(search, 0, weights.rows));
-      const precision = labelPrecision(lists.docs, k, (q) => isLabel(labels[docs[q]!]), (q, r) => labels[lists.docs[q * k + r]!] === labels[docs[q]!]);
+      const chance = sampleLabelChance(Array.from(sample, (d) => labels[d]));
+      const precision = labelPrecision(lists.docs, lists.sims, k, (q) => isLabel(labels[docs[q]!]), (q, r) => labels[lists.docs[q * k + r]!] === labels[docs[q]!], (q) => chance(labels[docs[q]!]!));
       return spreadToSample(precision, positions, sampleRows.rows);
     },
   };
 }
 
 /**
- * Per query, the share of its listed neighbours (m×k, NO_NEIGHBOR where none) that share its
- * label; NaN for a query with no label or no neighbour. `hasLabel(q)` and `sameLabel(q, r)`
- * (the r-th neighbour of q has q's label) let the sample's label ids and the corpus's label
- * strings share the rule.
+ * The chance a missing neighbour counts (measures/label-precision.ts) when the neighbours are
+ * sought in the corpus: from the sampled documents' labels, a uniform sample of the corpus's, so
+ * that one process and a review in shards (which holds only the sample's labels) count the same.
  */
-export function labelPrecision(neighbors: Uint32Array, k: number, hasLabel: (q: number) => boolean, sameLabel: (q: number, r: number) => boolean): Float64Array {
-  const m = neighbors.length / k;
-  const out = new Float64Array(m).fill(Number.NaN);
-  for (let q = 0; q < m; q++) {
-    if (!hasLabel(q)) continue;
-    let hits = 0;
-    let present = 0;
-    for (let r = 0; r < k; r++) {
-      if (neighbors[q * k + r] === NO_NEIGHBOR) continue;
-      present++;
-      if (sameLabel(q, r)) hits++;
-    }
-    if (present > 0) out[q] = hits / present;
-  }
-  return out;
+export function sampleLabelChance(sampleLabels: readonly (string | null | undefined)[]): LabelChance<string> {
+  return labelChances(sampleLabels.map((l) => (isLabel(l) ? l : null)));
 }
 
 /** A label that counts: not missing, not empty. */

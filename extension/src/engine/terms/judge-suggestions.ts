@@ -258,7 +258,7 @@ function whereSought(corpus: CorpusPrecision | null, documents: number, sampled:
   return documents > sampled ? ', their neighbours sought within the sample, as a search of the corpus would cost too much here' : '';
 }
 
-/** Mean over the values that are numbers (NaN: a query with no label or no neighbour). */
+/** Mean over the values that are numbers (NaN: a query with no label, or no value for standout). */
 function meanOf(values: Float64Array): number {
   let sum = 0;
   let count = 0;

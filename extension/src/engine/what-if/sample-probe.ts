@@ -59,7 +59,7 @@ export class SampleProbe {
     return {
       neighbors: knn.neighbors,
       neighborStandout: neighborStandout(gram, m, valid, nearest),
-      labelPrecisionAtK: this.labels === null ? null : labelPrecisionAtK(knn.neighbors, this.labels, this.k),
+      labelPrecisionAtK: this.labels === null ? null : labelPrecisionAtK(knn, this.labels, this.k),
     };
   }
 }
