@@ -1,10 +1,11 @@
 // suggest.useLabels on real labelled corpora (test/corpora/README.md; Debian package dict-gcide and
 // the SpamAssassin corpus as listed there): where the labels name kinds of document that the
-// grammar words carry (Webster's definitions by part of speech), half the sample keeps the grammar
-// words and the list scores with scikit-learn as max_df = 0.5 does; where the labels are topics
-// (SpamAssassin's spam against ham) the rule's list stands. (WordNet's glosses by class are a
-// borderline case, docs/methods.md §9, and not asserted either way.) Reference: scikit-learn (Debian python3-sklearn) leave-one-out
-// precision@10 over every document (precision_at_k.py), the measure of docs/methods.md §9.
+// grammar words carry (Webster's definitions by part of speech, a TUNE corpus; WordNet's glosses by
+// class, Debian wordnet-base, a CHECK corpus), half the sample keeps the grammar words and the list
+// scores with scikit-learn as max_df = 0.5 does; where the labels are topics (SpamAssassin's spam
+// against ham) the rule's list stands. Reference: scikit-learn (Debian python3-sklearn)
+// leave-one-out precision@10 over every document (precision_at_k.py), the measure of
+// docs/methods.md §9.
 import { strict as assert } from 'node:assert';
 import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
@@ -18,7 +19,7 @@ import { scratchFolder } from './support/scratch-folder';
 describe('suggest.useLabels: the labels decide about the grammar words (real corpora, scikit-learn)', function () {
   this.timeout(600_000);
   const dir = scratchFolder('loudword-label-choice-');
-  const keeps: Record<string, boolean> = { 'webster-parts-of-speech': true, 'spam-assassin': false };
+  const keeps: Record<string, boolean> = { 'webster-parts-of-speech': true, 'wordnet-glosses': true, 'spam-assassin': false };
 
   for (const corpus of corporaNamed(Object.keys(keeps))) {
     const kept = keeps[corpus.name]!;
