@@ -30,8 +30,9 @@
   ;; For the kept columns u ≠ t in [from, to): a = Σ w·rowChange[2r], b = Σ (w·w)·rowChange[2r + 1]
   ;; over the column's postings in order, each from +0, into out[2u] and out[2u + 1]. The arrays'
   ;; offsets are read into locals once and a column's postings walked by two pointers: V8 loads a
-  ;; global from the instance at every global.get, also inside a loop (~16% of the gather's CPU;
-  ;; docs/performance.md, "What-if: globals out of the hot loops").
+  ;; global from the instance at every global.get, also inside a loop, and three globals a posting
+  ;; with each posting's addresses worked out from its index cost ~16% of the gather's CPU
+  ;; (docs/performance.md, "What-if: globals out of the hot loops").
   (func (export "gather") (param $t i32) (param $from i32) (param $to i32)
     (local $u i32) (local $c i32) (local $id i32) (local $idEnd i32) (local $v i32)
     (local $a f64) (local $b f64) (local $w f64)
