@@ -15,9 +15,15 @@ import { loadWebviewAssets, renderStandaloneReport, type WebviewAssets } from '.
 import type { Measures, Report, TermRow } from '../extension/src/protocol';
 
 // Globals of the page, used only inside evaluate callbacks (they run in Chromium, not in Node).
-declare const document: { querySelectorAll(s: string): { length: number }; querySelector(s: string): unknown; body: { classList: { add(c: string): void } }; documentElement: { style: { setProperty(k: string, v: string): void } } };
+declare const document: {
+  querySelectorAll(s: string): { length: number };
+  querySelector(s: string): unknown;
+  body: { classList: { add(c: string): void } };
+  documentElement: { style: { setProperty(k: string, v: string): void } };
+  createRange(): { selectNodeContents(n: unknown): void; getBoundingClientRect(): { right: number } };
+};
 declare const window: { postMessage(m: unknown, origin: string): void; scrollTo(x: number, y: number): void } & Record<string, unknown>;
-declare function getComputedStyle(e: unknown): { backgroundColor: string };
+declare function getComputedStyle(e: unknown): { backgroundColor: string; overflowX: string };
 type InputLike = { checked: boolean; disabled: boolean; closest(s: string): { getAttribute(a: string): string | null } | null };
 
 const root = join(__dirname, '..');
@@ -253,6 +259,38 @@ describe('webview in Chromium', function () {
       // Without a config file the line says so, not "Settings from no loudword.json".
       const none = await openStandalone({ ...report, provenance: { config: { file: null, how: 'none' }, sources: {} } });
       assert.equal(await none.page.locator('.lw-provenance summary').textContent(), 'Settings without a loudword.json (none found); stop list stoplist.txt');
+    });
+
+    it('hubs of a many-file corpus: the file and line never run into the list count, at any width', async () => {
+      const base = fixture('report-small.json');
+      const names = ['connectivity/note-302.txt', 'installation/a-folder-with-a-long-name/and-a-longer-file-name-still.txt', 'b.txt'];
+      const report: Report = { ...base, hubs: base.hubs.slice(0, 3).map((h, i) => ({ ...h, file: names[i]! })) };
+      const { page, seen } = await openStandalone(report);
+      for (const width of [1200, 700, 420]) {
+        await page.setViewportSize({ width, height: 900 });
+        const rows = await page.locator('.lw-hub').evaluateAll((xs) =>
+          xs.map((x) => {
+            type Box = { getBoundingClientRect(): { left: number; right: number; width: number }; textContent: string; getAttribute(n: string): string | null };
+            const line = x.querySelector('.lw-hub__line') as unknown as Box;
+            // The list count is hidden on narrow panels; then the preview follows the name.
+            const k = x.querySelector('.lw-hub__k') as unknown as Box;
+            const after = k.getBoundingClientRect().width > 0 ? k : (x.querySelector('.lw-hub__preview') as unknown as Box);
+            // Where the text shows to: its own extent (a grid cell's box does not grow with text
+            // that overflows it), cut at the box when the box clips.
+            const range = document.createRange();
+            range.selectNodeContents(line);
+            const clips = getComputedStyle(line).overflowX === 'hidden';
+            const right = clips ? Math.min(range.getBoundingClientRect().right, line.getBoundingClientRect().right) : range.getBoundingClientRect().right;
+            return { right, nextLeft: after.getBoundingClientRect().left, text: line.textContent, title: line.getAttribute('title') };
+          }),
+        );
+        for (const r of rows) {
+          assert.ok(r.right <= r.nextLeft + 0.5, `${width}px: "${r.text}" ends at ${r.right}, the next column starts at ${r.nextLeft}`);
+          assert.equal(r.title, r.text, 'the whole name is in the title');
+        }
+      }
+      await page.setViewportSize({ width: 1200, height: 900 });
+      assert.deepEqual(seen.errors, []);
     });
 
     it('says what label precision needs instead of a tile of dashes when the review had no labels', async () => {
