@@ -93,9 +93,20 @@ export interface SampleKnn {
   sims: Float64Array;
 }
 
+/**
+ * Each sample's label chances, counted once: the labels of a review's sample do not change, and
+ * the what-if asks for its precision on every click.
+ */
+const sampleChances = new WeakMap<Int32Array, LabelChance<number>>();
+
 /** Per sampled query, its precision among the sample's documents (NaN without a label). */
 export function samplePrecision(knn: SampleKnn, labels: Int32Array, k: number): Float64Array {
   const { neighbors, sims } = knn;
-  const chanceOf = labelChances(Array.from(labels, (l) => (l < 0 ? null : l)));
-  return labelPrecision(neighbors, sims, k, (q) => labels[q]! >= 0, (q, r) => labels[neighbors[q * k + r]!] === labels[q], (q) => chanceOf(labels[q]!));
+  let chanceOf = sampleChances.get(labels);
+  if (chanceOf === undefined) {
+    chanceOf = labelChances(Array.from(labels, (l) => (l < 0 ? null : l)));
+    sampleChances.set(labels, chanceOf);
+  }
+  const chance = chanceOf;
+  return labelPrecision(neighbors, sims, k, (q) => labels[q]! >= 0, (q, r) => labels[neighbors[q * k + r]!] === labels[q], (q) => chance(labels[q]!));
 }
