@@ -147,6 +147,13 @@ export interface Report {
    * (with stemming on, "becaus" → "because"); only such terms are listed (engine/terms/stop-list-spelling.ts).
    */
   suggestionSpellings?: Record<string, string> | undefined;
+  /**
+   * Pieces of English contractions that scikit-learn's default tokens keep where wink-nlp expands
+   * the contraction ("don" of "don't", for "do" and "not"), each with the suggested terms it stands
+   * for: the ones whose terms the suggestions complete (with the stop list's). A stop list file
+   * gets them after the suggestions (engine/terms/contraction-pieces.ts).
+   */
+  suggestionPieces?: Record<string, string[]> | undefined;
   /** What the suggested list does to neighbour quality, read first (engine/terms/judge-suggestions.ts). */
   verdict: Verdict;
   hubs: HubRow[];

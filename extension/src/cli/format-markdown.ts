@@ -2,7 +2,7 @@ import { formatCount } from '../number-format';
 import type { Report } from '../protocol';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
-import { suggestionLines } from '../engine/terms/stop-list-spelling';
+import { piecesSentence, suggestedTermLines } from '../engine/terms/stop-list-spelling';
 import { provenanceLine } from './format-provenance';
 import { count } from './text-layout';
 
@@ -39,7 +39,9 @@ export function formatMarkdown(report: Report): string {
     out.push(`| ${spec.label} | ${spec.format(a)} | ${spec.format(b)} | ${judgedChangeWord(spec, a, b)} |`);
   }
   out.push('');
-  out.push(report.suggestions.length > 0 ? `**Suggested stop terms (${report.suggestions.length}):** ${suggestionLines(report).map(cell).join(', ')}` : 'No stop terms suggested.');
+  out.push(report.suggestions.length > 0 ? `**Suggested stop terms (${report.suggestions.length}):** ${suggestedTermLines(report).map(cell).join(', ')}` : 'No stop terms suggested.');
+  const pieces = piecesSentence(report);
+  if (pieces !== null) out.push('', cell(pieces));
   out.push('');
   out.push('| term | status | df | pull share | neighbour lift | why |');
   out.push('|---|---|---:|---:|---:|---|');

@@ -5,7 +5,7 @@ import { formatCount, formatNumber } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 import { verdictCaution } from '../verdict-wording';
-import { suggestionLines } from '../engine/terms/stop-list-spelling';
+import { piecesSentence, suggestedTermLines } from '../engine/terms/stop-list-spelling';
 import { skippedWording } from '../skipped-wording';
 import { stopListSize } from '../stop-list-wording';
 
@@ -52,7 +52,9 @@ export function formatText(report: Report): string {
   out.push('');
 
   if (report.suggestions.length > 0) {
-    out.push(`Suggested stop terms (${report.suggestions.length}): ${suggestionLines(report).join(', ')}`);
+    out.push(`Suggested stop terms (${report.suggestions.length}): ${suggestedTermLines(report).join(', ')}`);
+    const pieces = piecesSentence(report);
+    if (pieces !== null) out.push(pieces);
   } else {
     out.push('No stop terms suggested (see the verdict above for why).');
   }

@@ -110,7 +110,10 @@ async function applySuggestions(report: Report, o: CliOptions, inputs: readonly 
   }
   if (!o.dryRun) await replaceStopList(list, result.bytes);
   const verb = o.dryRun ? 'Would add' : 'Added';
-  const lines = [`${verb} ${count(result.added.length, 'term')} to ${file}: ${result.added.join(', ')}`];
+  const pieceSet = new Set(Object.keys(report.suggestionPieces ?? {}));
+  const pieces = result.added.filter((l) => pieceSet.has(l)).length;
+  const what = count(result.added.length - pieces, 'term') + (pieces === 0 ? '' : ` and ${count(pieces, 'piece')} of contractions for scikit-learn's tokens`);
+  const lines = [`${verb} ${what} to ${file}: ${result.added.join(', ')}`];
   if (leftOut !== '') lines.push(leftOut.trimEnd());
   // apply does what it was told, but it is the moment to repeat a verdict that the list hurts,
   // with the way back: the lines it wrote are the file's last ones.

@@ -91,7 +91,7 @@ export class HostContext {
 
   async addTerms(review: CorpusReview, terms: readonly string[]): Promise<string[]> {
     try {
-      const { added, stopList } = await addTermsToReviewStopList(review, terms);
+      const { added, pieces, stopList } = await addTermsToReviewStopList(review, terms);
       const name = path.basename(stopList.fsPath);
       if (added.length > 0) review.markStale(`${name} changed`);
       this.store.notify(review);
@@ -100,7 +100,9 @@ export class HostContext {
         return added;
       }
       const open = 'Open Stop List';
-      const what = added.length === 1 ? `'${added[0]}'` : `${added.length} terms`;
+      const words = added.length - pieces;
+      const what = (words === 1 ? `'${added[0]}'` : `${words} terms`) +
+        (pieces === 0 ? '' : ` and ${pieces === 1 ? 'a piece' : `${pieces} pieces`} of contractions for scikit-learn's tokens ("don")`);
       void vscode.window.showInformationMessage(`Loudword: added ${what} to ${name} (unsaved; Undo in that file reverts it).`, open).then(async (choice) => {
         if (choice === open) await vscode.window.showTextDocument(stopList, { preview: false });
       });

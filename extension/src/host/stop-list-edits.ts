@@ -5,7 +5,7 @@ import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { ADDED_TERMS_HEADING, addTermsToStopList } from '../engine/stoplist/add-terms-to-stop-list';
 import { removeTermsFromStopList } from '../engine/stoplist/remove-terms-from-stop-list';
-import { stopListLine } from '../engine/terms/stop-list-spelling';
+import { piecesWith, stopListLine } from '../engine/terms/stop-list-spelling';
 import type { CorpusReview } from './corpus-review';
 import { checkLineEdits, type LineEdit } from './pure/text-edit-ranges';
 import { confineForRestrictedMode, workspaceRootOf } from './review-input';
@@ -42,7 +42,8 @@ function stopListUriOf(review: CorpusReview): vscode.Uri {
   return vscode.Uri.file(file);
 }
 
-export interface AddResult { added: string[]; stopList: vscode.Uri }
+/** What was new in the stop list: `added` counts the lines, of which `pieces` are pieces of contractions. */
+export interface AddResult { added: string[]; pieces: number; stopList: vscode.Uri }
 
 /** Adds `terms` to the review's stop list (creating the file if missing); returns what was new. */
 export async function addTermsToReviewStopList(review: CorpusReview, terms: readonly string[]): Promise<AddResult> {
@@ -54,15 +55,18 @@ export async function addTermsToReviewStopList(review: CorpusReview, terms: read
   } else {
     edit.createFile(uri, { ignoreIfExists: true });
   }
-  // Each term in its plain spelling ("because" for the stem "becaus"), as `loudword apply` writes it.
+  // Each term in its plain spelling ("because" for the stem "becaus"), as `loudword apply` writes it,
+  // then the pieces of contractions the terms complete for scikit-learn's tokens ("don").
   const termOfLine = new Map(terms.map((t) => [review.report === null ? t : stopListLine(review.report, t), t]));
-  const result = addTermsToStopList(text, [...termOfLine.keys()], { heading: ADDED_TERMS_HEADING });
-  if (result.edit === null || result.added.length === 0) return { added: [], stopList: uri };
+  const pieces = review.report === null ? [] : piecesWith(review.report, terms, review.addedSinceReview);
+  const result = addTermsToStopList(text, [...termOfLine.keys(), ...pieces], { heading: ADDED_TERMS_HEADING });
+  if (result.edit === null || result.added.length === 0) return { added: [], pieces: 0, stopList: uri };
   const [checked] = checkLineEdits([result.edit], text);
   edit.replace(uri, toRange(checked!), checked!.newText);
   if (!(await vscode.workspace.applyEdit(edit))) throw new Error(`the editor refused the edit to ${path.basename(uri.fsPath)}`);
-  for (const line of result.added) review.addedSinceReview.add(termOfLine.get(line) ?? line);
-  return { added: result.added, stopList: uri };
+  const pieceSet = new Set(pieces);
+  for (const line of result.added) if (!pieceSet.has(line)) review.addedSinceReview.add(termOfLine.get(line) ?? line);
+  return { added: result.added, pieces: result.added.filter((l) => pieceSet.has(l)).length, stopList: uri };
 }
 
 /** A WorkspaceEdit removing `terms` from the open stop list `doc`; null when none is listed. */

@@ -41,6 +41,7 @@ export function assembleReport(p: ReportParts): Report {
     terms: p.termReview.rows,
     suggestions: p.termReview.suggestions,
     suggestionSpellings: p.termReview.spellings,
+    suggestionPieces: p.termReview.pieces,
     verdict: p.termReview.verdict,
     hubs: hubRows(p),
     stopList: { file: p.stopList.file, exists: p.stopList.exists, terms: p.stopList.terms.length, unused: p.stopList.unused },

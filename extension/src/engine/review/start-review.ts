@@ -11,6 +11,7 @@ import { ParallelWhatIf } from '../what-if/parallel-what-if';
 import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights, prestartTokenizing, startTokenizing, unusedEntries } from './prepare-weights';
+import { entriesOfThisTokenizer } from '../terms/contraction-pieces';
 import { loadStopList } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { searchInProcess } from '../terms/corpus-precision';
@@ -129,7 +130,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     settings,
     source,
     prepared,
-    stopList: { ...stopList, unused: unusedEntries(stopList.entries, prepared.seenTerms) },
+    stopList: { ...stopList, unused: unusedEntries(entriesOfThisTokenizer(stopList.entries, tokenize), prepared.seenTerms) },
     baseline,
     termReview,
     sample,

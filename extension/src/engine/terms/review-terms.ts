@@ -15,6 +15,7 @@ import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
 import { priorColumns, protectedColumns, type PriorClass } from './prior-columns';
 import { stopListSpellings } from './stop-list-spelling';
+import { contractionPieces, piecesCompleted } from './contraction-pieces';
 import type { TermCountStats } from './term-count-stats';
 import { pullShares, termScores, type TermScores } from './term-scores';
 
@@ -71,6 +72,8 @@ export interface TermReview {
   suggestions: string[];
   /** Plain spellings for the stop list file, where the tokenizer's differ (stop-list-spelling.ts). */
   spellings: Record<string, string>;
+  /** Pieces of contractions the suggestions complete, for other pipelines' tokens (contraction-pieces.ts). */
+  pieces: Record<string, string[]>;
   /** The measures with the suggestions removed (turnover against the baseline). */
   suggested: DistanceResult;
   /** Share of sampled documents with a clear opinion, and whether that made it opinion text. */
@@ -192,7 +195,11 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const corpus = searchCorpus !== null && accepted.length > 0 ? searchCorpus(baseMask, suggestedMask) : null;
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, useLabels: settings.suggest.useLabels, grammarWords: grammarGroup(accepted, decisions).length });
   const spellings = stopListSpellings(suggestions, tokenize);
-  return { rows, suggestions, spellings, suggested, opinion, suggestedMask, verdict };
+  const pieces = piecesCompleted(contractionPieces(tokenize), new Set(suggestions), (term) => {
+    const c = index.column(term);
+    return c !== undefined && baseMask[c] === 1;
+  });
+  return { rows, suggestions, spellings, pieces, suggested, opinion, suggestedMask, verdict };
 }
 
 /**
