@@ -51,6 +51,17 @@ describe('stop list spelling of suggested terms', function () {
     assert.deepEqual(missed, []);
   });
 
+  it('pattern tokenizer: the prior\'s contraction parts are written as scikit-learn tokens them ("ll" of "we\'ll", not "\'ll")', () => {
+    const pattern = createTokenizer({ ...DEFAULT_SETTINGS.tokens, tokenizer: 'pattern' });
+    const theirs = sklearnTokens(["we'll", "we've", "we're"], { lowercase: true, ngram_range: [1, 1] });
+    assert.deepEqual(theirs, [['we', 'll'], ['we', 've'], ['we', 're']]);
+    const spellings = stopListSpellings(['ll', 've', 're'], pattern);
+    for (const term of ['ll', 've', 're']) {
+      assert.equal(stopListLine({ suggestionSpellings: spellings }, term), term);
+      assert.deepEqual(pattern(term), [term], 'the line stops the term in the review too');
+    }
+  });
+
   it('startReview, stemming on: a corpus where "because" is in every document suggests "becaus", written "because"; that line stops it', async () => {
     const docs = Array.from({ length: 40 }, (_, i) => `rested because the ${['gate', 'field', 'wood', 'town'][i % 4]} number ${i}`);
     const text = docs.map((t) => JSON.stringify({ text: t })).join('\n') + '\n';

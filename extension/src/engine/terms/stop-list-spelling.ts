@@ -14,7 +14,9 @@ export function stopListSpellings(suggestions: readonly string[], tokenize: (tex
   const out: Record<string, string> = {};
   for (const term of suggestions) {
     const word = forms.get(term)?.word;
-    if (word !== undefined && word !== term) out[term] = word;
+    // Not a contraction's part: with the pattern tokenizer the prior's "'ll" is the term "ll",
+    // which is what scikit-learn's tokens are too; "'ll" would match none of them.
+    if (word !== undefined && word !== term && !word.includes("'")) out[term] = word;
   }
   return out;
 }
