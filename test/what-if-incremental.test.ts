@@ -277,6 +277,81 @@ describe('incremental what-if', () => {
     }
   });
 
+  it("IncrementalTermSums: a click's entries and its choice between gather and scatter, from counts it keeps, are those counted afresh after restores, full passes, several terms at once and a twin's state", () => {
+    // Each click weighs the entries of the toggled term's rows against those of the other kept
+    // columns (GATHER_BELOW = 2); the state keeps the latter across single toggles instead of
+    // counting them on every click, so after any other move of the mask it must count them again.
+    for (let seed = 1; seed <= 3; seed++) {
+      const random = generator(900 + seed);
+      const X = textLikeRows(400, 60, random);
+      const columnLength = new Uint32Array(X.cols);
+      const rowsOf: number[][] = Array.from({ length: X.cols }, () => []);
+      for (let r = 0; r < X.rows; r++) {
+        for (let p = X.indptr[r]!; p < X.indptr[r + 1]!; p++) {
+          columnLength[X.indices[p]!]++;
+          rowsOf[X.indices[p]!]!.push(r);
+        }
+      }
+      const sums = new IncrementalTermSums(X);
+      const twin = sums.twin();
+      const opening = new Uint8Array(X.cols);
+      for (let t = 3; t < X.cols; t += 11) opening[t] = 1;
+      sums.at(opening, false);
+      let mask = opening.slice();
+      let state = mask.slice();
+      let checked = 0;
+      let gathered = 0;
+      for (let step = 0; step < 120; step++) {
+        const u = random();
+        const next = mask.slice();
+        if (u < 0.08) {
+          sums.at(opening);
+          state = opening.slice();
+          mask = opening.slice();
+          continue;
+        }
+        if (u < 0.14) {
+          for (let n = 0; n < 3; n++) next[Math.floor(random() * X.cols)] ^= 1;
+        } else if (u < 0.2) {
+          next[Math.floor(random() * X.cols)] ^= 1;
+          sums.at(next, false);
+          state = next.slice();
+          mask = next;
+          continue;
+        } else if (u < 0.26) {
+          twin.copyFrom(sums);
+          next[Math.floor(random() * X.cols)] ^= 1;
+          twin.at(next);
+          sums.copyFrom(twin);
+          state = next.slice();
+          mask = next;
+          continue;
+        } else {
+          const t = Math.min(X.cols - 1, Math.floor(X.cols * random() * random()));
+          next[t] ^= 1;
+          let kept = 0;
+          for (let c = 0; c < X.cols; c++) if (state[c] === 0 && c !== t) kept += columnLength[c]!;
+          let entries = 0;
+          for (const r of rowsOf[t]!) entries += X.indptr[r + 1]! - X.indptr[r]!;
+          sums.at(next);
+          if (sums.lastStep.kind === 'incremental') {
+            assert.equal(sums.lastStep.entries, entries, `step ${step}, term ${t}`);
+            assert.equal(sums.lastStep.gathered, kept < 2 * entries, `step ${step}, term ${t}: ${kept} kept entries against ${entries}`);
+            checked++;
+            if (sums.lastStep.gathered === true) gathered++;
+          }
+          state = next.slice();
+          mask = next;
+          continue;
+        }
+        sums.at(next);
+        state = next.slice();
+        mask = next;
+      }
+      assert.ok(checked > 40 && gathered > 5 && checked - gathered > 5, `${checked} single toggles, ${gathered} gathered`);
+    }
+  });
+
   it('settle() between clicks (idle time) gives the answers a click that does the due reset itself gives, bit for bit', () => {
     for (let seed = 1; seed <= 2; seed++) {
       const random = generator(3000 + seed);

@@ -5,9 +5,14 @@
 // toggles included; the cold figures (no warm-up: the first clicks run unoptimised code) come
 // from a second process with --cold, run first and printed as `cold`.
 //
+// Each run of clicks also prints a hash of its answers (every number's bits, NaN and −0 included),
+// so that an A/B of the what-if shows its answers stayed the same bits; the two-thread and the
+// one-thread clicks answer alike, so their hashes are equal too.
+//
 // usage: node --import tsx test/bench/what-if-latency.ts FILE.csv [--text text] [--label topic] [--toggles 9]
 //                                                         [--cold | --no-cold] [--pause 300]
 import { spawnSync } from 'node:child_process';
+import { createHash, type Hash } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import { resolve } from 'node:path';
 import type { ReviewInput, ReviewHooks, ReviewSession } from '../../extension/src/engine/review/review-api';
@@ -17,6 +22,26 @@ type StartReview = (input: ReviewInput, hooks: ReviewHooks) => Promise<ReviewSes
 function option(args: string[], name: string, fallback: string): string {
   const i = args.indexOf(name);
   return i >= 0 && i + 1 < args.length ? (args[i + 1] as string) : fallback;
+}
+
+/** Adds `value` to `hash` with every number as its 8 bytes (JSON would lose NaN and −0). */
+function hashValue(hash: Hash, value: unknown): void {
+  const bits = new Float64Array(1);
+  const walk = (v: unknown): void => {
+    if (typeof v === 'number') {
+      bits[0] = v;
+      hash.update(new Uint8Array(bits.buffer));
+    } else if (Array.isArray(v)) {
+      hash.update(`[${v.length}`);
+      for (const x of v) walk(x);
+    } else if (v !== null && typeof v === 'object') {
+      for (const [k, x] of Object.entries(v)) {
+        hash.update(`{${k}`);
+        walk(x);
+      }
+    } else hash.update(`${String(v)};`);
+  };
+  walk(value);
 }
 
 function median(values: number[]): number {
@@ -63,10 +88,11 @@ async function main(): Promise<void> {
   // The panel opens with the suggestions ticked and a click ticks or unticks one term, so each
   // call differs from the one before by one term: every other click is kept, the others undone.
   const flip = (terms: string[], term: string) => (terms.includes(term) ? terms.filter((t) => t !== term) : [...terms, term]);
-  async function clicks(): Promise<{ on: number[]; off: number[]; onCpu: number[] }> {
+  async function clicks(): Promise<{ on: number[]; off: number[]; onCpu: number[]; hash: string }> {
     const on: number[] = [];
     const off: number[] = [];
     const onCpu: number[] = [];
+    const answers = createHash('sha256');
     let selection = [...session.report.suggestions];
     for (let i = 0; i < toggles; i++) {
       const term = candidates[i % candidates.length] as string;
@@ -74,21 +100,23 @@ async function main(): Promise<void> {
       await idle();
       let t = performance.now();
       const cpu = process.cpuUsage();
-      await session.whatIf(next);
+      const answer = await session.whatIf(next);
       on.push(performance.now() - t);
       onCpu.push(cpuMs(cpu));
+      hashValue(answers, answer);
       if (i % 2 === 0) {
         selection = next;
       } else {
         await idle();
         t = performance.now();
-        await session.whatIf(selection);
+        const back = await session.whatIf(selection);
         off.push(performance.now() - t);
+        hashValue(answers, back);
       }
     }
     // Back to the opening state, so the next run of clicks starts where the panel does.
     await session.whatIf(session.report.suggestions);
-    return { on, off, onCpu };
+    return { on, off, onCpu, hash: answers.digest('hex').slice(0, 16) };
   }
   // As the editor's review worker does: the idle-time preparation after the Report (the column
   // postings, the sample's what-if thread with its opening build, the warm-up), then the clicks. Once
@@ -125,11 +153,12 @@ async function main(): Promise<void> {
       medianMs: median(two.on),
       medianBackMs: median(two.off),
       medianCpuMs: median(two.onCpu),
+      hash: two.hash,
       firstMs: two.on[0],
       onMs: two.on,
       offMs: two.off,
       ...(adoptMs.length > 0 ? { prefetched: { medianPrefetchMs: median(prefetchMs), medianClickMs: median(adoptMs), prefetchMs, clickMs: adoptMs } } : {}),
-      oneThread: { medianMs: median(one.on), medianBackMs: median(one.off), medianCpuMs: median(one.onCpu), onMs: one.on },
+      oneThread: { medianMs: median(one.on), medianBackMs: median(one.off), medianCpuMs: median(one.onCpu), hash: one.hash, onMs: one.on },
       warmUp: !cold,
       ...(coldRun === null ? {} : { cold: coldRun }),
     }),

@@ -40,6 +40,12 @@ export class IncrementalTermSums {
   /** Entries visited by incremental updates since the last full pass. */
   private updatedEntries = 0;
   /**
+   * The entries of the columns `mask` keeps (Σ of their postings), kept by updateOne as it flips
+   * one column; −1 when unknown (any other change of the mask), then counted afresh. Only
+   * updateOne's choice between gather and scatter reads it: it changes the time, never the bits.
+   */
+  private keptEntries = -1;
+  /**
    * States of full passes (the review's baseline and the latest Report figure), restored bit for
    * bit whenever that mask is asked for again.
    */
@@ -96,6 +102,7 @@ export class IncrementalTermSums {
       this.rowNorm2.set(checkpoint.rowNorm2);
       this.rowsWithWeight = checkpoint.rowsWithWeight;
       this.mask.set(checkpoint.mask);
+      this.keptEntries = -1;
       this.updatedEntries = 0;
       this.settleDue = false;
       this.exact = true;
@@ -195,6 +202,7 @@ export class IncrementalTermSums {
     this.sxlogx.set(other.sxlogx);
     this.rowNorm2.set(other.rowNorm2);
     this.mask.set(other.mask);
+    this.keptEntries = other.keptEntries;
     this.rowsWithWeight = other.rowsWithWeight;
     this.ready = other.ready;
     this.updatedEntries = other.updatedEntries;
@@ -235,6 +243,7 @@ export class IncrementalTermSums {
   /** The state's flags after a full pass at `removed`, made here (full) or elsewhere (adopt). */
   private markFullPass(removed: Uint8Array): void {
     this.mask.set(removed.subarray(0, this.mask.length));
+    this.keptEntries = -1;
     this.ready = true;
     this.exact = true;
     this.updatedEntries = 0;
@@ -285,6 +294,7 @@ export class IncrementalTermSums {
       }
     }
     mask.set(removed.subarray(0, mask.length));
+    this.keptEntries = -1;
     this.updatedEntries += entries;
     this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
     this.exact = false;
@@ -316,9 +326,13 @@ export class IncrementalTermSums {
     const stopping = removed[t] !== 0;
     const from = postings.start[t]!;
     const to = postings.start[t + 1]!;
-    const entries = entriesOfRows(this.weights.indptr, postings.rows, from, to);
+    // The entries of t's rows, and those of the kept columns other than t, without a pass over
+    // either (each was ~0.15–0.45 ms of a click's CPU at 100k: docs/performance.md).
+    const entries = postings.rowEntries[t]!;
+    if (this.keptEntries < 0) this.keptEntries = keptColumnEntries(postings.start, mask, -1);
+    const keptOthers = this.keptEntries - (mask[t] === 0 ? to - from : 0);
     const gatherer = postings.gather;
-    const gather = gatherer !== null && keptColumnEntries(postings.start, mask, t) < this.gatherBelow * entries;
+    const gather = gatherer !== null && keptOthers < this.gatherBelow * entries;
     const delta = gather ? null : this.deltaScratch();
     const rowChange = gather ? gatherer!.rowChange : null;
     // The loops live in small functions called many times per click (a block of rows, a block
@@ -339,6 +353,8 @@ export class IncrementalTermSums {
       addDelta(delta!, mask, t, s1, s2);
       delta!.fill(0);
     }
+    // t's state changed (at() calls this for a changed column): its entries leave or join the kept ones.
+    this.keptEntries += stopping ? from - to : to - from;
     mask[t] = stopping ? 1 : 0;
     this.updatedEntries += entries;
     this.settleDue = this.updatedEntries > SETTLE_AFTER * this.weights.indptr[this.weights.rows]!;
@@ -357,15 +373,14 @@ export class IncrementalTermSums {
     // t's weight in each of its rows comes from the column-major copy, in order, so a row's
     // own entries are read only where its other terms move one by one or its norm is summed.
     const { rows, values } = this.columnPostings();
+    // A row's bounds are read only where its own entries are (the gather's rows need none).
     for (let q = from; q < to; q++) {
       const r = rows[q]!;
-      const start = indptr[r]!;
-      const end = indptr[r + 1]!;
-      const wt = values !== null ? values[q]! : data[columnIn(indices, start, end, t)]!;
+      const wt = values !== null ? values[q]! : data[columnIn(indices, indptr[r]!, indptr[r + 1]!, t)]!;
       if (wt === 0) continue;
       const oldNorm2 = rowNorm2[r]!;
       let norm2 = stopping ? oldNorm2 - wt * wt : oldNorm2 + wt * wt;
-      if (stopping && !(norm2 > 0.5 * oldNorm2)) norm2 = keptNorm2(indices, data, start, end, removed);
+      if (stopping && !(norm2 > 0.5 * oldNorm2)) norm2 = keptNorm2(indices, data, indptr[r]!, indptr[r + 1]!, removed);
       rowNorm2[r] = norm2;
       const wasKept = oldNorm2 > 0;
       const isKept = norm2 > 0;
@@ -381,10 +396,10 @@ export class IncrementalTermSums {
           rowChange[2 * r] = d1;
           rowChange[2 * r + 1] = d2;
         } else {
-          scatterRow(indices, data, start, end, d1, d2, delta!);
+          scatterRow(indices, data, indptr[r]!, indptr[r + 1]!, d1, d2, delta!);
         }
       } else {
-        for (let p = start; p < end; p++) {
+        for (let p = indptr[r]!, end = indptr[r + 1]!; p < end; p++) {
           const u = indices[p]!;
           const w = data[p]!;
           if (u !== t && w !== 0 && mask[u] === 0) this.move(u, w, wasKept, isKept, invOld, invNew);
@@ -475,15 +490,21 @@ export class IncrementalTermSums {
     gather?.start.set(start);
     const rowIds = gather?.rowIds ?? new Uint32Array(nnz);
     const values = gather?.values ?? null;
+    // Per column, the entries of the rows that hold it (at most nnz, so within 32 bits).
+    const rowEntries = new Uint32Array(cols);
     for (let r = 0; r < rows; r++) {
-      for (let p = indptr[r]!, end = indptr[r + 1]!; p < end; p++) {
-        const slot = fill[indices[p]!]!++;
+      const end = indptr[r + 1]!;
+      const length = end - indptr[r]!;
+      for (let p = indptr[r]!; p < end; p++) {
+        const u = indices[p]!;
+        const slot = fill[u]!++;
         rowIds[slot] = r;
         if (values !== null) values[slot] = data[p]!;
+        rowEntries[u] += length;
       }
     }
     gather?.divide();
-    this.postings = { start: gather?.start ?? start, rows: rowIds, values, gather };
+    this.postings = { start: gather?.start ?? start, rows: rowIds, values, gather, rowEntries };
     return this.postings;
   }
 }
@@ -496,6 +517,8 @@ interface ColumnPostings {
   values: Float64Array | null;
   /** The gather over these arrays (they live in its shared memory), with its per-row scratch; null without weights. */
   gather: SharedColumnGather | null;
+  /** Per column, the entries of the rows that hold it (Σ of their lengths): what a click on it visits. */
+  rowEntries: Uint32Array;
 }
 
 /**
@@ -526,17 +549,7 @@ const REBUILD_AFTER = 16;
 /** Rows of the toggled term per rescaleRows call (and between interrupt checks). */
 const RESCALE_BLOCK = 64;
 
-/** Entries of the rows listed in rows[from..to). */
-function entriesOfRows(indptr: Uint32Array, rows: Uint32Array, from: number, to: number): number {
-  let entries = 0;
-  for (let q = from; q < to; q++) {
-    const r = rows[q]!;
-    entries += indptr[r + 1]! - indptr[r]!;
-  }
-  return entries;
-}
-
-/** Entries of the columns kept by `mask`, t excepted. */
+/** Entries of the columns kept by `mask`, t excepted (−1: none excepted). */
 function keptColumnEntries(start: Uint32Array, mask: Uint8Array, t: number): number {
   let entries = 0;
   for (let u = 0, cols = mask.length; u < cols; u++) if (mask[u] === 0 && u !== t) entries += start[u + 1]! - start[u]!;
