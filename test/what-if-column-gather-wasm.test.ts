@@ -4,6 +4,8 @@
 // columns with empty, one-entry and full ones, columns equal to each other, weights and factors of
 // every sign with zeros, −0, tiny and huge values, infinities and NaN, in one block and in many;
 // then on a corpus's clicks through IncrementalTermSums (the gather on and off the WebAssembly).
+// Either side also adds the sums straight into S1 and S2 when they live in the gather's memory
+// (SharedColumnGather.claimSums): the same bytes as the sums added after the gather.
 // The TypeScript is held to a full pass in test/what-if-shared-column-gather.test.ts.
 import { strict as assert } from 'node:assert';
 import type { Csr } from '../extension/src/engine/matrix/csr';
@@ -84,7 +86,14 @@ function bothGathers(seed: number, rows: number, cols: number, special: number, 
     const s1 = new Float64Array(cols).fill(-0);
     const s2 = new Float64Array(cols).fill(-0);
     gather.gather(t, input.mask, s1, s2);
-    return { out: Buffer.from(bytes(new Float64Array(buffers.buffer, layout.out, 2 * cols))), s1, s2, blocks: buffers.blocks };
+    const out = Buffer.from(bytes(new Float64Array(buffers.buffer, layout.out, 2 * cols)));
+    // The same click into sums in the gather's memory, added to as each column ends.
+    const place = gather.claimSums();
+    assert.ok(place !== null, 'a place for sums');
+    place.s1.fill(-0);
+    place.s2.fill(-0);
+    gather.gather(t, input.mask, place.s1, place.s2);
+    return { out, s1, s2, direct: { s1: place.s1.slice(), s2: place.s2.slice() }, blocks: buffers.blocks };
   };
   return { js: run(false), wasm: run(true), input };
 }
@@ -105,6 +114,10 @@ function assertSame(js: ReturnType<typeof bothGathers>['js'], wasm: ReturnType<t
   assert.ok(canonicalBytes(floats(js.out)).equals(canonicalBytes(floats(wasm.out))), `${what}: out`);
   assert.ok(canonicalBytes(js.s1).equals(canonicalBytes(wasm.s1)), `${what}: s1`);
   assert.ok(canonicalBytes(js.s2).equals(canonicalBytes(wasm.s2)), `${what}: s2`);
+  for (const [side, name] of [[js, 'TypeScript'], [wasm, 'WebAssembly']] as const) {
+    assert.ok(canonicalBytes(side.direct.s1).equals(canonicalBytes(side.s1)), `${what}: s1 added as the columns end (${name})`);
+    assert.ok(canonicalBytes(side.direct.s2).equals(canonicalBytes(side.s2)), `${what}: s2 added as the columns end (${name})`);
+  }
 }
 
 describe('what-if/column-gather-wasm', () => {

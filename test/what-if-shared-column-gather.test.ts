@@ -11,7 +11,7 @@ import type { Csr } from '../extension/src/engine/matrix/csr';
 import { maskedTermSums } from '../extension/src/engine/measures/masked-term-sums';
 import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { IncrementalTermSums } from '../extension/src/engine/what-if/incremental-term-sums';
-import { SharedColumnGather } from '../extension/src/engine/what-if/shared-column-gather';
+import { GatherFailed, SharedColumnGather } from '../extension/src/engine/what-if/shared-column-gather';
 import { textLikeRows } from './support/text-like-rows';
 
 /** Text-like rows with column 0 in every row but a few (a function word: its clicks gather). */
@@ -98,6 +98,53 @@ describe('what-if/shared-column-gather', () => {
       assert.ok(gathered > blocks, `the helper gathered only ${gathered} blocks in all`);
       assert.equal(helper.helped, gathered, 'the shared count of blocks the helper gathered');
     }
+  });
+
+  it("a helper's block that fails in a gather adding to the sums as it goes: the owner throws rather than gather twice, and the state is made afresh by a full pass, every later click as from that pass", () => {
+    const X = rowsWithFunctionWord(24);
+    const failing = (buffers: ReturnType<IncrementalTermSums['gatherBuffers']>) => {
+      const helper = SharedColumnGather.from(buffers!);
+      // The helper's blocks throw once claimed (as a bug in them would), after adding nothing.
+      (helper as unknown as { block: () => void }).block = () => {
+        throw new Error('a failing block');
+      };
+      return helper;
+    };
+    // The gather alone, into sums in its memory.
+    const mask = new Uint8Array(X.cols);
+    mask[3] = 1;
+    const other = new IncrementalTermSums(X, Infinity);
+    other.at(mask, false);
+    const owner = SharedColumnGather.create(X.rows, X.cols, other.gatherBuffers()!.nnz);
+    const source = SharedColumnGather.from(other.gatherBuffers()!);
+    owner.start.set(source.start);
+    owner.rowIds.set(source.rowIds);
+    owner.values.set(source.values);
+    owner.divide();
+    owner.rowChange.fill(0.5);
+    const place = owner.claimSums()!;
+    const helper = failing(owner.buffers);
+    let helped = -1;
+    assert.throws(
+      () => owner.gather(0, mask, place.s1, place.s2, 1, () => void (helped < 0 && owner.opened === 1 ? (helped = helper.help(1, 0)) : 0)),
+      (e: unknown) => e instanceof GatherFailed,
+    );
+    assert.equal(helped, 0, 'the helper gathered no block');
+    // Through the state: the click's sums are a full pass's at its mask (a plain state that made
+    // that pass agrees to the bit), and the clicks after it answer as from that pass.
+    const sums = new IncrementalTermSums(X, Infinity);
+    sums.at(mask, false);
+    const stateHelper = failing(sums.gatherBuffers());
+    let tried = false;
+    mask[0] = 1;
+    const got = copyOf(sums.at(mask, true, () => void (!tried && stateHelper.opened === 7 ? ((tried = true), stateHelper.help(7, 0)) : 0), 7));
+    assert.ok(tried, 'the helper came');
+    assert.equal(sums.lastStep.kind, 'full');
+    const plain = new IncrementalTermSums(X, Infinity);
+    assert.deepStrictEqual(got, copyOf(plain.at(mask, false)));
+    mask[1] = 1;
+    assert.deepStrictEqual(copyOf(sums.at(mask)), copyOf(plain.at(mask)));
+    assert.equal(sums.lastStep.gathered, true);
   });
 
   it('a helper waiting for a gather that is passed over (the click did not gather) stops at once, and claims nothing of it', () => {

@@ -8,7 +8,8 @@
 ;; Arrays are byte offsets into the one memory the gathering threads share (each thread has its own
 ;; instance, so its own globals): start (u32, cols + 1), rowIds (u32, one per non-zero), values (f64,
 ;; the same order), rowChange (f64, two per row side by side), mask (u8, one per column), out (f64,
-;; two per column side by side).
+;; two per column side by side); and, given to each gather, the sums S1 and S2 (f64, one per column
+;; each) when they live in the same memory.
 (module
   (import "env" "memory" (memory 1 65536 shared))
 
@@ -28,12 +29,15 @@
     (global.set $out (local.get $out)))
 
   ;; For the kept columns u ≠ t in [from, to): a = Σ w·rowChange[2r], b = Σ (w·w)·rowChange[2r + 1]
-  ;; over the column's postings in order, each from +0, into out[2u] and out[2u + 1]. The arrays'
+  ;; over the column's postings in order, each from +0, into out[2u] and out[2u + 1], or, with $s1
+  ;; non-zero, added to the sums there: S1[u] = S1[u] + a and S2[u] = S2[u] + b (the owner's add
+  ;; after the gather, made as each column ends, with no pass over out; the same two additions,
+  ;; so the same bits). The arrays'
   ;; offsets are read into locals once and a column's postings walked by two pointers: V8 loads a
   ;; global from the instance at every global.get, also inside a loop, and three globals a posting
   ;; with each posting's addresses worked out from its index cost ~16% of the gather's CPU
   ;; (docs/performance.md, "What-if: globals out of the hot loops").
-  (func (export "gather") (param $t i32) (param $from i32) (param $to i32)
+  (func (export "gather") (param $t i32) (param $from i32) (param $to i32) (param $s1 i32) (param $s2 i32)
     (local $u i32) (local $c i32) (local $id i32) (local $idEnd i32) (local $v i32)
     (local $a f64) (local $b f64) (local $w f64)
     (local $start i32) (local $rowIds i32) (local $values i32) (local $rowChange i32) (local $mask i32) (local $out i32)
@@ -68,9 +72,16 @@
                 (local.set $id (i32.add (local.get $id) (i32.const 4)))
                 (local.set $v (i32.add (local.get $v) (i32.const 8)))
                 (br $entry)))
-            (local.set $c (i32.add (local.get $out) (i32.shl (local.get $u) (i32.const 4))))
-            (f64.store (local.get $c) (local.get $a))
-            (f64.store offset=8 (local.get $c) (local.get $b))))
+            (if (local.get $s1)
+              (then
+                (local.set $c (i32.add (local.get $s1) (i32.shl (local.get $u) (i32.const 3))))
+                (f64.store (local.get $c) (f64.add (f64.load (local.get $c)) (local.get $a)))
+                (local.set $c (i32.add (local.get $s2) (i32.shl (local.get $u) (i32.const 3))))
+                (f64.store (local.get $c) (f64.add (f64.load (local.get $c)) (local.get $b))))
+              (else
+                (local.set $c (i32.add (local.get $out) (i32.shl (local.get $u) (i32.const 4))))
+                (f64.store (local.get $c) (local.get $a))
+                (f64.store offset=8 (local.get $c) (local.get $b))))))
         (local.set $u (i32.add (local.get $u) (i32.const 1)))
         (br $column))))
 )

@@ -1,6 +1,6 @@
 import type { Csr } from '../matrix/csr';
 import { addKeptRow, type MaskedTermSums } from '../measures/masked-term-sums';
-import { SharedColumnGather, type SharedColumnGatherBuffers } from './shared-column-gather';
+import { GatherFailed, SharedColumnGather, type SharedColumnGatherBuffers } from './shared-column-gather';
 
 /**
  * The exact term sums of a what-if (S1, S2, df over every document, each row renormalised after
@@ -23,8 +23,9 @@ import { SharedColumnGather, type SharedColumnGatherBuffers } from './shared-col
  * The arrays returned by `at` are the live state: valid until the next call, never to be kept.
  */
 export class IncrementalTermSums {
-  private readonly s1: Float64Array;
-  private readonly s2: Float64Array;
+  /** S1 and S2: arrays of their own, moved into the gather's memory once it is made (sumsInto). */
+  private s1: Float64Array;
+  private s2: Float64Array;
   private readonly df: Uint32Array;
   /** Always zeros: no what-if measure reads the spread (the term table takes it from its own pass); kept for the TermSums shape. */
   private readonly sxlogx: Float64Array;
@@ -185,6 +186,7 @@ export class IncrementalTermSums {
   twin(): IncrementalTermSums {
     const twin = new IncrementalTermSums(this.weights, this.gatherBelow, this.columnWeightsUpTo, this.webAssembly);
     twin.postings = this.columnPostings();
+    if (twin.postings.gather !== null) twin.sumsInto(twin.postings.gather);
     twin.checkpoints = this.checkpoints;
     return twin;
   }
@@ -316,13 +318,15 @@ export class IncrementalTermSums {
    * entries than t's rows (t in most rows, as a function word is), term by term down the
    * column-major copy, gathering each row's
    * two factors (`rowChange`, 0 for the rows not rescaled, whose +0 leaves a sum as it is; the
-   * columns in blocks another thread may share, SharedColumnGather, each column alone). The
+   * columns in blocks another thread may share, SharedColumnGather, each column alone, its two
+   * sums added to S1 and S2 as it ends, which live in the gather's memory for that). The
    * scatter lands each entry at a random place in a 16-bytes-per-term array; the gather reads the
    * weights in order and only the per-row factors at random, and it skips the stopped columns.
    */
   private updateOne(t: number, removed: Uint8Array, interrupt?: () => void, ticket?: number): void {
-    const { s1, s2, mask } = this;
+    // The postings first: making them moves S1 and S2 into the gather's memory.
     const postings = this.columnPostings();
+    const { s1, s2, mask } = this;
     const stopping = removed[t] !== 0;
     const from = postings.start[t]!;
     const to = postings.start[t + 1]!;
@@ -347,7 +351,16 @@ export class IncrementalTermSums {
     }
     if (rowChange !== null) {
       const check = interrupt === undefined ? undefined : () => this.interrupted(interrupt);
-      gatherer!.gather(t, mask, s1, s2, ticket, check);
+      try {
+        gatherer!.gather(t, mask, s1, s2, ticket, check);
+      } catch (e) {
+        if (!(e instanceof GatherFailed)) throw e;
+        // A helper's block failed part way through sums it adds to as it goes: they cannot be
+        // gathered again, so the state is made afresh at `removed` (a full pass's bits).
+        clearRowChange(rowChange, postings.rows, from, to);
+        this.full(removed);
+        return;
+      }
       clearRowChange(rowChange, postings.rows, from, to);
     } else {
       addDelta(delta!, mask, t, s1, s2);
@@ -505,7 +518,23 @@ export class IncrementalTermSums {
     }
     gather?.divide();
     this.postings = { start: gather?.start ?? start, rows: rowIds, values, gather, rowEntries };
+    if (gather !== null) this.sumsInto(gather);
     return this.postings;
+  }
+
+  /**
+   * Moves S1 and S2 into one of the gather's places for sums (their values copied), so that a
+   * click's gather adds each column's change to them as the column ends instead of in a pass of
+   * its own after it (SharedColumnGather.gather); where both places are taken they stay where
+   * they are (the gather then adds them after it, the same bits).
+   */
+  private sumsInto(gather: SharedColumnGather): void {
+    const place = gather.claimSums();
+    if (place === null) return;
+    place.s1.set(this.s1);
+    place.s2.set(this.s2);
+    this.s1 = place.s1;
+    this.s2 = place.s2;
   }
 }
 

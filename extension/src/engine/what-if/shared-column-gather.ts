@@ -42,6 +42,12 @@ export interface GatherLayout {
   mask: number;
   /** Per column, the gathered Σ w·Δinv and Σ w²·Δ(1/norm²) side by side (Float64, 2 per column). */
   out: number;
+  /**
+   * Room for two states' sums (IncrementalTermSums and its twin): S1 then S2 of the first, S1 then
+   * S2 of the second (Float64, cols each), so that a gather adds its columns' changes to them as
+   * each column ends (SharedColumnGather.claimSums).
+   */
+  sums: number;
   bytes: number;
 }
 
@@ -56,12 +62,27 @@ export function gatherLayout(rows: number, cols: number, nnz: number, blocks: nu
   const rowChange = take(8 * 2 * rows);
   const mask = take(cols);
   const out = take(8 * 2 * cols);
-  return { start, rowIds, values, blockStart, rowChange, mask, out, bytes: lines.bytes };
+  const sums = take(8 * SUMS_PLACES * 2 * cols);
+  return { start, rowIds, values, blockStart, rowChange, mask, out, sums, bytes: lines.bytes };
 }
 
 interface ColumnGatherExports {
   layout(start: number, rowIds: number, values: number, rowChange: number, mask: number, out: number): void;
-  gather(t: number, from: number, to: number): void;
+  gather(t: number, from: number, to: number, s1: number, s2: number): void;
+}
+
+/** How many states' sums the memory has room for (gatherLayout's `sums`): a state and its twin. */
+const SUMS_PLACES = 2;
+
+/**
+ * Thrown by SharedColumnGather.gather when a helper's block failed in a gather that adds to the
+ * sums as it goes: the columns that block had added cannot be told from the others, so it cannot be
+ * gathered again (IncrementalTermSums then makes a full pass).
+ */
+export class GatherFailed extends Error {
+  constructor() {
+    super('SharedColumnGather: a helper failed on a block whose columns it may have added to the sums part way');
+  }
 }
 
 // Slots of the control array.
@@ -77,7 +98,10 @@ const TERM = 3;
 const FAILED = 4;
 /** Blocks the helper has gathered, over every gather (for the tests and the benchmark). */
 const HELPED = 5;
-const CONTROL_SLOTS = 6;
+/** The byte offsets of the open gather's S1 and S2 in the memory, or 0: its sums go to `out`. */
+const S1 = 6;
+const S2 = 7;
+const CONTROL_SLOTS = 8;
 
 /**
  * Blocks of columns a gather is claimed in. The bounds are set by entries (each block holds about
@@ -93,9 +117,10 @@ const GATHER_BLOCKS = 64;
  * row order, is a function of that column's run of the column-major copy and the per-row factors
  * alone. So the owner (the review's thread) writes the factors, opens the gather under a ticket,
  * and it and a helper (the what-if's sample thread, once its own half is done) claim blocks of
- * columns from a counter in shared memory until none is left; each column's two sums are written
- * to its own slots, and the owner adds them to S1 and S2 in column order once every claimed block
- * is done. Whoever gathered a column, its sums are the same bits, and the same as one thread
+ * columns from a counter in shared memory until none is left; each column's two sums are added to
+ * its S1 and S2 as the column ends where those live in this memory (claimSums), else written to its
+ * own slots and added by the owner in column order once every claimed block is done (each column's
+ * two additions either way). Whoever gathered a column, its sums are the same bits, and the same as one thread
  * gathering every block (gather without a ticket), which is what the one-thread what-if does.
  * Claims work as in SharedRowSweep: a compare-and-swap on one word holding the ticket and the next
  * block, so a helper late for its gather can never claim a block of the next one.
@@ -117,6 +142,8 @@ export class SharedColumnGather {
   private readonly control: Int32Array;
   /** This thread's instance of the WebAssembly gather over `buffers.memory` (null: JavaScript; undefined: not yet made). */
   private wasm: ColumnGatherExports | null | undefined;
+  /** The places for sums handed out so far (claimSums). */
+  private sumsClaimed = 0;
 
   private constructor(readonly buffers: SharedColumnGatherBuffers) {
     const { rows, cols, nnz, blocks, buffer } = buffers;
@@ -155,6 +182,17 @@ export class SharedColumnGather {
     return this.exports() !== null;
   }
 
+  /**
+   * The next of the memory's places for a state's S1 and S2 (zeros), or null when both are taken:
+   * sums kept there are added to by the gather itself, column by column (see gather).
+   */
+  claimSums(): { s1: Float64Array; s2: Float64Array } | null {
+    if (this.sumsClaimed >= SUMS_PLACES) return null;
+    const { rows, cols, nnz, blocks, buffer } = this.buffers;
+    const at = gatherLayout(rows, cols, nnz, blocks).sums + 8 * 2 * cols * this.sumsClaimed++;
+    return { s1: new Float64Array(buffer, at, cols), s2: new Float64Array(buffer, at + 8 * cols, cols) };
+  }
+
   /** Sets the blocks' column bounds from the filled `start`: about equal numbers of entries. */
   divide(): void {
     const { start, blockStart, blocks } = this;
@@ -185,19 +223,29 @@ export class SharedColumnGather {
    * the blocks are shared with a helper (help); without one this thread gathers them all. The
    * sums are the same bits either way. `interrupt` is called before each block claimed here; when
    * it throws, no block is claimed any more and the throw goes on once the helper's block is done.
+   * Where s1 and s2 are one of the memory's places (claimSums), each column's change is added to
+   * them as the column ends, by whichever thread gathered it (no pass over `out` after the gather:
+   * ~0.5 ms of a 100k click, docs/performance.md); a helper's block that failed then throws
+   * GatherFailed, as those sums cannot be gathered again. Else the changes go to `out` and are
+   * added here once every block is done, in column order: the same two additions a column.
    */
   gather(t: number, mask: Uint8Array, s1: Float64Array, s2: Float64Array, ticket?: number, interrupt?: () => void): void {
     const { control, blocks } = this;
     this.mask.set(mask.subarray(0, this.mask.length));
+    const direct = this.holds(s1) && this.holds(s2);
+    const s1At = direct ? s1.byteOffset : 0;
+    const s2At = direct ? s2.byteOffset : 0;
     if (ticket === undefined) {
       for (let b = 0; b < blocks; b++) {
         interrupt?.();
-        this.block(b, t);
+        this.block(b, t, s1At, s2At);
       }
     } else {
       Atomics.store(control, DONE, 0);
       Atomics.store(control, FAILED, 0);
       Atomics.store(control, TERM, t);
+      Atomics.store(control, S1, s1At);
+      Atomics.store(control, S2, s2At);
       Atomics.store(control, CLAIM, claimWord(ticket, 0));
       Atomics.store(control, OPENED, ticket);
       Atomics.notify(control, OPENED);
@@ -206,16 +254,24 @@ export class SharedColumnGather {
           interrupt?.();
           const b = this.claim(ticket);
           if (b < 0) break;
-          this.block(b, t);
+          this.block(b, t, s1At, s2At);
           Atomics.add(control, DONE, 1);
         }
       } finally {
         const claimed = this.close(ticket);
         for (let done = Atomics.load(control, DONE); done < claimed; done = Atomics.load(control, DONE)) Atomics.wait(control, DONE, done, 1000);
       }
-      if (Atomics.load(control, FAILED) !== 0) for (let b = 0; b < blocks; b++) this.block(b, t);
+      if (Atomics.load(control, FAILED) !== 0) {
+        if (direct) throw new GatherFailed();
+        for (let b = 0; b < blocks; b++) this.block(b, t, 0, 0);
+      }
     }
-    addColumnChanges(this.out, this.mask, t, s1, s2);
+    if (!direct) addColumnChanges(this.out, this.mask, t, s1, s2);
+  }
+
+  /** Whether `a` is an array of this gather's memory (then one of its places for sums, claimSums). */
+  private holds(a: Float64Array): boolean {
+    return a.buffer === this.buffers.buffer && a.length === this.buffers.cols;
   }
 
   /**
@@ -248,7 +304,7 @@ export class SharedColumnGather {
     for (let b = this.claim(ticket); b >= 0; b = this.claim(ticket)) {
       try {
         // Read only once a block is claimed: until then the owner may still be writing it.
-        this.block(b, Atomics.load(control, TERM));
+        this.block(b, Atomics.load(control, TERM), Atomics.load(control, S1), Atomics.load(control, S2));
         gathered++;
       } catch {
         Atomics.store(control, FAILED, 1);
@@ -261,10 +317,15 @@ export class SharedColumnGather {
     return gathered;
   }
 
-  private block(b: number, t: number): void {
+  /** Block b's columns of the click on t; s1At and s2At as in the control slots (0: into `out`). */
+  private block(b: number, t: number, s1At: number, s2At: number): void {
     const wasm = this.exports();
-    if (wasm !== null) wasm.gather(t, this.blockStart[b]!, this.blockStart[b + 1]!);
-    else gatherColumnChanges(this.start, this.rowIds, this.values, this.rowChange, this.mask, t, this.out, this.blockStart[b]!, this.blockStart[b + 1]!);
+    if (wasm !== null) wasm.gather(t, this.blockStart[b]!, this.blockStart[b + 1]!, s1At, s2At);
+    else {
+      const { buffer, cols } = this.buffers;
+      const sums = s1At === 0 ? null : { s1: new Float64Array(buffer, s1At, cols), s2: new Float64Array(buffer, s2At, cols) };
+      gatherColumnChanges(this.start, this.rowIds, this.values, this.rowChange, this.mask, t, this.out, this.blockStart[b]!, this.blockStart[b + 1]!, sums);
+    }
   }
 
   /** This thread's WebAssembly gather over the shared memory, made at its first use; null where there is none. */
@@ -296,10 +357,11 @@ export class SharedColumnGather {
 
 /**
  * For the kept columns u ≠ t in [from, to): Σ w·Δinv and Σ w²·Δ(1/norm²) down the column, rows
- * ascending, into out[2u] and out[2u + 1]. column-gather.wat does the same, operation for
- * operation: a change here is made there too (test/what-if-column-gather-wasm.test.ts).
+ * ascending, into out[2u] and out[2u + 1], or with `sums` added to sums.s1[u] and sums.s2[u].
+ * column-gather.wat does the same, operation for operation: a change here is made there too
+ * (test/what-if-column-gather-wasm.test.ts).
  */
-function gatherColumnChanges(start: Uint32Array, rows: Uint32Array, values: Float64Array, rowChange: Float64Array, mask: Uint8Array, t: number, out: Float64Array, from: number, to: number): void {
+function gatherColumnChanges(start: Uint32Array, rows: Uint32Array, values: Float64Array, rowChange: Float64Array, mask: Uint8Array, t: number, out: Float64Array, from: number, to: number, sums: { s1: Float64Array; s2: Float64Array } | null = null): void {
   for (let u = from; u < to; u++) {
     if (mask[u] !== 0 || u === t) continue;
     let a = 0;
@@ -310,8 +372,13 @@ function gatherColumnChanges(start: Uint32Array, rows: Uint32Array, values: Floa
       a += w * rowChange[c]!;
       b += w * w * rowChange[c + 1]!;
     }
-    out[2 * u] = a;
-    out[2 * u + 1] = b;
+    if (sums !== null) {
+      sums.s1[u] += a;
+      sums.s2[u] += b;
+    } else {
+      out[2 * u] = a;
+      out[2 * u + 1] = b;
+    }
   }
 }
 
