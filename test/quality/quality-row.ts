@@ -57,7 +57,8 @@ export async function qualityRow(corpus: DevCorpus, dir: string, configPath: str
     role: corpus.role,
     documents: docs.length,
     ...p,
-    suggested: suggestions.length,
+    // Terms, not lines: the lines add the pieces of contractions (stop-list-spelling.ts).
+    suggested: report.suggestions.length,
     seconds,
     outcome: report.verdict?.outcome ?? '—',
   };
