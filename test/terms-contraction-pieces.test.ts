@@ -41,13 +41,16 @@ describe('terms/contraction-pieces', () => {
 
   it('a piece is written only when the suggestions complete it: all its words stopped then, one of them suggested', () => {
     const pieces = new Map([['don', ['do', 'not']], ['ll', ['will']]]);
-    assert.deepEqual(piecesCompleted(pieces, new Set(['do', 'not', 'the']), () => false), { don: ['do', 'not'] });
+    const noWord = (): boolean => false;
+    assert.deepEqual(piecesCompleted(pieces, new Set(['do', 'not', 'the']), () => false, noWord), { don: ['do', 'not'] });
     // "do" kept: "don't" keeps its "do" in the review's tokens, so scikit-learn's "don" stays.
-    assert.deepEqual(piecesCompleted(pieces, new Set(['not']), () => false), {});
+    assert.deepEqual(piecesCompleted(pieces, new Set(['not']), () => false, noWord), {});
     // "do" already in the stop list: suggesting "not" completes it.
-    assert.deepEqual(piecesCompleted(pieces, new Set(['not']), (t) => t === 'do'), { don: ['not'] });
+    assert.deepEqual(piecesCompleted(pieces, new Set(['not']), (t) => t === 'do', noWord), { don: ['not'] });
     // Both stopped before: nothing for this suggestion to add.
-    assert.deepEqual(piecesCompleted(pieces, new Set(['the']), (t) => t === 'do' || t === 'not' || t === 'will'), {});
+    assert.deepEqual(piecesCompleted(pieces, new Set(['the']), (t) => t === 'do' || t === 'not' || t === 'will', noWord), {});
+    // The corpus uses "don" as a word ("Don Knuth"): the list would stop it too, so no piece.
+    assert.deepEqual(piecesCompleted(pieces, new Set(['do', 'not', 'will']), () => false, (p) => p === 'don'), { ll: ['will'] });
   });
 
   it('a stop list gets the pieces after the suggested terms; adding a part of the suggestions adds the pieces it completes', () => {

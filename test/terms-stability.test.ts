@@ -8,6 +8,7 @@ import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
 import type { Report } from '../extension/src/protocol';
 import { stopListFindings } from '../extension/src/host/pure/stop-list-findings';
+import { suggestionLines } from '../extension/src/engine/terms/stop-list-spelling';
 
 const CORPUS = path.join(__dirname, '..', 'samples', 'support-tickets.csv');
 
@@ -41,9 +42,13 @@ describe('suggestions are self-consistent (demo corpus)', function () {
   });
 
   it('startReview: after applying, the second review suggests nothing new and no added term is flagged', async () => {
-    const list = first.suggestions.join('\n') + '\n';
+    // What `loudword apply` writes: the terms, then the pieces of contractions ("isn" for "is" + "not").
+    const list = suggestionLines(first).join('\n') + '\n';
+    assert.ok(Object.keys(first.suggestionPieces ?? {}).length > 0);
     const second = await review(list);
     assert.deepEqual(second.suggestions, []);
+    assert.deepEqual(second.stopList.unused, [], 'a piece of a contraction is not an entry that never occurs');
+    assert.deepEqual(second.suggestionPieces, {});
     assert.equal(second.verdict?.outcome, 'nothing suggested');
     assert.match(second.verdict.headline, new RegExp(`^Nothing more to suggest: the ${first.suggestions.length} terms the rule would pick are already on the stop list`));
     const findings = stopListFindings(list, second).filter((f) => f.kind === 'neighborSignal');

@@ -9,6 +9,7 @@
 //
 //   npm run quality:consistency                 all corpora available on this machine
 //   npm run quality:consistency -- kjv-chapters only the named ones (larger corpora only when named)
+import { suggestionLines } from '../../extension/src/engine/terms/stop-list-spelling';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -50,7 +51,8 @@ async function consistency(name: string, texts: string[], dir: string): Promise<
     const changed = rest.filter((t) => !after.has(t)).length + [...after].filter((t) => !firstSet.has(t)).length;
     byHandChange = rest.length === 0 ? 0 : changed / rest.length;
   }
-  const list = first.suggestions.join('\n') + '\n';
+  // What `loudword apply` writes: the suggestions in their plain spelling, then the pieces of contractions.
+  const list = suggestionLines(first).join('\n') + '\n';
   const second = await review(list);
   return {
     corpus: name,

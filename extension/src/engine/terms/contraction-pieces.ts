@@ -43,11 +43,19 @@ export function contractionPieces(tokenize: (text: string) => string[]): Map<str
  * The pieces a stop list gets when it stops `adding` (suggested terms) on top of the terms
  * already stopped: each piece whose terms are all stopped then and at least one of them is
  * among `adding` (the others were stopped before: their piece is the stop list's business, not
- * this suggestion's).
+ * this suggestion's). Not a piece the corpus also uses as a word of its own (`isWord`: "Don
+ * Knuth", "a safe haven", "re-cast"): there it stands for more than the contraction, and the
+ * list would stop that word too.
  */
-export function piecesCompleted(pieces: ReadonlyMap<string, readonly string[]>, adding: ReadonlySet<string>, isStopped: (term: string) => boolean): Record<string, string[]> {
+export function piecesCompleted(
+  pieces: ReadonlyMap<string, readonly string[]>,
+  adding: ReadonlySet<string>,
+  isStopped: (term: string) => boolean,
+  isWord: (piece: string) => boolean,
+): Record<string, string[]> {
   const out: Record<string, string[]> = {};
   for (const [piece, terms] of pieces) {
+    if (isWord(piece)) continue;
     const added = terms.filter((t) => adding.has(t));
     if (added.length > 0 && terms.every((t) => adding.has(t) || isStopped(t))) out[piece] = added;
   }

@@ -195,10 +195,15 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const corpus = searchCorpus !== null && accepted.length > 0 ? searchCorpus(baseMask, suggestedMask) : null;
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, useLabels: settings.suggest.useLabels, grammarWords: grammarGroup(accepted, decisions).length });
   const spellings = stopListSpellings(suggestions, tokenize);
-  const pieces = piecesCompleted(contractionPieces(tokenize), new Set(suggestions), (term) => {
-    const c = index.column(term);
-    return c !== undefined && baseMask[c] === 1;
-  });
+  const pieces = piecesCompleted(
+    contractionPieces(tokenize),
+    new Set(suggestions),
+    (term) => {
+      const c = index.column(term);
+      return c !== undefined && baseMask[c] === 1;
+    },
+    (piece) => index.column(piece) !== undefined,
+  );
   return { rows, suggestions, spellings, pieces, suggested, opinion, suggestedMask, verdict };
 }
 
