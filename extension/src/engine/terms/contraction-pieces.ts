@@ -5,11 +5,13 @@ import { createTokenizer, type Tokenizer } from '../tokenize/create-tokenizer';
  * English contractions whose parts are grammar words. wink-nlp expands each into words ("don't" →
  * "do" + "not", "we'll" → "we" + "will"); scikit-learn's default token pattern (runs of two or
  * more word characters, the pattern tokenizer's default) keeps a piece of it instead ("don",
- * "ll"). Left out: "won't" and "can't", whose pieces ("won", "can") are words of their own.
+ * "ll"). Left out: "won't" and "can't", whose pieces ("won", "can") are words of their own. With
+ * them "cannot", which wink splits the same way ("can" + "not") and scikit-learn keeps whole.
  */
 export const CONTRACTIONS: readonly string[] = [
   "aren't", "couldn't", "didn't", "doesn't", "don't", "hadn't", "hasn't", "haven't", "isn't", "mightn't",
   "mustn't", "needn't", "shan't", "shouldn't", "wasn't", "weren't", "wouldn't", "ain't", "we'll", "we've", "we're",
+  'cannot',
 ];
 
 /**
