@@ -55,6 +55,37 @@ const winkCoreReader = {
   },
 };
 
+// wink-nlp's code and its model's (0.4 MB, 416 kB of the CLI's 1.4 MB and 476 kB of a tokenising
+// thread's bundle) are bundles of their own, which the others require from beside them when a wink
+// instance is first made: a bundle's text is read and compiled whenever it is loaded, wink used or
+// not, and the pattern review's three loads (the CLI and two tokenising threads) took ~40 ms of CPU
+// each for wink's part (docs/performance.md, "The pattern review's start"). One file per package
+// keeps one copy of each in a thread (wink-nlp checks its its-functions by identity).
+const WINK_PACKAGES = { 'wink-nlp': 'wink-nlp.js', 'wink-eng-lite-web-model': 'wink-eng-lite-web-model.js' };
+const winkOutside = {
+  name: 'wink-outside',
+  setup(b) {
+    b.onResolve({ filter: /^wink-(nlp|eng-lite-web-model)$/ }, (args) => {
+      if (args.kind === 'entry-point') return undefined;
+      return { path: `./${WINK_PACKAGES[args.path]}`, external: true };
+    });
+  },
+};
+
+// ajv compiles the settings schema only where settings-validator.js is missing (running from
+// source: engine/config/settings-schema.ts); the bundles always have it beside them, so ajv's
+// 0.25 MB (with fast-uri) stays out of them rather than being read and compiled at every start.
+const ajvOutside = {
+  name: 'ajv-outside',
+  setup(b) {
+    b.onResolve({ filter: /^ajv$/ }, () => ({ path: 'ajv', namespace: 'ajv-outside' }));
+    b.onLoad({ filter: /.*/, namespace: 'ajv-outside' }, () => ({
+      contents: "throw new Error('settings-validator.js is missing beside the bundle: run npm run build');",
+      loader: 'js',
+    }));
+  },
+};
+
 const entries = [
   // Node side: the extension host, the engine worker, the CLI.
   { entry: 'extension/src/host/extension.ts', out: 'dist/extension.js', platform: 'node', external: ['vscode'] },
@@ -66,6 +97,8 @@ const entries = [
   { entry: 'extension/src/engine/measures/masked-term-sums-thread.ts', out: 'dist/masked-term-sums-thread.js', platform: 'node' },
   { entry: 'extension/src/engine/terms/opinion-thread.ts', out: 'dist/opinion-thread.js', platform: 'node' },
   { entry: 'extension/src/cli/main.ts', out: 'dist/cli.js', platform: 'node' },
+  // wink's two packages, each as its own bundle (winkOutside).
+  ...Object.entries(WINK_PACKAGES).map(([name, file]) => ({ entry: name, out: `dist/${file}`, platform: 'node' })),
   // Browser side: the panel; the same bundle renders the standalone HTML report.
   { entry: 'webview/src/main.ts', out: 'dist/webview.js', platform: 'browser', format: 'iife' },
 ];
@@ -79,7 +112,7 @@ for (const [name, wat] of Object.entries(ENGINE_WAT)) wasmModules[name] = JSON.s
 
 mkdirSync('dist', { recursive: true });
 for (const e of entries) {
-  if (!existsSync(e.entry)) {
+  if (!(e.entry in WINK_PACKAGES) && !existsSync(e.entry)) {
     console.log(`build: skipping ${e.entry} (not written yet)`);
     continue;
   }
@@ -91,7 +124,7 @@ for (const e of entries) {
     format: e.format ?? 'cjs',
     target: e.platform === 'node' ? 'node20' : 'es2022',
     external: e.external ?? [],
-    plugins: e.platform === 'node' ? [winkModelOutside, winkCoreReader] : [],
+    plugins: e.platform === 'node' ? [winkOutside, winkModelOutside, winkCoreReader, ajvOutside] : [],
     // The token pattern scan's table of word characters, worked out once here (word-ranges.mjs).
     define: e.platform === 'node' ? { LOUDWORD_WORD_RANGES: JSON.stringify(JSON.stringify(wordRanges())), LOUDWORD_WINK_CORE_READER: '"bundled"', ...wasmModules } : {},
   });

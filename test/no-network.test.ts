@@ -30,8 +30,8 @@ describe('no network access', function () {
     assert.deepEqual(offenders, []);
   });
 
-  it('the webview, tokenizer, row-writing and what-if thread bundles contain no network API at all', () => {
-    for (const bundle of ['webview.js', 'tokenize-worker.js', 'assemble-worker.js', 'what-if-thread.js', 'masked-term-sums-thread.js', 'opinion-thread.js']) {
+  it('the webview, tokenizer, row-writing and what-if thread bundles, and wink\'s, contain no network API at all', () => {
+    for (const bundle of ['webview.js', 'tokenize-worker.js', 'assemble-worker.js', 'what-if-thread.js', 'masked-term-sums-thread.js', 'opinion-thread.js', 'wink-nlp.js', 'wink-eng-lite-web-model.js']) {
       assert.doesNotMatch(readFileSync(path.join(root, 'dist', bundle), 'utf8'), NETWORK_API, bundle);
     }
   });
