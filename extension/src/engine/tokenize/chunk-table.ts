@@ -172,17 +172,26 @@ export class ChunkTable {
     return true;
   }
 
+  /**
+   * Moves every entry into a table of `capacity` slots. A slot's eight int32s are copied one by
+   * one: `set` from a `subarray` made a typed array per entry (~100k in a tokenising thread at
+   * 100k documents), which took half of the growths' CPU (docs/performance.md, "The pattern
+   * review's start").
+   */
   private rehash(capacity: number): void {
     const old = this.slots;
-    this.slots = new Int32Array(capacity * SLOT);
-    for (let s = 0; s < capacity; s++) this.slots[s * SLOT + VALUE] = ABSENT;
-    this.mask = capacity - 1;
+    const slots = new Int32Array(capacity * SLOT);
+    for (let s = 0; s < capacity; s++) slots[s * SLOT + VALUE] = ABSENT;
+    const mask = capacity - 1;
     for (let at = 0; at < old.length; at += SLOT) {
       if (old[at + VALUE] === ABSENT) continue;
-      let slot = old[at + HASH]! & this.mask;
-      while (this.slots[slot * SLOT + VALUE] !== ABSENT) slot = (slot + 1) & this.mask;
-      this.slots.set(old.subarray(at, at + SLOT), slot * SLOT);
+      let slot = old[at + HASH]! & mask;
+      while (slots[slot * SLOT + VALUE] !== ABSENT) slot = (slot + 1) & mask;
+      const to = slot * SLOT;
+      for (let k = 0; k < SLOT; k++) slots[to + k] = old[at + k]!;
     }
+    this.slots = slots;
+    this.mask = mask;
   }
 }
 
