@@ -62,12 +62,21 @@ const winkCoreReader = {
 // each for wink's part (docs/performance.md, "The pattern review's start"). One file per package
 // keeps one copy of each in a thread (wink-nlp checks its its-functions by identity).
 const WINK_PACKAGES = { 'wink-nlp': 'wink-nlp.js', 'wink-eng-lite-web-model': 'wink-eng-lite-web-model.js' };
+// The module that reads wink's core model (wink-core-model.ts) is one of its own too: the
+// tokenizer peeks at the model's regexes and leaves that parse for the next instance, which the
+// model's bundle reads through it, so both must hold the same module (a copy in each parsed the 3 MB
+// model twice in each wink thread).
+const WINK_CORE_MODEL = 'wink-core-model.js';
 const winkOutside = {
   name: 'wink-outside',
   setup(b) {
     b.onResolve({ filter: /^wink-(nlp|eng-lite-web-model)$/ }, (args) => {
       if (args.kind === 'entry-point') return undefined;
       return { path: `./${WINK_PACKAGES[args.path]}`, external: true };
+    });
+    b.onResolve({ filter: /(^|\/)wink-core-model(\.ts)?$/ }, (args) => {
+      if (args.kind === 'entry-point') return undefined;
+      return { path: `./${WINK_CORE_MODEL}`, external: true };
     });
   },
 };
@@ -99,6 +108,7 @@ const entries = [
   { entry: 'extension/src/cli/main.ts', out: 'dist/cli.js', platform: 'node' },
   // wink's two packages, each as its own bundle (winkOutside).
   ...Object.entries(WINK_PACKAGES).map(([name, file]) => ({ entry: name, out: `dist/${file}`, platform: 'node' })),
+  { entry: 'extension/src/engine/tokenize/wink-core-model.ts', out: `dist/${WINK_CORE_MODEL}`, platform: 'node' },
   // Browser side: the panel; the same bundle renders the standalone HTML report.
   { entry: 'webview/src/main.ts', out: 'dist/webview.js', platform: 'browser', format: 'iife' },
 ];

@@ -31,7 +31,7 @@ describe('no network access', function () {
   });
 
   it('the webview, tokenizer, row-writing and what-if thread bundles, and wink\'s, contain no network API at all', () => {
-    for (const bundle of ['webview.js', 'tokenize-worker.js', 'assemble-worker.js', 'what-if-thread.js', 'masked-term-sums-thread.js', 'opinion-thread.js', 'wink-nlp.js', 'wink-eng-lite-web-model.js']) {
+    for (const bundle of ['webview.js', 'tokenize-worker.js', 'assemble-worker.js', 'what-if-thread.js', 'masked-term-sums-thread.js', 'opinion-thread.js', 'wink-nlp.js', 'wink-eng-lite-web-model.js', 'wink-core-model.js']) {
       assert.doesNotMatch(readFileSync(path.join(root, 'dist', bundle), 'utf8'), NETWORK_API, bundle);
     }
   });

@@ -42,6 +42,11 @@ describe('wink core model reader', () => {
       assert.ok(text.includes('require("./wink-eng-lite-web-model.js")') && text.includes('require("./wink-nlp.js")'), f);
       assert.ok(!text.includes('node_modules/wink-nlp/src/'), `${f} holds wink-nlp's code`);
     }
+    // One module reads the model for the tokenizer's peek and for the instances (the peek's parse
+    // is handed to the next instance): a copy of it in two bundles parsed the model twice a thread.
+    const readers = readdirSync(dist).filter((f) => f.endsWith('.js') && readFileSync(join(dist, f), 'utf8').includes('function peekCoreModel('));
+    assert.deepEqual(readers, ['wink-core-model.js']);
+    assert.ok(readFileSync(join(dist, 'wink-eng-lite-web-model.js'), 'utf8').includes('require("./wink-core-model.js").readCoreModel'));
     for (const f of withWink) {
       const text = readFileSync(join(dist, f), 'utf8');
       assert.ok(!text.includes('JSON.parse(JSON.stringify(originalModel))'), `${f} still copies the model through JSON`);
