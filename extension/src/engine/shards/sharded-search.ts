@@ -1,5 +1,5 @@
 import { mergeNeighborLists, type NeighborLists } from '../measures/corpus-neighbors';
-import { labelPrecision } from '../measures/label-precision';
+import { labelPrecision, type LabelChance } from '../measures/label-precision';
 import { isLabel, sampleLabelChance, searchedQueries, spreadToSample, type CorpusSearch, type CorpusSearcher } from '../terms/corpus-precision';
 import { maskColumns, neighborRequestId, type NeighborRequest } from './partials';
 
@@ -17,13 +17,17 @@ export interface LabelledNeighbors {
  */
 export class ShardedSearch implements CorpusSearcher {
   readonly missing = new Map<string, NeighborRequest>();
+  /** The chance a missing neighbour counts, from the sample's labels (measures/label-precision.ts). */
+  private readonly chance: LabelChance<string>;
 
   constructor(
     private readonly known: ReadonlyMap<string, LabelledNeighbors>,
     /** The label of each sampled document, in sample order. */
     private readonly sampleLabels: readonly (string | null)[],
     private readonly k: number,
-  ) {}
+  ) {
+    this.chance = sampleLabelChance(sampleLabels);
+  }
 
   precision(removed: Uint8Array, search: CorpusSearch): Float64Array {
     const columns = maskColumns(removed);
@@ -38,8 +42,7 @@ export class ShardedSearch implements CorpusSearcher {
     // The lists are the searched positions' (searchedQueries), in order.
     const positions = searchedQueries(search, m);
     const labelOf = (q: number): string | null => this.sampleLabels[positions[q]!] ?? null;
-    const chance = sampleLabelChance(this.sampleLabels);
-    const precision = labelPrecision(found.lists.docs, found.lists.sims, k, (q) => isLabel(labelOf(q)), (q, r) => found.labels[q * k + r] === labelOf(q), (q) => chance(labelOf(q)!));
+    const precision = labelPrecision(found.lists.docs, found.lists.sims, k, (q) => isLabel(labelOf(q)), (q, r) => found.labels[q * k + r] === labelOf(q), (q) => this.chance(labelOf(q)!));
     return spreadToSample(precision, positions, m);
   }
 }

@@ -134,11 +134,12 @@ export function searchCandidates(search: CorpusSearch, first: number, count: num
 
 /** One process's search: the whole weight matrix is here. */
 export function searchInProcess(weights: Csr, sampleRows: Csr, sample: Uint32Array, labels: readonly (string | null)[], k: number): CorpusSearcher {
+  // The sample's labels do not change between the review's two or three searches: counted once.
+  const chance = sampleLabelChance(Array.from(sample, (d) => labels[d]));
   return {
     precision(removed, search) {
       const { positions, rows, docs } = searchedRows(sampleRows, sample, search);
       const lists = corpusNeighbors(rows, docs, weights, 0, removed, k, searchCandidates(search, 0, weights.rows));
-      const chance = sampleLabelChance(Array.from(sample, (d) => labels[d]));
       const precision = labelPrecision(lists.docs, lists.sims, k, (q) => isLabel(labels[docs[q]!]), (q, r) => labels[lists.docs[q * k + r]!] === labels[docs[q]!], (q) => chance(labels[docs[q]!]!));
       return spreadToSample(precision, positions, sampleRows.rows);
     },
