@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { build } from 'esbuild';
-import { buildCountMatrix } from '../extension/src/engine/matrix/build-count-matrix';
+import { buildCountMatrix, partsOfAtMost } from '../extension/src/engine/matrix/build-count-matrix';
 import type { CountMatrix } from '../extension/src/engine/matrix/csr';
 import type { CorpusRow } from '../extension/src/engine/read/corpus-source';
 import { createTokenizer, type TokenSettings } from '../extension/src/engine/tokenize/create-tokenizer';
@@ -40,6 +40,15 @@ function assertCsrInvariants(m: CountMatrix): void {
 }
 
 describe('matrix/build-count-matrix', () => {
+  it('partsOfAtMost cuts a batch of long documents into runs of at most the limit, in order', () => {
+    // So that a corpus of a few hundred long documents is not one batch for one tokenising thread.
+    const texts = ['aaaa', 'bb', 'cccccc', 'd', 'eeeeeeeeee', 'ff'];
+    assert.deepEqual(partsOfAtMost(texts, 7), [['aaaa', 'bb'], ['cccccc', 'd'], ['eeeeeeeeee'], ['ff']]);
+    assert.deepEqual(partsOfAtMost(texts, 100), [texts]);
+    assert.deepEqual(partsOfAtMost(texts, 1), texts.map((t) => [t]));
+    assert.deepEqual(partsOfAtMost([], 5), [[]]);
+  });
+
   it('buildCountMatrix counts each document\'s tokens, with lines, labels and previews', async () => {
     const rows: CorpusRow[] = [
       { text: 'the cat sat on the mat', label: 'pets', line: 2 },

@@ -2,7 +2,7 @@ import { strict as assert } from 'node:assert';
 import { mulberry32, randomBelow } from '../extension/src/engine/random/seeded-random';
 import { hashOf } from '../extension/src/engine/tokenize/chunk-table';
 import { LexemeFilter } from '../extension/src/engine/tokenize/lexeme-filter';
-import { freshWinkInstance, winkLexemeList } from '../extension/src/engine/tokenize/wink-instance';
+import { freshWinkInstance, winkLexemeFilter, winkLexemeList } from '../extension/src/engine/tokenize/wink-instance';
 
 // lexeme-filter.ts: the chunk-cached coder skips wink's lexeme look-up when the filter says no,
 // so a "no" for a string that is a lexeme would change tokens. Random strings here are made of
@@ -71,5 +71,19 @@ describe('tokenize: the lexeme filter (a no means wink has no such lexeme)', fun
     }
     assert.ok(notLexemes > 10_000);
     assert.ok(noes > 0.9 * notLexemes, `${noes} noes for ${notLexemes} strings that are no lexemes`);
+  });
+
+  it('a filter started from the model\'s own lexemes answers as one that hashed the whole list', () => {
+    // winkLexemeFilter copies the words of a filter over the lexemes every instance starts with.
+    const busy = freshWinkInstance('tokens');
+    for (const t of randomStrings(3, 2000)) busy.readDoc(t).tokens().out();
+    const nlp = freshWinkInstance('tokens');
+    const started = winkLexemeFilter(nlp)!;
+    const list = winkLexemeList(nlp)!;
+    const texts = randomStrings(11, 2000);
+    for (let i = 0; i < texts.length; i += 50) nlp.readDoc(texts.slice(i, i + 50).join(' ')).tokens().out();
+    const whole = new LexemeFilter(list);
+    const asked = [...randomStrings(5, 20_000), ...(list as string[])];
+    for (const s of asked) assert.equal(started.mayHave(hash(s)), whole.mayHave(hash(s)), s);
   });
 });

@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
 import type { CorpusSource } from '../read/corpus-source';
-import { inProcessEncoder, startTokenizingThreads, type BatchEncoder, type TokenizingThreads } from '../tokenize/batch-encoder';
+import { inProcessEncoder, startFileLanes, startTokenizingThreads, type BatchEncoder, type FileLanes, type TokenizingThreads } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import type { EncodedBatch } from '../tokenize/encode-batch';
 import { longRunNote } from '../tokenize/long-runs';
@@ -58,6 +58,33 @@ export interface BuildOptions {
 const DEFAULT_BATCH = 1000;
 
 /**
+ * At most this many characters go to a tokeniser at once (a single longer document goes alone).
+ * A batch is DEFAULT_BATCH documents, which for long documents is the whole corpus: 983 files of
+ * ~24 kB read one document per file made one batch, and one of the two tokenising threads did all
+ * of it. A thousand documents of the 100k bench corpus (~590 kB) stay one batch.
+ */
+const BATCH_CHARS = 1 << 20;
+
+/** `texts` in order, cut into runs of at most `limit` characters (or one text, when it alone is longer). */
+export function partsOfAtMost(texts: string[], limit: number): string[][] {
+  const parts: string[][] = [];
+  let start = 0;
+  let chars = 0;
+  for (let i = 0; i < texts.length; i++) {
+    const length = texts[i]!.length;
+    if (i > start && chars + length > limit) {
+      parts.push(texts.slice(start, i));
+      start = i;
+      chars = 0;
+    }
+    chars += length;
+  }
+  if (start === 0) return [texts];
+  parts.push(texts.slice(start));
+  return parts;
+}
+
+/**
  * Streams `source`, tokenises every document and counts terms into a CSR matrix (rows =
  * documents in source order, columns = terms in code point order, like scikit-learn's
  * CountVectorizer with a pass-through analyzer). Workers only change who tokenises: batches are
@@ -96,13 +123,15 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
         lines.push(row.line);
         labels?.push(row.label);
       }
-      const p = encoder.encode(texts);
-      p.catch(() => undefined); // awaited below in order; this only silences an early rejection
-      inFlight.push(p);
-      while (inFlight.length >= encoder.parallelism) {
-        take(await inFlight.shift()!);
-        onProgress?.(counter.rows);
-        signal?.throwIfAborted();
+      for (const part of partsOfAtMost(texts, BATCH_CHARS)) {
+        const p = encoder.encode(part);
+        p.catch(() => undefined); // awaited below in order; this only silences an early rejection
+        inFlight.push(p);
+        while (inFlight.length >= encoder.parallelism) {
+          take(await inFlight.shift()!);
+          onProgress?.(counter.rows);
+          signal?.throwIfAborted();
+        }
       }
       // The threads that will write the matrix's rows start once the first batches are counted
       // (the tokenising threads' own start is over by then), so that they have loaded and
@@ -156,6 +185,15 @@ export function countingEncoder(tokens: TokenSettings, options: Pick<BuildOption
 export function startCountingThreads(options: Pick<BuildOptions, 'workers' | 'workerScript'> = {}): TokenizingThreads | null {
   const workers = options.workers ?? Math.min(2, availableParallelism());
   return startTokenizingThreads(workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js'));
+}
+
+/**
+ * The same threads for a corpus of many files, each taking one file at a time with a tokeniser
+ * fresh for it (count-each-file.ts); null where countingEncoder would tokenise in this thread.
+ */
+export function startCountingLanes(options: Pick<BuildOptions, 'workers' | 'workerScript'> = {}): FileLanes | null {
+  const workers = options.workers ?? Math.min(2, availableParallelism());
+  return startFileLanes(workers, options.workerScript ?? join(__dirname, 'tokenize-worker.js'));
 }
 
 /** Source lines named in a note before "…". */

@@ -1,24 +1,15 @@
-import type { CorpusSource } from '../read/corpus-source';
+import type { CorpusRow, CorpusSource } from '../read/corpus-source';
 import type { FileByFileSource } from '../read/many-files-corpus';
-import { coderEncoder, type BatchEncoder } from '../tokenize/batch-encoder';
-import { createTermCoder, type TokenSettings } from '../tokenize/create-tokenizer';
-import { freshWinkInstance } from '../tokenize/wink-instance';
+import { coderEncoder, type BatchEncoder, type FileLanes } from '../tokenize/batch-encoder';
+import type { TokenSettings } from '../tokenize/create-tokenizer';
+import { freshTermCoder } from '../tokenize/fresh-term-coder';
 import { buildCountMatrix, type BuiltCorpus } from './build-count-matrix';
 import { compareCodePoints } from './compare-code-points';
 import { renumberFirstTerms } from './csr';
 
-/**
- * A tokeniser that has seen nothing before this file, in this thread. wink-nlp's output depends
- * on what its instance has tokenised before (see tokenize/chunk-cached-unigrams.ts, point 2), so a
- * file's terms are a function of the file alone only when each file starts from a fresh
- * instance and its documents go through it in order. That is what makes a corpus of many files
- * count the same whether one process reads them all or each shard step reads one.
- */
-export function freshFileEncoder(tokens: TokenSettings): BatchEncoder {
-  // The pattern tokenizer keeps no state between documents and never calls wink: loading a model
-  // for it (~0.5 s a file) would only cost time.
-  if (tokens.tokenizer === 'pattern') return coderEncoder(createTermCoder(tokens));
-  return coderEncoder(createTermCoder(tokens, { nlp: freshWinkInstance(tokens.ngrams === 2 ? 'sentences' : 'tokens') }));
+/** An in-thread encoder whose tokeniser has seen nothing before this file (tokenize/fresh-term-coder.ts). */
+function freshFileEncoder(tokens: TokenSettings): BatchEncoder {
+  return coderEncoder(freshTermCoder(tokens));
 }
 
 /** Counts one file of a many-file corpus (one shard) with a fresh tokeniser. */
@@ -71,15 +62,64 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
   return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc, firstTerms }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null, weighedWith: null };
 }
 
-/** Counts a many-file corpus file by file, each with a fresh tokeniser, as its shards would be. */
-export async function countEachFile(source: FileByFileSource, tokens: TokenSettings, signal?: AbortSignal): Promise<BuiltCorpus> {
-  const parts: BuiltCorpus[] = [];
+/**
+ * Counts a many-file corpus file by file, each with a fresh tokeniser, as its shards would be.
+ * With `lanes` (tokenising threads, batch-encoder.ts), each file is tokenised on the first lane
+ * free while this thread reads the next files, so both cores work; the counts are the same as in
+ * this thread, since each file still goes through a tokeniser of its own, in order.
+ */
+export async function countEachFile(source: FileByFileSource, tokens: TokenSettings, signal?: AbortSignal, lanes: FileLanes | null = null): Promise<BuiltCorpus> {
+  const counting: Promise<BuiltCorpus>[] = [];
   const keys: string[] = [];
-  for await (const file of source.eachFile()) {
-    parts.push(await countFile(file.source, tokens, signal));
-    keys.push(file.key);
+  // Lanes counting a file, each with the promise of its number once that file is counted.
+  const busy = new Map<number, Promise<number>>();
+  try {
+    for await (const file of source.eachFile()) {
+      keys.push(file.key);
+      if (lanes === null) {
+        counting.push(Promise.resolve(await countFile(file.source, tokens, signal)));
+        continue;
+      }
+      // The file goes to the first lane that is free, or that becomes free (its file counted).
+      let lane = 0;
+      while (busy.has(lane)) lane++;
+      if (lane === lanes.lanes) {
+        lane = await Promise.race(busy.values());
+        busy.delete(lane);
+      }
+      const read = watchedToItsEnd(file.source);
+      const encoder = lanes.forFile(lane, tokens);
+      const counted = buildCountMatrix(read.source, tokens, signal === undefined ? { encoder } : { encoder, signal });
+      counted.catch(() => undefined); // awaited below; this only silences an early rejection
+      counting.push(counted);
+      const free = counted.then(() => lane);
+      free.catch(() => undefined);
+      busy.set(lane, free);
+      // The next file is read once this one is read to its end (eachFile's rule: its places,
+      // skipped rows and notes are complete by then).
+      await Promise.race([read.done, counted]);
+    }
+    const parts = await Promise.all(counting);
+    // A tokeniser's note names lines of its file: with more than one file, it names the file too.
+    if (parts.length > 1) parts.forEach((p, i) => (p.notes = p.notes.map((note) => `${keys[i]}: ${note}`)));
+    return concatCounts(parts);
+  } finally {
+    // On a failure, no file is left counting after this returns.
+    await Promise.allSettled(counting);
   }
-  // A tokeniser's note names lines of its file: with more than one file, it names the file too.
-  if (parts.length > 1) parts.forEach((p, i) => (p.notes = p.notes.map((note) => `${keys[i]}: ${note}`)));
-  return concatCounts(parts);
+}
+
+/** `source`, and a promise kept once its batches have all been read. */
+function watchedToItsEnd(source: CorpusSource): { source: CorpusSource; done: Promise<void> } {
+  let ended = (): void => undefined;
+  const done = new Promise<void>((resolve) => (ended = resolve));
+  const watched = Object.create(source, {
+    batches: {
+      value: async function* (batchSize?: number): AsyncGenerator<CorpusRow[]> {
+        yield* source.batches(batchSize);
+        ended();
+      },
+    },
+  }) as CorpusSource;
+  return { source: watched, done };
 }

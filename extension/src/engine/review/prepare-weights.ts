@@ -1,6 +1,6 @@
 import type { EffectiveSettings } from '../../protocol';
 import { stat } from 'node:fs/promises';
-import { buildCountMatrix, countingEncoder, startCountingThreads } from '../matrix/build-count-matrix';
+import { buildCountMatrix, countingEncoder, startCountingLanes, startCountingThreads } from '../matrix/build-count-matrix';
 import type { BatchEncoder, TokenizingThreads } from '../tokenize/batch-encoder';
 import { closeEarlyThreads } from '../tokenize/early-threads';
 import { hasGlob } from '../read/corpus-files';
@@ -110,7 +110,12 @@ export async function prepareWeights(
   if (isFileByFile(source)) {
     // Many files: each with a fresh tokeniser, so the terms equal those of a review in shards.
     await started?.close();
-    built = await countEachFile(source, settings.tokens, signal);
+    const lanes = startCountingLanes(workers === undefined ? {} : { workers });
+    try {
+      built = await countEachFile(source, settings.tokens, signal, lanes);
+    } finally {
+      await lanes?.close();
+    }
   } else {
     built = await buildCountMatrix(source, settings.tokens, {
       weighAhead: (sums, rows) => weighingAhead(settings, sums, rows),

@@ -11,7 +11,10 @@ import type { TokenizeReply, TokenizeRequest, TokenizeSetup } from './tokenize-m
 export interface BatchEncoder {
   /** How many batches may usefully be in flight at once. */
   readonly parallelism: number;
-  /** Threads tokenising (0: this thread). */
+  /**
+   * Threads tokenising, and so the row writers buildCountMatrix starts beside them (0: this
+   * thread tokenises, or a file lane does, and the rows are written in this thread).
+   */
   readonly threads: number;
   encode(texts: string[]): Promise<EncodedBatch>;
   close(): Promise<void>;
@@ -124,6 +127,75 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
       };
     },
     close,
+  };
+}
+
+/** Tokenising threads that each count one file at a time, with a tokeniser fresh for each file. */
+export interface FileLanes {
+  readonly lanes: number;
+  /**
+   * An encoder on lane `lane` for its next file, whose tokeniser is made anew (fresh-term-coder.ts)
+   * before the file's first batch: the lane's earlier files are forgotten. Ask for it once the
+   * lane's previous file is counted. Its `threads` is 0: the file's rows are written in the
+   * caller's thread (row writers started for each file would cost more than they save), and
+   * closing it leaves the lane for the next file.
+   */
+  forFile(lane: number, tokens: TokenSettings): BatchEncoder;
+  close(): Promise<void>;
+}
+
+/**
+ * Batches a file lane may hold unanswered (each at most 1 MiB of text, build-count-matrix.ts). The
+ * next file is read only once this one is read to its end, so with two batches in flight, as
+ * for one corpus, this thread read each file at its lane's pace and the other lane had nothing
+ * to do until the file's last batches; a backlog lets it read ahead and start the next file.
+ */
+const LANE_BACKLOG = 32;
+
+/**
+ * `lanes` threads running `script` (dist/tokenize-worker.js) for a corpus of many files
+ * (matrix/count-each-file.ts), or null when the script is not there (tests from source) or
+ * `lanes` < 1: the caller then counts the files in its own thread.
+ */
+export function startFileLanes(lanes: number, script: string): FileLanes | null {
+  if (lanes < 1 || !existsSync(script)) return null;
+  const pool: Worker[] = [];
+  const replies: PendingReplies<EncodedBatch>[] = [];
+  for (let w = 0; w < lanes; w++) {
+    const worker = new Worker(script, { resourceLimits: TOKENIZING_HEAP });
+    const waiting = new PendingReplies<EncodedBatch>();
+    worker.on('message', (reply: TokenizeReply) => {
+      // Each file is counted on its own (its own CountAccumulator), so every batch is stream 0.
+      if (reply.batch !== null) waiting.resolve(reply.seq, received(reply.batch, 0));
+      else waiting.reject(reply.seq, new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
+    });
+    worker.on('error', (e) => waiting.fail(e));
+    worker.on('exit', (code) => waiting.fail(new Error(`tokenize worker exited with code ${code}`)));
+    pool.push(worker);
+    replies.push(waiting);
+  }
+  return {
+    lanes,
+    forFile(lane, tokens) {
+      const worker = pool[lane]!;
+      const waiting = replies[lane]!;
+      const setup: TokenizeSetup = { type: 'settings', tokens, fresh: true };
+      worker.postMessage(setup);
+      return {
+        parallelism: LANE_BACKLOG,
+        threads: 0,
+        encode: (texts) =>
+          waiting.request((id) => {
+            const request: TokenizeRequest = { type: 'texts', seq: id, texts };
+            worker.postMessage(request);
+          }),
+        close: () => Promise.resolve(),
+      };
+    },
+    async close() {
+      for (const waiting of replies) waiting.fail(new Error('tokenize lanes closed'));
+      await Promise.all(pool.map((w) => w.terminate()));
+    },
   };
 }
 

@@ -3,10 +3,9 @@ import { ABSENT, ChunkTable, FNV_OFFSET, FNV_PRIME, hashOf } from './chunk-table
 import { deferredLexemesOf, isWordLetter, replay, wordClassKnown } from './deferred-lexemes';
 import type { IdList } from './id-list';
 import { cutRun, MAX_RUN } from './long-runs';
-import { LexemeFilter } from './lexeme-filter';
 import { lowercaseForms } from './lowercase-forms';
 import { Vocabulary, type TermCoder } from './term-coder';
-import { winkLexemeList } from './wink-instance';
+import { winkLexemeFilter } from './wink-instance';
 import { WINK_SPLITTER_SOURCE } from './wink-splitter';
 import { peekCoreModel } from './wink-core-model';
 
@@ -107,8 +106,7 @@ export function chunkCachedUnigrams(
   // Any document of `nlp` answers isLexeme from the instance's one lexeme cache.
   const lexemes = nlp.readDoc('');
   // Most strings asked about are no lexemes; the filter says so without asking wink.
-  const lexemeList = winkLexemeList(nlp);
-  const lexemeFilter = lexemeList === null ? null : new LexemeFilter(lexemeList);
+  const lexemeFilter = winkLexemeFilter(nlp);
   const { isWord, isWordRP } = categoryTests();
   const deferred = deferredLexemesOf(nlp);
   const defer = wordClassKnown();

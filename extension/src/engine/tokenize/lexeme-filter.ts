@@ -18,12 +18,29 @@ import { hashOf } from './chunk-table';
  */
 export class LexemeFilter {
   /** 2^16 words of 32 bits; a key sets two bits of the word its hash's high half picks. */
-  private readonly words = new Int32Array(1 << 16);
+  private readonly words: Int32Array;
   /** Entries of `list` whose hashes are in `words`. */
-  private seen = 0;
+  private seen: number;
 
-  /** `list`: the instance's `model.features.lexeme.list` (its lexemes by index; it only grows). */
-  constructor(private readonly list: readonly unknown[]) {}
+  /**
+   * `list`: the instance's `model.features.lexeme.list` (its lexemes by index; it only grows).
+   * `startFrom`: a filter whose list is, entry for entry, the start of this one (the model's own
+   * lexemes, which every instance's list begins with): its words are copied instead of hashing
+   * those 87,593 entries again (~2.7 ms, once per file of a corpus of many files).
+   */
+  constructor(
+    private readonly list: readonly unknown[],
+    startFrom?: LexemeFilter,
+  ) {
+    if (startFrom === undefined) {
+      this.words = new Int32Array(1 << 16);
+      this.seen = 0;
+    } else {
+      if (startFrom.seen !== startFrom.list.length) startFrom.catchUp();
+      this.words = startFrom.words.slice();
+      this.seen = startFrom.seen;
+    }
+  }
 
   /** False when no lexeme of the instance has the FNV-1a hash `hash` (then the string is none). */
   mayHave(hash: number): boolean {

@@ -10,6 +10,11 @@ import type { AssembleJob } from './row-assembler';
 export interface TokenizeSetup {
   type: 'settings';
   tokens: TokenSettings;
+  /**
+   * A tokeniser that has seen nothing before (fresh-term-coder.ts): a file lane sends this before
+   * each file of a corpus of many files (batch-encoder.ts, startFileLanes).
+   */
+  fresh?: boolean;
 }
 
 /** main → tokenize worker: one batch of document texts, numbered so replies can be reordered. */

@@ -3,6 +3,7 @@
 import { parentPort } from 'node:worker_threads';
 import { createTermCoder, type TokenSettings } from './create-tokenizer';
 import { batchEncoding, type EncodedBatch } from './encode-batch';
+import { freshTermCoder } from './fresh-term-coder';
 import type { TokenizeReply, TokenizeRequest, TokenizeSetup } from './tokenize-messages';
 
 const port = parentPort;
@@ -20,9 +21,9 @@ structuredClone(spare, { transfer: [spare] });
 // bundle) before they are known (batch-encoder.ts, startTokenizingThreads).
 let encodeBatch: ((texts: string[]) => EncodedBatch) | null = null;
 let setupError: unknown = null;
-const setUp = (tokens: TokenSettings): void => {
+const setUp = (tokens: TokenSettings, fresh: boolean): void => {
   try {
-    encodeBatch = batchEncoding(createTermCoder(tokens));
+    encodeBatch = batchEncoding(fresh ? freshTermCoder(tokens) : createTermCoder(tokens));
     setupError = null;
   } catch (e) {
     setupError = e;
@@ -31,7 +32,7 @@ const setUp = (tokens: TokenSettings): void => {
 
 port.on('message', (request: TokenizeRequest | TokenizeSetup) => {
   if (request.type === 'settings') {
-    setUp(request.tokens);
+    setUp(request.tokens, request.fresh === true);
     return;
   }
   let reply: TokenizeReply;

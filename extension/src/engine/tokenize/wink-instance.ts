@@ -1,4 +1,5 @@
 import type { WinkMethods } from 'wink-nlp';
+import { LexemeFilter } from './lexeme-filter';
 import { forkOfCoreModel, type LoadedCoreModel } from './wink-model-fork';
 
 /** Which wink-nlp pipe to run: none (tokens only) or sentence boundaries (for bigrams). */
@@ -22,7 +23,7 @@ export function winkInstance(pipe: WinkPipe): WinkMethods {
 }
 
 /**
- * A new wink-nlp instance with its own lexeme cache (wink deep-copies the model per instance).
+ * A new wink-nlp instance with its own lexeme cache (a fork of the thread's one read of the model).
  * wink's output depends on what that cache has seen before, so comparing two tokenizer paths
  * needs two instances started from the same state.
  */
@@ -32,12 +33,31 @@ export function freshWinkInstance(pipe: WinkPipe): WinkMethods {
   // The core model wink reads for this instance (once, when it is made), kept to find its lexemes.
   const model = reusableModel();
   let core: LoadedCoreModel | undefined;
-  const nlp = winkNLP({ ...model, core: () => (core = forkOfCoreModel(pristineCore(model))) }, pipe === 'tokens' ? [] : ['sbd']);
+  const nlp = winkNLP({ ...model, ...UNUSED_MACHINES, ...(pipe === 'tokens' ? { sbd: () => NO_MACHINES } : {}), core: () => (core = forkOfCoreModel(pristineCore(model))) }, pipe === 'tokens' ? [] : ['sbd']);
   const list = core?.features.lexeme?.list;
   if (Array.isArray(list)) lexemeLists.set(nlp, list);
   assertItsRecognised(nlp);
   return nlp;
 }
+
+/**
+ * A machine that matches nothing, in the JSON wink-nlp's automaton imports (src/automaton.js
+ * `importJSON`: version, last state, transitions, terminal, marked and custom-property states).
+ */
+const EMPTY_MACHINE = '[100,0,{},{},{},{}]';
+const NO_MACHINES = { machines: [] as string[], transformers: [] as unknown[], setter: undefined, updater: undefined };
+const ONE_EMPTY_MACHINE = { machines: [EMPTY_MACHINE], transformers: [] as unknown[], setter: undefined };
+
+/**
+ * The models of pipes these instances never run, left out. wink-nlp makes an automaton of every
+ * model it is given, whatever its pipe: parsing the entities', parts of speech's, negation's and
+ * sentiment's machines (~0.5 MB of JSON) took ~4.4 ms of each instance, and a corpus of many
+ * files makes one instance a file (matrix/count-each-file.ts). An automaton only looks words up
+ * when it is made (never adds one), so leaving them out changes nothing of what the instance's
+ * lexeme cache holds; negation and sentiment need one machine each, so they get one that
+ * matches nothing.
+ */
+const UNUSED_MACHINES = { ner: () => NO_MACHINES, pos: () => NO_MACHINES, negation: () => ONE_EMPTY_MACHINE, sa: () => ONE_EMPTY_MACHINE };
 
 const lexemeLists = new WeakMap<WinkMethods, readonly unknown[]>();
 
@@ -48,6 +68,21 @@ const lexemeLists = new WeakMap<WinkMethods, readonly unknown[]>();
  */
 export function winkLexemeList(nlp: WinkMethods): readonly unknown[] | null {
   return lexemeLists.get(nlp) ?? null;
+}
+
+let modelLexemes: LexemeFilter | undefined;
+
+/**
+ * A filter of the lexemes of an instance made by freshWinkInstance (lexeme-filter.ts), started
+ * from one of the read model's own lexemes, which every fork's list begins with and the read
+ * model never adds to (it is given to no instance); null as for winkLexemeList.
+ */
+export function winkLexemeFilter(nlp: WinkMethods): LexemeFilter | null {
+  const list = lexemeLists.get(nlp);
+  const own = pristine?.features.lexeme?.list;
+  if (list === undefined || own === undefined) return null;
+  modelLexemes ??= new LexemeFilter(own);
+  return new LexemeFilter(list, modelLexemes);
 }
 
 /** Porter stemmer shipped with the model (the same one `its.stem` calls). */
