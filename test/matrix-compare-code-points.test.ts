@@ -1,6 +1,7 @@
 import { strict as assert } from 'node:assert';
 import { spawnSync } from 'node:child_process';
-import { compareCodePoints, sortByCodePoint } from '../extension/src/engine/matrix/compare-code-points';
+import { compareCodePoints, placesAmong, sortByCodePoint } from '../extension/src/engine/matrix/compare-code-points';
+import { mulberry32 } from '../extension/src/engine/random/seeded-random';
 import { PYTHON, requireSklearn } from './reference/run-sklearn';
 
 describe('matrix/compare-code-points', () => {
@@ -20,5 +21,21 @@ describe('matrix/compare-code-points', () => {
       const some = words.filter(without);
       assert.deepEqual(sortByCodePoint(some), expected.filter(without));
     }
+  });
+
+  it('placesAmong finds each term of a sorted list in a larger sorted one, or -1, as a map of the larger would', () => {
+    // Random words over an alphabet with astral characters and U+E000-U+FFFF units, where code
+    // point order and UTF-16 order differ (the case placesAmong's binary search must follow).
+    const alphabet = ['a', 'b', 'z', 'é', '\ue000', '\uffff', '😀', '𝒳', '中'];
+    const random = mulberry32(20261205);
+    const word = (): string => Array.from({ length: 1 + Math.floor(random() * 4) }, () => alphabet[Math.floor(random() * alphabet.length)]).join('');
+    const among = sortByCodePoint([...new Set(Array.from({ length: 3000 }, word))]);
+    const terms = sortByCodePoint([...new Set([...Array.from({ length: 400 }, word), among[0]!, among[among.length - 1]!])]);
+    const columnOf = new Map(among.map((t, j) => [t, j]));
+    const expected = terms.map((t) => columnOf.get(t) ?? -1);
+    assert.ok(expected.some((c) => c < 0) && expected.filter((c) => c >= 0).length > 100, 'both present and absent terms are asked');
+    assert.deepEqual([...placesAmong(terms, among)], expected);
+    assert.deepEqual([...placesAmong([], among)], []);
+    assert.deepEqual([...placesAmong(terms, [])], terms.map(() => -1));
   });
 });

@@ -39,3 +39,27 @@ export function sortByCodePoint(terms: readonly string[]): string[] {
   }
   return surrogate && highBmp ? [...terms].sort(compareCodePoints) : [...terms].sort();
 }
+
+/**
+ * Where each of `terms` stands in `among`, or −1 where `among` lacks it; both in code point
+ * order. A binary search from the last place found: for a shard's few thousand terms among a
+ * merged vocabulary of hundreds of thousands, much less than a map of the vocabulary, which a
+ * corpus of many small shards built once per shard and round (engine/shards/sum-shard.ts).
+ */
+export function placesAmong(terms: readonly string[], among: readonly string[]): Int32Array {
+  const places = new Int32Array(terms.length);
+  let from = 0;
+  for (let i = 0; i < terms.length; i++) {
+    const term = terms[i]!;
+    let lo = from;
+    let hi = among.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (compareCodePoints(among[mid]!, term) < 0) lo = mid + 1;
+      else hi = mid;
+    }
+    places[i] = lo < among.length && among[lo] === term ? lo : -1;
+    from = lo;
+  }
+  return places;
+}

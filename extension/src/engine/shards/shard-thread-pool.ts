@@ -10,6 +10,14 @@ import type { CountPartial, PlanPartial, SumsPartial } from './partials';
 import type { ShardRunner } from './review-shards';
 
 type TaskBody = { shard: ShardRef; countsFile: string } & ({ step: 'count' } | { step: 'sums'; plan: PlanPartial });
+
+/**
+ * A task as posted: a sums step names its plan by number when the thread already holds it (the
+ * plan carries the merged vocabulary, ~10 MB to copy for each of a round's shards: a folder of 983
+ * small files spent ~5 s of its weighting posting it). A number, not the plan's planId: the
+ * rounds of one review share a planId and differ in their masks.
+ */
+type PostedBody = { shard: ShardRef; countsFile: string } & ({ step: 'count' } | { step: 'sums'; plan: PlanPartial | null; planNumber: number });
 const PREFIX = 'loudword-shards-';
 
 /**
@@ -29,7 +37,7 @@ async function removeOrphans(): Promise<void> {
   }
 }
 
-export type ShardTask = TaskBody & { id: number };
+export type ShardTask = PostedBody & { id: number };
 export type ShardTaskReply =
   | { id: number; partial: CountPartial | SumsPartial }
   | { id: number; error: { user: boolean; message: string; file: string | null; line: number | null; stack?: string } };
@@ -84,10 +92,22 @@ export async function shardThreadPool(settings: EffectiveSettings, threads: numb
     if (file === undefined) countsFiles.set(shard.key, (file = path.join(folder, `counts-${countsFiles.size}.bin`)));
     return file;
   };
+  // Each plan's number, and the plan each thread was last sent (shard-thread.ts keeps it).
+  const planNumbers = new WeakMap<PlanPartial, number>();
+  const planHeld = new Map<Worker, number>();
+  let nextPlanNumber = 1;
+  const planOnce = (worker: Worker, task: TaskBody & { step: 'sums' }): PostedBody => {
+    let planNumber = planNumbers.get(task.plan);
+    if (planNumber === undefined) planNumbers.set(task.plan, (planNumber = nextPlanNumber++));
+    const held = planHeld.get(worker) === planNumber;
+    planHeld.set(worker, planNumber);
+    return held ? { ...task, plan: null, planNumber } : { ...task, planNumber };
+  };
   async function run<T extends CountPartial | SumsPartial>(task: TaskBody): Promise<T> {
     if (pending.failure !== null) throw pending.failure;
     const worker = await acquire();
-    return pending.request((id) => worker.postMessage({ ...task, id })) as Promise<T>;
+    const posted: PostedBody = task.step === 'count' ? task : planOnce(worker, task);
+    return pending.request((id) => worker.postMessage({ ...posted, id })) as Promise<T>;
   }
   return {
     parallelism: threads,

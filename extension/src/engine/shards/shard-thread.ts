@@ -5,13 +5,15 @@ import { parentPort, workerData } from 'node:worker_threads';
 import type { EffectiveSettings } from '../../protocol';
 import { isUserError } from '../user-error';
 import { countShardKeeping } from './count-shard';
-import { settingsKey } from './partials';
+import { settingsKey, type PlanPartial } from './partials';
 import { readShardCounts, shardCountsOrigin, writeShardCounts } from './shard-counts';
 import { sumShard } from './sum-shard';
 import type { ShardTask, ShardTaskReply } from './shard-thread-pool';
 
 const settings = (workerData as { settings: EffectiveSettings }).settings;
 const key = settingsKey(settings);
+/** The last plan sent: the pool sends a plan once and then only its id (shard-thread-pool.ts). */
+let plan: { number: number; partial: PlanPartial } | null = null;
 
 async function run(task: ShardTask): Promise<ShardTaskReply> {
   try {
@@ -21,8 +23,10 @@ async function run(task: ShardTask): Promise<ShardTaskReply> {
       if (origin !== null) await writeShardCounts(task.countsFile, kept, origin);
       return { id: task.id, partial };
     }
+    if (task.plan !== null) plan = { number: task.planNumber, partial: task.plan };
+    if (plan === null || plan.number !== task.planNumber) throw new Error(`shard thread: plan ${task.planNumber} was never sent`);
     const kept = origin === null ? null : await readShardCounts(task.countsFile, origin);
-    return { id: task.id, partial: await sumShard(task.shard, task.plan, settings, kept) };
+    return { id: task.id, partial: await sumShard(task.shard, plan.partial, settings, kept) };
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
     return {

@@ -1,5 +1,6 @@
 import type { EffectiveSettings } from '../../protocol';
 import { countFile } from '../matrix/count-each-file';
+import { placesAmong } from '../matrix/compare-code-points';
 import { renumberFirstTerms, type CountMatrix, type Csr } from '../matrix/csr';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
 import { weighWithIdf } from '../matrix/weigh';
@@ -78,9 +79,7 @@ function shardNeighbors(request: NeighborRequest, cols: number, queries: { rows:
  * the merge pruned are dropped (a first term so dropped becomes −1).
  */
 function inPlanColumns(counts: CountMatrix, planTerms: readonly string[]): Csr & { firstTerms: Int32Array } {
-  const columnOf = new Map<string, number>();
-  for (let j = 0; j < planTerms.length; j++) columnOf.set(planTerms[j]!, j);
-  const local = counts.terms.map((t) => columnOf.get(t) ?? -1);
+  const local = placesAmong(counts.terms, planTerms);
   const total = counts.indptr[counts.rows]!;
   let kept = 0;
   for (let p = 0; p < total; p++) if (local[counts.indices[p]!]! >= 0) kept++;
