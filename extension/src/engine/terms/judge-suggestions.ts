@@ -283,17 +283,18 @@ export function caveatsOf(before: Measures, after: Measures): Verdict['caveats']
       out.push({ measure: 'orphans', sentence: `More documents are in no neighbour list (${h0.orphans} → ${h1.orphans}): short documents lose much of their text to the list and drift apart from everything.` });
     }
   }
-  if (before.contrast !== null && after.contrast !== null && after.contrast.median < before.contrast.median) {
+  // A sentence says "fell" or "rose" only where the figures it prints differ ("0.11 → 0.11" read as a contradiction).
+  if (before.contrast !== null && after.contrast !== null && after.contrast.median < before.contrast.median && f2(after.contrast.median) !== f2(before.contrast.median)) {
     out.push({ measure: 'relative contrast', sentence: `Relative contrast fell (${f2(before.contrast.median)} → ${f2(after.contrast.median)}): on text it falls as neighbours improve, because removing shared words makes far documents farther too (docs/methods.md §4).` });
   }
-  if (after.backgroundSimilarity > before.backgroundSimilarity) {
+  if (after.backgroundSimilarity > before.backgroundSimilarity && f3(after.backgroundSimilarity) !== f3(before.backgroundSimilarity)) {
     out.push({ measure: 'background similarity', sentence: `Background similarity rose (${f3(before.backgroundSimilarity)} → ${f3(after.backgroundSimilarity)}): the removed terms were rarer than what remains, so what every pair shares grew.` });
   }
   const p0 = before.labelPrecisionAtK;
   const p1 = after.labelPrecisionAtK;
   const s0 = before.neighborStandout;
   const s1 = after.neighborStandout;
-  if (p0 !== null && p1 !== null && s0 !== null && s1 !== null && p1 < p0 && s1 > s0) {
+  if (p0 !== null && p1 !== null && s0 !== null && s1 !== null && p1 < p0 && s1 > s0 && f2(s1) !== f2(s0)) {
     out.push({ measure: 'neighbour standout', sentence: `Neighbour standout rose (${f2(s0)} → ${f2(s1)}) while label precision fell: neighbours stand out more but agree less with the labels.` });
   }
   return out;

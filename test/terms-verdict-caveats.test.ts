@@ -1,0 +1,40 @@
+// The verdict's "Also:" sentences (caveatsOf, engine/terms/judge-suggestions.ts) explain measures
+// that moved the unhealthy way. A sentence whose two printed figures are the same ("Relative
+// contrast fell (0.11 → 0.11)", seen on a corpus of log lines) contradicts the table's
+// "unchanged": it is only said where the printed figures differ.
+import { strict as assert } from 'node:assert';
+import { caveatsOf } from '../extension/src/engine/terms/judge-suggestions';
+import type { Measures } from '../extension/src/protocol';
+
+function measures(contrast: number, background: number, standout: number, precision: number): Measures {
+  return {
+    sample: { documents: 2000, k: 10, seed: 1 },
+    backgroundSimilarity: background,
+    neighborStandout: standout,
+    contrast: { median: contrast, p10: 0.01, p90: 0.5 },
+    meanToNearest: 1.1,
+    iidEquivalentDimension: 100,
+    hubness: { skewness: 1, hubs: 10, orphans: 5 },
+    intrinsicDimension: { twoNN: 10, mle: 10 },
+    radiusSlack: { median: 0.1 },
+    topTermsMassShare: { top10: 0.1, top100: 0.2 },
+    labelPrecisionAtK: precision,
+    neighborTurnover: null,
+    distributions: { similarity: { start: 0, binWidth: 0.1, pairs: [], nearest: [] }, kOccurrence: [], cumulativeMass: [] },
+  } as unknown as Measures;
+}
+
+const named = (before: Measures, after: Measures): string[] => caveatsOf(before, after).map((c) => c.measure);
+
+describe('verdict caveats: said only where the printed figures moved', () => {
+  it('a fall or rise too small to print is not explained', () => {
+    assert.deepEqual(named(measures(0.113, 0.06541, 3.801, 0.5), measures(0.112, 0.06542, 3.804, 0.49)), []);
+  });
+
+  it('a fall or rise that prints is explained, each with its figures', () => {
+    const caveats = caveatsOf(measures(0.113, 0.065, 3.8, 0.5), measures(0.09, 0.07, 3.9, 0.49));
+    assert.deepEqual(caveats.map((c) => c.measure), ['relative contrast', 'background similarity', 'neighbour standout']);
+    assert.match(caveats[0]!.sentence, /fell \(0\.11 → 0\.09\)/);
+    assert.match(caveats[1]!.sentence, /rose \(0\.065 → 0\.070\)/);
+  });
+});
