@@ -30,7 +30,7 @@ export function winkInstance(pipe: WinkPipe): WinkMethods {
 export function freshWinkInstance(pipe: WinkPipe): WinkMethods {
   // Required here rather than imported at the top so the model is parsed only when needed.
   const winkNLP = require('wink-nlp') as (model: unknown, pipe: string[]) => WinkMethods;
-  // The core model wink reads for this instance (once, when it is made), kept to find its lexemes.
+  // The model wink is given for this instance (once, when it is made), kept to find its lexemes.
   const model = reusableModel();
   let core: LoadedCoreModel | undefined;
   const nlp = winkNLP({ ...model, ...UNUSED_MACHINES, ...(pipe === 'tokens' ? { sbd: () => NO_MACHINES } : {}), core: () => (core = forkOfCoreModel(pristineCore(model))) }, pipe === 'tokens' ? [] : ['sbd']);
