@@ -12,7 +12,7 @@ import type { ShardTask, ShardTaskReply } from './shard-thread-pool';
 
 const settings = (workerData as { settings: EffectiveSettings }).settings;
 const key = settingsKey(settings);
-/** The last plan sent: the pool sends a plan once and then only its id (shard-thread-pool.ts). */
+/** The last plan sent: the pool sends a plan once and then only its number (shard-thread-pool.ts). */
 let plan: { number: number; partial: PlanPartial } | null = null;
 
 async function run(task: ShardTask): Promise<ShardTaskReply> {
