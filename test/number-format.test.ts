@@ -24,5 +24,9 @@ describe('number-format', () => {
     assert.equal(formatNumber(123456.7), '123,457');
     assert.equal(formatNumber(-100), '−100');
     assert.equal(formatNumber(12.34), '12.3');
+    // rounding left over from equal values prints as 0 (common practice, no source); small figures keep their digits
+    assert.equal(formatNumber(1.6e-16), '0');
+    assert.equal(formatNumber(-2e-15), '0');
+    assert.equal(formatNumber(2.5e-7), '2.5e-7');
   });
 });

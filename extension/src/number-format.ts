@@ -34,11 +34,17 @@ export function groupedInteger(n: number): string {
   return n < 0 ? `-${text}` : text;
 }
 
+/**
+ * Below this a figure is rounding left over from a difference of equal values (a relative
+ * contrast of 1.6e-16 where every distance was the same), and prints as 0.
+ */
+const ROUNDING_NOISE = 1e-12;
+
 /** About three significant digits without exponents in the usual range. */
 export function formatNumber(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return NO_VALUE;
-  if (value === 0) return '0';
   const abs = Math.abs(value);
+  if (abs < ROUNDING_NOISE) return '0';
   let text: string;
   if (abs >= 100) text = groupedInteger(Math.round(value));
   else if (abs >= 10) text = value.toFixed(1);
