@@ -37,4 +37,14 @@ describe('verdict caveats: said only where the printed figures moved', () => {
     assert.match(caveats[0]!.sentence, /fell \(0\.11 → 0\.09\)/);
     assert.match(caveats[1]!.sentence, /rose \(0\.065 → 0\.070\)/);
   });
+
+  it('a sample too small for its k is said first; 2,000 documents for k = 10 are not', () => {
+    const small = (documents: number, k: number): Measures => ({ ...measures(0.1, 0.05, 3, 0.5), sample: { documents, k, seed: 1 } });
+    const caveats = caveatsOf(small(12, 10), { ...measures(0.05, 0.05, 3, 0.5), sample: { documents: 12, k: 10, seed: 1 } });
+    assert.deepEqual(caveats.map((c) => c.measure), ['sample', 'relative contrast']);
+    assert.match(caveats[0]!.sentence, /^Only 12 sampled documents for k = 10: each one's neighbours are 91% of the others/);
+    assert.deepEqual(named(small(101, 10), small(101, 10)), []);
+    assert.deepEqual(named(small(100, 10), small(100, 10)), ['sample']);
+    assert.deepEqual(named(small(2000, 10), small(2000, 10)), []);
+  });
 });

@@ -96,7 +96,7 @@ export interface Verdict {
     /** With neighborsAmong: how many sampled documents were searched for (fewer than the sample when the search of the corpus would cost too much). */
     neighborsFor?: number;
   } | null;
-  /** Measures that moved the other way, each explained in a sentence. */
+  /** A sample too small for its k ("sample"), then measures that moved the other way, each explained in a sentence. */
   caveats: Array<{ measure: string; sentence: string }>;
   /**
    * With labels and suggest.useLabels, when the rule suggested grammar words below half the

@@ -270,9 +270,22 @@ function meanOf(values: Float64Array): number {
   return count === 0 ? Number.NaN : sum / count;
 }
 
-/** Measures that moved the unhealthy way, each with the reason it usually does so. */
+/** A sample with fewer than this many others per neighbour is too small for its k (caveatsOf). */
+const NEIGHBOURS_PER_OTHERS = 10;
+
+/**
+ * Measures that moved the unhealthy way, each with the reason it usually does so; first, a
+ * sample too small for its k.
+ */
 export function caveatsOf(before: Measures, after: Measures): Verdict['caveats'] {
   const out: Verdict['caveats'] = [];
+  const { documents, k } = before.sample;
+  // Our own bound, no published one: with k above a tenth of the others, every document's
+  // neighbours are much of the sample, near and far alike, and no neighbour measure can tell.
+  if (documents > 1 && k * NEIGHBOURS_PER_OTHERS > documents - 1) {
+    const share = Math.round((100 * Math.min(k, documents - 1)) / (documents - 1));
+    out.push({ measure: 'sample', sentence: `Only ${documents} sampled documents for k = ${k}: each one's neighbours are ${share}% of the others, so the neighbour measures say little here; use a smaller k (sample.k) or more documents (sample.documents).` });
+  }
   const h0 = before.hubness;
   const h1 = after.hubness;
   if (h0 !== null && h1 !== null) {
