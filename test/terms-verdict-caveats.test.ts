@@ -5,23 +5,10 @@
 import { strict as assert } from 'node:assert';
 import { caveatsOf } from '../extension/src/engine/terms/judge-suggestions';
 import type { Measures } from '../extension/src/protocol';
+import { distinctMeasures } from './reference/distinct-measures';
 
 function measures(contrast: number, background: number, standout: number, precision: number): Measures {
-  return {
-    sample: { documents: 2000, k: 10, seed: 1 },
-    backgroundSimilarity: background,
-    neighborStandout: standout,
-    contrast: { median: contrast, p10: 0.01, p90: 0.5 },
-    meanToNearest: 1.1,
-    iidEquivalentDimension: 100,
-    hubness: { skewness: 1, hubs: 10, orphans: 5 },
-    intrinsicDimension: { twoNN: 10, mle: 10 },
-    radiusSlack: { median: 0.1 },
-    topTermsMassShare: { top10: 0.1, top100: 0.2 },
-    labelPrecisionAtK: precision,
-    neighborTurnover: null,
-    distributions: { similarity: { start: 0, binWidth: 0.1, pairs: [], nearest: [] }, kOccurrence: [], cumulativeMass: [] },
-  } as unknown as Measures;
+  return { ...distinctMeasures(), contrast: { median: contrast, p10: 0.01, p90: 0.5 }, backgroundSimilarity: background, neighborStandout: standout, labelPrecisionAtK: precision };
 }
 
 const named = (before: Measures, after: Measures): string[] => caveatsOf(before, after).map((c) => c.measure);
