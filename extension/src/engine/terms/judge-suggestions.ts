@@ -270,8 +270,8 @@ function meanOf(values: Float64Array): number {
   return count === 0 ? Number.NaN : sum / count;
 }
 
-/** A sample with fewer than this many others per neighbour is too small for its k (caveatsOf). */
-const NEIGHBOURS_PER_OTHERS = 10;
+/** A sample with fewer than this many other documents per neighbour is too small for its k (caveatsOf). */
+const NEIGHBOURS_PER_OTHERS = 5;
 
 /**
  * Measures that moved the unhealthy way, each with the reason it usually does so; first, a
@@ -280,7 +280,7 @@ const NEIGHBOURS_PER_OTHERS = 10;
 export function caveatsOf(before: Measures, after: Measures): Verdict['caveats'] {
   const out: Verdict['caveats'] = [];
   const { documents, k } = before.sample;
-  // Our own bound, no published one: with k above a tenth of the others, every document's
+  // Our own bound, no published one: with k above a fifth of the others, every document's
   // neighbours are much of the sample, near and far alike, and no neighbour measure can tell.
   if (documents > 1 && k * NEIGHBOURS_PER_OTHERS > documents - 1) {
     const share = Math.round((100 * Math.min(k, documents - 1)) / (documents - 1));
