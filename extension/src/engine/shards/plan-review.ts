@@ -12,6 +12,7 @@ import { createTokenizer } from '../tokenize/create-tokenizer';
 import { entriesOfThisTokenizer } from '../terms/contraction-pieces';
 import { UserError } from '../user-error';
 import { TermIndex } from '../what-if/term-index';
+import { placesAmong } from '../matrix/compare-code-points';
 import { candidateLimit } from './count-shard';
 import { checkSameSettings, encodeFloat64, header, maskColumns, maskId, settingsKey, type CountPartial, type PlanPartial } from './partials';
 
@@ -176,9 +177,11 @@ function mergeSample(
     if (chosen.length >= size) break;
     const cols: number[] = [];
     const kept: number[] = [];
+    // A candidate's terms are its row's, in code point order like the plan's.
+    const places = placesAmong(c.terms, index.terms);
     for (let i = 0; i < c.terms.length; i++) {
-      const col = index.column(c.terms[i]!);
-      if (col === undefined) continue;
+      const col = places[i]!;
+      if (col < 0) continue;
       cols.push(col);
       kept.push(c.counts[i]!);
     }

@@ -1,25 +1,40 @@
-/** Term ⇄ column look-ups over a vocabulary, and column masks built from term lists. */
-export class TermIndex {
-  private readonly columns: Map<string, number>;
+import { compareCodePoints } from '../matrix/compare-code-points';
 
+/**
+ * Term ⇄ column look-ups over a vocabulary in code point order (the matrix's columns), and column
+ * masks built from term lists. A term is found by binary search: a review asks for a few
+ * thousand terms at most (the stop list, the prior's words, a click's terms), and a `Map` of the
+ * 115k terms of the 100k bench corpus took ~40-65 ms to build, on the review's thread, before
+ * anything could be measured (docs/performance.md).
+ */
+export class TermIndex {
   constructor(readonly terms: readonly string[]) {
-    this.columns = new Map();
-    for (let j = 0; j < terms.length; j++) this.columns.set(terms[j]!, j);
+    for (let j = 1; j < terms.length; j++) {
+      if (compareCodePoints(terms[j - 1]!, terms[j]!) >= 0) throw new Error(`TermIndex: the terms are not in code point order at ${j} ("${terms[j - 1]}", "${terms[j]}")`);
+    }
   }
 
   column(term: string): number | undefined {
-    return this.columns.get(term);
+    const { terms } = this;
+    let lo = 0;
+    let hi = terms.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (compareCodePoints(terms[mid]!, term) < 0) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo < terms.length && terms[lo] === term ? lo : undefined;
   }
 
   has(term: string): boolean {
-    return this.columns.has(term);
+    return this.column(term) !== undefined;
   }
 
   /** Columns of the terms that are in the vocabulary; unknown terms are skipped. */
   columnsOf(terms: Iterable<string>): number[] {
     const out: number[] = [];
     for (const t of terms) {
-      const j = this.columns.get(t);
+      const j = this.column(t);
       if (j !== undefined) out.push(j);
     }
     return out;
