@@ -5,7 +5,8 @@
 // two shared cores, so by default it runs up to 100k only (--sklearn-knn-max 1M to include it).
 //
 // `npm run bench` runs 10k and 100k; `npm run bench:1m` runs the 1M size on its own (minutes,
-// a ~600 MB corpus). At 100k the review also runs with tokens.tokenizer "pattern".
+// a ~600 MB corpus). At 100k the review also runs with tokens.tokenizer "pattern", and on the
+// same corpus cut into 100 CSV files.
 //
 // usage: node test/bench/run.mjs [--sizes 10k,100k,1M] [--seed 1] [--toggles 9]
 //                                [--sklearn-knn-max 100k] [--skip-loudword] [--skip-sklearn]
@@ -177,7 +178,28 @@ function table(rows, align = 'lrr') {
   return rows.map((r) => r.map(cell).join('   ').trimEnd()).join('\n');
 }
 
-function printSize(label, corpus, lw, sk, whatIf, pattern, clock) {
+/** The 100k corpus is also reviewed as this many CSV files. */
+const FOLDER_FILES = 100;
+
+/**
+ * `file`'s rows in `parts` CSV files of whole rows, each with the header, in a folder beside it
+ * (made once). The generated corpora hold no line break inside a field, so a line is a row; the
+ * review's document count, printed beside the one file's, shows it.
+ */
+function corpusAsFiles(file, parts) {
+  const dir = file.replace(/\.csv$/, `-as-${parts}-files`);
+  const done = join(dir, 'complete');
+  if (existsSync(done)) return dir;
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const [header, ...rows] = readFileSync(file, 'utf8').split('\n').filter((line) => line !== '');
+  const per = Math.ceil(rows.length / parts);
+  for (let p = 0; p < parts; p++) writeFileSync(join(dir, `part-${String(p).padStart(3, '0')}.csv`), `${header}\n${rows.slice(p * per, (p + 1) * per).join('\n')}\n`);
+  writeFileSync(done, '');
+  return dir;
+}
+
+function printSize(label, corpus, lw, sk, whatIf, pattern, clock, files = null) {
   const queries = sk?.queries ?? lw?.sample?.documents ?? DEFAULT_QUERIES;
   const k = sk?.k ?? lw?.sample?.k ?? DEFAULT_K;
   const lwOk = lw && !lw.error;
@@ -199,6 +221,12 @@ function printSize(label, corpus, lw, sk, whatIf, pattern, clock) {
           ['peak RSS, "pattern"', pattern.error ? dash : megabytes(pattern.peakRss), ''],
         ]
       : []),
+    ...(files
+      ? [
+          [`full review, the same corpus as ${FOLDER_FILES} CSV files (wall; documents)`, files.error ? dash : `${seconds(files.wall)}; ${count(files.documents)}`, ''],
+          [`ratio ${FOLDER_FILES} files / one file`, !files.error && lwOk ? `${(files.wall / lw.wall).toFixed(2)}×` : dash, ''],
+        ]
+      : []),
     ['CPU time, user+sys (Loudword: whole process; sklearn: fit_transform | kNN)', lwOk ? seconds(lw.cpuSeconds) : dash, skOk ? `${seconds(sk.fitTransformCpuSeconds)} | ${seconds(sk.knnCpuSeconds)}` : dash],
     ['CPU ratio Loudword / fit_transform', cpuRatio == null ? dash : `${cpuRatio.toFixed(2)}×`, ''],
     ['tokens', lwOk ? count(lw.tokens) : dash, skOk ? count(sk.tokens) : dash],
@@ -216,6 +244,8 @@ function printSize(label, corpus, lw, sk, whatIf, pattern, clock) {
     console.log(`Loudword: peak RSS by ${lw.rssMethod}; wall measured around the child (node start-up, reading and writing included)${lw.exitCode ? `; CLI exit code ${lw.exitCode}` : ''}.`);
     if (lw.timings) console.log(`Loudword stages (Report timings, ms): ${Object.entries(lw.timings).map(([k2, v]) => `${k2} ${typeof v === 'number' ? v.toFixed(0) : v}`).join(', ')}`);
   }
+  if (files?.error) console.log(`Loudword, ${FOLDER_FILES} files: not measured — ${files.error}`);
+  else if (files?.timings) console.log(`Loudword, ${FOLDER_FILES} files, stages (ms): ${Object.entries(files.timings).map(([k2, v]) => `${k2} ${typeof v === 'number' ? v.toFixed(0) : v}`).join(', ')}`);
   if (pattern?.error) console.log(`Loudword "pattern": not measured — ${pattern.error}`);
   else if (pattern?.timings) console.log(`Loudword "pattern" stages (ms): ${Object.entries(pattern.timings).map(([k2, v]) => `${k2} ${typeof v === 'number' ? v.toFixed(0) : v}`).join(', ')}`);
   if (sk?.error) console.log(`scikit-learn: not measured — ${sk.error}`);
@@ -261,8 +291,11 @@ async function main() {
       writeFileSync(config, `${JSON.stringify({ tokens: { tokenizer: 'pattern' } })}\n`);
       pattern = await runLoudword(options.cli, corpus.file, `${label}-pattern`, config);
     }
+    // The same corpus as a folder of files, each counted with a tokeniser of its own (README
+    // "Many files"): what many files cost against one.
+    const files = options.loudword && documents === 100_000 ? await runLoudword(options.cli, corpusAsFiles(corpus.file, FOLDER_FILES), `${label}-${FOLDER_FILES}-files`) : null;
     results.set(documents, { lw, sk, whatIf, pattern });
-    printSize(label, corpus, lw, sk, whatIf, pattern, clock);
+    printSize(label, corpus, lw, sk, whatIf, pattern, clock, files);
   }
 
   // Growth: time ∝ nonzeros^e between 100k and 1M; e ≈ 1 means linear in the matrix size.
