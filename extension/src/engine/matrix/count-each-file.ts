@@ -1,20 +1,16 @@
 import type { CorpusRow, CorpusSource } from '../read/corpus-source';
 import type { FileByFileSource } from '../read/many-files-corpus';
-import { coderEncoder, type BatchEncoder, type FileLanes } from '../tokenize/batch-encoder';
+import { coderEncoder, type FileLanes } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
 import { freshTermCoder } from '../tokenize/fresh-term-coder';
 import { buildCountMatrix, type BuiltCorpus } from './build-count-matrix';
 import { compareCodePoints } from './compare-code-points';
 import { renumberFirstTerms } from './csr';
 
-/** An in-thread encoder whose tokeniser has seen nothing before this file (tokenize/fresh-term-coder.ts). */
-function freshFileEncoder(tokens: TokenSettings): BatchEncoder {
-  return coderEncoder(freshTermCoder(tokens));
-}
-
-/** Counts one file of a many-file corpus (one shard) with a fresh tokeniser. */
+/** Counts one file of a many-file corpus (one shard) in this thread, with a fresh tokeniser (tokenize/fresh-term-coder.ts). */
 export function countFile(source: CorpusSource, tokens: TokenSettings, signal?: AbortSignal): Promise<BuiltCorpus> {
-  return buildCountMatrix(source, tokens, signal === undefined ? { encoder: freshFileEncoder(tokens) } : { encoder: freshFileEncoder(tokens), signal });
+  const encoder = coderEncoder(freshTermCoder(tokens));
+  return buildCountMatrix(source, tokens, signal === undefined ? { encoder } : { encoder, signal });
 }
 
 /** The files' counts as one corpus: rows one file after another, columns the union in code point order. */

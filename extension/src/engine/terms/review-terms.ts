@@ -202,7 +202,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
       const c = index.column(term);
       return c !== undefined && baseMask[c] === 1;
     },
-    (piece) => index.column(piece) !== undefined,
+    (piece) => index.has(piece),
   );
   return { rows, suggestions, spellings, pieces, suggested, opinion, suggestedMask, verdict };
 }

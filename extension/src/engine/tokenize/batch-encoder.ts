@@ -84,19 +84,8 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
   const early = takeEarlyThreads(script, workers, TOKENIZING_HEAP.maxYoungGenerationSizeMb);
   for (let w = 0; w < workers; w++) {
     const worker = early?.[w] ?? new Worker(script, { resourceLimits: TOKENIZING_HEAP });
-    const waiting = new PendingReplies<EncodedBatch>();
-    const fail = (e: Error): void => {
-      failure ??= e;
-      waiting.fail(e);
-    };
-    worker.on('message', (reply: TokenizeReply) => {
-      if (reply.batch !== null) waiting.resolve(reply.seq, received(reply.batch, w));
-      else waiting.reject(reply.seq, new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
-    });
-    worker.on('error', fail);
-    worker.on('exit', (code) => fail(new Error(`tokenize worker exited with code ${code}`)));
     pool.push(worker);
-    replies.push(waiting);
+    replies.push(repliesOf(worker, w, (e) => (failure ??= e)));
   }
 
   const close = async (): Promise<void> => {
@@ -118,10 +107,7 @@ export function startTokenizingThreads(workers: number, script: string): Tokeniz
           if (failure !== null) return Promise.reject(failure);
           const s = seq++;
           const w = s % pool.length;
-          return replies[w]!.request((id) => {
-            const request: TokenizeRequest = { type: 'texts', seq: id, texts };
-            pool[w]!.postMessage(request);
-          }, s);
+          return postTexts(pool[w]!, replies[w]!, texts, s);
         },
         close,
       };
@@ -163,16 +149,9 @@ export function startFileLanes(lanes: number, script: string): FileLanes | null 
   const replies: PendingReplies<EncodedBatch>[] = [];
   for (let w = 0; w < lanes; w++) {
     const worker = new Worker(script, { resourceLimits: TOKENIZING_HEAP });
-    const waiting = new PendingReplies<EncodedBatch>();
-    worker.on('message', (reply: TokenizeReply) => {
-      // Each file is counted on its own (its own CountAccumulator), so every batch is stream 0.
-      if (reply.batch !== null) waiting.resolve(reply.seq, received(reply.batch, 0));
-      else waiting.reject(reply.seq, new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
-    });
-    worker.on('error', (e) => waiting.fail(e));
-    worker.on('exit', (code) => waiting.fail(new Error(`tokenize worker exited with code ${code}`)));
     pool.push(worker);
-    replies.push(waiting);
+    // Each file is counted on its own (its own CountAccumulator), so every batch is stream 0.
+    replies.push(repliesOf(worker, 0));
   }
   return {
     lanes,
@@ -184,11 +163,7 @@ export function startFileLanes(lanes: number, script: string): FileLanes | null 
       return {
         parallelism: LANE_BACKLOG,
         threads: 0,
-        encode: (texts) =>
-          waiting.request((id) => {
-            const request: TokenizeRequest = { type: 'texts', seq: id, texts };
-            worker.postMessage(request);
-          }),
+        encode: (texts) => postTexts(worker, waiting, texts),
         close: () => Promise.resolve(),
       };
     },
@@ -197,6 +172,33 @@ export function startFileLanes(lanes: number, script: string): FileLanes | null 
       await Promise.all(pool.map((w) => w.terminate()));
     },
   };
+}
+
+/**
+ * The requests waiting for `worker`'s batches, which are filed as stream `stream`. A failure of
+ * the thread (an error, an exit) rejects them all and every later one; `onFailure` hears it first.
+ */
+function repliesOf(worker: Worker, stream: number, onFailure: (e: Error) => void = () => undefined): PendingReplies<EncodedBatch> {
+  const waiting = new PendingReplies<EncodedBatch>();
+  const fail = (e: Error): void => {
+    onFailure(e);
+    waiting.fail(e);
+  };
+  worker.on('message', (reply: TokenizeReply) => {
+    if (reply.batch !== null) waiting.resolve(reply.seq, received(reply.batch, stream));
+    else waiting.reject(reply.seq, new Error(`tokenize worker: ${reply.error ?? 'no reply'}`));
+  });
+  worker.on('error', fail);
+  worker.on('exit', (code) => fail(new Error(`tokenize worker exited with code ${code}`)));
+  return waiting;
+}
+
+/** Sends `texts` to `worker` to be tokenised, as request `id` (by default the next) of `waiting`. */
+function postTexts(worker: Worker, waiting: PendingReplies<EncodedBatch>, texts: string[], id?: number): Promise<EncodedBatch> {
+  return waiting.request((seq) => {
+    const request: TokenizeRequest = { type: 'texts', seq, texts };
+    worker.postMessage(request);
+  }, id);
 }
 
 /**

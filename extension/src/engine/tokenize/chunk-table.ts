@@ -50,8 +50,7 @@ export class ChunkTable {
   /** Forgets every entry (when maxEntries is reached; the caller is told by `set`'s result). */
   clear(): void {
     const capacity = this.capacity;
-    this.slots = new Int32Array(capacity * SLOT);
-    for (let s = 0; s < capacity; s++) this.slots[s * SLOT + VALUE] = ABSENT;
+    this.slots = emptySlots(capacity);
     this.chars = new Uint16Array(capacity >>> 2);
     this.used = 0;
     this.mask = capacity - 1;
@@ -180,8 +179,7 @@ export class ChunkTable {
    */
   private rehash(capacity: number): void {
     const old = this.slots;
-    const slots = new Int32Array(capacity * SLOT);
-    for (let s = 0; s < capacity; s++) slots[s * SLOT + VALUE] = ABSENT;
+    const slots = emptySlots(capacity);
     const mask = capacity - 1;
     for (let at = 0; at < old.length; at += SLOT) {
       if (old[at + VALUE] === ABSENT) continue;
@@ -204,3 +202,10 @@ export function hashOf(text: string, start: number, end: number): number {
 
 export const FNV_OFFSET = 0x811c9dc5 | 0;
 export const FNV_PRIME = 16777619;
+
+/** `capacity` slots, every one ABSENT. */
+function emptySlots(capacity: number): Int32Array<ArrayBuffer> {
+  const slots = new Int32Array(capacity * SLOT);
+  for (let s = 0; s < capacity; s++) slots[s * SLOT + VALUE] = ABSENT;
+  return slots;
+}
