@@ -26,6 +26,23 @@ describe('columnPreviews', () => {
     assert.deepEqual(got[1], { name: 'n', samples: ['3'] });
   });
 
+  it('columnPreviews reads the keys of a JSON array cut anywhere, indented or not', () => {
+    const records = [
+      { id: 1, body: 'first [text]', meta: { a: 1 } },
+      { id: 2, body: 'second "text"' },
+      { id: 3, body: 'third' },
+    ];
+    for (const indent of [undefined, 2]) {
+      const text = JSON.stringify(records, null, indent);
+      const cut = text.slice(0, text.indexOf('third') + 2);
+      assert.deepEqual(columnPreviews(cut, 'json'), [
+        { name: 'id', samples: ['1', '2'] },
+        { name: 'body', samples: ['first [text]', 'second "text"'] },
+        { name: 'meta', samples: ['{"a":1}'] },
+      ]);
+    }
+  });
+
   it('missingFieldRole tells the missing-field errors from the others', () => {
     assert.equal(missingFieldRole('no label field "topic"; available: "id", "text"'), 'label');
     assert.equal(missingFieldRole('no text column "body"; available: "a"'), 'text');

@@ -183,7 +183,9 @@ export interface SettingsProvenance {
   sources: Record<string, { from: SettingSourceKind; where: string }>;
 }
 
-export type CorpusFormatName = 'csv' | 'tsv' | 'jsonl' | 'text' | 'parquet' | 'files';
+/** How a corpus can be read (`format`, `--input-format`): the one list; loudword.schema.json's enum is it plus "auto", held equal by a test. */
+export const CORPUS_FORMATS = ['csv', 'tsv', 'jsonl', 'json', 'text', 'parquet', 'files'] as const;
+export type CorpusFormatName = (typeof CORPUS_FORMATS)[number];
 /** The token kinds a user can keep (`tokens.kinds`): the one list; loudword.schema.json's enum is held equal by a test. */
 export const TOKEN_KINDS = ['word', 'number', 'url', 'email', 'hashtag', 'mention', 'emoji', 'emoticon', 'symbol', 'punctuation', 'currency', 'ordinal', 'time', 'shortForm'] as const;
 export type TokenKind = (typeof TOKEN_KINDS)[number];

@@ -1,5 +1,5 @@
 import { parseArgs as parseNodeArgs } from 'node:util';
-import type { CorpusFormatName } from '../protocol';
+import { CORPUS_FORMATS, type CorpusFormatName } from '../protocol';
 import { schemaAt } from '../engine/config/settings-schema';
 import { UserError } from '../engine/user-error';
 
@@ -70,7 +70,7 @@ export const OPTIONS: readonly OptionSpec[] = [
   { flag: 'config', field: 'config', value: 'FILE', check: { kind: 'name' }, help: 'loudword.json to read (default: the nearest one from the corpus folder up to the project root)' },
   { flag: 'no-config', field: 'noConfig', help: 'ignore any loudword.json' },
   { flag: 'stoplist', setting: 'stopList', field: 'stopList', value: 'FILE', check: { kind: 'name' }, help: 'the stop list file (default: "stopList" of the config, else stoplist.txt)' },
-  { flag: 'input-format', setting: 'format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: ['csv', 'tsv', 'jsonl', 'text', 'parquet', 'files'] }, help: 'how to read the corpus (default: from the file name and content); files: a folder, each file one document (--label folder: its subfolder)' },
+  { flag: 'input-format', setting: 'format', field: 'inputFormat', value: 'F', check: { kind: 'choice', choices: [...CORPUS_FORMATS] }, help: 'how to read the corpus (default: from the file name and content); files: a folder, each file one document (--label folder: its subfolder)' },
   { flag: 'format', field: 'format', value: 'F', check: { kind: 'choice', choices: ['text', 'json', 'md', 'html'] }, help: 'output; json prints the Report (default text)' },
   { flag: 'out', field: 'out', value: 'FILE', check: { kind: 'name' }, help: 'write the output to FILE instead of standard output' },
   { flag: 'sample', setting: 'sample.documents', field: 'sample', value: 'N', check: { kind: 'count', setting: ['sample', 'documents'] }, help: 'documents in the seeded sample for the neighbour measures' },

@@ -8,11 +8,12 @@ import { columnPreviews, missingFieldRole } from './pure/column-previews';
 /** Bytes read from the start of the file for the previews. */
 const HEAD_BYTES = 64 * 1024;
 
-function formatOf(file: string): 'csv' | 'tsv' | 'jsonl' | null {
+function formatOf(file: string): 'csv' | 'tsv' | 'jsonl' | 'json' | null {
   const ext = path.extname(file).toLowerCase();
   if (ext === '.csv') return 'csv';
   if (ext === '.tsv' || ext === '.tab') return 'tsv';
   if (ext === '.jsonl' || ext === '.ndjson') return 'jsonl';
+  if (ext === '.json') return 'json';
   return null;
 }
 

@@ -17,7 +17,11 @@ export interface CorpusFile {
 /** The start of the error for a folder with no file a table or lines can be read from (the editor then offers format "files"). */
 export const NO_CORPUS_FILES = 'the folder holds no corpus files';
 
-/** File names a folder of shards may hold; anything else in it (a README, a .crc) is left out. */
+/**
+ * File names a folder of shards may hold; anything else in it (a README, a .crc) is left out, and
+ * so is .json, the name of the configs that sit beside a corpus (loudword.json, package.json): a
+ * glob ('shards/*.json') names JSON arrays.
+ */
 const CORPUS_FILE = /\.(csv|tsv|tab|jsonl|ndjson|txt|text|parquet)(\.gz)?$/i;
 
 /** True when `input` names more than one file: a glob pattern, or a folder. */
@@ -51,7 +55,8 @@ export async function listCorpusFiles(input: string): Promise<CorpusFile[]> {
     if (!isDir) return [{ path: input, key: path.basename(input) }];
     const files = (await walk(input)).filter((rel) => CORPUS_FILE.test(rel));
     if (files.length === 0) {
-      throw new UserError(`${NO_CORPUS_FILES} (.csv, .tsv, .jsonl, .txt, .parquet, optionally .gz); for a folder of documents, one per file, use --input-format files (format "files")`, input, null);
+      const json = (await walk(input)).some((rel) => /\.json(\.gz)?$/i.test(rel)) ? `; .json files are left out of a folder (configs share the name): name them with a glob, '${path.join(input, '*.json')}'` : '';
+      throw new UserError(`${NO_CORPUS_FILES} (.csv, .tsv, .jsonl, .txt, .parquet, optionally .gz)${json}; for a folder of documents, one per file, use --input-format files (format "files")`, input, null);
     }
     return sorted(files.map((rel) => ({ path: path.join(input, rel), key: rel })));
   }

@@ -1,9 +1,11 @@
+import * as path from 'node:path';
 import type { CorpusFormatName } from '../../protocol';
 import { UserError } from '../user-error';
 import type { ReadOptions } from './corpus-source';
 import { CsvRecordSplitter } from './csv-record-splitter';
-import { sniffDelimiter, formatFromExtension, sniffFormat } from './detect-format';
+import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat } from './detect-format';
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
+import { JsonArraySplitter } from './json-array-splitter';
 import { parseJsonlLine } from './jsonl-value';
 import { LineSplitter } from './line-splitter';
 
@@ -11,7 +13,7 @@ import { LineSplitter } from './line-splitter';
 export interface CorpusLayout {
   format: CorpusFormatName;
   delimiter: string | null;
-  /** Header names (CSV/TSV; empty ones named "column N") or keys seen (JSON Lines). */
+  /** Header names (CSV/TSV; empty ones named "column N") or keys seen (JSON Lines, a JSON array). */
   fields: string[];
   textField: string | null;
   labelField: string | null;
@@ -50,6 +52,8 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
     }
     case 'jsonl':
       return jsonlLayout(file, head, headComplete, options);
+    case 'json':
+      return jsonArrayLayout(file, head, headComplete, options);
     case 'text':
       if (options.textField != null || options.labelField != null) {
         notes.push('plain text has one document per line and no fields: the text and label settings were ignored');
@@ -115,13 +119,85 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
 }
 
 function jsonlLayout(file: string, head: string, headComplete: boolean, options: ReadOptions): CorpusLayout {
-  const lines = new LineSplitter();
+  return recordsLayout(file, 'jsonl', options, (take) => {
+    const lines = new LineSplitter();
+    lines.push(head, take);
+    lines.end(take, !headComplete);
+  });
+}
+
+/**
+ * A `.json` file: a JSON array of records, or — when it holds one object a line, as pandas'
+ * `to_json(lines=True)` writes under that name — JSON Lines, with a note. One JSON object alone
+ * gets a message naming the keys that hold arrays, since the records are usually under one.
+ */
+function jsonArrayLayout(file: string, head: string, headComplete: boolean, options: ReadOptions): CorpusLayout {
+  const firstLine = firstNonBlankLine(head);
+  if (firstLine !== null && firstLine.text.trimStart().startsWith('{')) {
+    const parsed = parseJsonlLine(firstLine.text);
+    // One object on one line that holds an array is a wrapper ({"data": [...]}), not JSON Lines.
+    const wrapper = parsed.ok && headComplete && head.trim() === firstLine.text.trim() && Object.values(parsed.object).some(Array.isArray);
+    if (!parsed.ok || wrapper) throw new UserError(singleObjectMessage(file, head, headComplete), file, firstLine.line);
+    const layout = jsonlLayout(file, head, headComplete, options);
+    return { ...layout, notes: [...layout.notes, 'the .json file holds one JSON object a line: read as JSON Lines'] };
+  }
+  const elements: Array<{ text: string; line: number }> = [];
+  const splitter = new JsonArraySplitter(file);
+  const take = (text: string, line: number): void => {
+    if (elements.length < DETECT_ROWS) elements.push({ text, line });
+  };
+  // Only the head's records are needed; where the head is not the whole file its end is a cut.
+  splitter.push(head, take);
+  splitter.end(take, !headComplete);
+  if (elements.length === 0) {
+    throw new UserError(headComplete ? 'no documents: the JSON array is empty' : 'found no complete record in the start of the JSON array', file, null);
+  }
+  // An array of strings (json.dump of a list of texts): each string is a document.
+  if (elements[0]!.text.startsWith('"')) {
+    const notes = options.textField != null || options.labelField != null ? ['a JSON array of strings has no fields: the text and label settings were ignored'] : [];
+    return { format: 'json', delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, quoted: false, notes, sampled: elements.length };
+  }
+  return recordsLayout(file, 'json', options, (each) => {
+    for (const { text, line } of elements) each(text, line);
+  });
+}
+
+/** What a file holding a single JSON object (not records) gets: where its records may be. */
+function singleObjectMessage(file: string, head: string, headComplete: boolean): string {
+  const base = 'a single JSON object, not records: Loudword reads a JSON array of objects ([{"text": …}, …]) or JSON Lines (one object a line)';
+  if (!headComplete) return base;
+  let value: unknown;
+  try {
+    value = JSON.parse(head);
+  } catch {
+    return base;
+  }
+  if (typeof value !== 'object' || value === null) return base;
+  const arrays = Object.entries(value).filter(([, v]) => Array.isArray(v));
+  if (arrays.length === 0) return base;
+  const [key] = arrays[0] as [string, unknown[]];
+  const named = arrays.map(([k, v]) => `"${k}" (${(v as unknown[]).length} items)`).join(', ');
+  const name = path.basename(file);
+  const jqKey = /^[A-Za-z_][A-Za-z0-9_]*$/.test(key) ? key : JSON.stringify(key);
+  return `${base}; its arrays: ${named} — to read "${key}", write it one record a line: jq -c '.${jqKey}[]' ${name} > ${name.replace(/\.json$/i, '')}.jsonl`;
+}
+
+/**
+ * Fields and text field of JSON records (JSON Lines lines or a JSON array's elements), from the
+ * first DETECT_ROWS records that `feed` passes to its callback.
+ */
+function recordsLayout(
+  file: string,
+  format: 'jsonl' | 'json',
+  options: ReadOptions,
+  feed: (take: (text: string, line: number) => void) => void,
+): CorpusLayout {
   const keys = new Set<string>();
   const sample: Array<Map<string, unknown>> = [];
   let nonBlank = 0;
   let broken = 0;
   let firstBad: { line: number; reason: string } | null = null;
-  const take = (text: string, line: number): void => {
+  feed((text: string, line: number): void => {
     if (nonBlank >= DETECT_ROWS || text.trim() === '') return;
     nonBlank++;
     const parsed = parseJsonlLine(text);
@@ -136,17 +212,14 @@ function jsonlLayout(file: string, head: string, headComplete: boolean, options:
       row.set(k, v);
     }
     sample.push(row);
-  };
-  lines.push(head, take);
-  lines.end(take, !headComplete);
+  });
   const bad = firstBad as { line: number; reason: string } | null;
-  if (bad !== null && (broken * 2 > nonBlank || sample.length === 0)) {
+  // A JSON Lines file counts the lines that are not JSON at all; an array, its elements that are not objects.
+  const failed = format === 'jsonl' ? broken : nonBlank - sample.length;
+  if (bad !== null && (failed * 2 > nonBlank || sample.length === 0)) {
     // Source: jsonlines.org — every line must be a valid JSON value; most lines failing means this is not JSON Lines.
-    throw new UserError(
-      `${broken} of the first ${nonBlank} lines are not JSON Lines documents; first bad line ${bad.line}: ${bad.reason}`,
-      file,
-      bad.line,
-    );
+    const what = format === 'jsonl' ? 'lines are not JSON Lines documents; first bad line' : 'elements of the JSON array are not records (objects or strings); the first bad one is on line';
+    throw new UserError(`${failed} of the first ${nonBlank} ${what} ${bad.line}: ${bad.reason}`, file, bad.line);
   }
   const fields = [...keys];
   const labelField = pickField(file, fields, options.labelField ?? null, 'label', null);
@@ -155,7 +228,7 @@ function jsonlLayout(file: string, head: string, headComplete: boolean, options:
   if (textField === null) {
     throw new UserError(`found no key with text; name one with the text setting (keys: ${list(fields)})`, file, null);
   }
-  return { format: 'jsonl', delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, quoted: false, notes: [], sampled: sample.length };
+  return { format, delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, quoted: false, notes: [], sampled: sample.length };
 }
 
 /**

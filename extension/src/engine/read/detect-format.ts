@@ -7,6 +7,7 @@ const EXTENSIONS: Readonly<Record<string, CorpusFormatName>> = {
   '.tab': 'tsv',
   '.jsonl': 'jsonl',
   '.ndjson': 'jsonl',
+  '.json': 'json',
   '.txt': 'text',
   '.text': 'text',
 };
@@ -54,8 +55,10 @@ export function sniffDelimiter(head: string, headComplete: boolean, candidates: 
 
 /** Content sniffing for files whose extension says nothing. */
 export function sniffFormat(head: string, headComplete: boolean): { format: CorpusFormatName; delimiter: string | null } {
-  const firstLine = firstNonBlankLine(head);
+  const firstLine = firstNonBlankLine(head)?.text ?? null;
   if (firstLine !== null && firstLine.trimStart().startsWith('{')) return { format: 'jsonl', delimiter: null };
+  // A JSON array of records opens with "[" and then "{" or a line break; a log line's "[INFO]" does not.
+  if (firstLine !== null && /^\s*\[\s*(\{|$)/.test(firstLine)) return { format: 'json', delimiter: null };
   const guess = sniffDelimiter(head, headComplete);
   // A table needs a header and rows that agree with it; prose with a comma here and there does not.
   if (guess !== null && guess.records >= 2 && guess.consistency >= 0.9) {
@@ -64,14 +67,17 @@ export function sniffFormat(head: string, headComplete: boolean): { format: Corp
   return { format: 'text', delimiter: null };
 }
 
-function firstNonBlankLine(text: string): string | null {
+/** The first line with more than whitespace, and its 1-based number. */
+export function firstNonBlankLine(text: string): { text: string; line: number } | null {
   let start = 0;
+  let line = 1;
   while (start < text.length) {
     let end = text.indexOf('\n', start);
     if (end < 0) end = text.length;
-    const line = text.slice(start, end);
-    if (line.trim() !== '') return line;
+    const piece = text.slice(start, end);
+    if (piece.trim() !== '') return { text: piece, line };
     start = end + 1;
+    line++;
   }
   return null;
 }

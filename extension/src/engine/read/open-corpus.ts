@@ -142,7 +142,7 @@ class StreamedCorpus implements CorpusSource {
     }
     sink.end(this.cut !== null);
     this.truncated = this.cut;
-    checkPass(this.file, state);
+    checkPass(this.file, state, this.layout.format);
     for (let i = 0; i < pending.length; i += batchSize) yield pending.slice(i, i + batchSize);
   }
 }

@@ -1,6 +1,8 @@
+import type { CorpusFormatName } from '../../protocol';
 import type { CorpusRow, SkippedRow } from './corpus-source';
 import type { CorpusLayout } from './corpus-layout';
 import { CsvRecordSplitter } from './csv-record-splitter';
+import { JsonArraySplitter } from './json-array-splitter';
 import { parseJsonlLine, scalarText } from './jsonl-value';
 import { LineSplitter, MAX_LINE_CHARS } from './line-splitter';
 import { formatCount } from '../../number-format';
@@ -12,7 +14,7 @@ export const MAX_SKIPPED_EXAMPLES = 20;
 export interface PassState {
   skipped: { count: number; examples: SkippedRow[] };
   documents: number;
-  /** Lines that were not valid JSON (JSON Lines only). */
+  /** Lines (JSON Lines) or elements (a JSON array) that were not valid JSON. */
   brokenJson: number;
 }
 
@@ -40,6 +42,8 @@ export function createRowSink(file: string, layout: CorpusLayout, state: PassSta
       return tableSink(file, layout, skip, accept);
     case 'jsonl':
       return lineSink((text, line) => jsonlRow(layout, text, line, skip, accept, state), skip);
+    case 'json':
+      return arraySink(file, layout.textField === null ? (text, line) => stringElement(text, line, skip, accept, state) : (text, line) => jsonlRow(layout, text, line, skip, accept, state), skip);
     case 'text':
       return lineSink((text, line) => {
         if (text.trim() !== '') accept({ text, label: null, line });
@@ -110,6 +114,30 @@ function ownValue(object: Record<string, unknown>, key: string): unknown {
   return Object.hasOwn(object, key) ? object[key] : undefined;
 }
 
+/** An element of a JSON array of strings: the string is the document. */
+function stringElement(text: string, line: number, skip: (line: number, reason: string) => void, accept: Emit, state: PassState): void {
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch (e) {
+    state.brokenJson++;
+    return skip(line, `not valid JSON (${(e as Error).message.slice(0, 120)})`);
+  }
+  if (typeof value !== 'string') return skip(line, `a JSON ${value === null ? 'null' : Array.isArray(value) ? 'array' : typeof value} in an array of strings`);
+  if (value.trim() === '') return skip(line, 'an empty string');
+  accept({ text: value, label: null, line });
+}
+
+function arraySink(file: string, onElement: (text: string, line: number) => void, skip: (line: number, reason: string) => void): RowSink {
+  const splitter = new JsonArraySplitter(file, MAX_LINE_CHARS, (line, chars) =>
+    skip(line, `${(chars / 1024 / 1024).toFixed(0)} Mi characters in one element of the array, more than the ${MAX_LINE_CHARS / 1024 / 1024} Mi a document may have`),
+  );
+  return {
+    push: (chunk) => splitter.push(chunk, onElement),
+    end: (cut) => splitter.end(onElement, cut),
+  };
+}
+
 function lineSink(onLine: (text: string, line: number) => void, skip: (line: number, reason: string) => void): RowSink {
   const splitter = new LineSplitter(MAX_LINE_CHARS, (line, chars) =>
     skip(line, `${(chars / 1024 / 1024).toFixed(0)} Mi characters on one line, more than the ${MAX_LINE_CHARS / 1024 / 1024} Mi a document may have (a minified or binary blob?)`),
@@ -121,16 +149,16 @@ function lineSink(onLine: (text: string, line: number) => void, skip: (line: num
 }
 
 /** After a full pass: a pass with no documents, or mostly broken JSON, is the user's to fix. */
-export function checkPass(file: string, state: PassState): void {
+export function checkPass(file: string, state: PassState, format: CorpusFormatName): void {
   const first = state.skipped.examples[0];
   if (state.documents === 0) {
     const why = first === undefined ? '' : `; ${state.skipped.count} skipped, first on line ${first.line}: ${first.reason}`;
     throw new UserError(`no documents${why}`, file, first?.line ?? null);
   }
   if (state.brokenJson > state.documents && first !== undefined) {
-    // Source: jsonlines.org — each line is one valid JSON value.
+    // Source: jsonlines.org — each line is one valid JSON value (RFC 8259 for an array's elements).
     throw new UserError(
-      `${formatCount(state.brokenJson)} lines are not valid JSON against ${formatCount(state.documents)} documents; first bad line ${first.line}: ${first.reason}`,
+      `${formatCount(state.brokenJson)} ${format === 'json' ? 'elements of the array' : 'lines'} are not valid JSON against ${formatCount(state.documents)} documents; first bad line ${first.line}: ${first.reason}`,
       file,
       first.line,
     );

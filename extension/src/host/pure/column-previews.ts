@@ -1,7 +1,8 @@
-// The columns (CSV/TSV) or keys (JSON Lines) of a corpus with a preview of their first values,
+// The columns (CSV/TSV) or keys (JSON Lines, a JSON array) of a corpus with a preview of their first values,
 // for the picker offered when the text or label field is missing. Reads only the start of the
 // text it is given. Pure: no editor types.
 import Papa from 'papaparse';
+import { JsonArraySplitter } from '../../engine/read/json-array-splitter';
 
 export interface ColumnPreview {
   name: string;
@@ -18,26 +19,10 @@ function shorten(value: unknown): string {
 }
 
 /** `head`: the first few kilobytes of the corpus; `format` as the Report names it. */
-export function columnPreviews(head: string, format: 'csv' | 'tsv' | 'jsonl'): ColumnPreview[] {
+export function columnPreviews(head: string, format: 'csv' | 'tsv' | 'jsonl' | 'json'): ColumnPreview[] {
   const text = head.replace(/^\uFEFF/, '');
-  if (format === 'jsonl') {
-    const byKey = new Map<string, string[]>();
-    for (const line of text.split(/\r?\n/).slice(0, 20)) {
-      let row: unknown;
-      try {
-        row = JSON.parse(line);
-      } catch {
-        continue;
-      }
-      if (typeof row !== 'object' || row === null || Array.isArray(row)) continue;
-      for (const [key, value] of Object.entries(row)) {
-        const list = byKey.get(key) ?? [];
-        if (list.length < PREVIEW_ROWS && value !== null && value !== '') list.push(shorten(value));
-        byKey.set(key, list);
-      }
-    }
-    return [...byKey].map(([name, samples]) => ({ name, samples }));
-  }
+  if (format === 'jsonl') return keyPreviews(text.split(/\r?\n/).slice(0, 20));
+  if (format === 'json') return keyPreviews(firstElements(text, 20));
   const parsed = Papa.parse<string[]>(text, { delimiter: format === 'tsv' ? '\t' : ',', preview: 1 + 20, skipEmptyLines: true });
   const [header, ...rows] = parsed.data;
   if (header === undefined) return [];
@@ -49,6 +34,40 @@ export function columnPreviews(head: string, format: 'csv' | 'tsv' | 'jsonl'): C
       .slice(0, PREVIEW_ROWS)
       .map(shorten),
   }));
+}
+
+/** The keys of the first JSON records given, each with its first values. */
+function keyPreviews(records: readonly string[]): ColumnPreview[] {
+  const byKey = new Map<string, string[]>();
+  for (const record of records) {
+    let row: unknown;
+    try {
+      row = JSON.parse(record);
+    } catch {
+      continue;
+    }
+    if (typeof row !== 'object' || row === null || Array.isArray(row)) continue;
+    for (const [key, value] of Object.entries(row)) {
+      const list = byKey.get(key) ?? [];
+      if (list.length < PREVIEW_ROWS && value !== null && value !== '') list.push(shorten(value));
+      byKey.set(key, list);
+    }
+  }
+  return [...byKey].map(([name, samples]) => ({ name, samples }));
+}
+
+/** The source text of a JSON array's first elements in `head` (the start of the file). */
+function firstElements(head: string, count: number): string[] {
+  const found: string[] = [];
+  const splitter = new JsonArraySplitter('');
+  try {
+    splitter.push(head.replace(/\r\n?/g, '\n'), (text) => {
+      if (found.length < count) found.push(text);
+    });
+  } catch {
+    // Not an array after all: whatever was read before the break still previews.
+  }
+  return found;
 }
 
 /**
