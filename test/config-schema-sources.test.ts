@@ -4,6 +4,8 @@ import * as path from 'node:path';
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { parseSettings } from '../extension/src/engine/config/parse-settings';
 import { SETTINGS_SCHEMA, schemaAt, type SchemaNode } from '../extension/src/engine/config/settings-schema';
+import { OPTIONS } from '../extension/src/cli/parse-args';
+import { CORPUS_FORMATS } from '../extension/src/protocol';
 
 // loudword.schema.json is the one source of the settings rules; these checks hold everything
 // that repeats a part of it (defaults, package.json, the README, the samples) equal to it.
@@ -29,6 +31,12 @@ describe('loudword.schema.json as the one source of settings', () => {
     }
     // The full defaults are a valid loudword.json.
     assert.doesNotThrow(() => parseSettings(JSON.stringify(DEFAULT_SETTINGS), 'defaults'));
+  });
+
+  it("the formats a corpus can be read in are CORPUS_FORMATS, the schema's enum (with auto) and --input-format's choices", () => {
+    assert.deepEqual(schemaAt(['format'])?.enum, ['auto', ...CORPUS_FORMATS]);
+    const option = OPTIONS.find((o) => o.flag === 'input-format');
+    assert.deepEqual(option?.check, { kind: 'choice', choices: [...CORPUS_FORMATS] });
   });
 
   it('package.json contributes.configuration uses the schema’s type, bounds and default for the settings that stand in for loudword.json keys', () => {
