@@ -44,7 +44,7 @@ export function usageText(): string {
   const commands = COMMANDS.map((c) => `${' '.repeat(INDENT)}loudword ${c.name} ${c.args}`);
   const column = Math.max(...commands.map((c) => c.length)) + 3;
   COMMANDS.forEach((c, i) => out.push(...wrap(commands[i]!, c.help, column)));
-  out.push('', 'Corpus: CSV, TSV, JSON Lines (.jsonl/.ndjson), a JSON array of records (.json), plain text with one document per line, Parquet; or a folder or glob of them.', '', 'Options:');
+  out.push('', 'Corpus: CSV, TSV, JSON Lines (.jsonl/.ndjson), a JSON array of records (.json), plain text', 'with one document per line, Parquet; or a folder or glob of them.', '', 'Options:');
   for (const o of OPTIONS) out.push(...wrap(' '.repeat(INDENT) + left(o), help(o)));
   out.push(
     '',
