@@ -2,12 +2,15 @@
 # Installs the Debian packages the tests check against, when they are missing:
 #   python3-sklearn  the reference library for the weighting checks and the benchmark
 #   fortunes         an open labelled corpus (one category per file)
+#   fortunes-de, -es German and Spanish fortunes: text that is not English
 #   chromium         renders the panel and the HTML report in the UI tests
 # Runs apt only when something is missing; without root it says what to install instead.
 set -euo pipefail
 missing=()
 /usr/bin/python3 -c 'import sklearn' >/dev/null 2>&1 || missing+=(python3-sklearn)
 [ -f /usr/share/games/fortunes/computers ] || missing+=(fortunes)
+[ -d /usr/share/games/fortunes/de ] || missing+=(fortunes-de)
+[ -d /usr/share/games/fortunes/es ] || missing+=(fortunes-es)
 [ -x /usr/bin/chromium ] || missing+=(chromium)
 for extra in "$@"; do dpkg -s "$extra" >/dev/null 2>&1 || missing+=("$extra"); done
 [ ${#missing[@]} -eq 0 ] && exit 0

@@ -137,7 +137,14 @@ export interface Report {
     skippedExamples?: Array<{ line: number; reason: string }> | undefined;
   };
   settings: EffectiveSettings;
-  vocabulary: { terms: number; tokens: number; nonzeros: number; meanDocLength: number };
+  vocabulary: {
+    terms: number;
+    tokens: number;
+    nonzeros: number;
+    meanDocLength: number;
+    /** Share of the word tokens that are the English grammar words the suggestion rule knows: low in text that is not English (docs/methods.md §9). */
+    englishGrammarShare?: number;
+  };
   baseline: Measures;
   suggested: Measures;
   terms: TermRow[];

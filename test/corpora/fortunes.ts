@@ -1,4 +1,4 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, lstatSync, readdirSync, readFileSync } from 'node:fs';
 import * as path from 'node:path';
 
 /**
@@ -41,4 +41,25 @@ export function fortunesJsonl(categories?: readonly string[], maxPerCategory?: n
   return readFortunes(categories, maxPerCategory)
     .map((f) => JSON.stringify(f))
     .join('\n') + '\n';
+}
+
+/**
+ * The fortunes of another language's Debian package (`fortunes-de`: German, `fortunes-es`:
+ * Spanish), UTF-8, under FORTUNES_DIR/<language>: every regular data file is a category (the
+ * links, the `.dat` indexes and the subfolders left out).
+ */
+export function readForeignFortunes(language: 'de' | 'es'): Fortune[] {
+  const dir = path.join(FORTUNES_DIR, language);
+  if (!existsSync(dir)) throw new Error(`${dir} is missing: install the Debian package "fortunes-${language}"`);
+  const out: Fortune[] = [];
+  for (const name of readdirSync(dir).sort()) {
+    const file = path.join(dir, name);
+    if (name.endsWith('.dat') || !lstatSync(file).isFile()) continue;
+    const entries = readFileSync(file, 'utf8')
+      .split(/\r?\n%\r?\n/)
+      .map((e) => e.replace(/\s+/g, ' ').trim())
+      .filter((e) => e.length > 0 && e !== '%');
+    for (const text of entries) out.push({ text, category: name });
+  }
+  return out;
 }

@@ -35,7 +35,7 @@ export function assembleReport(p: ReportParts): Report {
       notes: notesOf(p),
     },
     settings: p.settings,
-    vocabulary: { terms: p.prepared.terms.length, tokens, nonzeros: p.prepared.nonzeros, meanDocLength: documents > 0 ? tokens / documents : 0 },
+    vocabulary: { terms: p.prepared.terms.length, tokens, nonzeros: p.prepared.nonzeros, meanDocLength: documents > 0 ? tokens / documents : 0, englishGrammarShare: p.termReview.englishGrammarShare },
     baseline: p.baseline.measures,
     suggested: p.termReview.suggested.measures,
     terms: p.termReview.rows,

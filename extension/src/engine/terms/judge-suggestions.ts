@@ -34,6 +34,34 @@ export interface JudgeInput {
   useLabels?: boolean;
   /** Suggested grammar words below half the documents (rule 2, label-choice.ts grammarGroup): what suggest.useLabels would ask the labels about. */
   grammarWords?: number;
+  /** When the text does not read as English (NOT_ENGLISH_SHARE): the English grammar words' share of its tokens, and its most widespread terms. */
+  notEnglish?: NotEnglish | null;
+}
+
+/** What the verdict says about a corpus whose text is not English to the rule (languageSentence). */
+export interface NotEnglish {
+  share: number;
+  widest: Array<{ term: string; share: number }>;
+}
+
+/**
+ * Below this share of its word tokens being English grammar words, a corpus does not read as
+ * English, and the verdict says that rule 2 had nothing to judge. It decides only whether a
+ * sentence is shown, not what is suggested. A round value set from the sixteen English
+ * development corpora (all at 17% or more: one-line package synopses 17.3%, SpamAssassin 28.9%,
+ * the rest 34–60%), before the German and Spanish fortunes checked it (3.0% and 2.7%; a dpkg log
+ * 6.6%); docs/methods.md §9, "Text that is not English".
+ */
+export const NOT_ENGLISH_SHARE = 0.1;
+
+/**
+ * Why rule 2 had nothing to say: its grammar words are English, and this text has few of them. The
+ * corpus's own grammar words, if it has any, are likely among its most widespread terms, so they
+ * are named for the user to judge.
+ */
+export function languageSentence(notEnglish: NotEnglish): string {
+  const widest = notEnglish.widest.map((w) => `"${w.term}" (in ${pct(w.share)})`).join(', ');
+  return `The grammar words rule 2 knows are English, and they are only ${pct1(notEnglish.share)} of this corpus's words (${pct(NOT_ENGLISH_SHARE)} or more in English text): it is probably in another language, or not prose, and its own grammar words were not judged. Its most widespread terms are ${widest}: if they are grammar words that blur your topics, add them to the stop list by hand, and check with --label.`;
 }
 
 /** The formula heads kept (choose-suggestions.ts, FORMULA_OPENS), most documents opened first. */
@@ -123,7 +151,10 @@ function judgeList(input: JudgeInput): Verdict {
   const baseline = input.baseline.measures;
   const suggested = input.suggested.measures;
   const caveats = caveatsOf(baseline, suggested);
-  const light = lightSentences(input.light);
+  const notEnglish = input.notEnglish ?? null;
+  // The English grammar words kept as light say nothing about a text that has few of them.
+  const light = lightSentences(notEnglish === null ? input.light : { ...input.light, grammar: undefined });
+  const language = notEnglish === null ? '' : languageSentence(notEnglish);
   const choice = input.labelChoice ?? null;
   const labelChoice = choice === null ? {} : { labelChoice: figuresOf(choice) };
   if (suggestions.length === 0) {
@@ -135,8 +166,8 @@ function judgeList(input: JudgeInput): Verdict {
         ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`
         : opinion.opinionText
         ? `No stop list suggested: ${pct(opinion.share)} of the sampled documents carry a clear opinion, and in opinion text negations, intensifiers and contrast words carry what tells documents apart; no other term is in more than half the documents.`
-        : light !== ''
-        ? `No stop list suggested. ${light}`
+        : light !== '' || language !== ''
+        ? `No stop list suggested. ${[light, language].filter((x) => x !== '').join(' ')}`
         : 'No stop list suggested: no term is in more than half the documents, and no grammar word is spread evenly enough here to be noise.',
       estimate: null,
       caveats: [],
@@ -207,6 +238,7 @@ function judgeList(input: JudgeInput): Verdict {
     headline += ` This corpus reads as opinion text (${pct(opinion.share)} of documents carry a clear opinion), so negations, intensifiers and contrast words were kept: they carry the opinion.`;
   }
   if (light !== '') headline += ` ${light}`;
+  if (language !== '') headline += ` ${language}`;
   if (corpus !== null) {
     const sampleSentence = sampleDisagrees(baseline.labelPrecisionAtK, suggested.labelPrecisionAtK, boot.change);
     if (sampleSentence !== null) caveats.push({ measure: 'label precision', sentence: sampleSentence });

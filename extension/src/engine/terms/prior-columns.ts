@@ -45,6 +45,21 @@ export function priorForms(tokenize: (text: string) => string[]): Map<string, { 
   return forms;
 }
 
+/**
+ * The share of the corpus's word tokens that are the prior's grammar words (markup names and
+ * bigrams left out): how much the text reads as English to the rule. English prose of any genre
+ * spends a large part of its tokens on them; text in another language, or code and logs, very
+ * little (docs/methods.md §9, "Text that is not English"). With bigrams the denominator counts
+ * only the unigram columns, so the share does not halve.
+ */
+export function grammarTokenShare(prior: ReadonlyMap<number, PriorClass>, cf: Float64Array, terms: readonly string[], bigrams: boolean): number {
+  let grammar = 0;
+  for (const [c, cls] of prior) if (cls !== 'markup' && cls !== 'phrase') grammar += cf[c]!;
+  let words = 0;
+  for (let c = 0; c < cf.length; c++) if (!bigrams || terms[c]!.indexOf(' ') < 0) words += cf[c]!;
+  return words > 0 ? grammar / words : 0;
+}
+
 /** Columns of the protected words ("suggest.protect"), in the tokenizer's spelling. */
 export function protectedColumns(index: TermIndex, tokenize: (text: string) => string[], words: readonly string[]): Set<number> {
   const forms = new Set<string>();

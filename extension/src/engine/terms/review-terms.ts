@@ -8,12 +8,12 @@ import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
 import { corpusPrecision, type CorpusSearcher } from './corpus-precision';
-import { formulaHeads, judgeSuggestions, type LightGroups } from './judge-suggestions';
+import { formulaHeads, judgeSuggestions, NOT_ENGLISH_SHARE, type LightGroups } from './judge-suggestions';
 import { chooseWithLabels, decisionsAfterChoice, grammarGroup } from './label-choice';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
 import { startOpinionShare, type PendingOpinionShare } from './start-opinion-share';
-import { priorColumns, protectedColumns, type PriorClass } from './prior-columns';
+import { grammarTokenShare, priorColumns, protectedColumns, type PriorClass } from './prior-columns';
 import { stopListSpellings } from './stop-list-spelling';
 import { contractionPieces, piecesCompleted } from './contraction-pieces';
 import type { TermCountStats } from './term-count-stats';
@@ -81,6 +81,8 @@ export interface TermReview {
   /** The mask with the project's list and the suggestions. */
   suggestedMask: Uint8Array;
   verdict: Verdict;
+  /** Share of the word tokens that are the English grammar words the rule knows (prior-columns.ts grammarTokenShare). */
+  englishGrammarShare: number;
 }
 
 /** Documents read for the opinion check: enough for a share to ±0.05. */
@@ -191,9 +193,11 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   const light: LightGroups = {};
   for (const d of decisions.values()) if (d.reason === 'light') light[d.group] = d.groupShare;
   const formula = formulaHeads(decisions, baseMask, counts.opens, index.terms);
+  const englishGrammarShare = grammarTokenShare(prior, counts.cf, index.terms, settings.tokens.ngrams === 2);
+  const language = englishGrammarShare < NOT_ENGLISH_SHARE && settings.suggest.functionWordPrior ? widestTerms(counts.df, index.terms, documents, 3) : null;
   // With labels, the verdict's precision is measured with neighbours from the corpus, not the sample.
   const corpus = searchCorpus !== null && accepted.length > 0 ? searchCorpus(baseMask, suggestedMask) : null;
-  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, useLabels: settings.suggest.useLabels, grammarWords: grammarGroup(accepted, decisions).length });
+  const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, useLabels: settings.suggest.useLabels, grammarWords: grammarGroup(accepted, decisions).length, notEnglish: language === null ? null : { share: englishGrammarShare, widest: language } });
   const spellings = stopListSpellings(suggestions, tokenize);
   const pieces = piecesCompleted(
     contractionPieces(tokenize),
@@ -204,7 +208,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
     },
     (piece) => index.has(piece),
   );
-  return { rows, suggestions, spellings, pieces, suggested, opinion, suggestedMask, verdict };
+  return { rows, suggestions, spellings, pieces, suggested, opinion, suggestedMask, verdict, englishGrammarShare };
 }
 
 /**
@@ -281,6 +285,14 @@ export function startOpinionCheck(previews: readonly string[], onThread: boolean
 function evenlySpaced(texts: readonly string[], max: number): string[] {
   if (texts.length <= max) return [...texts];
   return Array.from({ length: max }, (_, i) => texts[Math.floor((i * texts.length) / max)]!);
+}
+
+/** The `count` terms in the most documents, most first (ties: column order), with their document shares. */
+function widestTerms(df: Float64Array, terms: readonly string[], documents: number, count: number): Array<{ term: string; share: number }> {
+  const cols = Array.from({ length: df.length }, (_, c) => c);
+  return largestFirst(cols, df, count)
+    .slice(0, count)
+    .map((c) => ({ term: terms[c]!, share: documents > 0 ? df[c]! / documents : 0 }));
 }
 
 /** Every suggested, stopped, protected and ruled-on term, then the loudest and heaviest of the rest. */
