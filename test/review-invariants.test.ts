@@ -89,6 +89,15 @@ describe('startReview invariants on generated corpora', function () {
     assert.equal(r.baseline.neighborStandout, null);
   });
 
+  it('one document: nothing suggested, though its grammar words are in every document, and the verdict says why', async () => {
+    const r = (await reviewText(JSON.stringify({ text: 'the cat sat on the mat and it was not happy' }))).report;
+    assert.deepEqual(r.suggestions, []);
+    assert.equal(r.verdict?.outcome, 'nothing suggested');
+    assert.match(r.verdict!.headline, /a corpus of one document has no pairs of documents/);
+    // Too few words to say anything about their language.
+    assert.doesNotMatch(r.verdict!.headline, /rule 2 knows are English/);
+  });
+
   it('stop-list entries go through the tokenizer: with stemming, "Running" stops the stem of "runs"', async () => {
     const text = ['runs along the river', 'running stones', 'the river runs'].map((t) => JSON.stringify({ text: t })).join('\n');
     const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-stem-'));

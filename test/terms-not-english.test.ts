@@ -7,7 +7,7 @@ import { strict as assert } from 'node:assert';
 import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { startReview } from '../extension/src/engine/review/start-review';
-import { NOT_ENGLISH_SHARE, languageSentence } from '../extension/src/engine/terms/judge-suggestions';
+import { LANGUAGE_MIN_TOKENS, NOT_ENGLISH_SHARE, languageSentence } from '../extension/src/engine/terms/judge-suggestions';
 import type { Report } from '../extension/src/protocol';
 import { readForeignFortunes, readFortunes, type Fortune } from './corpora/fortunes';
 import { scratchFolder } from './support/scratch-folder';
@@ -38,6 +38,13 @@ describe('a corpus that is not English', function () {
   it('fortunes (English): the share is far above the bound and the verdict says nothing of language', async () => {
     const r = await review('en', readFortunes());
     assert.ok(r.vocabulary.englishGrammarShare! > 2 * NOT_ENGLISH_SHARE, `share ${r.vocabulary.englishGrammarShare}`);
+    assert.doesNotMatch(r.verdict!.headline, /rule 2 knows are English/);
+  });
+
+  it('a corpus of a few hundred words says nothing of language, whatever its share', async () => {
+    const few = Array.from({ length: 40 }, (_, i) => ({ text: `hello world number ${i} kind regards`, category: 'x' }));
+    const r = await review('few', few);
+    assert.ok(r.vocabulary.englishGrammarShare! < NOT_ENGLISH_SHARE && r.vocabulary.tokens < LANGUAGE_MIN_TOKENS);
     assert.doesNotMatch(r.verdict!.headline, /rule 2 knows are English/);
   });
 

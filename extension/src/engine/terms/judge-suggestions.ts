@@ -55,6 +55,18 @@ export interface NotEnglish {
 export const NOT_ENGLISH_SHARE = 0.1;
 
 /**
+ * Below this many word tokens the share says little about a language ("hello world" has no
+ * grammar word): a round value, common practice, no source; the smallest development corpus
+ * (70 newswire stories) has ~12,000.
+ */
+export const LANGUAGE_MIN_TOKENS = 1000;
+
+/** Whether the verdict says the text is not English (languageSentence). */
+export function readsAsNotEnglish(englishGrammarShare: number, wordTokens: number): boolean {
+  return wordTokens >= LANGUAGE_MIN_TOKENS && englishGrammarShare < NOT_ENGLISH_SHARE;
+}
+
+/**
  * Why rule 2 had nothing to say: its grammar words are English, and this text has few of them. The
  * corpus's own grammar words, if it has any, are likely among its most widespread terms, so they
  * are named for the user to judge.
@@ -160,7 +172,9 @@ function judgeList(input: JudgeInput): Verdict {
   if (suggestions.length === 0) {
     return {
       outcome: 'nothing suggested',
-      headline: choice?.kept === true
+      headline: (input.documents ?? lab.sampleRows.rows) < 2
+        ? `No stop list suggested: a corpus of one document has no pairs of documents, so no distance to measure or distort; review at least two documents, and more documents than k (${lab.k}) for the neighbour measures.`
+        : choice?.kept === true
         ? `No stop list suggested. ${choiceSentence(choice, lab.k)}`
         : input.agreedStopped > 0
         ? `Nothing more to suggest: the ${input.agreedStopped} term${input.agreedStopped === 1 ? '' : 's'} the rule would pick ${input.agreedStopped === 1 ? 'is' : 'are'} already on the stop list.`

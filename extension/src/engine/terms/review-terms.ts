@@ -8,7 +8,7 @@ import { DistanceLab, type DistanceResult } from '../what-if/distance-lab';
 import type { TermIndex } from '../what-if/term-index';
 import { chooseSuggestions, plannedShareAsks, type Decision, type ShareAsk } from './choose-suggestions';
 import { corpusPrecision, type CorpusSearcher } from './corpus-precision';
-import { formulaHeads, judgeSuggestions, NOT_ENGLISH_SHARE, type LightGroups } from './judge-suggestions';
+import { formulaHeads, judgeSuggestions, readsAsNotEnglish, type LightGroups } from './judge-suggestions';
 import { chooseWithLabels, decisionsAfterChoice, grammarGroup } from './label-choice';
 import { explainTerm } from './explain-term';
 import { OPINION_SHARE, SHORT_DOCUMENT_TOKENS } from './opinion-check';
@@ -112,7 +112,8 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   // the matrix is not read again.
   const full = baseMask.includes(1) ? lab.fullSums() : null;
   const fullPairMass = full === null ? basePairMass : pairMass(full.sums, full.rowsWithWeight).perTerm;
-  const ruleDecisions = chooseSuggestions({
+  // One document has no pairs: no distance to distort, so nothing to suggest (the verdict says so).
+  const ruleDecisions = documents < 2 ? new Map<number, Decision>() : chooseSuggestions({
     ...choiceInput(input, cols, prior, protect, opinionText),
     jointShares: (asks) => {
       // The passes startTermReview began (the same asks: the same decisions from the same
@@ -194,7 +195,7 @@ export function reviewTerms(input: TermReviewInput, begun: BegunTermReview = sta
   for (const d of decisions.values()) if (d.reason === 'light') light[d.group] = d.groupShare;
   const formula = formulaHeads(decisions, baseMask, counts.opens, index.terms);
   const englishGrammarShare = grammarTokenShare(prior, counts.cf, index.terms, settings.tokens.ngrams === 2);
-  const language = englishGrammarShare < NOT_ENGLISH_SHARE && settings.suggest.functionWordPrior ? widestTerms(counts.df, index.terms, documents, 3) : null;
+  const language = readsAsNotEnglish(englishGrammarShare, counts.totalTokens) && settings.suggest.functionWordPrior ? widestTerms(counts.df, index.terms, documents, 3) : null;
   // With labels, the verdict's precision is measured with neighbours from the corpus, not the sample.
   const corpus = searchCorpus !== null && accepted.length > 0 ? searchCorpus(baseMask, suggestedMask) : null;
   const verdict = judgeSuggestions({ lab, suggestions, baseline, suggested, opinion, agreedStopped, light, corpus, documents, formula, labelChoice: choice, useLabels: settings.suggest.useLabels, grammarWords: grammarGroup(accepted, decisions).length, notEnglish: language === null ? null : { share: englishGrammarShare, widest: language } });
