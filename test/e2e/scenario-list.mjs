@@ -13,5 +13,6 @@ import { reviewShardsFolder } from './scenarios/review-shards-folder.mjs';
 import { reviewDocumentsFolder } from './scenarios/review-documents-folder.mjs';
 import { corpusMarkers } from './scenarios/corpus-markers.mjs';
 import { columnPicker } from './scenarios/column-picker.mjs';
+import { reviewJsonArray } from './scenarios/review-json-array.mjs';
 
-export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, corpusMarkers, columnPicker, reviewShardsFolder, reviewDocumentsFolder, whatIfLatency, cancelReview, whatIfLatency100k];
+export const scenarios = [smoke, reviewFromPalette, toggleWhatIf, quickFixAddTerm, deadStopEntry, htmlPayloadCorpus, malformedCorpus, exportHtmlReport, corpusMarkers, columnPicker, reviewJsonArray, reviewShardsFolder, reviewDocumentsFolder, whatIfLatency, cancelReview, whatIfLatency100k];
