@@ -1,4 +1,5 @@
 import { UserError } from '../user-error';
+import { BoundedParts } from './bounded-parts';
 import { MAX_RECORD_CHARS } from './csv-record-splitter';
 
 /**
@@ -9,8 +10,8 @@ import { MAX_RECORD_CHARS } from './csv-record-splitter';
  * and strings; each element's own text is parsed by the caller (JSON.parse), so a malformed
  * record is skipped with its line like a broken JSON Lines line.
  *
- * An element longer than `maxChars` is not held: its parts are dropped as they come and
- * `tooLong` is told its line and length. Text that is not an array — another top-level value,
+ * An element longer than a chunk is held in parts (bounded-parts.ts); one longer than `maxChars`
+ * is not held at all, and `tooLong` is told its line and length. Text that is not an array — another top-level value,
  * a missing comma between elements, anything after the closing bracket — is the user's to fix
  * and throws a UserError with the line.
  */
@@ -24,15 +25,15 @@ export class JsonArraySplitter {
   /** The current element is a bare scalar (number, true, null), ended by a separator. */
   private scalar = false;
   private elementLine = 0;
-  private parts: string[] = [];
-  private partChars = 0;
-  private overflow = false;
+  private readonly held: BoundedParts;
 
   constructor(
     private readonly file: string,
-    private readonly maxChars: number = MAX_RECORD_CHARS,
+    maxChars: number = MAX_RECORD_CHARS,
     private readonly tooLong: (line: number, chars: number) => void = () => undefined,
-  ) {}
+  ) {
+    this.held = new BoundedParts(maxChars);
+  }
 
   push(chunk: string, emit: (text: string, line: number) => void): void {
     const n = chunk.length;
@@ -138,7 +139,7 @@ export class JsonArraySplitter {
           throw new UserError(`${shown(chunk, i)} after the JSON array's closing "]": a file holds one array (for one JSON object a line, name it .jsonl)`, this.file, this.line);
       }
     }
-    if (this.state === 'in-element') this.hold(start === 0 ? chunk : chunk.slice(start));
+    if (this.state === 'in-element') this.held.hold(start === 0 ? chunk : chunk.slice(start));
   }
 
   /**
@@ -146,7 +147,7 @@ export class JsonArraySplitter {
    * is dropped quietly; otherwise an array that is not closed is an error.
    */
   end(emit: (text: string, line: number) => void, cut: boolean): void {
-    if (cut) return this.reset();
+    if (cut) return this.held.clear();
     if (this.state === 'in-element' && this.scalar) this.finish('', 0, 0, emit);
     if (this.state === 'before') throw new UserError('no documents: the file holds no JSON array', this.file, null);
     if (this.state !== 'closed') {
@@ -160,32 +161,9 @@ export class JsonArraySplitter {
     this.scalar = false;
     this.inString = false;
     this.escaped = false;
-    const piece = end - start;
-    if (this.overflow || this.partChars + piece > this.maxChars) this.tooLong(this.elementLine, this.partChars + piece);
-    else {
-      let text = chunk.slice(start, end);
-      if (this.parts.length > 0) {
-        this.parts.push(text);
-        text = this.parts.join('');
-      }
-      emit(text, this.elementLine);
-    }
-    this.reset();
-  }
-
-  private hold(part: string): void {
-    this.partChars += part.length;
-    if (this.overflow) return;
-    if (this.partChars > this.maxChars) {
-      this.overflow = true;
-      this.parts = [];
-    } else this.parts.push(part);
-  }
-
-  private reset(): void {
-    this.parts = [];
-    this.partChars = 0;
-    this.overflow = false;
+    const record = this.held.close(chunk.slice(start, end));
+    if ('text' in record) emit(record.text, this.elementLine);
+    else this.tooLong(this.elementLine, record.tooLong);
   }
 }
 
