@@ -125,6 +125,12 @@ describe('a corpus as a JSON array of records', () => {
     await rejects(() => openCorpus(file, {}), 1, /a single JSON object, not records.*"data" \(1 items\).*jq -c '\.data\[\]' wrapped\.json > wrapped\.jsonl/);
   });
 
+  it("names pandas' other layouts (to_json's default columns, orient split) and how to write records instead", async () => {
+    for (const layout of [{ body: { '0': 'a', '1': 'b' }, topic: { '0': 'x', '1': 'y' } }, { columns: ['body'], index: [0, 1], data: [['a'], ['b']] }]) {
+      await rejects(() => openCorpusFromText('frame.json', JSON.stringify(layout), {}), 1, /pandas' DataFrame\.to_json\(\) without orient="records": write it with orient="records"/);
+    }
+  });
+
   it('names the line of what breaks the array: a missing comma, text after it, a file that ends inside it, an empty array', async () => {
     await rejects(() => readAll(openCorpusFromText('t.json', '[\n{"body":"one"}\n{"body":"two"}\n]', {})), 3, /^"\{\\"body\\":\\"two" after the element that starts on line 2, where a comma or the array's "\]" should be/);
     await rejects(() => readAll(openCorpusFromText('t.json', '[{"body":"one"}]\n[{"body":"two"}]', {})), 2, /after the JSON array's closing "\]"/);

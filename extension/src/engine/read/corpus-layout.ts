@@ -135,8 +135,11 @@ function jsonArrayLayout(file: string, head: string, headComplete: boolean, opti
   const firstLine = firstNonBlankLine(head);
   if (firstLine !== null && firstLine.text.trimStart().startsWith('{')) {
     const parsed = parseJsonlLine(firstLine.text);
-    // One object on one line that holds an array is a wrapper ({"data": [...]}), not JSON Lines.
-    const wrapper = parsed.ok && headComplete && head.trim() === firstLine.text.trim() && Object.values(parsed.object).some(Array.isArray);
+    // One object on one line that holds an array ({"data": [...]}) or only objects (pandas'
+    // columns) wraps the records: it is not JSON Lines.
+    const values = parsed.ok ? Object.values(parsed.object) : [];
+    const wraps = values.some(Array.isArray) || (values.length > 0 && values.every((v) => typeof v === 'object' && v !== null));
+    const wrapper = parsed.ok && headComplete && head.trim() === firstLine.text.trim() && wraps;
     if (!parsed.ok || wrapper) throw new UserError(singleObjectMessage(file, head, headComplete), file, firstLine.line);
     const layout = jsonlLayout(file, head, headComplete, options);
     return { ...layout, notes: [...layout.notes, 'the .json file holds one JSON object a line: read as JSON Lines'] };
@@ -173,7 +176,12 @@ function singleObjectMessage(file: string, head: string, headComplete: boolean):
     return base;
   }
   if (typeof value !== 'object' || value === null) return base;
-  const arrays = Object.entries(value).filter(([, v]) => Array.isArray(v));
+  const entries = Object.entries(value);
+  // pandas' own layouts: DataFrame.to_json() with no orient writes columns of {index: value}, orient="split" {columns, index, data}.
+  const pandas = '; this looks like pandas\' DataFrame.to_json() without orient="records": write it with orient="records" (or lines=True for JSON Lines)';
+  if (entries.length > 0 && entries.every(([, v]) => typeof v === 'object' && v !== null && !Array.isArray(v))) return base + pandas;
+  if (Array.isArray((value as Record<string, unknown>).columns) && Array.isArray((value as Record<string, unknown>).data)) return base + pandas;
+  const arrays = entries.filter(([, v]) => Array.isArray(v));
   if (arrays.length === 0) return base;
   const [key] = arrays[0] as [string, unknown[]];
   const named = arrays.map(([k, v]) => `"${k}" (${(v as unknown[]).length} items)`).join(', ');
