@@ -152,7 +152,7 @@ describe('reader bad input', () => {
 
   it('openCorpus: a NUL byte without a UTF-16 BOM is "looks like a binary file"', async () => {
     const file = path.join(dir, 'binary.csv');
-    writeFileSync(file, Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x00, 0x08, 0x00]));
+    writeFileSync(file, Buffer.from([0x07, 0x4b, 0x03, 0x04, 0x00, 0x00, 0x08, 0x00]));
     await rejectsUserError(() => openCorpus(file, {}), file, null, /looks like a binary file/);
   });
 
@@ -250,6 +250,25 @@ describe('reader bad input', () => {
     await writeLongLine(file, 'a,b,', 12 * 1024 * 1024, '');
     await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 1, /no documents/);
     rmSync(file);
+  });
+
+  it('openCorpus: a spreadsheet, document, PDF, gzip or Parquet file is named as what it is, with what to do instead', async () => {
+    // Signatures: PKWARE ZIP APPNOTE §4.3.7 (local file header 50 4B 03 04; an .xlsx is a ZIP
+    // package), ISO 32000-1 §7.5.2 ("%PDF-"), RFC 1952 §2.3.1 (gzip 1F 8B), Microsoft
+    // [MS-CFB] §2.2 (D0 CF 11 E0 A1 B1 1A E1: .xls), Apache Parquet ("PAR1").
+    const cases: Array<[string, number[], RegExp]> = [
+      ['book.xlsx', [0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x06, 0x00], /a ZIP archive \(an \.xlsx.*save a spreadsheet as CSV \(UTF-8\)/],
+      ['paper.pdf', [...Buffer.from('%PDF-1.7\n%\xe2\xe3\n1 0 obj << >> endobj\n', 'latin1')], /a PDF, not text: extract its text first/],
+      ['corpus.csv', [0x1f, 0x8b, 0x08, 0x00, 0x00, 0x00, 0x00, 0x00], /gzip-compressed, not text: name it with \.gz at the end/],
+      ['old.xls', [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1, 0x00], /pre-2007 kind \(\.xls, \.doc\)/],
+      ['data.bin', [0x50, 0x41, 0x52, 0x31, 0x15, 0x00], /a Parquet file, not text: name it with \.parquet/],
+    ];
+    for (const [name, bytes, words] of cases) {
+      const file = path.join(dir, name);
+      // The PDF case holds no NUL at all: its signature alone marks it.
+      writeFileSync(file, Uint8Array.from(bytes));
+      await rejectsUserError(() => openCorpus(file, {}), file, null, words);
+    }
   });
 
   it('openCorpusFromText: a NUL character is refused as binary', () => {

@@ -32,9 +32,13 @@ export function detectEncoding(head: Uint8Array, file: string, headIsWholeFile: 
 
   const probe = head.subarray(0, BINARY_PROBE_BYTES);
   const nul = probe.indexOf(0);
-  if (nul >= 0) {
+  // A PDF may hold no NUL in its first bytes, but nothing else starts with its signature.
+  if (nul >= 0 || binaryKind(head)?.what === PDF) {
+    const kind = binaryKind(head);
     throw new UserError(
-      `looks like a binary file (a NUL byte at offset ${nul}); a corpus must be text (UTF-8, or UTF-16 with a byte-order mark)`,
+      kind !== null
+        ? `${kind.what}, not text: ${kind.todo}`
+        : `looks like a binary file (a NUL byte at offset ${nul}); a corpus must be text (UTF-8, or UTF-16 with a byte-order mark)`,
       file,
       null,
     );
@@ -95,4 +99,25 @@ function utf16(head: Uint8Array, encoding: 'utf-16le' | 'utf-16be', file: string
     throw new UserError(`looks like a binary file (${nulUnits} NUL and ${loneSurrogates} unpaired surrogate code units after its UTF-16 byte-order mark); a corpus must be text`, file, null);
   }
   return { encoding, bomLength: 2, note: null };
+}
+
+const PDF = 'a PDF';
+
+/**
+ * What a binary file is, by the signature its format starts with, and what to do instead, for
+ * the files a corpus is often kept in before it is text. Signatures: PKWARE's ZIP APPNOTE (local
+ * file header "PK\x03\x04"; .xlsx, .docx, .ods, .odt are ZIP packages), ISO 32000 (PDF,
+ * "%PDF-"), RFC 1952 (gzip, 1F 8B), Microsoft's Compound File Binary format (D0 CF 11 E0:
+ * .xls, .doc before 2007), Apache Parquet ("PAR1").
+ */
+export function binaryKind(head: Uint8Array): { what: string; todo: string } | null {
+  const starts = (...bytes: number[]): boolean => bytes.every((b, i) => head[i] === b);
+  if (starts(0x50, 0x4b, 0x03, 0x04)) {
+    return { what: 'a ZIP archive (an .xlsx, .docx, .ods or .odt file is one)', todo: 'save a spreadsheet as CSV (UTF-8), a document as plain text, or unpack an archive of text files and review their folder' };
+  }
+  if (starts(0x25, 0x50, 0x44, 0x46, 0x2d)) return { what: PDF, todo: 'extract its text first (for example with pdftotext), one document a line or one file a document (--input-format files)' };
+  if (starts(0x1f, 0x8b)) return { what: 'gzip-compressed', todo: 'name it with .gz at the end (corpus.csv.gz) and it is read as it is' };
+  if (starts(0xd0, 0xcf, 0x11, 0xe0)) return { what: 'an Office file of the pre-2007 kind (.xls, .doc)', todo: 'save a spreadsheet as CSV (UTF-8), a document as plain text' };
+  if (starts(0x50, 0x41, 0x52, 0x31)) return { what: 'a Parquet file', todo: 'name it with .parquet at the end and it is read as one' };
+  return null;
 }

@@ -5,7 +5,7 @@ import { UserError } from '../user-error';
 import { ChunkDecoder } from './chunk-decoder';
 import type { CorpusRow, ReadOptions, SkippedRow } from './corpus-source';
 import { walk } from './corpus-files';
-import { detectEncoding } from './detect-encoding';
+import { binaryKind, detectEncoding } from './detect-encoding';
 import type { PlacedCorpusSource } from './many-files-corpus';
 import { DEFAULT_BATCH_SIZE } from './open-corpus';
 import { MAX_SKIPPED_EXAMPLES } from './row-stream';
@@ -93,8 +93,8 @@ class FilePerDocumentCorpus implements PlacedCorpusSource {
       }
       bytesRead += bytes.length;
       const text = decodeDocument(bytes, where, key, notes);
-      if (text === null) {
-        skip(key, 'a binary file (a NUL byte), not text');
+      if (typeof text !== 'string') {
+        skip(key, text.binary);
         continue;
       }
       if (text.trim() === '') {
@@ -117,13 +117,14 @@ class FilePerDocumentCorpus implements PlacedCorpusSource {
   }
 }
 
-/** A file's text, decoded as a corpus file is; null when it is binary. Decoding notes name the file. */
-function decodeDocument(bytes: Uint8Array, where: string, key: string, notes: string[]): string | null {
+/** A file's text, decoded as a corpus file is, or why it is binary (what it is, where known). Decoding notes name the file. */
+function decodeDocument(bytes: Uint8Array, where: string, key: string, notes: string[]): string | { binary: string } {
   let detected;
   try {
     detected = detectEncoding(bytes, where, true);
   } catch {
-    return null;
+    const kind = binaryKind(bytes);
+    return { binary: kind === null ? 'a binary file (a NUL byte), not text' : `${kind.what}, not text: ${kind.todo}` };
   }
   const decoder = new ChunkDecoder(detected.encoding, detected.bomLength);
   const text = decoder.decode(bytes.subarray(detected.bomLength), true);
