@@ -47,6 +47,20 @@ describe('review in shards = review in one process', function () {
     assertSame(one, shards, 'fortunes');
   });
 
+  it('documents repeated across shards, more distinct than the duplicates sketch keeps: the same duplicates estimate', async () => {
+    const shardDir = path.join(dir(), 'duplicates');
+    mkdirSync(shardDir);
+    const docs = generatedDocs(5000, 9);
+    // Copies land in other shards than their originals (writeShards deals documents round robin).
+    const withCopies = [...docs, ...docs.slice(0, 900).map((d, i) => (i % 3 === 0 ? docs[i * 5]! : d))];
+    writeShards(shardDir, withCopies, 3);
+    const { one, shards } = await bothWays(path.join(shardDir, '*.jsonl'));
+    assert.equal(one.vocabulary.duplicates?.exact, false);
+    assert.ok(one.vocabulary.duplicates!.documents > 0);
+    assert.deepEqual(shards.vocabulary.duplicates, one.vocabulary.duplicates);
+    assertSame(one, shards, 'duplicates');
+  });
+
   it('definitions whose formula opens with a grammar word, in 4 shards: the same Report, the head kept in both', async () => {
     // Generated (seeded) definitions: a third open "someone who …", the rest "the …" or a topic
     // word, so "someone" opens most of the documents it is in; the shards must add up the counts.

@@ -144,6 +144,12 @@ export interface Report {
     meanDocLength: number;
     /** Share of the word tokens that are the English grammar words the suggestion rule knows: low in text that is not English (docs/methods.md §9). */
     englishGrammarShare?: number;
+    /**
+     * Documents that repeat another exactly under this tokenising and weighting (the same terms in
+     * the same proportions: distance 0), a group of c counting c − 1; `exact` false: estimated from
+     * a sketch of 4,096 distinct documents (engine/matrix/duplicate-sketch.ts).
+     */
+    duplicates?: { documents: number; exact: boolean };
   };
   baseline: Measures;
   suggested: Measures;

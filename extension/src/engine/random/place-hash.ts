@@ -19,7 +19,8 @@ export function placeKey(fileHash: readonly [number, number], line: number): num
   return (hi * 2097152 + (lo >>> 11)) / 9007199254740992;
 }
 
-function fmix32(h: number): number {
+/** MurmurHash3's 32-bit finaliser: every input bit reaches every output bit. */
+export function fmix32(h: number): number {
   h ^= h >>> 16;
   h = Math.imul(h, 0x85ebca6b);
   h ^= h >>> 13;

@@ -5,6 +5,8 @@ import type { TermReview } from '../terms/review-terms';
 import type { ReviewSample } from './choose-sample';
 import type { DistanceResult } from '../what-if/distance-lab';
 import { LOUDWORD_VERSION } from './version';
+import { duplicatesOf } from '../matrix/duplicate-sketch';
+import { formatCount } from '../../number-format';
 
 const HUBS_IN_REPORT = 12;
 
@@ -21,6 +23,7 @@ export interface ReportParts {
 /** The Report (README.md "The Report") from the parts of a finished review. */
 export function assembleReport(p: ReportParts): Report {
   const { documents, tokens } = p.prepared;
+  const duplicates = duplicatesOf(p.prepared.duplicates);
   return {
     tool: { name: 'loudword', version: LOUDWORD_VERSION },
     input: {
@@ -32,10 +35,10 @@ export function assembleReport(p: ReportParts): Report {
       skipped: p.source.skipped.count,
       truncated: p.source.truncated ?? undefined,
       skippedExamples: p.source.skipped.examples.slice(0, 5),
-      notes: notesOf(p),
+      notes: notesOf(p, duplicates),
     },
     settings: p.settings,
-    vocabulary: { terms: p.prepared.terms.length, tokens, nonzeros: p.prepared.nonzeros, meanDocLength: documents > 0 ? tokens / documents : 0, englishGrammarShare: p.termReview.englishGrammarShare },
+    vocabulary: { terms: p.prepared.terms.length, tokens, nonzeros: p.prepared.nonzeros, meanDocLength: documents > 0 ? tokens / documents : 0, englishGrammarShare: p.termReview.englishGrammarShare, duplicates },
     baseline: p.baseline.measures,
     suggested: p.termReview.suggested.measures,
     terms: p.termReview.rows,
@@ -48,10 +51,27 @@ export function assembleReport(p: ReportParts): Report {
   };
 }
 
-/** The reader's notes, then the tokenizer's; undefined when there are none. */
-function notesOf(p: ReportParts): string[] | undefined {
+/** The reader's notes, then the tokenizer's, then one on duplicates; undefined when there are none. */
+function notesOf(p: ReportParts, duplicates: { documents: number; exact: boolean }): string[] | undefined {
   const notes = [...(p.source.notes ?? []), ...(p.prepared.notes ?? [])];
+  const note = duplicatesNote(duplicates, p.prepared.documents);
+  if (note !== null) notes.push(note);
   return notes.length > 0 ? notes : undefined;
+}
+
+/**
+ * Below this share of the documents, duplicates go unmentioned: a round value, common practice,
+ * no source (a few repeated one-line messages are normal in most collections).
+ */
+export const DUPLICATES_NOTE_SHARE = 0.01;
+
+/** What a user deduplicating or measuring distances should know about the exact duplicates; null when they are few. */
+export function duplicatesNote(duplicates: { documents: number; exact: boolean }, documents: number): string | null {
+  if (documents <= 0 || duplicates.documents < DUPLICATES_NOTE_SHARE * documents) return null;
+  const share = Math.round((100 * duplicates.documents) / documents);
+  const count = `${duplicates.exact ? '' : 'about '}${formatCount(duplicates.documents)} document${duplicates.documents === 1 ? '' : 's'} (${share < 1 ? '<1' : share}%)`;
+  const how = duplicates.exact ? '' : ' (estimated from a sketch of 4,096 distinct documents)';
+  return `${count} repeat another document exactly under this tokenising and weighting${how}: at distance 0 from their twins, they fill each other's neighbour lists and weigh on hubness and the neighbour measures. If the duplicates are not what you study, remove them before reviewing (and before clustering or k-NN).`;
 }
 
 function hubRows(p: ReportParts): HubRow[] {

@@ -8,6 +8,7 @@ import { countEachFile } from '../matrix/count-each-file';
 import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
 import { dfBounds, pruneTerms } from '../matrix/prune-terms';
+import { sketchRows, type DuplicateSketch } from '../matrix/duplicate-sketch';
 import { idfFromDf, weighInPlace } from '../matrix/weigh';
 import type { RowWeighing } from '../tokenize/row-assembler';
 import type { RowCountSums } from '../tokenize/row-count-sums';
@@ -35,6 +36,8 @@ export interface PreparedWeights {
   counts: TermCountStats;
   /** Notes from tokenising for the Report's input notes (over-long runs cut). */
   notes?: string[];
+  /** Which documents repeat another exactly, under this weighting (matrix/duplicate-sketch.ts). */
+  duplicates: DuplicateSketch;
 }
 
 /**
@@ -175,6 +178,7 @@ export async function prepareWeights(
     previews: built.previews,
     counts: countStats,
     notes: built.notes,
+    duplicates: sketchRows(weights),
   };
 }
 

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import type { EffectiveSettings, Report } from '../../protocol';
 import { LOUDWORD_VERSION } from '../review/version';
 import { UserError } from '../user-error';
+import type { DuplicateSketch } from '../matrix/duplicate-sketch';
 
 /**
  * The shard steps' partial files (JSON). Every partial says which step wrote it, the version of
@@ -9,8 +10,8 @@ import { UserError } from '../user-error';
  * different settings or versions are never merged. Float arrays travel as base64 of their
  * IEEE-754 bytes, so a figure survives the trip to the last bit.
  */
-// 4: the plan says whether the stop list file exists.
-export const PARTIAL_FORMAT = 4;
+// 4: the plan says whether the stop list file exists. 5: sums partials carry the duplicates sketch.
+export const PARTIAL_FORMAT = 5;
 
 export type ShardStep = 'count' | 'plan' | 'sums';
 
@@ -147,6 +148,29 @@ export interface SumsPartial extends PartialHeader {
   counts: EncodedCountStats | null;
   /** Previews of the plan's previewDocs that are in this shard, with `full`. */
   previews: Array<{ doc: number; preview: string }>;
+  /** The shard's weighted rows' duplicates sketch (matrix/duplicate-sketch.ts), with `full`. */
+  duplicates: EncodedDuplicateSketch | null;
+}
+
+/** A DuplicateSketch: its hashes as float64 bits and their copies as uint32, both base64. */
+export interface EncodedDuplicateSketch {
+  keys: string;
+  copies: string;
+  truncated: boolean;
+}
+
+export function encodeDuplicateSketch(sketch: DuplicateSketch): EncodedDuplicateSketch {
+  return {
+    keys: encodeFloat64(Float64Array.from(sketch.entries, (e) => e.key)),
+    copies: encodeUint32(Uint32Array.from(sketch.entries, (e) => e.copies)),
+    truncated: sketch.truncated,
+  };
+}
+
+export function decodeDuplicateSketch(encoded: EncodedDuplicateSketch): DuplicateSketch {
+  const keys = decodeFloat64(encoded.keys);
+  const copies = decodeUint32(encoded.copies);
+  return { entries: Array.from(keys, (key, i) => ({ key, copies: copies[i]! })), truncated: encoded.truncated };
 }
 
 export interface EncodedCountStats {

@@ -3,6 +3,7 @@ import { countFile } from '../matrix/count-each-file';
 import { placesAmong } from '../matrix/compare-code-points';
 import { renumberFirstTerms, type CountMatrix, type Csr } from '../matrix/csr';
 import { rowsWithWeight } from '../matrix/rows-with-weight';
+import { sketchRows } from '../matrix/duplicate-sketch';
 import { weighWithIdf } from '../matrix/weigh';
 import { maskedTermSums, type MaskedTermSums } from '../measures/masked-term-sums';
 import { termSums } from '../measures/term-sums';
@@ -11,7 +12,7 @@ import { openCorpusFile } from '../read/open-corpus-file';
 import { UserError } from '../user-error';
 import type { ShardRef } from './count-shard';
 import type { ShardCounts } from './shard-counts';
-import { decodeFloat64, encodeFloat64, encodeUint32, header, settingsKey, type EncodedCountStats, type EncodedNeighbors, type EncodedSums, type NeighborRequest, type PlanPartial, type SumsPartial } from './partials';
+import { decodeFloat64, encodeDuplicateSketch, encodeFloat64, encodeUint32, header, type EncodedDuplicateSketch, settingsKey, type EncodedCountStats, type EncodedNeighbors, type EncodedSums, type NeighborRequest, type PlanPartial, type SumsPartial } from './partials';
 import { corpusNeighbors } from '../measures/corpus-neighbors';
 import { NO_NEIGHBOR } from '../measures/knn';
 import { searchCandidates, searchedRows } from '../terms/corpus-precision';
@@ -47,6 +48,7 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
   const neighbors = requests.map((r) => shardNeighbors(r, plan.terms.length, queries!, weights, known.offset, built.labels));
   let full: EncodedSums | null = null;
   let countStats: EncodedCountStats | null = null;
+  let duplicates: EncodedDuplicateSketch | null = null;
   const previews: Array<{ doc: number; preview: string }> = [];
   if (plan.full) {
     countStats = encodeCountStats(termCountStats(counts, counts.firstTerms));
@@ -55,8 +57,9 @@ export async function sumShard(shard: ShardRef, plan: PlanPartial, settings: Eff
       if (row >= 0 && row < known.documents) previews.push({ doc, preview: built.previews[row] ?? '' });
     }
     full = encodeSums({ sums: termSums(weights), rowsWithWeight: rowsWithWeight(weights) });
+    duplicates = encodeDuplicateSketch(sketchRows(weights));
   }
-  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, neighbors, full, counts: countStats, previews };
+  return { ...header('sums', settings), step: 'sums', planId: plan.planId, shard: { key: shard.key, documents: known.documents }, masks, neighbors, full, counts: countStats, previews, duplicates };
 }
 
 /**

@@ -3,8 +3,9 @@ import type { TermCountStats } from '../terms/term-count-stats';
 import { UserError } from '../user-error';
 import type { NeighborLists } from '../measures/corpus-neighbors';
 import { mergeShardNeighbors, type LabelledNeighbors } from './sharded-search';
-import { decodeFloat64, decodeUint32, settingsKey, type EncodedCountStats, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
+import { decodeDuplicateSketch, decodeFloat64, decodeUint32, settingsKey, type EncodedCountStats, type EncodedSums, type PlanPartial, type SumsPartial } from './partials';
 import type { EffectiveSettings } from '../../protocol';
+import { mergeSketches, type DuplicateSketch } from '../matrix/duplicate-sketch';
 
 interface Running {
   sums: MaskedTermSums;
@@ -23,6 +24,7 @@ export class SumsTotals {
   private readonly counts: TermCountStats;
   private readonly countsFrom = new Map<string, string>();
   private readonly previews: string[] = [];
+  private readonly duplicateParts: DuplicateSketch[] = [];
   /** Per neighbour request, each shard's lists as they came (merged in shard order by neighborLists). */
   private readonly neighbors = new Map<string, Map<string, { lists: NeighborLists; labels: (string | null)[] }>>();
   private readonly key: string;
@@ -57,6 +59,8 @@ export class SumsTotals {
       if (earlier !== undefined) throw new UserError(`two first-round sums partials for shard "${shard}" (${earlier} and this one)`, file, null);
       this.countsFrom.set(shard, file);
       addCounts(this.counts, partial.counts);
+      if (partial.duplicates === null) throw new UserError(`a first-round sums partial without the duplicates sketch (shard "${shard}")`, file, null);
+      this.duplicateParts.push(decodeDuplicateSketch(partial.duplicates));
     }
     for (const p of partial.previews) this.previews[p.doc] = p.preview;
     for (const n of partial.neighbors ?? []) {
@@ -97,6 +101,12 @@ export class SumsTotals {
   countStats(): TermCountStats {
     for (const s of this.plan.shards) if (!this.countsFrom.has(s.key)) throw new UserError(`no first-round sums partial for shard "${s.key}": run the sums step on every shard`);
     return this.counts;
+  }
+
+  /** The duplicates sketch of the whole corpus: the shards' merged (exactly the one-process sketch). */
+  duplicates(): DuplicateSketch {
+    this.countStats(); // every shard's first-round partial is in
+    return mergeSketches(this.duplicateParts);
   }
 
   /** An array as long as the corpus holding the previews of plan.previewDocs (what the opinion check reads). */
