@@ -55,6 +55,12 @@ describe('formatText layout', () => {
     assert.match(formatText(withProvenance), /^Config: \/p\/loudword\.json \(nearest to the corpus\): label; flags: --k$/m);
     assert.match(formatMarkdown(withProvenance), /^Config: \/p\/loudword\.json \(nearest to the corpus\): label; flags: --k$/m);
   });
+
+  it('formatText and formatMarkdown both carry the input notes (an encoding read as windows-1252, duplicates)', () => {
+    const withNotes: Report = { ...report, input: { ...report.input, notes: ['read as windows-1252 from byte offset 40', '12 documents (3%) repeat another document exactly'] } };
+    assert.match(formatText(withNotes), /^Note: read as windows-1252 from byte offset 40$/m);
+    assert.match(formatMarkdown(withNotes), /^> 12 documents \(3%\) repeat another document exactly$/m);
+  });
 });
 
 describe('progressLine', () => {

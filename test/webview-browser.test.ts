@@ -261,6 +261,15 @@ describe('webview in Chromium', function () {
       assert.equal(await none.page.locator('.lw-provenance summary').textContent(), 'Settings without a loudword.json (none found); stop list stoplist.txt');
     });
 
+    it("shows the input notes (the reader's and the review's) in the header, as text", async () => {
+      const notes = ['2 files read as one corpus', '1,200 documents (29%) repeat another document exactly <b>not bold</b>'];
+      const report: Report = { ...fixture('report-small.json'), input: { ...fixture('report-small.json').input, notes } };
+      const { page, seen } = await openStandalone(report);
+      assert.deepEqual(await page.locator('.lw-header p.lw-note').allTextContents(), notes);
+      assert.equal(await page.locator('.lw-header b').count(), 0);
+      assert.deepEqual(seen.errors, []);
+    });
+
     it('hubs of a many-file corpus: the file and line never run into the list count, at any width', async () => {
       const base = fixture('report-small.json');
       const names = ['connectivity/note-302.txt', 'installation/a-folder-with-a-long-name/and-a-longer-file-name-still.txt', 'b.txt'];

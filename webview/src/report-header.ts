@@ -40,6 +40,9 @@ export function renderReportHeader(report: Report, actions: readonly HTMLElement
         : el('p', { className: 'lw-note', text: summary }),
     );
   }
+  // What the reader and the review had to say (an encoding read as windows-1252, files read as
+  // one corpus, exact duplicates), as the CLI prints them.
+  for (const note of input.notes ?? []) notes.push(el('p', { className: 'lw-note', text: note }));
   const provenance = renderProvenance(report);
   if (provenance !== null) notes.unshift(provenance);
   return el('header', { className: 'lw-header' }, [

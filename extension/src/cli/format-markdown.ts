@@ -30,6 +30,8 @@ export function formatMarkdown(report: Report): string {
   out.push('');
   const provenance = provenanceLine(report);
   if (provenance !== null) out.push(cell(provenance), '');
+  // What the reader and the review had to say (an encoding read as windows-1252, duplicates).
+  for (const note of input.notes ?? []) out.push(`> ${cell(note)}`, '');
   out.push('| measure | current | with suggestions | |');
   out.push('|---|---:|---:|---|');
   for (const spec of measureCatalog) {
