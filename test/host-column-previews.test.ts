@@ -39,6 +39,7 @@ describe('columnPreviews', () => {
         { name: 'id', samples: ['1', '2'] },
         { name: 'body', samples: ['first [text]', 'second "text"'] },
         { name: 'meta', samples: ['{"a":1}'] },
+        { name: 'meta.a', samples: ['1'] },
       ]);
     }
   });

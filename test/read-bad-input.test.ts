@@ -5,6 +5,7 @@ import * as path from 'node:path';
 import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
 import { openCorpus, openCorpusFromText } from '../extension/src/engine/read/open-corpus';
 import { UserError } from '../extension/src/engine/user-error';
+import { valueAt } from '../extension/src/engine/read/jsonl-value';
 
 // Robustness: each case asserts a defined result, or a UserError that names the file and line.
 
@@ -213,10 +214,31 @@ describe('reader bad input', () => {
     await rejectsUserError(() => openCorpus(file, {}), file, 2, /3 of the first 4 lines.*first bad line 2/);
   });
 
-  it('openCorpus: JSON Lines with a nested text value skips it with a reason', async () => {
+  it('openCorpus: JSON Lines with an object where the text should be skips it, saying how to name a key inside', async () => {
     const { rows, source } = await fileRows('nested.jsonl', '{"text":{"en":"hi"}}\n{"text":"plain"}\n{"text":42}\n', { textField: 'text' });
     assert.deepEqual(rows.map((r) => r.text), ['plain', '42']);
-    assert.match(source.skipped.examples[0]?.reason ?? '', /nested values are not supported/);
+    assert.match(source.skipped.examples[0]?.reason ?? '', /"text" is an object, not text: name one of its keys with a dot \("field\.key"\)/);
+  });
+
+  it('openCorpus: dotted keys reach into nested objects (JSON Lines and a JSON array), own keys only, a literal dotted key first', async () => {
+    const lines = [
+      { id: 1, doc: { body: 'first text here', lang: 'en' }, meta: { topic: 'a' } },
+      { id: 2, doc: { body: 'second text here' }, meta: { topic: 'b' } },
+      { id: 3, doc: { body: 'third text' }, meta: {} },
+      { id: 4, doc: 'not an object', meta: { topic: 'c' } },
+    ];
+    for (const [name, content] of [['nested.jsonl', lines.map((l) => JSON.stringify(l)).join('\n') + '\n'], ['nested.json', JSON.stringify(lines, null, 2)]] as const) {
+      const { rows, source } = await fileRows(name, content, { labelField: 'meta.topic' });
+      assert.equal(source.textField, 'doc.body', 'found by itself among the nested keys');
+      assert.deepEqual(rows.map((r) => [r.text, r.label]), [['first text here', 'a'], ['second text here', 'b'], ['third text', null]]);
+      assert.match(source.skipped.examples[0]?.reason ?? '', /"doc\.body" is missing/);
+    }
+    // A key that holds a dot is read as it is; a path never reads what the object inherits.
+    const { rows } = await fileRows('dotted.jsonl', '{"a.b":"literal words","a":{"b":"nested words"}}\n', { textField: 'a.b' });
+    assert.deepEqual(rows.map((r) => r.text), ['literal words']);
+    assert.equal(valueAt({ x: {} }, 'x.constructor'), undefined);
+    assert.equal(valueAt({ x: { y: 'z' } }, 'x.y.length'), undefined);
+    assert.equal(valueAt({ x: { y: 'z' } }, 'x.y'), 'z');
   });
 
   it('openCorpus: maxBytes on a file cuts it at a record boundary and reports truncated', async () => {

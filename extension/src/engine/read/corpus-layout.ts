@@ -6,7 +6,7 @@ import { CsvRecordSplitter } from './csv-record-splitter';
 import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat } from './detect-format';
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
 import { JsonArraySplitter } from './json-array-splitter';
-import { parseJsonlLine } from './jsonl-value';
+import { flattenRecord, parseJsonlLine } from './jsonl-value';
 import { LineSplitter } from './line-splitter';
 
 /** What the first part of a file says about how to read all of it. */
@@ -214,11 +214,9 @@ function recordsLayout(
       firstBad ??= { line, reason: parsed.reason };
       return;
     }
-    const row = new Map<string, unknown>();
-    for (const [k, v] of Object.entries(parsed.object)) {
-      keys.add(k);
-      row.set(k, v);
-    }
+    // Nested objects' keys too, dotted ("meta.topic"): the settings and the detection may name them.
+    const row = flattenRecord(parsed.object);
+    for (const k of row.keys()) keys.add(k);
     sample.push(row);
   });
   const bad = firstBad as { line: number; reason: string } | null;

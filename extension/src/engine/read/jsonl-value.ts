@@ -19,12 +19,44 @@ export function parseJsonlLine(text: string): JsonlLine {
   return { ok: true, object: value as Record<string, unknown> };
 }
 
+/** How deep dotted keys reach into nested objects ("meta.topic", "doc.body.text"). */
+export const MAX_KEY_DEPTH = 3;
+
+/**
+ * A record's value at `key`: its own key of that name, or else, for a dotted key, the path
+ * through nested objects ({"meta": {"topic": "x"}} has "meta.topic"). Own keys only at every step:
+ * a record without "constructor" must not read Object.prototype's.
+ */
+export function valueAt(record: Record<string, unknown>, key: string): unknown {
+  if (Object.hasOwn(record, key)) return record[key];
+  let value: unknown = record;
+  for (const part of key.split('.')) {
+    if (typeof value !== 'object' || value === null || Array.isArray(value) || !Object.hasOwn(value, part)) return undefined;
+    value = (value as Record<string, unknown>)[part];
+  }
+  return value;
+}
+
+/**
+ * A record's fields as dotted keys: each top-level key, and the keys of nested objects (not of
+ * arrays) down to MAX_KEY_DEPTH, so that the text and label settings, the text field's detection
+ * and the column picker can name "meta.topic".
+ */
+export function flattenRecord(record: Record<string, unknown>, into: Map<string, unknown> = new Map(), prefix = '', depth = 1): Map<string, unknown> {
+  for (const [k, v] of Object.entries(record)) {
+    const key = prefix === '' ? k : `${prefix}.${k}`;
+    into.set(key, v);
+    if (depth < MAX_KEY_DEPTH && typeof v === 'object' && v !== null && !Array.isArray(v)) flattenRecord(v as Record<string, unknown>, into, key, depth + 1);
+  }
+  return into;
+}
+
 /** A field's value as document text, or why it cannot be one. */
 export function scalarText(value: unknown): { text: string } | { reason: string } {
   if (typeof value === 'string') return { text: value };
   if (typeof value === 'number' || typeof value === 'boolean') return { text: String(value) };
   if (value === null || value === undefined) return { reason: value === null ? 'is null' : 'is missing' };
-  return { reason: `is ${Array.isArray(value) ? 'an array' : 'an object'}; nested values are not supported` };
+  return { reason: Array.isArray(value) ? 'is an array, not text' : 'is an object, not text: name one of its keys with a dot ("field.key")' };
 }
 
 function describe(value: unknown): string {

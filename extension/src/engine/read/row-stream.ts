@@ -3,7 +3,7 @@ import type { CorpusRow, SkippedRow } from './corpus-source';
 import type { CorpusLayout } from './corpus-layout';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { JsonArraySplitter } from './json-array-splitter';
-import { parseJsonlLine, scalarText } from './jsonl-value';
+import { parseJsonlLine, scalarText, valueAt } from './jsonl-value';
 import { LineSplitter, MAX_LINE_CHARS } from './line-splitter';
 import { formatCount } from '../../number-format';
 import { UserError } from '../user-error';
@@ -94,13 +94,12 @@ function jsonlRow(
     return skip(line, parsed.reason);
   }
   const key = layout.textField as string;
-  // Own keys only: a document without "constructor" must not read Object.prototype's.
-  const value = scalarText(ownValue(parsed.object, key));
+  const value = scalarText(valueAt(parsed.object, key));
   if ('reason' in value) return skip(line, `"${key}" ${value.reason}`);
   if (value.text.trim() === '') return skip(line, `empty text in "${key}"`);
   let label: string | null = null;
   if (layout.labelField !== null) {
-    const raw = ownValue(parsed.object, layout.labelField);
+    const raw = valueAt(parsed.object, layout.labelField);
     if (raw !== undefined && raw !== null) {
       const l = scalarText(raw);
       if ('reason' in l) return skip(line, `"${layout.labelField}" ${l.reason}`);
@@ -108,10 +107,6 @@ function jsonlRow(
     }
   }
   accept({ text: value.text, label, line });
-}
-
-function ownValue(object: Record<string, unknown>, key: string): unknown {
-  return Object.hasOwn(object, key) ? object[key] : undefined;
 }
 
 /** An element of a JSON array of strings: the string is the document. */

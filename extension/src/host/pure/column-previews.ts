@@ -3,6 +3,7 @@
 // text it is given. Pure: no editor types.
 import Papa from 'papaparse';
 import { JsonArraySplitter } from '../../engine/read/json-array-splitter';
+import { flattenRecord } from '../../engine/read/jsonl-value';
 
 export interface ColumnPreview {
   name: string;
@@ -47,7 +48,8 @@ function keyPreviews(records: readonly string[]): ColumnPreview[] {
       continue;
     }
     if (typeof row !== 'object' || row === null || Array.isArray(row)) continue;
-    for (const [key, value] of Object.entries(row)) {
+    // Nested objects' keys too, dotted, as the reader names them ("meta.topic").
+    for (const [key, value] of flattenRecord(row as Record<string, unknown>)) {
       const list = byKey.get(key) ?? [];
       if (list.length < PREVIEW_ROWS && value !== null && value !== '') list.push(shorten(value));
       byKey.set(key, list);
