@@ -4,7 +4,8 @@
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
 import * as path from 'node:path';
-import { closest, OPTIONS, parseArgs, UsageError } from '../extension/src/cli/parse-args';
+import { OPTIONS, parseArgs, UsageError } from '../extension/src/cli/parse-args';
+import { closest, meantName } from '../extension/src/closest-word';
 import { USAGE } from '../extension/src/cli/usage';
 import { buildOnce } from './bad-input/cli-support';
 
@@ -87,6 +88,12 @@ describe('parseArgs', () => {
     assert.equal(closest('--kk', ['--k', '--out']), '--k');
     assert.equal(closest('abc', ['xyz']), null);
     assert.equal(closest('ab', ['ac', 'ad']), null); // a tie helps nobody
+  });
+
+  it('meantName() prefers the same name in another case, then the closest: a corpus field typed wrong', () => {
+    assert.equal(meantName('Topic', ['topic', 'Topics']), 'topic');
+    assert.equal(meantName('data.meta.topc', ['id', 'data.meta', 'data.meta.topic']), 'data.meta.topic');
+    assert.equal(meantName('label', ['id', 'text']), null);
   });
 });
 

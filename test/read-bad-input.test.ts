@@ -233,6 +233,7 @@ describe('reader bad input', () => {
       assert.deepEqual(rows.map((r) => [r.text, r.label]), [['first text here', 'a'], ['second text here', 'b'], ['third text', null]]);
       assert.match(source.skipped.examples[0]?.reason ?? '', /"doc\.body" is missing/);
     }
+    await rejectsUserError(() => fileRows('typo.jsonl', JSON.stringify(lines[0]) + '\n', { labelField: 'meta.topc' }), 'typo.jsonl', null, /no label field "meta\.topc" \(did you mean "meta\.topic"\?\)/);
     // A key that holds a dot is read as it is; a path never reads what the object inherits.
     const { rows } = await fileRows('dotted.jsonl', '{"a.b":"literal words","a":{"b":"nested words"}}\n', { textField: 'a.b' });
     assert.deepEqual(rows.map((r) => r.text), ['literal words']);

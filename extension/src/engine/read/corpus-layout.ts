@@ -1,6 +1,7 @@
 import * as path from 'node:path';
 import type { CorpusFormatName } from '../../protocol';
 import { UserError } from '../user-error';
+import { meantName } from '../../closest-word';
 import type { ReadOptions } from './corpus-source';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat } from './detect-format';
@@ -330,8 +331,8 @@ export function tsvUsesQuotes(head: string): boolean {
 function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null): string | null {
   if (wanted === null) return null;
   if (fields.includes(wanted)) return wanted;
-  const alt = fields.find((f) => f.toLowerCase() === wanted.toLowerCase());
-  const hint = alt === undefined ? '' : ` (did you mean "${alt}"?)`;
+  const alt = meantName(wanted, fields);
+  const hint = alt === null ? '' : ` (did you mean "${alt}"?)`;
   throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}`, file, line, role);
 }
 

@@ -1,3 +1,4 @@
+import { meantName } from '../../closest-word';
 import { open, stat } from 'node:fs/promises';
 import { parquetMetadataAsync, parquetReadObjects, parquetSchema, type AsyncBuffer, type FileMetaData } from 'hyparquet';
 import type { CorpusFormatName } from '../../protocol';
@@ -115,8 +116,8 @@ async function readRows(
 
 function pickColumn(file: string, fields: readonly string[], wanted: string, role: 'text' | 'label'): string {
   if (fields.includes(wanted)) return wanted;
-  const alt = fields.find((f) => f.toLowerCase() === wanted.toLowerCase());
-  const hint = alt === undefined ? '' : ` (did you mean "${alt}"?)`;
+  const alt = meantName(wanted, fields);
+  const hint = alt === null ? '' : ` (did you mean "${alt}"?)`;
   throw new UserError(`no ${role} column "${wanted}"${hint}; available: ${fields.map((f) => `"${f}"`).join(', ')}`, file, null);
 }
 
