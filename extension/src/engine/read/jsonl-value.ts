@@ -7,16 +7,22 @@ export type JsonlLine =
   | { ok: false; reason: string; brokenJson: boolean };
 
 export function parseJsonlLine(text: string): JsonlLine {
-  let value: unknown;
+  const parsed = parseJsonValue(text);
+  if (!parsed.ok) return parsed;
+  const { value } = parsed;
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    return { ok: false, reason: `a JSON ${describeJson(value)}, not an object`, brokenJson: false };
+  }
+  return { ok: true, object: value as Record<string, unknown> };
+}
+
+/** One JSON value (a line, an array's element), or why it is not valid JSON. */
+export function parseJsonValue(text: string): { ok: true; value: unknown } | { ok: false; reason: string; brokenJson: true } {
   try {
-    value = JSON.parse(text);
+    return { ok: true, value: JSON.parse(text) as unknown };
   } catch (e) {
     return { ok: false, reason: `not valid JSON (${shorten((e as Error).message)})`, brokenJson: true };
   }
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    return { ok: false, reason: `a JSON ${describe(value)}, not an object`, brokenJson: false };
-  }
-  return { ok: true, object: value as Record<string, unknown> };
 }
 
 /** How deep dotted keys reach into nested objects ("meta.topic", "doc.body.text"). */
@@ -59,7 +65,8 @@ export function scalarText(value: unknown): { text: string } | { reason: string 
   return { reason: Array.isArray(value) ? 'is an array, not text' : 'is an object, not text: name one of its keys with a dot ("field.key")' };
 }
 
-function describe(value: unknown): string {
+/** A JSON value's kind as a message names it: null, array, number, string, … */
+export function describeJson(value: unknown): string {
   if (value === null) return 'null';
   if (Array.isArray(value)) return 'array';
   return typeof value;

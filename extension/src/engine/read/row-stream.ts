@@ -3,7 +3,7 @@ import type { CorpusRow, SkippedRow } from './corpus-source';
 import type { CorpusLayout } from './corpus-layout';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { JsonArraySplitter } from './json-array-splitter';
-import { parseJsonlLine, scalarText, valueAt } from './jsonl-value';
+import { describeJson, parseJsonlLine, parseJsonValue, scalarText, valueAt } from './jsonl-value';
 import { LineSplitter, MAX_LINE_CHARS } from './line-splitter';
 import { formatCount } from '../../number-format';
 import { UserError } from '../user-error';
@@ -111,14 +111,13 @@ function jsonlRow(
 
 /** An element of a JSON array of strings: the string is the document. */
 function stringElement(text: string, line: number, skip: (line: number, reason: string) => void, accept: Emit, state: PassState): void {
-  let value: unknown;
-  try {
-    value = JSON.parse(text);
-  } catch (e) {
+  const parsed = parseJsonValue(text);
+  if (!parsed.ok) {
     state.brokenJson++;
-    return skip(line, `not valid JSON (${(e as Error).message.slice(0, 120)})`);
+    return skip(line, parsed.reason);
   }
-  if (typeof value !== 'string') return skip(line, `a JSON ${value === null ? 'null' : Array.isArray(value) ? 'array' : typeof value} in an array of strings`);
+  const { value } = parsed;
+  if (typeof value !== 'string') return skip(line, `a JSON ${describeJson(value)} in an array of strings`);
   if (value.trim() === '') return skip(line, 'an empty string');
   accept({ text: value, label: null, line });
 }
