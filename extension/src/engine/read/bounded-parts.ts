@@ -8,6 +8,8 @@ export class BoundedParts {
   private parts: string[] = [];
   private chars = 0;
   private overflow = false;
+  /** The length of the last record close() refused as past the bound. */
+  refusedChars = 0;
 
   constructor(private readonly maxChars: number) {}
 
@@ -22,20 +24,21 @@ export class BoundedParts {
   }
 
   /**
-   * The whole record once its last piece `last` is here, or its length (`tooLong`) when it is
-   * past the bound; either way the holder is empty again.
+   * The whole record once its last piece `last` is here, or null when it is past the bound (its
+   * length then in `refusedChars`); either way the holder is empty again. No object per record:
+   * the line splitter closes one for every line of a corpus.
    */
-  close(last: string): { text: string } | { tooLong: number } {
+  close(last: string): string | null {
+    if (this.parts.length === 0 && !this.overflow && last.length <= this.maxChars) return last;
     const chars = this.chars + last.length;
-    let out: { text: string } | { tooLong: number };
-    if (this.overflow || chars > this.maxChars) out = { tooLong: chars };
-    else if (this.parts.length === 0) out = { text: last };
+    let text: string | null = null;
+    if (this.overflow || chars > this.maxChars) this.refusedChars = chars;
     else {
       this.parts.push(last);
-      out = { text: this.parts.join('') };
+      text = this.parts.join('');
     }
     this.clear();
-    return out;
+    return text;
   }
 
   /** Whether a piece is held (or was counted past the bound). */

@@ -32,8 +32,7 @@ export function detectEncoding(head: Uint8Array, file: string, headIsWholeFile: 
 
   const probe = head.subarray(0, BINARY_PROBE_BYTES);
   const nul = probe.indexOf(0);
-  // A PDF may hold no NUL in its first bytes, but nothing else starts with its signature.
-  if (nul >= 0 || binaryKind(head)?.what === PDF) {
+  if (nul >= 0 || startsAsPdf(head)) {
     const kind = binaryKind(head);
     throw new UserError(
       kind !== null
@@ -101,7 +100,10 @@ function utf16(head: Uint8Array, encoding: 'utf-16le' | 'utf-16be', file: string
   return { encoding, bomLength: 2, note: null };
 }
 
-const PDF = 'a PDF';
+/** ISO 32000's "%PDF-": no text file starts so, though a PDF may hold no NUL in its first bytes. */
+function startsAsPdf(head: Uint8Array): boolean {
+  return head[0] === 0x25 && head[1] === 0x50 && head[2] === 0x44 && head[3] === 0x46 && head[4] === 0x2d;
+}
 
 /**
  * What a binary file is, by the signature its format starts with, and what to do instead, for
@@ -115,7 +117,7 @@ export function binaryKind(head: Uint8Array): { what: string; todo: string } | n
   if (starts(0x50, 0x4b, 0x03, 0x04)) {
     return { what: 'a ZIP archive (an .xlsx, .docx, .ods or .odt file is one)', todo: 'save a spreadsheet as CSV (UTF-8), a document as plain text, or unpack an archive of text files and review their folder' };
   }
-  if (starts(0x25, 0x50, 0x44, 0x46, 0x2d)) return { what: PDF, todo: 'extract its text first (for example with pdftotext), one document a line or one file a document (--input-format files)' };
+  if (startsAsPdf(head)) return { what: 'a PDF', todo: 'extract its text first (for example with pdftotext), one document a line or one file a document (--input-format files)' };
   if (starts(0x1f, 0x8b)) return { what: 'gzip-compressed', todo: 'name it with .gz at the end (corpus.csv.gz) and it is read as it is' };
   if (starts(0xd0, 0xcf, 0x11, 0xe0)) return { what: 'an Office file of the pre-2007 kind (.xls, .doc)', todo: 'save a spreadsheet as CSV (UTF-8), a document as plain text' };
   if (starts(0x50, 0x41, 0x52, 0x31)) return { what: 'a Parquet file', todo: 'name it with .parquet at the end and it is read as one' };

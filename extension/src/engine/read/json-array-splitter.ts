@@ -161,9 +161,9 @@ export class JsonArraySplitter {
     this.scalar = false;
     this.inString = false;
     this.escaped = false;
-    const record = this.held.close(chunk.slice(start, end));
-    if ('text' in record) emit(record.text, this.elementLine);
-    else this.tooLong(this.elementLine, record.tooLong);
+    const text = this.held.close(chunk.slice(start, end));
+    if (text !== null) emit(text, this.elementLine);
+    else this.tooLong(this.elementLine, this.held.refusedChars);
   }
 }
 

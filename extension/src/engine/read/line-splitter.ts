@@ -37,9 +37,9 @@ export class LineSplitter {
     else this.held.clear();
   }
 
-  private deliver(record: { text: string } | { tooLong: number }, emit: (text: string, line: number) => void): void {
+  private deliver(text: string | null, emit: (text: string, line: number) => void): void {
     const line = this.line++;
-    if ('text' in record) emit(record.text, line);
-    else this.tooLong(line, record.tooLong);
+    if (text !== null) emit(text, line);
+    else this.tooLong(line, this.held.refusedChars);
   }
 }
