@@ -140,4 +140,44 @@ describe('a folder read one document per file (format "files")', function () {
     assert.match(text, /; 1 file skipped\n/);
     assert.match(text, /\nSkipped food\/photo\.jpg: a binary file \(a NUL byte\), not text\n/);
   });
+
+  it('inflates gzip-compressed files (written by Python\'s gzip module), whatever their name, and says how many', async () => {
+    // Outside reference: Python's gzip module writes the files (RFC 1952), with and without a
+    // .gz name, one of them windows-1252 inside; a truncated one and a compressed binary are skipped.
+    const folder = path.join(dir(), 'gzipped');
+    mkdirSync(path.join(folder, 'docs'), { recursive: true });
+    writeFileSync(path.join(folder, 'docs', 'plain.txt'), 'a plain file beside them\n');
+    const script = [
+      'import gzip, sys, os',
+      'd = os.path.join(sys.argv[1], "docs")',
+      'open(os.path.join(d, "changelog.gz"), "wb").write(gzip.compress("version 2: déjà vu\\n".encode("utf-8")))',
+      'open(os.path.join(d, "README"), "wb").write(gzip.compress("café noir, no .gz name".encode("cp1252")))',
+      'open(os.path.join(d, "binary.gz"), "wb").write(gzip.compress(bytes([0x89, 0x50, 0x00, 0x01])))',
+      'open(os.path.join(d, "cut.gz"), "wb").write(gzip.compress(b"a file cut short " * 100)[:30])',
+    ].join('\n');
+    const r = spawnSync(PYTHON, ['-c', script, folder], { encoding: 'utf8' });
+    assert.equal(r.status, 0, r.stderr);
+    const { source, rows } = await allRows(folder, { format: 'files' });
+    assert.deepEqual(source.places.keys, ['docs/README', 'docs/binary.gz', 'docs/changelog.gz', 'docs/cut.gz', 'docs/plain.txt']);
+    assert.deepEqual(rows.map((row) => row.text), ['café noir, no .gz name', 'version 2: déjà vu\n', 'a plain file beside them\n']);
+    assert.deepEqual(source.places.documents, [1, 0, 1, 0, 1]);
+    const reasons = source.skipped.examples.map((e) => e.reason);
+    assert.equal(reasons[0], 'docs/binary.gz: inflated from gzip: a binary file (a NUL byte), not text');
+    assert.match(reasons[1] ?? '', /^docs\/cut\.gz: gzip-compressed, but it cannot be inflated \(/);
+    assert.equal(source.notes?.[0], '3 files read as one document each (2 of them inflated from gzip); 2 files skipped (the reasons below)');
+    assert.ok(source.notes?.some((n) => n.startsWith('docs/README: not valid UTF-8')), JSON.stringify(source.notes));
+  });
+
+  it('names the first five files with a decoding note and counts the rest in one note', async () => {
+    const folder = path.join(dir(), 'latin');
+    mkdirSync(folder, { recursive: true });
+    // "café n" in windows-1252: not UTF-8 (common practice, no source: 0xE9 is é in windows-1252).
+    for (let i = 0; i < 8; i++) writeFileSync(path.join(folder, `f${i}.txt`), Buffer.from([0x63, 0x61, 0x66, 0xe9, 0x20, 0x30 + i]));
+    const { source, rows } = await allRows(folder, { format: 'files' });
+    assert.deepEqual(rows.map((row) => row.text), [0, 1, 2, 3, 4, 5, 6, 7].map((i) => `café ${i}`));
+    const notes = source.notes ?? [];
+    assert.equal(notes.length, 7, JSON.stringify(notes));
+    assert.deepEqual(notes.slice(1, 6).map((n) => n.slice(0, n.indexOf(':'))), ['f0.txt', 'f1.txt', 'f2.txt', 'f3.txt', 'f4.txt']);
+    assert.equal(notes[6], '3 more files had a note like those above (not valid UTF-8: read as windows-1252, or bytes read as U+FFFD): f5.txt, f6.txt, f7.txt');
+  });
 });
