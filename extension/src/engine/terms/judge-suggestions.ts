@@ -157,6 +157,39 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
   return verdict;
 }
 
+/**
+ * Why the labels cannot judge the list, or null when they can: when every sampled document's
+ * precision is 0 with and without the list (no document has a neighbour with its label: a label
+ * field that is an identifier, one value per document, is the usual cause), or 1 with and without
+ * it (one label for all). No list can move such a figure, and "no clear change, a larger sample
+ * would tell" would be wrong; the verdict is then judged as without labels, and says why.
+ */
+export function blindLabels(before: Float64Array, after: Float64Array, labels: Int32Array | null): string | null {
+  let value: number | null = null;
+  let counted = 0;
+  for (const values of [before, after]) {
+    for (const v of values) {
+      if (Number.isNaN(v)) continue;
+      if (v !== 0 && v !== 1) return null;
+      if (value !== null && v !== value) return null;
+      value = v;
+      counted++;
+    }
+  }
+  if (value === null || counted === 0) return null;
+  const values = new Set<number>();
+  let labelled = 0;
+  for (const id of labels ?? []) {
+    if (id < 0) continue;
+    labelled++;
+    values.add(id);
+  }
+  const stated = labelled === 0 ? '' : ` (${formatCount(values.size)} value${values.size === 1 ? '' : 's'} among ${formatCount(labelled)} sampled documents)`;
+  return value === 0
+    ? `The labels cannot judge the list: no sampled document has a neighbour with its label, with or without it${stated}; a label field that names each document (an identifier) rather than a class does that. So the verdict is by neighbour standout, as without labels; pass a column of classes (a topic, a rating) to measure precision.`
+    : `The labels cannot judge the list: every sampled document's neighbours carry its label, with or without it${stated}. So the verdict is by neighbour standout, as without labels; pass a column of classes (a topic, a rating) to measure precision.`;
+}
+
 /** judgeSuggestions' verdict before the note on suggest.useLabels without labels. */
 function judgeList(input: JudgeInput): Verdict {
   const { lab, suggestions, opinion } = input;
@@ -196,7 +229,9 @@ function judgeList(input: JudgeInput): Verdict {
   // With a label choice, only the documents that did not decide count: the figure is held out.
   const precisionBefore = heldOut(corpus?.before ?? before.precision, choice);
   const precisionAfter = heldOut(corpus?.after ?? after.precision, choice);
-  const useLabels = precisionBefore !== null && precisionAfter !== null;
+  // Labels that cannot tell one list from another (an identifier, or one value for all) judge by standout instead.
+  const blind = precisionBefore !== null && precisionAfter !== null ? blindLabels(precisionBefore, precisionAfter, labels) : null;
+  const useLabels = precisionBefore !== null && precisionAfter !== null && blind === null;
   const boot = useLabels
     ? pairedBootstrap(precisionBefore, precisionAfter, 'mean', VERDICT_DRAWS, lab.seed)
     : pairedBootstrap(before.standout, after.standout, 'median', VERDICT_DRAWS, lab.seed);
@@ -244,7 +279,9 @@ function judgeList(input: JudgeInput): Verdict {
   } else {
     const make = agree('makes', 'make');
     const verb = outcome === 'helps' ? `${make} nearest neighbours stand out more` : outcome === 'hurts' ? `${make} nearest neighbours stand out less` : `${agree('does', 'do')} not clearly change how much nearest neighbours stand out`;
-    headline = `${list} ${verb}: ${measure} ${signed(boot.change, digits)} (${interval}). Without labels this is only a proxy for neighbour quality: standout rises whenever common words are removed, also on corpora where label precision falls (docs/methods.md §9); pass --label to measure precision.`;
+    headline = `${list} ${verb}: ${measure} ${signed(boot.change, digits)} (${interval}). ${blind !== null
+      ? `${blind} Standout is only a proxy for neighbour quality: it rises whenever common words are removed, also on corpora where label precision falls (docs/methods.md §9).`
+      : 'Without labels this is only a proxy for neighbour quality: standout rises whenever common words are removed, also on corpora where label precision falls (docs/methods.md §9); pass --label to measure precision.'}`;
     const formula = formulaSentence(input.formula, input.documents ?? sampled);
     if (formula !== '') headline += ` ${formula}`;
   }
