@@ -42,7 +42,7 @@ describe('formatText layout', () => {
     const one: Report = { ...report, stopList: { ...report.stopList, unused: ['x'] }, input: { ...report.input, skipped: 1 } };
     const text = formatText(one);
     for (const line of text.split('\n')) assert.ok([...line].length <= 100, `${[...line].length}: ${line}`);
-    assert.match(text, /1 never occurs\)/);
+    assert.match(text, /1 never occurs: x\)/);
     assert.match(text, /; 1 row skipped/);
     assert.doesNotMatch(text, /\b1 (terms|rows|documents)\b/);
   });

@@ -80,6 +80,23 @@ describe('stopListFindings', () => {
     assert.match(findings[1]!.message, /neighbour lift 1\.25 ≥ 1\.25/);
   });
 
+  it('stopListFindings flags an unused entry written with capitals, and says how the tokenizer reads one that is not one term', () => {
+    // Report.stopList.unused holds entries as written; split, those the tokenizer reads as several terms or none.
+    const text = "Don't\nNew York\na\nQwerty\n";
+    const r = report([], ["Don't", 'New York', 'a', 'Qwerty']);
+    r.stopList.split = { "Don't": ['do', 'not'], 'New York': ['new', 'york'], a: [] };
+    const findings = stopListFindings(text, r);
+    assert.deepEqual(findings.map((f) => [f.term, f.kind, f.line]), [
+      ["don't", 'unused', 0],
+      ['new york', 'unused', 1],
+      ['a', 'unused', 2],
+      ['qwerty', 'unused', 3],
+    ]);
+    assert.equal(findings[0]!.message, "'Don't' is 2 terms to the tokenizer (do + not), and an entry stops one term; to stop them, write each on a line of its own.");
+    assert.match(findings[2]!.message, /^'a' gives no term under the token settings/);
+    assert.equal(findings[3]!.message, "'Qwerty' never occurs in tickets.csv; the entry has no effect.");
+  });
+
   it('stopListFindings ignores a null neighbour lift and a kept term with high lift', () => {
     const r = report([row('boiler', 'stopped', null), row('submitted', 'kept', 9)], []);
     assert.deepEqual(stopListFindings(stopList, r), []);

@@ -113,6 +113,24 @@ describe('startReview invariants on generated corpora', function () {
     }
   });
 
+  it('an unused stop-list entry that the tokenizer reads as several terms, or none, is said to be one (wink: "Don\'t" is do + not)', async () => {
+    const text = ['we do not cross the river in new york', 'the river does not run'].map((t) => JSON.stringify({ text: t })).join('\n');
+    const session = await startReview({ file: 'c.jsonl', text, configPath: null, overrides: { format: 'jsonl', text: 'text' }, stopListText: "Don't\nnew york\n—\nNeverSeen\nriver\n" });
+    assert.deepEqual(session.report.stopList.unused, ["Don't", 'new york', '—', 'NeverSeen']);
+    assert.deepEqual(session.report.stopList.split, { "Don't": ['do', 'not'], 'new york': ['new', 'york'], '—': [] });
+    // With pairs of words as terms, "new york" is one of them, and it occurs.
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'loudword-pairs-'));
+    const config = path.join(dir, 'loudword.json');
+    writeFileSync(config, JSON.stringify({ tokens: { ngrams: 2 }, format: 'jsonl', text: 'text' }));
+    try {
+      const pairs = await startReview({ file: path.join(dir, 'c.jsonl'), text, configPath: config, stopListText: 'new york\nnew jersey\n' });
+      assert.deepEqual(pairs.report.stopList.unused, ['new jersey']);
+      assert.equal(pairs.report.stopList.split, undefined, 'a pair kept whole simply never occurs');
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it('an aborted review rejects with AbortError', async () => {
     const controller = new AbortController();
     const text = Array.from({ length: 50 }, (_, i) => JSON.stringify({ text: `river stone ${i}` })).join('\n');

@@ -174,7 +174,18 @@ export interface Report {
    * The stop list in force for the baseline (from the project's stop list file). `exists` is false
    * when the settings name a file that is not there yet (the first term added creates it).
    */
-  stopList: { file: string | null; exists: boolean; terms: number; unused: string[] };
+  stopList: {
+    file: string | null;
+    exists: boolean;
+    terms: number;
+    /** Entries, as written, whose term never occurs in the corpus. */
+    unused: string[];
+    /**
+     * Of `unused`, those the tokenizer does not read as one term, with the terms it makes of them
+     * ("Don't" → do, not; "new york" → new, york; "—" → none): an entry stops one term.
+     */
+    split?: Record<string, string[]> | undefined;
+  };
   timings?: Record<string, number> | undefined;
   /** Which loudword.json the review read and where each setting came from. */
   provenance?: SettingsProvenance | undefined;

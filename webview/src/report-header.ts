@@ -5,7 +5,7 @@ import type { Report } from '../../extension/src/protocol';
 import { el, type Child } from './create-element';
 import { formatBytes, formatCount, formatNumber } from './format';
 import { skippedWording } from '../../extension/src/skipped-wording';
-import { stopListSize } from '../../extension/src/stop-list-wording';
+import { stopListInForce, stopListSize } from '../../extension/src/stop-list-wording';
 
 export function renderReportHeader(report: Report, actions: readonly HTMLElement[]): HTMLElement {
   const input = report.input;
@@ -130,7 +130,7 @@ export function renderSettingsFooter(report: Report): HTMLElement {
     `Weighting: tf ${s.weighting.tf}, idf ${s.weighting.idf}, norm ${s.weighting.norm}.`,
     `Tokens: ${s.tokens.lowercase ? 'lowercased' : 'case kept'}, min length ${s.tokens.minLength}, ${s.tokens.ngrams === 2 ? 'uni- and bigrams' : 'unigrams'}${s.tokens.stem ? ', stemmed' : ''}; kinds ${s.tokens.kinds.join(', ')}.`,
     `Pruning: min df ${formatNumber(s.prune.minDf)}, max df ${formatNumber(s.prune.maxDf)}. Sample: ${formatCount(s.sample.documents)} documents, k = ${s.sample.k}, seed ${s.sample.seed}.`,
-    `Stop list: ${stop.file ?? 'none'} (${formatCount(stop.terms)} terms${stop.unused.length > 0 ? `, ${formatCount(stop.unused.length)} never occur` : ''}).`,
+    `Stop list: ${stopListInForce(stop)}.`,
   ];
   return el('footer', { className: 'lw-footer' }, [
     ...lines.map((text) => el('p', { text })),

@@ -1,13 +1,13 @@
 import type { Report } from '../protocol';
 import { provenanceLine } from './format-provenance';
-import { count, verb, wrapLines } from './text-layout';
+import { count, wrapLines } from './text-layout';
 import { formatCount, formatNumber } from '../number-format';
 import { judgedChangeWord, measureCatalog } from '../measure-catalog';
 import { verdictLines } from './format-verdict';
 import { verdictCaution } from '../verdict-wording';
 import { piecesSentence, suggestedTermLines } from '../engine/terms/stop-list-spelling';
 import { skippedWording } from '../skipped-wording';
-import { stopListSize } from '../stop-list-wording';
+import { stopListInForce } from '../stop-list-wording';
 
 const TERMS_SHOWN = 15;
 const HUBS_SHOWN = 5;
@@ -35,7 +35,7 @@ export function formatText(report: Report): string {
   for (const note of input.notes ?? []) out.push(`Note: ${note}`);
   for (const s of input.skippedExamples ?? []) out.push(`Skipped ${skipped.example(s)}`);
   if (input.truncated) out.push(`Read only the first ${count(input.truncated.bytesRead, 'byte')} (limit ${formatCount(input.truncated.limitBytes)}).`);
-  out.push(`Stop list: ${report.stopList.file ?? 'none'} (${stopListSize(report.stopList)}${report.stopList.unused.length ? `, ${report.stopList.unused.length} never ${verb(report.stopList.unused.length, 'occurs', 'occur')}` : ''})`);
+  out.push(`Stop list: ${stopListInForce(report.stopList)}`);
   const provenance = provenanceLine(report);
   if (provenance !== null) out.push(provenance);
   out.push(`Sample: ${count(baseline.sample.documents, 'document')}, k = ${baseline.sample.k}, seed ${baseline.sample.seed}`);

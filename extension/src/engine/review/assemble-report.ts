@@ -14,7 +14,7 @@ export interface ReportParts {
   settings: EffectiveSettings;
   source: CorpusSource;
   prepared: PreparedWeights;
-  stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[] };
+  stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[]; split?: Record<string, string[]> | undefined };
   baseline: DistanceResult;
   termReview: TermReview;
   sample: ReviewSample;
@@ -47,7 +47,7 @@ export function assembleReport(p: ReportParts): Report {
     suggestionPieces: p.termReview.pieces,
     verdict: p.termReview.verdict,
     hubs: hubRows(p),
-    stopList: { file: p.stopList.file, exists: p.stopList.exists, terms: p.stopList.terms.length, unused: p.stopList.unused },
+    stopList: { file: p.stopList.file, exists: p.stopList.exists, terms: p.stopList.terms.length, unused: p.stopList.unused, split: p.stopList.split },
   };
 }
 

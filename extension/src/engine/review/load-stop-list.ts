@@ -13,6 +13,25 @@ export interface LoadedStopList {
 }
 
 /**
+ * `stopList` with `split`: its unused entries that the tokenizer does not read as one term, with
+ * the terms it makes of each. Such an entry stops nothing ("Don't" is "do" + "not" to wink, "new
+ * york" two words), and saying "never occurs" alone would send the user looking for a word that
+ * is there.
+ */
+export function withSplit<S extends { unused: string[] }>(stopList: S, tokenize: (text: string) => string[]): S & { split?: Record<string, string[]> } {
+  const split: Record<string, string[]> = {};
+  let any = false;
+  for (const written of stopList.unused) {
+    const tokens = tokenize(written);
+    // One term, or a phrase kept whole as a term of its own (a pair, with ngrams 2): it simply never occurs.
+    if (tokens.length === 1 || tokens.includes(written) || tokens.includes(written.toLowerCase())) continue;
+    split[written] = tokens;
+    any = true;
+  }
+  return any ? { ...stopList, split } : stopList;
+}
+
+/**
  * Reads the project's stop list (or the editor's unsaved text of it) for the baseline. Each
  * entry goes through the same tokenizer as the corpus, so "Running" matches the stem "run" when
  * stemming is on; an entry the tokenizer splits (a phrase) is kept as written, lower-cased.

@@ -12,7 +12,7 @@ import { FileSnapshot } from './file-snapshot';
 import { loadReviewSettings, provenanceOf } from './review-settings';
 import { prepareWeights, prestartTokenizing, startTokenizing, unusedEntries } from './prepare-weights';
 import { entriesOfThisTokenizer } from '../terms/contraction-pieces';
-import { loadStopList } from './load-stop-list';
+import { loadStopList, withSplit } from './load-stop-list';
 import { chooseSample } from './choose-sample';
 import { searchInProcess } from '../terms/corpus-precision';
 import { reviewTerms, startOpinionCheck, startTermReview } from '../terms/review-terms';
@@ -130,7 +130,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     settings,
     source,
     prepared,
-    stopList: { ...stopList, unused: unusedEntries(entriesOfThisTokenizer(stopList.entries, tokenize), prepared.seenTerms) },
+    stopList: withSplit({ ...stopList, unused: unusedEntries(entriesOfThisTokenizer(stopList.entries, tokenize), prepared.seenTerms) }, tokenize),
     baseline,
     termReview,
     sample,

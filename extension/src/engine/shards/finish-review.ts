@@ -73,7 +73,7 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, tot
     settings,
     source,
     prepared,
-    stopList: { file: plan.stopList.file, exists: plan.stopList.exists, terms: plan.stopList.terms, unused: plan.stopList.unused },
+    stopList: { file: plan.stopList.file, exists: plan.stopList.exists, terms: plan.stopList.terms, unused: plan.stopList.unused, split: plan.stopList.split },
     baseline,
     termReview,
     sample,

@@ -122,7 +122,7 @@ export interface PlanPartial extends PartialHeader {
   previewDocs: number[];
   input: Omit<Report['input'], 'documents'>;
   tokenizerNotes: string[];
-  stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[] };
+  stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[]; split?: Record<string, string[]> | undefined };
 }
 
 export interface EncodedSums {

@@ -6,7 +6,7 @@ import { dfBounds } from '../matrix/prune-terms';
 import { idfOf } from '../matrix/weigh';
 import { BottomK, compareRanked, type Ranked } from '../random/bottom-k';
 import { MAX_SKIPPED_EXAMPLES } from '../read/row-stream';
-import { loadStopList } from '../review/load-stop-list';
+import { loadStopList, withSplit } from '../review/load-stop-list';
 import { OPINION_SAMPLE } from '../terms/review-terms';
 import { createTokenizer } from '../tokenize/create-tokenizer';
 import { entriesOfThisTokenizer } from '../terms/contraction-pieces';
@@ -146,7 +146,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     input: mergedInput(input.corpus, parts),
     // As one process says them (matrix/count-each-file.ts): with more than one shard, each names its file.
     tokenizerNotes: parts.flatMap((p) => (parts.length > 1 ? p.tokenizerNotes.map((note) => `${p.key}: ${note}`) : p.tokenizerNotes)),
-    stopList: { file: stopList.file, exists: stopList.exists, terms: stopList.terms, unused: entriesOfThisTokenizer(stopList.entries, tokenize).filter((e) => !dfOf.has(e.term)).map((e) => e.written) },
+    stopList: withSplit({ file: stopList.file, exists: stopList.exists, terms: stopList.terms, unused: entriesOfThisTokenizer(stopList.entries, tokenize).filter((e) => !dfOf.has(e.term)).map((e) => e.written) }, tokenize),
   };
 }
 

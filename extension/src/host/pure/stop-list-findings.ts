@@ -6,6 +6,7 @@
 //    so stopping it throws away what tells neighbours apart.
 import type { Report } from '../../protocol';
 import { splitStopListLines, stopListTerm } from '../../engine/stoplist/stop-list-lines';
+import { unusedEntrySentence } from '../../stop-list-wording';
 
 /** A stopped term with neighbour lift at or above this gets a warning. Lift 1 means "no more
  * shared inside k-NN pairs than across all pairs"; 1.25 asks for a quarter more — a judgement
@@ -49,7 +50,9 @@ function fixed(x: number): string {
 
 /** The findings for `stopListText`, in line order; at most `max` (a huge list stays responsive). */
 export function stopListFindings(stopListText: string, report: Report, max = 1000): StopListFinding[] {
-  const unused = new Set(report.stopList.unused);
+  // The file's entries are matched as the review read them: lower-cased when the tokens are.
+  const lowercase = report.settings.tokens.lowercase;
+  const unused = new Map(report.stopList.unused.map((written) => [lowercase ? written.toLowerCase() : written, written]));
   const lift = new Map<string, number>();
   for (const row of report.terms) {
     // A term the suggestion rule would suggest itself is never flagged: applying the suggestions
@@ -59,8 +62,9 @@ export function stopListFindings(stopListText: string, report: Report, max = 100
   const findings: StopListFinding[] = [];
   for (const entry of stopListEntries(stopListText, report.settings.tokens.lowercase)) {
     if (findings.length >= max) break;
-    if (unused.has(entry.term)) {
-      findings.push({ ...entry, kind: 'unused', message: `'${entry.term}' never occurs in ${baseName(report.input.file)}; the entry has no effect.` });
+    const written = unused.get(entry.term);
+    if (written !== undefined) {
+      findings.push({ ...entry, kind: 'unused', message: unusedEntrySentence(report.stopList, written, baseName(report.input.file)) });
       continue;
     }
     const l = lift.get(entry.term);
