@@ -43,6 +43,8 @@ describe('formatText layout', () => {
     const text = formatText(one);
     for (const line of text.split('\n')) assert.ok([...line].length <= 100, `${[...line].length}: ${line}`);
     assert.match(text, /1 never occurs: x\)/);
+    // The Markdown names the stop list in force too, with the same words.
+    assert.match(formatMarkdown(one), /\nStop list: stoplist\.txt \(12 terms, 1 never occurs: x\)\n/);
     assert.match(text, /; 1 row skipped/);
     assert.doesNotMatch(text, /\b1 (terms|rows|documents)\b/);
   });

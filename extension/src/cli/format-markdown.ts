@@ -5,6 +5,7 @@ import { verdictLines } from './format-verdict';
 import { piecesSentence, suggestedTermLines } from '../engine/terms/stop-list-spelling';
 import { provenanceLine } from './format-provenance';
 import { count } from './text-layout';
+import { stopListInForce } from '../stop-list-wording';
 
 const TERMS_SHOWN = 30;
 
@@ -30,6 +31,7 @@ export function formatMarkdown(report: Report): string {
   out.push('');
   const provenance = provenanceLine(report);
   if (provenance !== null) out.push(cell(provenance), '');
+  out.push(`Stop list: ${cell(stopListInForce(report.stopList))}`, '');
   // What the reader and the review had to say (an encoding read as windows-1252, duplicates).
   for (const note of input.notes ?? []) out.push(`> ${cell(note)}`, '');
   out.push('| measure | current | with suggestions | |');
