@@ -128,6 +128,17 @@ describe('loudword CLI', function () {
     assert.match(wrong.stderr, /--format: must be one of/);
   });
 
+  it('shard --help (and a step\'s --help) lists every step; a shard mistake points there', () => {
+    for (const args of [['shard', '--help'], ['shard', 'count', '-h']]) {
+      const help = run(args, dir);
+      assert.equal(help.code, 0, help.stderr);
+      for (const step of ['settings', 'list', 'count', 'plan', 'sums', 'finish', 'serve']) assert.match(help.stdout, new RegExp(`^  ${step}\\b`, 'm'), step);
+    }
+    const none = run(['shard'], dir);
+    assert.equal(none.code, 2);
+    assert.match(none.stderr, /shard needs a step: .*\nRun `loudword shard --help` for the steps\.\n$/);
+  });
+
   it('an invalid loudword.json exits 1 naming the file and line', () => {
     writeFileSync(path.join(dir, 'bad.json'), '{\n  "text": "message",\n  "sample": { "k": "ten" }\n}\n');
     const r = run(['review', 'support-tickets.csv', '--config', 'bad.json'], dir);

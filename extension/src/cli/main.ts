@@ -175,7 +175,8 @@ main(process.argv.slice(2)).then(
       process.stderr.write(`loudword: ${escapeControls(error.message)}\n`);
       process.exitCode = EXIT.usage;
     } else if (error instanceof UsageError) {
-      process.stderr.write(`loudword: ${escapeControls(error.message)}\nRun \`loudword --help\` for the options.\n`);
+      const help = process.argv[2] === 'shard' ? '`loudword shard --help` for the steps' : '`loudword --help` for the options';
+      process.stderr.write(`loudword: ${escapeControls(error.message)}\nRun ${help}.\n`);
       process.exitCode = EXIT.usage;
     } else if (isUserError(error)) {
       process.stderr.write(`loudword: ${escapeControls(error.describe())}\n`);

@@ -62,7 +62,7 @@ export interface OptionSpec {
 export const COMMANDS = [
   { name: 'review', args: '<corpus> [options]', help: 'review the corpus and print the findings' },
   { name: 'apply', args: '<corpus> [options]', help: 'review, then add the suggested terms to the stop list file' },
-  { name: 'shard', args: '<step> [options]', help: 'one step of a review in shards: count, plan, sums, finish, settings (README "Reviewing on a cluster")' },
+  { name: 'shard', args: '<step> [options]', help: 'one step of a review in shards: settings, list, count, plan, sums, finish, serve (`loudword shard --help`)' },
 ] as const;
 
 export const OPTIONS: readonly OptionSpec[] = [

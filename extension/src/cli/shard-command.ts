@@ -35,6 +35,32 @@ export interface ShardSettingsFile {
 const STEPS = ['settings', 'list', 'count', 'plan', 'sums', 'finish', 'serve'] as const;
 type Step = (typeof STEPS)[number];
 
+/** `loudword shard --help` (and `shard <step> --help`): the steps, in the order a driver runs them. */
+export const SHARD_USAGE = `loudword shard <step> — one step of a review in shards, each a process of its own that a
+scheduler can run anywhere (Dask, a Slurm array, Spark); README "The shard steps by hand".
+
+Steps, in the order they run:
+  settings <corpus> [review options] --out S
+      resolve the settings once; every later step reads S
+  list <corpus>
+      the shards: one JSON line {"key", "file"} each
+  count <shard file> --key K --settings S --out P [--counts C]
+      round 1, once per shard (--counts C: keep the shard's token counts for the sums rounds)
+  plan P... --settings S --out PLAN
+      merge the round-1 partials into the plan
+  sums <shard file> --key K --settings S --plan PLAN --out P [--counts C]
+      round 2, once per shard (--counts C: read the kept counts instead of tokenising again)
+  finish SUMS... --settings S --plan PLAN --out REPORT [--next-plan NEXT]
+      the Report; exits ${NEEDS_SUMS} after writing NEXT when more sums are needed: run sums
+      with --plan NEXT on every shard, then finish again
+  serve
+      run steps asked on standard input, one JSON line {"args": ["count", …]} each (for drivers)
+
+Every output is written atomically. Exit status: 0 done, ${NEEDS_SUMS} another sums round is needed
+(finish), 1 the input is wrong (the message names the file), 2 the command line is wrong,
+4 an internal error (please report it).
+`;
+
 const OPTIONS = {
   settings: { type: 'string' },
   key: { type: 'string' },
@@ -46,19 +72,11 @@ const OPTIONS = {
 
 /**
  * `loudword shard <step>`: the steps of a review in shards, each a separate process a scheduler
- * can run anywhere (Dask, a Slurm array, Spark's pipe()):
- *   settings <corpus> [review options] --out S       resolve the settings once
- *   list <corpus>                                    the shards: one JSON line {key, file} each
- *   count <file> --key K --settings S --out P [--counts C]   round 1 (C: keep the shard's counts)
- *   plan P... --settings S --out PLAN                the merge
- *   sums <file> --key K --settings S --plan PLAN --out P [--counts C]   round 2 (C: use the kept counts)
- *   finish SUMS... --settings S --plan PLAN --out REPORT [--next-plan NEXT]
- * finish exits with NEEDS_SUMS after writing NEXT when the review needs the sums of more masks.
- * With --counts, round 1 writes the shard's token counts (engine/shards/shard-counts.ts) before its
- * partial, and every sums round reads them instead of tokenising the shard again; counts that are
- * missing, or from another state of the file or other settings, are ignored (the shard is read again).
- * Every output is written atomically.
- *   serve                                            run steps one after another, asked on stdin
+ * can run anywhere (Dask, a Slurm array, Spark's pipe()); the steps and their options are
+ * SHARD_USAGE. With --counts, round 1 writes the shard's token counts
+ * (engine/shards/shard-counts.ts) before its partial, and every sums round reads them instead of
+ * tokenising the shard again; counts that are missing, or from another state of the file or other
+ * settings, are ignored (the shard is read again). Every output is written atomically.
  * `serve` is for drivers that run many steps on one machine (cluster/loudword_dask.py keeps one per
  * Dask worker): it reads one JSON line per step, {"args": ["count", …]}, runs it as the command
  * would, and answers one JSON line {"status", "message"?, "seconds", "peakMB"}; status is the
@@ -67,6 +85,11 @@ const OPTIONS = {
  * end of its input.
  */
 export async function runShardCommand(argv: readonly string[]): Promise<number> {
+  const beforeEnd = argv.indexOf('--') < 0 ? argv : argv.slice(0, argv.indexOf('--'));
+  if (beforeEnd.includes('--help') || beforeEnd.includes('-h')) {
+    process.stdout.write(SHARD_USAGE);
+    return 0;
+  }
   const step = argv[0] as Step | undefined;
   if (step === undefined || !STEPS.includes(step)) throw new UsageError(`shard needs a step: ${STEPS.join(', ')}`);
   if (step === 'settings') return writeSettings(argv.slice(1));
