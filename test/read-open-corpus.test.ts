@@ -42,6 +42,18 @@ describe('openCorpusFromText', () => {
     assert.equal(source.textField, 'body');
   });
 
+  it('openCorpusFromText passes over a longer column of one-token values (URLs, slugs) for the text, but not text without spaces', async () => {
+    // A news export (our own rows): the url is longer than the title, and one token of a kind the tokenizer does not keep.
+    const news = 'id,url,title\n1,https://example.org/news/2026/12/05/the-cat-sat-on-the-mat,the cat sat on the mat\n2,https://example.org/news/2026/12/05/a-dog-barked-at-the-moon,a dog barked\n';
+    assert.equal(openCorpusFromText('n.csv', news, {}).textField, 'title');
+    // Chinese is written without spaces: still text, and the longest.
+    const zh = 'id,slug,body\n1,cat-mat,猫坐在垫子上，看着窗外的雨。\n2,dog-moon,狗对着月亮叫了一整夜。\n';
+    assert.equal(openCorpusFromText('z.csv', zh, {}).textField, 'body');
+    // With nothing but one-token columns, the longest of them.
+    const only = 'id,url\n1,https://example.org/a\n2,https://example.org/b\n';
+    assert.equal(openCorpusFromText('u.csv', only, {}).textField, 'url');
+  });
+
   it('openCorpusFromText sniffs ; | and TAB delimiters in a .csv', async () => {
     for (const d of [';', '|', '\t']) {
       const csv = ['id', 'text', 'label'].join(d) + '\n' + ['1', 'one, two, three', 'a'].join(d) + '\n' + ['2', 'four, five', 'b'].join(d) + '\n';

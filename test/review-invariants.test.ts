@@ -83,6 +83,16 @@ describe('startReview invariants on generated corpora', function () {
     await assert.rejects(reviewText(text), (e: unknown) => isUserError(e) && e.file === 'generated.jsonl');
   });
 
+  it('a text field of URLs: the UserError names the field, why nothing was kept, and the other fields', async () => {
+    const text = [1, 2, 3].map((i) => JSON.stringify({ url: `https://example.org/news/${i}/the-river-rose`, title: `the river rose ${i}` })).join('\n');
+    const run = startReview({ file: 'n.jsonl', text, configPath: null, overrides: { format: 'jsonl', text: 'url', stopList: null } });
+    await assert.rejects(run, (e: unknown) => {
+      assert.ok(isUserError(e));
+      assert.match(e.message, /of the text field "url": no token of a kind the settings keep was found \(URLs, e-mail addresses and punctuation are dropped by default\); another field may hold the text \(--text, "text" in loudword\.json\): title;/);
+      return true;
+    });
+  });
+
   it('one document: measures that need pairs are null, nothing throws', async () => {
     const r = (await reviewText(JSON.stringify({ text: 'a single lonely document about rivers' }))).report;
     assert.equal(r.input.documents, 1);

@@ -123,3 +123,17 @@ export function documentCount(name: string, value: number, n: number, isMax: boo
   }
   return value;
 }
+
+/**
+ * Why a review has no terms, naming the text field it read and the other fields a user could name
+ * instead: a field of URLs or ids tokenises to nothing the default kinds keep.
+ */
+export function noTermsLeftMessage(textField: string | null, fields: readonly string[], termsBefore: number): string {
+  const others = fields.filter((f) => f !== textField);
+  const field = textField === null ? '' : ` of the text field "${textField}"`;
+  const before = termsBefore > 0
+    ? `${termsBefore} term${termsBefore === 1 ? ' was' : 's were'} found, all pruned by document frequency`
+    : 'no token of a kind the settings keep was found (URLs, e-mail addresses and punctuation are dropped by default)';
+  const instead = textField !== null && others.length > 0 ? `; another field may hold the text (--text, "text" in loudword.json): ${others.join(', ')}` : '';
+  return `no terms are left after tokenising and pruning${field}: ${before}${instead}; check the prune settings too`;
+}

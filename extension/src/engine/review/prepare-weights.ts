@@ -7,7 +7,7 @@ import { hasGlob } from '../read/corpus-files';
 import { countEachFile } from '../matrix/count-each-file';
 import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
-import { dfBounds, pruneTerms } from '../matrix/prune-terms';
+import { dfBounds, noTermsLeftMessage, pruneTerms } from '../matrix/prune-terms';
 import { sketchRows, type DuplicateSketch } from '../matrix/duplicate-sketch';
 import { idfFromDf, weighInPlace } from '../matrix/weigh';
 import type { RowWeighing } from '../tokenize/row-assembler';
@@ -153,7 +153,7 @@ export async function prepareWeights(
       ...(built.countSums !== null ? { df: built.countSums.df } : {}),
     });
     if (counts.cols === 0) {
-      throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', source.file);
+      throw new UserError(noTermsLeftMessage(source.textField, source.fields, built.counts.cols), source.file);
     }
     // The raw-count statistics first: the weights are then written over the counts. Their df is
     // the idf's (every stored count is ≥ 1, so a column's entries are its documents).

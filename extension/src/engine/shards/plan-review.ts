@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import * as path from 'node:path';
 import type { EffectiveSettings } from '../../protocol';
 import { compareCodePoints } from '../matrix/compare-code-points';
-import { dfBounds } from '../matrix/prune-terms';
+import { dfBounds, noTermsLeftMessage } from '../matrix/prune-terms';
 import { idfOf } from '../matrix/weigh';
 import { BottomK, compareRanked, type Ranked } from '../random/bottom-k';
 import { MAX_SKIPPED_EXAMPLES } from '../read/row-stream';
@@ -113,7 +113,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     idf.push(idfOf(settings.weighting.idf, documents, df));
     nonzeros += df;
   }
-  if (terms.length === 0) throw new UserError('no terms are left after tokenising and pruning; check the text field and the prune settings', input.corpus);
+  if (terms.length === 0) throw new UserError(noTermsLeftMessage(parts[0]?.input.textField ?? null, [], allTerms.length), input.corpus);
   const index = new TermIndex(terms);
 
   const overall = candidatesSeen > held.size ? held.items()[held.size - 1]! : null;
