@@ -2,6 +2,7 @@
 // reading is papaparse's, RFC 4180 quoting; common practice, no source).
 import { strict as assert } from 'node:assert';
 import { columnPreviews, missingFieldRole } from '../extension/src/host/pure/column-previews';
+import { noTermsLeftMessage } from '../extension/src/engine/matrix/prune-terms';
 
 describe('columnPreviews', () => {
   it('columnPreviews lists CSV columns with their first values, quotes and line breaks handled', () => {
@@ -55,5 +56,8 @@ describe('columnPreviews', () => {
     assert.equal(missingFieldRole('--text "body" (command-line flag): no such field in c.csv; available: "a"'), 'text');
     assert.equal(missingFieldRole('loudword.labelField "topic" (editor setting): no such field in c.csv; available: "a"'), 'label');
     assert.equal(missingFieldRole('sample.k 5: must be a whole number'), null);
+    // A text field that gave no terms, with other fields to choose (the engine's own message).
+    assert.equal(missingFieldRole(noTermsLeftMessage('url', ['url', 'title'], 0)), 'text');
+    assert.equal(missingFieldRole(noTermsLeftMessage('body', ['body'], 12)), null, 'no other field to offer');
   });
 });

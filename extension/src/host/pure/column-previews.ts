@@ -84,5 +84,8 @@ export function missingFieldRole(message: string): 'text' | 'label' | null {
   const blamed = /^(?:--|loudword\.)?(text|label)\w* "(?:[^"\\]|\\.)*"(?: \([^)]*\))?: no such field in /.exec(message);
   if (blamed) return blamed[1] as 'text' | 'label';
   if (/^found no (?:column|key|text column)/.test(message)) return 'text';
+  // A text field that gave no terms at all (a column of URLs): another column may hold the text
+  // (engine/matrix/prune-terms.ts noTermsLeftMessage).
+  if (/^no terms are left after tokenising and pruning of the text field "/.test(message) && message.includes('another field may hold the text')) return 'text';
   return null;
 }
