@@ -6,6 +6,7 @@ import type { ReviewSample } from './choose-sample';
 import type { DistanceResult } from '../what-if/distance-lab';
 import { LOUDWORD_VERSION } from './version';
 import { duplicatesOf } from '../matrix/duplicate-sketch';
+import { markupNote } from './markup-note';
 import { formatCount } from '../../number-format';
 
 const HUBS_IN_REPORT = 12;
@@ -51,9 +52,11 @@ export function assembleReport(p: ReportParts): Report {
   };
 }
 
-/** The reader's notes, then the tokenizer's, then one on duplicates; undefined when there are none. */
+/** The reader's notes, then the tokenizer's, then one on HTML left in the text and one on duplicates; undefined when there are none. */
 function notesOf(p: ReportParts, duplicates: { documents: number; exact: boolean }): string[] | undefined {
   const notes = [...(p.source.notes ?? []), ...(p.prepared.notes ?? [])];
+  const markup = markupNote(p.prepared.terms, p.prepared.counts.df, p.prepared.documents);
+  if (markup !== null) notes.push(markup);
   const note = duplicatesNote(duplicates, p.prepared.documents);
   if (note !== null) notes.push(note);
   return notes.length > 0 ? notes : undefined;
