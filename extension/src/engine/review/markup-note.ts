@@ -13,7 +13,7 @@ const HTML_ONLY_NAMES = [
 
 /**
  * From this share of the documents holding one of the names, the Report says that HTML was left
- * in the text: a round value, common practice, no source (the rated reviews of the development
+ * in the text: a round value, common practice, no source (the fine-food reviews of the development
  * set hold "br" in 23% of the documents, the SpamAssassin mail "href" in 21%; none of the other
  * fourteen development corpora holds any of these names in 5% of its documents).
  */
