@@ -3,6 +3,8 @@ import type { Measures, Report, TermRow } from '../extension/src/protocol';
 import { DEFAULT_SETTINGS } from '../extension/src/engine/config/default-settings';
 import { NEIGHBOR_SIGNAL_LIFT, stopListEntries, stopListFindings } from '../extension/src/host/pure/stop-list-findings';
 import { statusHeadline, statusTooltip } from '../extension/src/host/pure/status-headline';
+import { unusedEntriesInBrief } from '../extension/src/stop-list-wording';
+import { withSplit } from '../extension/src/engine/review/load-stop-list';
 
 // A hand-made Report: only the fields the functions read carry meaning; the values are
 // invented for the test (common practice, no source).
@@ -95,6 +97,18 @@ describe('stopListFindings', () => {
     assert.equal(findings[0]!.message, "'Don't' is 2 terms to the tokenizer (do + not), and an entry stops one term; to stop them, write each on a line of its own.");
     assert.match(findings[2]!.message, /^'a' gives no term under the token settings/);
     assert.equal(findings[3]!.message, "'Qwerty' never occurs in tickets.csv; the entry has no effect.");
+  });
+
+  it('an unused entry named like an Object property is read by its own key only', () => {
+    const r = report([], ['constructor', "Don't"]);
+    r.stopList.split = { "Don't": ['do', 'not'] };
+    const findings = stopListFindings("constructor\nDon't\n", r);
+    assert.equal(findings[0]!.message, "'constructor' never occurs in tickets.csv; the entry has no effect.");
+    assert.equal(unusedEntriesInBrief(r.stopList), "constructor, Don't (do + not)");
+    // The engine's side: "__proto__" becomes an own key of split, kept through JSON.
+    const split = withSplit({ unused: ['__proto__', 'one'] }, (t) => (t === 'one' ? ['one'] : ['proto', 'x'])).split!;
+    assert.deepEqual(JSON.parse(JSON.stringify(split)), JSON.parse('{"__proto__": ["proto", "x"]}'));
+    assert.ok(Object.hasOwn(split, '__proto__'));
   });
 
   it('stopListFindings ignores a null neighbour lift and a kept term with high lift', () => {

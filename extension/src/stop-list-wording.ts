@@ -18,7 +18,7 @@ export function stopListSize(stopList: Report['stopList']): string {
  * words occur; any other simply never occurs in `corpusName`.
  */
 export function unusedEntrySentence(stopList: Report['stopList'], written: string, corpusName: string): string {
-  const tokens = stopList.split?.[written];
+  const tokens = splitOf(stopList, written);
   if (tokens === undefined) return `'${written}' never occurs in ${corpusName}; the entry has no effect.`;
   if (tokens.length === 0) return `'${written}' gives no term under the token settings (too short, or a kind of token not kept); the entry has no effect.`;
   return `'${written}' is ${tokens.length} terms to the tokenizer (${tokens.join(' + ')}), and an entry stops one term; to stop them, write each on a line of its own.`;
@@ -27,7 +27,7 @@ export function unusedEntrySentence(stopList: Report['stopList'], written: strin
 /** The unused entries in a few words each, for one line of the CLI: "Don't (do + not), new york (new + york), qwerty". */
 export function unusedEntriesInBrief(stopList: Report['stopList'], max = 8): string {
   const shown = stopList.unused.slice(0, max).map((written) => {
-    const tokens = stopList.split?.[written];
+    const tokens = splitOf(stopList, written);
     return tokens === undefined ? written : tokens.length === 0 ? `${written} (no term)` : `${written} (${tokens.join(' + ')})`;
   });
   const more = stopList.unused.length - shown.length;
@@ -39,4 +39,12 @@ export function stopListInForce(stopList: Report['stopList']): string {
   const n = stopList.unused.length;
   const unused = n > 0 ? `, ${formatCount(n)} never ${n === 1 ? 'occurs' : 'occur'}: ${unusedEntriesInBrief(stopList)}` : '';
   return `${stopList.file ?? 'none'} (${stopListSize(stopList)}${unused})`;
+}
+
+/**
+ * The terms the tokenizer makes of an unused entry that is not one term, or undefined. Own keys
+ * only: the keys are what the user wrote, and an entry "constructor" must not read Object's.
+ */
+function splitOf(stopList: Report['stopList'], written: string): string[] | undefined {
+  return stopList.split !== undefined && Object.hasOwn(stopList.split, written) ? stopList.split[written] : undefined;
 }

@@ -19,16 +19,15 @@ export interface LoadedStopList {
  * is there.
  */
 export function withSplit<S extends { unused: string[] }>(stopList: S, tokenize: (text: string) => string[]): S & { split?: Record<string, string[]> } {
-  const split: Record<string, string[]> = {};
-  let any = false;
+  const split: Array<[string, string[]]> = [];
   for (const written of stopList.unused) {
     const tokens = tokenize(written);
     // One term, or a phrase kept whole as a term of its own (a pair, with ngrams 2): it simply never occurs.
     if (tokens.length === 1 || tokens.includes(written) || tokens.includes(written.toLowerCase())) continue;
-    split[written] = tokens;
-    any = true;
+    split.push([written, tokens]);
   }
-  return any ? { ...stopList, split } : stopList;
+  // fromEntries makes every entry an own key, "__proto__" too (an assignment would set the prototype).
+  return split.length > 0 ? { ...stopList, split: Object.fromEntries(split) } : stopList;
 }
 
 /**

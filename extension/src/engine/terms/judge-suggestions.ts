@@ -166,17 +166,15 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
  */
 export function blindLabels(before: Float64Array, after: Float64Array, labels: Int32Array | null): string | null {
   let value: number | null = null;
-  let counted = 0;
   for (const values of [before, after]) {
     for (const v of values) {
       if (Number.isNaN(v)) continue;
       if (v !== 0 && v !== 1) return null;
       if (value !== null && v !== value) return null;
       value = v;
-      counted++;
     }
   }
-  if (value === null || counted === 0) return null;
+  if (value === null) return null;
   const values = new Set<number>();
   let labelled = 0;
   for (const id of labels ?? []) {
