@@ -220,6 +220,13 @@ describe('reader bad input', () => {
     assert.match(source.skipped.examples[0]?.reason ?? '', /"text" is an object, not text: name one of its keys with a dot \("field\.key"\)/);
   });
 
+  it('openCorpus: a label that is a list of tags skips the document, saying precision needs one class a document', async () => {
+    const { rows, source } = await fileRows('tags.jsonl', '{"text":"one","tags":["a","b"]}\n{"text":"two","tags":"a"}\n{"text":"three","tags":[]}\n', { textField: 'text', labelField: 'tags' });
+    assert.deepEqual(rows.map((r) => [r.text, r.label]), [['two', 'a']]);
+    assert.equal(source.skipped.count, 2);
+    assert.match(source.skipped.examples[0]?.reason ?? '', /^"tags" is a list, not one label: label precision needs one class per document/);
+  });
+
   it('openCorpus: dotted keys reach into nested objects (JSON Lines and a JSON array), own keys only, a literal dotted key first', async () => {
     const lines = [
       { id: 1, doc: { body: 'first text here', lang: 'en' }, meta: { topic: 'a' } },

@@ -129,6 +129,11 @@ export interface Report {
     labelField: string | null;
     documents: number;
     skipped: number;
+    /**
+     * Documents whose label is empty or missing, when there is a label field: label precision
+     * does not score them, and as a neighbour each counts as a miss (engine/measures/label-precision.ts).
+     */
+    unlabelled?: number | undefined;
     /** Set when the input was cut at a size limit: what was read and why. */
     truncated?: { bytesRead: number; limitBytes: number } | undefined;
     /** What the reader had to decide on its own (encoding fallback, ignored options). */

@@ -102,12 +102,18 @@ function jsonlRow(
     const raw = valueAt(parsed.object, layout.labelField);
     if (raw !== undefined && raw !== null) {
       const l = scalarText(raw);
-      if ('reason' in l) return skip(line, `"${layout.labelField}" ${l.reason}`);
+      if ('reason' in l) return skip(line, `"${layout.labelField}" ${Array.isArray(raw) ? LABEL_LIST : l.reason}`);
       label = l.text === '' ? null : l.text;
     }
   }
   accept({ text: value.text, label, line });
 }
+
+/**
+ * Why a label that is a list (tags, several classes) is refused: label precision asks whether a
+ * neighbour has the document's class, which needs one class a document.
+ */
+const LABEL_LIST = "is a list, not one label: label precision needs one class per document (write each document's class in a field of its own)";
 
 /** An element of a JSON array of strings: the string is the document. */
 function stringElement(text: string, line: number, skip: (line: number, reason: string) => void, accept: Emit, state: PassState): void {

@@ -7,6 +7,7 @@ import type { DistanceResult } from '../what-if/distance-lab';
 import { LOUDWORD_VERSION } from './version';
 import { duplicatesOf } from '../matrix/duplicate-sketch';
 import { markupNote } from './markup-note';
+import { unlabelledNote } from './unlabelled-note';
 import { formatCount } from '../../number-format';
 
 const HUBS_IN_REPORT = 12;
@@ -19,6 +20,8 @@ export interface ReportParts {
   baseline: DistanceResult;
   termReview: TermReview;
   sample: ReviewSample;
+  /** Documents with no label (engine/review/unlabelled-note.ts); 0 without a label field. */
+  unlabelled: number;
 }
 
 /** The Report (README.md "The Report") from the parts of a finished review. */
@@ -34,6 +37,7 @@ export function assembleReport(p: ReportParts): Report {
       labelField: p.source.labelField,
       documents,
       skipped: p.source.skipped.count,
+      unlabelled: p.source.labelField === null ? undefined : p.unlabelled,
       truncated: p.source.truncated ?? undefined,
       skippedExamples: p.source.skipped.examples.slice(0, 5),
       notes: notesOf(p, duplicates),
@@ -52,9 +56,14 @@ export function assembleReport(p: ReportParts): Report {
   };
 }
 
-/** The reader's notes, then the tokenizer's, then one on HTML left in the text and one on duplicates; undefined when there are none. */
+/**
+ * The reader's notes, then the tokenizer's, then one each on documents without a label, HTML left
+ * in the text and duplicates; undefined when there are none.
+ */
 function notesOf(p: ReportParts, duplicates: { documents: number; exact: boolean }): string[] | undefined {
   const notes = [...(p.source.notes ?? []), ...(p.prepared.notes ?? [])];
+  const unlabelled = unlabelledNote(p.unlabelled, p.prepared.documents, p.source.labelField);
+  if (unlabelled !== null) notes.push(unlabelled);
   const markup = markupNote(p.prepared.terms, p.prepared.counts.df, p.prepared.documents);
   if (markup !== null) notes.push(markup);
   const note = duplicatesNote(duplicates, p.prepared.documents);

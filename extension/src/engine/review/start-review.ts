@@ -18,6 +18,7 @@ import { searchInProcess } from '../terms/corpus-precision';
 import { reviewTerms, startOpinionCheck, startTermReview } from '../terms/review-terms';
 import type { PendingOpinionShare } from '../terms/start-opinion-share';
 import { assembleReport } from './assemble-report';
+import { unlabelledCount } from './unlabelled-note';
 import { TermIndex } from '../what-if/term-index';
 import type { ReviewHooks, ReviewInput, ReviewSession, ReviewStage } from './review-api';
 
@@ -134,6 +135,7 @@ export async function startReview(input: ReviewInput, hooks: ReviewHooks = {}): 
     baseline,
     termReview,
     sample,
+    unlabelled: unlabelledCount(prepared.labels),
   });
   if (source.places.keys.length > 1) nameHubFiles(report, source.places);
   timings[currentStage ?? 'writing report'] = Math.round(performance.now() - stageStart);

@@ -3,6 +3,7 @@ import { countFile } from '../matrix/count-each-file';
 import { BottomK, type Ranked } from '../random/bottom-k';
 import { hashFileKey, placeKey } from '../random/place-hash';
 import { openCorpusFile } from '../read/open-corpus-file';
+import { unlabelledCount } from '../review/unlabelled-note';
 import { header, type CountPartial, type SampleCandidate } from './partials';
 import type { ShardCounts } from './shard-counts';
 
@@ -80,6 +81,7 @@ export async function countShardKeeping(shard: ShardRef, settings: EffectiveSett
       textField: source.textField,
       labelField: source.labelField,
       skipped: source.skipped.count,
+      unlabelled: unlabelledCount(labels),
       skippedExamples: source.skipped.examples.map((e) => ({ line: e.line, reason: e.reason })),
       notes: [...(source.notes ?? [])],
       truncated: source.truncated,

@@ -77,6 +77,7 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, tot
     baseline,
     termReview,
     sample,
+    unlabelled: plan.input.unlabelled ?? 0,
   });
   // Hub rows were numbered by sample position; the Report numbers documents in the corpus.
   const manyFiles = plan.shards.length > 1;

@@ -45,7 +45,17 @@ export interface CountPartial extends PartialHeader {
   tokens: number;
   /** Documents with at least one term before pruning: those the sample may draw. */
   nonEmptyDocuments: number;
-  input: { format: Report['input']['format']; textField: string | null; labelField: string | null; skipped: number; skippedExamples: Array<{ line: number; reason: string }>; notes: string[]; truncated: { bytesRead: number; limitBytes: number } | null };
+  input: {
+    format: Report['input']['format'];
+    textField: string | null;
+    labelField: string | null;
+    skipped: number;
+    /** Documents with no label (absent in partials written before it was counted: read as 0). */
+    unlabelled?: number;
+    skippedExamples: Array<{ line: number; reason: string }>;
+    notes: string[];
+    truncated: { bytesRead: number; limitBytes: number } | null;
+  };
   /** What tokenising had to say (over-long runs cut), as one process reports it after the reader's notes. */
   tokenizerNotes: string[];
   /** The shard's terms in code point order, with their document frequency. */

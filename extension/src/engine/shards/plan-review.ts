@@ -231,6 +231,7 @@ function mergedInput(corpus: string, partials: readonly ShardSummary[]): PlanPar
   const notes = partials.length > 1 ? [`${partials.length} files read as one corpus`] : [];
   const skippedExamples: Array<{ line: number; reason: string }> = [];
   let skipped = 0;
+  let unlabelled = 0;
   let truncated: { bytesRead: number; limitBytes: number } | null = null;
   const formats = new Set<string>();
   for (const p of partials) {
@@ -244,6 +245,7 @@ function mergedInput(corpus: string, partials: readonly ShardSummary[]): PlanPar
     }
     formats.add(p.input.format);
     skipped += p.input.skipped;
+    unlabelled += p.input.unlabelled ?? 0;
     for (const e of p.input.skippedExamples) {
       if (skippedExamples.length < MAX_SKIPPED_EXAMPLES) skippedExamples.push(partials.length > 1 ? { line: e.line, reason: `${p.key}: ${e.reason}` } : e);
     }
@@ -257,6 +259,7 @@ function mergedInput(corpus: string, partials: readonly ShardSummary[]): PlanPar
     textField: first.input.textField,
     labelField: first.input.labelField,
     skipped,
+    unlabelled: first.input.labelField === null ? undefined : unlabelled,
     truncated: truncated ?? undefined,
     skippedExamples: skippedExamples.slice(0, 5),
     notes: notes.length > 0 ? notes : undefined,

@@ -162,9 +162,13 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
  * precision is 0 with and without the list (no document has a neighbour with its label: a label
  * field that is an identifier, one value per document, is the usual cause), or 1 with and without
  * it (one label for all). No list can move such a figure, and "no clear change, a larger sample
- * would tell" would be wrong; the verdict is then judged as without labels, and says why.
+ * would tell" would be wrong; the verdict is then judged as without labels, and says why. So it
+ * is when no sampled document has a label at all (a label column left empty): no figure exists.
  */
 export function blindLabels(before: Float64Array, after: Float64Array, labels: Int32Array | null): string | null {
+  if (labels !== null && !labels.some((id) => id >= 0)) {
+    return 'The labels cannot judge the list: no sampled document has a label (every value of the label field is empty or missing). So the verdict is by neighbour standout, as without labels; pass a field that holds classes (a topic, a rating) to measure precision.';
+  }
   let value: number | null = null;
   for (const values of [before, after]) {
     for (const v of values) {
