@@ -76,4 +76,14 @@ describe('bad input: fields and columns are read as written', () => {
     assert.equal(tsvUsesQuotes('a\t"Best" pizza\n'), false);
     assert.equal(tsvUsesQuotes('a\t"x"\n'), true);
   });
+
+  it('TSV whose only quoted fields span lines (messages of several lines in a spreadsheet export) is read quoted; a lone quote in plain TSV is not quoting', async () => {
+    const { rows, source } = await read('messages.tsv', 'id\ttext\n1\t"Good morning,\nmy order is late.\nThanks"\n2\tone line\n3\t"Hello,\n""where"" is it?"\n');
+    assert.deepEqual(rows.map((r) => r.text), ['Good morning,\nmy order is late.\nThanks', 'one line', 'Hello,\n"where" is it?']);
+    assert.equal(source.skipped.count, 0);
+    // A lone quote opening a field, closed only by a quote lines later: read with quoting, the
+    // records in between would lose their field count, so it stays unquoted.
+    const lone = 'id\ttext\n1\t"a lone quote\n2\tplain\n3\tplain\n4\tplain\n5\tends here"\n6\tlast\n';
+    assert.equal(tsvUsesQuotes(lone), false);
+  });
 });

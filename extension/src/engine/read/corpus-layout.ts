@@ -4,7 +4,7 @@ import { UserError } from '../user-error';
 import { meantName } from '../../closest-word';
 import type { ReadOptions } from './corpus-source';
 import { CsvRecordSplitter } from './csv-record-splitter';
-import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat } from './detect-format';
+import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat, tabSeparatedFirstLine } from './detect-format';
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
 import { JsonArraySplitter } from './json-array-splitter';
 import { flattenRecord, parseJsonlLine } from './jsonl-value';
@@ -37,7 +37,8 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
   if (head.trim() === '') throw new UserError('no documents: the file holds only blank lines', file, null);
   let format: CorpusFormatName;
   let delimiter: string | null = null;
-  if (options.format !== undefined && options.format !== 'auto') format = options.format;
+  const chosen = options.format !== undefined && options.format !== 'auto';
+  if (chosen) format = options.format as CorpusFormatName;
   else {
     const byName = formatFromExtension(file);
     if (byName !== null) format = byName;
@@ -55,11 +56,19 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
       return jsonlLayout(file, head, headComplete, options);
     case 'json':
       return jsonArrayLayout(file, head, headComplete, options);
-    case 'text':
+    case 'text': {
+      const columns = chosen ? null : tabSeparatedFirstLine(head, headComplete);
+      if (columns !== null && [options.textField, options.labelField].some((f) => f != null && columns.includes(f))) {
+        // The settings name a column of the first line: the user reads this file as a table.
+        const table = tableLayout(file, head, headComplete, 'tsv', '\t', options);
+        return { ...table, notes: [`the file is tab-separated with a header row (${list(columns)}), and the text or label setting names one of its columns: read as TSV`, ...table.notes] };
+      }
       if (options.textField != null || options.labelField != null) {
         notes.push('plain text has one document per line and no fields: the text and label settings were ignored');
       }
+      if (columns !== null) notes.push(tabTableNote(columns));
       return { format, delimiter: null, fields: [], textField: null, labelField: null, textIndex: -1, labelIndex: -1, quoted: false, notes, sampled: 1 };
+    }
     case 'parquet':
       throw new UserError('this is not a Parquet file (name it .parquet, or choose another format)', file, null);
     case 'files':
@@ -68,7 +77,7 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
 }
 
 function tableLayout(file: string, head: string, headComplete: boolean, format: 'csv' | 'tsv', delimiter: string, options: ReadOptions): CorpusLayout {
-  const quoted = format === 'csv' || tsvUsesQuotes(head);
+  const quoted = format === 'csv' || tsvUsesQuotes(head, headComplete);
   const splitter = new CsvRecordSplitter(delimiter, file, quoted);
   let header: string[] | null = null;
   let headerLine = 1;
@@ -311,21 +320,67 @@ function duplicateColumnNotes(fields: readonly string[], textField: string, labe
 /**
  * Whether a TSV file quotes its fields. IANA's text/tab-separated-values has no quoting, but
  * spreadsheet exports quote fields holding tabs or line breaks. Quoting is assumed only when
- * the head has fields that are whole quoted fields ("…", inner quotes doubled) and no field that
- * starts with a quote and then breaks the rule ("Best" pizza): an inch mark is text.
+ * the head has fields that are whole quoted fields ("…", inner quotes doubled, closed before a
+ * tab or a line's end) and no field that starts with a quote and then breaks the rule ("Best"
+ * pizza): an inch mark is text. A quoted field may hold line breaks (a spreadsheet's cell of
+ * several lines, often the only quoted fields of a file of messages); when one does, quoting must
+ * be what makes the head a table: read with it, nearly every record has the header's field count
+ * (sniffDelimiter's test), read line by line, not, so that a lone quote in a plain TSV file does
+ * not swallow the lines up to the next quote.
  */
-export function tsvUsesQuotes(head: string): boolean {
+export function tsvUsesQuotes(head: string, headComplete = true): boolean {
   let whole = 0;
   let broken = 0;
-  for (const line of head.split('\n', 5000)) {
-    for (const field of line.split('\t')) {
-      if (field.charCodeAt(0) !== 0x22) continue;
-      if (/^"(?:[^"]|"")*"$/.test(field)) whole++;
-      else if (field.indexOf('"', 1) >= 0) broken++;
-      // else: opens a quoted field that goes on to the next line (or a lone quote): no evidence.
+  let multiLine = false;
+  let i = 0;
+  const n = head.length;
+  while (i < n) {
+    // i is at the start of a field.
+    if (head.charCodeAt(i) === 0x22) {
+      const end = closingQuote(head, i);
+      if (end >= 0) {
+        whole++;
+        if (!multiLine && head.lastIndexOf('\n', end) > i) multiLine = true;
+        i = end + 1;
+      } else if (end === BROKEN) broken++;
+      else break; // still open where the head ends: no evidence either way
     }
+    // To the field's end, then past the tab or line break.
+    while (i < n && head.charCodeAt(i) !== 0x09 && head.charCodeAt(i) !== 0x0a) i++;
+    i++;
   }
-  return whole > 0 && broken === 0;
+  if (whole === 0 || broken > 0) return false;
+  if (!multiLine) return true;
+  const quoted = sniffDelimiter(head, headComplete, ['\t']);
+  return quoted !== null && quoted.consistency >= 0.9 && unquotedConsistency(head, headComplete) < 0.9;
+}
+
+/** Share of the head's first lines (blank ones, and a last line the head may cut, left out) with as many tab-separated fields as the first. */
+function unquotedConsistency(head: string, headComplete: boolean): number {
+  const lines = head.split('\n', 61).filter((l) => l.trim() !== '');
+  if (!headComplete && lines.length > 1) lines.pop();
+  if (lines.length === 0) return 0;
+  const fields = lines[0]!.split('\t').length;
+  return lines.filter((l) => l.split('\t').length === fields).length / lines.length;
+}
+
+/** A quoted field's closing quote was followed by text ("Best" pizza). */
+const BROKEN = -1;
+/** The head ended inside the quoted field. */
+const OPEN = -2;
+
+/** The position of the quote that closes the field opened at `start`, or BROKEN or OPEN. */
+function closingQuote(head: string, start: number): number {
+  for (let j = start + 1; j < head.length; j++) {
+    if (head.charCodeAt(j) !== 0x22) continue;
+    if (head.charCodeAt(j + 1) === 0x22) {
+      j++; // a doubled quote inside the field
+      continue;
+    }
+    const next = head.charCodeAt(j + 1);
+    return j + 1 >= head.length || next === 0x09 || next === 0x0a ? j : BROKEN;
+  }
+  return OPEN;
 }
 
 function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null): string | null {
@@ -334,6 +389,16 @@ function pickField(file: string, fields: readonly string[], wanted: string | nul
   const alt = meantName(wanted, fields);
   const hint = alt === null ? '' : ` (did you mean "${alt}"?)`;
   throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}`, file, line, role);
+}
+
+/** The note for a plain-text file whose lines are tab-separated columns, read as lines all the same. */
+function tabTableNote(columns: readonly string[]): string {
+  const shown = columns.map((c) => (c.length > 30 ? `${c.slice(0, 29)}…` : c));
+  return (
+    `every line holds ${columns.length} tab-separated fields (the first line: ${list(shown)}), and each whole line was read as one document, fields and all. ` +
+    'If this is a table (a spreadsheet saved as "Unicode text" is one), read it with --input-format tsv ("format": "tsv"), which takes the first line as the header, ' +
+    'or name one of its columns with the text setting'
+  );
 }
 
 function list(fields: readonly string[]): string {

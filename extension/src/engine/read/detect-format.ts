@@ -60,11 +60,24 @@ export function sniffFormat(head: string, headComplete: boolean): { format: Corp
   // A JSON array of records opens with "[" and then "{" or a line break; a log line's "[INFO]" does not.
   if (firstLine !== null && /^\s*\[\s*(\{|$)/.test(firstLine)) return { format: 'json', delimiter: null };
   const guess = sniffDelimiter(head, headComplete);
-  // A table needs a header and rows that agree with it; prose with a comma here and there does not.
-  if (guess !== null && guess.records >= 2 && guess.consistency >= 0.9) {
-    return { format: guess.delimiter === '\t' ? 'tsv' : 'csv', delimiter: guess.delimiter };
-  }
+  if (guess !== null && isTable(guess)) return { format: guess.delimiter === '\t' ? 'tsv' : 'csv', delimiter: guess.delimiter };
   return { format: 'text', delimiter: null };
+}
+
+/** A table needs a header and rows that agree with it; prose with a comma here and there does not. */
+function isTable(guess: DelimiterGuess): boolean {
+  return guess.records >= 2 && guess.consistency >= 0.9;
+}
+
+/**
+ * The fields of the first line when a head of plain text is a tab-separated table by the same
+ * test a file with no telling name gets (a spreadsheet's "Unicode text" export is a .txt of
+ * tab-separated columns); null when it is not one.
+ */
+export function tabSeparatedFirstLine(head: string, headComplete: boolean): string[] | null {
+  const guess = sniffDelimiter(head, headComplete, ['\t']);
+  if (guess === null || !isTable(guess)) return null;
+  return firstNonBlankLine(head)?.text.split('\t') ?? null;
 }
 
 /** The first line with more than whitespace, and its 1-based number. */
