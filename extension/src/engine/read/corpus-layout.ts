@@ -6,6 +6,7 @@ import type { ReadOptions } from './corpus-source';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat, tabSeparatedFirstLine } from './detect-format';
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
+import { headerVotes } from './header-votes';
 import { JsonArraySplitter } from './json-array-splitter';
 import { flattenRecord, parseJsonlLine } from './jsonl-value';
 import { LineSplitter } from './line-splitter';
@@ -23,6 +24,8 @@ export interface CorpusLayout {
   labelIndex: number;
   /** CSV/TSV: whether '"' quotes fields (always for CSV; for TSV only when the head shows it). */
   quoted: boolean;
+  /** CSV/TSV: the first record is a document, not a header (the fields are "column 1", …). */
+  headerless?: boolean;
   notes: string[];
   /** Data rows the detection saw; 0 with an incomplete head means a longer head may help. */
   sampled: number;
@@ -79,31 +82,33 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
 function tableLayout(file: string, head: string, headComplete: boolean, format: 'csv' | 'tsv', delimiter: string, options: ReadOptions): CorpusLayout {
   const quoted = format === 'csv' || tsvUsesQuotes(head, headComplete);
   const splitter = new CsvRecordSplitter(delimiter, file, quoted);
-  let header: string[] | null = null;
-  let headerLine = 1;
-  const sample: Array<Map<string, unknown>> = [];
-  let dataRecords = 0;
+  // The first records as read, and how many there are in the head.
+  const records: Array<{ fields: string[]; line: number }> = [];
+  let recordCount = 0;
   const take = (fields: string[], line: number): void => {
     if (fields.length === 1 && (fields[0] as string).trim() === '') return;
-    if (header === null) {
-      header = fields.map((name, i) => (name.trim() === '' ? `column ${i + 1}` : name));
-      headerLine = line;
-      return;
-    }
-    dataRecords++;
-    if (fields.length !== header.length || sample.length >= DETECT_ROWS) return;
-    const row = new Map<string, unknown>();
-    for (let i = header.length - 1; i >= 0; i--) row.set(header[i] as string, fields[i]);
-    sample.push(row);
+    recordCount++;
+    if (records.length <= DETECT_ROWS) records.push({ fields, line });
   };
   splitter.push(head, take);
   splitter.end(take, !headComplete);
-  if (header === null) throw new UserError('no documents: no header row found', file, null);
-  const fields: string[] = header;
+  const first = records[0];
+  if (first === undefined) throw new UserError('no documents: no header row found', file, null);
+  const headerless = firstRecordIsData(first.fields, records.slice(1).map((r) => r.fields), options);
+  const fields = first.fields.map((name, i) => (headerless || name.trim() === '' ? `column ${i + 1}` : name));
+  const headerLine = first.line;
+  const dataRecords = headerless ? recordCount : recordCount - 1;
   if (dataRecords === 0 && headComplete) throw new UserError('no documents: the file has a header row and nothing else', file, headerLine);
+  const sample: Array<Map<string, unknown>> = [];
+  for (const { fields: values } of headerless ? records : records.slice(1)) {
+    if (values.length !== fields.length || sample.length >= DETECT_ROWS) continue;
+    const row = new Map<string, unknown>();
+    for (let i = fields.length - 1; i >= 0; i--) row.set(fields[i] as string, values[i]);
+    sample.push(row);
+  }
 
-  const labelField = pickField(file, fields, options.labelField ?? null, 'label', headerLine);
-  let textField = pickField(file, fields, options.textField ?? null, 'text', headerLine);
+  const labelField = pickField(file, fields, options.labelField ?? null, 'label', headerLine, headerless);
+  let textField = pickField(file, fields, options.textField ?? null, 'text', headerLine, headerless);
   textField ??=
     detectTextField(fields, sample, labelField) ??
     (sample.length > 0 ? null : headComplete ? firstField(fields, labelField) : fieldBeingCut(file, head, delimiter, quoted, fields, labelField, headerLine));
@@ -111,6 +116,7 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
     throw new UserError(`found no column with text; name one with the text setting (columns: ${list(fields)})`, file, headerLine);
   }
   const notes = duplicateColumnNotes(fields, textField, labelField);
+  if (headerless) notes.unshift(headerlessNote(headerLine, fields.length));
   if (format === 'tsv' && !quoted && /(^|\t)"/m.test(head)) {
     notes.push('TSV read without quoting (IANA text/tab-separated-values): a field that starts with a quote is text, quote included');
   }
@@ -123,9 +129,29 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
     textIndex: fields.indexOf(textField),
     labelIndex: labelField === null ? -1 : fields.indexOf(labelField),
     quoted,
+    headerless,
     notes,
     sampled: sample.length,
   };
+}
+
+/**
+ * Whether a table's first record is a document rather than a header: when csv.Sniffer's vote
+ * (header-votes.ts) finds evidence of it (a file exported without its header row, the first
+ * document then lost as column names, and the text column named by its text), unless the text or
+ * label setting names one of the record's values, which makes it the header the user reads.
+ */
+function firstRecordIsData(first: readonly string[], next: readonly (readonly string[])[], options: ReadOptions): boolean {
+  if ([options.textField, options.labelField].some((f) => f != null && first.includes(f))) return false;
+  return headerVotes(first, next) < 0;
+}
+
+function headerlessNote(line: number, columns: number): string {
+  return (
+    `line ${line} reads as a document, not a header: in the columns whose values below it all have one type or one length (ids, numbers, dates), its values fit as data do ` +
+    `(the test of Python's csv.Sniffer.has_header), so every row was read as a document and the columns are called "column 1" to "column ${columns}". ` +
+    `If line ${line} is the header, name one of its columns with the text or label setting`
+  );
 }
 
 function jsonlLayout(file: string, head: string, headComplete: boolean, options: ReadOptions): CorpusLayout {
@@ -383,12 +409,13 @@ function closingQuote(head: string, start: number): number {
   return OPEN;
 }
 
-function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null): string | null {
+function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null, headerless = false): string | null {
   if (wanted === null) return null;
   if (fields.includes(wanted)) return wanted;
   const alt = meantName(wanted, fields);
   const hint = alt === null ? '' : ` (did you mean "${alt}"?)`;
-  throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}`, file, line, role);
+  const why = headerless ? ` (line ${line} reads as a document, not a header, so the columns are numbered)` : '';
+  throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}${why}`, file, line, role);
 }
 
 /** The note for a plain-text file whose lines are tab-separated columns, read as lines all the same. */

@@ -59,7 +59,8 @@ function tableSink(file: string, layout: CorpusLayout, skip: (line: number, reas
   const splitter = new CsvRecordSplitter(layout.delimiter ?? ',', file, layout.quoted);
   const width = layout.fields.length;
   const { textIndex, labelIndex } = layout;
-  let headerSeen = false;
+  let headerSeen = layout.headerless === true;
+  const widthOf = layout.headerless === true ? 'the first row' : 'the header';
   const take = (fields: string[], line: number, malformedQuote: boolean): void => {
     if (fields.length === 1 && (fields[0] as string).trim() === '') return;
     if (!headerSeen) {
@@ -67,7 +68,7 @@ function tableSink(file: string, layout: CorpusLayout, skip: (line: number, reas
       return;
     }
     if (malformedQuote) return skip(line, 'malformed quotes (RFC 4180 §2: a quoted field ends with a quote followed by a delimiter or line end)');
-    if (fields.length !== width) return skip(line, `${fields.length} ${fields.length === 1 ? 'field' : 'fields'} where the header has ${width}`);
+    if (fields.length !== width) return skip(line, `${fields.length} ${fields.length === 1 ? 'field' : 'fields'} where ${widthOf} has ${width}`);
     const text = fields[textIndex] as string;
     if (text.trim() === '') return skip(line, `empty text in "${layout.textField}"`);
     const label = labelIndex < 0 ? null : (fields[labelIndex] as string);
