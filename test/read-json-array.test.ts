@@ -131,6 +131,19 @@ describe('a corpus as a JSON array of records', () => {
     }
   });
 
+  it('names a mapping of ids to texts (json.dump of a dict, compact or indented) and how to write it one record a line', async () => {
+    const script = 'import json, sys\ntexts = {f"doc{i}": f"text number {i}, a few words" for i in range(40)}\njson.dump(texts, open(sys.argv[1], "w"), indent=None if sys.argv[2] == "0" else 2)';
+    for (const indent of ['0', '2']) {
+      const file = path.join(dir(), `by-id-${indent}.json`);
+      execFileSync('/usr/bin/python3', ['-c', script, file, indent]);
+      await rejects(() => openCorpus(file, {}), 1, new RegExp(`a single JSON object, not records.*maps 40 keys to strings.*jq -c 'to_entries\\[\\] \\| \\{id: \\.key, text: \\.value\\}' by-id-${indent}\\.json > by-id-${indent}\\.jsonl`));
+    }
+    // A record of a few string fields on one line stays a record (JSON Lines under a .json name).
+    const record = path.join(dir(), 'one-record.json');
+    writeFileSync(record, JSON.stringify({ id: 'a', title: 'short', body: 'the text of the one record' }));
+    assert.equal((await readAll(await openCorpus(record, {}))).length, 1);
+  });
+
   it('names the line of what breaks the array: a missing comma, text after it, a file that ends inside it, an empty array', async () => {
     await rejects(() => readAll(openCorpusFromText('t.json', '[\n{"body":"one"}\n{"body":"two"}\n]', {})), 3, /^"\{\\"body\\":\\"two" after the element that starts on line 2, where a comma or the array's "\]" should be/);
     await rejects(() => readAll(openCorpusFromText('t.json', '[{"body":"one"}]\n[{"body":"two"}]', {})), 2, /after the JSON array's closing "\]"/);

@@ -86,4 +86,16 @@ describe('bad input: fields and columns are read as written', () => {
     const lone = 'id\ttext\n1\t"a lone quote\n2\tplain\n3\tplain\n4\tplain\n5\tends here"\n6\tlast\n';
     assert.equal(tsvUsesQuotes(lone), false);
   });
+
+  it('a first line "sep=;" (a spreadsheet\'s delimiter line) sets the delimiter and is no record, with or without a .csv name', async () => {
+    for (const name of ['excel.csv', 'excel-export']) {
+      const { rows, source } = await read(name, 'sep=;\r\nid;topic;text\r\n1;a;first, with a comma\r\n2;b;second\r\n');
+      assert.deepEqual(rows, [
+        { text: 'first, with a comma', label: null, line: 3 },
+        { text: 'second', label: null, line: 4 },
+      ]);
+      assert.deepEqual(source.fields, ['id', 'topic', 'text']);
+      assert.match((source.notes ?? [])[0] ?? '', /^line 1, "sep=;" \(a spreadsheet's delimiter line\), set the delimiter/);
+    }
+  });
 });

@@ -4,7 +4,7 @@ import { UserError } from '../user-error';
 import { meantName } from '../../closest-word';
 import type { ReadOptions } from './corpus-source';
 import { CsvRecordSplitter } from './csv-record-splitter';
-import { sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat, tabSeparatedFirstLine } from './detect-format';
+import { delimiterHint, sniffDelimiter, firstNonBlankLine, formatFromExtension, sniffFormat, tabSeparatedFirstLine } from './detect-format';
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
 import { headerVotes } from './header-votes';
 import { JsonArraySplitter } from './json-array-splitter';
@@ -26,6 +26,8 @@ export interface CorpusLayout {
   quoted: boolean;
   /** CSV/TSV: the first record is a document, not a header (the fields are "column 1", …). */
   headerless?: boolean;
+  /** CSV/TSV: records before the header that belong to no column (a "sep=;" line). */
+  preamble?: number;
   notes: string[];
   /** Data rows the detection saw; 0 with an incomplete head means a longer head may help. */
   sampled: number;
@@ -51,6 +53,11 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
   switch (format) {
     case 'csv':
     case 'tsv': {
+      const hint = delimiterHint(head);
+      if (hint !== null) {
+        const table = tableLayout(file, head, headComplete, format, hint, options, 1);
+        return { ...table, notes: [`line 1, "sep=${hint === '\t' ? '\\t' : hint}" (a spreadsheet's delimiter line), set the delimiter and is not a record`, ...table.notes] };
+      }
       if (format === 'tsv') delimiter = '\t';
       else delimiter ??= sniffDelimiter(head, headComplete)?.delimiter ?? ',';
       return tableLayout(file, head, headComplete, format, delimiter, options);
@@ -79,14 +86,20 @@ export function detectLayout(file: string, head: string, headComplete: boolean, 
   }
 }
 
-function tableLayout(file: string, head: string, headComplete: boolean, format: 'csv' | 'tsv', delimiter: string, options: ReadOptions): CorpusLayout {
+/** `preamble`: records before the header that are no part of the table (a "sep=" line). */
+function tableLayout(file: string, head: string, headComplete: boolean, format: 'csv' | 'tsv', delimiter: string, options: ReadOptions, preamble = 0): CorpusLayout {
   const quoted = format === 'csv' || tsvUsesQuotes(head, headComplete);
   const splitter = new CsvRecordSplitter(delimiter, file, quoted);
   // The first records as read, and how many there are in the head.
   const records: Array<{ fields: string[]; line: number }> = [];
   let recordCount = 0;
+  let before = preamble;
   const take = (fields: string[], line: number): void => {
     if (fields.length === 1 && (fields[0] as string).trim() === '') return;
+    if (before > 0) {
+      before--;
+      return;
+    }
     recordCount++;
     if (records.length <= DETECT_ROWS) records.push({ fields, line });
   };
@@ -130,6 +143,7 @@ function tableLayout(file: string, head: string, headComplete: boolean, format: 
     labelIndex: labelField === null ? -1 : fields.indexOf(labelField),
     quoted,
     headerless,
+    preamble,
     notes,
     sampled: sample.length,
   };
@@ -174,7 +188,7 @@ function jsonArrayLayout(file: string, head: string, headComplete: boolean, opti
     // One object on one line that holds an array ({"data": [...]}) or only objects (pandas'
     // columns) wraps the records: it is not JSON Lines.
     const values = parsed.ok ? Object.values(parsed.object) : [];
-    const wraps = values.some(Array.isArray) || (values.length > 0 && values.every((v) => typeof v === 'object' && v !== null));
+    const wraps = values.some(Array.isArray) || (values.length > 0 && values.every((v) => typeof v === 'object' && v !== null)) || isTextMapping(values);
     const wrapper = parsed.ok && headComplete && head.trim() === firstLine.text.trim() && wraps;
     if (!parsed.ok || wrapper) throw new UserError(singleObjectMessage(file, head, headComplete), file, firstLine.line);
     const layout = jsonlLayout(file, head, headComplete, options);
@@ -215,6 +229,13 @@ function singleObjectMessage(file: string, head: string, headComplete: boolean):
   const entries = Object.entries(value);
   // pandas' own layouts: DataFrame.to_json() with no orient writes columns of {index: value}, orient="split" {columns, index, data}.
   const pandas = '; this looks like pandas\' DataFrame.to_json() without orient="records": write it with orient="records" (or lines=True for JSON Lines)';
+  if (isTextMapping(entries.map(([, v]) => v))) {
+    const name = path.basename(file);
+    return (
+      `${base}; it maps ${entries.length} keys to strings, as json.dump of a dict or pandas' Series.to_json() writes texts by their id: ` +
+      `write one record a line, jq -c 'to_entries[] | {id: .key, text: .value}' ${name} > ${name.replace(/\.json$/i, '')}.jsonl, or in pandas Series.to_json(orient="records")`
+    );
+  }
   if (entries.length > 0 && entries.every(([, v]) => typeof v === 'object' && v !== null && !Array.isArray(v))) return base + pandas;
   if (Array.isArray((value as Record<string, unknown>).columns) && Array.isArray((value as Record<string, unknown>).data)) return base + pandas;
   const arrays = entries.filter(([, v]) => Array.isArray(v));
@@ -225,6 +246,18 @@ function singleObjectMessage(file: string, head: string, headComplete: boolean):
   const jqKey = /^[A-Za-z_][A-Za-z0-9_]*$/.test(key) ? key : JSON.stringify(key);
   return `${base}; its arrays: ${named} — to read "${key}", write it one record a line: jq -c '.${jqKey}[]' ${name} > ${name.replace(/\.json$/i, '')}.jsonl`;
 }
+
+/**
+ * Values of one JSON object that read as texts by their keys (ids): strings, at least
+ * MAPPING_KEYS of them. One record of that many string fields is not what anyone reviews, and
+ * read as one it made "a corpus of one document" of a file of texts.
+ */
+function isTextMapping(values: readonly unknown[]): boolean {
+  return values.length >= MAPPING_KEYS && values.every((v) => typeof v === 'string');
+}
+
+/** Fewest keys of a one-object file read as a mapping of ids to texts (our own bound: records have a handful of fields). */
+const MAPPING_KEYS = 20;
 
 /**
  * Fields and text field of JSON records (JSON Lines lines or a JSON array's elements), from the

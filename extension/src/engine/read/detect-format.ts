@@ -53,8 +53,20 @@ export function sniffDelimiter(head: string, headComplete: boolean, candidates: 
   return best;
 }
 
+/**
+ * The delimiter a first line "sep=;" names: spreadsheets write and honour that line before the
+ * header so that a file opens with its columns wherever the locale's list separator differs
+ * (common practice, no source); null when the file has none. The line is no record.
+ */
+export function delimiterHint(head: string): string | null {
+  const match = /^sep=([^\n])[ \t]*(?:\n|$)/.exec(head);
+  return match === null ? null : match[1]!;
+}
+
 /** Content sniffing for files whose extension says nothing. */
 export function sniffFormat(head: string, headComplete: boolean): { format: CorpusFormatName; delimiter: string | null } {
+  const hint = delimiterHint(head);
+  if (hint !== null) return { format: hint === '\t' ? 'tsv' : 'csv', delimiter: hint };
   const firstLine = firstNonBlankLine(head)?.text ?? null;
   if (firstLine !== null && firstLine.trimStart().startsWith('{')) return { format: 'jsonl', delimiter: null };
   // A JSON array of records opens with "[" and then "{" or a line break; a log line's "[INFO]" does not.

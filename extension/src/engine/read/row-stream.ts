@@ -60,9 +60,14 @@ function tableSink(file: string, layout: CorpusLayout, skip: (line: number, reas
   const width = layout.fields.length;
   const { textIndex, labelIndex } = layout;
   let headerSeen = layout.headerless === true;
+  let preamble = layout.preamble ?? 0;
   const widthOf = layout.headerless === true ? 'the first row' : 'the header';
   const take = (fields: string[], line: number, malformedQuote: boolean): void => {
     if (fields.length === 1 && (fields[0] as string).trim() === '') return;
+    if (preamble > 0) {
+      preamble--;
+      return;
+    }
     if (!headerSeen) {
       headerSeen = true;
       return;
