@@ -61,6 +61,7 @@ describe('parseArgs', () => {
     usageError(['review', 'c', '--out='], /^--out: needs a file name/);
     usageError(['review', 'c', '--config', 'F', '--no-config'], /--config and --no-config/);
     usageError(['review', ''], /corpus file name is empty/);
+    usageError(['review', '-'], /standard input \("-"\) is not read; name a corpus file/);
   });
 
   it('parseArgs: unknown flags, commands and choices get "did you mean"', () => {

@@ -196,6 +196,11 @@ describe('reader bad input', () => {
     writeFileSync(file, 'id,Body\n1,x\n');
     const e = await rejectsUserError(() => openCorpus(file, { textField: 'body' }), file, 1, /no text field "body"/);
     assert.match(e.message, /did you mean "Body".*"id", "Body"/);
+    // A number is taken for a position (cut -f counts from 1) and named; past the last column it is a name like any other.
+    const byNumber = await rejectsUserError(() => openCorpus(file, { textField: '2' }), file, 1, /no text field "2"/);
+    assert.match(byNumber.message, /columns are named, not numbered: column 2 is "Body"/);
+    const past = await rejectsUserError(() => openCorpus(file, { textField: '3' }), file, 1, /no text field "3"/);
+    assert.doesNotMatch(past.message, /column 3 is/);
   });
 
   it('openCorpus: JSON Lines with a few broken lines skips them with line and reason', async () => {

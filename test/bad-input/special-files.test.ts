@@ -31,7 +31,7 @@ describe('bad input: regular files only, size checked before reading', function 
   it('a FIFO as stop list, config or corpus is refused at once (no writer ever opens it)', async () => {
     await assert.rejects(readStopList(fifo), refusedWith(/named pipe \(FIFO\); Loudword reads regular files only/, fifo));
     await assert.rejects(loadSettings(fifo), refusedWith(/the config file is a named pipe/, fifo));
-    await assert.rejects(openCorpus(fifo), refusedWith(/the corpus is a named pipe/, fifo));
+    await assert.rejects(openCorpus(fifo), refusedWith(/the corpus is a named pipe \(FIFO\); Loudword reads regular files only \(save the stream to a file first/, fifo));
   });
 
   it('/dev/zero as stop list or config is refused before reading', async () => {

@@ -154,6 +154,7 @@ export function parseArgs(argv: readonly string[]): CliOptions {
   }
   if (file === undefined) throw new UsageError(`${command} needs a corpus file`);
   if (file === '') throw new UsageError(`${command}: the corpus file name is empty`);
+  if (file === '-') throw new UsageError(`${command}: standard input ("-") is not read; name a corpus file (a .gz file is read as it is, so save other streams to a file first)`);
   if (extra.length > 0) throw new UsageError(`unexpected argument "${extra[0]}" (one corpus file per run)`);
   if (o.dryRun && command !== 'apply') throw new UsageError('--dry-run only goes with apply');
   if (o.workdir !== null && o.dask === null) throw new UsageError('--workdir only goes with --dask');

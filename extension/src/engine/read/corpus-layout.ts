@@ -445,8 +445,10 @@ function closingQuote(head: string, start: number): number {
 function pickField(file: string, fields: readonly string[], wanted: string | null, role: 'text' | 'label', line: number | null, headerless = false): string | null {
   if (wanted === null) return null;
   if (fields.includes(wanted)) return wanted;
-  const alt = meantName(wanted, fields);
-  const hint = alt === null ? '' : ` (did you mean "${alt}"?)`;
+  // A number where a name is wanted is a column's position, as cut -f counts them (from 1).
+  const position = /^[1-9][0-9]*$/.test(wanted) ? fields[Number(wanted) - 1] : undefined;
+  const alt = position ?? meantName(wanted, fields);
+  const hint = position !== undefined ? ` (columns are named, not numbered: column ${wanted} is "${position}")` : alt === null ? '' : ` (did you mean "${alt}"?)`;
   const why = headerless ? ` (line ${line} reads as a document, not a header, so the columns are numbered)` : '';
   throw new UserError(`no ${role} field "${wanted}"${hint}; available: ${list(fields)}${why}`, file, line, role);
 }

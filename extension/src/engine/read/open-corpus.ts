@@ -27,7 +27,7 @@ export async function openCorpus(file: string, options: ReadOptions = {}): Promi
   let size: number;
   try {
     const info = await stat(file);
-    if (!info.isFile()) throw new UserError(`the corpus is ${fileKind(info)}; Loudword reads regular files only`, file, null);
+    if (!info.isFile()) throw new UserError(`the corpus is ${fileKind(info)}; Loudword reads regular files only${info.isFIFO() ? ' (save the stream to a file first; a .gz file is read as it is)' : ''}`, file, null);
     size = info.size;
   } catch (e) {
     if (e instanceof UserError) throw e;
