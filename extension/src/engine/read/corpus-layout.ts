@@ -8,7 +8,7 @@ import { delimiterHint, sniffDelimiter, firstNonBlankLine, formatFromExtension, 
 import { DETECT_ROWS, detectTextField } from './detect-text-field';
 import { headerVotes } from './header-votes';
 import { JsonArraySplitter } from './json-array-splitter';
-import { flattenRecord, parseJsonlLine } from './jsonl-value';
+import { flattenRecord, isStringList, parseJsonlLine } from './jsonl-value';
 import { LineSplitter } from './line-splitter';
 
 /** What the first part of a file says about how to read all of it. */
@@ -303,7 +303,11 @@ function recordsLayout(
   if (textField === null) {
     throw new UserError(`found no key with text; name one with the text setting (keys: ${list(fields)})`, file, null);
   }
-  return { format, delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, quoted: false, notes: [], sampled: sample.length };
+  const text = textField;
+  const notes = sample.some((row) => isStringList(row.get(text)))
+    ? [`"${text}" holds lists of strings (sentences, paragraphs or tokens): each document is its strings joined by line breaks`]
+    : [];
+  return { format, delimiter: null, fields, textField, labelField, textIndex: -1, labelIndex: -1, quoted: false, notes, sampled: sample.length };
 }
 
 /**

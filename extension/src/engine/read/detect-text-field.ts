@@ -1,3 +1,5 @@
+import { isStringList } from './jsonl-value';
+
 /** How many rows the field and format detection look at. */
 export const DETECT_ROWS = 200;
 
@@ -26,7 +28,9 @@ export function detectTextField(
     let oneTokens = 0;
     let present = 0;
     for (const row of sample) {
-      const v = row.get(field);
+      const raw = row.get(field);
+      // A list of strings is read as their text (jsonl-value.ts documentText).
+      const v = isStringList(raw) ? raw.join('\n') : raw;
       if (v === undefined || v === null || v === '') continue;
       present++;
       if (typeof v !== 'string') continue;

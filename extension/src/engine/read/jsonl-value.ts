@@ -65,6 +65,22 @@ export function scalarText(value: unknown): { text: string } | { reason: string 
   return { reason: Array.isArray(value) ? 'is an array, not text' : 'is an object, not text: name one of its keys with a dot ("field.key")' };
 }
 
+/**
+ * A text field's value as document text: a scalar as scalarText reads it, or a list of strings
+ * (a document kept as its sentences, paragraphs or tokens, as many NLP data sets hold it) as its
+ * strings joined by line breaks, which tokenise as the strings do one by one.
+ */
+export function documentText(value: unknown): { text: string } | { reason: string } {
+  if (isStringList(value)) return { text: value.join('\n') };
+  if (Array.isArray(value)) return { reason: value.length === 0 ? 'is an empty list' : 'is a list that holds more than strings, not text' };
+  return scalarText(value);
+}
+
+/** A non-empty array whose elements are all strings. */
+export function isStringList(value: unknown): value is string[] {
+  return Array.isArray(value) && value.length > 0 && value.every((v) => typeof v === 'string');
+}
+
 /** A JSON value's kind as a message names it: null, array, number, string, … */
 export function describeJson(value: unknown): string {
   if (value === null) return 'null';

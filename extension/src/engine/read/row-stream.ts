@@ -3,7 +3,7 @@ import type { CorpusRow, SkippedRow } from './corpus-source';
 import type { CorpusLayout } from './corpus-layout';
 import { CsvRecordSplitter } from './csv-record-splitter';
 import { JsonArraySplitter } from './json-array-splitter';
-import { describeJson, parseJsonlLine, parseJsonValue, scalarText, valueAt } from './jsonl-value';
+import { describeJson, documentText, parseJsonlLine, parseJsonValue, scalarText, valueAt } from './jsonl-value';
 import { LineSplitter, MAX_LINE_CHARS } from './line-splitter';
 import { formatCount } from '../../number-format';
 import { UserError } from '../user-error';
@@ -100,7 +100,7 @@ function jsonlRow(
     return skip(line, parsed.reason);
   }
   const key = layout.textField as string;
-  const value = scalarText(valueAt(parsed.object, key));
+  const value = documentText(valueAt(parsed.object, key));
   if ('reason' in value) return skip(line, `"${key}" ${value.reason}`);
   if (value.text.trim() === '') return skip(line, `empty text in "${key}"`);
   let label: string | null = null;
