@@ -9,6 +9,7 @@ import { startRowAssembler, type RowAssembler, type RowWeighing } from '../token
 import { PartCountSums, type RowCountSums } from '../tokenize/row-count-sums';
 import { RowWriter, type CountedPart } from '../tokenize/rows-in-rank-order';
 import { CodePointSortedTerms } from './code-point-sorted-terms';
+import { RepeatedLineCounter, type RepeatedLines } from './repeated-lines';
 import type { CountMatrix } from './csr';
 
 export interface BuiltCorpus {
@@ -31,6 +32,8 @@ export interface BuiltCorpus {
    * then `counts.data` holds the weights, not the counts. null: it holds the raw counts.
    */
   weighedWith: Float64Array | null;
+  /** Lines that recur across documents of several lines (repeated-lines.ts). */
+  repeatedLines: RepeatedLines;
 }
 
 export interface BuildOptions {
@@ -98,6 +101,8 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
   const lines = new GrowingUint32();
   const labels: (string | null)[] | null = source.labelField === null ? null : [];
   const previews: string[] = [];
+  const repeated = new RepeatedLineCounter();
+  let documents = 0;
   const inFlight: Promise<EncodedBatch>[] = [];
   let longRuns = 0;
   let longRunDocs = 0;
@@ -120,6 +125,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
       for (let i = 0; i < rows.length; i++) {
         const row = rows[i]!;
         texts[i] = row.text;
+        repeated.add(documents++, row.text);
         lines.push(row.line);
         labels?.push(row.label);
       }
@@ -153,7 +159,7 @@ export async function buildCountMatrix(source: CorpusSource, tokens: TokenSettin
     await encoder.close();
     const notes = longRuns > 0 ? [longRunNote(longRuns, longRunDocs, longRunLines)] : [];
     const { counts, countSums, weighedWith } = await counter.finish(assembler, options.weighAhead);
-    return { counts, lines: lines.toArray(), labels, previews, notes, countSums, weighedWith };
+    return { counts, lines: lines.toArray(), labels, previews, notes, countSums, weighedWith, repeatedLines: repeated.result() };
   } finally {
     await encoder.close();
     await assembler?.close();

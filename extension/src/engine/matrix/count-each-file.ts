@@ -1,4 +1,5 @@
 import type { CorpusRow, CorpusSource } from '../read/corpus-source';
+import { mergeRepeatedLines } from './repeated-lines';
 import type { FileByFileSource } from '../read/many-files-corpus';
 import { coderEncoder, type FileLanes } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
@@ -55,7 +56,7 @@ export function concatCounts(parts: readonly BuiltCorpus[]): BuiltCorpus {
     r0 += c.rows;
     at += n;
   }
-  return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc, firstTerms }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null, weighedWith: null };
+  return { counts: { rows, cols: terms.length, indptr, indices, data, terms, tokensPerDoc, firstTerms }, lines, labels, previews, notes: parts.flatMap((p) => p.notes), countSums: null, weighedWith: null, repeatedLines: mergeRepeatedLines(parts.map((p) => p.repeatedLines)) };
 }
 
 /**

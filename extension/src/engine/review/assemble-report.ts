@@ -7,6 +7,7 @@ import type { DistanceResult } from '../what-if/distance-lab';
 import { LOUDWORD_VERSION } from './version';
 import { duplicatesOf } from '../matrix/duplicate-sketch';
 import { markupNote } from './markup-note';
+import { boilerplateNote } from './boilerplate-note';
 import { unlabelledNote } from './unlabelled-note';
 import { formatCount } from '../../number-format';
 
@@ -58,7 +59,7 @@ export function assembleReport(p: ReportParts): Report {
 
 /**
  * The reader's notes, then the tokenizer's, then one each on documents without a label, HTML left
- * in the text and duplicates; undefined when there are none.
+ * in the text, lines repeated across documents and duplicates; undefined when there are none.
  */
 function notesOf(p: ReportParts, duplicates: { documents: number; exact: boolean }): string[] | undefined {
   const notes = [...(p.source.notes ?? []), ...(p.prepared.notes ?? [])];
@@ -66,6 +67,8 @@ function notesOf(p: ReportParts, duplicates: { documents: number; exact: boolean
   if (unlabelled !== null) notes.push(unlabelled);
   const markup = markupNote(p.prepared.terms, p.prepared.counts.df, p.prepared.documents);
   if (markup !== null) notes.push(markup);
+  const boilerplate = boilerplateNote(p.prepared.repeatedLines, p.prepared.documents);
+  if (boilerplate !== null) notes.push(boilerplate);
   const note = duplicatesNote(duplicates, p.prepared.documents);
   if (note !== null) notes.push(note);
   return notes.length > 0 ? notes : undefined;

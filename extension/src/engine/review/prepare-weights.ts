@@ -9,6 +9,7 @@ import { isFileByFile } from '../read/many-files-corpus';
 import { nnz, type Csr } from '../matrix/csr';
 import { dfBounds, noTermsLeftMessage, pruneTerms } from '../matrix/prune-terms';
 import { sketchRows, type DuplicateSketch } from '../matrix/duplicate-sketch';
+import type { RepeatedLines } from '../matrix/repeated-lines';
 import { idfFromDf, weighInPlace } from '../matrix/weigh';
 import type { RowWeighing } from '../tokenize/row-assembler';
 import type { RowCountSums } from '../tokenize/row-count-sums';
@@ -38,6 +39,8 @@ export interface PreparedWeights {
   notes?: string[];
   /** Which documents repeat another exactly, under this weighting (matrix/duplicate-sketch.ts). */
   duplicates: DuplicateSketch;
+  /** Lines that recur across documents (matrix/repeated-lines.ts), for the Report's note on them. */
+  repeatedLines: RepeatedLines;
 }
 
 /**
@@ -178,6 +181,7 @@ export async function prepareWeights(
     previews: built.previews,
     counts: countStats,
     notes: built.notes,
+    repeatedLines: built.repeatedLines,
     duplicates: sketchRows(weights),
   };
 }

@@ -87,6 +87,7 @@ export async function countShardKeeping(shard: ShardRef, settings: EffectiveSett
       truncated: source.truncated,
     },
     tokenizerNotes: built.notes,
+    repeatedLines: built.repeatedLines,
     terms: [...counts.terms],
     df,
     candidates,

@@ -66,6 +66,7 @@ export function finishReview(plan: PlanPartial, settings: EffectiveSettings, tot
     previews: s.previews,
     counts,
     notes: plan.tokenizerNotes,
+    repeatedLines: plan.repeatedLines ?? { checked: 0, lines: [] },
     duplicates: totals.duplicates(),
   };
   const sample: ReviewSample = { positions: identity, labels, emptyDocuments: 0 };

@@ -3,6 +3,7 @@ import type { EffectiveSettings, Report } from '../../protocol';
 import { LOUDWORD_VERSION } from '../review/version';
 import { UserError } from '../user-error';
 import type { DuplicateSketch } from '../matrix/duplicate-sketch';
+import type { RepeatedLines } from '../matrix/repeated-lines';
 
 /**
  * The shard steps' partial files (JSON). Every partial says which step wrote it, the version of
@@ -57,7 +58,9 @@ export interface CountPartial extends PartialHeader {
     truncated: { bytesRead: number; limitBytes: number } | null;
   };
   /** What tokenising had to say (over-long runs cut), as one process reports it after the reader's notes. */
-  tokenizerNotes: string[];
+tokenizerNotes: string[];
+  /** Lines recurring across the shard's documents (matrix/repeated-lines.ts); absent in partials written before they were counted. */
+  repeatedLines?: RepeatedLines;
   /** The shard's terms in code point order, with their document frequency. */
   terms: string[];
   df: number[];
@@ -131,7 +134,9 @@ export interface PlanPartial extends PartialHeader {
   /** Documents whose previews the opinion check reads (terms/review-terms.ts), ascending. */
   previewDocs: number[];
   input: Omit<Report['input'], 'documents'>;
-  tokenizerNotes: string[];
+tokenizerNotes: string[];
+  /** The shards' repeated lines added up. */
+  repeatedLines?: RepeatedLines;
   stopList: { file: string | null; exists: boolean; terms: string[]; unused: string[]; split?: Record<string, string[]> | undefined };
 }
 

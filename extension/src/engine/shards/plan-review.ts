@@ -15,6 +15,7 @@ import { TermIndex } from '../what-if/term-index';
 import { placesAmong } from '../matrix/compare-code-points';
 import { candidateLimit } from './count-shard';
 import { checkSameSettings, encodeFloat64, header, maskColumns, maskId, settingsKey, type CountPartial, type PlanPartial } from './partials';
+import { mergeRepeatedLines, type RepeatedLines } from '../matrix/repeated-lines';
 
 export interface PlanInput {
   /** The corpus as the user named it (glob or folder): the Report's input.file. */
@@ -36,6 +37,7 @@ interface ShardSummary {
   tokens: number;
   input: CountPartial['input'];
   tokenizerNotes: string[];
+  repeatedLines: RepeatedLines;
   shardFile: string;
   /** The shard had more candidates than it kept; the highest it kept bounds what it left out. */
   truncatedAbove: Ranked | null;
@@ -78,6 +80,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
       tokens: partial.tokens,
       input: partial.input,
       tokenizerNotes: partial.tokenizerNotes ?? [],
+      repeatedLines: partial.repeatedLines ?? { checked: 0, lines: [] },
       shardFile: partial.shard.file,
       truncatedAbove: partial.nonEmptyDocuments > partial.candidates.length && last !== undefined ? { key: last.key, file: partial.shard.key, line: last.line } : null,
       candidateLimit: partial.candidateLimit,
@@ -145,6 +148,7 @@ export async function planReview(input: PlanInput): Promise<PlanPartial> {
     previewDocs: evenlySpacedDocuments(documents, OPINION_SAMPLE),
     input: mergedInput(input.corpus, parts),
     // As one process says them (matrix/count-each-file.ts): with more than one shard, each names its file.
+    repeatedLines: mergeRepeatedLines(parts.map((p) => p.repeatedLines)),
     tokenizerNotes: parts.flatMap((p) => (parts.length > 1 ? p.tokenizerNotes.map((note) => `${p.key}: ${note}`) : p.tokenizerNotes)),
     stopList: withSplit({ file: stopList.file, exists: stopList.exists, terms: stopList.terms, unused: entriesOfThisTokenizer(stopList.entries, tokenize).filter((e) => !dfOf.has(e.term)).map((e) => e.written) }, tokenize),
   };
