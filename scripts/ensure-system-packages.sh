@@ -4,6 +4,7 @@
 #   fortunes         an open labelled corpus (one category per file)
 #   fortunes-de, -es German and Spanish fortunes: text that is not English
 #   chromium         renders the panel and the HTML report in the UI tests
+#   xz-utils, bzip2  compress a corpus the way users do, for the message on formats it cannot read
 # Runs apt only when something is missing; without root it says what to install instead.
 set -euo pipefail
 missing=()
@@ -12,6 +13,8 @@ missing=()
 [ -d /usr/share/games/fortunes/de ] || missing+=(fortunes-de)
 [ -d /usr/share/games/fortunes/es ] || missing+=(fortunes-es)
 [ -x /usr/bin/chromium ] || missing+=(chromium)
+command -v xz >/dev/null 2>&1 || missing+=(xz-utils)
+command -v bzip2 >/dev/null 2>&1 || missing+=(bzip2)
 for extra in "$@"; do dpkg -s "$extra" >/dev/null 2>&1 || missing+=("$extra"); done
 [ ${#missing[@]} -eq 0 ] && exit 0
 if [ "$(id -u)" != 0 ]; then

@@ -1,5 +1,6 @@
 import assert from 'node:assert/strict';
 import { mkdtempSync, mkdirSync, rmSync, writeFileSync, createWriteStream } from 'node:fs';
+import { spawnSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
@@ -304,6 +305,26 @@ describe('reader bad input', () => {
       writeFileSync(file, Uint8Array.from(bytes));
       await rejectsUserError(() => openCorpus(file, {}), file, null, words);
     }
+  });
+
+  it('openCorpus: a corpus compressed by xz, bzip2 or zstd is named, with what to do (Node reads gzip only)', async () => {
+    // Files written by the compressors themselves: Debian xz-utils and bzip2 (scripts/ensure-system-packages.sh), zstd where present.
+    const text = 'id,text\n1,some words\n2,more words\n';
+    const cases: Array<[string, string[], RegExp]> = [
+      ['xz', ['-c'], /xz-compressed, not text: decompress it \(xz -dk FILE\), or compress it with gzip instead/],
+      ['bzip2', ['-c'], /bzip2-compressed, not text: decompress it \(bunzip2 -k FILE\)/],
+      ['zstd', ['-c', '-q'], /Zstandard-compressed, not text: decompress it \(zstd -d FILE\)/],
+    ];
+    let ran = 0;
+    for (const [tool, args, words] of cases) {
+      const made = spawnSync(tool, args, { input: text });
+      if (made.error !== undefined || made.status !== 0) continue;
+      ran++;
+      const file = path.join(dir, `corpus-${tool}.csv`);
+      writeFileSync(file, made.stdout);
+      await rejectsUserError(() => openCorpus(file, {}), file, null, words);
+    }
+    assert.ok(ran >= 2, 'xz and bzip2 are installed before the tests run');
   });
 
   it('openCorpusFromText: a NUL character is refused as binary', () => {

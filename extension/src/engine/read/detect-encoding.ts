@@ -110,7 +110,9 @@ function startsAsPdf(head: Uint8Array): boolean {
  * the files a corpus is often kept in before it is text. Signatures: PKWARE's ZIP APPNOTE (local
  * file header "PK\x03\x04"; .xlsx, .docx, .ods, .odt are ZIP packages), ISO 32000 (PDF,
  * "%PDF-"), RFC 1952 (gzip, 1F 8B), Microsoft's Compound File Binary format (D0 CF 11 E0:
- * .xls, .doc before 2007), Apache Parquet ("PAR1").
+ * .xls, .doc before 2007), Apache Parquet ("PAR1"), and the compressors other than gzip, which
+ * Node reads none of: xz (Tukaani's .xz format, FD 37 7A 58 5A 00), bzip2 ("BZh" and a block size
+ * digit), Zstandard (RFC 8878, 28 B5 2F FD), 7-Zip ("7z" BC AF 27 1C) and RAR ("Rar!" 1A 07).
  */
 export function binaryKind(head: Uint8Array): { what: string; todo: string } | null {
   const starts = (...bytes: number[]): boolean => bytes.every((b, i) => head[i] === b);
@@ -121,5 +123,11 @@ export function binaryKind(head: Uint8Array): { what: string; todo: string } | n
   if (starts(0x1f, 0x8b)) return { what: 'gzip-compressed', todo: 'name it with .gz at the end (corpus.csv.gz) and it is read as it is' };
   if (starts(0xd0, 0xcf, 0x11, 0xe0)) return { what: 'an Office file of the pre-2007 kind (.xls, .doc)', todo: 'save a spreadsheet as CSV (UTF-8), a document as plain text' };
   if (starts(0x50, 0x41, 0x52, 0x31)) return { what: 'a Parquet file', todo: 'name it with .parquet at the end and it is read as one' };
+  const recompress = (tool: string): string => `decompress it (${tool}), or compress it with gzip instead (a .gz file is read as it is)`;
+  if (starts(0xfd, 0x37, 0x7a, 0x58, 0x5a, 0x00)) return { what: 'xz-compressed', todo: recompress('xz -dk FILE') };
+  if (starts(0x42, 0x5a, 0x68) && head[3]! >= 0x31 && head[3]! <= 0x39) return { what: 'bzip2-compressed', todo: recompress('bunzip2 -k FILE') };
+  if (starts(0x28, 0xb5, 0x2f, 0xfd)) return { what: 'Zstandard-compressed', todo: recompress('zstd -d FILE') };
+  if (starts(0x37, 0x7a, 0xbc, 0xaf, 0x27, 0x1c)) return { what: 'a 7-Zip archive', todo: 'unpack it and review the files or their folder' };
+  if (starts(0x52, 0x61, 0x72, 0x21, 0x1a, 0x07)) return { what: 'a RAR archive', todo: 'unpack it and review the files or their folder' };
   return null;
 }
