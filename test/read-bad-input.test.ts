@@ -7,23 +7,18 @@ import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engi
 import { openCorpus, openCorpusFromText } from '../extension/src/engine/read/open-corpus';
 import { UserError } from '../extension/src/engine/user-error';
 import { valueAt } from '../extension/src/engine/read/jsonl-value';
+import { readAllRows } from './support/read-all-rows';
 
 // Robustness: each case asserts a defined result, or a UserError that names the file and line.
 
 let cases = 0;
 let dir: string;
 
-async function readAll(source: CorpusSource): Promise<CorpusRow[]> {
-  const rows: CorpusRow[] = [];
-  for await (const batch of source.batches()) rows.push(...batch);
-  return rows;
-}
-
 async function fileRows(name: string, content: string | Uint8Array, options: ReadOptions = {}): Promise<{ source: CorpusSource; rows: CorpusRow[] }> {
   const file = path.join(dir, name);
   writeFileSync(file, content);
   const source = await openCorpus(file, options);
-  return { source, rows: await readAll(source) };
+  return { source, rows: await readAllRows(source) };
 }
 
 /** Runs `fn` and checks it fails with a UserError naming `file`, the line (when given) and the words. */
@@ -54,20 +49,20 @@ describe('reader bad input', () => {
     // Source: RFC 4180 §2 rule 6/7 — a quoted field runs to its closing quote.
     const file = path.join(dir, 'unclosed.csv');
     writeFileSync(file, 'id,text\n1,fine\n2,"never closed\n3,more\n4,rows\n');
-    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 3, /unclosed quote.*line 3/);
+    await rejectsUserError(async () => readAllRows(await openCorpus(file, {})), file, 3, /unclosed quote.*line 3/);
   });
 
   it('openCorpus: an unclosed quote found only after many chunks still names its line', async () => {
     const file = path.join(dir, 'unclosed-late.csv');
     const good = Array.from({ length: 2000 }, (_, i) => `${i},document number ${i}`).join('\n');
     writeFileSync(file, `id,text\n${good}\n2000,"open\n2001,x\n`);
-    await rejectsUserError(async () => readAll(await openCorpus(file, { chunkBytes: 4096 })), file, 2002, /unclosed quote/);
+    await rejectsUserError(async () => readAllRows(await openCorpus(file, { chunkBytes: 4096 })), file, 2002, /unclosed quote/);
   });
 
   it('openCorpus: a quote closed only by text, never by a delimiter or line end, at the end of the file is unclosed', async () => {
     const file = path.join(dir, 'badquote-end.csv');
     writeFileSync(file, 'id,text\n1,ok one\n2,"abc"def\n');
-    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 3, /unclosed quote/);
+    await rejectsUserError(async () => readAllRows(await openCorpus(file, {})), file, 3, /unclosed quote/);
   });
 
   it('openCorpus: a malformed quote (text after the closing quote) skips that record with its line', async () => {
@@ -98,7 +93,7 @@ describe('reader bad input', () => {
   it('openCorpus: mixed delimiters (comma header, semicolon rows) give "no documents" naming the first bad line', async () => {
     const file = path.join(dir, 'mixed.csv');
     writeFileSync(file, 'id,text,label\n1;hello;a\n2;bye;b\n');
-    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 2, /no documents.*1 field where the header has 3/);
+    await rejectsUserError(async () => readAllRows(await openCorpus(file, {})), file, 2, /no documents.*1 field where the header has 3/);
   });
 
   it('openCorpus: format tsv forced on a comma file reads one column, whole lines as text', async () => {
@@ -284,7 +279,7 @@ describe('reader bad input', () => {
     // still covers a huge record.
     const file = path.join(dir, 'long.csv');
     await writeLongLine(file, 'a,b,', 12 * 1024 * 1024, '');
-    await rejectsUserError(async () => readAll(await openCorpus(file, {})), file, 1, /no documents/);
+    await rejectsUserError(async () => readAllRows(await openCorpus(file, {})), file, 1, /no documents/);
     rmSync(file);
   });
 

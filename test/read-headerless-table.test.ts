@@ -9,21 +9,16 @@ import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { headerVotes, readsAsComplex } from '../extension/src/engine/read/header-votes';
-import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
+import type { ReadOptions } from '../extension/src/engine/read/corpus-source';
 import { openCorpus } from '../extension/src/engine/read/open-corpus';
 import { isUserError } from '../extension/src/engine/user-error';
 import { scratchFolder } from './support/scratch-folder';
+import { readAllRows } from './support/read-all-rows';
 
 const SAMPLE = path.join(__dirname, '..', 'samples', 'support-tickets.csv');
 
 function python(script: string, ...args: string[]): string {
   return execFileSync('/usr/bin/python3', ['-c', script, ...args], { encoding: 'utf8', maxBuffer: 64 << 20 });
-}
-
-async function rows(source: CorpusSource): Promise<CorpusRow[]> {
-  const out: CorpusRow[] = [];
-  for await (const batch of source.batches()) out.push(...batch);
-  return out;
 }
 
 /** The records of a CSV file as Python's csv module reads them. */
@@ -69,9 +64,9 @@ describe('a table without its header row', function () {
     assert.deepEqual(source.fields, ['column 1', 'column 2', 'column 3', 'column 4']);
     assert.equal(source.textField, 'column 4');
     assert.match((source.notes ?? [])[0] ?? '', /^line 1 reads as a document, not a header: .*"column 1" to "column 4"/);
-    const read = await rows(source);
+    const read = await readAllRows(source);
     assert.deepEqual(read.map((r) => r.text), records.slice(1).map((r) => r[3]!.replace(/\r\n?/g, '\n')));
-    const labelled = await rows(await openCorpus(file, { labelField: 'column 3' }));
+    const labelled = await readAllRows(await openCorpus(file, { labelField: 'column 3' }));
     assert.deepEqual(labelled.map((r) => r.label), records.slice(1).map((r) => r[2]!));
     await assert.rejects(openCorpus(file, { labelField: 'topic' }), (e: unknown) => isUserError(e) && /no label field "topic".*line 1 reads as a document/.test((e as Error).message));
 
@@ -92,7 +87,7 @@ describe('a table without its header row', function () {
     for (const options of [{ textField: 'text' }, { labelField: 'id' }] as ReadOptions[]) {
       const source = await opened(options);
       assert.deepEqual(source.fields, ['id', 'text']);
-      assert.equal((await rows(source)).length, 3);
+      assert.equal((await readAllRows(source)).length, 3);
     }
   });
 });

@@ -5,17 +5,12 @@ import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import fc from 'fast-check';
-import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
+import type { ReadOptions } from '../extension/src/engine/read/corpus-source';
 import { JsonArraySplitter } from '../extension/src/engine/read/json-array-splitter';
 import { openCorpus, openCorpusFromText } from '../extension/src/engine/read/open-corpus';
 import { UserError } from '../extension/src/engine/user-error';
 import { scratchFolder } from './support/scratch-folder';
-
-async function readAll(source: CorpusSource): Promise<CorpusRow[]> {
-  const rows: CorpusRow[] = [];
-  for await (const batch of source.batches()) rows.push(...batch);
-  return rows;
-}
+import { readAllRows } from './support/read-all-rows';
 
 async function rejects(fn: () => Promise<unknown> | unknown, line: number | null, words: RegExp): Promise<void> {
   try {
@@ -57,7 +52,7 @@ describe('a corpus as a JSON array of records', () => {
         const file = path.join(dir(), `r${run++}.json`);
         writeFileSync(file, JSON.stringify(records, null, indent));
         const expected = pythonRecords(file);
-        const rows = await readAll(await openCorpus(file, { textField: 'body', labelField: 'topic', chunkBytes }));
+        const rows = await readAllRows(await openCorpus(file, { textField: 'body', labelField: 'topic', chunkBytes }));
         assert.deepEqual(
           rows.map((r) => [r.text, r.label]),
           expected.map(([body, topic]) => [body, topic]),
@@ -70,7 +65,7 @@ describe('a corpus as a JSON array of records', () => {
   it('gives each record the line its element starts on, so hubs and errors point at it', async () => {
     const records = [{ body: 'one two' }, { body: 'three\nfour', topic: 'x' }, { body: 'five' }];
     const text = JSON.stringify(records, null, 2);
-    const rows = await readAll(openCorpusFromText('t.json', text, {}));
+    const rows = await readAllRows(openCorpusFromText('t.json', text, {}));
     const lines = text.split('\n');
     const starts = lines.flatMap((l, i) => (l === '  {' ? [i + 1] : []));
     assert.deepEqual(
@@ -91,7 +86,7 @@ describe('a corpus as a JSON array of records', () => {
 
   it('reads an array of strings (json.dump of a list of texts) as one document per string', async () => {
     const source = openCorpusFromText('t.json', '["first text", "second \\"quoted\\" text", 3, "  "]', {});
-    const rows = await readAll(source);
+    const rows = await readAllRows(source);
     assert.deepEqual(
       rows.map((r) => r.text),
       ['first text', 'second "quoted" text'],
@@ -106,12 +101,12 @@ describe('a corpus as a JSON array of records', () => {
     const source = openCorpusFromText('t.json', '{"body":"one text"}\n{"body":"two texts"}\n', {});
     assert.equal(source.format, 'jsonl');
     assert.match((source.notes ?? []).join(' '), /one JSON object a line: read as JSON Lines/);
-    assert.equal((await readAll(source)).length, 2);
+    assert.equal((await readAllRows(source)).length, 2);
   });
 
   it('skips an element that is not an object, with its line, and keeps the rest', async () => {
     const source = openCorpusFromText('t.json', '[\n{"body":"one"},\n[1, 2],\n{"body":"two"},\n{"body":"three"}\n]', {});
-    const rows = await readAll(source);
+    const rows = await readAllRows(source);
     assert.deepEqual(
       rows.map((r) => r.text),
       ['one', 'two', 'three'],
@@ -141,13 +136,13 @@ describe('a corpus as a JSON array of records', () => {
     // A record of a few string fields on one line stays a record (JSON Lines under a .json name).
     const record = path.join(dir(), 'one-record.json');
     writeFileSync(record, JSON.stringify({ id: 'a', title: 'short', body: 'the text of the one record' }));
-    assert.equal((await readAll(await openCorpus(record, {}))).length, 1);
+    assert.equal((await readAllRows(await openCorpus(record, {}))).length, 1);
   });
 
   it('names the line of what breaks the array: a missing comma, text after it, a file that ends inside it, an empty array', async () => {
-    await rejects(() => readAll(openCorpusFromText('t.json', '[\n{"body":"one"}\n{"body":"two"}\n]', {})), 3, /^"\{\\"body\\":\\"two" after the element that starts on line 2, where a comma or the array's "\]" should be/);
-    await rejects(() => readAll(openCorpusFromText('t.json', '[{"body":"one"}]\n[{"body":"two"}]', {})), 2, /after the JSON array's closing "\]"/);
-    await rejects(() => readAll(openCorpusFromText('t.json', '[{"body":"one"},\n{"body":"two"', {})), 2, /the file ends inside the element that starts on line 2/);
+    await rejects(() => readAllRows(openCorpusFromText('t.json', '[\n{"body":"one"}\n{"body":"two"}\n]', {})), 3, /^"\{\\"body\\":\\"two" after the element that starts on line 2, where a comma or the array's "\]" should be/);
+    await rejects(() => readAllRows(openCorpusFromText('t.json', '[{"body":"one"}]\n[{"body":"two"}]', {})), 2, /after the JSON array's closing "\]"/);
+    await rejects(() => readAllRows(openCorpusFromText('t.json', '[{"body":"one"},\n{"body":"two"', {})), 2, /the file ends inside the element that starts on line 2/);
     await rejects(() => openCorpusFromText('t.json', '[ ]', {}), null, /no documents: the JSON array is empty/);
     await rejects(() => openCorpusFromText('t.json', '"just a string"', {}), 1, /not a JSON array of documents/);
   });

@@ -6,12 +6,7 @@ import Papa from 'papaparse';
 import type { CorpusRow, CorpusSource } from '../extension/src/engine/read/corpus-source';
 import { openCorpus, openCorpusFromText } from '../extension/src/engine/read/open-corpus';
 import { scratchFolder } from './support/scratch-folder';
-
-async function readAll(source: CorpusSource, batchSize?: number): Promise<CorpusRow[]> {
-  const rows: CorpusRow[] = [];
-  for await (const batch of source.batches(batchSize)) rows.push(...batch);
-  return rows;
-}
+import { readAllRows } from './support/read-all-rows';
 
 /** Line breaks as an editor counts them (CRLF, CR, LF). */
 function lineBreaks(s: string): number {
@@ -26,7 +21,7 @@ describe('openCorpusFromText', () => {
     // quotes, and a quote inside is written twice.
     const csv = 'id,text,topic\n1,"first line\nsecond line",billing\n2,"say ""hi"", then go",\n3,plain,login\n';
     const source = openCorpusFromText('t.csv', csv, { labelField: 'topic' });
-    const rows = await readAll(source);
+    const rows = await readAllRows(source);
     assert.deepEqual(source.fields, ['id', 'text', 'topic']);
     assert.equal(source.textField, 'text');
     assert.deepEqual(rows, [
@@ -59,7 +54,7 @@ describe('openCorpusFromText', () => {
       const csv = ['id', 'text', 'label'].join(d) + '\n' + ['1', 'one, two, three', 'a'].join(d) + '\n' + ['2', 'four, five', 'b'].join(d) + '\n';
       const source = openCorpusFromText('t.csv', csv, { labelField: 'label' });
       assert.equal(source.delimiter, d);
-      const rows = await readAll(source);
+      const rows = await readAllRows(source);
       assert.deepEqual(rows.map((r) => r.text), ['one, two, three', 'four, five']);
     }
   });
@@ -67,7 +62,7 @@ describe('openCorpusFromText', () => {
   it('openCorpusFromText reads JSON Lines and converts numeric labels', async () => {
     // Source: jsonlines.org — one JSON value per line.
     const jsonl = '{"id":1,"text":"alpha beta","y":3}\n\n{"id":2,"text":"gamma","y":null}\n';
-    const rows = await readAll(openCorpusFromText('t.jsonl', jsonl, { labelField: 'y' }));
+    const rows = await readAllRows(openCorpusFromText('t.jsonl', jsonl, { labelField: 'y' }));
     assert.deepEqual(rows, [
       { text: 'alpha beta', label: '3', line: 1 },
       { text: 'gamma', label: null, line: 3 },
@@ -77,7 +72,7 @@ describe('openCorpusFromText', () => {
   it('openCorpusFromText reads plain text as one document per line, skipping blank lines', async () => {
     const source = openCorpusFromText('notes.txt', 'one doc\r\n\r\n  \ntwo doc\rthree\n', {});
     assert.equal(source.format, 'text');
-    const rows = await readAll(source);
+    const rows = await readAllRows(source);
     assert.deepEqual(rows, [
       { text: 'one doc', label: null, line: 1 },
       { text: 'two doc', label: null, line: 4 },
@@ -102,13 +97,13 @@ describe('openCorpusFromText', () => {
     const sizes: number[] = [];
     for await (const b of source.batches(10)) sizes.push(b.length);
     assert.deepEqual(sizes, [10, 10, 5]);
-    assert.equal((await readAll(source)).length, 25);
+    assert.equal((await readAllRows(source)).length, 25);
   });
 
   it('maxBytes cuts the input, drops the unfinished record and says so', async () => {
     const text = 'aaaa\nbbbb\ncccc\n';
     const source = openCorpusFromText('t.txt', text, { maxBytes: 12 });
-    const rows = await readAll(source);
+    const rows = await readAllRows(source);
     assert.deepEqual(rows.map((r) => r.text), ['aaaa', 'bbbb']);
     assert.deepEqual(source.truncated, { bytesRead: 12, limitBytes: 12 });
   });
@@ -121,9 +116,9 @@ describe('openCorpus (files)', () => {
     const body = 'id,text\n' + Array.from({ length: 300 }, (_, i) => `${i},"héllo ${i}\r\nwörld 😀 ${i}"`).join('\r\n') + '\r\n';
     const file = path.join(dir(), 'chunks.csv');
     writeFileSync(file, body, 'utf8');
-    const whole = await readAll(await openCorpus(file, {}));
+    const whole = await readAllRows(await openCorpus(file, {}));
     for (const chunkBytes of [1, 2, 3, 7, 64]) {
-      const small = await readAll(await openCorpus(file, { chunkBytes }));
+      const small = await readAllRows(await openCorpus(file, { chunkBytes }));
       assert.deepEqual(small, whole, `chunkBytes ${chunkBytes}`);
     }
     assert.equal(whole.length, 300);
@@ -163,7 +158,7 @@ describe('openCorpus (files)', () => {
           writeFileSync(file, csv, 'utf8');
           source = await openCorpus(file, options);
         } else source = openCorpusFromText('prop.csv', csv, options);
-        const got = await readAll(source, 5);
+        const got = await readAllRows(source, 5);
         assert.deepEqual(got, expected);
         // An empty text is skipped with a reason, never silently dropped.
         assert.equal(source.skipped.count, blankTexts);

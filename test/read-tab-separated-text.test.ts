@@ -9,17 +9,12 @@ import { strict as assert } from 'node:assert';
 import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
-import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
+import type { ReadOptions } from '../extension/src/engine/read/corpus-source';
 import { openCorpus } from '../extension/src/engine/read/open-corpus';
 import { scratchFolder } from './support/scratch-folder';
+import { readAllRows } from './support/read-all-rows';
 
 const SAMPLE = path.join(__dirname, '..', 'samples', 'support-tickets.csv');
-
-async function rows(source: CorpusSource): Promise<CorpusRow[]> {
-  const out: CorpusRow[] = [];
-  for await (const batch of source.batches()) out.push(...batch);
-  return out;
-}
 
 describe('a .txt file of tab-separated columns', function () {
   this.timeout(60_000);
@@ -55,7 +50,7 @@ describe('a .txt file of tab-separated columns', function () {
       assert.equal(source.format, 'tsv');
       assert.equal(source.textField, 'message');
       assert.match((source.notes ?? [])[0] ?? '', /tab-separated with a header row \("id", "received", "topic", "message"\).*read as TSV/);
-      const read = await rows(source);
+      const read = await readAllRows(source);
       assert.equal(read.length + source.skipped.count, records);
       assert.equal(source.skipped.count, 0);
     }

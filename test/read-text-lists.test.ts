@@ -8,18 +8,12 @@ import { strict as assert } from 'node:assert';
 import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import * as path from 'node:path';
-import type { CorpusRow, CorpusSource } from '../extension/src/engine/read/corpus-source';
 import { openCorpus } from '../extension/src/engine/read/open-corpus';
 import { startReview } from '../extension/src/engine/review/start-review';
 import { scratchFolder } from './support/scratch-folder';
+import { readAllRows } from './support/read-all-rows';
 
 const SAMPLE = path.join(__dirname, '..', 'samples', 'support-tickets.csv');
-
-async function rows(source: CorpusSource): Promise<CorpusRow[]> {
-  const out: CorpusRow[] = [];
-  for await (const batch of source.batches()) out.push(...batch);
-  return out;
-}
 
 describe('a text field that holds a list of strings', function () {
   this.timeout(120_000);
@@ -48,7 +42,7 @@ describe('a text field that holds a list of strings', function () {
     const source = await openCorpus(file, {});
     assert.equal(source.textField, 'sentences');
     assert.match((source.notes ?? [])[0] ?? '', /^"sentences" holds lists of strings .* joined by line breaks/);
-    assert.deepEqual((await rows(source)).map((r) => r.text), joined);
+    assert.deepEqual((await readAllRows(source)).map((r) => r.text), joined);
   });
 
   it('a review of the sentences or of the tokens counts what a review of the messages counts', async () => {
@@ -67,7 +61,7 @@ describe('a text field that holds a list of strings', function () {
     const file = path.join(dir(), 'mixed.jsonl');
     writeFileSync(file, '{"text": ["a first", "document"]}\n{"text": ["a", 2]}\n{"text": []}\n{"text": "plain text"}\n');
     const source = await openCorpus(file, { textField: 'text' });
-    assert.deepEqual((await rows(source)).map((r) => r.text), ['a first\ndocument', 'plain text']);
+    assert.deepEqual((await readAllRows(source)).map((r) => r.text), ['a first\ndocument', 'plain text']);
     assert.equal(source.skipped.count, 2);
     assert.match(source.skipped.examples[0]?.reason ?? '', /"text" is a list that holds more than strings, not text/);
     assert.match(source.skipped.examples[1]?.reason ?? '', /"text" is an empty list/);

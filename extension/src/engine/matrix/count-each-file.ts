@@ -1,5 +1,4 @@
 import type { CorpusRow, CorpusSource } from '../read/corpus-source';
-import { mergeRepeatedLines } from './repeated-lines';
 import type { FileByFileSource } from '../read/many-files-corpus';
 import { coderEncoder, type FileLanes } from '../tokenize/batch-encoder';
 import type { TokenSettings } from '../tokenize/create-tokenizer';
@@ -7,6 +6,7 @@ import { freshTermCoder } from '../tokenize/fresh-term-coder';
 import { buildCountMatrix, type BuiltCorpus } from './build-count-matrix';
 import { compareCodePoints } from './compare-code-points';
 import { renumberFirstTerms } from './csr';
+import { mergeRepeatedLines } from './repeated-lines';
 
 /** Counts one file of a many-file corpus (one shard) in this thread, with a fresh tokeniser (tokenize/fresh-term-coder.ts). */
 export function countFile(source: CorpusSource, tokens: TokenSettings, signal?: AbortSignal): Promise<BuiltCorpus> {

@@ -1,3 +1,6 @@
+import { fmix32 } from '../random/place-hash';
+import { FNV_OFFSET, FNV_PRIME } from '../tokenize/chunk-table';
+
 /**
  * Lines that recur across documents of several lines: signatures ("Sent from my iPhone"),
  * disclaimers, form footers, licence headers. A repeated line adds the same similarity to every
@@ -85,18 +88,7 @@ export class RepeatedLineCounter {
  * file whose every tenth document carries a footer is not read at multiples of 8 (every 40th).
  */
 function atStride(doc: number, stride: number): boolean {
-  return (mix(doc) & (stride - 1)) === 0;
-}
-
-/** MurmurHash3's 32-bit finaliser (Appleby): every bit of the input moves every bit of the output. */
-function mix(x: number): number {
-  let h = x >>> 0;
-  h ^= h >>> 16;
-  h = Math.imul(h, 0x85ebca6b);
-  h ^= h >>> 13;
-  h = Math.imul(h, 0xc2b2ae35);
-  h ^= h >>> 16;
-  return h >>> 0;
+  return (fmix32(doc >>> 0) & (stride - 1)) === 0;
 }
 
 /**
@@ -169,10 +161,10 @@ function longEnough(text: string, start: number, end: number): boolean {
   return words >= MIN_WORDS;
 }
 
-/** FNV-1a over the code units of text[start, end). */
+/** FNV-1a over the code units of text[start, end), as the tokenizers' chunk table hashes. */
 function hashOf(text: string, start: number, end: number): number {
-  let h = 0x811c9dc5;
-  for (let i = start; i < end; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193);
+  let h = FNV_OFFSET;
+  for (let i = start; i < end; i++) h = Math.imul(h ^ text.charCodeAt(i), FNV_PRIME);
   return h >>> 0;
 }
 
