@@ -130,7 +130,7 @@ export interface Report {
     documents: number;
     skipped: number;
     /**
-     * Documents whose label is empty or missing, when there is a label field: label precision
+     * Documents whose label is empty, missing or a list, when there is a label field: label precision
      * does not score them, and as a neighbour each counts as a miss (engine/measures/label-precision.ts).
      */
     unlabelled?: number | undefined;

@@ -6,7 +6,7 @@ import { detectLayout, type CorpusLayout } from './corpus-layout';
 import { ChunkDecoder } from './chunk-decoder';
 import { BINARY_PROBE_BYTES, detectEncoding } from './detect-encoding';
 import { NewlineNormalizer } from './newline-normalizer';
-import { checkPass, createRowSink, type PassState } from './row-stream';
+import { checkPass, createRowSink, listLabelNote, type PassState } from './row-stream';
 import { CHUNK_BYTES, fileTextChunks, memoryTextChunks } from './text-chunks';
 import { completeUtf8Length } from './utf8-boundary';
 import { fileKind, readErrorMessage } from './regular-file';
@@ -141,6 +141,7 @@ class StreamedCorpus implements CorpusSource {
       }
     }
     sink.end(this.cut !== null);
+    if (state.listLabels !== undefined && this.labelField !== null) notes.push(listLabelNote(this.labelField, state.listLabels));
     this.truncated = this.cut;
     checkPass(this.file, state, this.layout.format);
     for (let i = 0; i < pending.length; i += batchSize) yield pending.slice(i, i + batchSize);

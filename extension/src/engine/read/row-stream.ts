@@ -16,6 +16,8 @@ export interface PassState {
   documents: number;
   /** Lines (JSON Lines) or elements (a JSON array) that were not valid JSON. */
   brokenJson: number;
+  /** Documents whose label is a list (tags), read without a label, and the line of the first. */
+  listLabels?: { count: number; firstLine: number };
 }
 
 type Emit = (row: CorpusRow) => void;
@@ -106,9 +108,13 @@ function jsonlRow(
   let label: string | null = null;
   if (layout.labelField !== null) {
     const raw = valueAt(parsed.object, layout.labelField);
-    if (raw !== undefined && raw !== null) {
+    if (Array.isArray(raw)) {
+      // A list of tags is no class: the document is reviewed without a label, and a note says why.
+      state.listLabels ??= { count: 0, firstLine: line };
+      state.listLabels.count++;
+    } else if (raw !== undefined && raw !== null) {
       const l = scalarText(raw);
-      if ('reason' in l) return skip(line, `"${layout.labelField}" ${Array.isArray(raw) ? LABEL_LIST : l.reason}`);
+      if ('reason' in l) return skip(line, `"${layout.labelField}" ${l.reason}`);
       label = l.text === '' ? null : l.text;
     }
   }
@@ -116,10 +122,14 @@ function jsonlRow(
 }
 
 /**
- * Why a label that is a list (tags, several classes) is refused: label precision asks whether a
- * neighbour has the document's class, which needs one class a document.
+ * The note on documents whose label is a list (tags, several classes): label precision asks
+ * whether a neighbour has the document's class, which needs one class a document, so they are
+ * reviewed without a label rather than left out of a review of distances.
  */
-const LABEL_LIST = "is a list, not one label: label precision needs one class per document (write each document's class in a field of its own)";
+export function listLabelNote(labelField: string, lists: { count: number; firstLine: number }): string {
+  const documents = `${formatCount(lists.count)} document${lists.count === 1 ? '' : 's'}`;
+  return `${documents} ${lists.count === 1 ? 'holds' : 'hold'} a list in "${labelField}" (the first on line ${lists.firstLine}), not one label: label precision needs one class per document, so they were reviewed without a label; to measure precision, write each document's class in a field of its own`;
+}
 
 /** An element of a JSON array of strings: the string is the document. */
 function stringElement(text: string, line: number, skip: (line: number, reason: string) => void, accept: Emit, state: PassState): void {

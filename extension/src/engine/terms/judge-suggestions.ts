@@ -167,7 +167,7 @@ export function judgeSuggestions(input: JudgeInput): Verdict {
  */
 export function blindLabels(before: Float64Array, after: Float64Array, labels: Int32Array | null): string | null {
   if (labels !== null && !labels.some((id) => id >= 0)) {
-    return 'The labels cannot judge the list: no sampled document has a label (every value of the label field is empty or missing). So the verdict is by neighbour standout, as without labels; pass a field that holds classes (a topic, a rating) to measure precision.';
+    return 'The labels cannot judge the list: no sampled document has a label (every value of the label field is empty, missing or a list). So the verdict is by neighbour standout, as without labels; pass a field that holds classes (a topic, a rating) to measure precision.';
   }
   let value: number | null = null;
   for (const values of [before, after]) {
