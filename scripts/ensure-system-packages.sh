@@ -5,6 +5,7 @@
 #   fortunes-de, -es German and Spanish fortunes: text that is not English
 #   chromium         renders the panel and the HTML report in the UI tests
 #   xz-utils, bzip2  compress a corpus the way users do, for the message on formats it cannot read
+#   python3-pandas   writes a data frame in each of its layouts, as users save their corpora
 # Runs apt only when something is missing; without root it says what to install instead.
 set -euo pipefail
 missing=()
@@ -14,6 +15,7 @@ missing=()
 [ -d /usr/share/games/fortunes/es ] || missing+=(fortunes-es)
 [ -x /usr/bin/chromium ] || missing+=(chromium)
 command -v xz >/dev/null 2>&1 || missing+=(xz-utils)
+/usr/bin/python3 -c 'import pandas' >/dev/null 2>&1 || missing+=(python3-pandas)
 command -v bzip2 >/dev/null 2>&1 || missing+=(bzip2)
 for extra in "$@"; do dpkg -s "$extra" >/dev/null 2>&1 || missing+=("$extra"); done
 [ ${#missing[@]} -eq 0 ] && exit 0

@@ -205,6 +205,14 @@ function jsonArrayLayout(file: string, head: string, headComplete: boolean, opti
   if (elements.length === 0) {
     throw new UserError(headComplete ? 'no documents: the JSON array is empty' : 'found no complete record in the start of the JSON array', file, null);
   }
+  // Rows without field names: say how to write records instead of "not records" 200 times over.
+  if (elements[0]!.text.startsWith('[')) {
+    throw new UserError(
+      'a JSON array of arrays (rows without field names, as pandas\' DataFrame.to_json(orient="values") writes): Loudword reads an array of objects or of strings; write the frame with orient="records"',
+      file,
+      elements[0]!.line,
+    );
+  }
   // An array of strings (json.dump of a list of texts): each string is a document.
   if (elements[0]!.text.startsWith('"')) {
     const notes = options.textField != null || options.labelField != null ? ['a JSON array of strings has no fields: the text and label settings were ignored'] : [];
@@ -218,7 +226,7 @@ function jsonArrayLayout(file: string, head: string, headComplete: boolean, opti
 /** What a file holding a single JSON object (not records) gets: where its records may be. */
 function singleObjectMessage(file: string, head: string, headComplete: boolean): string {
   const base = 'a single JSON object, not records: Loudword reads a JSON array of objects ([{"text": …}, …]) or JSON Lines (one object a line)';
-  if (!headComplete) return base;
+  if (!headComplete) return base + layoutByItsStart(head, path.basename(file));
   let value: unknown;
   try {
     value = JSON.parse(head);
@@ -245,6 +253,23 @@ function singleObjectMessage(file: string, head: string, headComplete: boolean):
   const name = path.basename(file);
   const jqKey = /^[A-Za-z_][A-Za-z0-9_]*$/.test(key) ? key : JSON.stringify(key);
   return `${base}; its arrays: ${named} — to read "${key}", write it one record a line: jq -c '.${jqKey}[]' ${name} > ${name.replace(/\.json$/i, '')}.jsonl`;
+}
+
+/**
+ * What a single JSON object too long to parse from its start shows of its layout there: pandas'
+ * orient="table" (a schema, then the records under "data"), a frame's columns or index (objects
+ * under keys), or texts under keys (a dict or a Series); "" when the start shows none of them.
+ */
+function layoutByItsStart(head: string, name: string): string {
+  const stem = name.replace(/\.json$/i, '');
+  if (/^\s*\{\s*"schema"\s*:\s*\{\s*"fields"/.test(head)) {
+    return `; this looks like pandas' DataFrame.to_json(orient="table"), whose records are under "data": write them one a line, jq -c '.data[]' ${name} > ${stem}.jsonl, or write the frame with orient="records"`;
+  }
+  if (/^\s*\{\s*"(?:[^"\\]|\\.)*"\s*:\s*\{/.test(head)) return '; this looks like pandas\' DataFrame.to_json() without orient="records": write it with orient="records" (or lines=True for JSON Lines)';
+  if (/^\s*\{\s*"(?:[^"\\]|\\.)*"\s*:\s*"/.test(head)) {
+    return `; it maps keys to strings, as json.dump of a dict or pandas' Series.to_json() writes texts by their id: write one record a line, jq -c 'to_entries[] | {id: .key, text: .value}' ${name} > ${stem}.jsonl, or in pandas Series.to_json(orient="records")`;
+  }
+  return '';
 }
 
 /**

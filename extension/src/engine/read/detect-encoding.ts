@@ -112,7 +112,10 @@ function startsAsPdf(head: Uint8Array): boolean {
  * "%PDF-"), RFC 1952 (gzip, 1F 8B), Microsoft's Compound File Binary format (D0 CF 11 E0:
  * .xls, .doc before 2007), Apache Parquet ("PAR1"), and the compressors other than gzip, which
  * Node reads none of: xz (Tukaani's .xz format, FD 37 7A 58 5A 00), bzip2 ("BZh" and a block size
- * digit), Zstandard (RFC 8878, 28 B5 2F FD), 7-Zip ("7z" BC AF 27 1C) and RAR ("Rar!" 1A 07).
+ * digit), Zstandard (RFC 8878, 28 B5 2F FD), 7-Zip ("7z" BC AF 27 1C) and RAR ("Rar!" 1A 07); and
+ * the files a data frame is saved to other than text: a Python pickle of protocol 2 to 5 (PEP 307:
+ * the PROTO opcode 80 and the protocol number; pandas' to_pickle), Arrow IPC and Feather
+ * ("ARROW1"), HDF5 (89 "HDF" 0D 0A 1A 0A; pandas' to_hdf) and SQLite ("SQLite format 3" and a NUL).
  */
 export function binaryKind(head: Uint8Array): { what: string; todo: string } | null {
   const starts = (...bytes: number[]): boolean => bytes.every((b, i) => head[i] === b);
@@ -129,5 +132,12 @@ export function binaryKind(head: Uint8Array): { what: string; todo: string } | n
   if (starts(0x28, 0xb5, 0x2f, 0xfd)) return { what: 'Zstandard-compressed', todo: recompress('zstd -d FILE') };
   if (starts(0x37, 0x7a, 0xbc, 0xaf, 0x27, 0x1c)) return { what: 'a 7-Zip archive', todo: 'unpack it and review the files or their folder' };
   if (starts(0x52, 0x61, 0x72, 0x21, 0x1a, 0x07)) return { what: 'a RAR archive', todo: 'unpack it and review the files or their folder' };
+  const asText = 'write the data frame as text: df.to_csv("corpus.csv", index=False), or df.to_json("corpus.jsonl", orient="records", lines=True)';
+  if (head[0] === 0x80 && head[1]! >= 2 && head[1]! <= 5) return { what: "a Python pickle (pandas' to_pickle)", todo: asText };
+  if (starts(0x41, 0x52, 0x52, 0x4f, 0x57, 0x31)) return { what: 'an Arrow or Feather file', todo: asText };
+  if (starts(0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a)) return { what: "an HDF5 file (pandas' to_hdf)", todo: asText };
+  if (starts(...[...Buffer.from('SQLite format 3', 'latin1')], 0x00)) {
+    return { what: 'an SQLite database', todo: 'export the table that holds the texts as CSV, for example: sqlite3 -header -csv FILE "select * from TABLE" > corpus.csv' };
+  }
   return null;
 }
