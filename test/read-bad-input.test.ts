@@ -1,6 +1,6 @@
 import assert from 'node:assert/strict';
 import { mkdtempSync, mkdirSync, rmSync, writeFileSync, createWriteStream } from 'node:fs';
-import { spawnSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import type { CorpusRow, CorpusSource, ReadOptions } from '../extension/src/engine/read/corpus-source';
@@ -151,6 +151,22 @@ describe('reader bad input', () => {
     const file = path.join(dir, 'binary.csv');
     writeFileSync(file, Buffer.from([0x07, 0x4b, 0x03, 0x04, 0x00, 0x00, 0x08, 0x00]));
     await rejectsUserError(() => openCorpus(file, {}), file, null, /looks like a binary file/);
+  });
+
+  it('openCorpus: a stray NUL in a field of a text export is read, with a note; NULs as frequent as in binary data are not', async () => {
+    // A database export with one NUL in a message: Python's csv module writes it as it is.
+    const file = path.join(dir, 'stray-nul.csv');
+    const script = 'import csv, sys\nw = csv.writer(open(sys.argv[1], "w", newline="", encoding="utf-8"))\nw.writerow(["id", "text"])\nfor i in range(200):\n    w.writerow([i, f"message number {i} with some words" + ("\\x00 after a NUL" if i == 7 else "")])';
+    execFileSync('/usr/bin/python3', ['-c', script, file]);
+    const source = await openCorpus(file, {});
+    const rows = await readAllRows(source);
+    assert.equal(rows.length, 200);
+    assert.equal(rows[7]!.text, 'message number 7 with some words\0 after a NUL');
+    assert.match((source.notes ?? []).join(' '), /a NUL byte at offset \d+ among text that is otherwise UTF-8: read as text/);
+    // One NUL in every 100 bytes of the same text: binary, as before.
+    const dense = path.join(dir, 'dense-nul.csv');
+    writeFileSync(dense, 'id,text\n' + Array.from({ length: 200 }, (_, i) => `${i},${'w'.repeat(90)}\0`).join('\n'));
+    await rejectsUserError(() => openCorpus(dense, {}), dense, null, /looks like a binary file/);
   });
 
   it('openCorpus: an empty file, and a BOM-only file, are UserErrors', async () => {

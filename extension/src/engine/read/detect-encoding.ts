@@ -24,16 +24,21 @@ export const BINARY_PROBE_BYTES = 64 * 1024;
 export function detectEncoding(head: Uint8Array, file: string, headIsWholeFile: boolean): DetectedEncoding {
   if (head.length >= 3 && head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf) {
     // A BOM does not make the rest text: binary after it is still binary.
-    refuseBinary(head.subarray(3, 3 + BINARY_PROBE_BYTES), 3, file, 'after its UTF-8 byte-order mark');
-    return { encoding: 'utf-8', bomLength: 3, note: null };
+    const probe = head.subarray(3, 3 + BINARY_PROBE_BYTES);
+    if (!strayNuls(probe)) refuseBinary(probe, 3, file, 'after its UTF-8 byte-order mark');
+    return { encoding: 'utf-8', bomLength: 3, note: nulNote(probe, 3) };
   }
   if (head.length >= 2 && head[0] === 0xff && head[1] === 0xfe) return utf16(head, 'utf-16le', file);
   if (head.length >= 2 && head[0] === 0xfe && head[1] === 0xff) return utf16(head, 'utf-16be', file);
 
   const probe = head.subarray(0, BINARY_PROBE_BYTES);
   const nul = probe.indexOf(0);
+  const kind = binaryKind(head);
+  if (kind === null && nul >= 0 && strayNuls(probe)) {
+    // Text with a stray NUL or two (a database export): read as UTF-8 text, with a note.
+    return { encoding: 'utf-8', bomLength: 0, note: nulNote(probe, 0) };
+  }
   if (nul >= 0 || startsAsPdf(head)) {
-    const kind = binaryKind(head);
     throw new UserError(
       kind !== null
         ? `${kind.what}, not text: ${kind.todo}`
@@ -67,6 +72,36 @@ export function firstInvalidUtf8Offset(bytes: Uint8Array): number {
     else hi = mid;
   }
   return completeUtf8Length(bytes.subarray(0, lo));
+}
+
+/**
+ * A probe that is text but for a few NUL bytes: at most one NUL and one other control byte per
+ * 4 KiB (TAB, LF, VT, FF and CR are text), and valid UTF-8 otherwise. Binary formats hold NULs
+ * and control bytes by the hundred in 64 KiB; a CSV exported from a database sometimes holds a
+ * stray NUL in one field, and refusing the whole file for it left the user nothing to review.
+ */
+export function strayNuls(probe: Uint8Array): boolean {
+  const bound = Math.max(1, Math.floor(probe.length / 4096));
+  let nuls = 0;
+  let controls = 0;
+  for (let i = 0; i < probe.length; i++) {
+    const b = probe[i]!;
+    if (b >= 0x20 || (b >= 0x09 && b <= 0x0d)) continue;
+    if (b === 0) {
+      if (++nuls > bound) return false;
+    } else if (++controls > bound) return false;
+  }
+  return isUtf8(probe.subarray(0, completeUtf8Length(probe)));
+}
+
+/** The note on the stray NULs of a probe that strayNuls accepted; null when it holds none. */
+function nulNote(probe: Uint8Array, base: number): string | null {
+  const first = probe.indexOf(0);
+  if (first < 0) return null;
+  let count = 0;
+  for (let i = first; i < probe.length; i++) if (probe[i] === 0) count++;
+  const where = count === 1 ? `a NUL byte at offset ${base + first}` : `${count} NUL bytes (the first at offset ${base + first})`;
+  return `${where} among text that is otherwise UTF-8: read as text, ${count === 1 ? 'it is a character' : 'each is a character'} no token holds`;
 }
 
 function refuseBinary(probe: Uint8Array, base: number, file: string, where: string): void {
